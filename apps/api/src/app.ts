@@ -1,0 +1,63 @@
+import { randomUUID } from 'node:crypto';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { AppDeps } from './deps';
+import { errorHandler, notFoundHandler } from './middleware/error-handler';
+import { apiRoutes } from './routes';
+
+/** The content security policy the built web app runs under (no request leaves the origin). */
+export const CONTENT_SECURITY_POLICY = {
+  defaultSrc: ["'self'"],
+  scriptSrc: ["'self'"],
+  scriptSrcAttr: ["'none'"],
+  styleSrc: ["'self'", "'unsafe-inline'"],
+  imgSrc: ["'self'", 'data:', 'blob:'],
+  fontSrc: ["'self'"],
+  connectSrc: ["'self'"],
+  objectSrc: ["'none'"],
+  baseUri: ["'self'"],
+  frameAncestors: ["'none'"],
+  formAction: ["'self'"],
+  upgradeInsecureRequests: null,
+};
+
+/** Builds the Express application: API under /api, the built web app everywhere else. */
+export function createApp(deps: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', false);
+  app.use(
+    helmet({
+      contentSecurityPolicy: { useDefaults: false, directives: CONTENT_SECURITY_POLICY },
+      crossOriginEmbedderPolicy: false,
+      hsts: false,
+    }),
+  );
+  app.use(
+    pinoHttp({
+      logger: deps.logger,
+      quietReqLogger: true,
+      genReqId: (req, res) => {
+        const id = randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      redact: ['req.headers.authorization', 'req.headers.cookie', '*.password', '*.passwordHash'],
+    }),
+  );
+  app.use('/api', express.json({ limit: '1mb', strict: true }));
+  app.use('/api', apiRoutes(deps));
+  app.use('/api', notFoundHandler);
+
+  const dist = deps.config.webDist;
+  if (existsSync(join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    app.get('/{*path}', (_req, res) => res.sendFile(join(dist, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

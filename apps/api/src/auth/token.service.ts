@@ -1,0 +1,40 @@
+import jwt from 'jsonwebtoken';
+import type { SessionUser } from '@rhotrace/api-types';
+
+/** Only this algorithm is accepted; `none` and asymmetric confusion are refused. */
+export const TOKEN_ALGORITHM = 'HS256' as const;
+
+interface TokenClaims {
+  sub: string;
+  ver: number;
+}
+
+/** Signs a session token for the user; `ttlS` seconds of validity. */
+export function signToken(
+  user: SessionUser & { tokenVersion: number },
+  secret: string,
+  ttlS: number,
+): { token: string; expiresAt: string } {
+  const token = jwt.sign({ ver: user.tokenVersion } satisfies Omit<TokenClaims, 'sub'>, secret, {
+    algorithm: TOKEN_ALGORITHM,
+    subject: String(user.id),
+    expiresIn: ttlS,
+    issuer: 'rhotrace',
+  });
+  return { token, expiresAt: new Date(Date.now() + ttlS * 1000).toISOString() };
+}
+
+/** Verifies signature, algorithm, issuer and expiry; returns the user id and token version. */
+export function verifyToken(token: string, secret: string): { userId: number; version: number } | null {
+  try {
+    const claims = jwt.verify(token, secret, {
+      algorithms: [TOKEN_ALGORITHM],
+      issuer: 'rhotrace',
+    }) as jwt.JwtPayload;
+    const userId = Number(claims.sub);
+    if (!Number.isInteger(userId) || userId <= 0 || typeof claims.ver !== 'number') return null;
+    return { userId, version: claims.ver };
+  } catch {
+    return null;
+  }
+}

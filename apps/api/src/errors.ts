@@ -1,0 +1,29 @@
+import { ERROR_STATUS, type ErrorCode, type FieldProblem } from '@rhotrace/api-types';
+
+/** An error that maps to an HTTP status and the API's error shape. */
+export class HttpError extends Error {
+  readonly status: number;
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly details?: FieldProblem[] | Record<string, unknown>,
+    readonly headers?: Record<string, string>,
+  ) {
+    super(message);
+    this.status = ERROR_STATUS[code];
+  }
+}
+
+export const badRequest = (message: string, details?: FieldProblem[]) =>
+  new HttpError('bad_request', message, details);
+export const validationFailed = (message: string, details: FieldProblem[]) =>
+  new HttpError('validation_failed', message, details);
+export const notFound = (what: string) => new HttpError('not_found', `${what} was not found`);
+export const forbidden = (message = 'Your role may not do this') =>
+  new HttpError('forbidden', message);
+export const conflict = (message: string, details?: Record<string, unknown>) =>
+  new HttpError('conflict', message, details);
+export const unauthenticated = (message = 'Sign in to continue') =>
+  new HttpError('unauthenticated', message);
+export const unprocessable = (message: string, details?: FieldProblem[]) =>
+  new HttpError('unprocessable', message, details);

@@ -1,0 +1,46 @@
+import type { RequestHandler } from 'express';
+import type { Role, SessionUser } from '@rhotrace/api-types';
+import { verifyToken } from '../auth/token.service';
+import { forbidden, unauthenticated } from '../errors';
+import { User } from '../users/user.model';
+
+declare module 'express-serve-static-core' {
+  interface Request {
+    user?: SessionUser;
+  }
+}
+
+/**
+ * Requires a valid bearer token of an active account whose token version still matches
+ * (deactivation and password changes raise the version, so older tokens stop working).
+ */
+export function authenticate(secret: string): RequestHandler {
+  return async (req, _res, next) => {
+    const header = req.headers.authorization ?? '';
+    const match = /^Bearer ([A-Za-z0-9._-]+)$/.exec(header);
+    if (!match) throw unauthenticated();
+    const claims = verifyToken(match[1]!, secret);
+    if (!claims) throw unauthenticated('Your session is not valid or has expired; sign in again');
+    const user = await User.findByPk(claims.userId);
+    if (!user || !user.active || user.tokenVersion !== claims.version) {
+      throw unauthenticated('Your session is no longer valid; sign in again');
+    }
+    req.user = { id: user.id, email: user.email, name: user.name, role: user.role };
+    next();
+  };
+}
+
+/** Lets only the listed roles through (403 otherwise). Use after `authenticate`. */
+export function requireRole(...roles: Role[]): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user) throw unauthenticated();
+    if (!roles.includes(req.user.role)) throw forbidden();
+    next();
+  };
+}
+
+/** The signed-in user; throws 401 when a route forgot `authenticate`. */
+export function currentUser(req: { user?: SessionUser }): SessionUser {
+  if (!req.user) throw unauthenticated();
+  return req.user;
+}

@@ -1,0 +1,44 @@
+import type { FieldProblem } from '@rhotrace/api-types';
+import { z, type ZodTypeAny } from 'zod';
+import { validationFailed } from '../errors';
+
+/** Converts zod issues into the API's `{ field, problem }` list. */
+export function problemsOf(error: z.ZodError, prefix: string): FieldProblem[] {
+  return error.issues.map((issue) => ({
+    field: [prefix, ...issue.path.map(String)].filter(Boolean).join('.'),
+    problem: issue.message,
+  }));
+}
+
+/** Parses `value` with `schema` or throws a 400 naming each bad field under `prefix`. */
+export function parseOrThrow<S extends ZodTypeAny>(
+  schema: S,
+  value: unknown,
+  prefix: 'body' | 'query' | 'params' | string,
+): z.infer<S> {
+  const result = schema.safeParse(value ?? {});
+  if (!result.success) {
+    throw validationFailed(`Some ${prefix} fields are not valid`, problemsOf(result.error, prefix));
+  }
+  return result.data as z.infer<S>;
+}
+
+/** A positive integer id from a path parameter (`/lots/abc` is a 400, not a 500). */
+export const idParam = z.coerce
+  .number({ invalid_type_error: 'must be a whole number' })
+  .int('must be a whole number')
+  .positive('must be positive')
+  .max(2_147_483_647, 'is too large');
+
+/** Parses `req.params.id` (or another named parameter) as an id. */
+export function parseId(params: Record<string, string | undefined>, name = 'id'): number {
+  return parseOrThrow(z.object({ [name]: idParam }), params, 'params')[name] as number;
+}
+
+/** Shared pagination query: `page` from 1, `pageSize` capped. */
+export function paginationSchema(maxPageSize: number, defaultPageSize: number) {
+  return {
+    page: z.coerce.number().int().min(1).max(1_000_000).default(1),
+    pageSize: z.coerce.number().int().min(1).max(maxPageSize).default(defaultPageSize),
+  };
+}

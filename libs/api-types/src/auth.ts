@@ -1,0 +1,57 @@
+/** Roles, from most to least privileged. Technicians and students share `technician`. */
+export const ROLES = ['admin', 'manager', 'engineer', 'physicist', 'technician'] as const;
+export type Role = (typeof ROLES)[number];
+
+/** A user as the API shows it (never the password hash). */
+export interface UserDto {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  createdAt: string;
+  updatedAt: string;
+}
+
+/** The signed-in user carried in a session. */
+export interface SessionUser {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+}
+
+export interface LoginRequest {
+  email: string;
+  password: string;
+}
+
+export interface LoginResponse {
+  token: string;
+  /** ISO time at which `token` stops working; renew with `POST /api/auth/refresh` before then. */
+  expiresAt: string;
+  user: SessionUser;
+}
+
+export interface PasswordResetRequest {
+  email: string;
+}
+
+export interface PasswordResetConfirm {
+  token: string;
+  password: string;
+}
+
+export interface CreateUserRequest {
+  email: string;
+  name: string;
+  role: Role;
+  password: string;
+}
+
+export interface UpdateUserRequest {
+  name?: string;
+  role?: Role;
+  active?: boolean;
+  password?: string;
+}

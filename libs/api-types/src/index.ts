@@ -1,0 +1,4 @@
+export * from './errors';
+export * from './common';
+export * from './auth';
+export * from './records';
