@@ -1,0 +1,65 @@
+/**
+ * `@rhotrace/physics`: semiconductor and metal resistivity models, probe conversions,
+ * thermometry and fits. Units: K, eV, cm, cm^-3, cm^2/(V s), ohm cm, ohm per square.
+ */
+export {
+  BOLTZMANN_EV_PER_K,
+  BOLTZMANN_J_PER_K,
+  BOUND_ALLOWANCE_K,
+  ELECTRON_MASS_KG,
+  ELEMENTARY_CHARGE_C,
+  MAX_TEMPERATURE_K,
+  MIN_TEMPERATURE_K,
+  PLANCK_J_S,
+  ZERO_CELSIUS_K,
+} from './constants';
+export { PHYSICS_DEFAULTS } from './defaults';
+export type { DensityOfStatesSetId, MobilityModelId } from './defaults';
+export { celsiusToKelvin, kelvinToCelsius } from './temperature';
+
+export { SEMICONDUCTORS, SEMICONDUCTOR_NAMES } from './semiconductor/material';
+export type { Carrier, Citation, SemiconductorId } from './semiconductor/material';
+export { bandGap, VARSHNI_PARAMETERS } from './semiconductor/band-gap';
+export type { VarshniParameters } from './semiconductor/band-gap';
+export { densityOfStates, DENSITY_OF_STATES_SETS } from './semiconductor/density-of-states';
+export type { BandModelOptions, DensityOfStatesSet } from './semiconductor/density-of-states';
+export { intrinsicDensity } from './semiconductor/intrinsic';
+export { DOPANTS, MAX_DOPING_CM3 } from './semiconductor/dopants';
+export type { AcceptorId, DonorId, Doping, DopantTable } from './semiconductor/dopants';
+export { carrierDensities } from './semiconductor/neutrality';
+export type { CarrierDensities, Regime } from './semiconductor/neutrality';
+export {
+  ARORA_1982_SILICON,
+  CAUGHEY_THOMAS_SETS,
+  IDEAL_LATTICE_EXPONENT,
+  mobility,
+} from './semiconductor/mobility';
+export type {
+  AroraParameters,
+  CaugheyThomasParameters,
+  MobilityOptions,
+} from './semiconductor/mobility';
+export { modelCurve, resistivity } from './semiconductor/resistivity';
+export type { ModelPoint, ResistivityOptions } from './semiconductor/resistivity';
+export { regimeBoundaries } from './semiconductor/regimes';
+export type { RegimeBoundaries } from './semiconductor/regimes';
+
+export {
+  circularSliceFactor,
+  finiteThicknessFactor,
+  fourPointProbe,
+  MIN_DIAMETER_SPACINGS,
+  THIN_SHEET_FACTOR,
+} from './probe/four-point';
+export type { FourPointProbeResult } from './probe/four-point';
+export { vanDerPauw } from './probe/van-der-pauw';
+export type { VanDerPauwResult } from './probe/van-der-pauw';
+export { barResistivity } from './probe/bar';
+
+export { IEC_60751, rtdResistance, rtdTemperatureK } from './thermometry/rtd';
+export {
+  ASTM_F723_RANGES,
+  siliconDopantFromResistivity,
+  siliconResistivityFromDopant,
+} from './silicon/astm-f723';
+export type { F723Dopant } from './silicon/astm-f723';

@@ -1,0 +1,21 @@
+/**
+ * Log-domain helpers: they keep the charge-neutrality solver free of overflow at 1 K, where
+ * Boltzmann factors reach exp(±10^4).
+ */
+
+/** ln(1 + e^x), accurate for all finite x. */
+export function softplus(x: number): number {
+  return x > 0 ? x + Math.log1p(Math.exp(-x)) : Math.log1p(Math.exp(x));
+}
+
+/** ln(e^a + e^b); either argument may be -Infinity (an absent term). */
+export function logAddExp(a: number, b: number): number {
+  if (a === Number.NEGATIVE_INFINITY) return b;
+  if (b === Number.NEGATIVE_INFINITY) return a;
+  return a > b ? a + Math.log1p(Math.exp(b - a)) : b + Math.log1p(Math.exp(a - b));
+}
+
+/** 1 / (1 + e^x) without overflow. */
+export function logisticComplement(x: number): number {
+  return x > 0 ? Math.exp(-x) / (1 + Math.exp(-x)) : 1 / (1 + Math.exp(x));
+}

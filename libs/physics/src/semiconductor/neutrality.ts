@@ -1,0 +1,172 @@
+/**
+ * Charge neutrality with incomplete ionization: electron and hole densities, ionized dopants,
+ * Fermi level and regime.
+ */
+import { BOLTZMANN_EV_PER_K } from '../constants';
+import { PHYSICS_DEFAULTS } from '../defaults';
+import { brentRoot } from '../numeric/brent';
+import { logAddExp, logisticComplement, softplus } from '../numeric/log-math';
+import { requireTemperatureK } from '../validate';
+import { bandGapUnchecked } from './band-gap';
+import type { BandModelOptions, DensityOfStatesSet } from './density-of-states';
+import { logDensityOfStates, resolveDensityOfStatesSet } from './density-of-states';
+import type { Doping, ResolvedDoping } from './dopants';
+import { resolveDoping } from './dopants';
+import type { SemiconductorId } from './material';
+import { requireSemiconductor } from './material';
+
+/** Conduction regime of a sample at one temperature. */
+export type Regime = 'freeze-out' | 'extrinsic' | 'intrinsic';
+
+/** @internal Full solver output, in logs where values may underflow. */
+export interface NeutralitySolution {
+  lnElectrons: number;
+  lnHoles: number;
+  lnIntrinsic: number;
+  fermiLevelEv: number;
+  bandGapEv: number;
+  ionizedDonors: number;
+  ionizedAcceptors: number;
+  /** Ionized fraction of the majority dopant (1 when undoped). */
+  majorityIonizedFraction: number;
+  regime: Regime;
+  nearDegenerate: boolean;
+}
+
+const LN_GD = Math.log(PHYSICS_DEFAULTS.donorDegeneracy);
+const LN_GA = Math.log(PHYSICS_DEFAULTS.acceptorDegeneracy);
+
+/**
+ * @internal Solves n + N_A^- = p + N_D^+ for the Fermi level, with eta = E_F / kT (E_F from the
+ * valence band edge) as the unknown and the equation written as
+ * ln(p + N_D^+) - ln(n + N_A^-) = 0, which falls monotonically in eta and never overflows.
+ */
+export function solveNeutrality(
+  material: SemiconductorId,
+  set: DensityOfStatesSet,
+  doping: ResolvedDoping,
+  temperatureK: number,
+): NeutralitySolution {
+  const kT = BOLTZMANN_EV_PER_K * temperatureK;
+  const eg = bandGapUnchecked(material, temperatureK);
+  const epsG = eg / kT;
+  const { lnNc, lnNv } = logDensityOfStates(set, material, temperatureK);
+  const lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
+  const lnNa =
+    doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
+  // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
+  const donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
+  const acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
+  const donorsFull = doping.donorsMetallic || doping.donorDensity === 0;
+  const acceptorsFull = doping.acceptorsMetallic || doping.acceptorDensity === 0;
+  const lnNcMinusG = lnNc - epsG;
+
+  const g = (eta: number): number => {
+    const lnP = lnNv - eta;
+    const lnN = lnNcMinusG + eta;
+    const lnDp = donorsFull ? lnNd : lnNd - softplus(donorShift + eta);
+    const lnAm = acceptorsFull ? lnNa : lnNa - softplus(acceptorShift - eta);
+    return logAddExp(lnP, lnDp) - logAddExp(lnN, lnAm);
+  };
+
+  // The bracket spans the gap plus a margin wide enough for 1e22 cm^-3 against Nc or Nv at 1 K.
+  const margin = 80;
+  const result = brentRoot(g, -margin, epsG + margin, 1e-10, 300);
+  const eta = result.root;
+
+  const lnN = lnNcMinusG + eta;
+  const lnP = lnNv - eta;
+  const donorFraction = donorsFull ? 1 : logisticComplement(donorShift + eta);
+  const acceptorFraction = acceptorsFull ? 1 : logisticComplement(acceptorShift - eta);
+  const lnIntrinsic = 0.5 * (lnNc + lnNv) - 0.5 * epsG;
+  const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
+  const majorityIonizedFraction =
+    doping.donorDensity === 0 && doping.acceptorDensity === 0
+      ? 1
+      : doping.donorDensity >= doping.acceptorDensity
+        ? donorFraction
+        : acceptorFraction;
+  let regime: Regime;
+  if (net === 0 || lnIntrinsic > Math.log(net)) regime = 'intrinsic';
+  else if (majorityIonizedFraction < PHYSICS_DEFAULTS.ionizedFractionThreshold) regime = 'freeze-out';
+  else regime = 'extrinsic';
+  const margin3 = PHYSICS_DEFAULTS.degeneracyMarginKt;
+  return {
+    lnElectrons: lnN,
+    lnHoles: lnP,
+    lnIntrinsic,
+    fermiLevelEv: eta * kT,
+    bandGapEv: eg,
+    ionizedDonors: doping.donorDensity * donorFraction,
+    ionizedAcceptors: doping.acceptorDensity * acceptorFraction,
+    majorityIonizedFraction,
+    regime,
+    nearDegenerate: eta < margin3 || epsG - eta < margin3,
+  };
+}
+
+/** Result of `carrierDensities`. */
+export interface CarrierDensities {
+  /** Electron density n, cm^-3. */
+  electrons: number;
+  /** Hole density p, cm^-3. */
+  holes: number;
+  /** Ionized donors N_D^+, cm^-3. */
+  ionizedDonors: number;
+  /** Ionized acceptors N_A^-, cm^-3. */
+  ionizedAcceptors: number;
+  /** Fermi level above the valence band edge, eV (may lie outside the gap when degenerate). */
+  fermiLevelEv: number;
+  regime: Regime;
+  /** Intrinsic density n_i at this temperature, cm^-3. */
+  intrinsicDensity: number;
+  /** True when the Fermi level is within 3 kT of a band edge: Boltzmann statistics is doubtful. */
+  nearDegenerate: boolean;
+}
+
+/**
+ * Electron and hole densities from charge neutrality with incomplete ionization.
+ *
+ * Formula: solve n + N_A^- = p + N_D^+ for E_F with
+ *   n = Nc exp(-(Eg - E_F)/kT), p = Nv exp(-E_F/kT),
+ *   N_D^+ = N_D / (1 + 2 exp((E_F - Eg + E_d)/kT)), N_A^- = N_A / (1 + 4 exp((E_a - E_F)/kT))
+ * (degeneracy 2 for donors, 4 for acceptors), by Brent's method on ln(p + N_D^+) - ln(n + N_A^-).
+ * Regime: `intrinsic` when n_i > |N_D - N_A|; else `freeze-out` when less than 90 % of the majority
+ * dopant is ionized; else `extrinsic`.
+ * Mott transition: a dopant at or above `PHYSICS_DEFAULTS.mottDensityCm3` (3e18 cm^-3 in silicon)
+ * forms a band merged with the band edge and is treated as fully ionized at every temperature, so
+ * heavy doping never reads as freeze-out. The step at that density is a known limit of the model.
+ * Assumptions: Boltzmann statistics for the bands (check `nearDegenerate`: within 3 kT of a band
+ * edge the densities are overestimated), one donor and one acceptor level, no band-gap narrowing.
+ * Source: Sze, Physics of Semiconductor Devices (1981), ch. 1; Blakemore, Semiconductor
+ * Statistics (1962).
+ *
+ * @param material semiconductor id
+ * @param doping donor and acceptor densities (cm^-3) and levels (eV)
+ * @param temperatureK temperature, K (1 to 1500)
+ * @param options optional density-of-states set
+ * @example carrierDensities('Si', { donorDensity: 1e15, acceptorDensity: 0 }, 300)
+ *   // electrons ≈ 1.0e15, holes ≈ 1.0e5, regime 'extrinsic'
+ */
+export function carrierDensities(
+  material: SemiconductorId,
+  doping: Doping,
+  temperatureK: number,
+  options: BandModelOptions = {},
+): CarrierDensities {
+  const m = requireSemiconductor('carrierDensities', material);
+  const d = resolveDoping('carrierDensities', m, doping);
+  const t = requireTemperatureK('carrierDensities', temperatureK);
+  const set = resolveDensityOfStatesSet('carrierDensities', m, options?.densityOfStatesSet);
+  const s = solveNeutrality(m, set, d, t);
+  return {
+    electrons: Math.exp(s.lnElectrons),
+    holes: Math.exp(s.lnHoles),
+    ionizedDonors: s.ionizedDonors,
+    ionizedAcceptors: s.ionizedAcceptors,
+    fermiLevelEv: s.fermiLevelEv,
+    regime: s.regime,
+    intrinsicDensity: Math.exp(s.lnIntrinsic),
+    nearDegenerate: s.nearDegenerate,
+  };
+}

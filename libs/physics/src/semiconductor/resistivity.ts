@@ -1,0 +1,153 @@
+/**
+ * Resistivity of a doped semiconductor from both carriers, and the model curve rho(T).
+ */
+import { ELEMENTARY_CHARGE_C } from '../constants';
+import { PHYSICS_DEFAULTS } from '../defaults';
+import { logAddExp } from '../numeric/log-math';
+import { requireArray, requirePositive, requireTemperatureK } from '../validate';
+import type { BandModelOptions, DensityOfStatesSet } from './density-of-states';
+import { resolveDensityOfStatesSet } from './density-of-states';
+import type { Doping, ResolvedDoping } from './dopants';
+import { resolveDoping } from './dopants';
+import type { SemiconductorId } from './material';
+import { requireSemiconductor } from './material';
+import type { MobilityOptions } from './mobility';
+import { mobilityUnchecked, resolveMobilityModel } from './mobility';
+import type { Regime } from './neutrality';
+import { solveNeutrality } from './neutrality';
+import type { MobilityModelId } from '../defaults';
+
+/** Options of the resistivity model. */
+export interface ResistivityOptions extends BandModelOptions, MobilityOptions {
+  /** Factor applied to both mobilities (a fit parameter for sample quality); default 1. */
+  mobilityScale?: number;
+}
+
+/** @internal A checked, resolved model configuration. */
+export interface ResolvedModel {
+  material: SemiconductorId;
+  set: DensityOfStatesSet;
+  mobilityModel: MobilityModelId;
+  mobilityScale: number;
+}
+
+/** @internal Checks the options shared by the resistivity functions. */
+export function resolveModel(
+  fn: string,
+  material: SemiconductorId,
+  options: ResistivityOptions | undefined,
+): ResolvedModel {
+  const o = options ?? {};
+  return {
+    material,
+    set: resolveDensityOfStatesSet(fn, material, o.densityOfStatesSet),
+    mobilityModel: resolveMobilityModel(fn, material, o.mobilityModel),
+    mobilityScale:
+      o.mobilityScale === undefined ? 1 : requirePositive(fn, 'mobilityScale', o.mobilityScale),
+  };
+}
+
+/** One point of the model curve. */
+export interface ModelPoint {
+  temperatureK: number;
+  resistivityOhmCm: number;
+  /** cm^-3 */
+  electrons: number;
+  /** cm^-3 */
+  holes: number;
+  /** cm^2/(V s) */
+  electronMobility: number;
+  /** cm^2/(V s) */
+  holeMobility: number;
+  regime: Regime;
+}
+
+const LN_Q = Math.log(ELEMENTARY_CHARGE_C);
+const LN_CEILING = Math.log(PHYSICS_DEFAULTS.resistivityCeilingOhmCm);
+
+/** @internal Model point and ln(rho), without input checks. */
+export function modelPointUnchecked(
+  model: ResolvedModel,
+  doping: ResolvedDoping,
+  temperatureK: number,
+): ModelPoint & { lnResistivity: number } {
+  const s = solveNeutrality(model.material, model.set, doping, temperatureK);
+  const total = doping.donorDensity + doping.acceptorDensity;
+  const muN =
+    model.mobilityScale *
+    mobilityUnchecked(model.material, 'electron', temperatureK, total, model.mobilityModel);
+  const muP =
+    model.mobilityScale *
+    mobilityUnchecked(model.material, 'hole', temperatureK, total, model.mobilityModel);
+  const lnSigma = LN_Q + logAddExp(s.lnElectrons + Math.log(muN), s.lnHoles + Math.log(muP));
+  const lnRho = -lnSigma;
+  return {
+    temperatureK,
+    resistivityOhmCm: lnRho >= LN_CEILING ? PHYSICS_DEFAULTS.resistivityCeilingOhmCm : Math.exp(lnRho),
+    electrons: Math.exp(s.lnElectrons),
+    holes: Math.exp(s.lnHoles),
+    electronMobility: muN,
+    holeMobility: muP,
+    regime: s.regime,
+    lnResistivity: lnRho,
+  };
+}
+
+/**
+ * Resistivity of a doped semiconductor.
+ *
+ * Formula: rho = 1 / (q (n mu_n + p mu_p)), n and p from `carrierDensities`, mu from `mobility`
+ * with the total impurity density N_D + N_A, both mobilities times `mobilityScale`.
+ * Computed as ln(rho) internally; a value above `PHYSICS_DEFAULTS.resistivityCeilingOhmCm`
+ * (1e300 ohm cm, reached only by nearly undoped material at a few kelvin) is reported as that
+ * ceiling rather than as Infinity.
+ * Assumptions: those of `carrierDensities` and `mobility`; no hopping or impurity-band conduction
+ * in deep freeze-out.
+ *
+ * @param material semiconductor id
+ * @param doping donor and acceptor densities (cm^-3) and levels (eV)
+ * @param temperatureK temperature, K (1 to 1500)
+ * @param options density-of-states set, mobility model, mobility scale
+ * @returns resistivity, ohm cm
+ * @example resistivity('Si', { donorDensity: 1e15, acceptorDensity: 0 }, 300) // 4.6 (ohm cm)
+ */
+export function resistivity(
+  material: SemiconductorId,
+  doping: Doping,
+  temperatureK: number,
+  options: ResistivityOptions = {},
+): number {
+  const m = requireSemiconductor('resistivity', material);
+  const d = resolveDoping('resistivity', m, doping);
+  const t = requireTemperatureK('resistivity', temperatureK);
+  return modelPointUnchecked(resolveModel('resistivity', m, options), d, t).resistivityOhmCm;
+}
+
+/**
+ * The model curve: resistivity, carrier densities, mobilities and regime at each temperature.
+ *
+ * Same model as `resistivity`; the temperatures are used in the order given.
+ *
+ * @param material semiconductor id
+ * @param doping donor and acceptor densities (cm^-3) and levels (eV)
+ * @param temperaturesK temperatures, K (each 1 to 1500)
+ * @param options density-of-states set, mobility model, mobility scale
+ * @example modelCurve('Si', { donorDensity: 1e15, acceptorDensity: 0 }, [300])[0].regime
+ *   // 'extrinsic'
+ */
+export function modelCurve(
+  material: SemiconductorId,
+  doping: Doping,
+  temperaturesK: number[],
+  options: ResistivityOptions = {},
+): ModelPoint[] {
+  const m = requireSemiconductor('modelCurve', material);
+  const d = resolveDoping('modelCurve', m, doping);
+  const temps = requireArray('modelCurve', 'temperaturesK', temperaturesK);
+  const checked = temps.map((t, i) => requireTemperatureK('modelCurve', t, `temperaturesK[${i}]`));
+  const model = resolveModel('modelCurve', m, options);
+  return checked.map((t) => {
+    const { lnResistivity: _ln, ...point } = modelPointUnchecked(model, d, t);
+    return point;
+  });
+}
