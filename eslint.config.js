@@ -1,0 +1,111 @@
+// @ts-check
+import js from '@eslint/js';
+import angular from 'angular-eslint';
+import tseslint from 'typescript-eslint';
+
+/**
+ * Package boundaries (STYLE.md): libraries import no framework and no other workspace package;
+ * the web app never imports the API; nothing reaches into another package by relative path.
+ */
+const crossPackageRelative = {
+  group: [
+    '**/libs/**',
+    '**/api-types/src/**',
+    '**/physics/src/**',
+    '**/apps/api/**',
+    '**/apps/web/**',
+    '../../api/**',
+    '../../web/**',
+  ],
+  message: 'Import workspace packages by name (@rhotrace/physics, @rhotrace/api-types), never by path.',
+};
+const frameworks = [
+  '@angular/*',
+  'rxjs',
+  'rxjs/*',
+  'express',
+  'sequelize',
+  'mariadb',
+  'multer',
+  'nodemailer',
+  'pdfkit',
+  'plotly.js-dist-min',
+];
+const restrict = (paths, groups = []) => [
+  'error',
+  {
+    paths: paths.map((name) => ({ name, message: 'This package may not depend on it (STYLE.md).' })),
+    patterns: [crossPackageRelative, ...groups],
+  },
+];
+
+export default tseslint.config(
+  {
+    ignores: [
+      '**/node_modules/**',
+      '**/dist/**',
+      '**/.angular/**',
+      'coverage/**',
+      'db/.data/**',
+      'bench/out/**',
+      'e2e/screenshots/**',
+      'seed-data/**',
+    ],
+  },
+  {
+    files: ['**/*.ts'],
+    extends: [js.configs.recommended, ...tseslint.configs.recommended],
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-explicit-any': 'error',
+      'no-console': 'off',
+      'no-restricted-imports': restrict([]),
+    },
+  },
+  {
+    files: ['libs/physics/src/**/*.ts'],
+    rules: {
+      'no-restricted-imports': restrict(
+        [...frameworks, 'node:fs', 'node:http', 'node:net', 'fs', 'http'],
+        [{ group: ['@rhotrace/*'], message: 'physics imports no other workspace package.' }],
+      ),
+    },
+  },
+  {
+    files: ['libs/api-types/src/**/*.ts'],
+    rules: {
+      'no-restricted-imports': restrict(frameworks, [
+        { group: ['@rhotrace/*', 'node:*'], message: 'api-types imports nothing but itself.' },
+      ]),
+    },
+  },
+  {
+    files: ['apps/web/**/*.ts'],
+    extends: [...angular.configs.tsRecommended],
+    processor: angular.processInlineTemplates,
+    rules: {
+      'no-restricted-imports': restrict(
+        ['express', 'sequelize', 'mariadb', 'multer', 'nodemailer', 'pdfkit'],
+        [{ group: ['@rhotrace/api', '@rhotrace/api/*'], message: 'web never imports api.' }],
+      ),
+      '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'rt', style: 'kebab-case' }],
+      '@angular-eslint/directive-selector': ['error', { type: 'attribute', prefix: 'rt', style: 'camelCase' }],
+    },
+  },
+  {
+    files: ['apps/web/**/*.html'],
+    extends: [...angular.configs.templateRecommended, ...angular.configs.templateAccessibility],
+  },
+  {
+    files: ['apps/api/**/*.ts', 'db/**/*.ts', 'scripts/**/*.ts'],
+    rules: {
+      'no-restricted-imports': restrict(['@angular/core', '@angular/common', 'plotly.js-dist-min'], [
+        { group: ['@angular/*', '@rhotrace/web'], message: 'the API never imports the web app.' },
+      ]),
+    },
+  },
+  {
+    files: ['**/*.spec.ts', 'e2e/**/*.ts', '**/bench/**/*.ts', '**/testing/**/*.ts'],
+    rules: { '@typescript-eslint/no-non-null-assertion': 'off' },
+  },
+);
