@@ -34,7 +34,7 @@ export function migrator(sequelize: Sequelize) {
   return new Umzug({
     migrations: stepsIn('migrations'),
     context: sequelize.getQueryInterface(),
-    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    storage: new SequelizeStorage({ sequelize, modelName: 'SchemaMigration', tableName: 'schema_migrations' }),
     logger: undefined,
   });
 }
@@ -44,7 +44,7 @@ export function seeder(sequelize: Sequelize) {
   return new Umzug({
     migrations: stepsIn('seeders'),
     context: sequelize.getQueryInterface(),
-    storage: new SequelizeStorage({ sequelize, tableName: 'seed_runs' }),
+    storage: new SequelizeStorage({ sequelize, modelName: 'SeedRun', tableName: 'seed_runs' }),
     logger: undefined,
   });
 }
