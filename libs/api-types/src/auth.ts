@@ -55,3 +55,32 @@ export interface UpdateUserRequest {
   active?: boolean;
   password?: string;
 }
+
+/** `POST /api/auth/password-reset` always answers 202 with this, whether or not the account exists. */
+export interface PasswordResetAccepted {
+  message: string;
+}
+
+/** Shortest password the API accepts (sign-up by an admin, reset, change). */
+export const MIN_PASSWORD_LENGTH = 10;
+
+/** Fields `GET /api/users` sorts by (`sort=name`, `sort=-createdAt`). */
+export const USER_SORT_FIELDS = ['name', 'email', 'role', 'createdAt'] as const;
+
+/** `GET /api/users` query: `q` searches name and e-mail. */
+export interface UserListQuery {
+  page?: number;
+  pageSize?: number;
+  sort?: string;
+  q?: string;
+  role?: Role;
+  active?: 'true' | 'false';
+}
+
+/** An active account that can be given an assignment (`GET /api/users/assignees`). */
+export interface AssigneeDto {
+  id: number;
+  name: string;
+  email: string;
+  role: Role;
+}

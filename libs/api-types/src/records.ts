@@ -76,6 +76,8 @@ export interface AssignmentDto {
   state: AssignmentState;
   notes: string | null;
   overdue: boolean;
+  /** Safety notes for this task and wafer material (they defer to the lab's own rules). */
+  safetyCautions?: string[];
   createdAt: string;
   updatedAt: string;
 }
@@ -91,4 +93,82 @@ export interface AuditEventDto {
   after: unknown;
   requestId: string | null;
   createdAt: string;
+}
+
+/** Fields each list sorts by: `sort=field` ascending, `sort=-field` descending. */
+export const LOT_SORT_FIELDS = [
+  'code',
+  'material',
+  'receivedOn',
+  'supplier',
+  'specMinOhmCm',
+  'specMaxOhmCm',
+  'createdAt',
+  'updatedAt',
+] as const;
+export const WAFER_SORT_FIELDS = ['number', 'state', 'lotId', 'createdAt', 'updatedAt'] as const;
+export const STATION_SORT_FIELDS = ['name', 'thermometer', 'calibratedOn', 'createdAt'] as const;
+export const ASSIGNMENT_SORT_FIELDS = ['dueDate', 'state', 'createdAt', 'updatedAt'] as const;
+
+/** `GET /api/lots` filters (plus page, pageSize, sort). `q` searches code, supplier, dopant, notes. */
+export interface LotListQuery {
+  page?: number;
+  pageSize?: number;
+  sort?: string;
+  q?: string;
+  material?: Material;
+  dopantType?: 'n' | 'p';
+}
+
+/** `GET /api/wafers` and `GET /api/lots/:id/wafers` filters. `q` searches number and notes. */
+export interface WaferListQuery {
+  page?: number;
+  pageSize?: number;
+  sort?: string;
+  q?: string;
+  lotId?: number;
+  state?: WaferState;
+  material?: Material;
+}
+
+/** `GET /api/assignments` filters; technicians may only ask for their own (`assignee=me`). */
+export interface AssignmentListQuery {
+  page?: number;
+  pageSize?: number;
+  sort?: string;
+  assignee?: 'me' | number;
+  state?: AssignmentState;
+  waferId?: number;
+  overdue?: 'true' | 'false';
+}
+
+export type WaferInput = Pick<WaferDto, 'number' | 'thicknessCm' | 'notes'> & {
+  state?: WaferState;
+};
+export type StationInput = Omit<StationDto, 'id' | 'createdAt' | 'updatedAt'>;
+
+export interface CreateAssignmentRequest {
+  waferId: number;
+  assigneeId: number;
+  task: string;
+  dueDate: string;
+  notes?: string | null;
+}
+
+export interface UpdateAssignmentRequest {
+  state?: AssignmentState;
+  task?: string;
+  dueDate?: string;
+  notes?: string | null;
+  assigneeId?: number;
+}
+
+/** `GET /api/audit` filters: `entity` (lot, wafer, station, assignment, user), `id`, `actorId`. */
+export interface AuditListQuery {
+  page?: number;
+  pageSize?: number;
+  entity?: string;
+  id?: string | number;
+  actorId?: number;
+  action?: string;
 }

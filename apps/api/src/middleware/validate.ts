@@ -4,10 +4,17 @@ import { validationFailed } from '../errors';
 
 /** Converts zod issues into the API's `{ field, problem }` list. */
 export function problemsOf(error: z.ZodError, prefix: string): FieldProblem[] {
-  return error.issues.map((issue) => ({
-    field: [prefix, ...issue.path.map(String)].filter(Boolean).join('.'),
-    problem: issue.message,
-  }));
+  return error.issues.flatMap((issue) => {
+    const at = [prefix, ...issue.path.map(String)].filter(Boolean);
+    // Name each unknown field on its own, so a client sees exactly what to remove.
+    if (issue.code === 'unrecognized_keys') {
+      return issue.keys.map((key) => ({
+        field: [...at, key].join('.'),
+        problem: 'is not a known field',
+      }));
+    }
+    return [{ field: at.join('.'), problem: issue.message }];
+  });
 }
 
 /** Parses `value` with `schema` or throws a 400 naming each bad field under `prefix`. */
@@ -31,7 +38,7 @@ export const idParam = z.coerce
   .max(2_147_483_647, 'is too large');
 
 /** Parses `req.params.id` (or another named parameter) as an id. */
-export function parseId(params: Record<string, string | undefined>, name = 'id'): number {
+export function parseId(params: Record<string, unknown>, name = 'id'): number {
   return parseOrThrow(z.object({ [name]: idParam }), params, 'params')[name] as number;
 }
 

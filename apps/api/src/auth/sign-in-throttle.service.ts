@@ -1,0 +1,104 @@
+import { createHash } from 'node:crypto';
+import { Op } from 'sequelize';
+import { HttpError } from '../errors';
+import { SignInThrottle } from '../users/user.model';
+
+/**
+ * How failed sign-ins are slowed, then refused. After `slowAfter` failures inside `windowS`
+ * each further attempt must wait 2^(n - slowAfter) seconds (capped at `maxDelayS`); from
+ * `lockAfter` failures the key is refused for `lockS`.
+ */
+export interface ThrottlePolicy {
+  windowS: number;
+  slowAfter: number;
+  maxDelayS: number;
+  lockAfter: number;
+  lockS: number;
+}
+
+/** One e-mail address: a handful of tries, then slowed, then a 15-minute lock. */
+export const ACCOUNT_POLICY: ThrottlePolicy = {
+  windowS: 15 * 60,
+  slowAfter: 3,
+  maxDelayS: 60,
+  lockAfter: 10,
+  lockS: 15 * 60,
+};
+
+/** One network address (a shared lab PC may sign many people in): more room, same shape. */
+export const ADDRESS_POLICY: ThrottlePolicy = {
+  windowS: 15 * 60,
+  slowAfter: 20,
+  maxDelayS: 60,
+  lockAfter: 50,
+  lockS: 15 * 60,
+};
+
+/** The keys a sign-in attempt counts against; only their sha256 is stored. */
+export function throttleKeys(email: string, address: string): { account: string; address: string } {
+  const sha = (s: string) => createHash('sha256').update(s).digest('hex');
+  return { account: sha(`account:${email}`), address: sha(`address:${address}`) };
+}
+
+/** A 429 saying when to retry, with `Retry-After` in seconds. */
+export function tooManyAttempts(until: Date, now = new Date()): HttpError {
+  const seconds = Math.max(1, Math.ceil((until.getTime() - now.getTime()) / 1000));
+  const when = seconds < 120 ? `${seconds} seconds` : `${Math.ceil(seconds / 60)} minutes`;
+  return new HttpError(
+    'too_many_requests',
+    `Too many failed sign-ins. Try again in ${when} (after ${until.toISOString()}).`,
+    { retryAfterS: seconds, retryAt: until.toISOString() },
+    { 'Retry-After': String(seconds) },
+  );
+}
+
+/** Throws a 429 when any of the keys is currently slowed or locked. */
+export async function assertNotThrottled(keys: string[], now = new Date()): Promise<void> {
+  const rows = await SignInThrottle.findAll({
+    where: { keySha256: { [Op.in]: keys }, lockedUntil: { [Op.gt]: now } },
+  });
+  const latest = rows
+    .map((r) => r.lockedUntil!)
+    .sort((a, b) => b.getTime() - a.getTime())[0];
+  if (latest) throw tooManyAttempts(latest, now);
+}
+
+/**
+ * Counts one failure against `key` under `policy`, atomically across API processes (row lock
+ * in the shared database), and sets the key's wait when it crosses a threshold.
+ */
+export async function recordFailure(
+  key: string,
+  policy: ThrottlePolicy,
+  now = new Date(),
+): Promise<void> {
+  await SignInThrottle.sequelize!.transaction(async (t) => {
+    await SignInThrottle.bulkCreate(
+      [{ keySha256: key, failures: 0, firstFailureAt: now, lockedUntil: null }],
+      { ignoreDuplicates: true, transaction: t },
+    );
+    const row = await SignInThrottle.findByPk(key, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!row) return;
+    const expired = now.getTime() - row.firstFailureAt.getTime() > policy.windowS * 1000;
+    const lockOver = !row.lockedUntil || row.lockedUntil.getTime() <= now.getTime();
+    const failures = expired && lockOver ? 1 : row.failures + 1;
+    let waitS = 0;
+    if (failures >= policy.lockAfter) waitS = policy.lockS;
+    else if (failures >= policy.slowAfter) {
+      waitS = Math.min(2 ** (failures - policy.slowAfter), policy.maxDelayS);
+    }
+    await row.update(
+      {
+        failures,
+        firstFailureAt: expired && lockOver ? now : row.firstFailureAt,
+        lockedUntil: waitS > 0 ? new Date(now.getTime() + waitS * 1000) : null,
+      },
+      { transaction: t },
+    );
+  });
+}
+
+/** Forgets the failures of `key` (after a successful sign-in of that account). */
+export async function clearFailures(key: string): Promise<void> {
+  await SignInThrottle.destroy({ where: { keySha256: key } });
+}

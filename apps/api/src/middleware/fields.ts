@@ -1,0 +1,99 @@
+import { DEFAULT_PAGE_SIZE, MAX_PAGE_SIZE } from '@rhotrace/api-types';
+import type { Order } from 'sequelize';
+import { z, type ZodRawShape } from 'zod';
+import { paginationSchema } from './validate';
+
+/** Longest values the API accepts for common kinds of text. */
+export const LIMITS = { code: 64, name: 200, notes: 5000, search: 200 } as const;
+
+/** Required text: trimmed of nothing (stored verbatim), not blank, at most `max` characters. */
+export const requiredText = (max: number) =>
+  z
+    .string({ required_error: 'is required', invalid_type_error: 'must be text' })
+    .max(max, `must be at most ${max} characters`)
+    .refine((v) => v.trim().length > 0, 'must not be blank');
+
+/** Optional text that may be null; an empty string is stored as null. */
+export const optionalText = (max: number) =>
+  z
+    .string({ invalid_type_error: 'must be text' })
+    .max(max, `must be at most ${max} characters`)
+    .nullable()
+    .optional()
+    .transform((v) => (v === '' ? null : v));
+
+/** A finite number within [min, max] (inclusive), named with its unit in the message. */
+export const boundedNumber = (min: number, max: number, unit = '') =>
+  z
+    .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
+    .finite('must be a finite number')
+    .min(min, `must be at least ${min}${unit ? ` ${unit}` : ''}`)
+    .max(max, `must be at most ${max}${unit ? ` ${unit}` : ''}`);
+
+/** True for a real calendar day written YYYY-MM-DD (2024-02-30 is refused). */
+export function isIsoDate(value: string): boolean {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(value)) return false;
+  const date = new Date(`${value}T00:00:00Z`);
+  return !Number.isNaN(date.getTime()) && date.toISOString().slice(0, 10) === value;
+}
+
+/** An ISO calendar date `YYYY-MM-DD`. */
+export const isoDate = z
+  .string({ required_error: 'is required', invalid_type_error: 'must be a date YYYY-MM-DD' })
+  .refine(isIsoDate, 'must be a real date written YYYY-MM-DD');
+
+/** Today's date in UTC as `YYYY-MM-DD`. */
+export const todayIso = (): string => new Date().toISOString().slice(0, 10);
+
+/**
+ * The query schema of a list: `page`, `pageSize` (capped), `sort` (`field` ascending, `-field`
+ * descending, only the listed fields) plus the list's own filters. Unknown parameters are a 400.
+ */
+export function listQuerySchema<F extends string, S extends ZodRawShape>(
+  sortFields: readonly [F, ...F[]],
+  filters: S,
+) {
+  const sortValues = sortFields.flatMap((f) => [f, `-${f}`]) as [string, ...string[]];
+  return z
+    .object({
+      ...paginationSchema(MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE),
+      sort: z
+        .enum(sortValues, {
+          errorMap: () => ({ message: `must be one of ${sortValues.join(', ')}` }),
+        })
+        .optional(),
+      ...filters,
+    })
+    .strict();
+}
+
+/** A `sort` value as a Sequelize order, with `id` as tie-breaker so pages are stable. */
+export function orderFrom(
+  sort: string | undefined,
+  fallback: string,
+  columns: Record<string, string | string[]> = {},
+): Order {
+  const value = sort ?? fallback;
+  const desc = value.startsWith('-');
+  const field = desc ? value.slice(1) : value;
+  const column = columns[field] ?? field;
+  const path = Array.isArray(column) ? column : [column];
+  return [[...path, desc ? 'DESC' : 'ASC'] as never, ['id', desc ? 'DESC' : 'ASC']];
+}
+
+/** A `q` search parameter: short text, matched as a substring (LIKE wildcards escaped). */
+export const searchParam = z
+  .string({ invalid_type_error: 'must be text' })
+  .max(LIMITS.search, `must be at most ${LIMITS.search} characters`)
+  .optional();
+
+/** `%…%` pattern for LIKE with `%`, `_` and `\` in the user's text taken literally. */
+export function likePattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+/** `true`/`false` in a query string. */
+export const booleanParam = z
+  .enum(['true', 'false'], { errorMap: () => ({ message: 'must be true or false' }) })
+  .transform((v) => v === 'true')
+  .optional();
