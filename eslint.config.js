@@ -17,7 +17,8 @@ const crossPackageRelative = {
     '../../api/**',
     '../../web/**',
   ],
-  message: 'Import workspace packages by name (@rhotrace/physics, @rhotrace/api-types), never by path.',
+  message:
+    'Import workspace packages by name (@rhotrace/physics, @rhotrace/api-types), never by path.',
 };
 const frameworks = [
   '@angular/*',
@@ -34,7 +35,10 @@ const frameworks = [
 const restrict = (paths, groups = []) => [
   'error',
   {
-    paths: paths.map((name) => ({ name, message: 'This package may not depend on it (STYLE.md).' })),
+    paths: paths.map((name) => ({
+      name,
+      message: 'This package may not depend on it (STYLE.md).',
+    })),
     patterns: [crossPackageRelative, ...groups],
   },
 ];
@@ -56,7 +60,10 @@ export default tseslint.config(
     files: ['**/*.ts'],
     extends: [js.configs.recommended, ...tseslint.configs.recommended],
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/no-explicit-any': 'error',
       'no-console': 'off',
       'no-restricted-imports': restrict([]),
@@ -88,8 +95,14 @@ export default tseslint.config(
         ['express', 'sequelize', 'mariadb', 'multer', 'nodemailer', 'pdfkit'],
         [{ group: ['@rhotrace/api', '@rhotrace/api/*'], message: 'web never imports api.' }],
       ),
-      '@angular-eslint/component-selector': ['error', { type: 'element', prefix: 'rt', style: 'kebab-case' }],
-      '@angular-eslint/directive-selector': ['error', { type: 'attribute', prefix: 'rt', style: 'camelCase' }],
+      '@angular-eslint/component-selector': [
+        'error',
+        { type: 'element', prefix: 'rt', style: 'kebab-case' },
+      ],
+      '@angular-eslint/directive-selector': [
+        'error',
+        { type: 'attribute', prefix: 'rt', style: 'camelCase' },
+      ],
     },
   },
   {
@@ -99,9 +112,10 @@ export default tseslint.config(
   {
     files: ['apps/api/**/*.ts', 'db/**/*.ts', 'scripts/**/*.ts'],
     rules: {
-      'no-restricted-imports': restrict(['@angular/core', '@angular/common', 'plotly.js-dist-min'], [
-        { group: ['@angular/*', '@rhotrace/web'], message: 'the API never imports the web app.' },
-      ]),
+      'no-restricted-imports': restrict(
+        ['@angular/core', '@angular/common', 'plotly.js-dist-min'],
+        [{ group: ['@angular/*', '@rhotrace/web'], message: 'the API never imports the web app.' }],
+      ),
     },
   },
   {

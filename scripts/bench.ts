@@ -4,7 +4,15 @@
  * Benchmarks that need a database get a throwaway MariaDB like `npm test`.
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  writeFileSync,
+} from 'node:fs';
 import { cpus, totalmem, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { freePort, runCommand, stopAll } from './processes';
@@ -33,7 +41,12 @@ async function main(): Promise<void> {
   rmSync(OUT, { recursive: true, force: true });
   mkdirSync(OUT, { recursive: true });
   const dataDir = mkdtempSync(join(tmpdir(), 'rhotrace-bench-'));
-  const env: NodeJS.ProcessEnv = { ...process.env, DATA_DIR: dataDir, DB_PORT: String(await freePort()), LOG_LEVEL: 'warn' };
+  const env: NodeJS.ProcessEnv = {
+    ...process.env,
+    DATA_DIR: dataDir,
+    DB_PORT: String(await freePort()),
+    LOG_LEVEL: 'warn',
+  };
   let dbStarted = false;
   const failures: string[] = [];
   try {
@@ -57,7 +70,8 @@ async function main(): Promise<void> {
     }
   } finally {
     await stopAll();
-    if (dbStarted) execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], { env, stdio: 'inherit' });
+    if (dbStarted)
+      execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], { env, stdio: 'inherit' });
     rmSync(dataDir, { recursive: true, force: true });
   }
 
@@ -70,10 +84,14 @@ async function main(): Promise<void> {
     '| benchmark | figure | value | unit | target | met |',
     '|---|---|---|---|---|---|',
   ];
-  for (const file of readdirSync(OUT).filter((f) => f.endsWith('.json')).sort()) {
+  for (const file of readdirSync(OUT)
+    .filter((f) => f.endsWith('.json'))
+    .sort()) {
     const figures = JSON.parse(readFileSync(join(OUT, file), 'utf8')) as Figure[];
     for (const f of figures) {
-      lines.push(`| ${file.replace('.json', '')} | ${f.name} | ${Number(f.value.toPrecision(4))} | ${f.unit} | ${f.target} | ${f.pass ? 'yes' : 'no'} |`);
+      lines.push(
+        `| ${file.replace('.json', '')} | ${f.name} | ${Number(f.value.toPrecision(4))} | ${f.unit} | ${f.target} | ${f.pass ? 'yes' : 'no'} |`,
+      );
     }
   }
   if (failures.length) lines.push('', '## Failures', '', ...failures.map((f) => `- ${f}`));

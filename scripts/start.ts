@@ -6,7 +6,15 @@
  */
 import { createHash } from 'node:crypto';
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import {
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
 import { createServer } from 'node:net';
 import { isAbsolute, join, resolve } from 'node:path';
 import { runCommand, startProcess, stopAll, waitForHttp } from './processes';
@@ -48,7 +56,8 @@ function webSourceHash(): string {
       else hash.update(path).update(readFileSync(path));
     }
   };
-  for (const dir of ['apps/web/src', 'apps/web/public', 'libs/api-types/src', 'libs/physics/src']) walk(join(ROOT, dir));
+  for (const dir of ['apps/web/src', 'apps/web/public', 'libs/api-types/src', 'libs/physics/src'])
+    walk(join(ROOT, dir));
   for (const file of ['angular.json', 'package-lock.json', 'apps/web/tsconfig.app.json']) {
     if (existsSync(join(ROOT, file))) hash.update(readFileSync(join(ROOT, file)));
   }
@@ -78,18 +87,23 @@ async function main(): Promise<void> {
     if (pid && alive(pid)) {
       console.error(
         `[start] Rhotrace is already running from ${dataDir} (process ${pid}) at http://127.0.0.1:${readFileSync(join(dataDir, 'rhotrace.port'), 'utf8').trim()}.\n` +
-          '        Stop it with Ctrl-C in its terminal (or `kill ' + pid + '`), or start a second copy with another PORT, DB_PORT and DATA_DIR.',
+          '        Stop it with Ctrl-C in its terminal (or `kill ' +
+          pid +
+          '`), or start a second copy with another PORT, DB_PORT and DATA_DIR.',
       );
       process.exit(1);
     }
   }
   if (!(await portFree(port))) {
-    console.error(`[start] port ${port} on 127.0.0.1 is taken by another program: set PORT to a free port.`);
+    console.error(
+      `[start] port ${port} on 127.0.0.1 is taken by another program: set PORT to a free port.`,
+    );
     process.exit(1);
   }
   writeFileSync(pidFile, String(process.pid));
   writeFileSync(join(dataDir, 'rhotrace.port'), String(port));
-  for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(signal, () => void shutdown(0));
+  for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const)
+    process.on(signal, () => void shutdown(0));
 
   execFileSync('bash', [join(ROOT, 'db/db.sh'), 'start'], { env, stdio: 'inherit' });
   const step = async (label: string, args: string[]) => {
@@ -104,9 +118,16 @@ async function main(): Promise<void> {
 
   const stamp = join(ROOT, 'dist/web/.source-hash');
   const hash = webSourceHash();
-  if (!existsSync(join(ROOT, 'dist/web/browser/index.html')) || !existsSync(stamp) || readFileSync(stamp, 'utf8') !== hash) {
+  if (
+    !existsSync(join(ROOT, 'dist/web/browser/index.html')) ||
+    !existsSync(stamp) ||
+    readFileSync(stamp, 'utf8') !== hash
+  ) {
     console.log('[start] building the web app for production (first start or changed sources)');
-    const { code } = await runCommand(bin('ng'), ['build', 'web'], { env: { ...env, NG_CLI_ANALYTICS: 'false' }, cwd: ROOT });
+    const { code } = await runCommand(bin('ng'), ['build', 'web'], {
+      env: { ...env, NG_CLI_ANALYTICS: 'false' },
+      cwd: ROOT,
+    });
     if (code !== 0) {
       console.error('[start] the web build failed');
       await shutdown(1);
@@ -121,7 +142,9 @@ async function main(): Promise<void> {
   for (const child of [mail, api]) {
     child.on('exit', (code) => {
       if (!stopping) {
-        console.error(`[start] a Rhotrace process stopped unexpectedly (exit ${code}); shutting down`);
+        console.error(
+          `[start] a Rhotrace process stopped unexpectedly (exit ${code}); shutting down`,
+        );
         void shutdown(1);
       }
     });
@@ -136,10 +159,14 @@ async function main(): Promise<void> {
     .join('\n');
   console.log(`
 Rhotrace is running at ${url}
-${production ? '' : `
+${
+  production
+    ? ''
+    : `
   Demo accounts (demo only; password for all: rhotrace-demo):
 ${accounts}
-`}
+`
+}
   Captured e-mail: ${join(dataDir, 'mail')}${production ? '' : ` (also listed at ${url}/api/dev/mail)`}
   Stop with Ctrl-C.
 `);

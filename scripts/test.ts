@@ -49,12 +49,25 @@ async function suite(
   const { code, output } = await runCommand(command, args, options);
   const seconds = (Date.now() - started) / 1000;
   if (options.kind === 'exit') {
-    results.push({ suite: name, passed: code === 0 ? 1 : 0, failed: code === 0 ? 0 : 1, skipped: 0, seconds });
+    results.push({
+      suite: name,
+      passed: code === 0 ? 1 : 0,
+      failed: code === 0 ? 0 : 1,
+      skipped: 0,
+      seconds,
+    });
     return;
   }
   const counts = vitestCounts(output);
   if (!counts) {
-    results.push({ suite: name, passed: 0, failed: 1, skipped: 0, seconds, note: `exit ${code}, no test summary` });
+    results.push({
+      suite: name,
+      passed: 0,
+      failed: 1,
+      skipped: 0,
+      seconds,
+      note: `exit ${code}, no test summary`,
+    });
     return;
   }
   // A non-zero exit with no failed test (an unhandled error, a crashed worker) still fails.
@@ -82,10 +95,15 @@ function cleanStaleRuns(): void {
   for (const entry of readdirSync(tmpdir())) {
     if (!entry.startsWith(TMP_PREFIX)) continue;
     const dir = join(tmpdir(), entry);
-    const owner = Number(existsSync(join(dir, 'runner.pid')) ? readFileSync(join(dir, 'runner.pid'), 'utf8') : 0);
+    const owner = Number(
+      existsSync(join(dir, 'runner.pid')) ? readFileSync(join(dir, 'runner.pid'), 'utf8') : 0,
+    );
     if (owner && pidAlive(owner)) continue;
     try {
-      execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], { env: { ...process.env, DATA_DIR: dir }, stdio: 'ignore' });
+      execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], {
+        env: { ...process.env, DATA_DIR: dir },
+        stdio: 'ignore',
+      });
     } catch {
       /* nothing running */
     }
@@ -102,7 +120,10 @@ async function cleanUp(): Promise<void> {
   await stopAll();
   if (dataDir) {
     try {
-      execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], { env: { ...process.env, DATA_DIR: dataDir }, stdio: 'inherit' });
+      execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], {
+        env: { ...process.env, DATA_DIR: dataDir },
+        stdio: 'inherit',
+      });
     } catch {
       /* reported by db.sh */
     }
@@ -128,12 +149,26 @@ function readEnvFile(path: string): Record<string, string> {
 async function e2e(env: NodeJS.ProcessEnv): Promise<void> {
   const name = 'e2e';
   if (!ensureDebianPackage('/usr/bin/chromium', 'chromium', 'the browser tests')) {
-    results.push({ suite: name, passed: 0, failed: 1, skipped: 0, seconds: 0, note: 'chromium missing' });
+    results.push({
+      suite: name,
+      passed: 0,
+      failed: 1,
+      skipped: 0,
+      seconds: 0,
+      note: 'chromium missing',
+    });
     return;
   }
   const seed = await runCommand(bin('tsx'), ['apps/api/src/db/cli.ts', 'seed'], { env, cwd: ROOT });
   if (seed.code !== 0) {
-    results.push({ suite: name, passed: 0, failed: 1, skipped: 0, seconds: 0, note: 'demo seed failed' });
+    results.push({
+      suite: name,
+      passed: 0,
+      failed: 1,
+      skipped: 0,
+      seconds: 0,
+      note: 'demo seed failed',
+    });
     return;
   }
   const port = await freePort();
@@ -143,7 +178,14 @@ async function e2e(env: NodeJS.ProcessEnv): Promise<void> {
   const api = startProcess(bin('tsx'), ['apps/api/src/main.ts'], appEnv, 'api');
   const baseUrl = `http://127.0.0.1:${port}`;
   if (!(await waitForHttp(`${baseUrl}/api/health`, 60_000))) {
-    results.push({ suite: name, passed: 0, failed: 1, skipped: 0, seconds: 0, note: 'API did not start' });
+    results.push({
+      suite: name,
+      passed: 0,
+      failed: 1,
+      skipped: 0,
+      seconds: 0,
+      note: 'API did not start',
+    });
   } else {
     await suite(name, bin('vitest'), ['run'], {
       cwd: join(ROOT, 'e2e'),
@@ -162,7 +204,12 @@ async function main(): Promise<void> {
   dataDir = mkdtempSync(join(tmpdir(), TMP_PREFIX));
   writeFileSync(join(dataDir, 'runner.pid'), String(process.pid));
   const dbPort = await freePort();
-  const baseEnv: NodeJS.ProcessEnv = { ...process.env, DATA_DIR: dataDir, DB_PORT: String(dbPort), NODE_ENV: 'test' };
+  const baseEnv: NodeJS.ProcessEnv = {
+    ...process.env,
+    DATA_DIR: dataDir,
+    DB_PORT: String(dbPort),
+    NODE_ENV: 'test',
+  };
   delete baseEnv.JWT_SECRET;
 
   const needsDb = want('api') || want('e2e');
@@ -173,15 +220,39 @@ async function main(): Promise<void> {
     env = { ...baseEnv, ...readEnvFile(join(dataDir, 'db.env')) };
   }
 
-  if (want('lint')) await suite('lint', bin('eslint'), ['.', '--max-warnings=0'], { cwd: ROOT, kind: 'exit' });
-  if (want('lint')) await suite('format', bin('prettier'), ['--check', '.', '--log-level=warn'], { cwd: ROOT, kind: 'exit' });
-  if (want('typecheck')) await suite('typecheck', bin('tsx'), ['scripts/typecheck.ts'], { cwd: ROOT, kind: 'exit' });
-  if (want('physics')) await suite('physics', bin('vitest'), ['run'], { cwd: join(ROOT, 'libs/physics'), kind: 'vitest' });
-  if (want('api')) await suite('api', bin('vitest'), ['run'], { cwd: join(ROOT, 'apps/api'), env, kind: 'vitest' });
+  if (want('lint'))
+    await suite('lint', bin('eslint'), ['.', '--max-warnings=0'], { cwd: ROOT, kind: 'exit' });
+  if (want('lint'))
+    await suite('format', bin('prettier'), ['--check', '.', '--log-level=warn'], {
+      cwd: ROOT,
+      kind: 'exit',
+    });
+  if (want('typecheck'))
+    await suite('typecheck', bin('tsx'), ['scripts/typecheck.ts'], { cwd: ROOT, kind: 'exit' });
+  if (want('physics'))
+    await suite('physics', bin('vitest'), ['run'], {
+      cwd: join(ROOT, 'libs/physics'),
+      kind: 'vitest',
+    });
+  if (want('api'))
+    await suite('api', bin('vitest'), ['run'], {
+      cwd: join(ROOT, 'apps/api'),
+      env,
+      kind: 'vitest',
+    });
   if (existsSync(join(ROOT, 'angular.json'))) {
-    if (want('web')) await suite('web', bin('ng'), ['test', 'web', '--watch=false'], { cwd: ROOT, env: { ...env, NG_CLI_ANALYTICS: 'false' }, kind: 'vitest' });
+    if (want('web'))
+      await suite('web', bin('ng'), ['test', 'web', '--watch=false'], {
+        cwd: ROOT,
+        env: { ...env, NG_CLI_ANALYTICS: 'false' },
+        kind: 'vitest',
+      });
     if (want('e2e')) {
-      await suite('web-build', bin('ng'), ['build', 'web'], { cwd: ROOT, env: { ...env, NG_CLI_ANALYTICS: 'false' }, kind: 'exit' });
+      await suite('web-build', bin('ng'), ['build', 'web'], {
+        cwd: ROOT,
+        env: { ...env, NG_CLI_ANALYTICS: 'false' },
+        kind: 'exit',
+      });
       if (results.at(-1)?.failed === 0) await e2e(env);
     }
   }
@@ -189,7 +260,9 @@ async function main(): Promise<void> {
 
 main()
   .catch((error: unknown) => {
-    console.error(`[test] runner error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`);
+    console.error(
+      `[test] runner error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`,
+    );
     results.push({ suite: 'runner', passed: 0, failed: 1, skipped: 0, seconds: 0 });
   })
   .finally(async () => {
@@ -197,7 +270,9 @@ main()
     console.log('\n=== results');
     for (const r of results) {
       const skipped = r.skipped ? `, ${r.skipped} skipped` : '';
-      console.log(`${r.suite.padEnd(10)} ${r.passed} passed, ${r.failed} failed${skipped}  (${r.seconds.toFixed(1)} s)${r.note ? `  ${r.note}` : ''}`);
+      console.log(
+        `${r.suite.padEnd(10)} ${r.passed} passed, ${r.failed} failed${skipped}  (${r.seconds.toFixed(1)} s)${r.note ? `  ${r.note}` : ''}`,
+      );
     }
     const passed = results.reduce((s, r) => s + r.passed, 0);
     const failed = results.reduce((s, r) => s + r.failed, 0);

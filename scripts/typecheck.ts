@@ -17,7 +17,10 @@ const projects = [
 let failed = 0;
 for (const project of projects) {
   try {
-    execFileSync(join(ROOT, 'node_modules/.bin/tsc'), ['--noEmit', '-p', project], { cwd: ROOT, stdio: 'inherit' });
+    execFileSync(join(ROOT, 'node_modules/.bin/tsc'), ['--noEmit', '-p', project], {
+      cwd: ROOT,
+      stdio: 'inherit',
+    });
     console.log(`[typecheck] ${project}: clean`);
   } catch {
     failed += 1;

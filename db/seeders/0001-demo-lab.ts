@@ -1,6 +1,12 @@
 import bcrypt from 'bcryptjs';
 import type { QueryInterface } from 'sequelize';
-import { DEMO_ASSIGNMENTS, DEMO_LOTS, DEMO_PASSWORD, DEMO_STATIONS, DEMO_USERS } from '../../seed-data/demo-lab';
+import {
+  DEMO_ASSIGNMENTS,
+  DEMO_LOTS,
+  DEMO_PASSWORD,
+  DEMO_STATIONS,
+  DEMO_USERS,
+} from '../../seed-data/demo-lab';
 
 /**
  * The invented demo lab: people (one account per role and a student), probe stations, lots,
@@ -12,9 +18,20 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   const hash = await bcrypt.hash(DEMO_PASSWORD, 10);
   await qi.bulkInsert(
     'users',
-    DEMO_USERS.map((u) => ({ email: u.email, name: u.name, role: u.role, password_hash: hash, active: true, token_version: 0, ...stamps })),
+    DEMO_USERS.map((u) => ({
+      email: u.email,
+      name: u.name,
+      role: u.role,
+      password_hash: hash,
+      active: true,
+      token_version: 0,
+      ...stamps,
+    })),
   );
-  const [userRows] = (await qi.sequelize.query('SELECT id, email FROM users')) as [Array<{ id: number; email: string }>, unknown];
+  const [userRows] = (await qi.sequelize.query('SELECT id, email FROM users')) as [
+    Array<{ id: number; email: string }>,
+    unknown,
+  ];
   const userId = (email: string) => {
     const row = userRows.find((u) => u.email === email);
     if (!row) throw new Error(`demo seed: no user ${email}`);
@@ -54,13 +71,19 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
         ...stamps,
       },
     ]);
-    const [[lotRow]] = (await qi.sequelize.query('SELECT id FROM lots WHERE code = ?', { replacements: [lot.code] })) as [
-      Array<{ id: number }>,
-      unknown,
-    ];
+    const [[lotRow]] = (await qi.sequelize.query('SELECT id FROM lots WHERE code = ?', {
+      replacements: [lot.code],
+    })) as [Array<{ id: number }>, unknown];
     await qi.bulkInsert(
       'wafers',
-      lot.wafers.map((w) => ({ lot_id: lotRow!.id, number: w.number, thickness_cm: w.thicknessCm, state: w.state, notes: w.notes, ...stamps })),
+      lot.wafers.map((w) => ({
+        lot_id: lotRow!.id,
+        number: w.number,
+        thickness_cm: w.thicknessCm,
+        state: w.state,
+        notes: w.notes,
+        ...stamps,
+      })),
     );
   }
   const [waferRows] = (await qi.sequelize.query(
@@ -72,7 +95,8 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     return row.id;
   };
   const today = new Date();
-  const day = (offset: number) => new Date(today.getTime() + offset * 86_400_000).toISOString().slice(0, 10);
+  const day = (offset: number) =>
+    new Date(today.getTime() + offset * 86_400_000).toISOString().slice(0, 10);
   await qi.bulkInsert(
     'assignments',
     DEMO_ASSIGNMENTS.map((a) => ({

@@ -9,14 +9,20 @@ import { Mailer } from './mail/mailer.service';
 const config = loadConfig();
 const logger = createLogger();
 const sequelize = connectDatabase(config.db);
-const mailer = new Mailer({ host: config.smtp.host, port: config.smtp.port, from: config.smtp.from });
+const mailer = new Mailer({
+  host: config.smtp.host,
+  port: config.smtp.port,
+  from: config.smtp.from,
+});
 const app = createApp({ config, sequelize, mailer, logger });
 const server = createServer(app);
 server.requestTimeout = 120_000;
 
 server.on('error', (error: NodeJS.ErrnoException) => {
   if (error.code === 'EADDRINUSE') {
-    console.error(`[api] port ${config.port} is already in use: is Rhotrace already running? Set PORT to use another.`);
+    console.error(
+      `[api] port ${config.port} is already in use: is Rhotrace already running? Set PORT to use another.`,
+    );
   } else {
     console.error(`[api] ${error.message}`);
   }

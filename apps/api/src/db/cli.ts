@@ -12,7 +12,9 @@ async function main(command: string | undefined): Promise<void> {
   try {
     if (command === 'migrate') {
       const done = await migrator(sequelize).up();
-      console.log(`[db] migrations applied: ${done.length ? done.map((m) => m.name).join(', ') : 'none pending'}`);
+      console.log(
+        `[db] migrations applied: ${done.length ? done.map((m) => m.name).join(', ') : 'none pending'}`,
+      );
     } else if (command === 'seed') {
       if (config.production) {
         console.log('[db] NODE_ENV=production: the demo seed is never loaded');
@@ -20,7 +22,9 @@ async function main(command: string | undefined): Promise<void> {
       }
       await migrator(sequelize).up();
       const done = await seeder(sequelize).up();
-      console.log(`[db] seeders run: ${done.length ? done.map((m) => m.name).join(', ') : 'none pending (already seeded)'}`);
+      console.log(
+        `[db] seeders run: ${done.length ? done.map((m) => m.name).join(', ') : 'none pending (already seeded)'}`,
+      );
     } else if (command === 'reset') {
       if (config.production && process.env.RHOTRACE_ALLOW_RESET !== 'yes') {
         throw new Error('refusing to reset a production database (set RHOTRACE_ALLOW_RESET=yes)');

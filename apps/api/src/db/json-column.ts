@@ -14,9 +14,10 @@ export function jsonColumn(field: string, allowNull = true): ModelAttributeColum
       return typeof raw === 'string' ? (JSON.parse(raw) as unknown) : raw;
     },
     set(this: Model, value: unknown) {
-      this.setDataValue(field as never, (value === null || value === undefined
-        ? null
-        : JSON.stringify(value)) as never);
+      this.setDataValue(
+        field as never,
+        (value === null || value === undefined ? null : JSON.stringify(value)) as never,
+      );
     },
   };
 }

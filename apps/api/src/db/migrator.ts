@@ -34,7 +34,11 @@ export function migrator(sequelize: Sequelize) {
   return new Umzug({
     migrations: stepsIn('migrations'),
     context: sequelize.getQueryInterface(),
-    storage: new SequelizeStorage({ sequelize, modelName: 'SchemaMigration', tableName: 'schema_migrations' }),
+    storage: new SequelizeStorage({
+      sequelize,
+      modelName: 'SchemaMigration',
+      tableName: 'schema_migrations',
+    }),
     logger: undefined,
   });
 }

@@ -5,7 +5,9 @@ import { startMailStandIn } from './mail-stand-in';
 const config = loadConfig();
 startMailStandIn({ port: config.smtp.port, mailDir: config.mailDir })
   .then(({ port, close }) => {
-    console.log(`[mail] stand-in listening on 127.0.0.1:${port}, keeping messages in ${config.mailDir}`);
+    console.log(
+      `[mail] stand-in listening on 127.0.0.1:${port}, keeping messages in ${config.mailDir}`,
+    );
     const stop = () => void close().then(() => process.exit(0));
     process.on('SIGTERM', stop);
     process.on('SIGINT', stop);

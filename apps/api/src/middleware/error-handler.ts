@@ -32,7 +32,9 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
   const e = error as { type?: string; status?: number; statusCode?: number; code?: string };
   // body-parser and multer errors carry their own status
   if (e?.type === 'entity.too.large' || e?.code === 'LIMIT_FILE_SIZE') {
-    res.status(413).json(body('payload_too_large', 'The request body or file is larger than the limit'));
+    res
+      .status(413)
+      .json(body('payload_too_large', 'The request body or file is larger than the limit'));
     return;
   }
   if (e?.type === 'entity.parse.failed') {
@@ -62,7 +64,10 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
     );
     return;
   }
-  if (isDatabaseUnavailable(error) || (error instanceof BaseError && isDatabaseUnavailable(error))) {
+  if (
+    isDatabaseUnavailable(error) ||
+    (error instanceof BaseError && isDatabaseUnavailable(error))
+  ) {
     res.set('Retry-After', '5');
     res
       .status(503)

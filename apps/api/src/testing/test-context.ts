@@ -30,7 +30,10 @@ export interface TestContext {
   /** A valid bearer header per role. */
   auth: (role: Role) => { Authorization: string };
   /** Creates another user and returns it with its bearer header. */
-  addUser: (role: Role, name?: string) => Promise<{ user: User; header: { Authorization: string } }>;
+  addUser: (
+    role: Role,
+    name?: string,
+  ) => Promise<{ user: User; header: { Authorization: string } }>;
   close: () => Promise<void>;
 }
 
@@ -38,9 +41,7 @@ export interface TestContext {
  * A fresh, migrated database of its own (dropped again by `close`), an SMTP stand-in on a free
  * port, and the app built over them. Needs the MariaDB that `npm test` starts (DB_* variables).
  */
-export async function createTestContext(
-  overrides: Partial<AppConfig> = {},
-): Promise<TestContext> {
+export async function createTestContext(overrides: Partial<AppConfig> = {}): Promise<TestContext> {
   const base = loadConfig({ ...process.env, DATA_DIR: mkdtempSync(join(tmpdir(), 'rhotrace-t-')) });
   const dbName = `${base.db.name}_t_${randomBytes(5).toString('hex')}`;
   const admin = connectDatabase(base.db, { poolMax: 1 });
