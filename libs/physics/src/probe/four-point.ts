@@ -10,8 +10,12 @@ export const THIN_SHEET_FACTOR = Math.PI / Math.LN2;
 /** Smallest slice diameter accepted, in probe spacings (the correction diverges near sqrt 3). */
 export const MIN_DIAMETER_SPACINGS = 3;
 
-/** Direct terms of the image series before the Euler–Maclaurin tail takes over. */
-const DIRECT_TERMS = 64;
+/**
+ * Direct terms of the image series before the Euler–Maclaurin tail takes over: at least 64, and
+ * enough to reach 2 n t/s = 8, where the tail's derivative corrections are negligible.
+ */
+const MIN_DIRECT_TERMS = 64;
+const MAX_DIRECT_TERMS = 200_000;
 
 function imageTerm(u: number): number {
   return 1 / Math.sqrt(1 + u * u) - 1 / Math.sqrt(4 + u * u);
@@ -28,7 +32,7 @@ function imageTermDerivative(u: number): number {
  * Formula (method of images, Valdes 1954; Smits 1958): with tau = t/s and both faces insulating,
  *   rho = 2 pi s (V/I) / S(tau),  S = 1 + 4 sum_{n>=1} [1/sqrt(1 + (2 n tau)^2) - 1/sqrt(4 + (2 n tau)^2)]
  *   F = 2 ln 2 / (tau S(tau))     (F -> 1 for a thin sheet, F -> 2 ln 2 / tau for a thick block)
- * The series is summed to 64 terms and its tail by Euler–Maclaurin with the closed-form
+ * The series is summed directly up to 2 n tau = 8 (at least 64 terms) and its tail by Euler–Maclaurin with the closed-form
  * integral (asinh differences), so it is exact to about 1e-12 for any thickness.
  * Source: L. B. Valdes, Proc. IRE 42, 420 (1954); F. M. Smits, Bell Syst. Tech. J. 37, 711 (1958).
  *
@@ -42,10 +46,11 @@ export function finiteThicknessFactor(thicknessOverSpacing: number): number {
 
 function thicknessFactorUnchecked(tau: number): number {
   const h = 2 * tau;
+  const terms = Math.min(MAX_DIRECT_TERMS, Math.max(MIN_DIRECT_TERMS, Math.ceil(8 / h)));
   let sum = 0;
-  for (let n = 1; n <= DIRECT_TERMS; n++) sum += imageTerm(n * h);
+  for (let n = 1; n <= terms; n++) sum += imageTerm(n * h);
   // Tail sum_{n > N} f(n) = integral_N^inf f - f(N)/2 - f'(N)/12 + ..., f(x) = imageTerm(h x).
-  const uN = DIRECT_TERMS * h;
+  const uN = terms * h;
   const integral = (Math.LN2 - Math.asinh(uN) + Math.asinh(uN / 2)) / h;
   const tail = integral - imageTerm(uN) / 2 - (h * imageTermDerivative(uN)) / 12;
   const s = 1 + 4 * (sum + tail);
