@@ -72,35 +72,58 @@ export class Mailer {
     return this.running;
   }
 
+  /**
+   * Claims due messages with `FOR UPDATE SKIP LOCKED`, so several API processes sharing one
+   * database never send the same message twice, and sends them one by one.
+   */
   private async deliver(): Promise<number> {
-    const due = await OutgoingEmail.findAll({
-      where: { state: 'queued', nextAttemptAt: { [Op.lte]: new Date() } },
-      order: [['id', 'ASC']],
-      limit: 50,
-    });
+    const sequelize = OutgoingEmail.sequelize!;
     let sent = 0;
-    for (const mail of due) {
-      try {
-        await this.transport.sendMail({
-          from: this.options.from,
-          to: mail.toAddress,
-          subject: mail.subject,
-          text: mail.textBody,
-          html: mail.htmlBody,
+    for (let batch = 0; batch < 10; batch += 1) {
+      const claimed = await sequelize.transaction(async (transaction) => {
+        const due = await OutgoingEmail.findAll({
+          where: { state: 'queued', nextAttemptAt: { [Op.lte]: new Date() } },
+          order: [['id', 'ASC']],
+          limit: 20,
+          lock: transaction.LOCK.UPDATE,
+          skipLocked: true,
+          transaction,
         });
-        await mail.update({ state: 'sent', sentAt: new Date(), attempts: mail.attempts + 1 });
-        sent += 1;
-      } catch (error) {
-        const attempts = mail.attempts + 1;
-        const base = this.options.retryBaseMs ?? 2_000;
-        const backoff = Math.min(base * 2 ** (attempts - 1), this.options.maxBackoffMs ?? 300_000);
-        await mail.update({
-          attempts,
-          lastError: error instanceof Error ? error.message : String(error),
-          nextAttemptAt: new Date(Date.now() + backoff),
-          state: attempts >= 50 ? 'failed' : 'queued',
-        });
-      }
+        for (const mail of due) {
+          try {
+            await this.transport.sendMail({
+              from: this.options.from,
+              to: mail.toAddress,
+              subject: mail.subject,
+              text: mail.textBody,
+              html: mail.htmlBody,
+            });
+            await mail.update(
+              { state: 'sent', sentAt: new Date(), attempts: mail.attempts + 1 },
+              { transaction },
+            );
+            sent += 1;
+          } catch (error) {
+            const attempts = mail.attempts + 1;
+            const base = this.options.retryBaseMs ?? 2_000;
+            const backoff = Math.min(
+              base * 2 ** (attempts - 1),
+              this.options.maxBackoffMs ?? 300_000,
+            );
+            await mail.update(
+              {
+                attempts,
+                lastError: error instanceof Error ? error.message : String(error),
+                nextAttemptAt: new Date(Date.now() + backoff),
+                state: attempts >= 50 ? 'failed' : 'queued',
+              },
+              { transaction },
+            );
+          }
+        }
+        return due.length;
+      });
+      if (claimed < 20) break;
     }
     return sent;
   }
