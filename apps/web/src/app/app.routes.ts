@@ -1,0 +1,73 @@
+import type { Routes } from '@angular/router';
+import { rolesGuard, signedInGuard } from './core/auth/guards';
+import { PERMISSIONS } from './core/auth/permissions';
+import { Shell } from './core/layout/shell';
+
+export const routes: Routes = [
+  {
+    path: 'sign-in',
+    title: 'Sign in · Rhotrace',
+    loadComponent: () => import('./features/access/sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: 'reset-password',
+    title: 'New password · Rhotrace',
+    loadComponent: () =>
+      import('./features/access/reset-password/reset-password').then((m) => m.ResetPassword),
+  },
+  {
+    path: '',
+    component: Shell,
+    canActivate: [signedInGuard],
+    children: [
+      {
+        path: '',
+        pathMatch: 'full',
+        title: 'Bench · Rhotrace',
+        loadComponent: () => import('./features/home/home').then((m) => m.Home),
+      },
+      {
+        path: 'lots',
+        canMatch: [rolesGuard(...PERMISSIONS.seeAllLots)],
+        loadChildren: () => import('./features/lots/lots.routes').then((m) => m.LOTS_ROUTES),
+      },
+      {
+        path: 'wafers',
+        loadChildren: () => import('./features/wafers/wafers.routes').then((m) => m.WAFERS_ROUTES),
+      },
+      {
+        path: 'sweeps',
+        canMatch: [rolesGuard(...PERMISSIONS.analyse)],
+        loadChildren: () =>
+          import('./features/analysis/analysis.routes').then((m) => m.ANALYSIS_ROUTES),
+      },
+      {
+        path: 'overlay',
+        canMatch: [rolesGuard(...PERMISSIONS.analyse)],
+        loadChildren: () => import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES),
+      },
+      {
+        path: 'worklist',
+        canMatch: [rolesGuard(...PERMISSIONS.assign)],
+        loadChildren: () =>
+          import('./features/assignments/assignments.routes').then((m) => m.ASSIGNMENTS_ROUTES),
+      },
+      {
+        path: 'stations',
+        canMatch: [rolesGuard(...PERMISSIONS.seeAllLots)],
+        loadChildren: () => import('./features/stations/stations.routes').then((m) => m.STATIONS_ROUTES),
+      },
+      {
+        path: 'people',
+        canMatch: [rolesGuard(...PERMISSIONS.manageUsers)],
+        loadChildren: () => import('./features/people/people.routes').then((m) => m.PEOPLE_ROUTES),
+      },
+      {
+        path: 'trail',
+        canMatch: [rolesGuard(...PERMISSIONS.readAudit)],
+        loadChildren: () => import('./features/audit/audit.routes').then((m) => m.AUDIT_ROUTES),
+      },
+    ],
+  },
+  { path: '**', redirectTo: '' },
+];

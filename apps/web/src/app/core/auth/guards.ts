@@ -1,0 +1,20 @@
+import { inject } from '@angular/core';
+import { type CanActivateFn, type CanMatchFn, Router } from '@angular/router';
+import type { Role } from '@rhotrace/api-types';
+import { Session } from './session';
+
+/** Lets signed-in users through; others go to sign-in and come back to where they were going. */
+export const signedInGuard: CanActivateFn = (_route, state) => {
+  const session = inject(Session);
+  if (session.signedIn()) return true;
+  return inject(Router).createUrlTree(['/sign-in'], { queryParams: { next: state.url } });
+};
+
+/** Matches a lazy route only for the given roles; others land on their home. */
+export function rolesGuard(...roles: readonly Role[]): CanMatchFn {
+  return () => {
+    const session = inject(Session);
+    if (session.hasRole(...roles)) return true;
+    return inject(Router).createUrlTree(['/']);
+  };
+}

@@ -1,0 +1,15 @@
+import type { Role } from '@rhotrace/api-types';
+
+/** Who may do what in the app (mirrors the product's role table; the API enforces it). */
+export const PERMISSIONS = {
+  editRecords: ['admin', 'manager', 'engineer'],
+  editStations: ['admin', 'manager', 'engineer'],
+  assign: ['admin', 'manager'],
+  upload: ['admin', 'manager', 'engineer', 'physicist', 'technician'],
+  analyse: ['admin', 'manager', 'engineer', 'physicist'],
+  readAudit: ['admin', 'manager'],
+  manageUsers: ['admin'],
+  seeAllLots: ['admin', 'manager', 'engineer', 'physicist'],
+} as const satisfies Record<string, readonly Role[]>;
+
+export type Permission = keyof typeof PERMISSIONS;

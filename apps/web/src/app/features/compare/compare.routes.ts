@@ -1,0 +1,5 @@
+import type { Routes } from '@angular/router';
+
+export const COMPARE_ROUTES: Routes = [
+  { path: '', loadComponent: () => import('./compare').then((m) => m.Compare) },
+];

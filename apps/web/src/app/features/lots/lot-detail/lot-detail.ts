@@ -1,0 +1,121 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import type { LotSummaryWafer, WaferDto } from '@rhotrace/api-types';
+import { of } from 'rxjs';
+import { Session } from '../../../core/auth/session';
+import { PERMISSIONS } from '../../../core/auth/permissions';
+import { ApiError, applyServerErrors } from '../../../core/http/api-error';
+import { EstimateNote } from '../../../shared/estimate-note';
+import { above, fieldError } from '../../../shared/field-error';
+import { formatDay } from '../../../shared/format';
+import { FormatValuePipe } from '../../../shared/format-value';
+import { Plot } from '../../../shared/plot/plot';
+import { LotsApi } from '../lots-api';
+import { lotChart } from './lot-chart';
+
+interface WaferRow {
+  wafer: WaferDto;
+  summary: LotSummaryWafer | undefined;
+}
+
+/** One lot: facts, spec, wafers with their 23 °C values, statistics and the spec chart. */
+@Component({
+  selector: 'rt-lot-detail',
+  imports: [
+    MatTableModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    ReactiveFormsModule,
+    RouterLink,
+    FormatValuePipe,
+    Plot,
+    EstimateNote,
+  ],
+  templateUrl: './lot-detail.html',
+  styleUrl: './lot-detail.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class LotDetail {
+  private readonly api = inject(LotsApi);
+  private readonly router = inject(Router);
+  private readonly fb = inject(NonNullableFormBuilder);
+  protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editRecords);
+
+  readonly id = input.required<string>();
+  protected readonly lotId = computed(() => Number(this.id()));
+
+  protected readonly lot = rxResource({ params: () => this.lotId(), stream: ({ params }) => this.api.get(params) });
+  protected readonly wafers = rxResource({
+    params: () => this.lotId(),
+    stream: ({ params }) => this.api.wafers(params),
+  });
+  protected readonly summary = rxResource({
+    params: () => this.lotId(),
+    stream: ({ params }) => (Number.isFinite(params) ? this.api.summary(params) : of(undefined)),
+  });
+
+  protected readonly columns = ['number', 'state', 'thicknessCm', 'rho', 'verdict', 'ea'];
+  protected readonly day = formatDay;
+  protected readonly error = fieldError;
+  protected readonly rows = computed<WaferRow[]>(() => {
+    const bySummary = new Map((this.summary.value()?.wafers ?? []).map((w) => [w.waferId, w]));
+    return (this.wafers.value()?.items ?? []).map((wafer) => ({ wafer, summary: bySummary.get(wafer.id) }));
+  });
+  protected readonly chart = computed(() => {
+    const summary = this.summary.value();
+    return summary && summary.wafers.some((w) => w.resistivityAt23COhmCm !== null) ? lotChart(summary) : null;
+  });
+
+  protected readonly adding = signal(false);
+  protected readonly addProblem = signal<string | null>(null);
+  protected readonly waferForm = this.fb.group({
+    number: ['', [Validators.required, Validators.maxLength(32)]],
+    thicknessCm: this.fb.control<number | null>(null, above(0)),
+    notes: this.fb.control<string | null>(null),
+  });
+
+  protected addWafer(): void {
+    if (this.waferForm.invalid) {
+      this.waferForm.markAllAsTouched();
+      return;
+    }
+    this.addProblem.set(null);
+    const raw = this.waferForm.getRawValue();
+    this.api.createWafer(this.lotId(), { ...raw, notes: raw.notes || null }).subscribe({
+      next: () => {
+        this.waferForm.reset();
+        this.adding.set(false);
+        this.wafers.reload();
+        this.summary.reload();
+      },
+      error: (err: unknown) => {
+        if (err instanceof ApiError) {
+          if (err.status === 409) this.waferForm.controls.number.setErrors({ server: 'is already used in this lot' });
+          applyServerErrors(this.waferForm, err);
+          this.addProblem.set(err.message);
+        }
+      },
+    });
+  }
+
+  protected deleteLot(): void {
+    const code = this.lot.value()?.code ?? '';
+    if (!globalThis.confirm(`Delete lot ${code}? It stays in the change trail.`)) return;
+    this.api.remove(this.lotId()).subscribe(() => void this.router.navigate(['/lots']));
+  }
+
+  protected averageEa(row: WaferRow): string {
+    const list = row.summary?.activationEnergies ?? [];
+    if (list.length === 0) return '–';
+    return list.map((e) => `${e.activationEnergyEv.toFixed(3)} eV`).join(', ');
+  }
+}
