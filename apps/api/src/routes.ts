@@ -1,8 +1,15 @@
 import { Router } from 'express';
 import type { AppDeps } from './deps';
 import { healthRouter } from './health/health.router';
+import { analysisRouter } from './analysis/analysis.router';
+import { fitsRouter } from './fits/fit.router';
+import { reportsRouter } from './reports/report.router';
 import { authRouter } from './auth/auth.router';
 import { usersRouter } from './users/users.router';
+import { lotsRouter } from './lots/lots.router';
+import { wafersRouter } from './wafers/wafers.router';
+import { stationsRouter } from './stations/stations.router';
+import { auditRouter } from './audit/audit.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -12,5 +19,12 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(healthRouter(deps.sequelize));
   router.use(authRouter(deps));
   router.use(usersRouter(deps));
+  router.use(lotsRouter(deps));
+  router.use(wafersRouter(deps));
+  router.use(stationsRouter(deps));
+  router.use(auditRouter(deps));
+  router.use(analysisRouter(deps));
+  router.use(fitsRouter(deps));
+  router.use(reportsRouter(deps));
   return router;
 }

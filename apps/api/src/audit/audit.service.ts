@@ -1,4 +1,6 @@
-import type { Transaction } from 'sequelize';
+import type { AuditEventDto, Page } from '@rhotrace/api-types';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { User } from '../users/user.model';
 import { AuditEvent } from './audit-event.model';
 
 export interface AuditEntry {
@@ -34,4 +36,52 @@ export async function recordAudit(entry: AuditEntry, transaction: Transaction): 
     },
     { transaction },
   );
+}
+
+/** Filters of `GET /api/audit`. */
+export interface AuditListOptions {
+  page: number;
+  pageSize: number;
+  entity?: string;
+  id?: string;
+  actorId?: number;
+  action?: string;
+}
+
+/** A page of the trail, newest first, with each actor's e-mail. */
+export async function listAudit(options: AuditListOptions): Promise<Page<AuditEventDto>> {
+  const where: WhereOptions<AuditEvent> = {
+    ...(options.entity ? { entity: options.entity } : {}),
+    ...(options.id ? { entityId: options.id } : {}),
+    ...(options.actorId ? { actorId: options.actorId } : {}),
+    ...(options.action ? { action: options.action } : {}),
+  };
+  const { rows, count } = await AuditEvent.findAndCountAll({
+    where,
+    order: [['id', 'DESC']],
+    limit: options.pageSize,
+    offset: (options.page - 1) * options.pageSize,
+  });
+  const actorIds = [...new Set(rows.map((r) => r.actorId).filter((id): id is number => id !== null))];
+  const actors = actorIds.length
+    ? await User.findAll({ attributes: ['id', 'email'], where: { id: { [Op.in]: actorIds } } })
+    : [];
+  const emails = new Map(actors.map((u) => [u.id, u.email]));
+  return {
+    items: rows.map((r) => ({
+      id: Number(r.id),
+      actorId: r.actorId,
+      actorEmail: r.actorId === null ? null : (emails.get(r.actorId) ?? null),
+      action: r.action,
+      entity: r.entity,
+      entityId: r.entityId,
+      before: r.before,
+      after: r.after,
+      requestId: r.requestId,
+      createdAt: r.createdAt.toISOString(),
+    })),
+    total: count,
+    page: options.page,
+    pageSize: options.pageSize,
+  };
 }

@@ -6,18 +6,25 @@ import { paginationSchema } from './validate';
 /** Longest values the API accepts for common kinds of text. */
 export const LIMITS = { code: 64, name: 200, notes: 5000, search: 200 } as const;
 
-/** Required text: trimmed of nothing (stored verbatim), not blank, at most `max` characters. */
-export const requiredText = (max: number) =>
+/** An unpaired UTF-16 surrogate: not a character, and not storable in utf8mb4. */
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+/** Text of whole Unicode characters (no broken surrogate halves). */
+const unicodeText = () =>
   z
     .string({ required_error: 'is required', invalid_type_error: 'must be text' })
-    .max(max, `must be at most ${max} characters`)
+    .refine((v) => !LONE_SURROGATE.test(v), 'must be valid Unicode text');
+
+/** Required text: trimmed of nothing (stored verbatim), not blank, at most `max` characters. */
+export const requiredText = (max: number) =>
+  unicodeText()
+    .refine((v) => v.length <= max, `must be at most ${max} characters`)
     .refine((v) => v.trim().length > 0, 'must not be blank');
 
 /** Optional text that may be null; an empty string is stored as null. */
 export const optionalText = (max: number) =>
-  z
-    .string({ invalid_type_error: 'must be text' })
-    .max(max, `must be at most ${max} characters`)
+  unicodeText()
+    .refine((v) => v.length <= max, `must be at most ${max} characters`)
     .nullable()
     .optional()
     .transform((v) => (v === '' ? null : v));

@@ -1,0 +1,135 @@
+import type { Page, StationDto, StationInput, Thermometer } from '@rhotrace/api-types';
+import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
+import { recordAudit, type Actor } from '../audit/audit.service';
+import { conflict, notFound, validationFailed } from '../errors';
+import { likePattern, orderFrom } from '../middleware/fields';
+import { Station } from './station.model';
+
+/** The API's view of a probe station. */
+export function toStationDto(s: Station): StationDto {
+  return {
+    id: s.id,
+    name: s.name,
+    probeSpacingCm: s.probeSpacingCm,
+    tipRadiusCm: s.tipRadiusCm,
+    thermometer: s.thermometer,
+    rtdR0Ohm: s.rtdR0Ohm,
+    minTemperatureK: s.minTemperatureK,
+    maxTemperatureK: s.maxTemperatureK,
+    calibratedOn: s.calibratedOn,
+    notes: s.notes,
+    createdAt: s.createdAt.toISOString(),
+    updatedAt: s.updatedAt.toISOString(),
+  };
+}
+
+/** Cross-field rules, checked on the merged record: range order, R0 for a platinum RTD. */
+function assertConsistent(s: Pick<StationInput, 'thermometer' | 'rtdR0Ohm' | 'minTemperatureK' | 'maxTemperatureK'>) {
+  const problems = [];
+  if (s.minTemperatureK >= s.maxTemperatureK) {
+    problems.push({ field: 'body.minTemperatureK', problem: `must be below maxTemperatureK (${s.maxTemperatureK})` });
+  }
+  if (s.thermometer === 'platinum-rtd' && s.rtdR0Ohm == null) {
+    problems.push({ field: 'body.rtdR0Ohm', problem: 'is required for a platinum RTD (its resistance at 0 °C)' });
+  }
+  if (s.thermometer === 'thermocouple' && s.rtdR0Ohm != null) {
+    problems.push({ field: 'body.rtdR0Ohm', problem: 'applies to a platinum RTD only; leave it null' });
+  }
+  if (problems.length) throw validationFailed('The station fields do not agree', problems);
+}
+
+function duplicateName(error: unknown, name: string | undefined): never {
+  if (error instanceof UniqueConstraintError) {
+    throw conflict(`A station named "${name}" already exists`, { field: 'name' });
+  }
+  throw error;
+}
+
+export interface StationListOptions {
+  page: number;
+  pageSize: number;
+  sort?: string;
+  q?: string;
+  thermometer?: Thermometer;
+}
+
+/** A page of stations (every role sees stations: they pick one when uploading). */
+export async function listStations(options: StationListOptions): Promise<Page<StationDto>> {
+  const where: WhereOptions<Station>[] = [];
+  if (options.q) {
+    const like = likePattern(options.q);
+    where.push({ [Op.or]: [{ name: { [Op.like]: like } }, { notes: { [Op.like]: like } }] });
+  }
+  if (options.thermometer) where.push({ thermometer: options.thermometer });
+  const { rows, count } = await Station.findAndCountAll({
+    where: { [Op.and]: where },
+    order: orderFrom(options.sort, 'name'),
+    limit: options.pageSize,
+    offset: (options.page - 1) * options.pageSize,
+  });
+  return { items: rows.map(toStationDto), total: count, page: options.page, pageSize: options.pageSize };
+}
+
+/** One station or 404. */
+export async function getStation(id: number): Promise<StationDto> {
+  const station = await Station.findByPk(id);
+  if (!station) throw notFound(`Station ${id}`);
+  return toStationDto(station);
+}
+
+/** Registers a probe station, with its audit event. */
+export async function createStation(input: StationInput, actor: Actor): Promise<StationDto> {
+  assertConsistent(input);
+  try {
+    return await Station.sequelize!.transaction(async (t) => {
+      const station = await Station.create(input, { transaction: t });
+      const dto = toStationDto(station);
+      await recordAudit(
+        { actorId: actor.id, action: 'create', entity: 'station', entityId: station.id, after: dto, requestId: actor.requestId },
+        t,
+      );
+      return dto;
+    });
+  } catch (error) {
+    return duplicateName(error, input.name);
+  }
+}
+
+/** Changes a station; the merged record must still be consistent. */
+export async function updateStation(
+  id: number,
+  changes: Partial<StationInput>,
+  actor: Actor,
+): Promise<StationDto> {
+  try {
+    return await Station.sequelize!.transaction(async (t) => {
+      const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+      if (!station) throw notFound(`Station ${id}`);
+      const before = toStationDto(station);
+      assertConsistent({ ...before, ...changes });
+      await station.update(changes, { transaction: t });
+      const dto = toStationDto(station);
+      await recordAudit(
+        { actorId: actor.id, action: 'update', entity: 'station', entityId: id, before, after: dto, requestId: actor.requestId },
+        t,
+      );
+      return dto;
+    });
+  } catch (error) {
+    return duplicateName(error, changes.name);
+  }
+}
+
+/** Retires a station (soft delete; sweeps keep pointing at it), with its audit event. */
+export async function deleteStation(id: number, actor: Actor): Promise<void> {
+  await Station.sequelize!.transaction(async (t) => {
+    const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
+    if (!station) throw notFound(`Station ${id}`);
+    const before = toStationDto(station);
+    await station.destroy({ transaction: t });
+    await recordAudit(
+      { actorId: actor.id, action: 'delete', entity: 'station', entityId: id, before, after: null, requestId: actor.requestId },
+      t,
+    );
+  });
+}
