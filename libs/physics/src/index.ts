@@ -63,3 +63,30 @@ export {
   siliconResistivityFromDopant,
 } from './silicon/astm-f723';
 export type { F723Dopant } from './silicon/astm-f723';
+
+export { fitArrhenius } from './fit/arrhenius';
+export type { ArrheniusFit, ArrheniusOptions } from './fit/arrhenius';
+export { interpretArrheniusSlope } from './fit/interpret';
+export type { ArrheniusReading } from './fit/interpret';
+export { levenbergMarquardt } from './fit/levenberg-marquardt';
+export type { LeastSquaresProblem, LeastSquaresResult } from './fit/levenberg-marquardt';
+export { fitModel } from './fit/model-fit';
+export type { ModelFit, ModelParameter } from './fit/model-fit';
+export { fitLinearTcr } from './fit/tcr';
+export type { LinearTcrFit } from './fit/tcr';
+export { studentTCritical } from './numeric/student-t';
+export { seededNormal, seededRandom } from './numeric/prng';
+
+export {
+  blochGruneisen,
+  blochGruneisenJ5,
+  J5_INFINITY,
+  METAL_TEMPERATURE_RANGE_K,
+} from './metal/bloch-gruneisen';
+export type { BlochGruneisenParameters } from './metal/bloch-gruneisen';
+export { fitBlochGruneisen } from './metal/bloch-gruneisen-fit';
+export type { BlochGruneisenFit } from './metal/bloch-gruneisen-fit';
+export { METALS, metalResistivity } from './metal/metals';
+export type { MetalId, MetalReference } from './metal/metals';
+export { listMaterials } from './materials';
+export type { MaterialCatalogue, SemiconductorCatalogueEntry } from './materials';

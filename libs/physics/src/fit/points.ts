@@ -1,0 +1,36 @@
+/**
+ * Checks of measured point lists shared by the fits.
+ */
+import { describeValue, requireArray } from '../validate';
+
+/**
+ * @internal Checks an array of objects holding positive finite numbers under the given keys and
+ * returns them as parallel typed arrays.
+ */
+export function readPoints(
+  fn: string,
+  points: unknown,
+  keys: readonly string[],
+  minCount: number,
+): Float64Array[] {
+  const list = requireArray(fn, 'points', points, minCount);
+  const columns = keys.map(() => new Float64Array(list.length));
+  for (let i = 0; i < list.length; i++) {
+    const p = list[i] as Record<string, unknown> | null;
+    if (typeof p !== 'object' || p === null) {
+      throw new TypeError(`\`${fn}\` requires points[${i}] to be an object, got ${describeValue(p)}`);
+    }
+    for (let k = 0; k < keys.length; k++) {
+      const key = keys[k]!;
+      const v = p[key];
+      if (typeof v !== 'number') {
+        throw new TypeError(`\`${fn}\` requires points[${i}].${key} to be a number, got ${describeValue(v)}`);
+      }
+      if (!(v > 0) || !Number.isFinite(v)) {
+        throw new RangeError(`\`${fn}\` requires points[${i}].${key} to be a finite number above 0, got ${v}`);
+      }
+      columns[k]![i] = v;
+    }
+  }
+  return columns;
+}
