@@ -41,8 +41,16 @@ export interface TestContext {
  * A fresh, migrated database of its own (dropped again by `close`), an SMTP stand-in on a free
  * port, and the app built over them. Needs the MariaDB that `npm test` starts (DB_* variables).
  */
-export async function createTestContext(overrides: Partial<AppConfig> = {}): Promise<TestContext> {
-  const base = loadConfig({ ...process.env, DATA_DIR: mkdtempSync(join(tmpdir(), 'rhotrace-t-')) });
+export async function createTestContext(
+  overrides: Partial<AppConfig> = {},
+  /** Extra environment, e.g. the DB_* variables of a private server started by the test. */
+  env: Record<string, string> = {},
+): Promise<TestContext> {
+  const base = loadConfig({
+    ...process.env,
+    ...env,
+    DATA_DIR: mkdtempSync(join(tmpdir(), 'rhotrace-t-')),
+  });
   const dbName = `${base.db.name}_t_${randomBytes(5).toString('hex')}`;
   const admin = connectDatabase(base.db, { poolMax: 1 });
   await admin.query(
