@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { AppDeps } from './deps';
 import { healthRouter } from './health/health.router';
+import { sweepRouter } from './sweeps/sweep.router';
 import { analysisRouter } from './analysis/analysis.router';
 import { fitsRouter } from './fits/fit.router';
 import { reportsRouter } from './reports/report.router';
@@ -10,6 +11,8 @@ import { lotsRouter } from './lots/lots.router';
 import { wafersRouter } from './wafers/wafers.router';
 import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
+import { assignmentsRouter } from './assignments/assignments.router';
+import { devMailRouter } from './mail/dev-mail.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -17,12 +20,15 @@ import { auditRouter } from './audit/audit.router';
 export function apiRoutes(deps: AppDeps): Router {
   const router = Router();
   router.use(healthRouter(deps.sequelize));
+  router.use(sweepRouter(deps));
   router.use(authRouter(deps));
   router.use(usersRouter(deps));
   router.use(lotsRouter(deps));
   router.use(wafersRouter(deps));
   router.use(stationsRouter(deps));
   router.use(auditRouter(deps));
+  router.use(assignmentsRouter(deps));
+  router.use(devMailRouter(deps));
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));
   router.use(reportsRouter(deps));
