@@ -1,0 +1,254 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { join } from 'node:path';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { REPO_ROOT } from '../config';
+import { Lot } from '../lots/lot.model';
+import { freePortForTest } from '../testing/free-port';
+import { PrivateDatabase } from '../testing/private-database';
+import { fourPointCsv } from '../testing/sweep-files';
+import { createTestContext, type TestContext } from '../testing/test-context';
+import { Wafer } from '../wafers/wafer.model';
+
+/** Count and a checksum of every stored point, to prove committed sweeps survive a crash. */
+async function pointDigest(
+  ctx: TestContext,
+): Promise<{ sweeps: number; points: number; sum: number }> {
+  const [[row]] = (await ctx.sequelize.query(
+    'SELECT (SELECT COUNT(*) FROM sweeps) AS sweeps, COUNT(*) AS points, ' +
+      'COALESCE(SUM(CRC32(CONCAT(sweep_id, ":", sequence, ":", temperature_k, ":", resistivity_ohm_cm))), 0) AS sum FROM sweep_points',
+  )) as [Array<{ sweeps: number; points: number; sum: number }>, unknown];
+  return { sweeps: Number(row!.sweeps), points: Number(row!.points), sum: Number(row!.sum) };
+}
+
+/** `SELECT COUNT(*)` of a table as a number. */
+async function countRows(ctx: TestContext, table: string): Promise<number> {
+  const [rows] = (await ctx.sequelize.query(`SELECT COUNT(*) AS n FROM ${table}`)) as [
+    Array<{ n: number }>,
+    unknown,
+  ];
+  return Number(rows[0]?.n ?? 0);
+}
+
+async function waitFor(check: () => Promise<boolean>, timeoutMs: number): Promise<boolean> {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    if (await check().catch(() => false)) return true;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  return false;
+}
+
+describe('faults: the database killed under a running API', () => {
+  const db = new PrivateDatabase();
+  let ctx: TestContext;
+  let waferId: number;
+  beforeAll(async () => {
+    await db.start();
+    ctx = await createTestContext({}, db.env);
+    const lot = await Lot.create({
+      code: 'FAULT-1',
+      material: 'Si',
+      dopant: 'B',
+      dopantType: 'p',
+      orientation: '(100)',
+      diameterCm: 10,
+      thicknessCm: 0.05,
+      supplier: null,
+      receivedOn: null,
+      specMinOhmCm: 1,
+      specMaxOhmCm: 20,
+      notes: null,
+      createdById: null,
+    });
+    waferId = (await Wafer.create({ lotId: lot.id, number: '01', thicknessCm: 0.05, notes: null }))
+      .id;
+  }, 120_000);
+  afterAll(async () => {
+    await ctx?.close().catch(() => undefined);
+    db.stop();
+  });
+
+  const upload = (file: Buffer) =>
+    request(ctx.app)
+      .post(`/api/wafers/${waferId}/sweeps`)
+      .set(ctx.auth('engineer'))
+      .field('method', 'four-point')
+      .attach('file', file, 'sweep.csv');
+
+  it('answers 503 with a retry hint, keeps committed sweeps intact and recovers by itself', async () => {
+    const first = await upload(fourPointCsv(2_000, 'committed'));
+    expect(first.status).toBe(201);
+    const before = await pointDigest(ctx);
+    expect(before.points).toBe(2_000);
+
+    const started = Date.now();
+    const baseline = await upload(fourPointCsv(60_000, 'baseline'));
+    expect(baseline.status).toBe(201);
+    const uploadMs = Date.now() - started;
+    const committed = await pointDigest(ctx);
+
+    const pending = upload(fourPointCsv(60_000, 'killed'));
+    setTimeout(() => db.kill(), Math.max(50, uploadMs / 2));
+    const killed = await pending;
+    expect(killed.status).toBe(503);
+    expect(killed.headers['retry-after']).toBeDefined();
+    expect(killed.body.error.code).toBe('unavailable');
+    await db.waitUntilGone();
+
+    const health = await request(ctx.app).get('/api/health');
+    expect(health.status).toBe(503);
+    expect(health.body.db).toBe('down');
+
+    await db.start();
+    const recovered = await waitFor(
+      async () => (await request(ctx.app).get('/api/health')).status === 200,
+      30_000,
+    );
+    expect(recovered).toBe(true);
+    expect(await pointDigest(ctx)).toEqual(committed);
+    const again = await upload(fourPointCsv(500, 'after recovery'));
+    expect(again.status).toBe(201);
+  }, 120_000);
+
+  it('fails a fit with 503 when the database dies during it, leaving no fit behind', async () => {
+    const stored = await upload(fourPointCsv(400, 'for fit'));
+    expect(stored.status).toBe(201);
+    const fitsBefore = await countRows(ctx, 'fits');
+    const pending = request(ctx.app)
+      .post(`/api/sweeps/${stored.body.id}/fits`)
+      .set(ctx.auth('physicist'))
+      .send({
+        kind: 'arrhenius',
+        minK: 100,
+        maxK: 400,
+        quantity: 'resistivity',
+        prefactorExponent: 0,
+      });
+    setTimeout(() => db.kill(), 5);
+    const res = await pending;
+    expect([503, 201]).toContain(res.status);
+    await db.waitUntilGone();
+    await db.start();
+    expect(
+      await waitFor(async () => (await request(ctx.app).get('/api/health')).status === 200, 30_000),
+    ).toBe(true);
+    const fitsAfter = await countRows(ctx, 'fits');
+    // Either the fit committed whole before the kill (201) or nothing of it remains (503).
+    expect(Number(fitsAfter)).toBe(Number(fitsBefore) + (res.status === 201 ? 1 : 0));
+    if (res.status === 503) expect(res.headers['retry-after']).toBeDefined();
+  }, 120_000);
+});
+
+describe('faults and scale-out: API processes', () => {
+  const db = new PrivateDatabase();
+  let ctx: TestContext;
+  let waferId: number;
+  const processes: ChildProcess[] = [];
+
+  async function startApi(): Promise<{ url: string; child: ChildProcess }> {
+    const port = await freePortForTest();
+    const child = spawn(join(REPO_ROOT, 'node_modules/.bin/tsx'), ['apps/api/src/main.ts'], {
+      cwd: REPO_ROOT,
+      env: {
+        ...process.env,
+        ...db.env,
+        DB_NAME: ctx.config.db.name,
+        PORT: String(port),
+        DATA_DIR: db.dataDir,
+        JWT_SECRET: ctx.config.jwtSecret,
+        SMTP_PORT: String(await freePortForTest()),
+        LOG_LEVEL: 'silent',
+      },
+      stdio: 'ignore',
+    });
+    processes.push(child);
+    const url = `http://127.0.0.1:${port}`;
+    const up = await waitFor(async () => (await fetch(`${url}/api/health`)).ok, 30_000);
+    if (!up) throw new Error('API process did not start');
+    return { url, child };
+  }
+
+  beforeAll(async () => {
+    await db.start();
+    ctx = await createTestContext({}, db.env);
+    const lot = await Lot.create({
+      code: 'SCALE-1',
+      material: 'Si',
+      dopant: 'P',
+      dopantType: 'n',
+      orientation: '(100)',
+      diameterCm: 10,
+      thicknessCm: 0.05,
+      supplier: null,
+      receivedOn: null,
+      specMinOhmCm: 1,
+      specMaxOhmCm: 20,
+      notes: null,
+      createdById: null,
+    });
+    waferId = (await Wafer.create({ lotId: lot.id, number: '01', thicknessCm: 0.05, notes: null }))
+      .id;
+  }, 120_000);
+  afterAll(async () => {
+    for (const p of processes) p.kill('SIGKILL');
+    await ctx?.close().catch(() => undefined);
+    db.stop();
+  });
+
+  const post = (url: string, file: Buffer) => {
+    const form = new FormData();
+    form.set('method', 'four-point');
+    form.set('file', new Blob([file]), 'sweep.csv');
+    return fetch(`${url}/api/wafers/${waferId}/sweeps`, {
+      method: 'POST',
+      body: form,
+      headers: ctx.auth('engineer'),
+    });
+  };
+
+  it('two API processes over one database take concurrent uploads without conflict', async () => {
+    const [a, b] = await Promise.all([startApi(), startApi()]);
+    const before = await pointDigest(ctx);
+    const responses = await Promise.all(
+      Array.from({ length: 12 }, (_, i) =>
+        post(i % 2 ? a!.url : b!.url, fourPointCsv(1_000, `two-${i}`)),
+      ),
+    );
+    const bodies = await Promise.all(responses.map((r) => r.json() as Promise<{ id: number }>));
+    expect(responses.map((r) => r.status)).toEqual(Array(12).fill(201));
+    expect(new Set(bodies.map((x) => x.id)).size).toBe(12);
+    const after = await pointDigest(ctx);
+    expect(after.sweeps - before.sweeps).toBe(12);
+    expect(after.points - before.points).toBe(12_000);
+    a!.child.kill('SIGTERM');
+    b!.child.kill('SIGTERM');
+  }, 120_000);
+
+  it('an API process killed mid-upload leaves no half-stored sweep, and a restarted one works', async () => {
+    const first = await startApi();
+    const before = await pointDigest(ctx);
+    const rawBefore = await countRows(ctx, 'raw_files');
+    const pending = post(first.url, fourPointCsv(80_000, 'api-killed')).then(
+      (r) => r.status,
+      () => 'aborted',
+    );
+    await new Promise((r) => setTimeout(r, 400));
+    first.child.kill('SIGKILL');
+    expect(await pending).toBe('aborted');
+    // let MariaDB notice the dropped connection and roll its transaction back
+    await waitFor(async () => {
+      const [rows] = (await ctx.sequelize.query(
+        'SELECT COUNT(*) AS n FROM information_schema.innodb_trx',
+      )) as [Array<{ n: number }>, unknown];
+      return Number(rows[0]!.n) === 0;
+    }, 20_000);
+    expect(await pointDigest(ctx)).toEqual(before);
+    const rawAfter = await countRows(ctx, 'raw_files');
+    expect(Number(rawAfter)).toBe(Number(rawBefore));
+    const second = await startApi();
+    const res = await post(second.url, fourPointCsv(500, 'after restart'));
+    expect(res.status).toBe(201);
+    second.child.kill('SIGTERM');
+  }, 120_000);
+});
