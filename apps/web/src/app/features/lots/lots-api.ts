@@ -6,14 +6,12 @@ import type {
   LotSummaryResponse,
   Page,
   WaferDto,
+  WaferInput,
 } from '@rhotrace/api-types';
 import type { Observable } from 'rxjs';
 import { quietRequest } from '../../core/http/api-error';
 import { type ListQuery, listParams } from '../../shared/list-query';
 
-/** Fields a wafer is created or edited with. */
-export type WaferInput = Pick<WaferDto, 'number' | 'thicknessCm' | 'notes'> &
-  Partial<Pick<WaferDto, 'state'>>;
 
 /** Lots, their wafers and their summary. */
 @Injectable({ providedIn: 'root' })

@@ -1,5 +1,9 @@
 import type { Routes } from '@angular/router';
 
 export const WAFERS_ROUTES: Routes = [
-  { path: '', loadComponent: () => import('./wafer-page').then((m) => m.WaferPage) },
+  {
+    path: ':id',
+    title: 'Wafer · Rhotrace',
+    loadComponent: () => import('./wafer-page/wafer-page').then((m) => m.WaferPage),
+  },
 ];

@@ -1,0 +1,152 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import { type AssignmentDto, type AssignmentState, WAFER_STATES, type WaferState } from '@rhotrace/api-types';
+import { catchError, of } from 'rxjs';
+import { Session } from '../../../core/auth/session';
+import { PERMISSIONS } from '../../../core/auth/permissions';
+import { Downloader } from '../../../shared/download';
+import { EstimateNote } from '../../../shared/estimate-note';
+import { formatDay } from '../../../shared/format';
+import { FormatValuePipe } from '../../../shared/format-value';
+import { PLOT_ROLES } from '../../../shared/plot/palette';
+import { Plot } from '../../../shared/plot/plot';
+import { LotsApi } from '../../lots/lots-api';
+import { METHOD_WORDS } from '../sweep-upload/column-units';
+import { SweepUpload } from '../sweep-upload/sweep-upload';
+import { WafersApi } from '../wafers-api';
+
+const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
+  assigned: { state: 'in progress', words: 'Start' },
+  'in progress': { state: 'done', words: 'Mark done' },
+};
+
+/** One wafer: its facts, dopant density, assignments, sweeps with their points, and the upload. */
+@Component({
+  selector: 'rt-wafer-page',
+  imports: [
+    MatTableModule,
+    MatButtonModule,
+    MatSelectModule,
+    MatFormFieldModule,
+    MatProgressBarModule,
+    RouterLink,
+    FormatValuePipe,
+    Plot,
+    SweepUpload,
+    EstimateNote,
+  ],
+  templateUrl: './wafer-page.html',
+  styleUrl: './wafer-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class WaferPage {
+  private readonly api = inject(WafersApi);
+  private readonly lots = inject(LotsApi);
+  private readonly downloader = inject(Downloader);
+  private readonly session = inject(Session);
+
+  readonly id = input.required<string>();
+  protected readonly waferId = computed(() => Number(this.id()));
+
+  protected readonly canEdit = this.session.hasRole(...PERMISSIONS.editRecords);
+  protected readonly canAnalyse = this.session.hasRole(...PERMISSIONS.analyse);
+  protected readonly canUpload = this.session.hasRole(...PERMISSIONS.upload);
+  protected readonly isTechnician = this.session.hasRole('technician');
+  protected readonly userId = computed(() => this.session.user()?.id ?? null);
+  protected readonly states = WAFER_STATES;
+  protected readonly day = formatDay;
+  protected readonly nextState = NEXT_STATE;
+
+  protected readonly wafer = rxResource({ params: () => this.waferId(), stream: ({ params }) => this.api.get(params) });
+  protected readonly lot = rxResource({
+    params: () => this.wafer.value()?.lotId,
+    stream: ({ params }) => this.lots.get(params),
+  });
+  protected readonly sweeps = rxResource({ params: () => this.waferId(), stream: ({ params }) => this.api.sweeps(params) });
+  protected readonly dopant = rxResource({
+    params: () => ({ id: this.waferId(), sweeps: this.sweeps.value()?.length ?? 0 }),
+    stream: ({ params }) => (params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null)),
+  });
+  protected readonly assignments = rxResource({
+    params: () => this.waferId(),
+    stream: ({ params }) =>
+      this.api.assignments(this.isTechnician ? { assignee: 'me', waferId: params } : { waferId: params }),
+  });
+  protected readonly stations = rxResource({
+    params: () => this.canUpload,
+    stream: () => this.api.stations().pipe(catchError(() => of([]))),
+  });
+
+  protected readonly chosenSweepId = signal<number | null>(null);
+  protected readonly shownSweepId = computed(() => this.chosenSweepId() ?? this.sweeps.value()?.[0]?.id ?? null);
+  protected readonly shownSweep = rxResource({
+    params: () => this.shownSweepId() ?? undefined,
+    stream: ({ params }) => this.api.sweep(params),
+  });
+  protected readonly pointColumns = ['sequence', 'temperatureK', 'currentA', 'voltageV', 'resistivityOhmCm', 'flags'];
+  protected readonly sweepColumns = ['file', 'method', 'points', 'range', 'by', 'when', 'actions'];
+
+  protected readonly pointsPlot = computed(() => {
+    const sweep = this.shownSweep.value();
+    if (!sweep) return null;
+    return {
+      data: [
+        {
+          type: 'scattergl',
+          mode: 'markers',
+          name: 'measured ρ',
+          x: sweep.points.map((p) => p.temperatureK),
+          y: sweep.points.map((p) => p.resistivityOhmCm),
+          marker: { color: PLOT_ROLES.measured, size: 6 },
+        },
+      ],
+      layout: {
+        xaxis: { title: { text: 'Temperature (K)' } },
+        yaxis: { title: { text: 'Resistivity (Ω·cm)' }, type: 'log' },
+        showlegend: false,
+      },
+    };
+  });
+
+  protected methodWord(method: string): string {
+    return (METHOD_WORDS as Record<string, string>)[method] ?? method;
+  }
+
+  protected setState(state: WaferState): void {
+    this.api.update(this.waferId(), { state }).subscribe(() => this.wafer.reload());
+  }
+
+  protected advance(assignment: AssignmentDto): void {
+    const next = NEXT_STATE[assignment.state];
+    if (!next) return;
+    this.api.moveAssignment(assignment.id, next.state).subscribe(() => this.assignments.reload());
+  }
+
+  protected onStored(sweepId: number): void {
+    this.chosenSweepId.set(sweepId);
+    this.sweeps.reload();
+    this.wafer.reload();
+  }
+
+  protected downloadRaw(id: number, name: string): void {
+    void this.downloader.save(`/api/sweeps/${id}/raw`, name);
+  }
+
+  protected downloadPoints(id: number): void {
+    void this.downloader.save(`/api/sweeps/${id}/points.csv`, `sweep-${id}-points.csv`);
+  }
+
+  protected removeSweep(id: number): void {
+    if (!globalThis.confirm('Delete this sweep? It stays in the change trail.')) return;
+    this.api.deleteSweep(id).subscribe(() => {
+      this.chosenSweepId.set(null);
+      this.sweeps.reload();
+    });
+  }
+}

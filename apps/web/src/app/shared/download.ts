@@ -1,0 +1,21 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { firstValueFrom } from 'rxjs';
+
+/** Fetches an authenticated file (the token travels in a header) and saves it. */
+@Injectable({ providedIn: 'root' })
+export class Downloader {
+  private readonly http = inject(HttpClient);
+
+  async save(url: string, filename: string): Promise<void> {
+    const blob = await firstValueFrom(this.http.get(url, { responseType: 'blob' }));
+    const href = URL.createObjectURL(blob);
+    const a = document.createElement('a');
+    a.href = href;
+    a.download = filename;
+    document.body.appendChild(a);
+    a.click();
+    a.remove();
+    setTimeout(() => URL.revokeObjectURL(href), 10_000);
+  }
+}
