@@ -1,0 +1,150 @@
+import type { Request, Response } from 'express';
+import { MATERIALS } from '@rhotrace/api-types';
+import { z } from 'zod';
+import { currentUser } from '../middleware/authenticate';
+import { parseId, parseOrThrow } from '../middleware/validate';
+import { badRequest } from '../errors';
+import { MAX_COMPARE_SWEEPS, compareSweeps, sweepAnalysis, waferDopant } from './analysis.service';
+import { toCsv } from './csv';
+import { lotSummary } from './lot-summary.service';
+import { curveFor, materials } from './model.service';
+
+const positiveDensity = z
+  .number({ invalid_type_error: 'must be a number' })
+  .finite('must be finite')
+  .min(0, 'must be 0 or more')
+  .max(1e22, 'must be at most 1e22 cm^-3');
+const level = z
+  .number({ invalid_type_error: 'must be a number' })
+  .gt(0, 'must be above 0 eV')
+  .max(1, 'must be at most 1 eV');
+
+/** Doping as the request gives it (densities cm^-3, levels eV). */
+export const dopingSchema = z
+  .object({
+    donorDensity: positiveDensity,
+    acceptorDensity: positiveDensity,
+    donorLevel: level.optional(),
+    acceptorLevel: level.optional(),
+    donor: z.string().max(8).optional(),
+    acceptor: z.string().max(8).optional(),
+  })
+  .strict();
+
+const temperature = (name: string) =>
+  z
+    .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
+    .finite('must be finite')
+    .min(1, `${name} must be at least 1 K`)
+    .max(1500, `${name} must be at most 1500 K`);
+
+const curveSchema = z
+  .object({
+    material: z.enum(MATERIALS, {
+      errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }),
+    }),
+    doping: dopingSchema.optional(),
+    fromK: temperature('fromK'),
+    toK: temperature('toK'),
+    steps: z
+      .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
+      .int('must be a whole number')
+      .min(2, 'must be at least 2')
+      .max(2000, 'must be at most 2000'),
+  })
+  .strict()
+  .refine((b) => b.fromK < b.toK, { message: 'must be above fromK', path: ['toK'] });
+
+/** `POST /api/model/curve`. */
+export function postModelCurve(req: Request, res: Response): void {
+  currentUser(req);
+  const body = parseOrThrow(curveSchema, req.body, 'body');
+  res.json(curveFor(body));
+}
+
+/** `GET /api/materials`. */
+export function getMaterials(req: Request, res: Response): void {
+  currentUser(req);
+  res.json(materials());
+}
+
+/** `GET /api/sweeps/:id/analysis`. */
+export async function getSweepAnalysis(req: Request, res: Response): Promise<void> {
+  res.json(await sweepAnalysis(currentUser(req), parseId(req.params)));
+}
+
+/** `GET /api/wafers/:id/dopant`. */
+export async function getWaferDopant(req: Request, res: Response): Promise<void> {
+  res.json(await waferDopant(currentUser(req), parseId(req.params)));
+}
+
+/** `GET /api/lots/:id/summary`. */
+export async function getLotSummary(req: Request, res: Response): Promise<void> {
+  res.json(await lotSummary(currentUser(req), parseId(req.params)));
+}
+
+/** `GET /api/lots/:id/summary.csv`. */
+export async function getLotSummaryCsv(req: Request, res: Response): Promise<void> {
+  const s = await lotSummary(currentUser(req), parseId(req.params));
+  const rows = s.wafers.map((w) => [
+    s.lot.code,
+    w.number,
+    w.sweepId,
+    w.resistivityAt23COhmCm,
+    w.method,
+    w.distanceK,
+    w.pass === null ? '' : w.pass ? 'pass' : 'fail',
+    w.activationEnergies.map((a) => `${a.activationEnergyEv.toPrecision(4)} eV`).join('; '),
+    w.reason,
+  ]);
+  const st = s.statistics;
+  rows.push(
+    ['statistics', 'mean', null, st.meanOhmCm, null, null, null, null, null],
+    ['statistics', 'std dev', null, st.stdDevOhmCm, null, null, null, null, null],
+    ['statistics', 'min', null, st.minOhmCm, null, null, null, null, null],
+    ['statistics', 'max', null, st.maxOhmCm, null, null, null, null, null],
+    ['statistics', 'Cpk', null, st.cpk, null, null, null, null, st.cpkReason],
+  );
+  const csv = toCsv(
+    [
+      'lot',
+      'wafer',
+      'sweep_id',
+      'resistivity_23c_ohm_cm',
+      'method',
+      'distance_k',
+      'spec',
+      'activation_energies',
+      'note',
+    ],
+    rows,
+  );
+  res
+    .type('text/csv; charset=utf-8')
+    .attachment(`lot-${s.lot.id}-summary.csv`)
+    .send(csv);
+}
+
+const compareSchema = z.object({
+  sweeps: z.string({ required_error: 'is required' }).min(1, 'is required'),
+  points: z.coerce.number().int('must be a whole number').min(2).max(2000).default(200),
+});
+
+/** `GET /api/compare?sweeps=1,2,3[&points=200]`. */
+export async function getCompare(req: Request, res: Response): Promise<void> {
+  const q = parseOrThrow(compareSchema, req.query, 'query');
+  const parts = q.sweeps.split(',').map((s) => s.trim());
+  const ids = parts.map(Number);
+  if (parts.some((p, i) => !/^\d+$/.test(p) || !Number.isSafeInteger(ids[i]) || ids[i]! <= 0)) {
+    throw badRequest('sweeps must be a comma-separated list of sweep ids', [
+      { field: 'query.sweeps', problem: 'must be a comma-separated list of positive whole numbers' },
+    ]);
+  }
+  const unique = [...new Set(ids)];
+  if (unique.length > MAX_COMPARE_SWEEPS) {
+    throw badRequest(`At most ${MAX_COMPARE_SWEEPS} sweeps can be compared`, [
+      { field: 'query.sweeps', problem: `lists ${unique.length} sweeps; at most ${MAX_COMPARE_SWEEPS}` },
+    ]);
+  }
+  res.json(await compareSweeps(currentUser(req), unique, q.points));
+}

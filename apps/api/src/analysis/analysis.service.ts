@@ -1,0 +1,173 @@
+import type {
+  ArrheniusPoint,
+  AnalysisStep,
+  CompareResponse,
+  DopantDensityResponse,
+  SessionUser,
+  SweepAnalysisResponse,
+} from '@rhotrace/api-types';
+import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
+import { notFound, unprocessable } from '../errors';
+import { Sweep } from '../sweeps/sweep.model';
+import { visibleWafer } from '../wafers/wafer-access.service';
+import { temperatureGrid, isMetal } from './model.service';
+import { interpolateWithin, specCheck, specVerdict, valueAt23C, type ValueAt23C } from './spec-check';
+import { suggestWindows } from './suggested-windows';
+import {
+  averageSteps,
+  sweepReadings,
+  sweepSummary,
+  visibleSweep,
+} from './sweep-data.service';
+
+/** Arrhenius coordinates of averaged steps (display transforms only). */
+export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {
+  return steps.map((s) => ({
+    inverseTemperaturePerKK: 1000 / s.temperatureK,
+    lnResistivity: Math.log(s.resistivityOhmCm),
+    lnConductivity: -Math.log(s.resistivityOhmCm),
+  }));
+}
+
+/** `GET /api/sweeps/:id/analysis`. */
+export async function sweepAnalysis(user: SessionUser, sweepId: number): Promise<SweepAnalysisResponse> {
+  const v = await visibleSweep(user, sweepId);
+  const { points, skipped } = await sweepReadings(sweepId);
+  const steps = averageSteps(points);
+  return {
+    sweep: sweepSummary(v, skipped),
+    steps,
+    arrhenius: arrheniusCoordinates(steps),
+    suggestedWindows: isMetal(v.lot.material) ? [] : suggestWindows(steps, points),
+    spec: specCheck(steps, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
+  };
+}
+
+/** A wafer's newest sweep that gives a value at 23 °C, or the reason none does. */
+export async function waferValueAt23C(
+  waferId: number,
+): Promise<{ sweepId: number | null; value: ValueAt23C; sweepCount: number }> {
+  const sweeps = await Sweep.findAll({
+    where: { waferId },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  });
+  let firstMiss: ValueAt23C | null = null;
+  for (const sweep of sweeps) {
+    const { points } = await sweepReadings(sweep.id);
+    const value = valueAt23C(averageSteps(points));
+    if (value.resistivityOhmCm !== null) return { sweepId: sweep.id, value, sweepCount: sweeps.length };
+    firstMiss ??= value;
+  }
+  return {
+    sweepId: null,
+    value: firstMiss ?? {
+      resistivityOhmCm: null,
+      method: null,
+      distanceK: null,
+      reason: 'The wafer has no sweep',
+    },
+    sweepCount: sweeps.length,
+  };
+}
+
+/** Maps a lot's dopant name to the ASTM F723 dopant, or null when F723 does not cover it. */
+export function f723Dopant(dopant: string | null): F723Dopant | null {
+  const d = (dopant ?? '').trim().toLowerCase();
+  if (d === 'b' || d === 'boron') return 'boron';
+  if (d === 'p' || d === 'phosphorus') return 'phosphorus';
+  return null;
+}
+
+/** `GET /api/wafers/:id/dopant`. */
+export async function waferDopant(user: SessionUser, waferId: number): Promise<DopantDensityResponse> {
+  const { wafer, lot } = await visibleWafer(user, waferId);
+  const found = await waferValueAt23C(wafer.id);
+  if (found.sweepCount === 0) throw notFound(`A sweep of wafer ${wafer.number}`);
+  const rho = found.value.resistivityOhmCm;
+  if (found.sweepId === null || rho === null || found.value.method === null) {
+    throw unprocessable(
+      `No sweep of wafer ${wafer.number} gives a resistivity at 23 °C: ${found.value.reason}`,
+    );
+  }
+  const where = found.value.method === 'interpolated'
+    ? `interpolated at 23 °C (nearest step ${found.value.distanceK!.toFixed(2)} K away)`
+    : `nearest step, ${found.value.distanceK!.toFixed(2)} K from 23 °C`;
+  const verdict = specVerdict(rho, lot.specMinOhmCm, lot.specMaxOhmCm);
+  const base = {
+    waferId: wafer.id,
+    resistivityAt23COhmCm: rho,
+    dopant: lot.dopant,
+    sweepId: found.sweepId,
+    method: found.value.method,
+    distanceK: found.value.distanceK!,
+    inSpec: verdict.inSpec,
+  };
+  if (lot.material !== 'Si') {
+    return {
+      ...base,
+      dopantDensityCm3: null,
+      source: `Sweep ${found.sweepId}, ${where}`,
+      reason: `ASTM F723 covers boron- and phosphorus-doped silicon only; this lot is ${lot.material}`,
+    };
+  }
+  const dopant = f723Dopant(lot.dopant);
+  if (!dopant) {
+    throw unprocessable(
+      `ASTM F723 covers boron- and phosphorus-doped silicon only; lot ${lot.code} has dopant ` +
+        `${lot.dopant ?? '(not set)'}`,
+    );
+  }
+  let density: number;
+  try {
+    density = siliconDopantFromResistivity(dopant, rho);
+  } catch (error) {
+    if (error instanceof RangeError) {
+      throw unprocessable(`The resistivity at 23 °C is outside ASTM F723's range: ${error.message}`);
+    }
+    throw error;
+  }
+  return {
+    ...base,
+    dopantDensityCm3: density,
+    source: `ASTM F723 (${dopant}) from sweep ${found.sweepId}, ${where}`,
+    reason: verdict.reason,
+  };
+}
+
+/** Largest number of sweeps `GET /api/compare` takes. */
+export const MAX_COMPARE_SWEEPS = 20;
+
+/** `GET /api/compare?sweeps=...`: every sweep on one temperature grid. */
+export async function compareSweeps(
+  user: SessionUser,
+  sweepIds: readonly number[],
+  gridPoints: number,
+): Promise<CompareResponse> {
+  const loaded = [];
+  for (const id of sweepIds) {
+    const v = await visibleSweep(user, id);
+    const steps = averageSteps((await sweepReadings(id)).points);
+    if (steps.length === 0) throw unprocessable(`Sweep ${id} has no usable points`);
+    loaded.push({ v, steps });
+  }
+  const minK = Math.min(...loaded.map((l) => l.steps[0]!.temperatureK));
+  const maxK = Math.max(...loaded.map((l) => l.steps[l.steps.length - 1]!.temperatureK));
+  const grid = minK === maxK ? [minK] : temperatureGrid(minK, maxK, gridPoints);
+  return {
+    temperaturesK: grid,
+    curves: loaded.map(({ v, steps }) => ({
+      sweepId: v.sweep.id,
+      waferId: v.wafer.id,
+      waferNumber: v.wafer.number,
+      lotId: v.lot.id,
+      lotCode: v.lot.code,
+      material: v.lot.material,
+      minTemperatureK: steps[0]!.temperatureK,
+      maxTemperatureK: steps[steps.length - 1]!.temperatureK,
+      resistivityOhmCm: grid.map((t) => interpolateWithin(steps, t)),
+    })),
+  };
+}

@@ -1,0 +1,257 @@
+import type { FitDto, FitKind, FitRequest, SessionUser } from '@rhotrace/api-types';
+import type { Sequelize } from 'sequelize';
+import type { Actor } from '../audit/audit.service';
+import { recordAudit } from '../audit/audit.service';
+import { badRequest, forbidden, notFound } from '../errors';
+import { modelVersion } from '../analysis/model-version';
+import { isMetal, isSemiconductor, semiconductorParameterSet } from '../analysis/model.service';
+import { withPhysicsOnData } from '../analysis/physics-errors';
+import { regimeOfWindow, suggestWindows } from '../analysis/suggested-windows';
+import {
+  averageSteps,
+  pointsInWindow,
+  sweepReadings,
+  visibleSweep,
+  type AnalysisPoint,
+} from '../analysis/sweep-data.service';
+import { User } from '../users/user.model';
+import {
+  DEFAULT_TCR_REFERENCE_K,
+  arrheniusFit,
+  blochGruneisenFit,
+  modelFit,
+  tcrFit,
+  type FitComputation,
+} from './fit-kinds';
+import { Fit } from './fit.model';
+
+/** Fewest points any fit takes. */
+export const MIN_FIT_POINTS = 3;
+
+/** Shapes a stored fit for the API. */
+export async function toFitDto(fit: Fit, names?: Map<number, string>): Promise<FitDto> {
+  const name = names?.get(fit.createdById) ?? (await User.findByPk(fit.createdById))?.name ?? null;
+  return {
+    id: fit.id,
+    sweepId: fit.sweepId,
+    kind: fit.kind as FitKind,
+    inputs: fit.inputs as Record<string, unknown>,
+    windowMinK: fit.windowMinK,
+    windowMaxK: fit.windowMaxK,
+    parameters: fit.parameters as FitDto['parameters'],
+    standardErrors: fit.standardErrors as FitDto['standardErrors'],
+    confidenceIntervals: fit.confidenceIntervals as FitDto['confidenceIntervals'],
+    goodness: fit.goodness as FitDto['goodness'],
+    residuals: fit.residuals as FitDto['residuals'],
+    converged: fit.converged,
+    reason: fit.reason,
+    reading: fit.reading,
+    modelVersion: fit.modelVersion,
+    createdBy: { id: fit.createdById, name },
+    createdAt: fit.createdAt.toISOString(),
+  };
+}
+
+/** Points of the request's window (the whole sweep when no window is given), at least 3. */
+function windowPoints(
+  all: readonly AnalysisPoint[],
+  minK: number | undefined,
+  maxK: number | undefined,
+): { points: AnalysisPoint[]; minK: number | null; maxK: number | null } {
+  if (minK === undefined && maxK === undefined) {
+    if (all.length < MIN_FIT_POINTS) {
+      throw badRequest(`The sweep has ${all.length} usable points; a fit needs at least ${MIN_FIT_POINTS}`);
+    }
+    return { points: [...all], minK: all[0]!.temperatureK, maxK: all[all.length - 1]!.temperatureK };
+  }
+  const lo = minK ?? 0;
+  const hi = maxK ?? Number.POSITIVE_INFINITY;
+  const points = pointsInWindow(all, lo, hi);
+  if (points.length < MIN_FIT_POINTS) {
+    throw badRequest(
+      `The window ${minK ?? 'start'}–${maxK ?? 'end'} K holds ${points.length} point` +
+        `${points.length === 1 ? '' : 's'}; a fit needs at least ${MIN_FIT_POINTS}`,
+      [{ field: 'body.minK', problem: `the window holds ${points.length} points; at least ${MIN_FIT_POINTS} needed` }],
+    );
+  }
+  return { points, minK: minK ?? null, maxK: maxK ?? null };
+}
+
+/** Runs the requested fit over the sweep and stores it with an audit event. */
+export async function createFit(
+  sequelize: Sequelize,
+  user: SessionUser,
+  sweepId: number,
+  request: FitRequest,
+  actor: Actor,
+): Promise<FitDto> {
+  const v = await visibleSweep(user, sweepId);
+  const { points: all } = await sweepReadings(sweepId);
+  const window = windowPoints(all, request.minK, request.maxK);
+  let computed: FitComputation;
+  let inputs: Record<string, unknown>;
+  let parameterSet: string;
+  switch (request.kind) {
+    case 'arrhenius': {
+      const quantity = request.quantity ?? 'resistivity';
+      const prefactorExponent = request.prefactorExponent ?? 0;
+      const compensated = request.compensated ?? false;
+      const regime =
+        request.regime ??
+        regimeOfWindow(suggestWindows(averageSteps(all), all), request.minK, request.maxK);
+      inputs = {
+        kind: 'arrhenius',
+        minK: request.minK,
+        maxK: request.maxK,
+        quantity,
+        prefactorExponent,
+        regime,
+        regimeSource: request.regime ? 'request' : regime ? 'suggested windows' : 'none',
+        compensated,
+      };
+      computed = withPhysicsOnData('Arrhenius fit', () =>
+        arrheniusFit(window.points, {
+          quantity,
+          prefactorExponent,
+          material: v.lot.material,
+          regime,
+          compensated,
+        }),
+      );
+      parameterSet = 'arrhenius';
+      break;
+    }
+    case 'model': {
+      const material = request.material ?? v.lot.material;
+      if (!isSemiconductor(material)) {
+        throw badRequest(`A full-model fit needs a semiconductor; ${material} is not one`, [
+          { field: 'body.material', problem: 'must be Si, Ge, GaAs or 4H-SiC' },
+        ]);
+      }
+      inputs = {
+        kind: 'model',
+        material,
+        initial: request.initial,
+        free: request.free,
+        minK: request.minK ?? null,
+        maxK: request.maxK ?? null,
+      };
+      computed = withPhysicsOnData('Model fit', () =>
+        modelFit(window.points, material, request.initial as never, request.free),
+      );
+      parameterSet = semiconductorParameterSet(material);
+      break;
+    }
+    case 'tcr': {
+      const referenceK = request.referenceK ?? DEFAULT_TCR_REFERENCE_K;
+      inputs = { kind: 'tcr', referenceK, minK: request.minK ?? null, maxK: request.maxK ?? null };
+      computed = withPhysicsOnData('TCR fit', () => tcrFit(window.points, referenceK));
+      parameterSet = 'linear-tcr';
+      break;
+    }
+    case 'bloch-gruneisen': {
+      inputs = { kind: 'bloch-gruneisen', minK: request.minK ?? null, maxK: request.maxK ?? null };
+      computed = withPhysicsOnData('Bloch–Grüneisen fit', () => blochGruneisenFit(window.points));
+      parameterSet = 'bloch-gruneisen';
+      break;
+    }
+  }
+  inputs['material'] ??= v.lot.material;
+  if (request.kind === 'bloch-gruneisen' && !isMetal(v.lot.material)) {
+    inputs['note'] = `Bloch–Grüneisen describes metals; this lot is ${v.lot.material}`;
+  }
+  return sequelize.transaction(async (transaction) => {
+    const fit = await Fit.create(
+      {
+        sweepId,
+        kind: request.kind,
+        inputs,
+        windowMinK: window.minK,
+        windowMaxK: window.maxK,
+        ...computed,
+        modelVersion: modelVersion(parameterSet),
+        createdById: user.id,
+      },
+      { transaction },
+    );
+    await recordAudit(
+      {
+        actorId: actor.id,
+        action: 'create',
+        entity: 'fit',
+        entityId: fit.id,
+        after: { sweepId, kind: request.kind, inputs, parameters: computed.parameters, converged: computed.converged },
+        requestId: actor.requestId,
+      },
+      transaction,
+    );
+    return toFitDto(fit, new Map([[user.id, user.name]]));
+  });
+}
+
+/** Saved fits of a sweep, oldest first (no visibility check: callers check the sweep). */
+export async function listFitsOfSweep(sweepId: number): Promise<FitDto[]> {
+  const fits = await Fit.findAll({ where: { sweepId }, order: [['id', 'ASC']] });
+  const users = await User.findAll({ where: { id: [...new Set(fits.map((f) => f.createdById))] } });
+  const names = new Map(users.map((u) => [u.id, u.name]));
+  return Promise.all(fits.map((f) => toFitDto(f, names)));
+}
+
+/** `GET /api/sweeps/:id/fits`. */
+export async function sweepFits(user: SessionUser, sweepId: number): Promise<FitDto[]> {
+  await visibleSweep(user, sweepId);
+  return listFitsOfSweep(sweepId);
+}
+
+async function visibleFit(user: SessionUser, fitId: number): Promise<Fit> {
+  const fit = await Fit.findByPk(fitId);
+  if (!fit) throw notFound(`Fit ${fitId}`);
+  try {
+    await visibleSweep(user, fit.sweepId);
+  } catch {
+    throw notFound(`Fit ${fitId}`);
+  }
+  return fit;
+}
+
+/** `GET /api/fits/:id`. */
+export async function getFit(user: SessionUser, fitId: number): Promise<FitDto> {
+  return toFitDto(await visibleFit(user, fitId));
+}
+
+/**
+ * `DELETE /api/fits/:id`: soft delete with an audit event. Admins and managers may delete any
+ * fit, engineers and physicists their own; technicians none.
+ */
+export async function deleteFit(
+  sequelize: Sequelize,
+  user: SessionUser,
+  fitId: number,
+  actor: Actor,
+): Promise<void> {
+  const fit = await visibleFit(user, fitId);
+  const mayDelete =
+    user.role === 'admin' ||
+    user.role === 'manager' ||
+    ((user.role === 'engineer' || user.role === 'physicist') && fit.createdById === user.id);
+  if (!mayDelete) {
+    throw forbidden(
+      user.role === 'technician' ? 'Your role may not delete fits' : 'You may delete only fits you saved',
+    );
+  }
+  await sequelize.transaction(async (transaction) => {
+    const before = await toFitDto(fit);
+    await fit.destroy({ transaction });
+    await recordAudit(
+      {
+        actorId: actor.id,
+        action: 'delete',
+        entity: 'fit',
+        entityId: fit.id,
+        before: { ...before, residuals: undefined },
+        requestId: actor.requestId,
+      },
+      transaction,
+    );
+  });
+}

@@ -1,0 +1,70 @@
+import type { AnalysisStep, FitDto, SessionUser } from '@rhotrace/api-types';
+import { Station } from '../stations/station.model';
+import { averageSteps, sweepReadings, visibleSweep } from '../analysis/sweep-data.service';
+import { specCheck } from '../analysis/spec-check';
+import { listFitsOfSweep } from '../fits/fit.service';
+
+/** Cautions every printed report carries (PRODUCT.md section 6, in Rhotrace's words). */
+export const REPORT_CAUTIONS = [
+  'Hot chucks burn and cryogens freeze skin and displace oxygen: handle stages and dewars with the protection your lab requires.',
+  'Probe current heats small samples and can damage thin films: keep the current as low as the reading allows.',
+  'Some compound semiconductors (for example GaAs) are toxic when broken or abraded: collect fragments as your lab directs.',
+  'Follow your lab\u2019s own safety rules, local codes and licensed practice; they take precedence over anything here.',
+];
+
+/** The statement printed on every report. */
+export const REPORT_DISCLAIMER = 'Results are engineering estimates, not certified values.';
+
+/** Everything a sweep report shows. */
+export interface ReportData {
+  sweepId: number;
+  sweepName: string;
+  measuredAt: string;
+  method: string;
+  waferNumber: string;
+  lotCode: string;
+  material: string;
+  dopant: string | null;
+  specMinOhmCm: number | null;
+  specMaxOhmCm: number | null;
+  station: { name: string; probeSpacingCm: number; thermometer: string } | null;
+  geometry: Record<string, unknown>;
+  steps: AnalysisStep[];
+  resistivityAt23COhmCm: number | null;
+  inSpec: boolean | null;
+  fits: FitDto[];
+  cautions: string[];
+  disclaimer: string;
+}
+
+/** Gathers a sweep's report data (visibility as for every sweep read). */
+export async function reportData(user: SessionUser, sweepId: number): Promise<ReportData> {
+  const v = await visibleSweep(user, sweepId);
+  const steps = averageSteps((await sweepReadings(sweepId)).points);
+  const station = v.sweep.stationId ? await Station.findByPk(v.sweep.stationId) : null;
+  const spec = specCheck(steps, v.lot.specMinOhmCm, v.lot.specMaxOhmCm);
+  const geometry = { ...((v.sweep.geometry as Record<string, unknown> | null) ?? {}) };
+  delete geometry['sources'];
+  return {
+    sweepId: v.sweep.id,
+    sweepName: v.sweep.originalName,
+    measuredAt: v.sweep.createdAt.toISOString(),
+    method: v.sweep.method,
+    waferNumber: v.wafer.number,
+    lotCode: v.lot.code,
+    material: v.lot.material,
+    dopant: v.lot.dopant,
+    specMinOhmCm: v.lot.specMinOhmCm,
+    specMaxOhmCm: v.lot.specMaxOhmCm,
+    station: station
+      ? { name: station.name, probeSpacingCm: station.probeSpacingCm, thermometer: station.thermometer }
+      : null,
+    geometry,
+    steps,
+    resistivityAt23COhmCm: spec.resistivityAt23COhmCm,
+    inSpec: spec.inSpec,
+    fits: await listFitsOfSweep(sweepId),
+    cautions: REPORT_CAUTIONS,
+    disclaimer: REPORT_DISCLAIMER,
+  };
+}
