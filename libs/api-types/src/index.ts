@@ -2,3 +2,4 @@ export * from './errors';
 export * from './common';
 export * from './auth';
 export * from './records';
+export * from './analysis';
