@@ -1,0 +1,262 @@
+/**
+ * `npm run bench:load`: 50 concurrent clients for 30 s against an API process on loopback, each
+ * looping over sign-in, list lots, read a 1,000-point sweep and upload a 1,000-point file.
+ * Prints requests per second, p50/p99 latency per kind and errors, then checks that the database
+ * holds exactly the sweeps that were answered 201. Bounded in time and count; loopback only.
+ *
+ * Needs the DB_* variables of a MariaDB server (`npm run bench` starts a throwaway one).
+ */
+import { spawn } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import bcrypt from 'bcryptjs';
+import { quantile } from 'simple-statistics';
+import { loadConfig, REPO_ROOT } from '../src/config';
+import { connectDatabase } from '../src/db/database';
+import { migrator } from '../src/db/migrator';
+import { Lot } from '../src/lots/lot.model';
+import { freePortForTest } from '../src/testing/free-port';
+import { fourPointCsv } from '../src/testing/sweep-files';
+import { User } from '../src/users/user.model';
+import { Wafer } from '../src/wafers/wafer.model';
+
+const CLIENTS = Number(process.env.LOAD_CLIENTS ?? 50);
+const DURATION_S = Number(process.env.LOAD_SECONDS ?? 30);
+const MAX_REQUESTS = 200_000;
+const PASSWORD = 'load-bench-password';
+type Kind = 'sign-in' | 'list lots' | 'read sweep' | 'upload';
+
+async function main(): Promise<void> {
+  const base = loadConfig();
+  const dbName = `${base.db.name}_load`;
+  const admin = connectDatabase(base.db, { poolMax: 1 });
+  await admin.query(`DROP DATABASE IF EXISTS \`${dbName}\``);
+  await admin.query(`CREATE DATABASE \`${dbName}\``);
+  await admin.close();
+  const sequelize = connectDatabase({ ...base.db, name: dbName }, { poolMax: 4 });
+  await migrator(sequelize).up();
+  const hash = await bcrypt.hash(PASSWORD, 10);
+  const users = await User.bulkCreate(
+    Array.from({ length: CLIENTS }, (_, i) => ({
+      email: `load${i}@bench.rhotrace.example`,
+      name: `Load ${i}`,
+      role: 'engineer' as const,
+      passwordHash: hash,
+    })),
+  );
+  const lot = await Lot.create({
+    code: 'LOAD-1',
+    material: 'Si',
+    dopant: 'B',
+    dopantType: 'p',
+    orientation: '(100)',
+    diameterCm: 10,
+    thicknessCm: 0.05,
+    supplier: null,
+    receivedOn: null,
+    specMinOhmCm: 1,
+    specMaxOhmCm: 20,
+    notes: null,
+    createdById: null,
+  });
+  const wafer = await Wafer.create({ lotId: lot.id, number: '01', thicknessCm: 0.05, notes: null });
+
+  const port = await freePortForTest();
+  const url = `http://127.0.0.1:${port}`;
+  const server = spawn(join(REPO_ROOT, 'node_modules/.bin/tsx'), ['apps/api/src/main.ts'], {
+    cwd: REPO_ROOT,
+    env: {
+      ...process.env,
+      DB_NAME: dbName,
+      PORT: String(port),
+      SMTP_PORT: String(await freePortForTest()),
+      LOG_LEVEL: 'warn',
+      SIGN_IN_LIMIT: '1000000',
+      NODE_ENV: 'production',
+    },
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
+  try {
+    for (let i = 0; i < 120; i += 1) {
+      if (
+        await fetch(`${url}/api/health`).then(
+          (r) => r.ok,
+          () => false,
+        )
+      )
+        break;
+      await new Promise((r) => setTimeout(r, 250));
+    }
+    const signIn = async (email: string) => {
+      const res = await fetch(`${url}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email, password: PASSWORD }),
+      });
+      return {
+        status: res.status,
+        token: res.ok ? ((await res.json()) as { token: string }).token : '',
+      };
+    };
+    const upload = (token: string, file: Buffer) => {
+      const form = new FormData();
+      form.set('method', 'four-point');
+      form.set('file', new Blob([file]), 'load.csv');
+      return fetch(`${url}/api/wafers/${wafer.id}/sweeps`, {
+        method: 'POST',
+        body: form,
+        headers: { authorization: `Bearer ${token}` },
+      });
+    };
+    const { token: seedToken } = await signIn(users[0]!.email);
+    const seeded = await upload(seedToken, fourPointCsv(1_000, 'read target'));
+    if (seeded.status !== 201)
+      throw new Error(`could not store the sweep to read: ${seeded.status} ${await seeded.text()}`);
+    const sweepId = ((await seeded.json()) as { id: number }).id;
+    const sweepsBefore = await sequelizeCount(sequelize);
+
+    const latencies: Record<Kind, number[]> = {
+      'sign-in': [],
+      'list lots': [],
+      'read sweep': [],
+      upload: [],
+    };
+    const errors: Record<Kind, number> = {
+      'sign-in': 0,
+      'list lots': 0,
+      'read sweep': 0,
+      upload: 0,
+    };
+    let created = 0;
+    let total = 0;
+    const until = Date.now() + DURATION_S * 1000;
+    const timed = async (kind: Kind, run: () => Promise<Response>, ok: number) => {
+      const t0 = performance.now();
+      let status = 0;
+      try {
+        const res = await run();
+        status = res.status;
+        await res.arrayBuffer();
+      } catch {
+        status = -1;
+      }
+      latencies[kind].push(performance.now() - t0);
+      total += 1;
+      if (status !== ok) errors[kind] += 1;
+      return status;
+    };
+    const client = async (i: number) => {
+      const email = users[i]!.email;
+      let token = '';
+      while (Date.now() < until && total < MAX_REQUESTS) {
+        await timed(
+          'sign-in',
+          async () => {
+            const res = await fetch(`${url}/api/auth/login`, {
+              method: 'POST',
+              headers: { 'content-type': 'application/json' },
+              body: JSON.stringify({ email, password: PASSWORD }),
+            });
+            if (res.ok) token = ((await res.clone().json()) as { token: string }).token;
+            return res;
+          },
+          200,
+        );
+        const auth = { authorization: `Bearer ${token}` };
+        await timed(
+          'list lots',
+          () => fetch(`${url}/api/lots?page=1&pageSize=25`, { headers: auth }),
+          200,
+        );
+        await timed(
+          'read sweep',
+          () => fetch(`${url}/api/sweeps/${sweepId}`, { headers: auth }),
+          200,
+        );
+        const status = await timed(
+          'upload',
+          () => upload(token, fourPointCsv(1_000, `load ${i}`)),
+          201,
+        );
+        if (status === 201) created += 1;
+      }
+    };
+    const started = performance.now();
+    await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i)));
+    const seconds = (performance.now() - started) / 1000;
+    const stored = (await sequelizeCount(sequelize)) - sweepsBefore;
+
+    const figures: Array<{
+      name: string;
+      value: number;
+      unit: string;
+      target: string;
+      pass: boolean;
+    }> = [];
+    console.log(
+      `\n${CLIENTS} clients, ${seconds.toFixed(1)} s, ${total} requests, ${(total / seconds).toFixed(0)} requests/s`,
+    );
+    figures.push({
+      name: 'throughput',
+      value: total / seconds,
+      unit: 'requests/s',
+      target: 'reported',
+      pass: true,
+    });
+    for (const kind of Object.keys(latencies) as Kind[]) {
+      const l = latencies[kind];
+      const p50 = l.length ? quantile(l, 0.5) : 0;
+      const p99 = l.length ? quantile(l, 0.99) : 0;
+      const isRead = kind === 'list lots' || kind === 'read sweep';
+      console.log(
+        `${kind.padEnd(11)} n=${l.length} p50 ${p50.toFixed(1)} ms  p99 ${p99.toFixed(1)} ms  errors ${errors[kind]}${isRead ? '  (target p99 < 100 ms)' : ''}`,
+      );
+      figures.push({ name: `${kind} p50`, value: p50, unit: 'ms', target: 'reported', pass: true });
+      figures.push({
+        name: `${kind} p99`,
+        value: p99,
+        unit: 'ms',
+        target: isRead ? '< 100 ms' : 'reported',
+        pass: isRead ? p99 < 100 : true,
+      });
+    }
+    const errorCount = Object.values(errors).reduce((a, b) => a + b, 0);
+    console.log(
+      `errors ${errorCount}; uploads answered 201: ${created}; new sweeps stored: ${stored}`,
+    );
+    figures.push({
+      name: 'errors',
+      value: errorCount,
+      unit: 'responses',
+      target: '0',
+      pass: errorCount === 0,
+    });
+    figures.push({
+      name: 'lost or duplicated sweeps',
+      value: Math.abs(stored - created),
+      unit: 'sweeps',
+      target: '0',
+      pass: stored === created,
+    });
+    const out = join(REPO_ROOT, 'bench/out');
+    mkdirSync(out, { recursive: true });
+    writeFileSync(join(out, 'load.json'), JSON.stringify(figures, null, 2));
+  } finally {
+    server.kill('SIGTERM');
+    await sequelize.query(`DROP DATABASE IF EXISTS \`${dbName}\``).catch(() => undefined);
+    await sequelize.close();
+  }
+}
+
+async function sequelizeCount(sequelize: ReturnType<typeof connectDatabase>): Promise<number> {
+  const [rows] = (await sequelize.query('SELECT COUNT(*) AS n FROM sweeps')) as [
+    Array<{ n: number }>,
+    unknown,
+  ];
+  return Number(rows[0]?.n ?? 0);
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
