@@ -100,7 +100,7 @@ export interface FourPointProbeResult {
  * @param input voltageV (V), currentA (A, non-zero), spacingCm, thicknessCm, optional diameterCm
  *   (at least 3 spacings)
  * @example fourPointProbe({ voltageV: 0.01, currentA: 0.001, spacingCm: 0.1, thicknessCm: 0.05 })
- *   // { sheetResistanceOhmSq: 45.324, resistivityOhmCm: 2.2603, thicknessFactor: 0.99736, diameterFactor: 1 }
+ *   // { sheetResistanceOhmSq: 45.324, resistivityOhmCm: 2.2602, thicknessFactor: 0.99736, diameterFactor: 1 }
  */
 export function fourPointProbe(input: {
   voltageV: number;

@@ -40,7 +40,7 @@ const SCAN_POINTS = 64;
  * @param doping donor and acceptor densities (cm^-3) and levels (eV)
  * @param options optional density-of-states set
  * @example regimeBoundaries('Si', { donorDensity: 1e15, acceptorDensity: 0 })
- *   // { freezeOutBelowK: ≈ 47, intrinsicAboveK: ≈ 553 }
+ *   // { freezeOutBelowK: 92.4, intrinsicAboveK: 547.0 }
  */
 export function regimeBoundaries(
   material: SemiconductorId,

@@ -109,7 +109,7 @@ export function modelPointUnchecked(
  * @param temperatureK temperature, K (1 to 1500)
  * @param options density-of-states set, mobility model, mobility scale
  * @returns resistivity, ohm cm
- * @example resistivity('Si', { donorDensity: 1e15, acceptorDensity: 0 }, 300) // 4.6 (ohm cm)
+ * @example resistivity('Si', { donorDensity: 1e15, acceptorDensity: 0 }, 300) // 4.72 (ohm cm)
  */
 export function resistivity(
   material: SemiconductorId,
@@ -147,7 +147,15 @@ export function modelCurve(
   const checked = temps.map((t, i) => requireTemperatureK('modelCurve', t, `temperaturesK[${i}]`));
   const model = resolveModel('modelCurve', m, options);
   return checked.map((t) => {
-    const { lnResistivity: _ln, ...point } = modelPointUnchecked(model, d, t);
-    return point;
+    const q = modelPointUnchecked(model, d, t);
+    return {
+      temperatureK: q.temperatureK,
+      resistivityOhmCm: q.resistivityOhmCm,
+      electrons: q.electrons,
+      holes: q.holes,
+      electronMobility: q.electronMobility,
+      holeMobility: q.holeMobility,
+      regime: q.regime,
+    };
   });
 }

@@ -34,7 +34,7 @@ const DOPANTS: readonly F723Dopant[] = ['boron', 'phosphorus'];
  * @param dopant 'boron' or 'phosphorus'
  * @param densityCm3 dopant density, cm^-3 (ranges in `ASTM_F723_RANGES`)
  * @returns resistivity at 23 °C, ohm cm
- * @example siliconResistivityFromDopant('boron', 1e16) // 1.4436 (ohm cm)
+ * @example siliconResistivityFromDopant('boron', 1e16) // 1.4434 (ohm cm)
  */
 export function siliconResistivityFromDopant(dopant: F723Dopant, densityCm3: number): number {
   const fn = 'siliconResistivityFromDopant';
@@ -63,7 +63,7 @@ export function siliconResistivityFromDopant(dopant: F723Dopant, densityCm3: num
  * @param dopant 'boron' or 'phosphorus'
  * @param resistivityOhmCm resistivity at 23 °C, ohm cm (ranges in `ASTM_F723_RANGES`)
  * @returns dopant density, cm^-3
- * @example siliconDopantFromResistivity('phosphorus', 1) // 4.9e15 (cm^-3)
+ * @example siliconDopantFromResistivity('phosphorus', 1) // 4.864e15 (cm^-3)
  */
 export function siliconDopantFromResistivity(dopant: F723Dopant, resistivityOhmCm: number): number {
   const fn = 'siliconDopantFromResistivity';
