@@ -91,6 +91,11 @@ export async function createFit(
   let computed: FitComputation;
   let inputs: Record<string, unknown>;
   let parameterSet: string;
+  /** Only the bounds the request gave, so stored inputs can be posted again as they are. */
+  const bounds = {
+    ...(request.minK !== undefined ? { minK: request.minK } : {}),
+    ...(request.maxK !== undefined ? { maxK: request.maxK } : {}),
+  };
   switch (request.kind) {
     case 'arrhenius': {
       const quantity = request.quantity ?? 'resistivity';
@@ -105,8 +110,7 @@ export async function createFit(
         maxK: request.maxK,
         quantity,
         prefactorExponent,
-        regime,
-        regimeSource: request.regime ? 'request' : regime ? 'suggested windows' : 'none',
+        ...(regime ? { regime } : {}),
         compensated,
       };
       computed = withPhysicsOnData('Arrhenius fit', () =>
@@ -128,14 +132,7 @@ export async function createFit(
           { field: 'body.material', problem: 'must be Si, Ge, GaAs or 4H-SiC' },
         ]);
       }
-      inputs = {
-        kind: 'model',
-        material,
-        initial: request.initial,
-        free: request.free,
-        minK: request.minK ?? null,
-        maxK: request.maxK ?? null,
-      };
+      inputs = { kind: 'model', material, initial: request.initial, free: request.free, ...bounds };
       computed = withPhysicsOnData('Model fit', () =>
         modelFit(window.points, material, request.initial as never, request.free),
       );
@@ -144,21 +141,23 @@ export async function createFit(
     }
     case 'tcr': {
       const referenceK = request.referenceK ?? DEFAULT_TCR_REFERENCE_K;
-      inputs = { kind: 'tcr', referenceK, minK: request.minK ?? null, maxK: request.maxK ?? null };
+      inputs = { kind: 'tcr', referenceK, ...bounds };
       computed = withPhysicsOnData('TCR fit', () => tcrFit(window.points, referenceK));
       parameterSet = 'linear-tcr';
       break;
     }
     case 'bloch-gruneisen': {
-      inputs = { kind: 'bloch-gruneisen', minK: request.minK ?? null, maxK: request.maxK ?? null };
+      inputs = { kind: 'bloch-gruneisen', ...bounds };
       computed = withPhysicsOnData('Bloch–Grüneisen fit', () => blochGruneisenFit(window.points));
       parameterSet = 'bloch-gruneisen';
       break;
     }
   }
-  inputs['material'] ??= v.lot.material;
+  if (request.kind === 'arrhenius' && !request.regime && computed.reading) {
+    computed.reading += ' (Regime taken from the suggested windows.)';
+  }
   if (request.kind === 'bloch-gruneisen' && !isMetal(v.lot.material)) {
-    inputs['note'] = `Bloch–Grüneisen describes metals; this lot is ${v.lot.material}`;
+    computed.reading = `Bloch–Grüneisen describes metals; this lot is ${v.lot.material}. ${computed.reading ?? ''}`;
   }
   return sequelize.transaction(async (transaction) => {
     const fit = await Fit.create(
