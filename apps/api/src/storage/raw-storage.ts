@@ -1,0 +1,31 @@
+/**
+ * Where uploaded files are kept byte for byte. The database implementation writes inside the
+ * upload's transaction; an object-store implementation (S3) can be added behind the same
+ * interface, writing before commit and removing the object again when the transaction rolls back.
+ */
+import { randomUUID } from 'node:crypto';
+import type { Transaction } from 'sequelize';
+
+/** Implementations Rhotrace knows; stored in `sweeps.storage_kind`. */
+export type StorageKind = 'db' | 's3';
+
+/** Options every storage call takes: the transaction of the change it belongs to. */
+export interface StorageContext {
+  transaction?: Transaction;
+}
+
+/** Keeps raw upload bytes under keys it generates (never the user's file name). */
+export interface RawStorage {
+  readonly kind: StorageKind;
+  /** Stores `content` under a new key and returns the key. */
+  put(content: Buffer, context?: StorageContext): Promise<string>;
+  /** The stored bytes, or null when nothing is stored under `key`. */
+  get(key: string, context?: StorageContext): Promise<Buffer | null>;
+  /** Removes the bytes (a no-op when the key is unknown). */
+  delete(key: string, context?: StorageContext): Promise<void>;
+}
+
+/** A fresh storage key: `raw-` and a random UUID, safe as a file or object name. */
+export function newStorageKey(): string {
+  return `raw-${randomUUID()}`;
+}

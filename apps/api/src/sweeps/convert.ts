@@ -1,0 +1,402 @@
+/**
+ * Turns parsed rows into points: temperature in kelvin, raw readings in SI units, sheet
+ * resistance and resistivity through `@rhotrace/physics`. Problems are collected per row and
+ * column; the caller stores all points or none.
+ */
+import {
+  barResistivity,
+  celsiusToKelvin,
+  fourPointProbe,
+  rtdTemperatureK,
+  vanDerPauw,
+} from '@rhotrace/physics';
+import type {
+  ColumnMeaning,
+  PointFlag,
+  RowProblem,
+  SweepGeometry,
+  SweepMethod,
+} from '@rhotrace/api-types';
+import { validationFailed } from '../errors';
+import {
+  MAX_PROBLEMS,
+  readNumber,
+  rowProblem,
+  type ParsedSweepFile,
+  type ResolvedColumn,
+} from './parse';
+import { flagSuspiciousPoints } from './point-flags';
+
+/** A converted point, ready to store. */
+export interface ConvertedPoint {
+  sourceRows: number[];
+  /** Indexes into the parsed records of the rows this point was made from. */
+  recordIndexes: number[];
+  temperatureK: number;
+  currentA: number | null;
+  voltageV: number | null;
+  resistanceOhm: number | null;
+  sheetResistanceOhmSq: number | null;
+  resistivityOhmCm: number;
+  flags: PointFlag[];
+}
+
+/** Columns each method needs (any one of the alternatives). */
+const REQUIRED: Record<SweepMethod, ColumnMeaning[][]> = {
+  'four-point': [['temperature'], ['voltage', 'resistance']],
+  bar: [['temperature'], ['voltage', 'resistance']],
+  'van-der-pauw': [['temperature'], ['resistance'], ['resistance-b']],
+  resistivity: [['temperature'], ['resistivity']],
+  'sheet-resistance': [['temperature'], ['sheet-resistance']],
+};
+
+const FORWARD = /^(\+|\+1|1|f|fwd|forward|pos|positive|p|normal|\+i)$/i;
+const REVERSE = /^(-|-1|r|rev|reverse|neg|negative|n|reversed|-i)$/i;
+
+/** Names in physics error messages that point at geometry rather than at a row. */
+const GEOMETRY_ARGS = /diameterCm|spacingCm|thicknessCm|lengthCm|widthCm/;
+
+interface Reading {
+  record: number;
+  row: number;
+  temperatureK: number;
+  polarity: 1 | -1 | 0;
+  voltageV: number | null;
+  currentA: number | null;
+  resistanceOhm: number | null;
+  resistanceBOhm: number | null;
+  sheetOhmSq: number | null;
+  resistivityOhmCm: number | null;
+}
+
+/** Checks the mapping has what the method needs; throws a 400 naming what is missing. */
+export function requireColumns(
+  method: SweepMethod,
+  columns: ResolvedColumn[],
+  constantCurrentA: number | undefined,
+): void {
+  const has = new Set(columns.map((c) => c.meaning));
+  const problems: Array<{ field: string; problem: string }> = [];
+  for (const alternatives of REQUIRED[method]) {
+    if (!alternatives.some((m) => has.has(m))) {
+      problems.push({
+        field: 'columns',
+        problem: `a ${method} sweep needs a ${alternatives.join(' or ')} column; none was found or mapped`,
+      });
+    }
+  }
+  if (
+    (method === 'four-point' || method === 'bar') &&
+    has.has('voltage') &&
+    !has.has('resistance')
+  ) {
+    if (!has.has('current') && constantCurrentA === undefined) {
+      problems.push({
+        field: 'columns',
+        problem:
+          'voltages need a current: map a current column or state the current in the file header',
+      });
+    }
+  }
+  for (const c of columns) {
+    if (c.meaning !== 'other' && c.meaning !== 'index' && c.meaning !== 'polarity' && !c.unitInfo) {
+      problems.push({
+        field: `columns.${c.index}.unit`,
+        problem: `the unit of "${c.header}" is not known`,
+      });
+    }
+  }
+  if (problems.length) throw validationFailed('The columns do not fit the method', problems);
+}
+
+function friendly(error: unknown): string {
+  const message = error instanceof Error ? error.message : String(error);
+  return message.replace(/`[a-zA-Z]+` /, '');
+}
+
+/**
+ * Converts every row. Returns the points, the row problems (at most `MAX_PROBLEMS`) and warnings.
+ * Geometry that the physics refuses (a diameter under three probe spacings) is a 400.
+ */
+export function convertRows(
+  parsed: ParsedSweepFile,
+  columns: ResolvedColumn[],
+  method: SweepMethod,
+  geometry: SweepGeometry,
+  constantCurrentA: number | undefined,
+): { points: ConvertedPoint[]; problems: RowProblem[]; warnings: string[] } {
+  const problems: RowProblem[] = [...parsed.problems];
+  const warnings: string[] = [];
+  const mark = parsed.layout.decimalMark;
+  const col = (m: ColumnMeaning) => columns.find((c) => c.meaning === m) ?? null;
+  const tCol = col('temperature')!;
+  const vCol = col('voltage');
+  const iCol = col('current');
+  const rCol = col('resistance');
+  const rbCol = col('resistance-b');
+  const sCol = col('sheet-resistance');
+  const rhoCol = col('resistivity');
+  const pCol = col('polarity');
+  const tUnit = tCol.unitInfo!;
+  const rtd = tUnit.kind === 'resistance';
+  const { records, lines } = parsed.table;
+  const readings: Reading[] = [];
+  const full = () => problems.length >= MAX_PROBLEMS;
+
+  for (let i = 0; i < records.length && !full(); i++) {
+    const cells = records[i]!;
+    const row = lines[i]!;
+    let bad = false;
+    const num = (c: ResolvedColumn | null, required: boolean): number | null => {
+      if (!c) return null;
+      const cell = cells[c.index] ?? '';
+      const value = readNumber(cell, mark);
+      if (value === undefined) {
+        problems.push(rowProblem(row, c.header, `"${cell.trim()}" is not a number`));
+        bad = true;
+        return null;
+      }
+      if (value === null) {
+        if (required) {
+          problems.push(rowProblem(row, c.header, 'the value is missing'));
+          bad = true;
+        }
+        return null;
+      }
+      return value * c.unitInfo!.factor;
+    };
+    const tRaw = num(tCol, true);
+    let polarity: 1 | -1 | 0 = 0;
+    if (pCol) {
+      const text = (cells[pCol.index] ?? '').trim();
+      if (FORWARD.test(text)) polarity = 1;
+      else if (REVERSE.test(text)) polarity = -1;
+      else {
+        problems.push(
+          rowProblem(
+            row,
+            pCol.header,
+            `polarity "${text}" is not understood (use + or -, forward or reverse)`,
+          ),
+        );
+        bad = true;
+      }
+    }
+    const needVI = method === 'four-point' || method === 'bar';
+    const voltageV = num(vCol, needVI && !rCol);
+    let currentA = iCol
+      ? num(iCol, needVI && !rCol)
+      : voltageV !== null
+        ? (constantCurrentA ?? null)
+        : null;
+    const resistanceOhm = num(rCol, method === 'van-der-pauw' || (needVI && !vCol));
+    const resistanceBOhm = num(rbCol, method === 'van-der-pauw');
+    const sheetOhmSq = num(sCol, method === 'sheet-resistance');
+    const resistivityOhmCm = num(rhoCol, method === 'resistivity');
+    if (bad || tRaw === null) continue;
+
+    let temperatureK: number;
+    try {
+      temperatureK =
+        tUnit.label === 'degC'
+          ? celsiusToKelvin(tRaw)
+          : rtd
+            ? rtdTemperatureK(tRaw, geometry.rtdR0Ohm)
+            : tRaw;
+    } catch (error) {
+      problems.push(
+        rowProblem(row, tCol.header, `the temperature cannot be converted: ${friendly(error)}`),
+      );
+      continue;
+    }
+    if (!(temperatureK > 0)) {
+      problems.push(
+        rowProblem(row, tCol.header, `the temperature is at or below 0 K (${temperatureK} K)`),
+      );
+      continue;
+    }
+    if (currentA !== null && iCol) {
+      // A reverse reading may give the current as a magnitude; it flows the other way.
+      if (polarity === -1 && currentA > 0) currentA = -currentA;
+      const wrong = polarity === 0 ? currentA <= 0 : polarity === 1 ? currentA <= 0 : currentA >= 0;
+      if (wrong) {
+        problems.push(
+          rowProblem(
+            row,
+            iCol.header,
+            polarity === 0 && currentA < 0
+              ? `the current is negative (${currentA} A); mark reverse-polarity readings in a polarity column`
+              : `the current must not be zero or point the wrong way (${currentA} A)`,
+          ),
+        );
+        continue;
+      }
+    }
+    for (const [c, v] of [
+      [rCol, resistanceOhm],
+      [rbCol, resistanceBOhm],
+      [sCol, sheetOhmSq],
+      [rhoCol, resistivityOhmCm],
+    ] as const) {
+      if (c && v !== null && v <= 0) {
+        problems.push(rowProblem(row, c.header, `the value must be above zero (${v})`));
+        bad = true;
+      }
+    }
+    if (bad) continue;
+    readings.push({
+      record: i,
+      row,
+      temperatureK,
+      polarity,
+      voltageV,
+      currentA,
+      resistanceOhm,
+      resistanceBOhm,
+      sheetOhmSq,
+      resistivityOhmCm,
+    });
+  }
+
+  const points: ConvertedPoint[] = [];
+  if (problems.length === 0) {
+    const unpaired: number[] = [];
+    for (const group of pairReadings(readings)) {
+      if (full()) break;
+      const point = toPoint(group, method, geometry, problems, columns);
+      if (!point) continue;
+      if (group.length === 2) point.flags.push('polarity-averaged');
+      else if (group[0]!.polarity !== 0) {
+        point.flags.push('unpaired-polarity');
+        unpaired.push(group[0]!.row);
+      }
+      points.push(point);
+    }
+    if (unpaired.length) {
+      warnings.push(
+        `${unpaired.length} reading(s) with a polarity but no opposite-polarity partner were stored on their own (rows ${listRows(unpaired)})`,
+      );
+    }
+  }
+  if (problems.length === 0 && points.length === 0) {
+    problems.push(rowProblem(null, null, 'the file holds no data rows'));
+  }
+  if (problems.length === 0) warnings.push(...flagSuspiciousPoints(points));
+  return { points, problems: problems.slice(0, MAX_PROBLEMS), warnings };
+}
+
+/** Row numbers for a warning, the first ten and a count of the rest. */
+export function listRows(rows: number[]): string {
+  const shown = rows.slice(0, 10).join(', ');
+  return rows.length > 10 ? `${shown} and ${rows.length - 10} more` : shown;
+}
+
+/** Neighbouring forward and reverse readings form a pair; everything else stands alone. */
+function pairReadings(readings: Reading[]): Reading[][] {
+  const groups: Reading[][] = [];
+  for (let i = 0; i < readings.length; i++) {
+    const a = readings[i]!;
+    const b = readings[i + 1];
+    if (a.polarity !== 0 && b && b.polarity === -a.polarity) {
+      groups.push(a.polarity === 1 ? [a, b] : [b, a]);
+      i++;
+    } else groups.push([a]);
+  }
+  return groups;
+}
+
+/** Mean of the two readings' values (forward first), or the single reading's. */
+function mean(group: Reading[], get: (r: Reading) => number | null): number | null {
+  const values = group.map(get);
+  if (values.some((v) => v === null)) return null;
+  return (values as number[]).reduce((s, v) => s + v, 0) / values.length;
+}
+
+function toPoint(
+  group: Reading[],
+  method: SweepMethod,
+  geometry: SweepGeometry,
+  problems: RowProblem[],
+  columns: ResolvedColumn[],
+): ConvertedPoint | null {
+  const [f, r] = group as [Reading, Reading | undefined];
+  // Forward/reverse average: V = (V+ - V-)/2 over I = (I+ - I-)/2 cancels thermal EMFs.
+  const voltageV = r
+    ? f.voltageV !== null && r.voltageV !== null
+      ? (f.voltageV - r.voltageV) / 2
+      : null
+    : f.voltageV;
+  const currentA = r
+    ? f.currentA !== null && r.currentA !== null
+      ? (f.currentA - r.currentA) / 2
+      : null
+    : f.currentA;
+  const point: ConvertedPoint = {
+    sourceRows: group.map((g) => g.row),
+    recordIndexes: group.map((g) => g.record),
+    temperatureK: mean(group, (g) => g.temperatureK)!,
+    currentA,
+    voltageV,
+    resistanceOhm: mean(group, (g) => g.resistanceOhm),
+    sheetResistanceOhmSq: mean(group, (g) => g.sheetOhmSq),
+    resistivityOhmCm: 0,
+    flags: [],
+  };
+  const vi = () =>
+    point.voltageV !== null && point.currentA !== null
+      ? { voltageV: point.voltageV, currentA: point.currentA }
+      : { voltageV: point.resistanceOhm!, currentA: 1 };
+  try {
+    if (method === 'four-point') {
+      const out = fourPointProbe({
+        ...vi(),
+        spacingCm: geometry.spacingCm!,
+        thicknessCm: geometry.thicknessCm!,
+        ...(geometry.diameterCm !== undefined ? { diameterCm: geometry.diameterCm } : {}),
+      });
+      point.sheetResistanceOhmSq = out.sheetResistanceOhmSq;
+      point.resistivityOhmCm = out.resistivityOhmCm;
+    } else if (method === 'bar') {
+      point.resistivityOhmCm = barResistivity({
+        ...vi(),
+        lengthCm: geometry.barLengthCm!,
+        widthCm: geometry.barWidthCm!,
+        thicknessCm: geometry.thicknessCm!,
+      });
+    } else if (method === 'van-der-pauw') {
+      const out = vanDerPauw({
+        resistanceAOhm: point.resistanceOhm!,
+        resistanceBOhm: mean(group, (g) => g.resistanceBOhm)!,
+        thicknessCm: geometry.thicknessCm!,
+      });
+      point.sheetResistanceOhmSq = out.sheetResistanceOhmSq;
+      point.resistivityOhmCm = out.resistivityOhmCm!;
+    } else if (method === 'resistivity') {
+      point.resistivityOhmCm = mean(group, (g) => g.resistivityOhmCm)!;
+    } else {
+      // Resistivity of a uniform sheet is its sheet resistance times its thickness (definition).
+      point.resistivityOhmCm = point.sheetResistanceOhmSq! * geometry.thicknessCm!;
+    }
+  } catch (error) {
+    const message = friendly(error);
+    if (GEOMETRY_ARGS.test(message)) {
+      throw validationFailed('The geometry does not fit the method', [
+        { field: 'geometry', problem: message },
+      ]);
+    }
+    const column =
+      columns.find((c) => c.meaning === 'voltage' || c.meaning === 'resistance')?.header ?? null;
+    const opposite = /same sign/.test(message);
+    problems.push(
+      rowProblem(
+        f.row,
+        column,
+        opposite
+          ? 'voltage and current have opposite signs (a negative resistance); check the wiring or the polarity column'
+          : `the resistivity cannot be computed: ${message}`,
+      ),
+    );
+    return null;
+  }
+  return point;
+}

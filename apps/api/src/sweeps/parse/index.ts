@@ -1,0 +1,15 @@
+export { guessColumns, suggestMethod, NUMERIC_MEANINGS, type ResolvedColumn } from './columns';
+export { decodeText, UnreadableFileError } from './decode';
+export { detectLayout, splitLine, type Delimiter, type FileLayout } from './layout';
+export { recogniseMetadata, readLengthCm, type RecognisedMetadata } from './metadata';
+export { readNumber, type DecimalMark } from './numbers';
+export { readDataTable, type DataTable } from './read-table';
+export {
+  applyColumnOverrides,
+  MAX_PROBLEMS,
+  parseSweepFile,
+  rowProblem,
+  unreadableCells,
+  type ParsedSweepFile,
+} from './sweep-file';
+export { parseUnit, splitHeader, type Unit, type UnitKind } from './units';

@@ -1,0 +1,67 @@
+/**
+ * CSV export of a sweep's points, safe to open in a spreadsheet.
+ */
+import type { SweepColumn, SweepPointDto } from '@rhotrace/api-types';
+import { looksNumeric } from './parse/numbers';
+
+/**
+ * One CSV cell. Text beginning with = + - @ (or a tab or carriage return) gets a leading
+ * apostrophe so a spreadsheet does not run it as a formula; numbers, negative ones included,
+ * stay numbers.
+ */
+export function csvCell(value: string | number | null): string {
+  if (value === null) return '';
+  if (typeof value === 'number') return String(value);
+  let text = value;
+  if (/^[=+\-@\t\r]/.test(text) && !looksNumeric(text)) text = `'${text}`;
+  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+const FIXED = [
+  'sequence',
+  'source_row',
+  'temperature_k',
+  'current_a',
+  'voltage_v',
+  'resistance_ohm',
+  'sheet_resistance_ohm_sq',
+  'resistivity_ohm_cm',
+  'flags',
+];
+
+/** The points as CSV: stored values first, then the file's own columns as read. */
+export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): string {
+  const header = [...FIXED, ...columns.map((c) => `raw ${c.header}`)].map(csvCell).join(',');
+  const lines = [header];
+  for (const p of points) {
+    const raw = columns.map((c) => p.raw.map((r) => r.values[c.header] ?? '').join(' | '));
+    lines.push(
+      [
+        p.sequence,
+        p.sourceRow,
+        p.temperatureK,
+        p.currentA,
+        p.voltageV,
+        p.resistanceOhm,
+        p.sheetResistanceOhmSq,
+        p.resistivityOhmCm,
+        p.flags.join(' '),
+        ...raw,
+      ]
+        .map((v) => csvCell(v))
+        .join(','),
+    );
+  }
+  return `${lines.join('\r\n')}\r\n`;
+}
+
+/** A file name safe for Content-Disposition: no path, quotes or control characters. */
+export function safeFileName(name: string, fallback: string): string {
+  const base = name.split(/[\\/]/).pop() ?? '';
+  const cleaned = base
+    .replace(/[\u0000-\u001f\u007f"*:<>?|;]/g, '_')
+    .replace(/^\.+/, '')
+    .trim()
+    .slice(0, 200);
+  return cleaned || fallback;
+}

@@ -1,0 +1,46 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import type { AppDeps } from '../deps';
+import { authenticate, currentUser } from '../middleware/authenticate';
+import { parseId } from '../middleware/validate';
+import { visibleWafer } from '../wafers/wafer-access.service';
+import {
+  deleteSweepHandler,
+  getSweepHandler,
+  listSweepsHandler,
+  pointsCsvHandler,
+  previewSweepHandler,
+  rawFileHandler,
+  storeSweepHandler,
+} from './sweep.controller';
+
+/** Text fields an upload may carry besides the file (method, station, mapping, geometry). */
+const MAX_FIELDS = 12;
+
+/** Sweep import and reads. Uploads are buffered only after the wafer check passes. */
+export function sweepRouter(deps: AppDeps): Router {
+  const router = Router();
+  const auth = authenticate(deps.config.jwtSecret);
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: {
+      fileSize: deps.config.uploadLimitBytes,
+      files: 1,
+      fields: MAX_FIELDS,
+      fieldSize: 256 * 1024,
+    },
+  }).single('file');
+  // 404 before the body is read, so a hidden wafer costs no upload.
+  const waferVisible: RequestHandler = async (req, _res, next) => {
+    await visibleWafer(currentUser(req), parseId(req.params));
+    next();
+  };
+  router.post('/wafers/:id/sweeps/preview', auth, waferVisible, upload, previewSweepHandler);
+  router.post('/wafers/:id/sweeps', auth, waferVisible, upload, storeSweepHandler);
+  router.get('/wafers/:id/sweeps', auth, listSweepsHandler);
+  router.get('/sweeps/:id', auth, getSweepHandler);
+  router.get('/sweeps/:id/points.csv', auth, pointsCsvHandler);
+  router.get('/sweeps/:id/raw', auth, rawFileHandler);
+  router.delete('/sweeps/:id', auth, deleteSweepHandler);
+  return router;
+}

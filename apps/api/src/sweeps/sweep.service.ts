@@ -1,0 +1,171 @@
+/**
+ * Reading and soft-deleting sweeps. Visibility follows the wafer: hidden is 404.
+ */
+import type {
+  PointFlag,
+  SweepColumn,
+  SweepDto,
+  SweepGeometry,
+  SweepMethod,
+  SweepParseReport,
+  SweepPointDto,
+  SweepSummaryDto,
+} from '@rhotrace/api-types';
+import { recordAudit } from '../audit/audit.service';
+import { forbidden, notFound } from '../errors';
+import { rawStorageFor } from '../storage/storage';
+import type { StorageKind } from '../storage/raw-storage';
+import { User } from '../users/user.model';
+import { visibleWafer } from '../wafers/wafer-access.service';
+import type { SweepActor } from './sweep-import.service';
+import { Sweep, SweepPoint } from './sweep.model';
+
+export {
+  importSweep,
+  previewSweep,
+  type ImportSweepInput,
+  type SweepActor,
+} from './sweep-import.service';
+
+async function visibleSweep(id: number, actor: SweepActor): Promise<Sweep> {
+  const sweep = await Sweep.findByPk(id);
+  if (!sweep) throw notFound(`Sweep ${id}`);
+  try {
+    await visibleWafer(actor, sweep.waferId);
+  } catch {
+    throw notFound(`Sweep ${id}`);
+  }
+  return sweep;
+}
+
+function summary(sweep: Sweep, names: Map<number, string>): SweepSummaryDto {
+  return {
+    id: sweep.id,
+    waferId: sweep.waferId,
+    stationId: sweep.stationId,
+    method: sweep.method as SweepMethod,
+    geometry: sweep.geometry as SweepGeometry,
+    uploadedById: sweep.uploadedById,
+    uploadedByName: names.get(sweep.uploadedById) ?? null,
+    originalName: sweep.originalName,
+    sizeBytes: sweep.sizeBytes,
+    sha256: sweep.sha256,
+    pointCount: sweep.pointCount,
+    minTemperatureK: sweep.minTemperatureK,
+    maxTemperatureK: sweep.maxTemperatureK,
+    createdAt: sweep.createdAt.toISOString(),
+  };
+}
+
+async function uploaderNames(sweeps: Sweep[]): Promise<Map<number, string>> {
+  const ids = [...new Set(sweeps.map((s) => s.uploadedById))];
+  const users = ids.length
+    ? await User.findAll({ attributes: ['id', 'name'], where: { id: ids } })
+    : [];
+  return new Map(users.map((u) => [u.id, u.name]));
+}
+
+/** The wafer's sweeps, newest first, without points. */
+export async function listSweeps(waferId: number, actor: SweepActor): Promise<SweepSummaryDto[]> {
+  await visibleWafer(actor, waferId);
+  const sweeps = await Sweep.findAll({
+    where: { waferId },
+    order: [
+      ['createdAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  });
+  const names = await uploaderNames(sweeps);
+  return sweeps.map((s) => summary(s, names));
+}
+
+interface StoredRaw {
+  rows: number[];
+  cells: string[][];
+}
+
+/** The sweep with its columns, metadata, report and every point in sequence. */
+export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto> {
+  const sweep = await visibleSweep(id, actor);
+  const columns = sweep.columnMapping as SweepColumn[];
+  const points = await SweepPoint.findAll({
+    where: { sweepId: id },
+    order: [['sequence', 'ASC']],
+    raw: true,
+  });
+  const headers = columns.map((c) => c.header);
+  const dtos: SweepPointDto[] = points.map((p) => {
+    const stored = (typeof p.raw === 'string' ? JSON.parse(p.raw) : p.raw) as StoredRaw;
+    return {
+      sequence: p.sequence,
+      sourceRow: p.sourceRow,
+      temperatureK: p.temperatureK,
+      raw: stored.rows.map((row, k) => ({
+        row,
+        values: Object.fromEntries(headers.map((h, j) => [h, stored.cells[k]?.[j] ?? ''])),
+      })),
+      currentA: p.currentA,
+      voltageV: p.voltageV,
+      resistanceOhm: p.resistanceOhm,
+      sheetResistanceOhmSq: p.sheetResistanceOhmSq,
+      resistivityOhmCm: p.resistivityOhmCm,
+      flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
+    };
+  });
+  return {
+    ...summary(sweep, await uploaderNames([sweep])),
+    columns,
+    metadata: (sweep.metadata ?? {}) as Record<string, string>,
+    parseReport: sweep.parseReport as SweepParseReport,
+    points: dtos,
+  };
+}
+
+/** The original upload, byte for byte, with the name it was uploaded under. */
+export async function sweepRawFile(
+  id: number,
+  actor: SweepActor,
+): Promise<{ originalName: string; content: Buffer }> {
+  const sweep = await visibleSweep(id, actor);
+  const content = await rawStorageFor(sweep.storageKind as StorageKind).get(sweep.storageKey);
+  if (!content) throw notFound(`The raw file of sweep ${id}`);
+  return { originalName: sweep.originalName, content };
+}
+
+/**
+ * Soft-deletes a sweep (kept in the trail): admins and managers any, engineers and physicists
+ * their own uploads, technicians none.
+ */
+export async function deleteSweep(id: number, actor: SweepActor): Promise<void> {
+  const sweep = await visibleSweep(id, actor);
+  const mayDelete =
+    actor.role === 'admin' ||
+    actor.role === 'manager' ||
+    ((actor.role === 'engineer' || actor.role === 'physicist') && sweep.uploadedById === actor.id);
+  if (!mayDelete) {
+    throw forbidden(
+      actor.role === 'technician'
+        ? 'Technicians may not delete sweeps'
+        : 'You may delete only sweeps you uploaded',
+    );
+  }
+  await Sweep.sequelize!.transaction(async (transaction) => {
+    await sweep.update({ deletedById: actor.id }, { transaction });
+    await sweep.destroy({ transaction });
+    await recordAudit(
+      {
+        actorId: actor.id,
+        action: 'delete',
+        entity: 'sweep',
+        entityId: id,
+        before: {
+          waferId: sweep.waferId,
+          originalName: sweep.originalName,
+          pointCount: sweep.pointCount,
+        },
+        requestId: actor.requestId ?? null,
+      },
+      transaction,
+    );
+  });
+}

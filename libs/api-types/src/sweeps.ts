@@ -1,0 +1,177 @@
+/** How a sweep's readings become resistivity. */
+export const SWEEP_METHODS = [
+  'four-point',
+  'van-der-pauw',
+  'bar',
+  'resistivity',
+  'sheet-resistance',
+] as const;
+export type SweepMethod = (typeof SWEEP_METHODS)[number];
+
+/**
+ * What a column of an imported file holds. `resistance` is V/I (for van der Pauw: R_A) and
+ * `resistance-b` the second van der Pauw configuration (R_B); `other` is kept raw only.
+ */
+export const COLUMN_MEANINGS = [
+  'temperature',
+  'voltage',
+  'current',
+  'resistance',
+  'resistance-b',
+  'sheet-resistance',
+  'resistivity',
+  'polarity',
+  'current-level',
+  'time',
+  'index',
+  'other',
+] as const;
+export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
+
+/**
+ * Flags a stored point may carry (a point's `flags` is a list of these):
+ * - `jump`: resistivity differs from the previous point by more than `JUMP_FACTOR` times;
+ * - `temperature-reversal`: temperature moved against the ramp direction;
+ * - `polarity-averaged`: combined from a forward and a reverse reading (`raw` holds both rows);
+ * - `unpaired-polarity`: a forward or reverse reading without its partner, stored on its own.
+ */
+export const POINT_FLAGS = [
+  'jump',
+  'temperature-reversal',
+  'polarity-averaged',
+  'unpaired-polarity',
+] as const;
+export type PointFlag = (typeof POINT_FLAGS)[number];
+
+/** Neighbouring points whose resistivity differs by more than this factor are flagged `jump`. */
+export const JUMP_FACTOR = 10;
+
+/** One detected (or user-given) column. `unit` is the canonical label, e.g. `mV`, `degC`, `ohm`. */
+export interface SweepColumn {
+  index: number;
+  header: string;
+  meaning: ColumnMeaning;
+  unit: string | null;
+  /** 0 to 1: how sure the detection is (1 for a mapping the user gave). */
+  confidence: number;
+}
+
+/** A problem with one place of a file. `row` is the 1-based line number in the file. */
+export interface RowProblem {
+  row: number | null;
+  column: string | null;
+  problem: string;
+  /** The same place in words (`row 12, column V (mV)`), for the standard error shape. */
+  field: string;
+}
+
+/** A row of the preview: the cells as read and their numbers (decimal mark applied). */
+export interface PreviewRow {
+  row: number;
+  cells: string[];
+  values: Array<number | null>;
+}
+
+/** `POST /api/wafers/:id/sweeps/preview`. */
+export interface SweepPreviewResponse {
+  delimiter: ',' | ';' | '\t';
+  decimalMark: '.' | ',';
+  metadata: Record<string, string>;
+  columns: SweepColumn[];
+  /** The first 20 data rows. */
+  rows: PreviewRow[];
+  rowCount: number;
+  problems: RowProblem[];
+  suggestedMethod: SweepMethod | null;
+}
+
+/** A column mapping override sent with the store request (JSON text in field `columns`). */
+export interface SweepColumnOverride {
+  index: number;
+  meaning: ColumnMeaning;
+  unit?: string | null;
+}
+
+/** Geometry overrides of the store request, all in centimetres. */
+export interface SweepGeometryInput {
+  thicknessCm?: number;
+  diameterCm?: number;
+  spacingCm?: number;
+  barLengthCm?: number;
+  barWidthCm?: number;
+}
+
+/** Where each geometry value came from. */
+export type GeometrySource = 'request' | 'wafer' | 'lot' | 'station' | 'file';
+
+/** The geometry a sweep was converted with. */
+export interface SweepGeometry extends SweepGeometryInput {
+  rtdR0Ohm?: number;
+  sources: Partial<Record<keyof SweepGeometryInput | 'rtdR0Ohm', GeometrySource>>;
+}
+
+/** `POST /api/wafers/:id/sweeps` → 201. */
+export interface SweepCreatedResponse {
+  id: number;
+  pointCount: number;
+  warnings: string[];
+}
+
+/** A sweep without its points (`GET /api/wafers/:id/sweeps` items). */
+export interface SweepSummaryDto {
+  id: number;
+  waferId: number;
+  stationId: number | null;
+  method: SweepMethod;
+  geometry: SweepGeometry;
+  uploadedById: number;
+  uploadedByName: string | null;
+  originalName: string;
+  sizeBytes: number;
+  sha256: string;
+  pointCount: number;
+  minTemperatureK: number | null;
+  maxTemperatureK: number | null;
+  createdAt: string;
+}
+
+/** What the import found and decided, kept with the sweep. */
+export interface SweepParseReport {
+  delimiter: string;
+  decimalMark: string;
+  headerRow: number | null;
+  rowCount: number;
+  warnings: string[];
+  flaggedPoints: number;
+}
+
+/** The file row (1-based line number) a point was read from, cell text keyed by header. */
+export interface RawReading {
+  row: number;
+  values: Record<string, string>;
+}
+
+/**
+ * One stored point. `raw` holds the file rows it was made from (two for a polarity-averaged
+ * point), with each cell's text as read. `sourceRow` is the first of them.
+ */
+export interface SweepPointDto {
+  sequence: number;
+  sourceRow: number;
+  temperatureK: number;
+  raw: RawReading[];
+  currentA: number | null;
+  voltageV: number | null;
+  resistanceOhm: number | null;
+  sheetResistanceOhmSq: number | null;
+  resistivityOhmCm: number;
+  flags: PointFlag[];
+}
+
+/** `GET /api/sweeps/:id`. */
+export interface SweepDto extends SweepSummaryDto {
+  columns: SweepColumn[];
+  metadata: Record<string, string>;
+  parseReport: SweepParseReport;
+  points: SweepPointDto[];
+}
