@@ -3,3 +3,4 @@ export * from './common';
 export * from './auth';
 export * from './records';
 export * from './analysis';
+export * from './sweeps';
