@@ -34,11 +34,16 @@ let seq = 0;
 const unique = () => `${Date.now().toString(36)}-${++seq}`;
 let fx: Record<string, number> = {};
 
+// prettier-ignore
 const newLot = async () => (await Lot.create({ code: `FRESH-${unique()}`, material: 'Si', dopant: null, dopantType: null, orientation: null, diameterCm: null, thicknessCm: null, supplier: null, receivedOn: null, specMinOhmCm: null, specMaxOhmCm: null, notes: null, createdById: null })).id;
+// prettier-ignore
 const newWafer = async () => (await Wafer.create({ lotId: fx.lot!, number: `F-${unique()}`, thicknessCm: null, notes: null })).id;
+// prettier-ignore
 const newStation = async () => (await Station.create({ name: `Fresh ${unique()}`, probeSpacingCm: 0.1, tipRadiusCm: null, thermometer: 'thermocouple', rtdR0Ohm: null, minTemperatureK: 80, maxTemperatureK: 400, calibratedOn: null, notes: null })).id;
+// prettier-ignore
 const newTechAssignment = async () => (await Assignment.create({ waferId: fx.wafer!, assigneeId: fx.technician!, assignedById: fx.manager!, task: 'Measure', dueDate: '2031-01-01', notes: null })).id;
 
+// prettier-ignore
 //                                                                     admin mgr  eng  phys tech none
 const MATRIX: Row[] = [
   // auth: open routes and the session
@@ -101,11 +106,22 @@ describe('permission matrix (PRODUCT.md section 2)', () => {
     const hiddenLot = await newLotWithCode('MATRIX-HIDDEN');
     fx = { lot, hiddenLot, technician: ctx.users.technician.id, manager: ctx.users.manager.id };
     fx.wafer = await newWafer();
-    fx.hiddenWafer = (await Wafer.create({ lotId: hiddenLot, number: 'H1', thicknessCm: null, notes: null })).id;
+    fx.hiddenWafer = (
+      await Wafer.create({ lotId: hiddenLot, number: 'H1', thicknessCm: null, notes: null })
+    ).id;
     fx.station = await newStation();
     fx.assignment = await newTechAssignment();
     const other = await ctx.addUser('technician');
-    fx.otherAssignment = (await Assignment.create({ waferId: fx.hiddenWafer, assigneeId: other.user.id, assignedById: fx.manager, task: 'Other', dueDate: '2031-01-01', notes: null })).id;
+    fx.otherAssignment = (
+      await Assignment.create({
+        waferId: fx.hiddenWafer,
+        assigneeId: other.user.id,
+        assignedById: fx.manager!,
+        task: 'Other',
+        dueDate: '2031-01-01',
+        notes: null,
+      })
+    ).id;
     fx.user = (await ctx.addUser('engineer')).user.id;
   });
   afterAll(async () => {
@@ -124,8 +140,13 @@ describe('permission matrix (PRODUCT.md section 2)', () => {
     for (const row of MATRIX) {
       const got: number[] = [];
       for (const who of WHO) {
-        const ids: Record<string, number> = { ...fx, ...(row.fresh ? { fresh: await row.fresh() } : {}) };
-        const path = row.path.replace(/:([a-zA-Z]+)/g, (m, name: string) => (name in ids ? String(ids[name]) : m));
+        const ids: Record<string, number> = {
+          ...fx,
+          ...(row.fresh ? { fresh: await row.fresh() } : {}),
+        };
+        const path = row.path.replace(/:([a-zA-Z]+)/g, (m, name: string) =>
+          name in ids ? String(ids[name]) : m,
+        );
         let req = request(ctx.app)[row.method](path);
         if (who !== 'none') req = req.set(ctx.auth(who));
         const res = await (row.body ? req.send(row.body()) : req);

@@ -6,7 +6,14 @@ export const MATERIALS = [...SEMICONDUCTORS, ...METAL_FILMS] as const;
 export type Material = (typeof MATERIALS)[number];
 
 /** Where a wafer is in the lab's flow (Rhotrace's own words). */
-export const WAFER_STATES = ['received', 'queued', 'measuring', 'measured', 'on hold', 'retired'] as const;
+export const WAFER_STATES = [
+  'received',
+  'queued',
+  'measuring',
+  'measured',
+  'on hold',
+  'retired',
+] as const;
 export type WaferState = (typeof WAFER_STATES)[number];
 
 export const ASSIGNMENT_STATES = ['assigned', 'in progress', 'done', 'cancelled'] as const;

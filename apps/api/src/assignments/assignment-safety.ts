@@ -34,7 +34,9 @@ export function safetyCautionsFor(material: string, task: string): string[] {
   const text = task.toLowerCase();
   const cautions: string[] = [];
   const mentionsKelvin = [...text.matchAll(/(\d+(?:\.\d+)?)\s*k\b/g)].map((m) => Number(m[1]));
-  const mentionsCelsius = [...text.matchAll(/(-?\d+(?:\.\d+)?)\s*°?\s*c\b/g)].map((m) => Number(m[1]));
+  const mentionsCelsius = [...text.matchAll(/(-?\d+(?:\.\d+)?)\s*°?\s*c\b/g)].map((m) =>
+    Number(m[1]),
+  );
   const sweep = /sweep|r\s*\(\s*t\s*\)|resistivity|temperature|anneal|bake/.test(text);
   const hot =
     /heat|hot|anneal|bake|high[- ]temp/.test(text) ||

@@ -28,7 +28,8 @@ import {
 const state = z.enum(ASSIGNMENT_STATES, {
   errorMap: () => ({ message: `must be one of ${ASSIGNMENT_STATES.join(', ')}` }),
 });
-const id = z.number({ required_error: 'is required', invalid_type_error: 'must be a whole number' })
+const id = z
+  .number({ required_error: 'is required', invalid_type_error: 'must be a whole number' })
   .int('must be a whole number')
   .positive('must be positive')
   .max(2_147_483_647, 'is too large');

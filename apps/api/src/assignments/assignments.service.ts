@@ -136,7 +136,14 @@ export async function createAssignment(
     const assignee = await activeAssignee(input.assigneeId, t);
     const a = await Assignment.create({ ...input, assignedById: actor.id }, { transaction: t });
     await recordAudit(
-      { actorId: actor.id, action: 'create', entity: 'assignment', entityId: a.id, after: snapshot(a), requestId: actor.requestId },
+      {
+        actorId: actor.id,
+        action: 'create',
+        entity: 'assignment',
+        entityId: a.id,
+        after: snapshot(a),
+        requestId: actor.requestId,
+      },
       t,
     );
     await queueMail(a, { wafer, lot, assignee, assignerName: actor.name }, mail, t);
@@ -226,7 +233,8 @@ export async function updateAssignment(
       throw notFound(`Assignment ${id}`);
     }
     if (!isAssigner(user)) {
-      if (a.assigneeId !== user.id) throw forbidden('Only admins, managers and the assignee may change this');
+      if (a.assigneeId !== user.id)
+        throw forbidden('Only admins, managers and the assignee may change this');
       const others = Object.keys(changes).filter((k) => k !== 'state');
       if (others.length) {
         throw forbidden(`The assignee may change only the state, not ${others.join(', ')}`);
@@ -248,7 +256,15 @@ export async function updateAssignment(
         : null;
     await a.update(changes, { transaction: t });
     await recordAudit(
-      { actorId: actor.id, action: 'update', entity: 'assignment', entityId: id, before, after: snapshot(a), requestId: actor.requestId },
+      {
+        actorId: actor.id,
+        action: 'update',
+        entity: 'assignment',
+        entityId: id,
+        before,
+        after: snapshot(a),
+        requestId: actor.requestId,
+      },
       t,
     );
     const r = await related([a], t);

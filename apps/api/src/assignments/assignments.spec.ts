@@ -12,7 +12,10 @@ import { createTestContext, type TestContext } from '../testing/test-context';
 import { Assignment } from './assignment.model';
 import { DEFER_TO_LAB_RULES, safetyCautionsFor } from './assignment-safety';
 
-async function waitFor<T>(probe: () => Promise<T | undefined> | T | undefined, timeoutMs = 8_000): Promise<T> {
+async function waitFor<T>(
+  probe: () => Promise<T | undefined> | T | undefined,
+  timeoutMs = 8_000,
+): Promise<T> {
   const start = Date.now();
   for (;;) {
     const value = await probe();
@@ -44,14 +47,20 @@ describe('/api/assignments', () => {
       .set(ctx.auth('manager'))
       .send({ code: 'GA-7', material: 'GaAs', dopant: 'Si', dopantType: 'n' });
     gaasWafer = (
-      await request(ctx.app).post(`/api/lots/${lot.body.id}/wafers`).set(ctx.auth('manager')).send({ number: '03' })
+      await request(ctx.app)
+        .post(`/api/lots/${lot.body.id}/wafers`)
+        .set(ctx.auth('manager'))
+        .send({ number: '03' })
     ).body;
     const si = await request(ctx.app)
       .post('/api/lots')
       .set(ctx.auth('manager'))
       .send({ code: 'SI-2', material: 'Si' });
     siWafer = (
-      await request(ctx.app).post(`/api/lots/${si.body.id}/wafers`).set(ctx.auth('manager')).send({ number: '1' })
+      await request(ctx.app)
+        .post(`/api/lots/${si.body.id}/wafers`)
+        .set(ctx.auth('manager'))
+        .send({ number: '1' })
     ).body;
     tech = await ctx.addUser('technician', 'Ada <Tech> & Co');
   });
@@ -104,7 +113,9 @@ describe('/api/assignments', () => {
     expect(parsed.html).not.toContain('<script>');
     expect(parsed.html).toContain('&lt;script&gt;');
     expect(parsed.html).toContain('Ada &lt;Tech&gt; &amp; Co');
-    const events = await AuditEvent.findAll({ where: { entity: 'assignment', entityId: String(res.body.id) } });
+    const events = await AuditEvent.findAll({
+      where: { entity: 'assignment', entityId: String(res.body.id) },
+    });
     expect(events.map((e) => e.action)).toEqual(['create']);
   });
 
@@ -115,18 +126,40 @@ describe('/api/assignments', () => {
     const anneal = safetyCautionsFor('Si', 'Anneal and sweep to 600 K');
     expect(anneal.join(' ')).toMatch(/Hot chuck/);
     expect(anneal.join(' ')).not.toMatch(/Cryogens/);
-    expect(safetyCautionsFor('Si', 'Sweep down to 77 K in the LN2 dewar').join(' ')).toMatch(/Cryogens/);
+    expect(safetyCautionsFor('Si', 'Sweep down to 77 K in the LN2 dewar').join(' ')).toMatch(
+      /Cryogens/,
+    );
   });
 
   it.each([
     ['missing waferId', { assigneeId: 1, task: 't', dueDate: '2031-01-01' }, 'body.waferId'],
-    ['wrong-typed waferId', { waferId: '1', assigneeId: 1, task: 't', dueDate: '2031-01-01' }, 'body.waferId'],
+    [
+      'wrong-typed waferId',
+      { waferId: '1', assigneeId: 1, task: 't', dueDate: '2031-01-01' },
+      'body.waferId',
+    ],
     ['missing task', { waferId: 1, assigneeId: 1, dueDate: '2031-01-01' }, 'body.task'],
-    ['oversized task', { waferId: 1, assigneeId: 1, task: 't'.repeat(501), dueDate: '2031-01-01' }, 'body.task'],
+    [
+      'oversized task',
+      { waferId: 1, assigneeId: 1, task: 't'.repeat(501), dueDate: '2031-01-01' },
+      'body.task',
+    ],
     ['bad date', { waferId: 1, assigneeId: 1, task: 't', dueDate: '2031-13-01' }, 'body.dueDate'],
-    ['negative id', { waferId: -4, assigneeId: 1, task: 't', dueDate: '2031-01-01' }, 'body.waferId'],
-    ['oversized notes', { waferId: 1, assigneeId: 1, task: 't', dueDate: '2031-01-01', notes: 'n'.repeat(5001) }, 'body.notes'],
-    ['unknown field', { waferId: 1, assigneeId: 1, task: 't', dueDate: '2031-01-01', priority: 'high' }, 'body.priority'],
+    [
+      'negative id',
+      { waferId: -4, assigneeId: 1, task: 't', dueDate: '2031-01-01' },
+      'body.waferId',
+    ],
+    [
+      'oversized notes',
+      { waferId: 1, assigneeId: 1, task: 't', dueDate: '2031-01-01', notes: 'n'.repeat(5001) },
+      'body.notes',
+    ],
+    [
+      'unknown field',
+      { waferId: 1, assigneeId: 1, task: 't', dueDate: '2031-01-01', priority: 'high' },
+      'body.priority',
+    ],
   ])('refuses an assignment with %s', async (_label, body, field) => {
     const res = await assign(body);
     expect(res.status).toBe(400);
@@ -141,26 +174,62 @@ describe('/api/assignments', () => {
     await gone.user.update({ active: false });
     const res = await assign({ ...base, waferId: siWafer.id, assigneeId: gone.user.id });
     expect(res.status).toBe(400);
-    expect(res.body.error.details).toEqual([{ field: 'body.assigneeId', problem: 'is not an active user' }]);
+    expect(res.body.error.details).toEqual([
+      { field: 'body.assigneeId', problem: 'is not an active user' },
+    ]);
   });
 
   it('lets technicians list only their own, and assignees move theirs only forward', async () => {
-    const a = (await assign({ waferId: siWafer.id, assigneeId: tech.user.id, task: 'Measure', dueDate: '2031-01-01' })).body;
+    const a = (
+      await assign({
+        waferId: siWafer.id,
+        assigneeId: tech.user.id,
+        task: 'Measure',
+        dueDate: '2031-01-01',
+      })
+    ).body;
     const other = await ctx.addUser('technician');
-    const own = await request(ctx.app).get('/api/assignments').query({ assignee: 'me' }).set(tech.header);
+    const own = await request(ctx.app)
+      .get('/api/assignments')
+      .query({ assignee: 'me' })
+      .set(tech.header);
     expect(own.status).toBe(200);
-    expect(own.body.items.every((x: { assigneeId: number }) => x.assigneeId === tech.user.id)).toBe(true);
+    expect(own.body.items.every((x: { assigneeId: number }) => x.assigneeId === tech.user.id)).toBe(
+      true,
+    );
     expect(own.body.total).toBeGreaterThanOrEqual(2);
     const implicit = await request(ctx.app).get('/api/assignments').set(other.header);
     expect(implicit.body.total).toBe(0);
     expect(
-      (await request(ctx.app).get('/api/assignments').query({ assignee: tech.user.id }).set(other.header)).status,
+      (
+        await request(ctx.app)
+          .get('/api/assignments')
+          .query({ assignee: tech.user.id })
+          .set(other.header)
+      ).status,
     ).toBe(403);
-    expect((await request(ctx.app).get(`/api/assignments/${a.id}`).set(other.header)).status).toBe(404);
-    expect((await request(ctx.app).patch(`/api/assignments/${a.id}`).set(other.header).send({ state: 'done' })).status).toBe(404);
-    expect((await request(ctx.app).patch(`/api/assignments/${a.id}`).set(ctx.auth('engineer')).send({ state: 'done' })).status).toBe(403);
+    expect((await request(ctx.app).get(`/api/assignments/${a.id}`).set(other.header)).status).toBe(
+      404,
+    );
+    expect(
+      (
+        await request(ctx.app)
+          .patch(`/api/assignments/${a.id}`)
+          .set(other.header)
+          .send({ state: 'done' })
+      ).status,
+    ).toBe(404);
+    expect(
+      (
+        await request(ctx.app)
+          .patch(`/api/assignments/${a.id}`)
+          .set(ctx.auth('engineer'))
+          .send({ state: 'done' })
+      ).status,
+    ).toBe(403);
 
-    const patch = (body: object) => request(ctx.app).patch(`/api/assignments/${a.id}`).set(tech.header).send(body);
+    const patch = (body: object) =>
+      request(ctx.app).patch(`/api/assignments/${a.id}`).set(tech.header).send(body);
     expect((await patch({ state: 'in progress' })).body.state).toBe('in progress');
     expect((await patch({ state: 'assigned' })).status).toBe(403);
     expect((await patch({ state: 'cancelled' })).status).toBe(403);
@@ -172,7 +241,9 @@ describe('/api/assignments', () => {
       .set(ctx.auth('manager'))
       .send({ state: 'assigned', dueDate: '2032-02-02' });
     expect(reopened.body).toMatchObject({ state: 'assigned', dueDate: '2032-02-02' });
-    const trail = await AuditEvent.findAll({ where: { entity: 'assignment', entityId: String(a.id) } });
+    const trail = await AuditEvent.findAll({
+      where: { entity: 'assignment', entityId: String(a.id) },
+    });
     expect(trail.map((e) => e.action)).toEqual(['create', 'update', 'update', 'update']);
   });
 
@@ -198,16 +269,30 @@ describe('/api/assignments', () => {
     expect(res.status).toBe(200);
     expect(res.body.items.map((x: { id: number }) => x.id)).toEqual([late.id]);
     expect(res.body.items[0].overdue).toBe(true);
-    const filtered = await request(ctx.app).get('/api/assignments').query({ overdue: 'true' }).set(ctx.auth('admin'));
+    const filtered = await request(ctx.app)
+      .get('/api/assignments')
+      .query({ overdue: 'true' })
+      .set(ctx.auth('admin'));
     expect(filtered.body.items.map((x: { id: number }) => x.id)).toEqual([late.id]);
-    expect((await request(ctx.app).get('/api/assignments/overdue').set(ctx.auth('engineer'))).status).toBe(403);
+    expect(
+      (await request(ctx.app).get('/api/assignments/overdue').set(ctx.auth('engineer'))).status,
+    ).toBe(403);
   });
 
   it('leaves neither assignment, audit event nor e-mail when the audit write fails', async () => {
-    const counts = async () => [await Assignment.count(), await AuditEvent.count(), await OutgoingEmail.count()];
+    const counts = async () => [
+      await Assignment.count(),
+      await AuditEvent.count(),
+      await OutgoingEmail.count(),
+    ];
     const before = await counts();
     const spy = vi.spyOn(AuditEvent, 'create').mockRejectedValueOnce(new Error('lost the disk'));
-    const res = await assign({ waferId: siWafer.id, assigneeId: tech.user.id, task: 'Doomed', dueDate: '2031-01-01' });
+    const res = await assign({
+      waferId: siWafer.id,
+      assigneeId: tech.user.id,
+      task: 'Doomed',
+      dueDate: '2031-01-01',
+    });
     spy.mockRestore();
     expect(res.status).toBe(500);
     expect(await counts()).toEqual(before);
@@ -215,23 +300,45 @@ describe('/api/assignments', () => {
 
   it('keeps the assignment when SMTP is down and delivers the mail once it is back', async () => {
     const port = await freePort();
-    const downMailer = new Mailer({ host: '127.0.0.1', port, from: ctx.config.smtp.from, retryBaseMs: 50, maxBackoffMs: 200 });
-    const app = createApp({ config: ctx.config, sequelize: ctx.sequelize, mailer: downMailer, logger: createLogger('silent') });
+    const downMailer = new Mailer({
+      host: '127.0.0.1',
+      port,
+      from: ctx.config.smtp.from,
+      retryBaseMs: 50,
+      maxBackoffMs: 200,
+    });
+    const app = createApp({
+      config: ctx.config,
+      sequelize: ctx.sequelize,
+      mailer: downMailer,
+      logger: createLogger('silent'),
+    });
     const res = await request(app)
       .post('/api/assignments')
       .set(ctx.auth('admin'))
-      .send({ waferId: siWafer.id, assigneeId: tech.user.id, task: 'Measure while mail is down', dueDate: '2031-03-03' });
+      .send({
+        waferId: siWafer.id,
+        assigneeId: tech.user.id,
+        task: 'Measure while mail is down',
+        dueDate: '2031-03-03',
+      });
     expect(res.status).toBe(201);
     expect(await Assignment.findByPk(res.body.id)).not.toBeNull();
     const queued = await waitFor(async () => {
-      const row = await OutgoingEmail.findOne({ where: { relatedEntity: 'assignment', relatedId: String(res.body.id) } });
+      const row = await OutgoingEmail.findOne({
+        where: { relatedEntity: 'assignment', relatedId: String(res.body.id) },
+      });
       return row && row.attempts >= 1 ? row : undefined;
     });
     expect(queued.state).toBe('queued');
     expect(queued.lastError).toBeTruthy();
 
     const box: StandInMessage[] = [];
-    const standIn = await startMailStandIn({ port, mailDir: ctx.config.mailDir, onMessage: (m) => box.push(m) });
+    const standIn = await startMailStandIn({
+      port,
+      mailDir: ctx.config.mailDir,
+      onMessage: (m) => box.push(m),
+    });
     try {
       const delivered = await waitFor(async () => {
         await downMailer.deliverDue();

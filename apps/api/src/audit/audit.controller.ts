@@ -1,5 +1,10 @@
 import type { Request, Response } from 'express';
-import { DEFAULT_PAGE_SIZE, MAX_PAGE_SIZE, type AuditEventDto, type Page } from '@rhotrace/api-types';
+import {
+  DEFAULT_PAGE_SIZE,
+  MAX_PAGE_SIZE,
+  type AuditEventDto,
+  type Page,
+} from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParam, paginationSchema, parseOrThrow } from '../middleware/validate';
 import { listAudit } from './audit.service';

@@ -6,6 +6,11 @@ import { auditController as c } from './audit.controller';
 /** /api/audit: the trail, for admins and managers. */
 export function auditRouter(deps: AppDeps): Router {
   const router = Router();
-  router.get('/audit', authenticate(deps.config.jwtSecret), requireRole('admin', 'manager'), c.list);
+  router.get(
+    '/audit',
+    authenticate(deps.config.jwtSecret),
+    requireRole('admin', 'manager'),
+    c.list,
+  );
   return router;
 }

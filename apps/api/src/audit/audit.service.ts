@@ -62,7 +62,9 @@ export async function listAudit(options: AuditListOptions): Promise<Page<AuditEv
     limit: options.pageSize,
     offset: (options.page - 1) * options.pageSize,
   });
-  const actorIds = [...new Set(rows.map((r) => r.actorId).filter((id): id is number => id !== null))];
+  const actorIds = [
+    ...new Set(rows.map((r) => r.actorId).filter((id): id is number => id !== null)),
+  ];
   const actors = actorIds.length
     ? await User.findAll({ attributes: ['id', 'email'], where: { id: { [Op.in]: actorIds } } })
     : [];

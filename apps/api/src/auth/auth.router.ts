@@ -25,7 +25,10 @@ function limiter(windowMs: number, limit: number, what: string): RateLimitReques
     keyGenerator: addressAndEmail,
     handler: (req, _res, next) => {
       const reset = (req as Request & { rateLimit?: { resetTime?: Date } }).rateLimit?.resetTime;
-      const seconds = Math.max(1, Math.ceil(((reset?.getTime() ?? Date.now() + windowMs) - Date.now()) / 1000));
+      const seconds = Math.max(
+        1,
+        Math.ceil(((reset?.getTime() ?? Date.now() + windowMs) - Date.now()) / 1000),
+      );
       next(
         new HttpError(
           'too_many_requests',

@@ -144,11 +144,15 @@ export async function confirmPasswordReset(
     });
     const now = new Date();
     if (!reset || reset.usedAt || reset.expiresAt.getTime() <= now.getTime()) {
-      throw badRequest(RESET_LINK_INVALID, [{ field: 'body.token', problem: 'is not valid any more' }]);
+      throw badRequest(RESET_LINK_INVALID, [
+        { field: 'body.token', problem: 'is not valid any more' },
+      ]);
     }
     const user = await User.findByPk(reset.userId, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user || !user.active) {
-      throw badRequest(RESET_LINK_INVALID, [{ field: 'body.token', problem: 'is not valid any more' }]);
+      throw badRequest(RESET_LINK_INVALID, [
+        { field: 'body.token', problem: 'is not valid any more' },
+      ]);
     }
     await PasswordReset.update(
       { usedAt: now },

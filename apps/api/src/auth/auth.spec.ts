@@ -85,8 +85,9 @@ describe('/api/auth', () => {
     const good = ctx.auth('admin').Authorization.slice('Bearer '.length);
     const [h, p, s] = good.split('.');
     const payload = JSON.parse(Buffer.from(p!, 'base64url').toString());
-    const forged = Buffer.from(JSON.stringify({ ...payload, sub: String(ctx.users.admin.id + 1) }))
-      .toString('base64url');
+    const forged = Buffer.from(
+      JSON.stringify({ ...payload, sub: String(ctx.users.admin.id + 1) }),
+    ).toString('base64url');
     const none = Buffer.from(JSON.stringify({ alg: 'none', typ: 'JWT' })).toString('base64url');
     const expired = jwt.sign({ ver: 0 }, ctx.config.jwtSecret, {
       algorithm: 'HS256',
@@ -243,15 +244,17 @@ describe('/api/auth', () => {
         .send({ email: 'stranger@test.rhotrace.example' });
       expect(res.status).toBe(202);
       await new Promise((r) => setTimeout(r, 200));
-      expect(ctx.mailbox.slice(before).some((m) => m.to.includes('stranger@test.rhotrace.example')))
-        .toBe(false);
+      expect(
+        ctx.mailbox.slice(before).some((m) => m.to.includes('stranger@test.rhotrace.example')),
+      ).toBe(false);
     });
 
     it('limits reset requests per address and e-mail with 429 and Retry-After', async () => {
       const email = 'limit-me@test.rhotrace.example';
       for (let i = 0; i < 5; i++) {
-        expect((await request(ctx.app).post('/api/auth/password-reset').send({ email })).status)
-          .toBe(202);
+        expect(
+          (await request(ctx.app).post('/api/auth/password-reset').send({ email })).status,
+        ).toBe(202);
       }
       const res = await request(ctx.app).post('/api/auth/password-reset').send({ email });
       expect(res.status).toBe(429);

@@ -57,9 +57,7 @@ export async function assertNotThrottled(keys: string[], now = new Date()): Prom
   const rows = await SignInThrottle.findAll({
     where: { keySha256: { [Op.in]: keys }, lockedUntil: { [Op.gt]: now } },
   });
-  const latest = rows
-    .map((r) => r.lockedUntil!)
-    .sort((a, b) => b.getTime() - a.getTime())[0];
+  const latest = rows.map((r) => r.lockedUntil!).sort((a, b) => b.getTime() - a.getTime())[0];
   if (latest) throw tooManyAttempts(latest, now);
 }
 

@@ -25,7 +25,10 @@ export function signToken(
 }
 
 /** Verifies signature, algorithm, issuer and expiry; returns the user id and token version. */
-export function verifyToken(token: string, secret: string): { userId: number; version: number } | null {
+export function verifyToken(
+  token: string,
+  secret: string,
+): { userId: number; version: number } | null {
   try {
     const claims = jwt.verify(token, secret, {
       algorithms: [TOKEN_ALGORITHM],

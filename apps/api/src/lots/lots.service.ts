@@ -88,7 +88,10 @@ export async function listLots(user: SessionUser, options: LotListOptions): Prom
     limit: options.pageSize,
     offset: (options.page - 1) * options.pageSize,
   });
-  const counts = await waferCounts(user, rows.map((l) => l.id));
+  const counts = await waferCounts(
+    user,
+    rows.map((l) => l.id),
+  );
   return {
     items: rows.map((l) => toLotDto(l, counts.get(l.id) ?? 0)),
     total: count,
@@ -142,7 +145,14 @@ export async function createLot(input: LotInput, actor: Actor): Promise<LotDto> 
       const lot = await Lot.create({ ...input, createdById: actor.id }, { transaction: t });
       const dto = toLotDto(lot, 0);
       await recordAudit(
-        { actorId: actor.id, action: 'create', entity: 'lot', entityId: lot.id, after: dto, requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'create',
+          entity: 'lot',
+          entityId: lot.id,
+          after: dto,
+          requestId: actor.requestId,
+        },
         t,
       );
       return dto;
@@ -153,7 +163,11 @@ export async function createLot(input: LotInput, actor: Actor): Promise<LotDto> 
 }
 
 /** Changes a lot (specMin ≤ specMax checked against the stored values too). */
-export async function updateLot(id: number, changes: Partial<LotInput>, actor: Actor): Promise<LotDto> {
+export async function updateLot(
+  id: number,
+  changes: Partial<LotInput>,
+  actor: Actor,
+): Promise<LotDto> {
   try {
     return await Lot.sequelize!.transaction(async (t) => {
       const lot = await Lot.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
@@ -167,7 +181,15 @@ export async function updateLot(id: number, changes: Partial<LotInput>, actor: A
       const count = await Wafer.count({ where: { lotId: id }, transaction: t });
       const dto = toLotDto(lot, count);
       await recordAudit(
-        { actorId: actor.id, action: 'update', entity: 'lot', entityId: id, before, after: toLotDto(lot), requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'update',
+          entity: 'lot',
+          entityId: id,
+          before,
+          after: toLotDto(lot),
+          requestId: actor.requestId,
+        },
         t,
       );
       return dto;
@@ -196,11 +218,23 @@ export async function deleteLot(id: number, actor: Actor): Promise<void> {
         { sweepCount: sweeps },
       );
     }
-    const audit = (entity: string, entityId: number, before: unknown, after: unknown, action = 'delete') =>
-      recordAudit({ actorId: actor.id, action, entity, entityId, before, after, requestId: actor.requestId }, t);
+    const audit = (
+      entity: string,
+      entityId: number,
+      before: unknown,
+      after: unknown,
+      action = 'delete',
+    ) =>
+      recordAudit(
+        { actorId: actor.id, action, entity, entityId, before, after, requestId: actor.requestId },
+        t,
+      );
     const open = waferIds.length
       ? await Assignment.findAll({
-          where: { waferId: { [Op.in]: waferIds }, state: { [Op.in]: ['assigned', 'in progress'] } },
+          where: {
+            waferId: { [Op.in]: waferIds },
+            state: { [Op.in]: ['assigned', 'in progress'] },
+          },
           transaction: t,
         })
       : [];

@@ -48,7 +48,10 @@ describe('lots and wafers', () => {
   });
 
   const post = (path: string, body: unknown, role: 'admin' | 'engineer' = 'engineer') =>
-    request(ctx.app).post(path).set(ctx.auth(role)).send(body as object);
+    request(ctx.app)
+      .post(path)
+      .set(ctx.auth(role))
+      .send(body as object);
 
   it('creates a lot (201 with id), reads it with waferCount, and writes the audit event', async () => {
     const res = await post('/api/lots', validLot('LOT-A1'));
@@ -58,7 +61,9 @@ describe('lots and wafers', () => {
     const read = await request(ctx.app).get(`/api/lots/${res.body.id}`).set(ctx.auth('physicist'));
     expect(read.status).toBe(200);
     expect(read.body).toEqual(res.body);
-    const events = await AuditEvent.findAll({ where: { entity: 'lot', entityId: String(res.body.id) } });
+    const events = await AuditEvent.findAll({
+      where: { entity: 'lot', entityId: String(res.body.id) },
+    });
     expect(events).toHaveLength(1);
     expect(events[0]!.actorId).toBe(ctx.users.engineer.id);
     expect(events[0]!.requestId).toBe(res.headers['x-request-id']);
@@ -81,16 +86,32 @@ describe('lots and wafers', () => {
     ['thickness zero', { code: 'X5', material: 'Si', thicknessCm: 0 }, 'body.thicknessCm'],
     ['thickness above 1 cm', { code: 'X6', material: 'Si', thicknessCm: 2 }, 'body.thicknessCm'],
     ['negative spec', { code: 'X7', material: 'Si', specMinOhmCm: -1 }, 'body.specMinOhmCm'],
-    ['reversed spec', { code: 'X8', material: 'Si', specMinOhmCm: 5, specMaxOhmCm: 1 }, 'body.specMinOhmCm'],
-    ['impossible date', { code: 'X9', material: 'Si', receivedOn: '2025-02-30' }, 'body.receivedOn'],
+    [
+      'reversed spec',
+      { code: 'X8', material: 'Si', specMinOhmCm: 5, specMaxOhmCm: 1 },
+      'body.specMinOhmCm',
+    ],
+    [
+      'impossible date',
+      { code: 'X9', material: 'Si', receivedOn: '2025-02-30' },
+      'body.receivedOn',
+    ],
     ['not a date', { code: 'X10', material: 'Si', receivedOn: 'yesterday' }, 'body.receivedOn'],
     ['bad dopant type', { code: 'X11', material: 'Si', dopantType: 'x' }, 'body.dopantType'],
     ['bad dopant symbol', { code: 'X12', material: 'Si', dopant: 'boron' }, 'body.dopant'],
     ['oversized code', { code: 'C'.repeat(65), material: 'Si' }, 'body.code'],
-    ['oversized supplier', { code: 'X13', material: 'Si', supplier: 's'.repeat(201) }, 'body.supplier'],
+    [
+      'oversized supplier',
+      { code: 'X13', material: 'Si', supplier: 's'.repeat(201) },
+      'body.supplier',
+    ],
     ['oversized notes', { code: 'X14', material: 'Si', notes: 'n'.repeat(5001) }, 'body.notes'],
     ['blank code', { code: '   ', material: 'Si' }, 'body.code'],
-    ['dopant type on a metal film', { code: 'X15', material: 'W', dopantType: 'n' }, 'body.dopantType'],
+    [
+      'dopant type on a metal film',
+      { code: 'X15', material: 'W', dopantType: 'n' },
+      'body.dopantType',
+    ],
     ['unknown field', { code: 'X16', material: 'Si', colour: 'blue' }, 'body.colour'],
   ])('refuses a lot with %s (400 naming the field)', async (_label, body, field) => {
     const res = await post('/api/lots', body);
@@ -135,9 +156,16 @@ describe('lots and wafers', () => {
       expect(found.body.items.map((l: { id: number }) => l.id)).toContain(res.body.id);
     }
     expect(await Lot.count()).toBeGreaterThan(0); // the table is still there
-    const broken = await post('/api/lots', { code: 'BROKEN', material: 'Si', notes: 'half \uD83E' });
+    const broken = await post('/api/lots', {
+      code: 'BROKEN',
+      material: 'Si',
+      notes: 'half \uD83E',
+    });
     expect(broken.status).toBe(400);
-    expect(broken.body.error.details[0]).toEqual({ field: 'body.notes', problem: 'must be valid Unicode text' });
+    expect(broken.body.error.details[0]).toEqual({
+      field: 'body.notes',
+      problem: 'must be valid Unicode text',
+    });
   });
 
   it('lists lots paginated, filtered and sorted, with bad parameters a 400', async () => {
@@ -156,14 +184,24 @@ describe('lots and wafers', () => {
       .query({ material: 'GaAs', sort: '-code', pageSize: 2, page: 2 })
       .set(ctx.auth('manager'));
     expect(page2.body.items.map((l: { code: string }) => l.code)).toEqual(['LIST-1']);
-    const n = await request(ctx.app).get('/api/lots').query({ dopantType: 'n' }).set(ctx.auth('manager'));
+    const n = await request(ctx.app)
+      .get('/api/lots')
+      .query({ dopantType: 'n' })
+      .set(ctx.auth('manager'));
     expect(n.body.items.every((l: { dopantType: string }) => l.dopantType === 'n')).toBe(true);
-    for (const query of [{ sort: 'passwordHash' }, { pageSize: 201 }, { page: 0 }, { colour: 'red' }]) {
+    for (const query of [
+      { sort: 'passwordHash' },
+      { pageSize: 201 },
+      { page: 0 },
+      { colour: 'red' },
+    ]) {
       const bad = await request(ctx.app).get('/api/lots').query(query).set(ctx.auth('manager'));
       expect(bad.status, JSON.stringify(query)).toBe(400);
     }
     expect((await request(ctx.app).get('/api/lots/abc').set(ctx.auth('admin'))).status).toBe(400);
-    expect((await request(ctx.app).get('/api/lots/999999').set(ctx.auth('admin'))).status).toBe(404);
+    expect((await request(ctx.app).get('/api/lots/999999').set(ctx.auth('admin'))).status).toBe(
+      404,
+    );
   });
 
   it('patches a lot, keeping specMin ≤ specMax against stored values', async () => {
@@ -173,7 +211,11 @@ describe('lots and wafers', () => {
       .set(ctx.auth('manager'))
       .send({ supplier: 'Other Supplier Ltd.', specMaxOhmCm: 30 });
     expect(ok.status).toBe(200);
-    expect(ok.body).toMatchObject({ supplier: 'Other Supplier Ltd.', specMaxOhmCm: 30, specMinOhmCm: 1 });
+    expect(ok.body).toMatchObject({
+      supplier: 'Other Supplier Ltd.',
+      specMaxOhmCm: 30,
+      specMinOhmCm: 1,
+    });
     const bad = await request(ctx.app)
       .patch(`/api/lots/${lot.id}`)
       .set(ctx.auth('manager'))
@@ -211,7 +253,9 @@ describe('lots and wafers', () => {
     expect((await post('/api/lots/999999/wafers', { number: '1' })).status).toBe(404);
     const listed = await request(ctx.app).get(path).set(ctx.auth('physicist'));
     expect(listed.body).toMatchObject({ total: 1, items: [{ number: '1', lotCode: 'LOT-W' }] });
-    expect((await request(ctx.app).get(`/api/lots/${lot.id}`).set(ctx.auth('admin'))).body.waferCount).toBe(1);
+    expect(
+      (await request(ctx.app).get(`/api/lots/${lot.id}`).set(ctx.auth('admin'))).body.waferCount,
+    ).toBe(1);
   });
 
   it('shows technicians only their assigned wafers and those lots; 404 elsewhere', async () => {
@@ -238,7 +282,9 @@ describe('lots and wafers', () => {
     expect((await request(ctx.app).get(`/api/wafers/${w2.id}`).set(header)).status).toBe(404);
     expect((await request(ctx.app).get(`/api/wafers/${w3.id}`).set(header)).status).toBe(404);
     expect((await request(ctx.app).get(`/api/lots/${other.id}`).set(header)).status).toBe(404);
-    expect((await request(ctx.app).get(`/api/lots/${other.id}/wafers`).set(header)).status).toBe(404);
+    expect((await request(ctx.app).get(`/api/lots/${other.id}/wafers`).set(header)).status).toBe(
+      404,
+    );
     const inLot = await request(ctx.app).get(`/api/lots/${mine.id}/wafers`).set(header);
     expect(inLot.body.items.map((w: { id: number }) => w.id)).toEqual([w1.id]);
   });
@@ -265,16 +311,24 @@ describe('lots and wafers', () => {
       maxTemperatureK: null,
       deletedById: null,
     });
-    const refused = await request(ctx.app).delete(`/api/lots/${measured.id}`).set(ctx.auth('admin'));
+    const refused = await request(ctx.app)
+      .delete(`/api/lots/${measured.id}`)
+      .set(ctx.auth('admin'));
     expect(refused.status).toBe(409);
-    expect((await request(ctx.app).delete(`/api/wafers/${wafer.id}`).set(ctx.auth('admin'))).status).toBe(409);
+    expect(
+      (await request(ctx.app).delete(`/api/wafers/${wafer.id}`).set(ctx.auth('admin'))).status,
+    ).toBe(409);
 
     const spare = (await post('/api/lots', validLot('LOT-SPARE'))).body;
     const sw = (await post(`/api/lots/${spare.id}/wafers`, { number: 'S1' })).body;
     const gone = await request(ctx.app).delete(`/api/lots/${spare.id}`).set(ctx.auth('engineer'));
     expect(gone.status).toBe(204);
-    expect((await request(ctx.app).get(`/api/lots/${spare.id}`).set(ctx.auth('admin'))).status).toBe(404);
-    expect((await request(ctx.app).get(`/api/wafers/${sw.id}`).set(ctx.auth('admin'))).status).toBe(404);
+    expect(
+      (await request(ctx.app).get(`/api/lots/${spare.id}`).set(ctx.auth('admin'))).status,
+    ).toBe(404);
+    expect((await request(ctx.app).get(`/api/wafers/${sw.id}`).set(ctx.auth('admin'))).status).toBe(
+      404,
+    );
     const kept = await Lot.findByPk(spare.id, { paranoid: false });
     expect(kept?.deletedAt).toBeInstanceOf(Date);
     const trail = await AuditEvent.findAll({ where: { action: 'delete' } });

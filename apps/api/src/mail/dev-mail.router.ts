@@ -40,7 +40,9 @@ export function devMailRouter(deps: AppDeps): Router {
     const items: DevMailItem[] = [];
     for (const { file, stat } of newest) {
       const parsed = await simpleParser(readFileSync(join(dir, file)));
-      const to = Array.isArray(parsed.to) ? parsed.to.map((a) => a.text).join(', ') : (parsed.to?.text ?? '');
+      const to = Array.isArray(parsed.to)
+        ? parsed.to.map((a) => a.text).join(', ')
+        : (parsed.to?.text ?? '');
       items.push({
         file,
         sizeBytes: stat.size,
@@ -57,13 +59,15 @@ export function devMailRouter(deps: AppDeps): Router {
             `<td><a href="mail/${encodeURIComponent(m.file)}">${escapeHtml(m.subject || '(no subject)')}</a></td></tr>`,
         )
         .join('\n');
-      res.type('html').send(
-        htmlFrame(
-          'Rhotrace dev mail',
-          `<h1>Captured e-mail (development only)</h1><p>${items.length} newest messages from the SMTP stand-in.</p>` +
-            `<table><thead><tr><th align="left">Received</th><th align="left">To</th><th align="left">Subject</th></tr></thead><tbody>${rows}</tbody></table>`,
-        ),
-      );
+      res
+        .type('html')
+        .send(
+          htmlFrame(
+            'Rhotrace dev mail',
+            `<h1>Captured e-mail (development only)</h1><p>${items.length} newest messages from the SMTP stand-in.</p>` +
+              `<table><thead><tr><th align="left">Received</th><th align="left">To</th><th align="left">Subject</th></tr></thead><tbody>${rows}</tbody></table>`,
+          ),
+        );
       return;
     }
     res.json({ items });

@@ -12,7 +12,13 @@ import {
   searchParam,
 } from '../middleware/fields';
 import { parseId, parseOrThrow } from '../middleware/validate';
-import { createStation, deleteStation, getStation, listStations, updateStation } from './stations.service';
+import {
+  createStation,
+  deleteStation,
+  getStation,
+  listStations,
+  updateStation,
+} from './stations.service';
 
 const thermometer = z.enum(THERMOMETERS, {
   errorMap: () => ({ message: `must be one of ${THERMOMETERS.join(', ')}` }),

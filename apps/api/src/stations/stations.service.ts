@@ -24,16 +24,27 @@ export function toStationDto(s: Station): StationDto {
 }
 
 /** Cross-field rules, checked on the merged record: range order, R0 for a platinum RTD. */
-function assertConsistent(s: Pick<StationInput, 'thermometer' | 'rtdR0Ohm' | 'minTemperatureK' | 'maxTemperatureK'>) {
+function assertConsistent(
+  s: Pick<StationInput, 'thermometer' | 'rtdR0Ohm' | 'minTemperatureK' | 'maxTemperatureK'>,
+) {
   const problems = [];
   if (s.minTemperatureK >= s.maxTemperatureK) {
-    problems.push({ field: 'body.minTemperatureK', problem: `must be below maxTemperatureK (${s.maxTemperatureK})` });
+    problems.push({
+      field: 'body.minTemperatureK',
+      problem: `must be below maxTemperatureK (${s.maxTemperatureK})`,
+    });
   }
   if (s.thermometer === 'platinum-rtd' && s.rtdR0Ohm == null) {
-    problems.push({ field: 'body.rtdR0Ohm', problem: 'is required for a platinum RTD (its resistance at 0 °C)' });
+    problems.push({
+      field: 'body.rtdR0Ohm',
+      problem: 'is required for a platinum RTD (its resistance at 0 °C)',
+    });
   }
   if (s.thermometer === 'thermocouple' && s.rtdR0Ohm != null) {
-    problems.push({ field: 'body.rtdR0Ohm', problem: 'applies to a platinum RTD only; leave it null' });
+    problems.push({
+      field: 'body.rtdR0Ohm',
+      problem: 'applies to a platinum RTD only; leave it null',
+    });
   }
   if (problems.length) throw validationFailed('The station fields do not agree', problems);
 }
@@ -67,7 +78,12 @@ export async function listStations(options: StationListOptions): Promise<Page<St
     limit: options.pageSize,
     offset: (options.page - 1) * options.pageSize,
   });
-  return { items: rows.map(toStationDto), total: count, page: options.page, pageSize: options.pageSize };
+  return {
+    items: rows.map(toStationDto),
+    total: count,
+    page: options.page,
+    pageSize: options.pageSize,
+  };
 }
 
 /** One station or 404. */
@@ -85,7 +101,14 @@ export async function createStation(input: StationInput, actor: Actor): Promise<
       const station = await Station.create(input, { transaction: t });
       const dto = toStationDto(station);
       await recordAudit(
-        { actorId: actor.id, action: 'create', entity: 'station', entityId: station.id, after: dto, requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'create',
+          entity: 'station',
+          entityId: station.id,
+          after: dto,
+          requestId: actor.requestId,
+        },
         t,
       );
       return dto;
@@ -110,7 +133,15 @@ export async function updateStation(
       await station.update(changes, { transaction: t });
       const dto = toStationDto(station);
       await recordAudit(
-        { actorId: actor.id, action: 'update', entity: 'station', entityId: id, before, after: dto, requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'update',
+          entity: 'station',
+          entityId: id,
+          before,
+          after: dto,
+          requestId: actor.requestId,
+        },
         t,
       );
       return dto;
@@ -128,7 +159,15 @@ export async function deleteStation(id: number, actor: Actor): Promise<void> {
     const before = toStationDto(station);
     await station.destroy({ transaction: t });
     await recordAudit(
-      { actorId: actor.id, action: 'delete', entity: 'station', entityId: id, before, after: null, requestId: actor.requestId },
+      {
+        actorId: actor.id,
+        action: 'delete',
+        entity: 'station',
+        entityId: id,
+        before,
+        after: null,
+        requestId: actor.requestId,
+      },
       t,
     );
   });

@@ -1,11 +1,30 @@
 import type { Request, Response } from 'express';
-import { ROLES, USER_SORT_FIELDS, type AssigneeDto, type Page, type UserDto } from '@rhotrace/api-types';
+import {
+  ROLES,
+  USER_SORT_FIELDS,
+  type AssigneeDto,
+  type Page,
+  type UserDto,
+} from '@rhotrace/api-types';
 import { z } from 'zod';
 import { passwordField } from '../auth/auth.controller';
 import { actorOf } from '../middleware/actor';
-import { booleanParam, LIMITS, listQuerySchema, requiredText, searchParam } from '../middleware/fields';
+import {
+  booleanParam,
+  LIMITS,
+  listQuerySchema,
+  requiredText,
+  searchParam,
+} from '../middleware/fields';
 import { parseId, parseOrThrow } from '../middleware/validate';
-import { createUser, getUser, listAssignees, listUsers, toUserDto, updateUser } from './users.service';
+import {
+  createUser,
+  getUser,
+  listAssignees,
+  listUsers,
+  toUserDto,
+  updateUser,
+} from './users.service';
 
 const role = z.enum(ROLES, { errorMap: () => ({ message: `must be one of ${ROLES.join(', ')}` }) });
 

@@ -162,7 +162,12 @@ export async function listUsers(options: UserListOptions): Promise<Page<UserDto>
     limit: options.pageSize,
     offset: (options.page - 1) * options.pageSize,
   });
-  return { items: rows.map(toUserDto), total: count, page: options.page, pageSize: options.pageSize };
+  return {
+    items: rows.map(toUserDto),
+    total: count,
+    page: options.page,
+    pageSize: options.pageSize,
+  };
 }
 
 /** Active accounts that can be given an assignment, by name. */

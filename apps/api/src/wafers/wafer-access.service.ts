@@ -9,7 +9,10 @@ import { Wafer } from './wafer.model';
 const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'];
 
 /** Ids of the wafers a technician has been assigned (any state but cancelled). */
-export async function assignedWaferIds(userId: number, transaction?: Transaction): Promise<number[]> {
+export async function assignedWaferIds(
+  userId: number,
+  transaction?: Transaction,
+): Promise<number[]> {
   const rows = await Assignment.findAll({
     attributes: ['waferId'],
     where: { assigneeId: userId, state: { [Op.in]: VISIBLE_ASSIGNMENT_STATES } },

@@ -1,9 +1,21 @@
 import type { Request, Response } from 'express';
-import { MATERIALS, WAFER_SORT_FIELDS, WAFER_STATES, type Page, type WaferDto } from '@rhotrace/api-types';
+import {
+  MATERIALS,
+  WAFER_SORT_FIELDS,
+  WAFER_STATES,
+  type Page,
+  type WaferDto,
+} from '@rhotrace/api-types';
 import { z } from 'zod';
 import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
-import { boundedNumber, LIMITS, listQuerySchema, optionalText, searchParam } from '../middleware/fields';
+import {
+  boundedNumber,
+  LIMITS,
+  listQuerySchema,
+  optionalText,
+  searchParam,
+} from '../middleware/fields';
 import { idParam, parseId, parseOrThrow } from '../middleware/validate';
 import {
   createWafer,
@@ -19,17 +31,20 @@ const state = z.enum(WAFER_STATES, {
 });
 /** A wafer's number in its lot: text up to 32 characters (a whole number is taken as text). */
 const waferNumber = z
-  .union([
-    z.string().max(32, 'must be at most 32 characters'),
-    z.number().int().positive().max(1e9).transform(String),
-  ], {
-    errorMap: (_issue, ctx) => ({
-      message:
-        ctx.data === undefined
-          ? 'is required'
-          : 'must be text of at most 32 characters or a whole number',
-    }),
-  })
+  .union(
+    [
+      z.string().max(32, 'must be at most 32 characters'),
+      z.number().int().positive().max(1e9).transform(String),
+    ],
+    {
+      errorMap: (_issue, ctx) => ({
+        message:
+          ctx.data === undefined
+            ? 'is required'
+            : 'must be text of at most 32 characters or a whole number',
+      }),
+    },
+  )
   .refine((v) => v.trim().length > 0, 'must not be blank');
 
 const fields = {
@@ -53,7 +68,9 @@ const filters = { q: searchParam, state: state.optional() };
 const listQuery = listQuerySchema(WAFER_SORT_FIELDS, {
   ...filters,
   lotId: idParam.optional(),
-  material: z.enum(MATERIALS, { errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }) }).optional(),
+  material: z
+    .enum(MATERIALS, { errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }) })
+    .optional(),
 });
 const lotListQuery = listQuerySchema(WAFER_SORT_FIELDS, filters);
 

@@ -106,7 +106,11 @@ function duplicateNumber(error: unknown, number: string | undefined): never {
 }
 
 /** Adds a wafer to a lot, with its audit event. */
-export async function createWafer(lotId: number, input: WaferInput, actor: Actor): Promise<WaferDto> {
+export async function createWafer(
+  lotId: number,
+  input: WaferInput,
+  actor: Actor,
+): Promise<WaferDto> {
   try {
     return await Wafer.sequelize!.transaction(async (t) => {
       const lot = await Lot.findByPk(lotId, { transaction: t });
@@ -114,7 +118,14 @@ export async function createWafer(lotId: number, input: WaferInput, actor: Actor
       const wafer = await Wafer.create({ ...input, lotId }, { transaction: t });
       const dto = toWaferDto(wafer, lot.code);
       await recordAudit(
-        { actorId: actor.id, action: 'create', entity: 'wafer', entityId: wafer.id, after: dto, requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'create',
+          entity: 'wafer',
+          entityId: wafer.id,
+          after: dto,
+          requestId: actor.requestId,
+        },
         t,
       );
       return dto;
@@ -139,7 +150,15 @@ export async function updateWafer(
       await wafer.update(changes, { transaction: t });
       const dto = toWaferDto(wafer, lot.code);
       await recordAudit(
-        { actorId: actor.id, action: 'update', entity: 'wafer', entityId: id, before, after: dto, requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'update',
+          entity: 'wafer',
+          entityId: id,
+          before,
+          after: dto,
+          requestId: actor.requestId,
+        },
         t,
       );
       return dto;
@@ -156,9 +175,12 @@ export async function deleteWafer(id: number, actor: Actor): Promise<void> {
     if (!wafer) throw notFound(`Wafer ${id}`);
     const sweeps = await Sweep.count({ where: { waferId: id }, transaction: t });
     if (sweeps > 0) {
-      throw conflict(`Wafer ${wafer.number} has been measured (${sweeps} sweeps); it cannot be deleted`, {
-        sweepCount: sweeps,
-      });
+      throw conflict(
+        `Wafer ${wafer.number} has been measured (${sweeps} sweeps); it cannot be deleted`,
+        {
+          sweepCount: sweeps,
+        },
+      );
     }
     const open = await Assignment.findAll({
       where: { waferId: id, state: { [Op.in]: ['assigned', 'in progress'] } },
@@ -168,14 +190,30 @@ export async function deleteWafer(id: number, actor: Actor): Promise<void> {
       const before = a.toJSON();
       await a.update({ state: 'cancelled' }, { transaction: t });
       await recordAudit(
-        { actorId: actor.id, action: 'update', entity: 'assignment', entityId: a.id, before, after: a.toJSON(), requestId: actor.requestId },
+        {
+          actorId: actor.id,
+          action: 'update',
+          entity: 'assignment',
+          entityId: a.id,
+          before,
+          after: a.toJSON(),
+          requestId: actor.requestId,
+        },
         t,
       );
     }
     const before = toWaferDto(wafer);
     await wafer.destroy({ transaction: t });
     await recordAudit(
-      { actorId: actor.id, action: 'delete', entity: 'wafer', entityId: id, before, after: null, requestId: actor.requestId },
+      {
+        actorId: actor.id,
+        action: 'delete',
+        entity: 'wafer',
+        entityId: id,
+        before,
+        after: null,
+        requestId: actor.requestId,
+      },
       t,
     );
   });
