@@ -1,5 +1,9 @@
 import type { Routes } from '@angular/router';
 
 export const ANALYSIS_ROUTES: Routes = [
-  { path: '', loadComponent: () => import('./sweep-study').then((m) => m.SweepStudy) },
+  {
+    path: ':id',
+    title: 'Sweep study · Rhotrace',
+    loadComponent: () => import('./sweep-study/sweep-study').then((m) => m.SweepStudy),
+  },
 ];

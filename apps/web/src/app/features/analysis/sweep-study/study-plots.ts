@@ -1,0 +1,167 @@
+import type { AnalysisStep, ArrheniusPoint, FitDto, ModelCurveResponse } from '@rhotrace/api-types';
+import { PLOT_ROLES } from '../../../shared/plot/palette';
+
+/** Temperature axis unit of the curve plot. */
+export type TemperatureUnit = 'K' | 'C';
+
+/** Plotly figure: traces and layout. */
+export interface Figure {
+  data: unknown[];
+  layout: Record<string, unknown>;
+}
+
+const toAxis = (unit: TemperatureUnit) => (k: number) => (unit === 'K' ? k : k - 273.15);
+
+/** Measured steps (with their spread) over the model curve, log resistivity axis. */
+export function curveFigure(steps: AnalysisStep[], model: ModelCurveResponse | null, unit: TemperatureUnit): Figure {
+  const x = toAxis(unit);
+  const data: unknown[] = [
+    {
+      type: steps.length > 2000 ? 'scattergl' : 'scatter',
+      mode: 'markers',
+      name: 'measured',
+      x: steps.map((s) => x(s.temperatureK)),
+      y: steps.map((s) => s.resistivityOhmCm),
+      error_y: { type: 'data', array: steps.map((s) => s.spreadOhmCm), visible: true, color: PLOT_ROLES.measured, thickness: 1 },
+      marker: { color: PLOT_ROLES.measured, size: 6 },
+      hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.4g} Ω·cm<extra>measured</extra>`,
+    },
+  ];
+  if (model) {
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: 'model',
+      x: model.points.map((p) => x(p.temperatureK)),
+      y: model.points.map((p) => p.resistivityOhmCm),
+      line: { color: PLOT_ROLES.model, width: 2.5, dash: 'solid' },
+    });
+  }
+  const shapes: unknown[] = [];
+  if (model?.kind === 'semiconductor') {
+    for (const [k, label] of [
+      [model.boundaries.freezeOutBelowK, 'freeze-out'],
+      [model.boundaries.intrinsicAboveK, 'intrinsic'],
+    ] as const) {
+      if (k === null) continue;
+      shapes.push({ type: 'line', yref: 'paper', y0: 0, y1: 1, x0: x(k), x1: x(k), line: { color: PLOT_ROLES.window, dash: 'dot', width: 1.5 }, name: label });
+    }
+  }
+  return {
+    data,
+    layout: {
+      shapes,
+      xaxis: { title: { text: unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)' } },
+      yaxis: { title: { text: 'Resistivity (Ω·cm)' }, type: 'log', exponentformat: 'power' },
+    },
+  };
+}
+
+/** Model resistivity at temperature `k`, interpolated in log ρ between the curve's points. */
+export function modelAt(model: ModelCurveResponse, k: number): number | null {
+  const points = model.points;
+  for (let i = 1; i < points.length; i++) {
+    const a = points[i - 1]!;
+    const b = points[i]!;
+    if (k >= a.temperatureK && k <= b.temperatureK) {
+      if (!a.resistivityOhmCm || !b.resistivityOhmCm) return null;
+      const t = (k - a.temperatureK) / (b.temperatureK - a.temperatureK || 1);
+      return Math.exp(Math.log(a.resistivityOhmCm) * (1 - t) + Math.log(b.resistivityOhmCm) * t);
+    }
+  }
+  return null;
+}
+
+/** Residuals ln(ρ measured / ρ model) at each measured step inside the model's range. */
+export function residualFigure(steps: AnalysisStep[], model: ModelCurveResponse | null, unit: TemperatureUnit): Figure | null {
+  if (!model) return null;
+  const x = toAxis(unit);
+  const xs: number[] = [];
+  const ys: number[] = [];
+  for (const s of steps) {
+    const m = modelAt(model, s.temperatureK);
+    if (m === null || m <= 0) continue;
+    xs.push(x(s.temperatureK));
+    ys.push(Math.log(s.resistivityOhmCm / m));
+  }
+  return {
+    data: [{ type: 'scatter', mode: 'markers', name: 'residual', x: xs, y: ys, marker: { color: PLOT_ROLES.measured, size: 5 } }],
+    layout: {
+      showlegend: false,
+      margin: { l: 70, r: 20, t: 10, b: 48 },
+      xaxis: { title: { text: unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)' } },
+      yaxis: { title: { text: 'ln(ρ measured / ρ model)' }, zeroline: true },
+    },
+  };
+}
+
+/** Arrhenius plot: ln ρ (or ln σ) against 1000/T, the chosen window shaded, the fit line drawn. */
+export function arrheniusFigure(
+  points: ArrheniusPoint[],
+  quantity: 'resistivity' | 'conductivity',
+  window: { minK: number; maxK: number } | null,
+  fit: FitDto | null,
+): Figure {
+  const y = (p: ArrheniusPoint) => (quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity);
+  const data: unknown[] = [
+    {
+      type: points.length > 2000 ? 'scattergl' : 'scatter',
+      mode: 'markers',
+      name: quantity === 'resistivity' ? 'ln ρ' : 'ln σ',
+      x: points.map((p) => p.inverseTemperaturePerKK),
+      y: points.map(y),
+      marker: { color: PLOT_ROLES.measured, size: 6 },
+    },
+  ];
+  const shapes: unknown[] = [];
+  if (window) {
+    shapes.push({
+      type: 'rect', yref: 'paper', y0: 0, y1: 1, x0: 1000 / window.maxK, x1: 1000 / window.minK,
+      fillcolor: PLOT_ROLES.window, opacity: 0.15, line: { width: 0 }, layer: 'below',
+    });
+  }
+  const line = fit ? fitLine(points, quantity, fit) : null;
+  if (line) {
+    data.push({ type: 'scatter', mode: 'lines', name: 'fit', x: line.x, y: line.y, line: { color: PLOT_ROLES.fit, width: 3 } });
+  }
+  return {
+    data,
+    layout: {
+      shapes,
+      xaxis: { title: { text: '1000 / T (1/kK)' } },
+      yaxis: { title: { text: quantity === 'resistivity' ? 'ln(ρ / Ω·cm)' : 'ln(σ · Ω·cm)' } },
+    },
+  };
+}
+
+/** The fitted line over the window: through the mean of the window's points with the fit's slope. */
+function fitLine(points: ArrheniusPoint[], quantity: 'resistivity' | 'conductivity', fit: FitDto): { x: number[]; y: number[] } | null {
+  if (fit.kind !== 'arrhenius' || fit.windowMinK === null || fit.windowMaxK === null) return null;
+  const slope = slopeOf(fit);
+  if (slope === null) return null;
+  const lo = 1000 / fit.windowMaxK;
+  const hi = 1000 / fit.windowMinK;
+  const inside = points.filter((p) => p.inverseTemperaturePerKK >= lo && p.inverseTemperaturePerKK <= hi);
+  if (inside.length === 0) return null;
+  const y = (p: ArrheniusPoint) => (quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity);
+  const mx = inside.reduce((s, p) => s + p.inverseTemperaturePerKK, 0) / inside.length;
+  const my = inside.reduce((s, p) => s + y(p), 0) / inside.length;
+  return { x: [lo, hi], y: [my + slope * (lo - mx), my + slope * (hi - mx)] };
+}
+
+/** Boltzmann constant in eV/K (CODATA 2018, exact). */
+const BOLTZMANN_EV_PER_K = 8.617333262e-5;
+
+/**
+ * Slope of ln ρ against 1000/T implied by an Arrhenius fit, for drawing only: an explicit
+ * slope parameter when the fit gives one, else ±Ea / (1000 k_B).
+ */
+function slopeOf(fit: FitDto): number | null {
+  const p = fit.parameters;
+  const explicit = p['slope'] ?? p['slopePerKK'];
+  if (typeof explicit === 'number') return explicit;
+  const ea = p['activationEnergyEv'];
+  if (typeof ea !== 'number') return null;
+  const sign = fit.inputs['quantity'] === 'conductivity' ? -1 : 1;
+  return (sign * ea) / (1000 * BOLTZMANN_EV_PER_K);
+}
