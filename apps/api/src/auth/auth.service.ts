@@ -16,6 +16,7 @@ import {
   clearFailures,
   recordFailure,
   throttleKeys,
+  withAccountTurn,
 } from './sign-in-throttle.service';
 import { signToken } from './token.service';
 
@@ -44,16 +45,23 @@ export async function login(
 ): Promise<LoginResponse> {
   const email = normaliseEmail(input.email);
   const keys = throttleKeys(email, address);
-  await assertNotThrottled([keys.account, keys.address]);
-  const user = await User.findOne({ where: { email } });
-  const matches = await bcrypt.compare(input.password, user?.passwordHash ?? (await dummy()));
-  if (!user || !matches) {
-    await recordFailure(keys.account, ACCOUNT_POLICY);
+  const user = await withAccountTurn(keys.account, async (t) => {
+    const now = new Date();
+    await assertNotThrottled([keys.account, keys.address], now, t);
+    const found = await User.findOne({ where: { email }, transaction: t });
+    const matches = await bcrypt.compare(input.password, found?.passwordHash ?? (await dummy()));
+    if (!found || !matches) {
+      await recordFailure(keys.account, ACCOUNT_POLICY, now, t);
+      return null;
+    }
+    await clearFailures(keys.account, t);
+    return found;
+  });
+  if (!user) {
     await recordFailure(keys.address, ADDRESS_POLICY);
     throw unauthenticated(SIGN_IN_FAILED);
   }
   if (!user.active) throw unauthenticated(SIGN_IN_FAILED);
-  await clearFailures(keys.account);
   const { token, expiresAt } = signToken(user, config.jwtSecret, config.tokenTtlS);
   return { token, expiresAt, user: session(user) };
 }

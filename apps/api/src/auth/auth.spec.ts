@@ -150,6 +150,15 @@ describe('/api/auth', () => {
     expect((await login('admin@test.rhotrace.example', TEST_PASSWORD)).status).toBe(200);
   });
 
+  it('makes parallel attempts on one account take turns, so a burst cannot skip the count', async () => {
+    const email = 'manager@test.rhotrace.example';
+    const results = await Promise.all(
+      Array.from({ length: 8 }, () => login(email, 'wrong-password')),
+    );
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses).toEqual([401, 401, 401, 429, 429, 429, 429, 429]);
+  });
+
   it('slows an address that fails across many accounts', async () => {
     for (let i = 0; i < 20; i++) {
       expect((await login(`guess${i}@test.rhotrace.example`, 'wrong-password')).status).toBe(401);

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { HttpError } from '../errors';
 import { SignInThrottle } from '../users/user.model';
 
@@ -53,9 +53,14 @@ export function tooManyAttempts(until: Date, now = new Date()): HttpError {
 }
 
 /** Throws a 429 when any of the keys is currently slowed or locked. */
-export async function assertNotThrottled(keys: string[], now = new Date()): Promise<void> {
+export async function assertNotThrottled(
+  keys: string[],
+  now = new Date(),
+  transaction?: Transaction,
+): Promise<void> {
   const rows = await SignInThrottle.findAll({
     where: { keySha256: { [Op.in]: keys }, lockedUntil: { [Op.gt]: now } },
+    transaction,
   });
   const latest = rows.map((r) => r.lockedUntil!).sort((a, b) => b.getTime() - a.getTime())[0];
   if (latest) throw tooManyAttempts(latest, now);
@@ -69,14 +74,10 @@ export async function recordFailure(
   key: string,
   policy: ThrottlePolicy,
   now = new Date(),
+  transaction?: Transaction,
 ): Promise<void> {
-  await SignInThrottle.sequelize!.transaction(async (t) => {
-    await SignInThrottle.bulkCreate(
-      [{ keySha256: key, failures: 0, firstFailureAt: now, lockedUntil: null }],
-      { ignoreDuplicates: true, transaction: t },
-    );
-    const row = await SignInThrottle.findByPk(key, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!row) return;
+  const work = async (t: Transaction) => {
+    const row = await lockKey(key, t);
     const expired = now.getTime() - row.firstFailureAt.getTime() > policy.windowS * 1000;
     const lockOver = !row.lockedUntil || row.lockedUntil.getTime() <= now.getTime();
     const failures = expired && lockOver ? 1 : row.failures + 1;
@@ -93,10 +94,49 @@ export async function recordFailure(
       },
       { transaction: t },
     );
+  };
+  if (transaction) return work(transaction);
+  await ensureRow(key);
+  await SignInThrottle.sequelize!.transaction(work);
+}
+
+/**
+ * Makes sure `key` has a row, outside any transaction (concurrent INSERT IGNOREs inside
+ * transactions deadlock on the gap lock); rows are reset, never deleted, so it stays there.
+ */
+async function ensureRow(key: string): Promise<void> {
+  await SignInThrottle.bulkCreate(
+    [{ keySha256: key, failures: 0, firstFailureAt: new Date(), lockedUntil: null }],
+    { ignoreDuplicates: true },
+  );
+}
+
+/** Locks the row of `key` for the rest of `t` (after `ensureRow`). */
+async function lockKey(key: string, t: Transaction): Promise<SignInThrottle> {
+  const row = await SignInThrottle.findByPk(key, { transaction: t, lock: t.LOCK.UPDATE });
+  if (!row) throw new Error('sign-in throttle row is missing');
+  return row;
+}
+
+/**
+ * Runs one sign-in attempt of an account while holding its throttle row's lock, so parallel
+ * attempts (from any API process) take turns and each sees the count the previous one left.
+ */
+export async function withAccountTurn<T>(
+  key: string,
+  attempt: (t: Transaction) => Promise<T>,
+): Promise<T> {
+  await ensureRow(key);
+  return SignInThrottle.sequelize!.transaction(async (t) => {
+    await lockKey(key, t);
+    return attempt(t);
   });
 }
 
 /** Forgets the failures of `key` (after a successful sign-in of that account). */
-export async function clearFailures(key: string): Promise<void> {
-  await SignInThrottle.destroy({ where: { keySha256: key } });
+export async function clearFailures(key: string, transaction?: Transaction): Promise<void> {
+  await SignInThrottle.update(
+    { failures: 0, lockedUntil: null, firstFailureAt: new Date() },
+    { where: { keySha256: key }, transaction },
+  );
 }
