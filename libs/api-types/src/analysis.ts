@@ -74,8 +74,23 @@ export interface SourceDto {
 export interface SemiconductorMaterialDto {
   id: string;
   name: string;
-  bandGap: { eg0Ev: number; alphaEvPerK: number; betaK: number; fittedRangeK: [number, number]; source: SourceDto };
-  densityOfStatesSets: Array<{ id: string; description: string; nc300: number; ncExponent: number; nv300: number; nvExponent: number; source: SourceDto; isDefault: boolean }>;
+  bandGap: {
+    eg0Ev: number;
+    alphaEvPerK: number;
+    betaK: number;
+    fittedRangeK: [number, number];
+    source: SourceDto;
+  };
+  densityOfStatesSets: Array<{
+    id: string;
+    description: string;
+    nc300: number;
+    ncExponent: number;
+    nv300: number;
+    nvExponent: number;
+    source: SourceDto;
+    isDefault: boolean;
+  }>;
   mobilityModels: Array<{ id: string; parameters: unknown; source: SourceDto; isDefault: boolean }>;
   donors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   acceptors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
@@ -189,7 +204,9 @@ export type FitRequest =
       kind: 'model';
       material?: string;
       initial: DopingInput & { mobilityScale?: number };
-      free: Array<'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel' | 'mobilityScale'>;
+      free: Array<
+        'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel' | 'mobilityScale'
+      >;
       minK?: number;
       maxK?: number;
     }

@@ -29,9 +29,21 @@ beforeAll(async () => {
 afterAll(async () => ctx.close());
 
 type Row = [string, 'get' | 'post', (i: typeof ids) => string, unknown, Record<Role, number>];
-const all = (s: number): Record<Role, number> => ({ admin: s, manager: s, engineer: s, physicist: s, technician: s });
+const all = (s: number): Record<Role, number> => ({
+  admin: s,
+  manager: s,
+  engineer: s,
+  physicist: s,
+  technician: s,
+});
 const hidden = (s: number): Record<Role, number> => ({ ...all(s), technician: 404 });
-const curve = { material: 'Si', doping: { donorDensity: 1e15, acceptorDensity: 0 }, fromK: 100, toK: 400, steps: 10 };
+const curve = {
+  material: 'Si',
+  doping: { donorDensity: 1e15, acceptorDensity: 0 },
+  fromK: 100,
+  toK: 400,
+  steps: 10,
+};
 const tcr = { kind: 'tcr' };
 
 const table: Row[] = [
@@ -42,14 +54,32 @@ const table: Row[] = [
   ['fit list, unassigned', 'get', (i) => `/api/sweeps/${i.open}/fits`, null, hidden(200)],
   ['fit list, assigned', 'get', (i) => `/api/sweeps/${i.assigned}/fits`, null, all(200)],
   ['fits csv, unassigned', 'get', (i) => `/api/sweeps/${i.open}/fits.csv`, null, hidden(200)],
-  ['run fit, unassigned', 'post', (i) => `/api/sweeps/${i.open}/fits`, tcr, { ...all(201), technician: 403 }],
-  ['run fit, assigned', 'post', (i) => `/api/sweeps/${i.assigned}/fits`, tcr, { ...all(201), technician: 403 }],
+  [
+    'run fit, unassigned',
+    'post',
+    (i) => `/api/sweeps/${i.open}/fits`,
+    tcr,
+    { ...all(201), technician: 403 },
+  ],
+  [
+    'run fit, assigned',
+    'post',
+    (i) => `/api/sweeps/${i.assigned}/fits`,
+    tcr,
+    { ...all(201), technician: 403 },
+  ],
   ['dopant, unassigned', 'get', (i) => `/api/wafers/${i.openWafer}/dopant`, null, hidden(200)],
   ['dopant, assigned', 'get', (i) => `/api/wafers/${i.assignedWafer}/dopant`, null, all(200)],
   ['lot summary, unassigned', 'get', (i) => `/api/lots/${i.openLot}/summary`, null, hidden(200)],
   ['lot summary, assigned', 'get', (i) => `/api/lots/${i.assignedLot}/summary`, null, all(200)],
   ['lot csv, unassigned', 'get', (i) => `/api/lots/${i.openLot}/summary.csv`, null, hidden(200)],
-  ['compare, unassigned', 'get', (i) => `/api/compare?sweeps=${i.open},${i.assigned}`, null, hidden(200)],
+  [
+    'compare, unassigned',
+    'get',
+    (i) => `/api/compare?sweeps=${i.open},${i.assigned}`,
+    null,
+    hidden(200),
+  ],
   ['compare, assigned', 'get', (i) => `/api/compare?sweeps=${i.assigned}`, null, all(200)],
   ['report, unassigned', 'get', (i) => `/api/sweeps/${i.open}/report`, null, hidden(200)],
   ['report, assigned', 'get', (i) => `/api/sweeps/${i.assigned}/report`, null, all(200)],
@@ -73,7 +103,10 @@ describe('analysis routes by role', () => {
 
 describe('deleting a fit by role', () => {
   const fitBy = async (role: Role) => {
-    const res = await request(ctx.app).post(`/api/sweeps/${ids.assigned}/fits`).set(ctx.auth(role)).send(tcr);
+    const res = await request(ctx.app)
+      .post(`/api/sweeps/${ids.assigned}/fits`)
+      .set(ctx.auth(role))
+      .send(tcr);
     expect(res.status).toBe(201);
     return res.body.id as number;
   };
@@ -88,16 +121,22 @@ describe('deleting a fit by role', () => {
     ['engineer', 'physicist', 403],
     ['physicist', 'engineer', 403],
     ['technician', 'engineer', 403],
-  ] as Array<[Role, Role, number]>)('%s deleting a fit saved by %s → %i', async (who, owner, status) => {
-    const id = await fitBy(owner);
-    expect((await del(id, ctx.auth(who))).status).toBe(status);
-  });
+  ] as Array<[Role, Role, number]>)(
+    '%s deleting a fit saved by %s → %i',
+    async (who, owner, status) => {
+      const id = await fitBy(owner);
+      expect((await del(id, ctx.auth(who))).status).toBe(status);
+    },
+  );
 
   it('another engineer may not delete an engineer’s fit; a technician not assigned gets 404', async () => {
     const other = await ctx.addUser('engineer');
     const id = await fitBy('engineer');
     expect((await del(id, other.header)).status).toBe(403);
-    const res = await request(ctx.app).post(`/api/sweeps/${ids.open}/fits`).set(ctx.auth('engineer')).send(tcr);
+    const res = await request(ctx.app)
+      .post(`/api/sweeps/${ids.open}/fits`)
+      .set(ctx.auth('engineer'))
+      .send(tcr);
     expect((await del(res.body.id as number, ctx.auth('technician'))).status).toBe(404);
   });
 });

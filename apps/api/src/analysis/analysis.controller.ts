@@ -119,10 +119,7 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
     ],
     rows,
   );
-  res
-    .type('text/csv; charset=utf-8')
-    .attachment(`lot-${s.lot.id}-summary.csv`)
-    .send(csv);
+  res.type('text/csv; charset=utf-8').attachment(`lot-${s.lot.id}-summary.csv`).send(csv);
 }
 
 const compareSchema = z.object({
@@ -137,13 +134,19 @@ export async function getCompare(req: Request, res: Response): Promise<void> {
   const ids = parts.map(Number);
   if (parts.some((p, i) => !/^\d+$/.test(p) || !Number.isSafeInteger(ids[i]) || ids[i]! <= 0)) {
     throw badRequest('sweeps must be a comma-separated list of sweep ids', [
-      { field: 'query.sweeps', problem: 'must be a comma-separated list of positive whole numbers' },
+      {
+        field: 'query.sweeps',
+        problem: 'must be a comma-separated list of positive whole numbers',
+      },
     ]);
   }
   const unique = [...new Set(ids)];
   if (unique.length > MAX_COMPARE_SWEEPS) {
     throw badRequest(`At most ${MAX_COMPARE_SWEEPS} sweeps can be compared`, [
-      { field: 'query.sweeps', problem: `lists ${unique.length} sweeps; at most ${MAX_COMPARE_SWEEPS}` },
+      {
+        field: 'query.sweeps',
+        problem: `lists ${unique.length} sweeps; at most ${MAX_COMPARE_SWEEPS}`,
+      },
     ]);
   }
   res.json(await compareSweeps(currentUser(req), unique, q.points));

@@ -11,14 +11,15 @@ import { notFound, unprocessable } from '../errors';
 import { Sweep } from '../sweeps/sweep.model';
 import { visibleWafer } from '../wafers/wafer-access.service';
 import { temperatureGrid, isMetal } from './model.service';
-import { interpolateWithin, specCheck, specVerdict, valueAt23C, type ValueAt23C } from './spec-check';
-import { suggestWindows } from './suggested-windows';
 import {
-  averageSteps,
-  sweepReadings,
-  sweepSummary,
-  visibleSweep,
-} from './sweep-data.service';
+  interpolateWithin,
+  specCheck,
+  specVerdict,
+  valueAt23C,
+  type ValueAt23C,
+} from './spec-check';
+import { suggestWindows } from './suggested-windows';
+import { averageSteps, sweepReadings, sweepSummary, visibleSweep } from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {
@@ -30,7 +31,10 @@ export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusP
 }
 
 /** `GET /api/sweeps/:id/analysis`. */
-export async function sweepAnalysis(user: SessionUser, sweepId: number): Promise<SweepAnalysisResponse> {
+export async function sweepAnalysis(
+  user: SessionUser,
+  sweepId: number,
+): Promise<SweepAnalysisResponse> {
   const v = await visibleSweep(user, sweepId);
   const { points, skipped } = await sweepReadings(sweepId);
   const steps = averageSteps(points);
@@ -58,7 +62,8 @@ export async function waferValueAt23C(
   for (const sweep of sweeps) {
     const { points } = await sweepReadings(sweep.id);
     const value = valueAt23C(averageSteps(points));
-    if (value.resistivityOhmCm !== null) return { sweepId: sweep.id, value, sweepCount: sweeps.length };
+    if (value.resistivityOhmCm !== null)
+      return { sweepId: sweep.id, value, sweepCount: sweeps.length };
     firstMiss ??= value;
   }
   return {
@@ -82,7 +87,10 @@ export function f723Dopant(dopant: string | null): F723Dopant | null {
 }
 
 /** `GET /api/wafers/:id/dopant`. */
-export async function waferDopant(user: SessionUser, waferId: number): Promise<DopantDensityResponse> {
+export async function waferDopant(
+  user: SessionUser,
+  waferId: number,
+): Promise<DopantDensityResponse> {
   const { wafer, lot } = await visibleWafer(user, waferId);
   const found = await waferValueAt23C(wafer.id);
   if (found.sweepCount === 0) throw notFound(`A sweep of wafer ${wafer.number}`);
@@ -92,9 +100,10 @@ export async function waferDopant(user: SessionUser, waferId: number): Promise<D
       `No sweep of wafer ${wafer.number} gives a resistivity at 23 °C: ${found.value.reason}`,
     );
   }
-  const where = found.value.method === 'interpolated'
-    ? `interpolated at 23 °C (nearest step ${found.value.distanceK!.toFixed(2)} K away)`
-    : `nearest step, ${found.value.distanceK!.toFixed(2)} K from 23 °C`;
+  const where =
+    found.value.method === 'interpolated'
+      ? `interpolated at 23 °C (nearest step ${found.value.distanceK!.toFixed(2)} K away)`
+      : `nearest step, ${found.value.distanceK!.toFixed(2)} K from 23 °C`;
   const verdict = specVerdict(rho, lot.specMinOhmCm, lot.specMaxOhmCm);
   const base = {
     waferId: wafer.id,
@@ -125,7 +134,9 @@ export async function waferDopant(user: SessionUser, waferId: number): Promise<D
     density = siliconDopantFromResistivity(dopant, rho);
   } catch (error) {
     if (error instanceof RangeError) {
-      throw unprocessable(`The resistivity at 23 °C is outside ASTM F723's range: ${error.message}`);
+      throw unprocessable(
+        `The resistivity at 23 °C is outside ASTM F723's range: ${error.message}`,
+      );
     }
     throw error;
   }

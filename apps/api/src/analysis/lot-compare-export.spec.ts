@@ -15,15 +15,35 @@ const around23C = range(291, 301, 11);
 
 describe('GET /api/lots/:id/summary', () => {
   it('gives per-wafer rho at 23 °C, pass/fail, statistics and a hand-checked Cpk', async () => {
-    const { lot, wafers } = await makeLot({ specMinOhmCm: 8, specMaxOhmCm: 13 }, ['W01', 'W02', 'W03', 'W04', 'W05']);
+    const { lot, wafers } = await makeLot({ specMinOhmCm: 8, specMaxOhmCm: 13 }, [
+      'W01',
+      'W02',
+      'W03',
+      'W04',
+      'W05',
+    ]);
     const values = [9, 10, 11, 10];
     for (let i = 0; i < 4; i += 1) {
-      await makeSweep(wafers[i]!.id, ctx.users.engineer.id, synthesize(around23C, flat(values[i]!)));
+      await makeSweep(
+        wafers[i]!.id,
+        ctx.users.engineer.id,
+        synthesize(around23C, flat(values[i]!)),
+      );
     }
     // W05 has no sweep: listed without a value and left out of the statistics. W02's second
     // sweep (350-650 K) does not reach 23 °C, so its first sweep gives the value.
     const fit = await request(ctx.app)
-      .post(`/api/sweeps/${(await makeSweep(wafers[1]!.id, ctx.users.engineer.id, synthesize(range(350, 650, 31), (t) => Math.exp(3000 / t)))).id}/fits`)
+      .post(
+        `/api/sweeps/${
+          (
+            await makeSweep(
+              wafers[1]!.id,
+              ctx.users.engineer.id,
+              synthesize(range(350, 650, 31), (t) => Math.exp(3000 / t)),
+            )
+          ).id
+        }/fits`,
+      )
       .set(ctx.auth('engineer'))
       .send({ kind: 'arrhenius', minK: 350, maxK: 650, regime: 'intrinsic' });
     expect(fit.status).toBe(201);
@@ -52,20 +72,38 @@ describe('GET /api/lots/:id/summary', () => {
   });
 
   it('gives no Cpk, with the reason, for one wafer or zero spread', () => {
-    expect(processCapability([10], 8, 13)).toEqual({ cpk: null, reason: expect.stringMatching(/at least 2/) });
-    expect(processCapability([10, 10, 10], 8, 13)).toEqual({ cpk: null, reason: expect.stringMatching(/standard deviation is 0/) });
+    expect(processCapability([10], 8, 13)).toEqual({
+      cpk: null,
+      reason: expect.stringMatching(/at least 2/),
+    });
+    expect(processCapability([10, 10, 10], 8, 13)).toEqual({
+      cpk: null,
+      reason: expect.stringMatching(/standard deviation is 0/),
+    });
     expect(processCapability([9, 11], null, null).cpk).toBeNull();
     // one-sided: only USL 13; values 9 and 11 -> mean 10, s = sqrt(2), Cpk = 3 / (3 sqrt 2) = 0.7071
     expect(processCapability([9, 11], null, 13).cpk).toBeCloseTo(1 / Math.sqrt(2), 9);
   });
 
   it('neutralises formula-like text cells in the CSV export', async () => {
-    const { lot, wafers } = await makeLot({ specMinOhmCm: 1, specMaxOhmCm: 100 }, ['=1+2', '@SUM(A1)', '-cmd', '+x', 'W09']);
-    for (const w of wafers) await makeSweep(w.id, ctx.users.admin.id, synthesize(around23C, flat(20)));
-    const res = await request(ctx.app).get(`/api/lots/${lot.id}/summary.csv`).set(ctx.auth('admin'));
+    const { lot, wafers } = await makeLot({ specMinOhmCm: 1, specMaxOhmCm: 100 }, [
+      '=1+2',
+      '@SUM(A1)',
+      '-cmd',
+      '+x',
+      'W09',
+    ]);
+    for (const w of wafers)
+      await makeSweep(w.id, ctx.users.admin.id, synthesize(around23C, flat(20)));
+    const res = await request(ctx.app)
+      .get(`/api/lots/${lot.id}/summary.csv`)
+      .set(ctx.auth('admin'));
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
-    const rows = res.text.trim().split('\r\n').map((r) => r.split(','));
+    const rows = res.text
+      .trim()
+      .split('\r\n')
+      .map((r) => r.split(','));
     expect(rows[0]![0]).toBe('lot');
     const names = rows.slice(1, 6).map((r) => r[1]);
     expect(names).toEqual(expect.arrayContaining(["'=1+2", "'@SUM(A1)", "'-cmd", "'+x", 'W09']));
@@ -78,9 +116,19 @@ describe('GET /api/compare', () => {
   it('puts sweeps of different lots on one grid, null outside each range', async () => {
     const a = await makeLot();
     const b = await makeLot({ material: 'Ge', dopant: 'Ga', dopantType: 'p' });
-    const s1 = await makeSweep(a.wafers[0]!.id, ctx.users.admin.id, synthesize(range(100, 300, 21), (t) => t / 100));
-    const s2 = await makeSweep(b.wafers[0]!.id, ctx.users.admin.id, synthesize(range(200, 400, 21), flat(3)));
-    const res = await request(ctx.app).get(`/api/compare?sweeps=${s1.id},${s2.id}&points=31`).set(ctx.auth('physicist'));
+    const s1 = await makeSweep(
+      a.wafers[0]!.id,
+      ctx.users.admin.id,
+      synthesize(range(100, 300, 21), (t) => t / 100),
+    );
+    const s2 = await makeSweep(
+      b.wafers[0]!.id,
+      ctx.users.admin.id,
+      synthesize(range(200, 400, 21), flat(3)),
+    );
+    const res = await request(ctx.app)
+      .get(`/api/compare?sweeps=${s1.id},${s2.id}&points=31`)
+      .set(ctx.auth('physicist'));
     expect(res.status).toBe(200);
     expect(res.body.temperaturesK).toHaveLength(31);
     expect(res.body.temperaturesK[0]).toBe(100);
@@ -94,7 +142,9 @@ describe('GET /api/compare', () => {
     expect(c2.resistivityOhmCm[0]).toBeNull();
     expect(c2.resistivityOhmCm[20]).toBeCloseTo(3, 9);
     // log-linear between 200 K (2) and 210 K (2.1) at 205 K: sqrt(2 * 2.1)
-    const fine = await request(ctx.app).get(`/api/compare?sweeps=${s1.id}&points=401`).set(ctx.auth('physicist'));
+    const fine = await request(ctx.app)
+      .get(`/api/compare?sweeps=${s1.id}&points=401`)
+      .set(ctx.auth('physicist'));
     expect(fine.body.temperaturesK[210]).toBeCloseTo(205, 9);
     expect(fine.body.curves[0].resistivityOhmCm[210]).toBeCloseTo(Math.sqrt(2 * 2.1), 9);
   });
@@ -106,15 +156,24 @@ describe('GET /api/compare', () => {
       expect(res.status).toBe(400);
       expect(res.body.error.details[0].field).toBe('query.sweeps');
     }
-    expect((await request(ctx.app).get('/api/compare?sweeps=987654').set(ctx.auth('admin'))).status).toBe(404);
+    expect(
+      (await request(ctx.app).get('/api/compare?sweeps=987654').set(ctx.auth('admin'))).status,
+    ).toBe(404);
   });
 });
 
 describe('GET /api/sweeps/:id/report', () => {
   it('is a PDF naming the wafer in its document info', async () => {
     const { wafers } = await makeLot({ specMinOhmCm: 1, specMaxOhmCm: 10 }, ['WR-77']);
-    const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, synthesize(range(250, 400, 31), (t) => t / 50, { noise: 0.01 }));
-    await request(ctx.app).post(`/api/sweeps/${sweep.id}/fits`).set(ctx.auth('engineer')).send({ kind: 'tcr' });
+    const sweep = await makeSweep(
+      wafers[0]!.id,
+      ctx.users.engineer.id,
+      synthesize(range(250, 400, 31), (t) => t / 50, { noise: 0.01 }),
+    );
+    await request(ctx.app)
+      .post(`/api/sweeps/${sweep.id}/fits`)
+      .set(ctx.auth('engineer'))
+      .send({ kind: 'tcr' });
     const res = await request(ctx.app)
       .get(`/api/sweeps/${sweep.id}/report`)
       .set(ctx.auth('manager'))

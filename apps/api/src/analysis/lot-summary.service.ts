@@ -25,7 +25,8 @@ export function processCapability(
     return { cpk: null, reason: 'Cpk needs at least 2 wafers with a resistivity at 23 °C' };
   }
   const sd = sampleStandardDeviation([...values]);
-  if (sd === 0) return { cpk: null, reason: 'All wafers read the same; the standard deviation is 0' };
+  if (sd === 0)
+    return { cpk: null, reason: 'All wafers read the same; the standard deviation is 0' };
   const m = mean([...values]);
   const sides: number[] = [];
   if (usl !== null) sides.push(usl - m);
@@ -85,7 +86,9 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
         }),
     });
   }
-  const values = rows.flatMap((r) => (r.resistivityAt23COhmCm === null ? [] : [r.resistivityAt23COhmCm]));
+  const values = rows.flatMap((r) =>
+    r.resistivityAt23COhmCm === null ? [] : [r.resistivityAt23COhmCm],
+  );
   const capability = processCapability(values, lot.specMinOhmCm, lot.specMaxOhmCm);
   return {
     lot: {

@@ -20,7 +20,10 @@ const body = {
 
 describe('POST /api/model/curve', () => {
   it('equals modelCurve() and regimeBoundaries() called directly on the same inputs', async () => {
-    const res = await request(ctx.app).post('/api/model/curve').set(ctx.auth('technician')).send(body);
+    const res = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('technician'))
+      .send(body);
     expect(res.status).toBe(200);
     const temps = temperatureGrid(20, 800, 157);
     expect(temps[0]).toBe(20);
@@ -67,7 +70,11 @@ describe('POST /api/model/curve', () => {
     const res = await request(ctx.app)
       .post('/api/model/curve')
       .set(ctx.auth('engineer'))
-      .send({ ...body, material: 'GaAs', doping: { donorDensity: 1e16, acceptorDensity: 0, donor: 'Xx' } });
+      .send({
+        ...body,
+        material: 'GaAs',
+        doping: { donorDensity: 1e16, acceptorDensity: 0, donor: 'Xx' },
+      });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/donor/);
   });
@@ -87,7 +94,14 @@ describe('GET /api/materials', () => {
     const si = res.body.semiconductors.find((m: { id: string }) => m.id === 'Si');
     expect(si.bandGap.source.label).toMatch(/Thurmond/);
     expect(si.donors.map((d: { name: string }) => d.name)).toContain('P');
-    expect(res.body.metals.map((m: { id: string }) => m.id).sort()).toEqual(['Al', 'Au', 'Cu', 'Ni', 'Pt', 'W']);
+    expect(res.body.metals.map((m: { id: string }) => m.id).sort()).toEqual([
+      'Al',
+      'Au',
+      'Cu',
+      'Ni',
+      'Pt',
+      'W',
+    ]);
   });
 });
 
@@ -102,8 +116,13 @@ describe('POST /api/model/curve for a metal film', () => {
     expect(res.body.boundaries).toBeNull();
     expect(res.body.points[0]).toEqual({ temperatureK: 50, resistivityOhmCm: null });
     expect(res.body.points[10].resistivityOhmCm).toBeNull();
-    expect(res.body.points[3]).toEqual({ temperatureK: 350, resistivityOhmCm: metalResistivity('Cu', 350) });
+    expect(res.body.points[3]).toEqual({
+      temperatureK: 350,
+      resistivityOhmCm: metalResistivity('Cu', 350),
+    });
     // Common practice: a metal's resistivity rises with temperature.
-    expect(res.body.points[5].resistivityOhmCm).toBeGreaterThan(res.body.points[3].resistivityOhmCm);
+    expect(res.body.points[5].resistivityOhmCm).toBeGreaterThan(
+      res.body.points[3].resistivityOhmCm,
+    );
   });
 });

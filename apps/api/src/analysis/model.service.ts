@@ -95,7 +95,10 @@ export function curveFor(q: CurveQuery): ModelCurveResponse {
 
 /** Every material with its parameter sets and sources: the physics library's own catalogue. */
 export function materials(): MaterialsResponse {
-  return { ...(listMaterials() as unknown as Omit<MaterialsResponse, 'modelVersion'>), modelVersion: modelVersion('tables') };
+  return {
+    ...(listMaterials() as unknown as Omit<MaterialsResponse, 'modelVersion'>),
+    modelVersion: modelVersion('tables'),
+  };
 }
 
 /**

@@ -16,7 +16,8 @@ export function logLinear(a: AnalysisStep, b: AnalysisStep, temperatureK: number
   if (b.temperatureK === a.temperatureK) return a.resistivityOhmCm;
   const f = (temperatureK - a.temperatureK) / (b.temperatureK - a.temperatureK);
   return Math.exp(
-    Math.log(a.resistivityOhmCm) + f * (Math.log(b.resistivityOhmCm) - Math.log(a.resistivityOhmCm)),
+    Math.log(a.resistivityOhmCm) +
+      f * (Math.log(b.resistivityOhmCm) - Math.log(a.resistivityOhmCm)),
   );
 }
 
@@ -24,7 +25,10 @@ export function logLinear(a: AnalysisStep, b: AnalysisStep, temperatureK: number
  * Resistivity at `temperatureK` within a sweep's own range (log-linear between the bracketing
  * steps), or null outside it. `steps` must be sorted by temperature.
  */
-export function interpolateWithin(steps: readonly AnalysisStep[], temperatureK: number): number | null {
+export function interpolateWithin(
+  steps: readonly AnalysisStep[],
+  temperatureK: number,
+): number | null {
   const first = steps[0];
   const last = steps[steps.length - 1];
   if (!first || !last || temperatureK < first.temperatureK || temperatureK > last.temperatureK) {
@@ -55,11 +59,19 @@ export interface ValueAt23C {
  */
 export function valueAt23C(steps: readonly AnalysisStep[]): ValueAt23C {
   if (steps.length === 0) {
-    return { resistivityOhmCm: null, method: null, distanceK: null, reason: 'The sweep has no usable points' };
+    return {
+      resistivityOhmCm: null,
+      method: null,
+      distanceK: null,
+      reason: 'The sweep has no usable points',
+    };
   }
   let nearest = steps[0]!;
   for (const s of steps) {
-    if (Math.abs(s.temperatureK - SPEC_TEMPERATURE_K) < Math.abs(nearest.temperatureK - SPEC_TEMPERATURE_K)) {
+    if (
+      Math.abs(s.temperatureK - SPEC_TEMPERATURE_K) <
+      Math.abs(nearest.temperatureK - SPEC_TEMPERATURE_K)
+    ) {
       nearest = s;
     }
   }
@@ -75,7 +87,12 @@ export function valueAt23C(steps: readonly AnalysisStep[]): ValueAt23C {
     };
   }
   if (distanceK <= MAX_NEAREST_DISTANCE_K) {
-    return { resistivityOhmCm: nearest.resistivityOhmCm, method: 'nearest', distanceK, reason: null };
+    return {
+      resistivityOhmCm: nearest.resistivityOhmCm,
+      method: 'nearest',
+      distanceK,
+      reason: null,
+    };
   }
   return {
     resistivityOhmCm: null,

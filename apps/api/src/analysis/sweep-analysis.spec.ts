@@ -42,9 +42,16 @@ describe('GET /api/sweeps/:id/analysis', () => {
       ctx.users.engineer.id,
       synthesize(temps, siModel, { noise: 0.005, seed: 7, repeats: 3 }),
     );
-    const res = await request(ctx.app).get(`/api/sweeps/${sweep.id}/analysis`).set(ctx.auth('manager'));
+    const res = await request(ctx.app)
+      .get(`/api/sweeps/${sweep.id}/analysis`)
+      .set(ctx.auth('manager'));
     expect(res.status).toBe(200);
-    expect(res.body.sweep).toMatchObject({ id: sweep.id, waferNumber: 'W01', lotCode: lot.code, pointCount: 471 });
+    expect(res.body.sweep).toMatchObject({
+      id: sweep.id,
+      waferNumber: 'W01',
+      lotCode: lot.code,
+      pointCount: 471,
+    });
     expect(res.body.steps).toHaveLength(157);
     expect(res.body.steps[0].count).toBe(3);
     const a = res.body.arrhenius[10];
@@ -53,7 +60,12 @@ describe('GET /api/sweeps/:id/analysis', () => {
 
     // The windows should sit on the model's own regime boundaries (physics library).
     const b = regimeBoundaries('Si', doping);
-    const windows = res.body.suggestedWindows as Array<{ regime: string; minK: number; maxK: number; pointCount: number }>;
+    const windows = res.body.suggestedWindows as Array<{
+      regime: string;
+      minK: number;
+      maxK: number;
+      pointCount: number;
+    }>;
     expect(windows.map((w) => w.regime)).toEqual(['freeze-out', 'extrinsic', 'intrinsic']);
     const [cold, mid, hot] = windows;
     expect(cold!.maxK).toBeLessThan(b.freezeOutBelowK! * 1.6);
@@ -69,16 +81,25 @@ describe('GET /api/sweeps/:id/analysis', () => {
   });
 
   it('answers 404 for an unknown sweep and 400 for a malformed id', async () => {
-    expect((await request(ctx.app).get('/api/sweeps/999999/analysis').set(ctx.auth('admin'))).status).toBe(404);
-    expect((await request(ctx.app).get('/api/sweeps/abc/analysis').set(ctx.auth('admin'))).status).toBe(400);
+    expect(
+      (await request(ctx.app).get('/api/sweeps/999999/analysis').set(ctx.auth('admin'))).status,
+    ).toBe(404);
+    expect(
+      (await request(ctx.app).get('/api/sweeps/abc/analysis').set(ctx.auth('admin'))).status,
+    ).toBe(400);
   });
 });
 
 describe('spec check at the tolerance edges', () => {
-  async function specOf(points: Array<{ temperatureK: number; resistivityOhmCm: number }>, lotFields = {}) {
+  async function specOf(
+    points: Array<{ temperatureK: number; resistivityOhmCm: number }>,
+    lotFields = {},
+  ) {
     const { wafers } = await makeLot({ specMinOhmCm: 10, specMaxOhmCm: 20, ...lotFields });
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.admin.id, points);
-    const res = await request(ctx.app).get(`/api/sweeps/${sweep.id}/analysis`).set(ctx.auth('admin'));
+    const res = await request(ctx.app)
+      .get(`/api/sweeps/${sweep.id}/analysis`)
+      .set(ctx.auth('admin'));
     expect(res.status).toBe(200);
     return res.body.spec;
   }
@@ -117,7 +138,9 @@ describe('GET /api/wafers/:id/dopant', () => {
   it('converts rho at 23 °C with ASTM F723 exactly as the physics library does', async () => {
     const { lot, wafers } = await makeLot({ dopant: 'P', specMinOhmCm: 3, specMaxOhmCm: 7 });
     await makeSweep(wafers[0]!.id, ctx.users.engineer.id, synthesize(range(280, 320, 41), siModel));
-    const res = await request(ctx.app).get(`/api/wafers/${wafers[0]!.id}/dopant`).set(ctx.auth('physicist'));
+    const res = await request(ctx.app)
+      .get(`/api/wafers/${wafers[0]!.id}/dopant`)
+      .set(ctx.auth('physicist'));
     expect(res.status).toBe(200);
     expect(res.body.dopant).toBe(lot.dopant);
     expect(res.body.method).toBe('interpolated');
@@ -133,8 +156,14 @@ describe('GET /api/wafers/:id/dopant', () => {
 
   it('gives a null density with the reason for a non-silicon wafer', async () => {
     const { wafers } = await makeLot({ material: 'GaAs', dopant: 'Si' });
-    await makeSweep(wafers[0]!.id, ctx.users.engineer.id, synthesize(range(290, 300, 11), flat(0.01)));
-    const res = await request(ctx.app).get(`/api/wafers/${wafers[0]!.id}/dopant`).set(ctx.auth('admin'));
+    await makeSweep(
+      wafers[0]!.id,
+      ctx.users.engineer.id,
+      synthesize(range(290, 300, 11), flat(0.01)),
+    );
+    const res = await request(ctx.app)
+      .get(`/api/wafers/${wafers[0]!.id}/dopant`)
+      .set(ctx.auth('admin'));
     expect(res.status).toBe(200);
     expect(res.body.dopantDensityCm3).toBeNull();
     expect(res.body.reason).toMatch(/boron- and phosphorus-doped silicon only/);
@@ -142,19 +171,33 @@ describe('GET /api/wafers/:id/dopant', () => {
 
   it('answers 422 for arsenic, 422 without 23 °C, 404 without any sweep', async () => {
     const arsenic = await makeLot({ dopant: 'As' });
-    await makeSweep(arsenic.wafers[0]!.id, ctx.users.admin.id, synthesize(range(290, 300, 11), flat(5)));
-    const r1 = await request(ctx.app).get(`/api/wafers/${arsenic.wafers[0]!.id}/dopant`).set(ctx.auth('admin'));
+    await makeSweep(
+      arsenic.wafers[0]!.id,
+      ctx.users.admin.id,
+      synthesize(range(290, 300, 11), flat(5)),
+    );
+    const r1 = await request(ctx.app)
+      .get(`/api/wafers/${arsenic.wafers[0]!.id}/dopant`)
+      .set(ctx.auth('admin'));
     expect(r1.status).toBe(422);
     expect(r1.body.error.message).toMatch(/boron and phosphorus|boron- and phosphorus/);
 
     const cold = await makeLot({ dopant: 'B' });
-    await makeSweep(cold.wafers[0]!.id, ctx.users.admin.id, synthesize(range(50, 100, 11), flat(5)));
-    const r2 = await request(ctx.app).get(`/api/wafers/${cold.wafers[0]!.id}/dopant`).set(ctx.auth('admin'));
+    await makeSweep(
+      cold.wafers[0]!.id,
+      ctx.users.admin.id,
+      synthesize(range(50, 100, 11), flat(5)),
+    );
+    const r2 = await request(ctx.app)
+      .get(`/api/wafers/${cold.wafers[0]!.id}/dopant`)
+      .set(ctx.auth('admin'));
     expect(r2.status).toBe(422);
     expect(r2.body.error.message).toMatch(/23 °C/);
 
     const none = await makeLot();
-    const r3 = await request(ctx.app).get(`/api/wafers/${none.wafers[0]!.id}/dopant`).set(ctx.auth('admin'));
+    const r3 = await request(ctx.app)
+      .get(`/api/wafers/${none.wafers[0]!.id}/dopant`)
+      .set(ctx.auth('admin'));
     expect(r3.status).toBe(404);
   });
 });

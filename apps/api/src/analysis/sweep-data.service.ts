@@ -1,5 +1,6 @@
 import type { AnalysisStep, SessionUser, AnalysisSweepDto } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
+import { Op } from 'sequelize';
 import { notFound } from '../errors';
 import type { Lot } from '../lots/lot.model';
 import { Sweep, SweepPoint } from '../sweeps/sweep.model';
@@ -48,12 +49,19 @@ export async function visibleSweep(user: SessionUser, sweepId: number): Promise<
   }
 }
 
-/** Reads a sweep's points (temperature and resistivity only), sorted by temperature. */
-export async function sweepReadings(sweepId: number): Promise<SweepReadings> {
+/**
+ * Reads a sweep's points (temperature and resistivity only), sorted by temperature; with a
+ * window, only the points with minK <= T <= maxK (inclusive).
+ */
+export async function sweepReadings(
+  sweepId: number,
+  window?: { minK: number; maxK: number },
+): Promise<SweepReadings> {
+  const where: Record<string | symbol, unknown> = { sweepId };
+  if (window) where['temperatureK'] = { [Op.between]: [window.minK, window.maxK] };
   const rows = (await SweepPoint.findAll({
     attributes: ['temperatureK', 'resistivityOhmCm'],
-    where: { sweepId },
-    order: [['sequence', 'ASC']],
+    where,
     raw: true,
   })) as unknown as AnalysisPoint[];
   const points: AnalysisPoint[] = [];

@@ -59,8 +59,14 @@ export function arrheniusFit(
     temperatureK: p.temperatureK,
     value: input.quantity === 'conductivity' ? 1 / p.resistivityOhmCm : p.resistivityOhmCm,
   }));
-  const r = fitArrhenius(values, { quantity: input.quantity, prefactorExponent: input.prefactorExponent });
-  const residuals = values.map((v, i) => ({ temperatureK: v.temperatureK, residual: r.residuals[i]! }));
+  const r = fitArrhenius(values, {
+    quantity: input.quantity,
+    prefactorExponent: input.prefactorExponent,
+  });
+  const residuals = values.map((v, i) => ({
+    temperatureK: v.temperatureK,
+    residual: r.residuals[i]!,
+  }));
   const midK = (points[0]!.temperatureK + points[points.length - 1]!.temperatureK) / 2;
   const material = (SEMICONDUCTORS as readonly string[]).includes(input.material)
     ? (input.material as SemiconductorId)
@@ -117,20 +123,27 @@ export function modelFit(
     donorLevel: p.donorLevel,
     acceptorLevel: p.acceptorLevel,
   };
-  const lnModel = (t: number) => Math.log(resistivity(material, fitted, t, { mobilityScale: p.mobilityScale }));
+  const lnModel = (t: number) =>
+    Math.log(resistivity(material, fitted, t, { mobilityScale: p.mobilityScale }));
   return {
     parameters: { ...p },
     standardErrors: { ...r.standardErrors },
     confidenceIntervals: { ...r.confidenceIntervals95 },
     goodness: {
-      rSquared: rSquaredOf(points.map((pt) => [pt.temperatureK, Math.log(pt.resistivityOhmCm)]), lnModel),
+      rSquared: rSquaredOf(
+        points.map((pt) => [pt.temperatureK, Math.log(pt.resistivityOhmCm)]),
+        lnModel,
+      ),
       count: points.length,
       residualRms: r.residualRms,
       residualUnit: 'ln',
       iterations: r.iterations,
       degreesOfFreedom: r.degreesOfFreedom,
     },
-    residuals: points.map((pt, i) => ({ temperatureK: pt.temperatureK, residual: -r.residuals[i]! })),
+    residuals: points.map((pt, i) => ({
+      temperatureK: pt.temperatureK,
+      residual: -r.residuals[i]!,
+    })),
     converged: r.converged,
     reason: r.reason,
     reading: r.converged
@@ -180,15 +193,19 @@ export function blochGruneisenFit(points: readonly AnalysisPoint[]): FitComputat
     standardErrors: { ...r.standardErrors },
     confidenceIntervals: { ...r.confidenceIntervals95 },
     goodness: {
-      rSquared: rSquaredOf(points.map((pt) => [pt.temperatureK, pt.resistivityOhmCm]), (t) =>
-        blochGruneisen(t, p),
+      rSquared: rSquaredOf(
+        points.map((pt) => [pt.temperatureK, pt.resistivityOhmCm]),
+        (t) => blochGruneisen(t, p),
       ),
       count: points.length,
       residualRms: r.residualRms,
       residualUnit: 'ln',
       iterations: r.iterations,
     },
-    residuals: points.map((pt, i) => ({ temperatureK: pt.temperatureK, residual: -r.residuals[i]! })),
+    residuals: points.map((pt, i) => ({
+      temperatureK: pt.temperatureK,
+      residual: -r.residuals[i]!,
+    })),
     converged: r.converged,
     reason: r.reason,
     reading: r.converged

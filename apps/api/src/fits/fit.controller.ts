@@ -17,7 +17,10 @@ const kelvin = z
 
 const reversed = (b: { minK?: number; maxK?: number }) =>
   b.minK === undefined || b.maxK === undefined || b.minK < b.maxK;
-const reversedIssue = { message: 'must be above minK (the bounds are reversed or equal)', path: ['maxK'] };
+const reversedIssue = {
+  message: 'must be above minK (the bounds are reversed or equal)',
+  path: ['maxK'],
+};
 
 const arrheniusSchema = z
   .object({
@@ -25,7 +28,12 @@ const arrheniusSchema = z
     minK: kelvin,
     maxK: kelvin,
     quantity: z.enum(['resistivity', 'conductivity']).optional(),
-    prefactorExponent: z.number().finite().min(-5, 'must be at least -5').max(5, 'must be at most 5').optional(),
+    prefactorExponent: z
+      .number()
+      .finite()
+      .min(-5, 'must be at least -5')
+      .max(5, 'must be at most 5')
+      .optional(),
     regime: z.enum(['freeze-out', 'extrinsic', 'intrinsic']).optional(),
     compensated: z.boolean().optional(),
   })
@@ -34,7 +42,9 @@ const modelSchema = z
   .object({
     kind: z.literal('model'),
     material: z.string().max(16).optional(),
-    initial: dopingSchema.extend({ mobilityScale: z.number().positive('must be positive').max(100).optional() }),
+    initial: dopingSchema.extend({
+      mobilityScale: z.number().positive('must be positive').max(100).optional(),
+    }),
     free: z
       .array(z.enum(MODEL_FREE_PARAMETERS))
       .min(1, 'must free at least one parameter')
@@ -44,7 +54,12 @@ const modelSchema = z
   })
   .strict();
 const tcrSchema = z
-  .object({ kind: z.literal('tcr'), referenceK: kelvin.optional(), minK: kelvin.optional(), maxK: kelvin.optional() })
+  .object({
+    kind: z.literal('tcr'),
+    referenceK: kelvin.optional(),
+    minK: kelvin.optional(),
+    maxK: kelvin.optional(),
+  })
   .strict();
 const bgSchema = z
   .object({ kind: z.literal('bloch-gruneisen'), minK: kelvin.optional(), maxK: kelvin.optional() })
@@ -61,13 +76,18 @@ const fitSchema = z
 
 /** Route handlers for fits. */
 export function fitHandlers(deps: AppDeps) {
-  const actor = (req: Request) => ({ id: currentUser(req).id, requestId: String(req.id ?? '') || null });
+  const actor = (req: Request) => ({
+    id: currentUser(req).id,
+    requestId: String(req.id ?? '') || null,
+  });
   return {
     /** `POST /api/sweeps/:id/fits` → 201 with the stored fit. */
     async create(req: Request, res: Response): Promise<void> {
       const sweepId = parseId(req.params);
       const body = parseOrThrow(fitSchema, req.body, 'body') as FitRequest;
-      res.status(201).json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actor(req)));
+      res
+        .status(201)
+        .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actor(req)));
     },
     /** `GET /api/sweeps/:id/fits`. */
     async list(req: Request, res: Response): Promise<void> {
@@ -113,11 +133,30 @@ export function fitHandlers(deps: AppDeps) {
         }),
       );
       const header = [
-        'fit_id', 'sweep_id', 'kind', 'window_min_k', 'window_max_k', 'parameter', 'value',
-        'standard_error', 'ci95_low', 'ci95_high', 'r_squared', 'count', 'residual_rms',
-        'converged', 'reason', 'reading', 'model_version', 'created_by', 'created_at',
+        'fit_id',
+        'sweep_id',
+        'kind',
+        'window_min_k',
+        'window_max_k',
+        'parameter',
+        'value',
+        'standard_error',
+        'ci95_low',
+        'ci95_high',
+        'r_squared',
+        'count',
+        'residual_rms',
+        'converged',
+        'reason',
+        'reading',
+        'model_version',
+        'created_by',
+        'created_at',
       ];
-      res.type('text/csv; charset=utf-8').attachment(`sweep-${sweepId}-fits.csv`).send(toCsv(header, rows));
+      res
+        .type('text/csv; charset=utf-8')
+        .attachment(`sweep-${sweepId}-fits.csv`)
+        .send(toCsv(header, rows));
     },
   };
 }

@@ -11,7 +11,12 @@ export function fitsRouter(deps: AppDeps): Router {
   const router = Router();
   const auth = authenticate(deps.config.jwtSecret);
   const h = fitHandlers(deps);
-  router.post('/sweeps/:id/fits', auth, requireRole('admin', 'manager', 'engineer', 'physicist'), h.create);
+  router.post(
+    '/sweeps/:id/fits',
+    auth,
+    requireRole('admin', 'manager', 'engineer', 'physicist'),
+    h.create,
+  );
   router.get('/sweeps/:id/fits', auth, h.list);
   router.get('/sweeps/:id/fits.csv', auth, h.csv);
   router.get('/fits/:id', auth, h.get);

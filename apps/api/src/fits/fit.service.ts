@@ -60,9 +60,15 @@ function windowPoints(
 ): { points: AnalysisPoint[]; minK: number | null; maxK: number | null } {
   if (minK === undefined && maxK === undefined) {
     if (all.length < MIN_FIT_POINTS) {
-      throw badRequest(`The sweep has ${all.length} usable points; a fit needs at least ${MIN_FIT_POINTS}`);
+      throw badRequest(
+        `The sweep has ${all.length} usable points; a fit needs at least ${MIN_FIT_POINTS}`,
+      );
     }
-    return { points: [...all], minK: all[0]!.temperatureK, maxK: all[all.length - 1]!.temperatureK };
+    return {
+      points: [...all],
+      minK: all[0]!.temperatureK,
+      maxK: all[all.length - 1]!.temperatureK,
+    };
   }
   const lo = minK ?? 0;
   const hi = maxK ?? Number.POSITIVE_INFINITY;
@@ -71,7 +77,12 @@ function windowPoints(
     throw badRequest(
       `The window ${minK ?? 'start'}–${maxK ?? 'end'} K holds ${points.length} point` +
         `${points.length === 1 ? '' : 's'}; a fit needs at least ${MIN_FIT_POINTS}`,
-      [{ field: 'body.minK', problem: `the window holds ${points.length} points; at least ${MIN_FIT_POINTS} needed` }],
+      [
+        {
+          field: 'body.minK',
+          problem: `the window holds ${points.length} points; at least ${MIN_FIT_POINTS} needed`,
+        },
+      ],
     );
   }
   return { points, minK: minK ?? null, maxK: maxK ?? null };
@@ -86,7 +97,12 @@ export async function createFit(
   actor: Actor,
 ): Promise<FitDto> {
   const v = await visibleSweep(user, sweepId);
-  const { points: all } = await sweepReadings(sweepId);
+  // An Arrhenius fit with its regime given needs only the window's points from the database.
+  const windowOnly = request.kind === 'arrhenius' && request.regime !== undefined;
+  const { points: all } = await sweepReadings(
+    sweepId,
+    windowOnly ? { minK: request.minK, maxK: request.maxK } : undefined,
+  );
   const window = windowPoints(all, request.minK, request.maxK);
   let computed: FitComputation;
   let inputs: Record<string, unknown>;
@@ -179,7 +195,13 @@ export async function createFit(
         action: 'create',
         entity: 'fit',
         entityId: fit.id,
-        after: { sweepId, kind: request.kind, inputs, parameters: computed.parameters, converged: computed.converged },
+        after: {
+          sweepId,
+          kind: request.kind,
+          inputs,
+          parameters: computed.parameters,
+          converged: computed.converged,
+        },
         requestId: actor.requestId,
       },
       transaction,
@@ -235,7 +257,9 @@ export async function deleteFit(
     ((user.role === 'engineer' || user.role === 'physicist') && fit.createdById === user.id);
   if (!mayDelete) {
     throw forbidden(
-      user.role === 'technician' ? 'Your role may not delete fits' : 'You may delete only fits you saved',
+      user.role === 'technician'
+        ? 'Your role may not delete fits'
+        : 'You may delete only fits you saved',
     );
   }
   await sequelize.transaction(async (transaction) => {

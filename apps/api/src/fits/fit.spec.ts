@@ -21,26 +21,44 @@ beforeAll(async () => {
   ctx = await createTestContext();
   const { wafers } = await makeLot({ material: 'Si' });
   // rho = 1e-3 exp(Ea / kT), 0.5 % noise: a purely activated synthetic sample
-  arrheniusPoints = synthesize(range(300, 600, 61), (t) => 1e-3 * Math.exp(EA_TRUE / (BOLTZMANN_EV_PER_K * t)), {
-    noise: 0.005,
-    seed: 11,
-  });
+  arrheniusPoints = synthesize(
+    range(300, 600, 61),
+    (t) => 1e-3 * Math.exp(EA_TRUE / (BOLTZMANN_EV_PER_K * t)),
+    {
+      noise: 0.005,
+      seed: 11,
+    },
+  );
   arrheniusSweepId = (await makeSweep(wafers[0]!.id, ctx.users.engineer.id, arrheniusPoints)).id;
 });
 afterAll(async () => ctx.close());
 
-const post = (sweepId: number, body: unknown, role: 'admin' | 'engineer' | 'physicist' | 'manager' | 'technician' = 'engineer') =>
-  request(ctx.app).post(`/api/sweeps/${sweepId}/fits`).set(ctx.auth(role)).send(body as object);
+const post = (
+  sweepId: number,
+  body: unknown,
+  role: 'admin' | 'engineer' | 'physicist' | 'manager' | 'technician' = 'engineer',
+) =>
+  request(ctx.app)
+    .post(`/api/sweeps/${sweepId}/fits`)
+    .set(ctx.auth(role))
+    .send(body as object);
 
 describe('Arrhenius fit', () => {
   it('recovers the activation energy and equals an independent least-squares fit to 1e-9', async () => {
-    const res = await post(arrheniusSweepId, { kind: 'arrhenius', minK: 350, maxK: 550, regime: 'intrinsic' });
+    const res = await post(arrheniusSweepId, {
+      kind: 'arrhenius',
+      minK: 350,
+      maxK: 550,
+      regime: 'intrinsic',
+    });
     expect(res.status).toBe(201);
     const fit = res.body;
     const window = arrheniusPoints.filter((p) => p.temperatureK >= 350 && p.temperatureK <= 550);
     expect(fit.goodness.count).toBe(window.length);
     // Independent reference: simple-statistics linearRegression of ln(rho) on 1/(kT).
-    const ref = linearRegression(window.map((p) => [1 / (BOLTZMANN_EV_PER_K * p.temperatureK), Math.log(p.resistivityOhmCm)]));
+    const ref = linearRegression(
+      window.map((p) => [1 / (BOLTZMANN_EV_PER_K * p.temperatureK), Math.log(p.resistivityOhmCm)]),
+    );
     expect(Math.abs(fit.parameters.activationEnergyEv / ref.m - 1)).toBeLessThan(1e-9);
     expect(Math.abs(fit.parameters.intercept / ref.b - 1)).toBeLessThan(1e-9);
     // Known parameter back within the 95 % interval and 2 %.
@@ -52,18 +70,32 @@ describe('Arrhenius fit', () => {
     expect(fit.residuals).toHaveLength(window.length);
     expect(fit.reading).toMatch(/band gap/);
     expect(fit.converged).toBe(true);
-    expect(fit.inputs).toMatchObject({ minK: 350, maxK: 550, quantity: 'resistivity', prefactorExponent: 0, regime: 'intrinsic' });
+    expect(fit.inputs).toMatchObject({
+      minK: 350,
+      maxK: 550,
+      quantity: 'resistivity',
+      prefactorExponent: 0,
+      regime: 'intrinsic',
+    });
     expect(fit.modelVersion).toMatch(/^physics@\d+\.\d+\.\d+\+arrhenius$/);
     expect(fit.createdBy).toEqual({ id: ctx.users.engineer.id, name: ctx.users.engineer.name });
   });
 
   it('fits conductivity with a T^1.5 prefactor as ln(sigma T^-1.5) = a - Ea/kT (simple-statistics reference)', async () => {
     const res = await post(arrheniusSweepId, {
-      kind: 'arrhenius', minK: 300, maxK: 600, quantity: 'conductivity', prefactorExponent: 1.5, regime: 'freeze-out',
+      kind: 'arrhenius',
+      minK: 300,
+      maxK: 600,
+      quantity: 'conductivity',
+      prefactorExponent: 1.5,
+      regime: 'freeze-out',
     });
     expect(res.status).toBe(201);
     const ref = linearRegression(
-      arrheniusPoints.map((p) => [1 / (BOLTZMANN_EV_PER_K * p.temperatureK), Math.log((1 / p.resistivityOhmCm) * p.temperatureK ** -1.5)]),
+      arrheniusPoints.map((p) => [
+        1 / (BOLTZMANN_EV_PER_K * p.temperatureK),
+        Math.log((1 / p.resistivityOhmCm) * p.temperatureK ** -1.5),
+      ]),
     );
     expect(Math.abs(res.body.parameters.activationEnergyEv / -ref.m - 1)).toBeLessThan(1e-9);
     expect(res.body.reading).toMatch(/ionization energy/);
@@ -76,7 +108,10 @@ describe('Arrhenius fit', () => {
     [{ kind: 'arrhenius', minK: -50, maxK: 400 }, /positive/],
     [{ kind: 'arrhenius', minK: 300 }, /required/],
     [{ kind: 'fourier', minK: 300, maxK: 400 }, /arrhenius, model, tcr, bloch-gruneisen/],
-    [{ kind: 'model', initial: { donorDensity: 1e15, acceptorDensity: 0 }, free: [] }, /at least one/],
+    [
+      { kind: 'model', initial: { donorDensity: 1e15, acceptorDensity: 0 }, free: [] },
+      /at least one/,
+    ],
   ])('answers 400 saying why for %j', async (body, message) => {
     const res = await post(arrheniusSweepId, body);
     expect(res.status).toBe(400);
@@ -89,13 +124,20 @@ describe('full-model fit', () => {
   it('recovers donor density within 3 % and level within 3 meV (physics issue tolerances)', async () => {
     const doping = { donorDensity: 2e15, acceptorDensity: 0, donorLevel: 0.045 };
     const { wafers } = await makeLot({ material: 'Si', dopant: 'P' });
-    const points = synthesize(range(25, 320, 60), (t) => resistivity('Si', doping, t), { noise: 0.005, seed: 5 });
+    const points = synthesize(range(25, 320, 60), (t) => resistivity('Si', doping, t), {
+      noise: 0.005,
+      seed: 5,
+    });
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.physicist.id, points);
-    const res = await post(sweep.id, {
-      kind: 'model',
-      initial: { donorDensity: 1.4e15, acceptorDensity: 0, donorLevel: 0.035 },
-      free: ['donorDensity', 'donorLevel'],
-    }, 'physicist');
+    const res = await post(
+      sweep.id,
+      {
+        kind: 'model',
+        initial: { donorDensity: 1.4e15, acceptorDensity: 0, donorLevel: 0.035 },
+        free: ['donorDensity', 'donorLevel'],
+      },
+      'physicist',
+    );
     expect(res.status).toBe(201);
     expect(res.body.converged).toBe(true);
     expect(Math.abs(res.body.parameters.donorDensity / 2e15 - 1)).toBeLessThan(0.03);
@@ -109,13 +151,20 @@ describe('full-model fit', () => {
   it('stores a fit that does not converge, with converged false and the reason (still 201)', async () => {
     const { wafers } = await makeLot({ material: 'Si' });
     // 5 ohm cm with a 30 % ripple: no doping explains it, five free parameters wander
-    const points = range(25, 320, 60).map((t) => ({ temperatureK: t, resistivityOhmCm: 5 * (1 + 0.3 * Math.sin(t)) }));
+    const points = range(25, 320, 60).map((t) => ({
+      temperatureK: t,
+      resistivityOhmCm: 5 * (1 + 0.3 * Math.sin(t)),
+    }));
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.admin.id, points);
-    const res = await post(sweep.id, {
-      kind: 'model',
-      initial: { donorDensity: 1e15, acceptorDensity: 1e14 },
-      free: ['donorDensity', 'acceptorDensity', 'donorLevel', 'acceptorLevel', 'mobilityScale'],
-    }, 'admin');
+    const res = await post(
+      sweep.id,
+      {
+        kind: 'model',
+        initial: { donorDensity: 1e15, acceptorDensity: 1e14 },
+        free: ['donorDensity', 'acceptorDensity', 'donorLevel', 'acceptorLevel', 'mobilityScale'],
+      },
+      'admin',
+    );
     expect(res.status).toBe(201);
     expect(res.body.converged).toBe(false);
     expect(res.body.reason).toMatch(/\w+/);
@@ -127,13 +176,18 @@ describe('full-model fit', () => {
 describe('metal fits', () => {
   it('linear TCR recovers alpha of the copper reference within 2 %', async () => {
     const { wafers } = await makeLot({ material: 'Cu', dopant: null, dopantType: null });
-    const points = synthesize(range(200, 400, 41), (t) => metalResistivity('Cu', t), { noise: 0.001, seed: 3 });
+    const points = synthesize(range(200, 400, 41), (t) => metalResistivity('Cu', t), {
+      noise: 0.001,
+      seed: 3,
+    });
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, points);
     const res = await post(sweep.id, { kind: 'tcr' });
     expect(res.status).toBe(201);
     expect(res.body.inputs.referenceK).toBe(293.15);
     expect(Math.abs(res.body.parameters.alphaPerK / 0.0039 - 1)).toBeLessThan(0.02);
-    expect(Math.abs(res.body.parameters.referenceResistivityOhmCm / metalResistivity('Cu', 293.15) - 1)).toBeLessThan(0.005);
+    expect(
+      Math.abs(res.body.parameters.referenceResistivityOhmCm / metalResistivity('Cu', 293.15) - 1),
+    ).toBeLessThan(0.005);
     const [lo, hi] = res.body.confidenceIntervals.alphaPerK;
     expect(lo).toBeLessThan(res.body.parameters.alphaPerK);
     expect(hi).toBeGreaterThan(res.body.parameters.alphaPerK);
@@ -142,7 +196,10 @@ describe('metal fits', () => {
   it('Bloch–Grüneisen recovers residual, coupling and Debye temperature within 3 %', async () => {
     const truth = { residualOhmCm: 2e-7, couplingOhmCm: 7e-6, debyeK: 343 };
     const { wafers } = await makeLot({ material: 'Cu', dopant: null, dopantType: null });
-    const points = synthesize(range(20, 400, 60), (t) => blochGruneisen(t, truth), { noise: 0.005, seed: 9 });
+    const points = synthesize(range(20, 400, 60), (t) => blochGruneisen(t, truth), {
+      noise: 0.005,
+      seed: 9,
+    });
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, points);
     const res = await post(sweep.id, { kind: 'bloch-gruneisen' });
     expect(res.status).toBe(201);
@@ -155,35 +212,56 @@ describe('metal fits', () => {
 
 describe('reading, listing and deleting fits', () => {
   it('lists, gets, re-runs from stored inputs, soft-deletes with audit events', async () => {
-    const created = await post(arrheniusSweepId, { kind: 'arrhenius', minK: 400, maxK: 600 }, 'physicist');
+    const created = await post(
+      arrheniusSweepId,
+      { kind: 'arrhenius', minK: 400, maxK: 600 },
+      'physicist',
+    );
     expect(created.status).toBe(201);
     const id = created.body.id as number;
     const rerun = await post(arrheniusSweepId, created.body.inputs, 'physicist');
     expect(rerun.status).toBe(201);
     expect(rerun.body.parameters).toEqual(created.body.parameters);
 
-    const list = await request(ctx.app).get(`/api/sweeps/${arrheniusSweepId}/fits`).set(ctx.auth('technician'));
+    const list = await request(ctx.app)
+      .get(`/api/sweeps/${arrheniusSweepId}/fits`)
+      .set(ctx.auth('technician'));
     expect(list.status).toBe(404); // the technician is not assigned to this wafer
-    const list2 = await request(ctx.app).get(`/api/sweeps/${arrheniusSweepId}/fits`).set(ctx.auth('manager'));
+    const list2 = await request(ctx.app)
+      .get(`/api/sweeps/${arrheniusSweepId}/fits`)
+      .set(ctx.auth('manager'));
     expect(list2.body.map((f: { id: number }) => f.id)).toContain(id);
     const one = await request(ctx.app).get(`/api/fits/${id}`).set(ctx.auth('manager'));
     expect(one.body).toEqual(created.body);
 
-    expect((await request(ctx.app).delete(`/api/fits/${id}`).set(ctx.auth('engineer'))).status).toBe(403);
-    expect((await request(ctx.app).delete(`/api/fits/${id}`).set(ctx.auth('physicist'))).status).toBe(204);
-    expect((await request(ctx.app).get(`/api/fits/${id}`).set(ctx.auth('manager'))).status).toBe(404);
+    expect(
+      (await request(ctx.app).delete(`/api/fits/${id}`).set(ctx.auth('engineer'))).status,
+    ).toBe(403);
+    expect(
+      (await request(ctx.app).delete(`/api/fits/${id}`).set(ctx.auth('physicist'))).status,
+    ).toBe(204);
+    expect((await request(ctx.app).get(`/api/fits/${id}`).set(ctx.auth('manager'))).status).toBe(
+      404,
+    );
     expect(await Fit.findByPk(id, { paranoid: false })).not.toBeNull();
-    const events = await AuditEvent.findAll({ where: { entity: 'fit', entityId: String(id) }, order: [['id', 'ASC']] });
+    const events = await AuditEvent.findAll({
+      where: { entity: 'fit', entityId: String(id) },
+      order: [['id', 'ASC']],
+    });
     expect(events.map((e) => e.action)).toEqual(['create', 'delete']);
     expect(events[1]!.actorId).toBe(ctx.users.physicist.id);
   });
 
   it('exports fits as CSV, one row per parameter', async () => {
-    const res = await request(ctx.app).get(`/api/sweeps/${arrheniusSweepId}/fits.csv`).set(ctx.auth('admin'));
+    const res = await request(ctx.app)
+      .get(`/api/sweeps/${arrheniusSweepId}/fits.csv`)
+      .set(ctx.auth('admin'));
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/text\/csv/);
     const lines = res.text.trim().split('\r\n');
-    expect(lines[0]).toMatch(/^fit_id,sweep_id,kind,window_min_k,window_max_k,parameter,value,standard_error/);
+    expect(lines[0]).toMatch(
+      /^fit_id,sweep_id,kind,window_min_k,window_max_k,parameter,value,standard_error/,
+    );
     expect(lines.some((l) => /,activationEnergyEv,/.test(l))).toBe(true);
   });
 });

@@ -6,7 +6,8 @@ import type { ReportData } from './report.service';
 const require = createRequire(import.meta.url);
 /** IBM Plex Sans static TTFs from the installed font package (no machine paths). */
 const FONTS = {
-  regular: require.resolve('@expo-google-fonts/ibm-plex-sans/400Regular/IBMPlexSans_400Regular.ttf'),
+  regular:
+    require.resolve('@expo-google-fonts/ibm-plex-sans/400Regular/IBMPlexSans_400Regular.ttf'),
   bold: require.resolve('@expo-google-fonts/ibm-plex-sans/600SemiBold/IBMPlexSans_600SemiBold.ttf'),
 };
 
@@ -18,7 +19,9 @@ const ACCENT = '#1f6f8b';
 function sig(value: number | null | undefined, digits = 4): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
   const a = Math.abs(value);
-  return a !== 0 && (a < 1e-3 || a >= 1e5) ? value.toExponential(digits - 1) : value.toPrecision(digits);
+  return a !== 0 && (a < 1e-3 || a >= 1e5)
+    ? value.toExponential(digits - 1)
+    : value.toPrecision(digits);
 }
 
 /** Title used in the document info (ASCII, so it can be read from the file as is). */
@@ -26,10 +29,20 @@ export function reportTitle(d: Pick<ReportData, 'waferNumber' | 'lotCode' | 'swe
   return `Rhotrace sweep report: wafer ${d.waferNumber}, lot ${d.lotCode}, sweep ${d.sweepId}`;
 }
 
-function drawPlot(doc: PDFKit.PDFDocument, steps: readonly AnalysisStep[], x0: number, y0: number, w: number, h: number): void {
+function drawPlot(
+  doc: PDFKit.PDFDocument,
+  steps: readonly AnalysisStep[],
+  x0: number,
+  y0: number,
+  w: number,
+  h: number,
+): void {
   doc.save().lineWidth(0.6).strokeColor(MUTED).rect(x0, y0, w, h).stroke().restore();
   if (steps.length === 0) {
-    doc.fontSize(9).fillColor(MUTED).text('No usable points', x0, y0 + h / 2, { width: w, align: 'center' });
+    doc
+      .fontSize(9)
+      .fillColor(MUTED)
+      .text('No usable points', x0, y0 + h / 2, { width: w, align: 'center' });
     return;
   }
   const ts = steps.map((s) => s.temperatureK);
@@ -52,17 +65,34 @@ function drawPlot(doc: PDFKit.PDFDocument, steps: readonly AnalysisStep[], x0: n
   doc.fontSize(7).fillColor(MUTED);
   const decadeStep = Math.max(1, Math.ceil((lMax - lMin) / 8));
   for (let l = lMin; l <= lMax; l += decadeStep) {
-    doc.save().lineWidth(0.3).strokeColor('#d5dbe1').moveTo(x0, py(l)).lineTo(x0 + w, py(l)).stroke().restore();
+    doc
+      .save()
+      .lineWidth(0.3)
+      .strokeColor('#d5dbe1')
+      .moveTo(x0, py(l))
+      .lineTo(x0 + w, py(l))
+      .stroke()
+      .restore();
     doc.text(`1e${l}`, x0 - 34, py(l) - 4, { width: 30, align: 'right' });
   }
   for (let i = 0; i <= 5; i += 1) {
     const t = tMin + ((tMax - tMin) * i) / 5;
-    doc.save().lineWidth(0.3).strokeColor('#d5dbe1').moveTo(px(t), y0).lineTo(px(t), y0 + h).stroke().restore();
+    doc
+      .save()
+      .lineWidth(0.3)
+      .strokeColor('#d5dbe1')
+      .moveTo(px(t), y0)
+      .lineTo(px(t), y0 + h)
+      .stroke()
+      .restore();
     doc.text(t.toFixed(0), px(t) - 20, y0 + h + 3, { width: 40, align: 'center' });
   }
   doc.text('temperature (K)', x0, y0 + h + 14, { width: w, align: 'center' });
   doc.save().rotate(-90, { origin: [x0 - 42, y0 + h / 2] });
-  doc.text('resistivity (ohm cm, log scale)', x0 - 42 - h / 2, y0 + h / 2 - 4, { width: h, align: 'center' });
+  doc.text('resistivity (ohm cm, log scale)', x0 - 42 - h / 2, y0 + h / 2 - 4, {
+    width: h,
+    align: 'center',
+  });
   doc.restore();
 
   doc.save().lineWidth(1).strokeColor(ACCENT);
@@ -75,13 +105,15 @@ function drawPlot(doc: PDFKit.PDFDocument, steps: readonly AnalysisStep[], x0: n
   doc.stroke().restore();
   if (steps.length <= 400) {
     doc.save().fillColor(ACCENT);
-    for (const s of steps) doc.circle(px(s.temperatureK), py(Math.log10(s.resistivityOhmCm)), 1.4).fill();
+    for (const s of steps)
+      doc.circle(px(s.temperatureK), py(Math.log10(s.resistivityOhmCm)), 1.4).fill();
     doc.restore();
   }
 }
 
 function fitLines(f: FitDto): string[] {
-  const head = `Fit ${f.id} (${f.kind})${f.windowMinK !== null ? `, ${sig(f.windowMinK)}–${sig(f.windowMaxK)} K` : ''}` +
+  const head =
+    `Fit ${f.id} (${f.kind})${f.windowMinK !== null ? `, ${sig(f.windowMinK)}–${sig(f.windowMaxK)} K` : ''}` +
     `${f.converged ? '' : ', did not converge'}`;
   const lines = [head];
   for (const [name, value] of Object.entries(f.parameters)) {
@@ -93,15 +125,22 @@ function fitLines(f: FitDto): string[] {
     );
   }
   const g = f.goodness;
-  lines.push(`   R² ${sig(g.rSquared)}, ${g.count} points, residual RMS ${sig(g.residualRms, 3)} ${g.residualUnit}`);
+  lines.push(
+    `   R² ${sig(g.rSquared)}, ${g.count} points, residual RMS ${sig(g.residualRms, 3)} ${g.residualUnit}`,
+  );
   if (f.reading) lines.push(`   ${f.reading}`);
   if (!f.converged && f.reason) lines.push(`   ${f.reason}`);
-  lines.push(`   model ${f.modelVersion}, by ${f.createdBy.name ?? f.createdBy.id} on ${f.createdAt.slice(0, 10)}`);
+  lines.push(
+    `   model ${f.modelVersion}, by ${f.createdBy.name ?? f.createdBy.id} on ${f.createdAt.slice(0, 10)}`,
+  );
   return lines;
 }
 
 /** Renders the sweep report as a PDF (A4, IBM Plex Sans, vector plot). */
-export function renderReportPdf(d: ReportData, options: { compress?: boolean } = {}): Promise<Buffer> {
+export function renderReportPdf(
+  d: ReportData,
+  options: { compress?: boolean } = {},
+): Promise<Buffer> {
   const doc = new PDFDocument({
     size: 'A4',
     margin: 50,
@@ -122,9 +161,18 @@ export function renderReportPdf(d: ReportData, options: { compress?: boolean } =
   doc.registerFont('plex', FONTS.regular);
   doc.registerFont('plex-bold', FONTS.bold);
 
-  doc.font('plex-bold').fontSize(16).fillColor(INK).text(`Wafer ${d.waferNumber} · lot ${d.lotCode}`);
-  doc.font('plex').fontSize(9).fillColor(MUTED)
-    .text(`Sweep ${d.sweepId} (${d.sweepName}), stored ${d.measuredAt.slice(0, 10)}, method ${d.method}`);
+  doc
+    .font('plex-bold')
+    .fontSize(16)
+    .fillColor(INK)
+    .text(`Wafer ${d.waferNumber} · lot ${d.lotCode}`);
+  doc
+    .font('plex')
+    .fontSize(9)
+    .fillColor(MUTED)
+    .text(
+      `Sweep ${d.sweepId} (${d.sweepName}), stored ${d.measuredAt.slice(0, 10)}, method ${d.method}`,
+    );
   doc.moveDown(0.6).fillColor(INK).fontSize(10);
   const geometry = Object.entries(d.geometry)
     .filter(([, v]) => typeof v === 'number' || typeof v === 'string')

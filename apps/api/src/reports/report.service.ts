@@ -57,7 +57,11 @@ export async function reportData(user: SessionUser, sweepId: number): Promise<Re
     specMinOhmCm: v.lot.specMinOhmCm,
     specMaxOhmCm: v.lot.specMaxOhmCm,
     station: station
-      ? { name: station.name, probeSpacingCm: station.probeSpacingCm, thermometer: station.thermometer }
+      ? {
+          name: station.name,
+          probeSpacingCm: station.probeSpacingCm,
+          thermometer: station.thermometer,
+        }
       : null,
     geometry,
     steps,

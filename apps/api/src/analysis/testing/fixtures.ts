@@ -138,7 +138,11 @@ export async function makeSweep(
 }
 
 /** Assigns a wafer to a user (so a technician may see it). */
-export async function assign(waferId: number, assigneeId: number, assignedById: number): Promise<void> {
+export async function assign(
+  waferId: number,
+  assigneeId: number,
+  assignedById: number,
+): Promise<void> {
   await Assignment.create({
     waferId,
     assigneeId,
