@@ -313,15 +313,12 @@ describe('/api/assignments', () => {
       mailer: downMailer,
       logger: createLogger('silent'),
     });
-    const res = await request(app)
-      .post('/api/assignments')
-      .set(ctx.auth('admin'))
-      .send({
-        waferId: siWafer.id,
-        assigneeId: tech.user.id,
-        task: 'Measure while mail is down',
-        dueDate: '2031-03-03',
-      });
+    const res = await request(app).post('/api/assignments').set(ctx.auth('admin')).send({
+      waferId: siWafer.id,
+      assigneeId: tech.user.id,
+      task: 'Measure while mail is down',
+      dueDate: '2031-03-03',
+    });
     expect(res.status).toBe(201);
     expect(await Assignment.findByPk(res.body.id)).not.toBeNull();
     const queued = await waitFor(async () => {

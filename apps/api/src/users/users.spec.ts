@@ -18,15 +18,12 @@ describe('/api/users', () => {
   const admin = () => ctx.auth('admin');
 
   it('creates an account with a bcrypt hash (cost ≥ 10), never showing the hash', async () => {
-    const res = await request(ctx.app)
-      .post('/api/users')
-      .set(admin())
-      .send({
-        email: 'New.Person@Test.Rhotrace.Example',
-        name: 'Zoë Ñúñez-李',
-        role: 'technician',
-        password: 'a-long-password',
-      });
+    const res = await request(ctx.app).post('/api/users').set(admin()).send({
+      email: 'New.Person@Test.Rhotrace.Example',
+      name: 'Zoë Ñúñez-李',
+      role: 'technician',
+      password: 'a-long-password',
+    });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({
       email: 'new.person@test.rhotrace.example',
@@ -43,15 +40,12 @@ describe('/api/users', () => {
     });
     expect(event?.actorId).toBe(ctx.users.admin.id);
     expect(JSON.stringify(event?.after)).not.toMatch(/\$2[aby]\$/);
-    const dup = await request(ctx.app)
-      .post('/api/users')
-      .set(admin())
-      .send({
-        email: 'new.person@test.rhotrace.example',
-        name: 'Again',
-        role: 'engineer',
-        password: 'a-long-password',
-      });
+    const dup = await request(ctx.app).post('/api/users').set(admin()).send({
+      email: 'new.person@test.rhotrace.example',
+      name: 'Again',
+      role: 'engineer',
+      password: 'a-long-password',
+    });
     expect(dup.status).toBe(409);
   });
 
