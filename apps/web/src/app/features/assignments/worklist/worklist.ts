@@ -1,0 +1,70 @@
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import { ASSIGNMENT_STATES, type AssignmentDto, type AssignmentState, DEFAULT_PAGE_SIZE } from '@rhotrace/api-types';
+import { formatDay } from '../../../shared/format';
+import { AssignmentsApi } from '../assignments-api';
+import { AssignForm } from './assign-form';
+
+/** The manager's worklist: assign wafers, follow states, see what is overdue. */
+@Component({
+  selector: 'rt-worklist',
+  imports: [MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatCheckboxModule, MatButtonModule, RouterLink, AssignForm],
+  templateUrl: './worklist.html',
+  styles: `
+    table { width: 100%; }
+    .filters mat-form-field { width: 200px; }
+    tr.overdue td:first-child { border-left: 4px solid var(--mat-sys-error); }
+    .state-field { width: 150px; }
+    .panel { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 4px 16px 12px; margin-bottom: 16px; }
+  `,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Worklist {
+  private readonly api = inject(AssignmentsApi);
+  private readonly snackBar = inject(MatSnackBar);
+
+  /** `?wafer=ID` preselects the wafer in the form. */
+  readonly wafer = input<string>();
+  protected readonly preselect = computed(() => (this.wafer() ? Number(this.wafer()) : null));
+
+  protected readonly states = ASSIGNMENT_STATES;
+  protected readonly day = formatDay;
+  protected readonly columns = ['wafer', 'task', 'assignee', 'due', 'state'];
+  protected readonly state = signal<AssignmentState | ''>('');
+  protected readonly overdueOnly = signal(false);
+  protected readonly pageIndex = signal(0);
+  protected readonly pageSize = signal(DEFAULT_PAGE_SIZE);
+  protected readonly list = rxResource({
+    params: () => ({ state: this.state(), overdue: this.overdueOnly(), page: this.pageIndex() + 1, pageSize: this.pageSize() }),
+    stream: ({ params }) =>
+      this.api.list({
+        state: params.state,
+        overdue: params.overdue ? 'true' : undefined,
+        page: params.page,
+        pageSize: params.pageSize,
+        sort: 'dueDate',
+      }),
+  });
+
+  protected setPage(e: PageEvent): void {
+    this.pageIndex.set(e.pageIndex);
+    this.pageSize.set(e.pageSize);
+  }
+
+  protected move(a: AssignmentDto, state: AssignmentState): void {
+    this.api.update(a.id, { state }).subscribe(() => this.list.reload());
+  }
+
+  protected onCreated(a: AssignmentDto): void {
+    this.snackBar.open(`Assigned to ${a.assigneeName ?? 'them'}; an e-mail is on its way.`, 'OK', { duration: 5000 });
+    this.list.reload();
+  }
+}
