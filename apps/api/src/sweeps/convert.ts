@@ -109,6 +109,41 @@ export function requireColumns(
   if (problems.length) throw validationFailed('The columns do not fit the method', problems);
 }
 
+/** The row being read: its cells, line number and whether a problem was found in it. */
+interface CellContext {
+  cells: string[];
+  row: number;
+  bad: boolean;
+  mark: '.' | ',';
+  problems: RowProblem[];
+}
+
+/** A cell as a number in stored units; null when empty (a problem when `required`). */
+function readCell(ctx: CellContext, c: ResolvedColumn, required: boolean): number | null {
+  const cell = ctx.cells[c.index] ?? '';
+  const value = readNumber(cell, ctx.mark);
+  if (value === undefined) {
+    ctx.problems.push(rowProblem(ctx.row, c.header, `"${cell.trim()}" is not a number`));
+    ctx.bad = true;
+    return null;
+  }
+  if (value === null) {
+    if (required) {
+      ctx.problems.push(rowProblem(ctx.row, c.header, 'the value is missing'));
+      ctx.bad = true;
+    }
+    return null;
+  }
+  return c.unitInfo!.factor === 1 ? value : value * c.unitInfo!.factor;
+}
+
+/** Reports a zero or negative resistance-like value; true when it did. */
+function positiveOrReport(ctx: CellContext, c: ResolvedColumn | null, v: number | null): boolean {
+  if (!c || v === null || v > 0) return false;
+  ctx.problems.push(rowProblem(ctx.row, c.header, `the value must be above zero (${v})`));
+  return true;
+}
+
 function friendly(error: unknown): string {
   const message = error instanceof Error ? error.message : String(error);
   return message.replace(/`[a-zA-Z]+` /, '');
@@ -141,30 +176,17 @@ export function convertRows(
   const rtd = tUnit.kind === 'resistance';
   const { records, lines } = parsed.table;
   const readings: Reading[] = [];
-  const full = () => problems.length >= MAX_PROBLEMS;
 
-  for (let i = 0; i < records.length && !full(); i++) {
+  const ctx: CellContext = { cells: [], row: 0, bad: false, mark, problems };
+  const num = (c: ResolvedColumn | null, required: boolean) =>
+    c ? readCell(ctx, c, required) : null;
+  const needVI = method === 'four-point' || method === 'bar';
+  for (let i = 0; i < records.length && problems.length < MAX_PROBLEMS; i++) {
     const cells = records[i]!;
     const row = lines[i]!;
-    let bad = false;
-    const num = (c: ResolvedColumn | null, required: boolean): number | null => {
-      if (!c) return null;
-      const cell = cells[c.index] ?? '';
-      const value = readNumber(cell, mark);
-      if (value === undefined) {
-        problems.push(rowProblem(row, c.header, `"${cell.trim()}" is not a number`));
-        bad = true;
-        return null;
-      }
-      if (value === null) {
-        if (required) {
-          problems.push(rowProblem(row, c.header, 'the value is missing'));
-          bad = true;
-        }
-        return null;
-      }
-      return value * c.unitInfo!.factor;
-    };
+    ctx.cells = cells;
+    ctx.row = row;
+    ctx.bad = false;
     const tRaw = num(tCol, true);
     let polarity: 1 | -1 | 0 = 0;
     if (pCol) {
@@ -172,6 +194,7 @@ export function convertRows(
       if (FORWARD.test(text)) polarity = 1;
       else if (REVERSE.test(text)) polarity = -1;
       else {
+        ctx.bad = true;
         problems.push(
           rowProblem(
             row,
@@ -179,10 +202,8 @@ export function convertRows(
             `polarity "${text}" is not understood (use + or -, forward or reverse)`,
           ),
         );
-        bad = true;
       }
     }
-    const needVI = method === 'four-point' || method === 'bar';
     const voltageV = num(vCol, needVI && !rCol);
     let currentA = iCol
       ? num(iCol, needVI && !rCol)
@@ -193,7 +214,7 @@ export function convertRows(
     const resistanceBOhm = num(rbCol, method === 'van-der-pauw');
     const sheetOhmSq = num(sCol, method === 'sheet-resistance');
     const resistivityOhmCm = num(rhoCol, method === 'resistivity');
-    if (bad || tRaw === null) continue;
+    if (ctx.bad || tRaw === null) continue;
 
     let temperatureK: number;
     try {
@@ -232,18 +253,14 @@ export function convertRows(
         continue;
       }
     }
-    for (const [c, v] of [
-      [rCol, resistanceOhm],
-      [rbCol, resistanceBOhm],
-      [sCol, sheetOhmSq],
-      [rhoCol, resistivityOhmCm],
-    ] as const) {
-      if (c && v !== null && v <= 0) {
-        problems.push(rowProblem(row, c.header, `the value must be above zero (${v})`));
-        bad = true;
-      }
+    if (
+      positiveOrReport(ctx, rCol, resistanceOhm) ||
+      positiveOrReport(ctx, rbCol, resistanceBOhm) ||
+      positiveOrReport(ctx, sCol, sheetOhmSq) ||
+      positiveOrReport(ctx, rhoCol, resistivityOhmCm)
+    ) {
+      continue;
     }
-    if (bad) continue;
     readings.push({
       record: i,
       row,
@@ -262,7 +279,7 @@ export function convertRows(
   if (problems.length === 0) {
     const unpaired: number[] = [];
     for (const group of pairReadings(readings)) {
-      if (full()) break;
+      if (problems.length >= MAX_PROBLEMS) break;
       const point = toPoint(group, method, geometry, problems, columns);
       if (!point) continue;
       if (group.length === 2) point.flags.push('polarity-averaged');
@@ -307,6 +324,7 @@ function pairReadings(readings: Reading[]): Reading[][] {
 
 /** Mean of the two readings' values (forward first), or the single reading's. */
 function mean(group: Reading[], get: (r: Reading) => number | null): number | null {
+  if (group.length === 1) return get(group[0]!);
   const values = group.map(get);
   if (values.some((v) => v === null)) return null;
   return (values as number[]).reduce((s, v) => s + v, 0) / values.length;
@@ -342,23 +360,26 @@ function toPoint(
     resistivityOhmCm: 0,
     flags: [],
   };
-  const vi = () =>
-    point.voltageV !== null && point.currentA !== null
-      ? { voltageV: point.voltageV, currentA: point.currentA }
-      : { voltageV: point.resistanceOhm!, currentA: 1 };
+  // Without V and I the file gives V/I as a resistance: pass it as V over a unit current.
+  const hasVI = point.voltageV !== null && point.currentA !== null;
+  const v = hasVI ? point.voltageV! : point.resistanceOhm!;
+  const i = hasVI ? point.currentA! : 1;
   try {
     if (method === 'four-point') {
-      const out = fourPointProbe({
-        ...vi(),
+      const input: Parameters<typeof fourPointProbe>[0] = {
+        voltageV: v,
+        currentA: i,
         spacingCm: geometry.spacingCm!,
         thicknessCm: geometry.thicknessCm!,
-        ...(geometry.diameterCm !== undefined ? { diameterCm: geometry.diameterCm } : {}),
-      });
+      };
+      if (geometry.diameterCm !== undefined) input.diameterCm = geometry.diameterCm;
+      const out = fourPointProbe(input);
       point.sheetResistanceOhmSq = out.sheetResistanceOhmSq;
       point.resistivityOhmCm = out.resistivityOhmCm;
     } else if (method === 'bar') {
       point.resistivityOhmCm = barResistivity({
-        ...vi(),
+        voltageV: v,
+        currentA: i,
         lengthCm: geometry.barLengthCm!,
         widthCm: geometry.barWidthCm!,
         thicknessCm: geometry.thicknessCm!,

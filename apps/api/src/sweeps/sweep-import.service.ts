@@ -151,11 +151,10 @@ export async function importSweep(
   const columns = mapped.columns;
   const constantCurrentA = parsed.recognised.currentA;
   requireColumns(input.method, columns, constantCurrentA);
-  const cellProblems = unreadableCells(parsed, columns);
-  if (parsed.problems.length || cellProblems.length) {
+  if (parsed.problems.length) {
     throw unprocessable(
       'Some rows cannot be read; nothing was stored',
-      [...parsed.problems, ...cellProblems].slice(0, 50),
+      parsed.problems.slice(0, 50),
     );
   }
   const sha256 = createHash('sha256').update(input.file).digest('hex');
