@@ -74,6 +74,7 @@ start() {
   if is_up; then
     log "already running on 127.0.0.1:$(cat "$DATA_DIR/mariadb.port" 2>/dev/null || echo "$DB_PORT") (data in $DATA_DIR)"
     provision
+    write_env
     return
   fi
   if [ -f "$PID_FILE" ] && ! server_pid >/dev/null; then
@@ -113,6 +114,7 @@ start() {
   is_up || die "MariaDB did not answer within 30 s (log: $ERR_LOG)"
   echo "$DB_PORT" > "$DATA_DIR/mariadb.port"
   provision
+  write_env
   log "up (data in $DATA_DIR)"
 }
 
@@ -125,7 +127,6 @@ ALTER USER '$DB_USER'@'127.0.0.1' IDENTIFIED BY '$pw';
 GRANT ALL PRIVILEGES ON \`${DB_NAME}%\`.* TO '$DB_USER'@'127.0.0.1';
 FLUSH PRIVILEGES;
 SQL
-  write_env
 }
 
 stop() {
