@@ -73,6 +73,7 @@ start() {
   ensure_server_package
   if is_up; then
     log "already running on 127.0.0.1:$(cat "$DATA_DIR/mariadb.port" 2>/dev/null || echo "$DB_PORT") (data in $DATA_DIR)"
+    [ -f "$DATA_DIR/mariadb.port" ] && DB_PORT="$(cat "$DATA_DIR/mariadb.port")"
     provision
     write_env
     return
