@@ -30,6 +30,8 @@ export interface AppConfig {
   uploadLimitBytes: number;
   webDist: string;
   storage: 'db' | 's3';
+  /** Sign-in attempts one address and e-mail may make per 15 minutes (first-line limiter). */
+  signInLimitPer15Min: number;
 }
 
 type Env = Record<string, string | undefined>;
@@ -98,5 +100,6 @@ export function loadConfig(env: Env = process.env): AppConfig {
     uploadLimitBytes: intFrom(env, 'UPLOAD_LIMIT_MB', 20) * 1024 * 1024,
     webDist: env.WEB_DIST ?? join(REPO_ROOT, 'dist/web/browser'),
     storage: env.RAW_STORAGE === 's3' ? 's3' : 'db',
+    signInLimitPer15Min: intFrom(env, 'SIGN_IN_LIMIT', 30),
   };
 }

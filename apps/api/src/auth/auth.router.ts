@@ -45,7 +45,7 @@ function limiter(windowMs: number, limit: number, what: string): RateLimitReques
 export function authRouter(deps: AppDeps): Router {
   const router = Router();
   const c = authController(deps);
-  const signInLimit = limiter(15 * 60_000, 30, 'sign-in');
+  const signInLimit = limiter(15 * 60_000, deps.config.signInLimitPer15Min, 'sign-in');
   const resetLimit = limiter(60 * 60_000, 5, 'password reset');
   const confirmLimit = limiter(60 * 60_000, 20, 'password reset');
   router.post('/auth/login', signInLimit, c.login);
