@@ -125,13 +125,16 @@ async function findStation(
   return station;
 }
 
-/** The raw JSON document of a point: its file rows and their cells as read. */
+/**
+ * The raw JSON document of a point: the cells of its file row as read (an array), or for a
+ * polarity pair `{ rows, cells }` with both rows.
+ */
 function rawJson(parsed: ParsedSweepFile): (p: ConvertedPoint) => string {
+  const records = parsed.table.records;
   return (p) =>
-    JSON.stringify({
-      rows: p.sourceRows,
-      cells: p.recordIndexes.map((i) => parsed.table.records[i]),
-    });
+    p.sourceRows.length === 1
+      ? JSON.stringify(records[p.recordIndexes[0]!])
+      : JSON.stringify({ rows: p.sourceRows, cells: p.recordIndexes.map((i) => records[i]) });
 }
 
 /**

@@ -95,7 +95,8 @@ export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto>
   });
   const headers = columns.map((c) => c.header);
   const dtos: SweepPointDto[] = points.map((p) => {
-    const stored = (typeof p.raw === 'string' ? JSON.parse(p.raw) : p.raw) as StoredRaw;
+    const doc = (typeof p.raw === 'string' ? JSON.parse(p.raw) : p.raw) as StoredRaw | string[];
+    const stored: StoredRaw = Array.isArray(doc) ? { rows: [p.sourceRow], cells: [doc] } : doc;
     return {
       sequence: p.sequence,
       sourceRow: p.sourceRow,
