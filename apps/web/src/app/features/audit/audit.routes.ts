@@ -1,5 +1,5 @@
 import type { Routes } from '@angular/router';
 
 export const AUDIT_ROUTES: Routes = [
-  { path: '', loadComponent: () => import('./change-trail').then((m) => m.ChangeTrail) },
+  { path: '', title: 'Change trail · Rhotrace', loadComponent: () => import('./change-trail').then((m) => m.ChangeTrail) },
 ];

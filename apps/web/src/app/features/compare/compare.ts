@@ -1,8 +1,117 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatSelectModule } from '@angular/material/select';
+import { of } from 'rxjs';
+import { EstimateNote } from '../../shared/estimate-note';
+import { seriesColour } from '../../shared/plot/palette';
+import { Plot } from '../../shared/plot/plot';
+import { CompareApi } from './compare-api';
 
+/** Overlay: sweeps from several wafers or lots on one plot. */
 @Component({
   selector: 'rt-compare',
-  template: '<div class="rt-page"><h1 class="rt-page-title">Compare</h1></div>',
+  imports: [MatFormFieldModule, MatSelectModule, MatCheckboxModule, MatButtonModule, MatButtonToggleModule, Plot, EstimateNote],
+  template: `
+    <div class="rt-page">
+      <h1 class="rt-page-title">Overlay</h1>
+      <div class="rt-row">
+        <mat-form-field class="lots">
+          <mat-label>Lots</mat-label>
+          <mat-select multiple [value]="lotIds()" (valueChange)="lotIds.set($event)">
+            @for (l of lots.value() ?? []; track l.id) { <mat-option [value]="l.id">{{ l.code }} ({{ l.material }})</mat-option> }
+          </mat-select>
+        </mat-form-field>
+        <mat-button-toggle-group [value]="unit()" (change)="unit.set($event.value)" aria-label="Temperature unit" hideSingleSelectionIndicator>
+          <mat-button-toggle value="K">K</mat-button-toggle>
+          <mat-button-toggle value="C">°C</mat-button-toggle>
+        </mat-button-toggle-group>
+        <button mat-button type="button" (click)="plot()?.downloadPng('overlay')" [disabled]="!figure()">Save as PNG</button>
+      </div>
+      @if ((choices.value() ?? []).length > 0) {
+        <fieldset class="choices">
+          <legend>Sweeps to overlay</legend>
+          @for (c of choices.value() ?? []; track c.sweep.id) {
+            <mat-checkbox [checked]="chosen().includes(c.sweep.id)" (change)="toggle(c.sweep.id, $event.checked)">
+              {{ c.lotCode }} · W{{ c.wafer.number }} · {{ c.sweep.originalName }}
+            </mat-checkbox>
+          }
+        </fieldset>
+      } @else if (lotIds().length > 0 && !choices.isLoading()) {
+        <p class="rt-muted">These lots have no sweeps yet.</p>
+      }
+      @if (figure(); as f) {
+        <rt-plot #plot [data]="f.data" [layout]="f.layout" label="Resistivity against temperature for the chosen sweeps" />
+        <rt-estimate-note />
+      } @else {
+        <p class="rt-muted">Choose lots, then the sweeps to draw.</p>
+      }
+    </div>
+  `,
+  styles: `
+    .lots { width: 360px; max-width: 100%; }
+    .choices { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; display: flex; flex-wrap: wrap; gap: 0 16px; margin-bottom: 12px; }
+  `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class Compare {}
+export class Compare {
+  private readonly api = inject(CompareApi);
+  protected readonly plot = viewChild<Plot>('plot');
+
+  /** `?lot=ID` starts with that lot chosen. */
+  readonly lot = input<string>();
+  protected readonly lotIds = signal<number[]>([]);
+  protected readonly chosen = signal<number[]>([]);
+  protected readonly unit = signal<'K' | 'C'>('K');
+  protected readonly lots = rxResource({ stream: () => this.api.lots() });
+  protected readonly choices = rxResource({
+    params: () => (this.lots.value() ?? []).filter((l) => this.lotIds().includes(l.id)),
+    stream: ({ params }) => this.api.sweepsOfLots(params),
+  });
+  protected readonly curves = rxResource({
+    params: () => this.chosen(),
+    stream: ({ params }) => (params.length === 0 ? of(null) : this.api.compare(params)),
+  });
+  protected readonly figure = computed(() => {
+    const data = this.curves.value();
+    if (!data) return null;
+    const x = data.temperaturesK.map((k) => (this.unit() === 'K' ? k : k - 273.15));
+    return {
+      data: data.curves.map((c, i) => ({
+        type: 'scatter',
+        mode: 'lines+markers',
+        name: `${c.lotCode} W${c.waferNumber} (#${c.sweepId})`,
+        x,
+        y: c.resistivityOhmCm,
+        line: { color: seriesColour(i), width: 2 },
+        marker: { color: seriesColour(i), size: 4, symbol: ['circle', 'square', 'diamond', 'triangle-up', 'cross'][i % 5] },
+        connectgaps: false,
+      })),
+      layout: {
+        xaxis: { title: { text: this.unit() === 'K' ? 'Temperature (K)' : 'Temperature (°C)' } },
+        yaxis: { title: { text: 'Resistivity (Ω·cm)' }, type: 'log', exponentformat: 'power' },
+      },
+    };
+  });
+
+  constructor() {
+    effect(() => {
+      const id = this.lot();
+      if (id) untracked(() => this.lotIds.set([Number(id)]));
+    });
+    // Start with every sweep of a lot opened from its page.
+    effect(() => {
+      const choices = this.choices.value();
+      if (choices && this.lot() && untracked(() => this.chosen().length === 0)) {
+        untracked(() => this.chosen.set(choices.slice(0, 8).map((c) => c.sweep.id)));
+      }
+    });
+  }
+
+  protected toggle(id: number, on: boolean): void {
+    this.chosen.update((list) => (on ? [...list, id] : list.filter((x) => x !== id)));
+  }
+}

@@ -1,0 +1,24 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { Page, StationDto, StationInput } from '@rhotrace/api-types';
+import type { Observable } from 'rxjs';
+import { quietRequest } from '../../core/http/api-error';
+import { type ListQuery, listParams } from '../../shared/list-query';
+
+/** Probe stations. */
+@Injectable({ providedIn: 'root' })
+export class StationsApi {
+  private readonly http = inject(HttpClient);
+
+  list(query: ListQuery): Observable<Page<StationDto>> {
+    return this.http.get<Page<StationDto>>('/api/stations', { params: listParams(query) });
+  }
+
+  create(body: StationInput): Observable<StationDto> {
+    return this.http.post<StationDto>('/api/stations', body, { context: quietRequest() });
+  }
+
+  update(id: number, body: Partial<StationInput>): Observable<StationDto> {
+    return this.http.patch<StationDto>(`/api/stations/${id}`, body, { context: quietRequest() });
+  }
+}
