@@ -4,7 +4,14 @@
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { fitArrhenius, fitModel, modelCurve, seededNormal, seededRandom, BOLTZMANN_EV_PER_K } from '../src/index';
+import {
+  fitArrhenius,
+  fitModel,
+  modelCurve,
+  seededNormal,
+  seededRandom,
+  BOLTZMANN_EV_PER_K,
+} from '../src/index';
 
 interface BenchResult {
   name: string;
@@ -52,8 +59,16 @@ function record(name: string, value: number, target: number): void {
   results.push({ name, value: Number(value.toFixed(4)), unit: 'ms', target, pass: value < target });
 }
 
-record('modelCurve, 1,000 temperatures (median)', time(50, 20, () => modelCurve('Si', doping, temps1000)), 5);
-record('fitArrhenius, 10,000 points (median)', time(50, 20, () => fitArrhenius(arrheniusPoints)), 2);
+record(
+  'modelCurve, 1,000 temperatures (median)',
+  time(50, 20, () => modelCurve('Si', doping, temps1000)),
+  5,
+);
+record(
+  'fitArrhenius, 10,000 points (median)',
+  time(50, 20, () => fitArrhenius(arrheniusPoints)),
+  2,
+);
 record(
   'fitModel, 200-point sweep, 3 free parameters (median)',
   time(9, 2, () => fitModel(sweep, 'Si', start, ['donorDensity', 'acceptorDensity', 'donorLevel'])),
@@ -61,10 +76,15 @@ record(
 );
 
 for (const r of results) {
-  console.log(`${r.pass ? 'PASS' : 'FAIL'}  ${r.name}: ${r.value.toFixed(3)} ${r.unit} (target < ${r.target} ${r.unit})`);
+  console.log(
+    `${r.pass ? 'PASS' : 'FAIL'}  ${r.name}: ${r.value.toFixed(3)} ${r.unit} (target < ${r.target} ${r.unit})`,
+  );
 }
 
 const outDir = new URL('../../../bench/out/', import.meta.url);
 mkdirSync(fileURLToPath(outDir), { recursive: true });
-writeFileSync(fileURLToPath(new URL('physics.json', outDir)), `${JSON.stringify(results, null, 2)}\n`);
+writeFileSync(
+  fileURLToPath(new URL('physics.json', outDir)),
+  `${JSON.stringify(results, null, 2)}\n`,
+);
 console.log(`wrote ${fileURLToPath(new URL('physics.json', outDir))}`);

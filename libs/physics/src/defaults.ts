@@ -10,6 +10,13 @@ export type DensityOfStatesSetId = 'si-scaled-t15' | 'si-green-1990' | 'sze-t15'
 /** Names of the mobility models (see `mobility`). */
 export type MobilityModelId = 'arora-1982' | 'caughey-thomas-ideal';
 
+/**
+ * Names of the dopant-ionization models (see `carrierDensities`): `pearson-bardeen-1949` lowers
+ * each level with density and merges it continuously with the band; `constant-level` keeps the
+ * tabulated level and switches to full ionization at `mottDensityCm3` (a step).
+ */
+export type IonizationModelId = 'pearson-bardeen-1949' | 'constant-level';
+
 /** Library-wide defaults. */
 export const PHYSICS_DEFAULTS = {
   /** Density-of-states set used for each material unless an option names another. */
@@ -36,10 +43,43 @@ export const PHYSICS_DEFAULTS = {
    */
   ionizedFractionThreshold: 0.9,
   /**
-   * Dopant density at and above which the impurity band merges with the band edge (Mott
-   * transition), cm^-3: such dopants are treated as fully ionized at every temperature.
-   * Silicon: about 3e18 (Pearson and Bardeen 1949; Altermatt et al. 2006 put P near 3.7e18, from
-   * memory). Other materials scale with the effective Bohr radius (order-of-magnitude estimates).
+   * Ionization model per material unless `options.ionizationModel` names another. Silicon lowers
+   * its levels with density (Pearson & Bardeen 1949); the other materials have no lowering
+   * constant here and keep the tabulated level with the `mottDensityCm3` switch.
+   */
+  ionizationModel: {
+    Si: 'pearson-bardeen-1949',
+    Ge: 'constant-level',
+    GaAs: 'constant-level',
+    '4H-SiC': 'constant-level',
+  } as Readonly<Record<SemiconductorId, IonizationModelId>>,
+  /**
+   * Lowering constant alpha of E(N) = E0 - alpha N^(1/3), eV cm (Pearson & Bardeen, Phys. Rev.
+   * 75, 865 (1949); silicon about 3e-8 eV cm, from memory). N is the total impurity density
+   * N_D + N_A: the lowering comes from the Coulomb fields of the ionized impurities, and every
+   * dopant, compensating ones included, is ionized in the regime the relation was measured in.
+   * The level is clamped at 0: with E0 = 45 meV (P, B) it merges with the band at
+   * (E0/alpha)^3 = 3.4e18 cm^-3, close to the Mott density of silicon.
+   */
+  levelLoweringEvCm: { Si: 3.0e-8 } as Readonly<Partial<Record<SemiconductorId, number>>>,
+  /**
+   * Onset density N_b of the bound-state fraction of the `pearson-bardeen-1949` model, cm^-3:
+   * b = (1 - u) / (1 - u + exp(1 - N_b/N)), u = N / N_merge, N = N_D + N_A, is the share of the
+   * dopants that still hold a bound level; the rest have merged with the band and count as
+   * ionized. b is 1 to within 1e-20 below N_b / 50 (light-doping freeze-out is untouched), about
+   * 1/2 at N_b, and reaches 0 exactly where the level meets the band edge, N_merge = (E0/alpha)^3,
+   * so ionization becomes complete with no step. Rhotrace's own interpolation, not a published
+   * relation (the idea of a band-tail share follows Altermatt et al. 2006, J. Appl. Phys. 100,
+   * 113715, from memory); N_b was chosen so the 300 K model tracks ASTM F723 with the Arora
+   * mobilities, which were derived from resistivity assuming complete ionization.
+   */
+  boundFractionOnsetDensityCm3: 5e17,
+  /**
+   * Dopant density at and above which the `constant-level` model treats a dopant as fully
+   * ionized (Mott transition), cm^-3. Silicon: about 3e18 (Pearson and Bardeen 1949; Altermatt
+   * et al. 2006 put P near 3.7e18, from memory). Other materials scale with the effective Bohr
+   * radius (order-of-magnitude estimates). Under the silicon default (`pearson-bardeen-1949`)
+   * the merge density is (E0/alpha)^3 per species instead.
    */
   mottDensityCm3: {
     Si: { donor: 3e18, acceptor: 3e18 },

@@ -17,9 +17,29 @@ import { ARORA_1982_SILICON, CAUGHEY_THOMAS_SETS } from './semiconductor/mobilit
 export interface SemiconductorCatalogueEntry {
   id: SemiconductorId;
   name: string;
-  bandGap: { eg0Ev: number; alphaEvPerK: number; betaK: number; fittedRangeK: [number, number]; source: Citation };
-  densityOfStatesSets: Array<{ id: DensityOfStatesSetId; description: string; nc300: number; ncExponent: number; nv300: number; nvExponent: number; source: Citation; isDefault: boolean }>;
-  mobilityModels: Array<{ id: MobilityModelId; parameters: unknown; source: Citation; isDefault: boolean }>;
+  bandGap: {
+    eg0Ev: number;
+    alphaEvPerK: number;
+    betaK: number;
+    fittedRangeK: [number, number];
+    source: Citation;
+  };
+  densityOfStatesSets: Array<{
+    id: DensityOfStatesSetId;
+    description: string;
+    nc300: number;
+    ncExponent: number;
+    nv300: number;
+    nvExponent: number;
+    source: Citation;
+    isDefault: boolean;
+  }>;
+  mobilityModels: Array<{
+    id: MobilityModelId;
+    parameters: unknown;
+    source: Citation;
+    isDefault: boolean;
+  }>;
   donors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   acceptors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   dopantSource: Citation;
@@ -32,7 +52,10 @@ export interface MaterialCatalogue {
   metals: MetalReference[];
 }
 
-const ARORA_SOURCE: Citation = { label: 'Arora, Hauser & Roulston 1982', reference: 'IEEE Trans. Electron Devices 29, 292 (1982)' };
+const ARORA_SOURCE: Citation = {
+  label: 'Arora, Hauser & Roulston 1982',
+  reference: 'IEEE Trans. Electron Devices 29, 292 (1982)',
+};
 
 /**
  * Lists materials, dopants with their levels, density-of-states and mobility parameter sets and
@@ -46,7 +69,13 @@ export function listMaterials(): MaterialCatalogue {
     const dopants = DOPANTS[id];
     const defaultModel = PHYSICS_DEFAULTS.mobilityModel[id];
     const models: SemiconductorCatalogueEntry['mobilityModels'] = [];
-    if (id === 'Si') models.push({ id: 'arora-1982', parameters: ARORA_1982_SILICON, source: ARORA_SOURCE, isDefault: defaultModel === 'arora-1982' });
+    if (id === 'Si')
+      models.push({
+        id: 'arora-1982',
+        parameters: ARORA_1982_SILICON,
+        source: ARORA_SOURCE,
+        isDefault: defaultModel === 'arora-1982',
+      });
     const ct = CAUGHEY_THOMAS_SETS[id];
     models.push({
       id: 'caughey-thomas-ideal',
@@ -60,10 +89,24 @@ export function listMaterials(): MaterialCatalogue {
       bandGap: { ...VARSHNI_PARAMETERS[id] },
       densityOfStatesSets: Object.values(DENSITY_OF_STATES_SETS)
         .filter((s) => s.values[id])
-        .map((s) => ({ id: s.id, description: s.description, ...s.values[id]!, source: s.source, isDefault: PHYSICS_DEFAULTS.densityOfStatesSet[id] === s.id })),
+        .map((s) => ({
+          id: s.id,
+          description: s.description,
+          ...s.values[id]!,
+          source: s.source,
+          isDefault: PHYSICS_DEFAULTS.densityOfStatesSet[id] === s.id,
+        })),
       mobilityModels: models,
-      donors: Object.entries(dopants.donors).map(([name, levelEv]) => ({ name, levelEv: levelEv!, isDefault: name === dopants.defaultDonor })),
-      acceptors: Object.entries(dopants.acceptors).map(([name, levelEv]) => ({ name, levelEv: levelEv!, isDefault: name === dopants.defaultAcceptor })),
+      donors: Object.entries(dopants.donors).map(([name, levelEv]) => ({
+        name,
+        levelEv: levelEv!,
+        isDefault: name === dopants.defaultDonor,
+      })),
+      acceptors: Object.entries(dopants.acceptors).map(([name, levelEv]) => ({
+        name,
+        levelEv: levelEv!,
+        isDefault: name === dopants.defaultAcceptor,
+      })),
       dopantSource: dopants.source,
       mottDensityCm3: { ...PHYSICS_DEFAULTS.mottDensityCm3[id] },
     };

@@ -10,7 +10,12 @@ describe('celsiusToKelvin and kelvinToCelsius', () => {
     expect(kelvinToCelsius(373.15)).toBeCloseTo(100, 12);
   });
   it('are inverses', () => {
-    fc.assert(fc.property(fc.double({ min: -273.15, max: 5000, noNaN: true }), (t) => Math.abs(kelvinToCelsius(celsiusToKelvin(t)) - t) < 1e-9));
+    fc.assert(
+      fc.property(
+        fc.double({ min: -273.15, max: 5000, noNaN: true }),
+        (t) => Math.abs(kelvinToCelsius(celsiusToKelvin(t)) - t) < 1e-9,
+      ),
+    );
   });
 });
 

@@ -14,7 +14,9 @@ import { requireFiniteNumber } from './validate';
 export function celsiusToKelvin(temperatureCelsius: number): number {
   const t = requireFiniteNumber('celsiusToKelvin', 'temperatureCelsius', temperatureCelsius);
   if (t < -ZERO_CELSIUS_K) {
-    throw new RangeError(`\`celsiusToKelvin\` requires temperatureCelsius of at least -273.15, got ${t}`);
+    throw new RangeError(
+      `\`celsiusToKelvin\` requires temperatureCelsius of at least -273.15, got ${t}`,
+    );
   }
   return t + ZERO_CELSIUS_K;
 }
@@ -28,6 +30,7 @@ export function celsiusToKelvin(temperatureCelsius: number): number {
  */
 export function kelvinToCelsius(temperatureK: number): number {
   const t = requireFiniteNumber('kelvinToCelsius', 'temperatureK', temperatureK);
-  if (t < 0) throw new RangeError(`\`kelvinToCelsius\` requires temperatureK of at least 0, got ${t}`);
+  if (t < 0)
+    throw new RangeError(`\`kelvinToCelsius\` requires temperatureK of at least 0, got ${t}`);
   return t - ZERO_CELSIUS_K;
 }

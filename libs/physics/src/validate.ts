@@ -6,11 +6,7 @@
  * argument, e.g. "`bandGap` requires a temperature (temperatureK) between 1 K and 1500 K, got 0".
  * Internal code then trusts its inputs, which keeps the hot loops free of checks.
  */
-import {
-  BOUND_ALLOWANCE_K,
-  MAX_TEMPERATURE_K,
-  MIN_TEMPERATURE_K,
-} from './constants';
+import { BOUND_ALLOWANCE_K, MAX_TEMPERATURE_K, MIN_TEMPERATURE_K } from './constants';
 
 /** Formats a received value for an error message without throwing on odd inputs. */
 export function describeValue(value: unknown): string {

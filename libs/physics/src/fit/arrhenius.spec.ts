@@ -7,9 +7,17 @@ import { studentTCritical } from '../numeric/student-t';
 import { fitArrhenius } from './arrhenius';
 
 const k = BOLTZMANN_EV_PER_K;
-const sweep = (ea: number, temps: number[], noise = 0, seed = 1): Array<{ temperatureK: number; value: number }> => {
+const sweep = (
+  ea: number,
+  temps: number[],
+  noise = 0,
+  seed = 1,
+): Array<{ temperatureK: number; value: number }> => {
   const n = seededNormal(seededRandom(seed));
-  return temps.map((t) => ({ temperatureK: t, value: 1e-3 * Math.exp(ea / (k * t) + noise * n()) }));
+  return temps.map((t) => ({
+    temperatureK: t,
+    value: 1e-3 * Math.exp(ea / (k * t) + noise * n()),
+  }));
 };
 const range = (a: number, b: number, count: number): number[] =>
   Array.from({ length: count }, (_, i) => a + ((b - a) * i) / (count - 1));
@@ -18,8 +26,16 @@ describe('studentTCritical', () => {
   it('matches the t table', () => {
     // NIST/SEMATECH e-Handbook of Statistical Methods, 1.3.6.7.2, upper 0.975 critical values:
     // 1 -> 12.706, 2 -> 4.303, 5 -> 2.571, 10 -> 2.228, 30 -> 2.042, 100 -> 1.984. Tolerance 1e-3.
-    const table: Array<[number, number]> = [[1, 12.706], [2, 4.303], [5, 2.571], [10, 2.228], [30, 2.042], [100, 1.984]];
-    for (const [dof, t] of table) expect(Math.abs(studentTCritical(0.95, dof) - t)).toBeLessThan(1e-3);
+    const table: Array<[number, number]> = [
+      [1, 12.706],
+      [2, 4.303],
+      [5, 2.571],
+      [10, 2.228],
+      [30, 2.042],
+      [100, 1.984],
+    ];
+    for (const [dof, t] of table)
+      expect(Math.abs(studentTCritical(0.95, dof) - t)).toBeLessThan(1e-3);
   });
 });
 
@@ -30,12 +46,18 @@ describe('fitArrhenius', () => {
     expect(r.activationEnergyEv).toBeCloseTo(0.56, 10);
     expect(r.rSquared).toBeCloseTo(1, 12);
     expect(r.intercept).toBeCloseTo(Math.log(1e-3), 8);
-    const c = fitArrhenius(pts.map((p) => ({ temperatureK: p.temperatureK, value: 1 / p.value })), { quantity: 'conductivity' });
+    const c = fitArrhenius(
+      pts.map((p) => ({ temperatureK: p.temperatureK, value: 1 / p.value })),
+      { quantity: 'conductivity' },
+    );
     expect(c.activationEnergyEv).toBeCloseTo(0.56, 10);
   });
 
   it('removes a T^m prefactor', () => {
-    const pts = range(300, 600, 10).map((t) => ({ temperatureK: t, value: Math.pow(t, -1.5) * Math.exp(0.3 / (k * t)) }));
+    const pts = range(300, 600, 10).map((t) => ({
+      temperatureK: t,
+      value: Math.pow(t, -1.5) * Math.exp(0.3 / (k * t)),
+    }));
     expect(fitArrhenius(pts, { prefactorExponent: 1.5 }).activationEnergyEv).toBeCloseTo(0.3, 10);
     expect(Math.abs(fitArrhenius(pts).activationEnergyEv - 0.3)).toBeGreaterThan(0.01);
   });
@@ -43,7 +65,9 @@ describe('fitArrhenius', () => {
   it('agrees with simple-statistics linearRegression as an independent reference', () => {
     const pts = sweep(0.2, range(100, 400, 40), 0.05, 9);
     const r = fitArrhenius(pts, { prefactorExponent: 0.5 });
-    const ref = linearRegression(pts.map((p) => [1 / (k * p.temperatureK), Math.log(p.value * Math.sqrt(p.temperatureK))]));
+    const ref = linearRegression(
+      pts.map((p) => [1 / (k * p.temperatureK), Math.log(p.value * Math.sqrt(p.temperatureK))]),
+    );
     expect(r.activationEnergyEv / ref.m).toBeCloseTo(1, 10);
     expect(r.intercept).toBeCloseTo(ref.b, 8);
   });
@@ -85,14 +109,20 @@ describe('fitArrhenius', () => {
 describe('fitArrhenius invalid inputs', () => {
   const pts = sweep(0.3, range(300, 400, 5));
   it('rejects windows with fewer than 3 points and degenerate data', () => {
-    expect(() => fitArrhenius(pts, { minK: 390 })).toThrow(/`fitArrhenius`.*at least 3 points.*got 1/);
+    expect(() => fitArrhenius(pts, { minK: 390 })).toThrow(
+      /`fitArrhenius`.*at least 3 points.*got 1/,
+    );
     expect(() => fitArrhenius(pts.slice(0, 2))).toThrow(RangeError);
     expect(() => fitArrhenius([pts[0]!, pts[0]!, pts[0]!])).toThrow(/distinct temperatures/);
     expect(() => fitArrhenius(pts, { minK: 400, maxK: 300 })).toThrow(/minK/);
   });
   it('rejects bad points and options', () => {
-    expect(() => fitArrhenius([...pts, { temperatureK: 300, value: 0 }])).toThrow(/points\[5\]\.value/);
-    expect(() => fitArrhenius([...pts, { temperatureK: Number.NaN, value: 1 }])).toThrow(RangeError);
+    expect(() => fitArrhenius([...pts, { temperatureK: 300, value: 0 }])).toThrow(
+      /points\[5\]\.value/,
+    );
+    expect(() => fitArrhenius([...pts, { temperatureK: Number.NaN, value: 1 }])).toThrow(
+      RangeError,
+    );
     expect(() => fitArrhenius('x' as unknown as typeof pts)).toThrow(TypeError);
     expect(() => fitArrhenius(pts, { quantity: 'mobility' as 'resistivity' })).toThrow(/quantity/);
     expect(() => fitArrhenius(pts, { prefactorExponent: Number.NaN })).toThrow(/prefactorExponent/);

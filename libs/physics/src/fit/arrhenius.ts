@@ -66,22 +66,34 @@ export function fitArrhenius(
   const quantity =
     o['quantity'] === undefined
       ? PHYSICS_DEFAULTS.arrheniusQuantity
-      : requireOneOf(fn, 'options.quantity', o['quantity'], ['resistivity', 'conductivity'] as const);
+      : requireOneOf(fn, 'options.quantity', o['quantity'], [
+          'resistivity',
+          'conductivity',
+        ] as const);
   const m =
     o['prefactorExponent'] === undefined
       ? PHYSICS_DEFAULTS.arrheniusPrefactorExponent
       : requireFiniteNumber(fn, 'options.prefactorExponent', o['prefactorExponent']);
   const minK = o['minK'] === undefined ? 0 : requireFiniteNumber(fn, 'options.minK', o['minK']);
   const maxK =
-    o['maxK'] === undefined ? Number.POSITIVE_INFINITY : requireFiniteNumber(fn, 'options.maxK', o['maxK']);
+    o['maxK'] === undefined
+      ? Number.POSITIVE_INFINITY
+      : requireFiniteNumber(fn, 'options.maxK', o['maxK']);
   if (minK > maxK) {
-    throw new RangeError(`\`${fn}\` requires options.minK at most options.maxK, got ${minK} > ${maxK}`);
+    throw new RangeError(
+      `\`${fn}\` requires options.minK at most options.maxK, got ${minK} > ${maxK}`,
+    );
   }
-  const [temps, values] = readPoints(fn, points, ['temperatureK', 'value'], 0) as [Float64Array, Float64Array];
+  const [temps, values] = readPoints(fn, points, ['temperatureK', 'value'], 0) as [
+    Float64Array,
+    Float64Array,
+  ];
   let count = 0;
   for (let i = 0; i < temps.length; i++) if (temps[i]! >= minK && temps[i]! <= maxK) count++;
   if (count < 3) {
-    throw new RangeError(`\`${fn}\` requires at least 3 points in the temperature window, got ${count}`);
+    throw new RangeError(
+      `\`${fn}\` requires at least 3 points in the temperature window, got ${count}`,
+    );
   }
   const x = new Float64Array(count);
   const y = new Float64Array(count);
@@ -99,7 +111,9 @@ export function fitArrhenius(
     j++;
   }
   if (tMin === tMax) {
-    throw new RangeError(`\`${fn}\` requires at least two distinct temperatures in the window, got only ${tMin} K`);
+    throw new RangeError(
+      `\`${fn}\` requires at least two distinct temperatures in the window, got only ${tMin} K`,
+    );
   }
   const line = fitLine(x, y);
   const ea = sign * line.slope;

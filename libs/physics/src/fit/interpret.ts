@@ -46,12 +46,20 @@ export function interpretArrheniusSlope(input: {
   const fn = 'interpretArrheniusSlope';
   const o = requireObject(fn, 'input', input);
   const ea = requireFiniteNumber(fn, 'activationEnergyEv', o['activationEnergyEv']);
-  const regime = requireOneOf(fn, 'regime', o['regime'], ['freeze-out', 'extrinsic', 'intrinsic'] as const);
+  const regime = requireOneOf(fn, 'regime', o['regime'], [
+    'freeze-out',
+    'extrinsic',
+    'intrinsic',
+  ] as const);
   const compensated = o['compensated'] === undefined ? false : o['compensated'];
-  if (typeof compensated !== 'boolean') throw new TypeError(`\`${fn}\` requires compensated to be a boolean`);
+  if (typeof compensated !== 'boolean')
+    throw new TypeError(`\`${fn}\` requires compensated to be a boolean`);
   const material =
-    o['material'] === undefined ? undefined : requireOneOf(fn, 'material', o['material'], SEMICONDUCTORS);
-  const t = o['temperatureK'] === undefined ? undefined : requireTemperatureK(fn, o['temperatureK']);
+    o['material'] === undefined
+      ? undefined
+      : requireOneOf(fn, 'material', o['material'], SEMICONDUCTORS);
+  const t =
+    o['temperatureK'] === undefined ? undefined : requireTemperatureK(fn, o['temperatureK']);
   const f = (v: number): string => v.toFixed(3);
   if (regime === 'extrinsic') {
     return {

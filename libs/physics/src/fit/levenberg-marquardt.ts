@@ -36,7 +36,11 @@ function sumSquares(r: ArrayLike<number>): number {
 }
 
 /** Forward-difference Jacobian, m x k, column-major as k arrays. */
-function jacobian(problem: LeastSquaresProblem, p: number[], r0: ArrayLike<number>): Float64Array[] | null {
+function jacobian(
+  problem: LeastSquaresProblem,
+  p: number[],
+  r0: ArrayLike<number>,
+): Float64Array[] | null {
   const cols: Float64Array[] = [];
   for (let j = 0; j < p.length; j++) {
     const h = 1e-7 * Math.max(Math.abs(p[j]!), 1e-2);
@@ -106,7 +110,10 @@ export function invertSpd(a: number[][]): number[][] | null {
   return maxDiag > 1e14 ? null : inv;
 }
 
-function normalEquations(cols: Float64Array[], r: ArrayLike<number>): { a: number[][]; g: number[] } {
+function normalEquations(
+  cols: Float64Array[],
+  r: ArrayLike<number>,
+): { a: number[][]; g: number[] } {
   const k = cols.length;
   const a = Array.from({ length: k }, () => new Array<number>(k).fill(0));
   const g = new Array<number>(k).fill(0);
@@ -147,9 +154,18 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
   const finish = (iterations: number, converged: boolean, reason: string): LeastSquaresResult => {
     const cols = Number.isFinite(cost) ? jacobian(problem, p, r) : null;
     const cov = cols ? invertSpd(normalEquations(cols, r).a) : null;
-    return { parameters: p, residuals: Array.from(r), cost, iterations, converged, reason, unscaledCovariance: cov };
+    return {
+      parameters: p,
+      residuals: Array.from(r),
+      cost,
+      iterations,
+      converged,
+      reason,
+      unscaledCovariance: cov,
+    };
   };
-  if (!Number.isFinite(cost)) return finish(0, false, 'the model cannot be evaluated at the initial parameters');
+  if (!Number.isFinite(cost))
+    return finish(0, false, 'the model cannot be evaluated at the initial parameters');
   let lambda = 1e-3;
   for (let iter = 1; iter <= maxIterations; iter++) {
     const cols = jacobian(problem, p, r);
@@ -159,21 +175,29 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
     if (gradNorm <= 1e-14 * Math.max(cost, 1e-300)) return finish(iter, true, 'gradient vanished');
     let accepted = false;
     while (!accepted) {
-      const damped = a.map((row, i) => row.map((v, j) => (i === j ? v * (1 + lambda) + 1e-300 : v)));
-      const delta = choleskySolve(damped, g.map((v) => -v));
+      const damped = a.map((row, i) =>
+        row.map((v, j) => (i === j ? v * (1 + lambda) + 1e-300 : v)),
+      );
+      const delta = choleskySolve(
+        damped,
+        g.map((v) => -v),
+      );
       if (delta) {
         const q = p.map((v, i) => v + delta[i]!);
         const rq = problem.residuals(q);
         const cq = sumSquares(rq);
         if (cq <= cost) {
           const relFall = (cost - cq) / Math.max(cost, 1e-300);
-          const smallStep = delta.every((d, i) => Math.abs(d) <= stepTol * (Math.abs(p[i]!) + stepTol));
+          const smallStep = delta.every(
+            (d, i) => Math.abs(d) <= stepTol * (Math.abs(p[i]!) + stepTol),
+          );
           p = q;
           r = rq;
           cost = cq;
           lambda = Math.max(lambda / 3, 1e-12);
           accepted = true;
-          if (relFall < costTol && iter > 1) return finish(iter, true, 'relative change of the sum of squares below tolerance');
+          if (relFall < costTol && iter > 1)
+            return finish(iter, true, 'relative change of the sum of squares below tolerance');
           if (smallStep) return finish(iter, true, 'parameter step below tolerance');
           continue;
         }
@@ -183,9 +207,14 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
         // At a minimum to rounding no step can lower the cost: accept it only if the
         // Gauss–Newton predicted decrease (about sum g_i^2 / a_ii) is itself negligible.
         let predicted = 0;
-        for (let i = 0; i < g.length; i++) predicted += (g[i]! * g[i]!) / Math.max(a[i]![i]!, 1e-300);
+        for (let i = 0; i < g.length; i++)
+          predicted += (g[i]! * g[i]!) / Math.max(a[i]![i]!, 1e-300);
         if (predicted <= 1e-8 * cost) return finish(iter, true, 'at a minimum within rounding');
-        return finish(iter, false, 'no step lowers the sum of squares (damping exhausted) before the convergence tests were met');
+        return finish(
+          iter,
+          false,
+          'no step lowers the sum of squares (damping exhausted) before the convergence tests were met',
+        );
       }
     }
   }

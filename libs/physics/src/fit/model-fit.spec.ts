@@ -19,11 +19,12 @@ describe('fitModel', () => {
   it('fits a noisy synthetic sweep back within 3 % on densities and 3 meV on the level', () => {
     // Round trip: Si, Nd 5e15, Na 1e15, Ed 45 meV, 20–615 K, 0.5 % noise; start 3x off.
     const { truth, points } = synthetic(11);
-    const fit = fitModel(points, 'Si', { donorDensity: 1.5e16, acceptorDensity: 3e14, donorLevel: 0.035 }, [
-      'donorDensity',
-      'acceptorDensity',
-      'donorLevel',
-    ]);
+    const fit = fitModel(
+      points,
+      'Si',
+      { donorDensity: 1.5e16, acceptorDensity: 3e14, donorLevel: 0.035 },
+      ['donorDensity', 'acceptorDensity', 'donorLevel'],
+    );
     expect(fit.converged).toBe(true);
     expect(fit.reason.length).toBeGreaterThan(0);
     expect(Math.abs(fit.parameters.donorDensity / truth.donorDensity - 1)).toBeLessThan(0.03);
@@ -33,7 +34,11 @@ describe('fitModel', () => {
     expect(fit.residualRms).toBeGreaterThan(0.004);
     expect(fit.residualRms).toBeLessThan(0.006);
     expect(fit.parameters.mobilityScale).toBe(1);
-    expect(Object.keys(fit.standardErrors).sort()).toEqual(['acceptorDensity', 'donorDensity', 'donorLevel']);
+    expect(Object.keys(fit.standardErrors).sort()).toEqual([
+      'acceptorDensity',
+      'donorDensity',
+      'donorLevel',
+    ]);
     // The 95 % intervals contain the truth.
     const ci = fit.confidenceIntervals95.donorDensity!;
     expect(ci[0]).toBeLessThan(truth.donorDensity);
@@ -43,12 +48,12 @@ describe('fitModel', () => {
 
   it('fits the mobility scale together with the doping', () => {
     const { truth, points } = synthetic(5);
-    const fit = fitModel(points, 'Si', { donorDensity: 1e16, acceptorDensity: 5e14, donorLevel: 0.05 }, [
-      'donorDensity',
-      'acceptorDensity',
-      'donorLevel',
-      'mobilityScale',
-    ]);
+    const fit = fitModel(
+      points,
+      'Si',
+      { donorDensity: 1e16, acceptorDensity: 5e14, donorLevel: 0.05 },
+      ['donorDensity', 'acceptorDensity', 'donorLevel', 'mobilityScale'],
+    );
     expect(fit.converged).toBe(true);
     expect(Math.abs(fit.parameters.donorDensity / truth.donorDensity - 1)).toBeLessThan(0.03);
     expect(Math.abs(fit.parameters.mobilityScale - 1)).toBeLessThan(0.02);
@@ -59,7 +64,10 @@ describe('levenbergMarquardt', () => {
   it('reproduces ordinary least squares and its standard errors on a straight line', () => {
     const x = [1, 2, 3, 4, 5, 6];
     const y = [2.1, 3.9, 6.2, 7.8, 10.1, 12.2];
-    const lm = levenbergMarquardt({ residuals: (p) => x.map((xi, i) => p[0]! + p[1]! * xi - y[i]!), initial: [0, 0] });
+    const lm = levenbergMarquardt({
+      residuals: (p) => x.map((xi, i) => p[0]! + p[1]! * xi - y[i]!),
+      initial: [0, 0],
+    });
     // Closed-form OLS: slope = Sxy / Sxx = 2.0086, se = sqrt(s^2 / Sxx).
     const mx = 3.5;
     const my = y.reduce((a, b) => a + b) / 6;
@@ -88,7 +96,10 @@ describe('levenbergMarquardt', () => {
   });
 
   it('flags non-identifiable parameters with a null covariance', () => {
-    const lm = levenbergMarquardt({ residuals: (p) => [p[0]! + p[1]! - 1, 2 * (p[0]! + p[1]!) - 2], initial: [0, 0] });
+    const lm = levenbergMarquardt({
+      residuals: (p) => [p[0]! + p[1]! - 1, 2 * (p[0]! + p[1]!) - 2],
+      initial: [0, 0],
+    });
     expect(lm.unscaledCovariance).toBeNull();
   });
 });
@@ -99,9 +110,15 @@ describe('fitModel invalid inputs', () => {
   it('rejects bad free lists, starts and points', () => {
     expect(() => fitModel(points, 'Si', start, [])).toThrow(/`fitModel`.*free/);
     expect(() => fitModel(points, 'Si', start, ['bandGap' as 'donorLevel'])).toThrow(RangeError);
-    expect(() => fitModel(points, 'Si', start, ['acceptorDensity'])).toThrow(/starting acceptorDensity above 0/);
+    expect(() => fitModel(points, 'Si', start, ['acceptorDensity'])).toThrow(
+      /starting acceptorDensity above 0/,
+    );
     expect(() => fitModel(points.slice(0, 1), 'Si', start, ['donorDensity'])).toThrow(RangeError);
-    expect(() => fitModel([{ temperatureK: 2000, resistivityOhmCm: 1 }, ...points], 'Si', start, ['donorDensity'])).toThrow(/temperatureK/);
+    expect(() =>
+      fitModel([{ temperatureK: 2000, resistivityOhmCm: 1 }, ...points], 'Si', start, [
+        'donorDensity',
+      ]),
+    ).toThrow(/temperatureK/);
     expect(() => fitModel(points, 'Si', start, ['donorDensity', 'donorDensity'])).toThrow(/once/);
     expect(() => fitModel(points, 'Xx' as 'Si', start, ['donorDensity'])).toThrow(/material/);
   });

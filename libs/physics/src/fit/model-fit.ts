@@ -2,10 +2,14 @@
  * Full-model fit of a measured rho(T) sweep: dopant densities, levels and a mobility scale.
  */
 import { studentTCritical } from '../numeric/student-t';
-import { PHYSICS_DEFAULTS } from '../defaults';
 import { requireArray, requireOneOf } from '../validate';
-import type { Doping, ResolvedDoping } from '../semiconductor/dopants';
-import { MAX_DOPING_CM3, resolveDoping } from '../semiconductor/dopants';
+import type { Doping } from '../semiconductor/dopants';
+import {
+  checkDoping,
+  ionizeDoping,
+  MAX_DOPING_CM3,
+  resolveIonizationModel,
+} from '../semiconductor/dopants';
 import type { SemiconductorId } from '../semiconductor/material';
 import { requireSemiconductor } from '../semiconductor/material';
 import type { ResistivityOptions } from '../semiconductor/resistivity';
@@ -14,11 +18,22 @@ import { levenbergMarquardt } from './levenberg-marquardt';
 import { readPoints } from './points';
 
 /** Parameters `fitModel` can free. */
-export type ModelParameter = 'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel' | 'mobilityScale';
+export type ModelParameter =
+  'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel' | 'mobilityScale';
 
-const PARAMETERS: readonly ModelParameter[] = ['donorDensity', 'acceptorDensity', 'donorLevel', 'acceptorLevel', 'mobilityScale'];
+const PARAMETERS: readonly ModelParameter[] = [
+  'donorDensity',
+  'acceptorDensity',
+  'donorLevel',
+  'acceptorLevel',
+  'mobilityScale',
+];
 /** Fitted on a log scale: positive quantities spanning decades. */
-const LOG_SCALE: ReadonlySet<ModelParameter> = new Set(['donorDensity', 'acceptorDensity', 'mobilityScale']);
+const LOG_SCALE: ReadonlySet<ModelParameter> = new Set([
+  'donorDensity',
+  'acceptorDensity',
+  'mobilityScale',
+]);
 
 /** Result of `fitModel`. */
 export interface ModelFit {
@@ -49,6 +64,8 @@ export interface ModelFit {
  * Fixed parameters keep their `initial` values; a free level without an initial value starts at
  * the material's default level; `mobilityScale` starts at 1 unless `options.mobilityScale` says
  * otherwise. `converged` is true only when a convergence test was met (see `reason`).
+ * Levels are the isolated (dilute-limit) ionization energies E0; the model lowers them with
+ * density exactly as `resistivity` does (`options.ionizationModel`, default per material).
  * Assumptions: equal relative errors on rho; those of `resistivity`.
  *
  * @param points measured { temperatureK, resistivityOhmCm } (more points than free parameters)
@@ -66,30 +83,42 @@ export function fitModel(
 ): ModelFit {
   const fn = 'fitModel';
   const m = requireSemiconductor(fn, material);
-  const start = resolveDoping(fn, m, initial);
-  const freeList = requireArray(fn, 'free', free, 1).map((f, i) => requireOneOf(fn, `free[${i}]`, f, PARAMETERS));
-  if (new Set(freeList).size !== freeList.length) throw new RangeError(`\`${fn}\` requires free to list each parameter once`);
+  const start = checkDoping(fn, m, initial);
+  const ionization = resolveIonizationModel(fn, m, options?.ionizationModel);
+  const freeList = requireArray(fn, 'free', free, 1).map((f, i) =>
+    requireOneOf(fn, `free[${i}]`, f, PARAMETERS),
+  );
+  if (new Set(freeList).size !== freeList.length)
+    throw new RangeError(`\`${fn}\` requires free to list each parameter once`);
   const model = resolveModel(fn, m, options);
-  const [temps, rhos] = readPoints(fn, points, ['temperatureK', 'resistivityOhmCm'], freeList.length + 1) as [Float64Array, Float64Array];
+  const [temps, rhos] = readPoints(
+    fn,
+    points,
+    ['temperatureK', 'resistivityOhmCm'],
+    freeList.length + 1,
+  ) as [Float64Array, Float64Array];
   for (let i = 0; i < temps.length; i++) {
     if (temps[i]! < 1 || temps[i]! > 1500) {
-      throw new RangeError(`\`${fn}\` requires points[${i}].temperatureK between 1 K and 1500 K, got ${temps[i]}`);
+      throw new RangeError(
+        `\`${fn}\` requires points[${i}].temperatureK between 1 K and 1500 K, got ${temps[i]}`,
+      );
     }
   }
   const values: Record<ModelParameter, number> = {
     donorDensity: start.donorDensity,
     acceptorDensity: start.acceptorDensity,
-    donorLevel: start.donorLevelEv,
-    acceptorLevel: start.acceptorLevelEv,
+    donorLevel: start.donorLevel0Ev,
+    acceptorLevel: start.acceptorLevel0Ev,
     mobilityScale: model.mobilityScale,
   };
   for (const f of freeList) {
     if (LOG_SCALE.has(f) && !(values[f] > 0)) {
-      throw new RangeError(`\`${fn}\` requires a starting ${f} above 0 when it is free, got ${values[f]}`);
+      throw new RangeError(
+        `\`${fn}\` requires a starting ${f} above 0 when it is free, got ${values[f]}`,
+      );
     }
   }
   const lnRho = Array.from(rhos, Math.log);
-  const mott = PHYSICS_DEFAULTS.mottDensityCm3[m];
 
   const unpack = (p: readonly number[]): Record<ModelParameter, number> => {
     const v = { ...values };
@@ -100,20 +129,26 @@ export function fitModel(
     const v = unpack(p);
     const out = new Float64Array(temps.length);
     const feasible =
-      v.donorDensity <= MAX_DOPING_CM3 && v.acceptorDensity <= MAX_DOPING_CM3 &&
-      v.donorLevel > 0 && v.donorLevel <= 1 && v.acceptorLevel > 0 && v.acceptorLevel <= 1 &&
-      v.mobilityScale > 1e-6 && v.mobilityScale < 1e6;
+      v.donorDensity <= MAX_DOPING_CM3 &&
+      v.acceptorDensity <= MAX_DOPING_CM3 &&
+      v.donorLevel > 0 &&
+      v.donorLevel <= 1 &&
+      v.acceptorLevel > 0 &&
+      v.acceptorLevel <= 1 &&
+      v.mobilityScale > 1e-6 &&
+      v.mobilityScale < 1e6;
     if (!feasible) return out.fill(Number.NaN);
-    const d: ResolvedDoping = {
-      donorDensity: v.donorDensity,
-      acceptorDensity: v.acceptorDensity,
-      donorLevelEv: v.donorLevel,
-      acceptorLevelEv: v.acceptorLevel,
-      donorsMetallic: v.donorDensity >= mott.donor,
-      acceptorsMetallic: v.acceptorDensity >= mott.acceptor,
-    };
+    const d = ionizeDoping(
+      m,
+      ionization,
+      v.donorDensity,
+      v.acceptorDensity,
+      v.donorLevel,
+      v.acceptorLevel,
+    );
     const cfg = { ...model, mobilityScale: v.mobilityScale };
-    for (let i = 0; i < temps.length; i++) out[i] = modelPointUnchecked(cfg, d, temps[i]!).lnResistivity - lnRho[i]!;
+    for (let i = 0; i < temps.length; i++)
+      out[i] = modelPointUnchecked(cfg, d, temps[i]!).lnResistivity - lnRho[i]!;
     return out;
   };
 

@@ -18,16 +18,22 @@ export function readPoints(
   for (let i = 0; i < list.length; i++) {
     const p = list[i] as Record<string, unknown> | null;
     if (typeof p !== 'object' || p === null) {
-      throw new TypeError(`\`${fn}\` requires points[${i}] to be an object, got ${describeValue(p)}`);
+      throw new TypeError(
+        `\`${fn}\` requires points[${i}] to be an object, got ${describeValue(p)}`,
+      );
     }
     for (let k = 0; k < keys.length; k++) {
       const key = keys[k]!;
       const v = p[key];
       if (typeof v !== 'number') {
-        throw new TypeError(`\`${fn}\` requires points[${i}].${key} to be a number, got ${describeValue(v)}`);
+        throw new TypeError(
+          `\`${fn}\` requires points[${i}].${key} to be a number, got ${describeValue(v)}`,
+        );
       }
       if (!(v > 0) || !Number.isFinite(v)) {
-        throw new RangeError(`\`${fn}\` requires points[${i}].${key} to be a finite number above 0, got ${v}`);
+        throw new RangeError(
+          `\`${fn}\` requires points[${i}].${key} to be a finite number above 0, got ${v}`,
+        );
       }
       columns[k]![i] = v;
     }

@@ -8,7 +8,10 @@ const copper = (t: number): number => 1.68e-6 * (1 + 0.0039 * (t - 293.15));
 describe('fitLinearTcr', () => {
   it('recovers the copper table values from an exact line', () => {
     // Introductory physics tables (e.g. Serway): Cu 1.68e-8 ohm m, alpha 0.0039 /K at 20 °C.
-    const pts = [250, 275, 300, 325, 350].map((t) => ({ temperatureK: t, resistivityOhmCm: copper(t) }));
+    const pts = [250, 275, 300, 325, 350].map((t) => ({
+      temperatureK: t,
+      resistivityOhmCm: copper(t),
+    }));
     const r = fitLinearTcr(pts);
     expect(r.referenceResistivityOhmCm / 1.68e-6).toBeCloseTo(1, 10);
     expect(r.alphaPerK).toBeCloseTo(0.0039, 10);
@@ -43,6 +46,8 @@ describe('fitLinearTcr invalid inputs', () => {
     expect(() => fitLinearTcr(pts.slice(0, 2))).toThrow(/`fitLinearTcr`.*points/);
     expect(() => fitLinearTcr(pts, 0)).toThrow(/referenceK/);
     expect(() => fitLinearTcr([pts[0]!, pts[0]!, pts[0]!])).toThrow(/distinct/);
-    expect(() => fitLinearTcr([...pts, { temperatureK: 300, resistivityOhmCm: -1 }])).toThrow(RangeError);
+    expect(() => fitLinearTcr([...pts, { temperatureK: 300, resistivityOhmCm: -1 }])).toThrow(
+      RangeError,
+    );
   });
 });

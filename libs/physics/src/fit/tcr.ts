@@ -42,16 +42,23 @@ export function fitLinearTcr(
 ): LinearTcrFit {
   const fn = 'fitLinearTcr';
   const ref = requirePositive(fn, 'referenceK', referenceK);
-  const [temps, rhos] = readPoints(fn, points, ['temperatureK', 'resistivityOhmCm'], 3) as [Float64Array, Float64Array];
+  const [temps, rhos] = readPoints(fn, points, ['temperatureK', 'resistivityOhmCm'], 3) as [
+    Float64Array,
+    Float64Array,
+  ];
   const x = temps.map((t) => t - ref);
   if (x.every((v) => v === x[0])) {
-    throw new RangeError(`\`${fn}\` requires at least two distinct temperatures, got only ${temps[0]} K`);
+    throw new RangeError(
+      `\`${fn}\` requires at least two distinct temperatures, got only ${temps[0]} K`,
+    );
   }
   const line = fitLine(x, rhos);
   const c0 = line.intercept;
   const c1 = line.slope;
   if (!(c0 > 0)) {
-    throw new RangeError(`\`${fn}\` found a non-positive resistivity at referenceK (${c0}): the reference lies too far outside the data`);
+    throw new RangeError(
+      `\`${fn}\` found a non-positive resistivity at referenceK (${c0}): the reference lies too far outside the data`,
+    );
   }
   const alpha = c1 / c0;
   const varC0 = line.interceptStandardError ** 2;

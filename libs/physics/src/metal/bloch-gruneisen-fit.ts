@@ -42,7 +42,10 @@ export function fitBlochGruneisen(
   initial?: Partial<BlochGruneisenParameters>,
 ): BlochGruneisenFit {
   const fn = 'fitBlochGruneisen';
-  const [temps, rhos] = readPoints(fn, points, ['temperatureK', 'resistivityOhmCm'], 4) as [Float64Array, Float64Array];
+  const [temps, rhos] = readPoints(fn, points, ['temperatureK', 'resistivityOhmCm'], 4) as [
+    Float64Array,
+    Float64Array,
+  ];
   const given = initial === undefined ? {} : requireObject(fn, 'initial', initial);
   let rhoMax = 0;
   let rhoMin = Number.POSITIVE_INFINITY;
@@ -71,7 +74,10 @@ export function fitBlochGruneisen(
     }
     return out;
   };
-  const lm = levenbergMarquardt({ residuals, initial: [rho00 / scale, a0 / scale, Math.log(theta0)] });
+  const lm = levenbergMarquardt({
+    residuals,
+    initial: [rho00 / scale, a0 / scale, Math.log(theta0)],
+  });
   const [q0, q1, q2] = lm.parameters as [number, number, number];
   const parameters = { residualOhmCm: q0 * scale, couplingOhmCm: q1 * scale, debyeK: Math.exp(q2) };
   const dof = temps.length - 3;

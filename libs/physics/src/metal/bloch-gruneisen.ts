@@ -1,14 +1,21 @@
 /**
  * Bloch–Grüneisen resistivity of a simple metal and its transport integral J5.
  */
-import { requireFiniteNumber, requireInRange, requireNonNegative, requireObject, requirePositive } from '../validate';
+import {
+  requireFiniteNumber,
+  requireInRange,
+  requireNonNegative,
+  requireObject,
+  requirePositive,
+} from '../validate';
 
-/** 5! zeta(5) = J5(infinity) (zeta(5) = 1.0369277551433699, Abramowitz & Stegun table 23.3). */
-export const J5_INFINITY = 120 * 1.0369277551433699;
+/** 5! zeta(5) = J5(infinity) (zeta(5) = 1.03692775514337, Abramowitz & Stegun table 23.3). */
+export const J5_INFINITY = 120 * 1.03692775514337;
 
 // 10-point Gauss–Legendre nodes and weights on [-1, 1] (Abramowitz & Stegun table 25.4).
 const GL_X = [
-  0.1488743389816312, 0.4333953941292472, 0.6794095682990244, 0.8650633666889845, 0.9739065285171717,
+  0.1488743389816312, 0.4333953941292472, 0.6794095682990244, 0.8650633666889845,
+  0.9739065285171717,
 ];
 const GL_W = [
   0.2955242247147529, 0.2692667193099963, 0.219086362515982, 0.1494513491505806, 0.0666713443086881,
@@ -98,15 +105,26 @@ export const METAL_TEMPERATURE_RANGE_K: readonly [number, number] = [0.01, 5000]
  */
 export function blochGruneisen(temperatureK: number, params: BlochGruneisenParameters): number {
   const fn = 'blochGruneisen';
-  const t = requireInRange(fn, 'temperatureK', temperatureK, METAL_TEMPERATURE_RANGE_K[0], METAL_TEMPERATURE_RANGE_K[1], {
-    what: 'a temperature',
-    unit: 'K',
-    allowance: 1e-9,
-  });
+  const t = requireInRange(
+    fn,
+    'temperatureK',
+    temperatureK,
+    METAL_TEMPERATURE_RANGE_K[0],
+    METAL_TEMPERATURE_RANGE_K[1],
+    {
+      what: 'a temperature',
+      unit: 'K',
+      allowance: 1e-9,
+    },
+  );
   const p = requireObject(fn, 'params', params);
   const rho0 = requireNonNegative(fn, 'params.residualOhmCm', p['residualOhmCm']);
   const a = requireNonNegative(fn, 'params.couplingOhmCm', p['couplingOhmCm']);
-  const theta = requirePositive(fn, 'params.debyeK', requireFiniteNumber(fn, 'params.debyeK', p['debyeK']));
+  const theta = requirePositive(
+    fn,
+    'params.debyeK',
+    requireFiniteNumber(fn, 'params.debyeK', p['debyeK']),
+  );
   return blochGruneisenUnchecked(t, rho0, a, theta);
 }
 

@@ -22,8 +22,14 @@ describe('listMaterials', () => {
     const c = listMaterials();
     expect(c.semiconductors.map((s) => s.id)).toEqual(['Si', 'Ge', 'GaAs', '4H-SiC']);
     const si = c.semiconductors[0]!;
-    expect(si.donors.find((d) => d.name === 'P')).toEqual({ name: 'P', levelEv: 0.045, isDefault: true });
-    expect(si.densityOfStatesSets.filter((s) => s.isDefault).map((s) => s.id)).toEqual(['si-scaled-t15']);
+    expect(si.donors.find((d) => d.name === 'P')).toEqual({
+      name: 'P',
+      levelEv: 0.045,
+      isDefault: true,
+    });
+    expect(si.densityOfStatesSets.filter((s) => s.isDefault).map((s) => s.id)).toEqual([
+      'si-scaled-t15',
+    ]);
     expect(si.mobilityModels.filter((m) => m.isDefault).map((m) => m.id)).toEqual(['arora-1982']);
     expect(c.metals.length).toBe(6);
     expect(JSON.parse(JSON.stringify(c))).toEqual(c);

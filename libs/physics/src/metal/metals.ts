@@ -22,13 +22,30 @@ export interface MetalReference {
 
 const INTRO_TABLES: Citation = {
   label: 'introductory physics tables',
-  reference: 'resistivity and temperature coefficient at 20 °C, e.g. Serway, Physics for Scientists and Engineers',
+  reference:
+    'resistivity and temperature coefficient at 20 °C, e.g. Serway, Physics for Scientists and Engineers',
 };
-const KITTEL: Citation = { label: 'Kittel', reference: 'Introduction to Solid State Physics, Debye temperatures table' };
+const KITTEL: Citation = {
+  label: 'Kittel',
+  reference: 'Introduction to Solid State Physics, Debye temperatures table',
+};
 
-function metal(id: MetalId, name: string, rhoOhmM: number, alpha: number, debyeK: number): MetalReference {
+function metal(
+  id: MetalId,
+  name: string,
+  rhoOhmM: number,
+  alpha: number,
+  debyeK: number,
+): MetalReference {
   // Tables give ohm m; the library works in ohm cm (1 ohm m = 100 ohm cm).
-  return { id, name, resistivity20COhmCm: rhoOhmM * 100, alphaPerK: alpha, debyeK, sources: { resistivity: INTRO_TABLES, debye: KITTEL } };
+  return {
+    id,
+    name,
+    resistivity20COhmCm: rhoOhmM * 100,
+    alphaPerK: alpha,
+    debyeK,
+    sources: { resistivity: INTRO_TABLES, debye: KITTEL },
+  };
 }
 
 /** Metal reference data (handbook values differ by a few per cent; these are the cited ones). */
@@ -54,7 +71,11 @@ export const METALS: Readonly<Record<MetalId, MetalReference>> = {
  */
 export function metalResistivity(metal: MetalId, temperatureK: number): number {
   const id = requireOneOf('metalResistivity', 'metal', metal, Object.keys(METALS) as MetalId[]);
-  const t = requireInRange('metalResistivity', 'temperatureK', temperatureK, 100, 1000, { what: 'a temperature', unit: 'K', allowance: 1e-9 });
+  const t = requireInRange('metalResistivity', 'temperatureK', temperatureK, 100, 1000, {
+    what: 'a temperature',
+    unit: 'K',
+    allowance: 1e-9,
+  });
   const m = METALS[id];
   return m.resistivity20COhmCm * (1 + m.alphaPerK * (t - 293.15));
 }

@@ -5,7 +5,7 @@
 import { brentRoot } from './brent';
 
 const LANCZOS = [
-  76.18009172947146, -86.50532032941677, 24.01409824083091, -1.231739572450155,
+  76.18009172947146, -86.50532032941678, 24.01409824083091, -1.231739572450155,
   0.1208650973866179e-2, -0.5395239384953e-5,
 ];
 
@@ -15,7 +15,7 @@ export function logGamma(x: number): number {
   const tmp = x + 5.5 - (x + 0.5) * Math.log(x + 5.5);
   let ser = 1.000000000190015;
   for (const c of LANCZOS) ser += c / ++y;
-  return -tmp + Math.log((2.5066282746310005 * ser) / x);
+  return -tmp + Math.log((2.5066282746310007 * ser) / x);
 }
 
 function betaContinuedFraction(a: number, b: number, x: number): number {

@@ -5,7 +5,13 @@ describe('barResistivity', () => {
   it('applies rho = (V/I) w t / L', () => {
     // Definition of resistivity (common practice, no source): R = rho L / (w t).
     // 0.5 V / 1 mA = 500 ohm; 500 * 0.2 * 0.05 / 1 = 5 ohm cm. Tolerance 1e-12.
-    const rho = barResistivity({ voltageV: 0.5, currentA: 0.001, lengthCm: 1, widthCm: 0.2, thicknessCm: 0.05 });
+    const rho = barResistivity({
+      voltageV: 0.5,
+      currentA: 0.001,
+      lengthCm: 1,
+      widthCm: 0.2,
+      thicknessCm: 0.05,
+    });
     expect(rho).toBeCloseTo(5, 12);
   });
   it('doubles when the taps are half as far apart', () => {
@@ -21,6 +27,8 @@ describe('barResistivity invalid inputs', () => {
     expect(() => barResistivity({ ...ok, currentA: 0 })).toThrow(/`barResistivity`.*currentA/);
     expect(() => barResistivity({ ...ok, lengthCm: 0 })).toThrow(/lengthCm/);
     expect(() => barResistivity({ ...ok, widthCm: -1 })).toThrow(/widthCm/);
-    expect(() => barResistivity({ ...ok, thicknessCm: Number.POSITIVE_INFINITY })).toThrow(RangeError);
+    expect(() => barResistivity({ ...ok, thicknessCm: Number.POSITIVE_INFINITY })).toThrow(
+      RangeError,
+    );
   });
 });

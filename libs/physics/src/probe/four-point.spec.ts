@@ -1,6 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { circularSliceFactor, finiteThicknessFactor, fourPointProbe, THIN_SHEET_FACTOR } from './four-point';
+import {
+  circularSliceFactor,
+  finiteThicknessFactor,
+  fourPointProbe,
+  THIN_SHEET_FACTOR,
+} from './four-point';
 
 /** Brute-force image series (2e6 direct terms), an independent check of the tail treatment. */
 function bruteForceFactor(tau: number): number {
@@ -16,7 +21,12 @@ describe('fourPointProbe', () => {
   it('uses pi / ln 2 = 4.5324 for a thin, large sheet', () => {
     // Valdes 1954 / Smits 1958: R_s = 4.5324 V/I. Tolerance 1e-4.
     expect(THIN_SHEET_FACTOR).toBeCloseTo(4.5324, 4);
-    const r = fourPointProbe({ voltageV: 0.002, currentA: 0.001, spacingCm: 0.1, thicknessCm: 1e-5 });
+    const r = fourPointProbe({
+      voltageV: 0.002,
+      currentA: 0.001,
+      spacingCm: 0.1,
+      thicknessCm: 1e-5,
+    });
     expect(r.sheetResistanceOhmSq).toBeCloseTo(2 * 4.53236, 4);
     expect(r.diameterFactor).toBe(1);
     expect(r.thicknessFactor).toBeCloseTo(1, 9);
@@ -40,7 +50,8 @@ describe('fourPointProbe', () => {
   it('lies above the closed form, which is about 4 % low at t/s = 0.5', () => {
     // REFERENCES (after Valdes; Smits): (t/s) / (2 ln[sinh(t/s) / sinh(t/2s)]) is about 4 % low.
     const tau = 0.5;
-    const closed = (tau / (2 * Math.log(Math.sinh(tau) / Math.sinh(tau / 2)))) * ((2 * Math.LN2) / tau);
+    const closed =
+      (tau / (2 * Math.log(Math.sinh(tau) / Math.sinh(tau / 2)))) * ((2 * Math.LN2) / tau);
     const ratio = closed / finiteThicknessFactor(tau);
     expect(ratio).toBeGreaterThan(0.95);
     expect(ratio).toBeLessThan(0.97);
@@ -57,7 +68,13 @@ describe('fourPointProbe', () => {
     // of REFERENCES evaluated by hand gives 4.17116). Tolerance 1e-3.
     expect(circularSliceFactor(3)).toBeCloseTo(2.2662, 3);
     expect(circularSliceFactor(10)).toBeCloseTo(4.1712, 3);
-    const r = fourPointProbe({ voltageV: 1, currentA: 1, spacingCm: 0.1, thicknessCm: 1e-4, diameterCm: 1 });
+    const r = fourPointProbe({
+      voltageV: 1,
+      currentA: 1,
+      spacingCm: 0.1,
+      thicknessCm: 1e-4,
+      diameterCm: 1,
+    });
     expect(r.diameterFactor * THIN_SHEET_FACTOR).toBeCloseTo(circularSliceFactor(10), 12);
     expect(r.sheetResistanceOhmSq).toBeCloseTo(circularSliceFactor(10), 12);
   });
@@ -90,7 +107,9 @@ describe('fourPointProbe invalid inputs', () => {
     expect(() => fourPointProbe(null as unknown as typeof ok)).toThrow(TypeError);
   });
   it('rejects a slice under 3 probe spacings', () => {
-    expect(() => fourPointProbe({ ...ok, diameterCm: 0.29 })).toThrow(/diameterCm.*3 probe spacings/);
+    expect(() => fourPointProbe({ ...ok, diameterCm: 0.29 })).toThrow(
+      /diameterCm.*3 probe spacings/,
+    );
     expect(() => circularSliceFactor(2.9)).toThrow(RangeError);
     expect(() => fourPointProbe({ ...ok, diameterCm: 0.3 })).not.toThrow();
   });

@@ -40,7 +40,11 @@ function imageTermDerivative(u: number): number {
  * @example finiteThicknessFactor(1) // 0.9215
  */
 export function finiteThicknessFactor(thicknessOverSpacing: number): number {
-  const tau = requirePositive('finiteThicknessFactor', 'thicknessOverSpacing', thicknessOverSpacing);
+  const tau = requirePositive(
+    'finiteThicknessFactor',
+    'thicknessOverSpacing',
+    thicknessOverSpacing,
+  );
   return thicknessFactorUnchecked(tau);
 }
 
@@ -69,7 +73,9 @@ function thicknessFactorUnchecked(tau: number): number {
 export function circularSliceFactor(diameterOverSpacing: number): number {
   const r = requirePositive('circularSliceFactor', 'diameterOverSpacing', diameterOverSpacing);
   if (r < MIN_DIAMETER_SPACINGS) {
-    throw new RangeError(`\`circularSliceFactor\` requires diameterOverSpacing of at least 3, got ${r}`);
+    throw new RangeError(
+      `\`circularSliceFactor\` requires diameterOverSpacing of at least 3, got ${r}`,
+    );
   }
   return Math.PI / (Math.LN2 + Math.log((r * r + 3) / (r * r - 3)));
 }

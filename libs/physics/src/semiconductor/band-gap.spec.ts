@@ -45,7 +45,8 @@ describe('bandGap', () => {
   });
 
   it('documents each parameter set with a source', () => {
-    for (const p of Object.values(VARSHNI_PARAMETERS)) expect(p.source.label.length).toBeGreaterThan(0);
+    for (const p of Object.values(VARSHNI_PARAMETERS))
+      expect(p.source.label.length).toBeGreaterThan(0);
   });
 });
 

@@ -37,10 +37,12 @@ describe('densityOfStates', () => {
 describe('densityOfStates invalid inputs', () => {
   it('rejects out-of-range temperatures, unknown sets and sets for another material', () => {
     expect(() => densityOfStates('Si', 0.5)).toThrow(/`densityOfStates`.*temperatureK/);
-    expect(() => densityOfStates('Ge', 300, { densityOfStatesSet: 'si-green-1990' })).toThrow(RangeError);
-    expect(() =>
-      densityOfStates('Si', 300, { densityOfStatesSet: 'nope' as 'sze-t15' }),
-    ).toThrow(/densityOfStatesSet/);
+    expect(() => densityOfStates('Ge', 300, { densityOfStatesSet: 'si-green-1990' })).toThrow(
+      RangeError,
+    );
+    expect(() => densityOfStates('Si', 300, { densityOfStatesSet: 'nope' as 'sze-t15' })).toThrow(
+      /densityOfStatesSet/,
+    );
     expect(() => densityOfStates('Diamond' as 'Si', 300)).toThrow(RangeError);
   });
 });

@@ -1,7 +1,7 @@
 /**
  * Effective densities of states of the conduction and valence bands.
  */
-import type { DensityOfStatesSetId } from '../defaults';
+import type { DensityOfStatesSetId, IonizationModelId } from '../defaults';
 import { PHYSICS_DEFAULTS } from '../defaults';
 import type { Citation, SemiconductorId } from './material';
 import { requireSemiconductor } from './material';
@@ -14,7 +14,10 @@ export interface DensityOfStatesSet {
   materials: readonly SemiconductorId[];
   /** Per-material 300 K values, cm^-3, and exponents. */
   values: Partial<
-    Record<SemiconductorId, { nc300: number; ncExponent: number; nv300: number; nvExponent: number }>
+    Record<
+      SemiconductorId,
+      { nc300: number; ncExponent: number; nv300: number; nvExponent: number }
+    >
   >;
   description: string;
   source: Citation;
@@ -73,6 +76,11 @@ export const DENSITY_OF_STATES_SETS: Readonly<Record<DensityOfStatesSetId, Densi
 export interface BandModelOptions {
   /** Density-of-states set; default per material in `PHYSICS_DEFAULTS.densityOfStatesSet`. */
   densityOfStatesSet?: DensityOfStatesSetId;
+  /**
+   * Dopant-ionization model; default per material in `PHYSICS_DEFAULTS.ionizationModel`
+   * (`pearson-bardeen-1949` for silicon; `constant-level` turns the level lowering off).
+   */
+  ionizationModel?: IonizationModelId;
 }
 
 /** @internal Resolves and checks the density-of-states set for a material. */
@@ -81,7 +89,8 @@ export function resolveDensityOfStatesSet(
   material: SemiconductorId,
   setId: unknown,
 ): DensityOfStatesSet {
-  if (setId === undefined) return DENSITY_OF_STATES_SETS[PHYSICS_DEFAULTS.densityOfStatesSet[material]];
+  if (setId === undefined)
+    return DENSITY_OF_STATES_SETS[PHYSICS_DEFAULTS.densityOfStatesSet[material]];
   const id = requireOneOf(
     fn,
     'densityOfStatesSet',

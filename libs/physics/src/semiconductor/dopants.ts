@@ -2,12 +2,8 @@
  * Dopants, their ionization energies per material, and the `Doping` description of a sample.
  */
 import { PHYSICS_DEFAULTS } from '../defaults';
-import {
-  describeValue,
-  requireFiniteNumber,
-  requireNonNegative,
-  requireObject,
-} from '../validate';
+import type { IonizationModelId } from '../defaults';
+import { describeValue, requireFiniteNumber, requireNonNegative, requireObject } from '../validate';
 import type { Citation, SemiconductorId } from './material';
 
 /** Donor species the tables know. */
@@ -78,19 +74,107 @@ export const DOPANTS: Readonly<Record<SemiconductorId, DopantTable>> = {
 export interface ResolvedDoping {
   donorDensity: number;
   acceptorDensity: number;
+  /** Effective donor ionization energy at this doping (after any lowering), eV, >= 0. */
   donorLevelEv: number;
+  /** Effective acceptor ionization energy at this doping (after any lowering), eV, >= 0. */
   acceptorLevelEv: number;
-  /** Donors at or above the Mott density: treated as fully ionized. */
-  donorsMetallic: boolean;
-  /** Acceptors at or above the Mott density: treated as fully ionized. */
-  acceptorsMetallic: boolean;
+  /**
+   * Fraction of the donors that still have a bound level (0 to 1); the rest have merged with the
+   * band and count as ionized. 0 means fully ionized (at or above the merge density).
+   */
+  donorBoundFraction: number;
+  /** The same for the acceptors. */
+  acceptorBoundFraction: number;
 }
 
 /** Highest doping density accepted, cm^-3 (above it Boltzmann statistics mean nothing). */
 export const MAX_DOPING_CM3 = 1e22;
 
-/** @internal Checks a Doping and resolves its levels for a material. */
-export function resolveDoping(fn: string, material: SemiconductorId, doping: unknown): ResolvedDoping {
+/** @internal Checks the ionization-model option for a material. */
+export function resolveIonizationModel(
+  fn: string,
+  material: SemiconductorId,
+  model: unknown,
+): IonizationModelId {
+  if (model === undefined) return PHYSICS_DEFAULTS.ionizationModel[material];
+  if (model !== 'pearson-bardeen-1949' && model !== 'constant-level') {
+    const Err = typeof model === 'string' ? RangeError : TypeError;
+    throw new Err(
+      `\`${fn}\` requires options.ionizationModel to be one of pearson-bardeen-1949, constant-level, ` +
+        `got ${describeValue(model)}`,
+    );
+  }
+  if (
+    model === 'pearson-bardeen-1949' &&
+    PHYSICS_DEFAULTS.levelLoweringEvCm[material] === undefined
+  ) {
+    throw new RangeError(
+      `\`${fn}\` has no pearson-bardeen-1949 ionization model for ${material}; use 'constant-level'`,
+    );
+  }
+  return model;
+}
+
+/**
+ * @internal Effective level and bound fraction of one dopant species (see `carrierDensities`).
+ * `impurityDensity` is N_D + N_A, the density of ionized impurities when ionization is complete.
+ */
+export function dopantIonization(
+  material: SemiconductorId,
+  model: IonizationModelId,
+  density: number,
+  impurityDensity: number,
+  isolatedLevelEv: number,
+  kind: 'donor' | 'acceptor',
+): { levelEv: number; boundFraction: number } {
+  const alpha = PHYSICS_DEFAULTS.levelLoweringEvCm[material];
+  if (model === 'constant-level' || alpha === undefined) {
+    const mott = PHYSICS_DEFAULTS.mottDensityCm3[material][kind];
+    return { levelEv: isolatedLevelEv, boundFraction: density >= mott ? 0 : 1 };
+  }
+  // Pearson & Bardeen 1949: E(N) = E0 - alpha N^(1/3), clamped at 0 (merged with the band).
+  const levelEv = Math.max(0, isolatedLevelEv - alpha * Math.cbrt(impurityDensity));
+  const mergeDensity = Math.pow(isolatedLevelEv / alpha, 3);
+  const u = impurityDensity / mergeDensity;
+  if (u >= 1) return { levelEv: 0, boundFraction: 0 };
+  // Merged (band-like) weight q = exp(1 - N_b / N): below 1e-20 for N < N_b / 50.
+  const overlap = Math.exp(1 - PHYSICS_DEFAULTS.boundFractionOnsetDensityCm3 / impurityDensity);
+  const w = (1 - u) * (1 - u);
+  return { levelEv, boundFraction: w / (w + overlap) };
+}
+
+/** @internal Resolves effective levels and bound fractions from isolated levels. */
+export function ionizeDoping(
+  material: SemiconductorId,
+  model: IonizationModelId,
+  donorDensity: number,
+  acceptorDensity: number,
+  donorLevel0Ev: number,
+  acceptorLevel0Ev: number,
+): ResolvedDoping {
+  const total = donorDensity + acceptorDensity;
+  const d = dopantIonization(material, model, donorDensity, total, donorLevel0Ev, 'donor');
+  const a = dopantIonization(material, model, acceptorDensity, total, acceptorLevel0Ev, 'acceptor');
+  return {
+    donorDensity,
+    acceptorDensity,
+    donorLevelEv: d.levelEv,
+    acceptorLevelEv: a.levelEv,
+    donorBoundFraction: d.boundFraction,
+    acceptorBoundFraction: a.boundFraction,
+  };
+}
+
+/** @internal Checked densities and isolated (dilute-limit) levels of a Doping. */
+export interface CheckedDoping {
+  donorDensity: number;
+  acceptorDensity: number;
+  donorLevel0Ev: number;
+  acceptorLevel0Ev: number;
+}
+
+/** @internal Checks a Doping and resolves its isolated levels for a material. */
+export function checkDoping(fn: string, material: SemiconductorId, doping: unknown): CheckedDoping {
   const d = requireObject(fn, 'doping', doping);
   const donorDensity = requireNonNegative(fn, 'doping.donorDensity', d['donorDensity']);
   const acceptorDensity = requireNonNegative(fn, 'doping.acceptorDensity', d['acceptorDensity']);
@@ -101,8 +185,8 @@ export function resolveDoping(fn: string, material: SemiconductorId, doping: unk
     );
   }
   const table = DOPANTS[material];
-  const donorLevelEv = resolveLevel(fn, material, d, 'donor', table.donors, table.defaultDonor);
-  const acceptorLevelEv = resolveLevel(
+  const donorLevel0Ev = resolveLevel(fn, material, d, 'donor', table.donors, table.defaultDonor);
+  const acceptorLevel0Ev = resolveLevel(
     fn,
     material,
     d,
@@ -110,15 +194,29 @@ export function resolveDoping(fn: string, material: SemiconductorId, doping: unk
     table.acceptors,
     table.defaultAcceptor,
   );
-  const mott = PHYSICS_DEFAULTS.mottDensityCm3[material];
-  return {
-    donorDensity,
-    acceptorDensity,
-    donorLevelEv,
-    acceptorLevelEv,
-    donorsMetallic: donorDensity >= mott.donor,
-    acceptorsMetallic: acceptorDensity >= mott.acceptor,
-  };
+  return { donorDensity, acceptorDensity, donorLevel0Ev, acceptorLevel0Ev };
+}
+
+/**
+ * @internal Checks a Doping and resolves its effective levels and bound fractions for a material
+ * under an ionization model (default per material in `PHYSICS_DEFAULTS.ionizationModel`).
+ */
+export function resolveDoping(
+  fn: string,
+  material: SemiconductorId,
+  doping: unknown,
+  ionizationModel?: unknown,
+): ResolvedDoping {
+  const c = checkDoping(fn, material, doping);
+  const model = resolveIonizationModel(fn, material, ionizationModel);
+  return ionizeDoping(
+    material,
+    model,
+    c.donorDensity,
+    c.acceptorDensity,
+    c.donorLevel0Ev,
+    c.acceptorLevel0Ev,
+  );
 }
 
 function resolveLevel(
@@ -133,7 +231,9 @@ function resolveLevel(
   if (explicit !== undefined) {
     const v = requireFiniteNumber(fn, `doping.${kind}Level`, explicit);
     if (v <= 0 || v > 1) {
-      throw new RangeError(`\`${fn}\` requires doping.${kind}Level above 0 and at most 1 eV, got ${v}`);
+      throw new RangeError(
+        `\`${fn}\` requires doping.${kind}Level above 0 and at most 1 eV, got ${v}`,
+      );
     }
     return v;
   }

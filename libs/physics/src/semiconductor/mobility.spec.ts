@@ -5,7 +5,11 @@ import { mobility } from './mobility';
 
 /** Masetti et al. 1983, IEEE Trans. Electron Devices 30, 764, phosphorus (from memory). */
 function masettiElectron(n: number): number {
-  return 68.5 + (1414 - 68.5) / (1 + Math.pow(n / 9.2e16, 0.711)) - 56.1 / (1 + Math.pow(3.41e20 / n, 1.98));
+  return (
+    68.5 +
+    (1414 - 68.5) / (1 + Math.pow(n / 9.2e16, 0.711)) -
+    56.1 / (1 + Math.pow(3.41e20 / n, 1.98))
+  );
 }
 
 describe('mobility', () => {
@@ -28,13 +32,17 @@ describe('mobility', () => {
   it('agrees with Masetti et al. 1983 for electrons from 1e15 to 1e18', () => {
     // Masetti 1983 (from memory). Tolerance 10 % (independent fits of the same data).
     for (const n of [1e15, 1e16, 1e17, 1e18]) {
-      expect(Math.abs(mobility('Si', 'electron', 300, n) / masettiElectron(n) - 1)).toBeLessThan(0.1);
+      expect(Math.abs(mobility('Si', 'electron', 300, n) / masettiElectron(n) - 1)).toBeLessThan(
+        0.1,
+      );
     }
   });
 
   it('falls roughly as T^-2.3 (electrons) in lightly doped silicon', () => {
     // REFERENCES: lattice mobility in Si falls roughly as T^-2.3; tolerance: exponent 2.0 to 2.4.
-    const exponent = -Math.log(mobility('Si', 'electron', 400, 1e12) / mobility('Si', 'electron', 300, 1e12)) / Math.log(4 / 3);
+    const exponent =
+      -Math.log(mobility('Si', 'electron', 400, 1e12) / mobility('Si', 'electron', 300, 1e12)) /
+      Math.log(4 / 3);
     expect(exponent).toBeGreaterThan(2.0);
     expect(exponent).toBeLessThan(2.4);
   });
@@ -61,15 +69,17 @@ describe('mobility', () => {
         fc.constantFrom('electron', 'hole' as const),
         fc.double({ min: 50, max: 1000, noNaN: true }),
         fc.double({ min: 12, max: 20, noNaN: true }),
-        (m, c, t, logN) => mobility(m, c, t, Math.pow(10, logN + 0.5)) < mobility(m, c, t, Math.pow(10, logN)),
+        (m, c, t, logN) =>
+          mobility(m, c, t, Math.pow(10, logN + 0.5)) < mobility(m, c, t, Math.pow(10, logN)),
       ),
     );
   });
 
   it('falls with temperature for lightly doped silicon (lattice scattering)', () => {
     fc.assert(
-      fc.property(fc.double({ min: 100, max: 1400, noNaN: true }), (t) =>
-        mobility('Si', 'hole', t + 50, 1e13) < mobility('Si', 'hole', t, 1e13),
+      fc.property(
+        fc.double({ min: 100, max: 1400, noNaN: true }),
+        (t) => mobility('Si', 'hole', t + 50, 1e13) < mobility('Si', 'hole', t, 1e13),
       ),
     );
   });
@@ -80,7 +90,9 @@ describe('mobility invalid inputs', () => {
     expect(() => mobility('Si', 'proton' as 'hole', 300, 1e15)).toThrow(/`mobility`.*carrier/);
     expect(() => mobility('Si', 'electron', 300, -1)).toThrow(/totalImpurityDensity/);
     expect(() => mobility('Si', 'electron', 0, 1e15)).toThrow(/temperatureK/);
-    expect(() => mobility('Ge', 'electron', 300, 1e15, { mobilityModel: 'arora-1982' })).toThrow(RangeError);
+    expect(() => mobility('Ge', 'electron', 300, 1e15, { mobilityModel: 'arora-1982' })).toThrow(
+      RangeError,
+    );
     expect(() => mobility('Si', 'electron', 300, Number.NaN)).toThrow(RangeError);
   });
 });

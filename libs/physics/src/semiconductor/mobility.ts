@@ -24,8 +24,26 @@ export interface AroraParameters {
  * about 200–500 K and 1e13–1e20 cm^-3.
  */
 export const ARORA_1982_SILICON: Readonly<Record<Carrier, AroraParameters>> = {
-  electron: { muMin: 88, b1: -0.57, mu0: 1252, b2: -2.33, nRef: 1.26e17, b3: 2.4, alpha: 0.88, b4: -0.146 },
-  hole: { muMin: 54.3, b1: -0.57, mu0: 407, b2: -2.23, nRef: 2.35e17, b3: 2.4, alpha: 0.88, b4: -0.146 },
+  electron: {
+    muMin: 88,
+    b1: -0.57,
+    mu0: 1252,
+    b2: -2.33,
+    nRef: 1.26e17,
+    b3: 2.4,
+    alpha: 0.88,
+    b4: -0.146,
+  },
+  hole: {
+    muMin: 54.3,
+    b1: -0.57,
+    mu0: 407,
+    b2: -2.23,
+    nRef: 2.35e17,
+    b3: 2.4,
+    alpha: 0.88,
+    b4: -0.146,
+  },
 };
 
 /** Caughey–Thomas parameters for one carrier, at 300 K. */
@@ -41,7 +59,10 @@ export interface CaugheyThomasParameters {
 
 /** Caughey–Thomas sets per material with their sources. */
 export const CAUGHEY_THOMAS_SETS: Readonly<
-  Record<SemiconductorId, { electron: CaugheyThomasParameters; hole: CaugheyThomasParameters; source: Citation }>
+  Record<
+    SemiconductorId,
+    { electron: CaugheyThomasParameters; hole: CaugheyThomasParameters; source: Citation }
+  >
 > = {
   Si: {
     electron: { muMin: 65, muMax: 1330, nRef: 8.5e16, alpha: 0.72 },
@@ -60,7 +81,11 @@ export const CAUGHEY_THOMAS_SETS: Readonly<
   GaAs: {
     electron: { muMin: 500, muMax: 9400, nRef: 6e16, alpha: 0.394 },
     hole: { muMin: 20, muMax: 491.5, nRef: 1.48e17, alpha: 0.38 },
-    source: { label: 'Sotoodeh et al. 2000', reference: 'J. Appl. Phys. 87, 2890 (2000)', fromMemory: true },
+    source: {
+      label: 'Sotoodeh et al. 2000',
+      reference: 'J. Appl. Phys. 87, 2890 (2000)',
+      fromMemory: true,
+    },
   },
   '4H-SiC': {
     electron: { muMin: 40, muMax: 947, nRef: 1.94e17, alpha: 0.61 },
@@ -93,7 +118,9 @@ export function resolveMobilityModel(
   if (model === undefined) return PHYSICS_DEFAULTS.mobilityModel[material];
   const id = requireOneOf(fn, 'mobilityModel', model, MODELS);
   if (id === 'arora-1982' && material !== 'Si') {
-    throw new RangeError(`\`${fn}\` requires mobilityModel 'caughey-thomas-ideal' for ${material}, got "arora-1982"`);
+    throw new RangeError(
+      `\`${fn}\` requires mobilityModel 'caughey-thomas-ideal' for ${material}, got "arora-1982"`,
+    );
   }
   return id;
 }
@@ -154,7 +181,9 @@ export function mobility(
   const t = requireTemperatureK('mobility', temperatureK);
   const n = requireNonNegative('mobility', 'totalImpurityDensity', totalImpurityDensity);
   if (n > 1e22) {
-    throw new RangeError(`\`mobility\` requires totalImpurityDensity of at most 1e22 cm^-3, got ${n}`);
+    throw new RangeError(
+      `\`mobility\` requires totalImpurityDensity of at most 1e22 cm^-3, got ${n}`,
+    );
   }
   const model = resolveMobilityModel('mobility', m, options?.mobilityModel);
   return mobilityUnchecked(m, c, t, n, model);

@@ -6,7 +6,10 @@ import { intrinsicDensity } from './intrinsic';
 import type { Doping } from './dopants';
 import { carrierDensities } from './neutrality';
 
-const si = (donorDensity: number, acceptorDensity = 0): Doping => ({ donorDensity, acceptorDensity });
+const si = (donorDensity: number, acceptorDensity = 0): Doping => ({
+  donorDensity,
+  acceptorDensity,
+});
 
 describe('carrierDensities', () => {
   it('gives full ionization and the mass-action law at room temperature', () => {
@@ -20,27 +23,44 @@ describe('carrierDensities', () => {
 
   it('follows n = sqrt(Nc Nd / 2) exp(-Ed / 2kT) in uncompensated freeze-out', () => {
     // Sze; Blakemore, Semiconductor Statistics (from memory): uncompensated freeze-out.
-    // Tolerance 1 % at 30 K, 1e16 P (the neglected terms are about n / Nd).
+    // Tolerance 1 % at 30 K, 1e16 P (the neglected terms are about n / Nd). The level is the
+    // density-lowered one, Pearson & Bardeen 1949: 0.045 - 3e-8 (1e16)^(1/3) eV.
     const t = 30;
     const nc = densityOfStates('Si', t).conduction;
-    const expected = Math.sqrt((nc * 1e16) / 2) * Math.exp(-0.045 / (2 * BOLTZMANN_EV_PER_K * t));
+    const ed = 0.045 - 3e-8 * Math.cbrt(1e16);
+    const expected = Math.sqrt((nc * 1e16) / 2) * Math.exp(-ed / (2 * BOLTZMANN_EV_PER_K * t));
     const c = carrierDensities('Si', { ...si(1e16), donor: 'P' }, t);
     expect(Math.abs(c.electrons / expected - 1)).toBeLessThan(0.01);
     expect(c.regime).toBe('freeze-out');
   });
 
-  it('follows n = ((Nd - Na)/Na)(Nc/2) exp(-Ed/kT) in compensated freeze-out', () => {
-    // Sze; Blakemore (from memory): compensated freeze-out, n << Na. Tolerance 2 % at 30 K.
+  it('follows n (Na + n) / (Nd - Na - n) = (Nc/2) exp(-Ed/kT) in compensated freeze-out', () => {
+    // Sze; Blakemore (from memory): compensated freeze-out, holes negligible; for n << Na it
+    // reduces to n = ((Nd - Na)/Na)(Nc/2) exp(-Ed/kT). Level lowered by the total impurity
+    // density (Pearson & Bardeen 1949). Tolerance 1 % at 30 K.
     const t = 30;
     const nc = densityOfStates('Si', t).conduction;
-    const expected = ((1e16 - 1e14) / 1e14) * (nc / 2) * Math.exp(-0.045 / (BOLTZMANN_EV_PER_K * t));
-    const c = carrierDensities('Si', si(1e16, 1e14), t);
-    expect(Math.abs(c.electrons / expected - 1)).toBeLessThan(0.02);
+    const ed = 0.045 - 3e-8 * Math.cbrt(1e16 + 1e14);
+    const k = (nc / 2) * Math.exp(-ed / (BOLTZMANN_EV_PER_K * t));
+    const [nd, na] = [1e16, 1e14];
+    const expected = (-(na + k) + Math.sqrt((na + k) ** 2 + 4 * k * (nd - na))) / 2;
+    const c = carrierDensities('Si', si(nd, na), t);
+    expect(Math.abs(c.electrons / expected - 1)).toBeLessThan(0.01);
+    // Deeper in freeze-out (20 K) n << Na and the simple form holds within 1 %.
+    const t2 = 20;
+    const k2 =
+      (densityOfStates('Si', t2).conduction / 2) * Math.exp(-ed / (BOLTZMANN_EV_PER_K * t2));
+    const c2 = carrierDensities('Si', si(nd, na), t2);
+    expect(Math.abs(c2.electrons / (((nd - na) / na) * k2) - 1)).toBeLessThan(0.01);
   });
 
   it('handles p-type samples with acceptor degeneracy 4', () => {
     // Common practice, no source: 1e16 boron is over 98 % ionized at 300 K.
-    const c = carrierDensities('Si', { donorDensity: 0, acceptorDensity: 1e16, acceptor: 'B' }, 300);
+    const c = carrierDensities(
+      'Si',
+      { donorDensity: 0, acceptorDensity: 1e16, acceptor: 'B' },
+      300,
+    );
     expect(c.holes / 1e16).toBeGreaterThan(0.98);
     expect(c.holes / 1e16).toBeLessThan(1.0001);
     expect(c.fermiLevelEv).toBeLessThan(0.3);
@@ -51,6 +71,15 @@ describe('carrierDensities', () => {
     expect(carrierDensities('Si', si(1e15), 30).regime).toBe('freeze-out');
     expect(carrierDensities('Si', si(1e15), 300).regime).toBe('extrinsic');
     expect(carrierDensities('Si', si(1e15), 800).regime).toBe('intrinsic');
+  });
+
+  it('keeps the tabulated level under the constant-level option', () => {
+    // Sze 1981: n = sqrt(Nc Nd / 2) exp(-Ed / 2kT) with the full 45 meV. Tolerance 1 % at 30 K.
+    const t = 30;
+    const nc = densityOfStates('Si', t).conduction;
+    const expected = Math.sqrt((nc * 1e16) / 2) * Math.exp(-0.045 / (2 * BOLTZMANN_EV_PER_K * t));
+    const c = carrierDensities('Si', si(1e16), t, { ionizationModel: 'constant-level' });
+    expect(Math.abs(c.electrons / expected - 1)).toBeLessThan(0.01);
   });
 
   it('treats silicon doping above the Mott density as fully ionized at any temperature', () => {
@@ -67,10 +96,22 @@ describe('carrierDensities', () => {
 
   it('uses the dopant name and an explicit level to pick the ionization energy', () => {
     // Sze: In in Si is deep (0.16 eV), so it is far less ionized than B at 100 K.
-    const b = carrierDensities('Si', { donorDensity: 0, acceptorDensity: 1e16, acceptor: 'B' }, 100);
-    const inn = carrierDensities('Si', { donorDensity: 0, acceptorDensity: 1e16, acceptor: 'In' }, 100);
+    const b = carrierDensities(
+      'Si',
+      { donorDensity: 0, acceptorDensity: 1e16, acceptor: 'B' },
+      100,
+    );
+    const inn = carrierDensities(
+      'Si',
+      { donorDensity: 0, acceptorDensity: 1e16, acceptor: 'In' },
+      100,
+    );
     expect(inn.ionizedAcceptors).toBeLessThan(b.ionizedAcceptors / 100);
-    const lvl = carrierDensities('Si', { donorDensity: 0, acceptorDensity: 1e16, acceptorLevel: 0.16 }, 100);
+    const lvl = carrierDensities(
+      'Si',
+      { donorDensity: 0, acceptorDensity: 1e16, acceptorLevel: 0.16 },
+      100,
+    );
     expect(lvl.ionizedAcceptors).toBeCloseTo(inn.ionizedAcceptors, 0);
   });
 
@@ -85,7 +126,13 @@ describe('carrierDensities', () => {
           const major = Math.pow(10, logN);
           const d = nType ? si(major, major * comp) : si(major * comp, major);
           const c = carrierDensities('Si', d, t);
-          const values = [c.electrons, c.holes, c.ionizedDonors, c.ionizedAcceptors, c.fermiLevelEv];
+          const values = [
+            c.electrons,
+            c.holes,
+            c.ionizedDonors,
+            c.ionizedAcceptors,
+            c.fermiLevelEv,
+          ];
           if (!values.every(Number.isFinite)) return false;
           const pos = c.holes + c.ionizedDonors;
           const neg = c.electrons + c.ionizedAcceptors;
@@ -120,15 +167,27 @@ describe('carrierDensities invalid inputs', () => {
     expect(() => carrierDensities('Si', si(-1), 300)).toThrow(/`carrierDensities`.*donorDensity/);
     expect(() => carrierDensities('Si', si(Number.NaN), 300)).toThrow(RangeError);
     expect(() => carrierDensities('Si', si(1e23), 300)).toThrow(RangeError);
-    expect(() => carrierDensities('Si', { donorDensity: '1e15', acceptorDensity: 0 } as unknown as Doping, 300)).toThrow(TypeError);
+    expect(() =>
+      carrierDensities(
+        'Si',
+        { donorDensity: '1e15', acceptorDensity: 0 } as unknown as Doping,
+        300,
+      ),
+    ).toThrow(TypeError);
     expect(() => carrierDensities('Si', null as unknown as Doping, 300)).toThrow(TypeError);
   });
 
   it('rejects dopants of another material and impossible levels', () => {
-    expect(() => carrierDensities('GaAs', { ...si(1e15), donor: 'P' }, 300)).toThrow(/doping.donor.*GaAs/);
-    expect(() => carrierDensities('Si', { ...si(1e15), donor: 'B' as 'P' }, 300)).toThrow(RangeError);
+    expect(() => carrierDensities('GaAs', { ...si(1e15), donor: 'P' }, 300)).toThrow(
+      /doping.donor.*GaAs/,
+    );
+    expect(() => carrierDensities('Si', { ...si(1e15), donor: 'B' as 'P' }, 300)).toThrow(
+      RangeError,
+    );
     expect(() => carrierDensities('Si', { ...si(1e15), donorLevel: 0 }, 300)).toThrow(/donorLevel/);
-    expect(() => carrierDensities('Si', { ...si(1e15), acceptorLevel: 2 }, 300)).toThrow(/acceptorLevel/);
+    expect(() => carrierDensities('Si', { ...si(1e15), acceptorLevel: 2 }, 300)).toThrow(
+      /acceptorLevel/,
+    );
   });
 
   it('rejects bad temperatures', () => {

@@ -57,15 +57,24 @@ export function solveNeutrality(
   // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
   const donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
   const acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
-  const donorsFull = doping.donorsMetallic || doping.donorDensity === 0;
-  const acceptorsFull = doping.acceptorsMetallic || doping.acceptorDensity === 0;
+  // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
+  const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
+  const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
+  const donorsFull = bD === 0;
+  const acceptorsFull = bA === 0;
+  const lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
+  const lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
+  const lnBD = donorsFull ? 0 : Math.log(bD);
+  const lnBA = acceptorsFull ? 0 : Math.log(bA);
   const lnNcMinusG = lnNc - epsG;
 
   const g = (eta: number): number => {
     const lnP = lnNv - eta;
     const lnN = lnNcMinusG + eta;
-    const lnDp = donorsFull ? lnNd : lnNd - softplus(donorShift + eta);
-    const lnAm = acceptorsFull ? lnNa : lnNa - softplus(acceptorShift - eta);
+    const lnDp = donorsFull ? lnNd : lnNd + logAddExp(lnFreeD, lnBD - softplus(donorShift + eta));
+    const lnAm = acceptorsFull
+      ? lnNa
+      : lnNa + logAddExp(lnFreeA, lnBA - softplus(acceptorShift - eta));
     return logAddExp(lnP, lnDp) - logAddExp(lnN, lnAm);
   };
 
@@ -76,8 +85,10 @@ export function solveNeutrality(
 
   const lnN = lnNcMinusG + eta;
   const lnP = lnNv - eta;
-  const donorFraction = donorsFull ? 1 : logisticComplement(donorShift + eta);
-  const acceptorFraction = acceptorsFull ? 1 : logisticComplement(acceptorShift - eta);
+  const donorFraction = donorsFull ? 1 : 1 - bD + bD * logisticComplement(donorShift + eta);
+  const acceptorFraction = acceptorsFull
+    ? 1
+    : 1 - bA + bA * logisticComplement(acceptorShift - eta);
   const lnIntrinsic = 0.5 * (lnNc + lnNv) - 0.5 * epsG;
   const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
   const majorityIonizedFraction =
@@ -88,7 +99,8 @@ export function solveNeutrality(
         : acceptorFraction;
   let regime: Regime;
   if (net === 0 || lnIntrinsic > Math.log(net)) regime = 'intrinsic';
-  else if (majorityIonizedFraction < PHYSICS_DEFAULTS.ionizedFractionThreshold) regime = 'freeze-out';
+  else if (majorityIonizedFraction < PHYSICS_DEFAULTS.ionizedFractionThreshold)
+    regime = 'freeze-out';
   else regime = 'extrinsic';
   const margin3 = PHYSICS_DEFAULTS.degeneracyMarginKt;
   return {
@@ -133,9 +145,21 @@ export interface CarrierDensities {
  * (degeneracy 2 for donors, 4 for acceptors), by Brent's method on ln(p + N_D^+) - ln(n + N_A^-).
  * Regime: `intrinsic` when n_i > |N_D - N_A|; else `freeze-out` when less than 90 % of the majority
  * dopant is ionized; else `extrinsic`.
- * Mott transition: a dopant at or above `PHYSICS_DEFAULTS.mottDensityCm3` (3e18 cm^-3 in silicon)
- * forms a band merged with the band edge and is treated as fully ionized at every temperature, so
- * heavy doping never reads as freeze-out. The step at that density is a known limit of the model.
+ * Heavy doping (silicon default, `ionizationModel: 'pearson-bardeen-1949'`): each level falls
+ * with density, E(N) = E0 - alpha N^(1/3) with alpha = 3e-8 eV cm (Pearson & Bardeen, Phys. Rev.
+ * 75, 865 (1949); alpha from memory) and N = N_D + N_A the total (ionized-impurity) density,
+ * clamped at 0: a 45 meV level (P, B) meets the band edge at (E0/alpha)^3 = 3.4e18 cm^-3 (the Mott
+ * transition). Because a level at the band edge still holds carriers under Boltzmann statistics
+ * (about 20 % of 2e18 boron at 300 K), only a share b of the dopants keeps a bound level:
+ *   N_D^+ = N_D [(1 - b) + b / (1 + 2 exp((E_F - Eg + E_d)/kT))], likewise for acceptors, with
+ *   b = (1 - u)^2 / ((1 - u)^2 + exp(1 - N_b/N)), u = N / N_merge, N_b = 5e17 cm^-3,
+ * Rhotrace's own interpolation (see `PHYSICS_DEFAULTS.boundFractionOnsetDensityCm3`): b = 1 for
+ * light doping, 0 at and above the merge density, so ionization becomes complete without a step
+ * and 1e18 to 1e19 reads extrinsic at 300 K. At 300 K the resistivity then tracks ASTM F723
+ * within 9 % from 1e14 to 1e19 (6 % above 1e17). `ionizationModel: 'constant-level'` turns this
+ * off: the tabulated level is kept and a dopant at or above `PHYSICS_DEFAULTS.mottDensityCm3`
+ * (3e18 in silicon) is fully ionized (a step at that density); it is the only model for Ge,
+ * GaAs and 4H-SiC. Explicit `donorLevel` / `acceptorLevel` values are the isolated levels E0.
  * Assumptions: Boltzmann statistics for the bands (check `nearDegenerate`: within 3 kT of a band
  * edge the densities are overestimated), one donor and one acceptor level, no band-gap narrowing.
  * Source: Sze, Physics of Semiconductor Devices (1981), ch. 1; Blakemore, Semiconductor
@@ -144,7 +168,7 @@ export interface CarrierDensities {
  * @param material semiconductor id
  * @param doping donor and acceptor densities (cm^-3) and levels (eV)
  * @param temperatureK temperature, K (1 to 1500)
- * @param options optional density-of-states set
+ * @param options optional density-of-states set and ionization model
  * @example carrierDensities('Si', { donorDensity: 1e15, acceptorDensity: 0 }, 300)
  *   // electrons ≈ 1.0e15, holes ≈ 1.0e5, regime 'extrinsic'
  */
@@ -155,7 +179,7 @@ export function carrierDensities(
   options: BandModelOptions = {},
 ): CarrierDensities {
   const m = requireSemiconductor('carrierDensities', material);
-  const d = resolveDoping('carrierDensities', m, doping);
+  const d = resolveDoping('carrierDensities', m, doping, options?.ionizationModel);
   const t = requireTemperatureK('carrierDensities', temperatureK);
   const set = resolveDensityOfStatesSet('carrierDensities', m, options?.densityOfStatesSet);
   const s = solveNeutrality(m, set, d, t);

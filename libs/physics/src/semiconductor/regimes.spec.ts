@@ -5,7 +5,10 @@ import { intrinsicDensity } from './intrinsic';
 import { carrierDensities } from './neutrality';
 import { regimeBoundaries } from './regimes';
 
-const d = (donorDensity: number, acceptorDensity = 0): Doping => ({ donorDensity, acceptorDensity });
+const d = (donorDensity: number, acceptorDensity = 0): Doping => ({
+  donorDensity,
+  acceptorDensity,
+});
 
 describe('regimeBoundaries', () => {
   it('puts the boundaries where the regime labels change', () => {
@@ -32,7 +35,10 @@ describe('regimeBoundaries', () => {
 
   it('gives null where a boundary does not exist in 1–1500 K', () => {
     // Mott-density doping never freezes out; 1e20 never turns intrinsic below 1500 K.
-    expect(regimeBoundaries('Si', d(1e20))).toEqual({ freezeOutBelowK: null, intrinsicAboveK: null });
+    expect(regimeBoundaries('Si', d(1e20))).toEqual({
+      freezeOutBelowK: null,
+      intrinsicAboveK: null,
+    });
     // Compensation 95 %: at least 95 % of the donors are always ionized.
     expect(regimeBoundaries('Si', d(1e16, 9.5e15)).freezeOutBelowK).toBeNull();
     // Undoped: no dopant to freeze out, intrinsic everywhere.

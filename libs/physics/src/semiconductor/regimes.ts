@@ -40,7 +40,7 @@ const SCAN_POINTS = 64;
  * @param doping donor and acceptor densities (cm^-3) and levels (eV)
  * @param options optional density-of-states set
  * @example regimeBoundaries('Si', { donorDensity: 1e15, acceptorDensity: 0 })
- *   // { freezeOutBelowK: 92.4, intrinsicAboveK: 547.0 }
+ *   // { freezeOutBelowK: 87.5, intrinsicAboveK: 547.0 }
  */
 export function regimeBoundaries(
   material: SemiconductorId,
@@ -48,7 +48,7 @@ export function regimeBoundaries(
   options: BandModelOptions = {},
 ): RegimeBoundaries {
   const m = requireSemiconductor('regimeBoundaries', material);
-  const d = resolveDoping('regimeBoundaries', m, doping);
+  const d = resolveDoping('regimeBoundaries', m, doping, options?.ionizationModel);
   const set = resolveDensityOfStatesSet('regimeBoundaries', m, options?.densityOfStatesSet);
   const net = Math.abs(d.donorDensity - d.acceptorDensity);
 
@@ -65,14 +65,16 @@ export function regimeBoundaries(
   let freezeOutBelowK: number | null = null;
   if (d.donorDensity > 0 || d.acceptorDensity > 0) {
     const threshold = PHYSICS_DEFAULTS.ionizedFractionThreshold;
-    const f = (t: number): number => solveNeutrality(m, set, d, t).majorityIonizedFraction - threshold;
+    const f = (t: number): number =>
+      solveNeutrality(m, set, d, t).majorityIonizedFraction - threshold;
     const ratio = Math.pow(MAX_TEMPERATURE_K / MIN_TEMPERATURE_K, 1 / (SCAN_POINTS - 1));
     // The low-temperature crossing is the boundary: far above it the fraction can dip again
     // (kT comparable to the level), but there n_i dominates and the regime is intrinsic.
     let previous = MIN_TEMPERATURE_K;
     if (f(previous) < 0) {
       for (let i = 1; i < SCAN_POINTS; i++) {
-        const t = i === SCAN_POINTS - 1 ? MAX_TEMPERATURE_K : MIN_TEMPERATURE_K * Math.pow(ratio, i);
+        const t =
+          i === SCAN_POINTS - 1 ? MAX_TEMPERATURE_K : MIN_TEMPERATURE_K * Math.pow(ratio, i);
         if (f(t) >= 0) {
           const r = brentRoot(f, previous, t, 1e-6);
           if (r.converged) freezeOutBelowK = r.root;

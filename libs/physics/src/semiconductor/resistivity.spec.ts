@@ -12,7 +12,8 @@ describe('resistivity', () => {
     // ASTM F723 (Thurber et al., NBS SP 400-64): an independent empirical relation.
     // Tolerance 8 % (model: Arora mobility, full neutrality solution).
     for (const dens of [1e13, 1e14, 1e15, 1e16, 1e17]) {
-      const rn = resistivity('Si', n(dens), 296.15) / siliconResistivityFromDopant('phosphorus', dens);
+      const rn =
+        resistivity('Si', n(dens), 296.15) / siliconResistivityFromDopant('phosphorus', dens);
       const rp = resistivity('Si', p(dens), 296.15) / siliconResistivityFromDopant('boron', dens);
       expect(Math.abs(rn - 1)).toBeLessThan(0.08);
       expect(Math.abs(rp - 1)).toBeLessThan(0.08);
@@ -27,8 +28,9 @@ describe('resistivity', () => {
   it('falls with temperature in the intrinsic range', () => {
     // Common practice, no source: carrier density rises faster than mobility falls.
     fc.assert(
-      fc.property(fc.double({ min: 650, max: 1450, noNaN: true }), (t) =>
-        resistivity('Si', n(1e14), t + 20) < resistivity('Si', n(1e14), t),
+      fc.property(
+        fc.double({ min: 650, max: 1450, noNaN: true }),
+        (t) => resistivity('Si', n(1e14), t + 20) < resistivity('Si', n(1e14), t),
       ),
     );
   });
@@ -54,7 +56,11 @@ describe('resistivity', () => {
         fc.double({ min: 1, max: 1500, noNaN: true }),
         fc.double({ min: 10, max: 20, noNaN: true }),
         (m, t, logN) => {
-          const r = resistivity(m, { donorDensity: 10 ** logN, acceptorDensity: 10 ** (logN - 1) }, t);
+          const r = resistivity(
+            m,
+            { donorDensity: 10 ** logN, acceptorDensity: 10 ** (logN - 1) },
+            t,
+          );
           return Number.isFinite(r) && r > 0;
         },
       ),
@@ -77,14 +83,17 @@ describe('modelCurve', () => {
 
   it('rebuilds resistivity from its own carriers and mobilities', () => {
     const [c] = modelCurve('Ge', p(1e16), [250]);
-    const rho = 1 / (1.602176634e-19 * (c!.electrons * c!.electronMobility + c!.holes * c!.holeMobility));
+    const rho =
+      1 / (1.602176634e-19 * (c!.electrons * c!.electronMobility + c!.holes * c!.holeMobility));
     expect(c!.resistivityOhmCm / rho).toBeCloseTo(1, 10);
   });
 });
 
 describe('resistivity and modelCurve invalid inputs', () => {
   it('rejects bad arguments', () => {
-    expect(() => resistivity('Si', n(1e15), 300, { mobilityScale: 0 })).toThrow(/`resistivity`.*mobilityScale/);
+    expect(() => resistivity('Si', n(1e15), 300, { mobilityScale: 0 })).toThrow(
+      /`resistivity`.*mobilityScale/,
+    );
     expect(() => resistivity('Si', n(-5), 300)).toThrow(RangeError);
     expect(() => modelCurve('Si', n(1e15), [300, 0])).toThrow(/`modelCurve`.*temperaturesK\[1\]/);
     expect(() => modelCurve('Si', n(1e15), 300 as unknown as number[])).toThrow(TypeError);

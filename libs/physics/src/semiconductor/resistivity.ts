@@ -83,7 +83,8 @@ export function modelPointUnchecked(
   const lnRho = -lnSigma;
   return {
     temperatureK,
-    resistivityOhmCm: lnRho >= LN_CEILING ? PHYSICS_DEFAULTS.resistivityCeilingOhmCm : Math.exp(lnRho),
+    resistivityOhmCm:
+      lnRho >= LN_CEILING ? PHYSICS_DEFAULTS.resistivityCeilingOhmCm : Math.exp(lnRho),
     electrons: Math.exp(s.lnElectrons),
     holes: Math.exp(s.lnHoles),
     electronMobility: muN,
@@ -118,7 +119,7 @@ export function resistivity(
   options: ResistivityOptions = {},
 ): number {
   const m = requireSemiconductor('resistivity', material);
-  const d = resolveDoping('resistivity', m, doping);
+  const d = resolveDoping('resistivity', m, doping, options?.ionizationModel);
   const t = requireTemperatureK('resistivity', temperatureK);
   return modelPointUnchecked(resolveModel('resistivity', m, options), d, t).resistivityOhmCm;
 }
@@ -142,7 +143,7 @@ export function modelCurve(
   options: ResistivityOptions = {},
 ): ModelPoint[] {
   const m = requireSemiconductor('modelCurve', material);
-  const d = resolveDoping('modelCurve', m, doping);
+  const d = resolveDoping('modelCurve', m, doping, options?.ionizationModel);
   const temps = requireArray('modelCurve', 'temperaturesK', temperaturesK);
   const checked = temps.map((t, i) => requireTemperatureK('modelCurve', t, `temperaturesK[${i}]`));
   const model = resolveModel('modelCurve', m, options);

@@ -19,8 +19,12 @@ describe('siliconResistivityFromDopant', () => {
 
   it('falls monotonically with density', () => {
     fc.assert(
-      fc.property(fc.constantFrom('boron', 'phosphorus' as const), fc.double({ min: 12, max: 20.5, noNaN: true }), (d, l) =>
-        siliconResistivityFromDopant(d, 10 ** (l + 0.1)) < siliconResistivityFromDopant(d, 10 ** l),
+      fc.property(
+        fc.constantFrom('boron', 'phosphorus' as const),
+        fc.double({ min: 12, max: 20.5, noNaN: true }),
+        (d, l) =>
+          siliconResistivityFromDopant(d, 10 ** (l + 0.1)) <
+          siliconResistivityFromDopant(d, 10 ** l),
       ),
     );
   });
@@ -54,10 +58,14 @@ describe('siliconDopantFromResistivity', () => {
 
 describe('ASTM F723 invalid inputs', () => {
   it('rejects unknown dopants and values outside the fitted ranges', () => {
-    expect(() => siliconResistivityFromDopant('arsenic' as 'boron', 1e16)).toThrow(/`siliconResistivityFromDopant`.*dopant/);
+    expect(() => siliconResistivityFromDopant('arsenic' as 'boron', 1e16)).toThrow(
+      /`siliconResistivityFromDopant`.*dopant/,
+    );
     expect(() => siliconResistivityFromDopant('boron', 0)).toThrow(/densityCm3/);
     expect(() => siliconResistivityFromDopant('phosphorus', 1e21)).toThrow(RangeError);
-    expect(() => siliconDopantFromResistivity('boron', -1)).toThrow(/`siliconDopantFromResistivity`.*resistivityOhmCm/);
+    expect(() => siliconDopantFromResistivity('boron', -1)).toThrow(
+      /`siliconDopantFromResistivity`.*resistivityOhmCm/,
+    );
     expect(() => siliconDopantFromResistivity('boron', Number.NaN)).toThrow(RangeError);
     expect(() => siliconDopantFromResistivity('phosphorus', 1e5)).toThrow(RangeError);
   });

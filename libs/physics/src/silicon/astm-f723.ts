@@ -40,7 +40,10 @@ export function siliconResistivityFromDopant(dopant: F723Dopant, densityCm3: num
   const fn = 'siliconResistivityFromDopant';
   const d = requireOneOf(fn, 'dopant', dopant, DOPANTS);
   const [lo, hi] = ASTM_F723_RANGES[d].densityCm3;
-  const n = requireInRange(fn, 'densityCm3', densityCm3, lo, hi, { what: 'a dopant density', unit: 'cm^-3' });
+  const n = requireInRange(fn, 'densityCm3', densityCm3, lo, hi, {
+    what: 'a dopant density',
+    unit: 'cm^-3',
+  });
   if (d === 'boron') {
     return 1.305e16 / n + 1.133e17 / (n * (1 + Math.pow(2.58e-19 * n, -0.737)));
   }

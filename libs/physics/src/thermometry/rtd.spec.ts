@@ -22,7 +22,10 @@ describe('rtdResistance', () => {
 
   it('rises monotonically over the range', () => {
     fc.assert(
-      fc.property(fc.double({ min: 73.15, max: 1123.1, noNaN: true }), (t) => rtdResistance(t + 0.05) > rtdResistance(t)),
+      fc.property(
+        fc.double({ min: 73.15, max: 1123.1, noNaN: true }),
+        (t) => rtdResistance(t + 0.05) > rtdResistance(t),
+      ),
     );
   });
 });

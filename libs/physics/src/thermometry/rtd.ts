@@ -46,7 +46,10 @@ function ratioDerivative(t: number): number {
  * @returns resistance, ohm
  * @example rtdResistance(373.15) // 138.5055 (ohm)
  */
-export function rtdResistance(temperatureK: number, r0Ohm: number = PHYSICS_DEFAULTS.rtdR0Ohm): number {
+export function rtdResistance(
+  temperatureK: number,
+  r0Ohm: number = PHYSICS_DEFAULTS.rtdR0Ohm,
+): number {
   const tk = requireInRange(
     'rtdResistance',
     'temperatureK',
@@ -76,7 +79,10 @@ export function rtdResistance(temperatureK: number, r0Ohm: number = PHYSICS_DEFA
  * @returns temperature, K
  * @example rtdTemperatureK(138.5055) // 373.15 (K)
  */
-export function rtdTemperatureK(resistanceOhm: number, r0Ohm: number = PHYSICS_DEFAULTS.rtdR0Ohm): number {
+export function rtdTemperatureK(
+  resistanceOhm: number,
+  r0Ohm: number = PHYSICS_DEFAULTS.rtdR0Ohm,
+): number {
   const r = requireFiniteNumber('rtdTemperatureK', 'resistanceOhm', resistanceOhm);
   const r0 = requirePositive('rtdTemperatureK', 'r0Ohm', r0Ohm);
   const { a, b, minCelsius, maxCelsius } = IEC_60751;
