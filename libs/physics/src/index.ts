@@ -14,7 +14,7 @@ export {
   ZERO_CELSIUS_K,
 } from './constants';
 export { PHYSICS_DEFAULTS } from './defaults';
-export type { DensityOfStatesSetId, MobilityModelId } from './defaults';
+export type { DensityOfStatesSetId, IonizationModelId, MobilityModelId } from './defaults';
 export { celsiusToKelvin, kelvinToCelsius } from './temperature';
 
 export { SEMICONDUCTORS, SEMICONDUCTOR_NAMES } from './semiconductor/material';
