@@ -75,6 +75,7 @@ async function main(): Promise<void> {
       NODE_ENV: 'production',
     },
     stdio: ['ignore', 'inherit', 'inherit'],
+    detached: true,
   });
   try {
     for (let i = 0; i < 120; i += 1) {
@@ -101,6 +102,7 @@ async function main(): Promise<void> {
     const upload = (token: string, file: Buffer) => {
       const form = new FormData();
       form.set('method', 'four-point');
+      form.set('spacingCm', '0.1');
       form.set('file', new Blob([file]), 'load.csv');
       return fetch(`${url}/api/wafers/${wafer.id}/sweeps`, {
         method: 'POST',
@@ -242,7 +244,7 @@ async function main(): Promise<void> {
     mkdirSync(out, { recursive: true });
     writeFileSync(join(out, 'load.json'), JSON.stringify(figures, null, 2));
   } finally {
-    server.kill('SIGTERM');
+    process.kill(-server.pid!, 'SIGTERM');
     await sequelize.query(`DROP DATABASE IF EXISTS \`${dbName}\``).catch(() => undefined);
     await sequelize.close();
   }

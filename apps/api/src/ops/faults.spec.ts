@@ -1,5 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { join } from 'node:path';
+import { Transaction } from 'sequelize';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../config';
@@ -21,6 +22,28 @@ async function pointDigest(
   return { sweeps: Number(row!.sweeps), points: Number(row!.points), sum: Number(row!.sum) };
 }
 
+/** Signals a process started with `detached: true` together with its children. */
+function killGroup(child: ChildProcess, signal: NodeJS.Signals): void {
+  try {
+    process.kill(-child.pid!, signal);
+  } catch {
+    /* already gone */
+  }
+}
+
+/** Points visible to a READ UNCOMMITTED reader, i.e. including uncommitted ones. */
+function dirtyPointCount(ctx: TestContext): Promise<number> {
+  return ctx.sequelize.transaction(
+    { isolationLevel: Transaction.ISOLATION_LEVELS.READ_UNCOMMITTED },
+    async (transaction) => {
+      const [rows] = (await ctx.sequelize.query('SELECT COUNT(*) AS n FROM sweep_points', {
+        transaction,
+      })) as [Array<{ n: number }>, unknown];
+      return Number(rows[0]!.n);
+    },
+  );
+}
+
 /** `SELECT COUNT(*)` of a table as a number. */
 async function countRows(ctx: TestContext, table: string): Promise<number> {
   const [rows] = (await ctx.sequelize.query(`SELECT COUNT(*) AS n FROM ${table}`)) as [
@@ -34,7 +57,7 @@ async function waitFor(check: () => Promise<boolean>, timeoutMs: number): Promis
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     if (await check().catch(() => false)) return true;
-    await new Promise((r) => setTimeout(r, 200));
+    await new Promise((r) => setTimeout(r, 20));
   }
   return false;
 }
@@ -74,6 +97,7 @@ describe('faults: the database killed under a running API', () => {
       .post(`/api/wafers/${waferId}/sweeps`)
       .set(ctx.auth('engineer'))
       .field('method', 'four-point')
+      .field('spacingCm', '0.1')
       .attach('file', file, 'sweep.csv');
 
   it('answers 503 with a retry hint, keeps committed sweeps intact and recovers by itself', async () => {
@@ -161,6 +185,8 @@ describe('faults and scale-out: API processes', () => {
         LOG_LEVEL: 'silent',
       },
       stdio: 'ignore',
+      // its own process group: tsx runs the server in a child process, and both must go
+      detached: true,
     });
     processes.push(child);
     const url = `http://127.0.0.1:${port}`;
@@ -191,7 +217,7 @@ describe('faults and scale-out: API processes', () => {
       .id;
   }, 120_000);
   afterAll(async () => {
-    for (const p of processes) p.kill('SIGKILL');
+    for (const p of processes) killGroup(p, 'SIGKILL');
     await ctx?.close().catch(() => undefined);
     db.stop();
   });
@@ -199,6 +225,7 @@ describe('faults and scale-out: API processes', () => {
   const post = (url: string, file: Buffer) => {
     const form = new FormData();
     form.set('method', 'four-point');
+    form.set('spacingCm', '0.1');
     form.set('file', new Blob([file]), 'sweep.csv');
     return fetch(`${url}/api/wafers/${waferId}/sweeps`, {
       method: 'POST',
@@ -221,34 +248,34 @@ describe('faults and scale-out: API processes', () => {
     const after = await pointDigest(ctx);
     expect(after.sweeps - before.sweeps).toBe(12);
     expect(after.points - before.points).toBe(12_000);
-    a!.child.kill('SIGTERM');
-    b!.child.kill('SIGTERM');
+    killGroup(a!.child, 'SIGTERM');
+    killGroup(b!.child, 'SIGTERM');
   }, 120_000);
 
   it('an API process killed mid-upload leaves no half-stored sweep, and a restarted one works', async () => {
     const first = await startApi();
     const before = await pointDigest(ctx);
     const rawBefore = await countRows(ctx, 'raw_files');
-    const pending = post(first.url, fourPointCsv(80_000, 'api-killed')).then(
+    const pending = post(first.url, fourPointCsv(60_000, 'api-killed')).then(
       (r) => r.status,
       () => 'aborted',
     );
-    await new Promise((r) => setTimeout(r, 400));
-    first.child.kill('SIGKILL');
+    // Kill the API process while its upload transaction has rows written but not committed.
+    expect(await waitFor(async () => (await dirtyPointCount(ctx)) > before.points, 30_000)).toBe(
+      true,
+    );
+    killGroup(first.child, 'SIGKILL');
     expect(await pending).toBe('aborted');
-    // let MariaDB notice the dropped connection and roll its transaction back
-    await waitFor(async () => {
-      const [rows] = (await ctx.sequelize.query(
-        'SELECT COUNT(*) AS n FROM information_schema.innodb_trx',
-      )) as [Array<{ n: number }>, unknown];
-      return Number(rows[0]!.n) === 0;
-    }, 20_000);
+    // MariaDB sees the dropped connection and rolls back: even a dirty read finds no extra point.
+    expect(await waitFor(async () => (await dirtyPointCount(ctx)) === before.points, 30_000)).toBe(
+      true,
+    );
     expect(await pointDigest(ctx)).toEqual(before);
     const rawAfter = await countRows(ctx, 'raw_files');
     expect(Number(rawAfter)).toBe(Number(rawBefore));
     const second = await startApi();
     const res = await post(second.url, fourPointCsv(500, 'after restart'));
     expect(res.status).toBe(201);
-    second.child.kill('SIGTERM');
+    killGroup(second.child, 'SIGTERM');
   }, 120_000);
 });
