@@ -14,7 +14,13 @@ export const signedInGuard: CanActivateFn = (_route, state) => {
 export function rolesGuard(...roles: readonly Role[]): CanMatchFn {
   return () => {
     const session = inject(Session);
+    const router = inject(Router);
     if (session.hasRole(...roles)) return true;
-    return inject(Router).createUrlTree(['/']);
+    if (!session.signedIn()) {
+      // Matching runs before the shell's guard: remember the whole address for after sign-in.
+      const next = router.getCurrentNavigation()?.extractedUrl.toString() ?? '/';
+      return router.createUrlTree(['/sign-in'], { queryParams: { next } });
+    }
+    return router.createUrlTree(['/']);
   };
 }

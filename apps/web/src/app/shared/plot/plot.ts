@@ -29,7 +29,7 @@ interface PlotlySelectedEvent {
   selector: 'rt-plot',
   template: `
     <figure class="figure" [attr.aria-label]="label()">
-      <div #host class="host" role="img" [attr.aria-label]="label()"></div>
+      <div #host class="host"></div>
       @if (!ready()) {
         <p class="loading">Drawing the plot…</p>
       }

@@ -1,0 +1,100 @@
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, REPO_DIR, apiGet, apiToken, openBrowser, screenshot, seriousViolations, signIn } from './support/app';
+
+interface Page<T> { items: T[] }
+interface Wafer { id: number; number: string }
+interface Sweep { id: number; pointCount: number }
+
+/** A sweep to study: the largest stored one, or the demo file uploaded to the first wafer. */
+async function findOrMakeSweep(): Promise<Sweep> {
+  const token = await apiToken('physicist');
+  const wafers = await apiGet<Page<Wafer>>(token, '/api/wafers?pageSize=200');
+  let best: Sweep | null = null;
+  for (const wafer of wafers.items) {
+    const body = await apiGet<Page<Sweep> | Sweep[]>(token, `/api/wafers/${wafer.id}/sweeps`);
+    for (const s of Array.isArray(body) ? body : body.items) if (!best || s.pointCount > best.pointCount) best = s;
+  }
+  if (best) return best;
+  const target = wafers.items[0];
+  if (!target) throw new Error('the demo data holds no wafer');
+  const form = new FormData();
+  form.append('method', 'four-point');
+  const file = join(REPO_DIR, 'seed-data/sweeps/comma-kelvin-four-point.csv');
+  form.append('file', new Blob([readFileSync(file)], { type: 'text/csv' }), 'comma-kelvin-four-point.csv');
+  const res = await fetch(`${BASE_URL}/api/wafers/${target.id}/sweeps`, {
+    method: 'POST', headers: { authorization: `Bearer ${token}` }, body: form,
+  });
+  if (res.status !== 201) throw new Error(`set-up upload answered ${res.status}: ${await res.text()}`);
+  const created = (await res.json()) as { id: number; pointCount: number };
+  return { id: created.id, pointCount: created.pointCount };
+}
+
+describe('a physicist studies a sweep', () => {
+  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  let sweep: Sweep;
+  beforeAll(async () => {
+    sweep = await findOrMakeSweep();
+    browser = await openBrowser(1280, 1000);
+  });
+  afterAll(async () => {
+    await browser.close();
+  });
+
+  it('drags an Arrhenius window and the fit is saved', async () => {
+    const { page } = browser;
+    await signIn(page, 'physicist');
+    const started = Date.now();
+    await page.goto(`${BASE_URL}/sweeps/${sweep.id}`);
+    const arrhenius = page.getByRole('figure', { name: /Arrhenius plot/ });
+    await arrhenius.locator('.nsewdrag').first().waitFor({ timeout: 60_000 });
+    await page.getByRole('figure', { name: /with the model curve/ }).locator('.nsewdrag').first().waitFor({ timeout: 60_000 });
+    console.log(`[e2e] sweep study of ${sweep.pointCount} points interactive after ${Date.now() - started} ms`);
+
+    const layer = arrhenius.locator('.nsewdrag').first();
+    await layer.scrollIntoViewIfNeeded();
+    const box = await layer.boundingBox();
+    if (!box) throw new Error('the Arrhenius plot has no drag layer');
+    const y = box.y + box.height / 2;
+    await page.mouse.move(box.x + box.width * 0.25, y);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width * 0.5, y, { steps: 8 });
+    await page.mouse.move(box.x + box.width * 0.75, y, { steps: 8 });
+    await page.mouse.up();
+
+    const card = page.getByRole('article', { name: /Arrhenius window .* \(fit \d+\)/ });
+    await card.waitFor({ timeout: 30_000 });
+    const title = (await card.getAttribute('aria-label')) ?? '';
+    const fitId = Number(/fit (\d+)/.exec(title)?.[1]);
+    await expect(card.getByText('Activation energy (eV)').isVisible()).resolves.toBe(true);
+    const saved = page.getByRole('table', { name: 'Saved fits' });
+    await saved.getByText(`#${fitId}`).waitFor();
+
+    const token = await apiToken('physicist');
+    const fits = await apiGet<Page<{ id: number; kind: string }> | Array<{ id: number; kind: string }>>(token, `/api/sweeps/${sweep.id}/fits`);
+    const list = Array.isArray(fits) ? fits : fits.items;
+    expect(list.find((f) => f.id === fitId)?.kind).toBe('arrhenius');
+
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'sweep-study');
+  });
+
+  it('lot detail and overlay draw their plots', async () => {
+    const { page } = browser;
+    await page.goto(`${BASE_URL}/lots`);
+    await page.getByRole('table', { name: 'Lots' }).locator('a').first().click();
+    await page.getByRole('heading', { name: /^Lot / }).waitFor();
+    await page.waitForLoadState('networkidle');
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'lot-detail');
+    await page.goto(`${BASE_URL}/lots`);
+    await page.waitForLoadState('networkidle');
+    expect(await seriousViolations(page)).toEqual([]);
+    await screenshot(page, 'lots');
+    await page.goto(`${BASE_URL}/overlay`);
+    await page.getByRole('heading', { name: 'Overlay' }).waitFor();
+    await page.waitForLoadState('networkidle');
+    await screenshot(page, 'overlay');
+  });
+});

@@ -1,0 +1,87 @@
+import AxeBuilder from '@axe-core/playwright';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { type BrowserContext, type Page, chromium } from 'playwright-core';
+
+const base = process.env['E2E_BASE_URL'];
+if (!base) {
+  // Fail loudly: a browser suite that silently skips proves nothing.
+  throw new Error('E2E_BASE_URL is not set: start Rhotrace and point E2E_BASE_URL at it (npm test does).');
+}
+/** The app under test, without a trailing slash. */
+export const BASE_URL = base.replace(/\/$/, '');
+/** Where the SMTP stand-in keeps received messages. */
+export const MAIL_DIR = process.env['E2E_MAIL_DIR'] ?? '';
+
+export const E2E_DIR = join(dirname(fileURLToPath(import.meta.url)), '..');
+export const REPO_DIR = join(E2E_DIR, '..');
+export const SCREENSHOT_DIR = join(E2E_DIR, 'screenshots');
+export const DEMO_PASSWORD = 'rhotrace-demo';
+export const ROLES = ['admin', 'manager', 'engineer', 'physicist', 'technician'] as const;
+export type DemoRole = (typeof ROLES)[number];
+
+/** A fresh Chromium profile (Debian's browser; never a downloaded one). */
+export async function openBrowser(width = 1280, height = 900): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+  const profile = mkdtempSync(join(tmpdir(), 'rt-e2e-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium',
+    headless: true,
+    viewport: { width, height },
+    acceptDownloads: true,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
+      '--disable-component-update', '--disable-sync'],
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  return {
+    context,
+    page,
+    close: async () => {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Signs in through the form as a demo account and waits for the bench. */
+export async function signIn(page: Page, role: DemoRole): Promise<void> {
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.getByLabel('E-mail').fill(`${role}@rhotrace.example`);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+  await page.getByRole('button', { name: 'Sign out' }).waitFor();
+}
+
+/** Saves a full-page screenshot under e2e/screenshots/ (git-ignored). */
+export async function screenshot(page: Page, name: string): Promise<void> {
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  await page.screenshot({ path: join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
+}
+
+/** Serious and critical axe violations on the page, as readable lines. */
+export async function seriousViolations(page: Page): Promise<string[]> {
+  const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+  return result.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
+}
+
+/** A bearer token for API set-up steps, through the same sign-in the app uses. */
+export async function apiToken(role: DemoRole): Promise<string> {
+  const res = await fetch(`${BASE_URL}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: `${role}@rhotrace.example`, password: DEMO_PASSWORD }),
+  });
+  if (!res.ok) throw new Error(`sign-in as ${role} failed: ${res.status}`);
+  return ((await res.json()) as { token: string }).token;
+}
+
+/** GET an API path as a role, parsed as JSON. */
+export async function apiGet<T>(token: string, path: string): Promise<T> {
+  const res = await fetch(`${BASE_URL}${path}`, { headers: { authorization: `Bearer ${token}` } });
+  if (!res.ok) throw new Error(`GET ${path} answered ${res.status}`);
+  return (await res.json()) as T;
+}
