@@ -35,10 +35,10 @@ export const DEMO_STATIONS: Array<{
     tipRadiusCm: 0.004,
     thermometer: 'platinum-rtd',
     rtdR0Ohm: 100,
-    minTemperatureK: 77,
+    minTemperatureK: 20,
     maxTemperatureK: 500,
     calibratedOn: '2026-09-14',
-    notes: 'Liquid-nitrogen cooled chuck with a Pt100 under the sample.',
+    notes: 'Closed-cycle helium cryostat with a Pt100 under the sample; liquid-nitrogen pre-cool.',
   },
   {
     name: 'Hot chuck South',
