@@ -109,7 +109,7 @@ describe('npm run db:backup and db:restore', () => {
         sequence: i,
         source_row: i + 1,
         temperature_k: 290 + 10 * i + 1 / 3,
-        resistivity_ohm_cm: 10.123456789012345 * i,
+        resistivity_ohm_cm: 10.12345678901234 * i,
         raw: '{"T (K)":"300"}',
         flags: '',
       })),
