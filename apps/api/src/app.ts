@@ -5,8 +5,10 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './deps';
+import { requireBodyType } from './middleware/content-type';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
 import { apiRoutes } from './routes';
+import { SWEEP_UPLOAD_PATHS } from './sweeps/sweep.router';
 
 /** The content security policy the built web app runs under (no request leaves the origin). */
 export const CONTENT_SECURITY_POLICY = {
@@ -47,8 +49,18 @@ export function createApp(deps: AppDeps): Express {
       },
       autoLogging: { ignore: (req) => req.url === '/api/health' },
       redact: ['req.headers.authorization', 'req.headers.cookie', '*.password', '*.passwordHash'],
+      // Short lines, and never a query string: a reset link carries its token there.
+      serializers: {
+        req: (req: { id?: unknown; method?: string; url?: string }) => ({
+          id: req.id,
+          method: req.method,
+          path: (req.url ?? '').split('?')[0],
+        }),
+        res: (res: { statusCode?: number }) => ({ statusCode: res.statusCode }),
+      },
     }),
   );
+  app.use('/api', requireBodyType(SWEEP_UPLOAD_PATHS));
   app.use('/api', express.json({ limit: '1mb', strict: true }));
   app.use('/api', apiRoutes(deps));
   app.use('/api', notFoundHandler);
