@@ -1,6 +1,6 @@
-import { ChangeDetectionStrategy, Component, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input, output, signal, viewChild } from '@angular/core';
 import { rxResource, toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -38,6 +38,7 @@ export const COMMON_TASKS = [
 export class AssignForm {
   private readonly api = inject(AssignmentsApi);
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly formDirective = viewChild(FormGroupDirective);
 
   /** Wafer to preselect (from `?wafer=`). */
   readonly preselectWaferId = input<number | null>(null);
@@ -90,7 +91,8 @@ export class AssignForm {
       .subscribe({
         next: (a) => {
           this.saving.set(false);
-          this.form.reset();
+          // resetForm also clears the submitted state, so the empty form shows no errors.
+          this.formDirective()?.resetForm();
           this.chosenWafer.set(null);
           this.waferSearch.set('');
           this.created.emit(a);

@@ -1,6 +1,6 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -48,6 +48,7 @@ export class LotDetail {
   private readonly api = inject(LotsApi);
   private readonly router = inject(Router);
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly waferFormDirective = viewChild(FormGroupDirective);
   protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editRecords);
 
   readonly id = input.required<string>();
@@ -92,7 +93,7 @@ export class LotDetail {
     const raw = this.waferForm.getRawValue();
     this.api.createWafer(this.lotId(), { ...raw, notes: raw.notes || null }).subscribe({
       next: () => {
-        this.waferForm.reset();
+        this.waferFormDirective()?.resetForm();
         this.adding.set(false);
         this.wafers.reload();
         this.summary.reload();
