@@ -1,0 +1,53 @@
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestContext, type TestContext } from '../testing/test-context';
+
+describe('serving the built web app from the API process', () => {
+  let ctx: TestContext;
+  const bundle = `console.log(${JSON.stringify('rhotrace '.repeat(20_000))});`;
+  beforeAll(async () => {
+    const dist = mkdtempSync(join(tmpdir(), 'rhotrace-dist-'));
+    writeFileSync(
+      join(dist, 'index.html'),
+      '<!doctype html><title>Rhotrace</title><rt-root></rt-root>',
+    );
+    writeFileSync(join(dist, 'main-TEST.js'), bundle);
+    ctx = await createTestContext({ webDist: dist });
+  });
+  afterAll(async () => {
+    await ctx.close();
+  });
+
+  it('answers deep links with index.html under the strict content security policy', async () => {
+    const res = await request(ctx.app).get('/sweeps/12?tab=fits');
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('<rt-root>');
+    expect(res.headers['content-security-policy']).toContain("default-src 'self'");
+    expect(res.headers['content-security-policy']).toContain("script-src 'self'");
+  });
+
+  it('sends the JavaScript bundle gzip-compressed to browsers that accept it', async () => {
+    const res = await request(ctx.app).get('/main-TEST.js').set('Accept-Encoding', 'gzip');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe('gzip');
+    expect(res.text).toBe(bundle);
+  });
+
+  it('never compresses sign-in answers, which carry a token', async () => {
+    const res = await request(ctx.app)
+      .post('/api/auth/login')
+      .set('Accept-Encoding', 'gzip')
+      .send({ email: ctx.users.engineer.email, password: 'wrong password here' });
+    expect(res.status).toBe(401);
+    expect(res.headers['content-encoding']).toBeUndefined();
+  });
+
+  it('keeps unknown API paths as JSON 404s rather than the web app', async () => {
+    const res = await request(ctx.app).get('/api/not-a-route');
+    expect(res.status).toBe(404);
+    expect(res.body.error.code).toBe('not_found');
+  });
+});
