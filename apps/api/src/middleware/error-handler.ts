@@ -31,7 +31,11 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
   }
   const e = error as { type?: string; status?: number; statusCode?: number; code?: string };
   // body-parser and multer errors carry their own status
-  if (e?.type === 'entity.too.large' || e?.code === 'LIMIT_FILE_SIZE') {
+  if (
+    e?.type === 'entity.too.large' ||
+    e?.code === 'LIMIT_FILE_SIZE' ||
+    e?.code === 'LIMIT_FIELD_VALUE'
+  ) {
     res
       .status(413)
       .json(body('payload_too_large', 'The request body or file is larger than the limit'));

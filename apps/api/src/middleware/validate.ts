@@ -30,12 +30,18 @@ export function parseOrThrow<S extends ZodTypeAny>(
   return result.data as z.infer<S>;
 }
 
-/** A positive integer id from a path parameter (`/lots/abc` is a 400, not a 500). */
-export const idParam = z.coerce
-  .number({ invalid_type_error: 'must be a whole number' })
-  .int('must be a whole number')
-  .positive('must be positive')
-  .max(2_147_483_647, 'is too large');
+/**
+ * A positive integer id from a path or query parameter (`/lots/abc` is a 400, not a 500). Text
+ * must be plain digits: `1e3`, `0x10`, `1.0` and ` 7` are refused, not read as numbers.
+ */
+export const idParam = z.preprocess(
+  (v) => (typeof v === 'string' && !/^-?\d+$/.test(v) ? Number.NaN : v),
+  z.coerce
+    .number({ invalid_type_error: 'must be a whole number' })
+    .int('must be a whole number')
+    .positive('must be positive')
+    .max(2_147_483_647, 'is too large'),
+);
 
 /** Parses `req.params.id` (or another named parameter) as an id. */
 export function parseId(params: Record<string, unknown>, name = 'id'): number {

@@ -66,6 +66,27 @@ function uploaded(req: Request): Express.Multer.File {
   return req.file;
 }
 
+/**
+ * The user's file name as it is stored and shown: multer's Latin-1 reading undone, folders
+ * (`../../x`, `C:\x`) dropped, and control, direction-override and angle-bracket characters
+ * replaced. Only ever a label: the bytes are stored under a generated key.
+ */
+export function storedFileName(multerName: string): string {
+  const name = Buffer.from(multerName, 'latin1').toString('utf8');
+  const base = name.split(/[\\/]/).pop() ?? '';
+  const label = base
+    .replace(/[\p{Cc}\u200e\u200f\u202a-\u202e\u2066-\u2069<>]/gu, '_')
+    .replace(/^[.\s]+/, '')
+    .trim();
+  // At most 255 UTF-16 units (the column's width) without splitting a surrogate pair.
+  let kept = '';
+  for (const ch of label) {
+    if (kept.length + ch.length > 255) break;
+    kept += ch;
+  }
+  return kept || 'sweep.csv';
+}
+
 function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
   if (text === undefined || text.trim() === '') return undefined;
   let json: unknown;
@@ -95,7 +116,7 @@ export async function storeSweepHandler(req: Request, res: Response): Promise<vo
     {
       waferId,
       file: file.buffer,
-      originalName: Buffer.from(file.originalname, 'latin1').toString('utf8'),
+      originalName: storedFileName(file.originalname),
       method,
       stationId: stationId ?? null,
       columns: parseColumns(columns),

@@ -1,6 +1,7 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import type { AppDeps } from '../deps';
+import { badRequest } from '../errors';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { parseId } from '../middleware/validate';
 import { visibleWafer } from '../wafers/wafer-access.service';
@@ -14,6 +15,9 @@ import {
   storeSweepHandler,
 } from './sweep.controller';
 
+/** The upload paths (under /api), the only ones that take multipart/form-data bodies. */
+export const SWEEP_UPLOAD_PATHS = /^\/wafers\/[^/]+\/sweeps(?:\/preview)?\/?$/i;
+
 /** Text fields an upload may carry besides the file (method, station, mapping, geometry). */
 const MAX_FIELDS = 12;
 
@@ -21,7 +25,7 @@ const MAX_FIELDS = 12;
 export function sweepRouter(deps: AppDeps): Router {
   const router = Router();
   const auth = authenticate(deps.config.jwtSecret);
-  const upload = multer({
+  const readUpload = multer({
     storage: multer.memoryStorage(),
     limits: {
       fileSize: deps.config.uploadLimitBytes,
@@ -30,6 +34,12 @@ export function sweepRouter(deps: AppDeps): Router {
       fieldSize: 256 * 1024,
     },
   }).single('file');
+  // Busboy's own errors (a cut-short or malformed multipart body) carry no status: a 400.
+  const upload: RequestHandler = (req, res, next) =>
+    readUpload(req, res, (error?: unknown) => {
+      if (!error || error instanceof multer.MulterError) next(error);
+      else next(badRequest(`The upload could not be read: ${(error as Error).message}`));
+    });
   // 404 before the body is read, so a hidden wafer costs no upload.
   const waferVisible: RequestHandler = async (req, _res, next) => {
     await visibleWafer(currentUser(req), parseId(req.params));

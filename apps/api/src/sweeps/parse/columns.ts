@@ -146,6 +146,14 @@ export function guessColumns(
     const header = headers[i]?.trim() || `column ${i + 1}`;
     columns.push(guessOne(i, header, units?.[i] ?? null));
   }
+  // Repeated headers get `#2`, `#3` (after guessing), so each column's raw cells keep a name.
+  const used = new Set<string>();
+  for (const c of columns) {
+    let name = c.header;
+    for (let n = 2; used.has(name); n++) name = `${c.header} #${n}`;
+    used.add(name);
+    c.header = name;
+  }
   const taken = new Map<ColumnMeaning, ResolvedColumn>();
   for (const c of [...columns].sort((a, b) => b.confidence - a.confidence || a.index - b.index)) {
     if (c.meaning === 'other' || c.meaning === 'index' || c.meaning === 'time') continue;

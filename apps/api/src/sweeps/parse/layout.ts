@@ -67,6 +67,12 @@ function isNumericRow(cells: string[]): boolean {
   return filled.filter(looksNumeric).length * 2 >= filled.length;
 }
 
+/** Two or more cells, every filled one a number. */
+function isAllNumbers(cells: string[]): boolean {
+  const filled = cells.filter((c) => c.trim() !== '');
+  return filled.length >= 2 && filled.every(looksNumeric);
+}
+
 function mode(values: number[]): { value: number; share: number } {
   const counts = new Map<number, number>();
   for (const v of values) counts.set(v, (counts.get(v) ?? 0) + 1);
@@ -147,10 +153,15 @@ export function detectLayout(text: string): FileLayout | null {
   if (!choice) return null;
   const { delimiter, width } = choice;
   const split = head.map((l) => (isSkippable(l) ? null : splitLine(l, delimiter)));
-  const dataIndex = split.findIndex(
+  let dataIndex = split.findIndex(
     (cells) => cells !== null && cells.length === width && isNumericRow(cells),
   );
   if (dataIndex < 0) return null;
+  // Rows of numbers just above it with another width are data too (ragged rows, reported by
+  // row later), never metadata that would be dropped.
+  while (dataIndex > 0 && split[dataIndex - 1] !== null && isAllNumbers(split[dataIndex - 1]!)) {
+    dataIndex--;
+  }
 
   let headerIndex: number | null = null;
   let unitsIndex: number | null = null;

@@ -2,7 +2,8 @@
  * Reads the data section of a sweep export with csv-parse, keeping each record's line number
  * in the file.
  */
-import { parse } from 'csv-parse/sync';
+import { CsvError, parse } from 'csv-parse/sync';
+import { UnreadableFileError } from './decode';
 import type { FileLayout } from './layout';
 
 /** Data rows as text cells, with the 1-based file line of each. */
@@ -27,6 +28,57 @@ function countLines(text: string): number {
 }
 
 /**
+ * Where the quote that never closes opens: the character offset of a `"` starting a field with
+ * no closing quote after it (a `""` inside quotes is an escaped quote), or -1.
+ */
+function unclosedQuoteAt(data: string, delimiter: string): number {
+  let fieldStart = true;
+  for (let i = 0; i < data.length; i++) {
+    const ch = data[i]!;
+    if (fieldStart && ch === '"') {
+      let j = i + 1;
+      for (; j < data.length; j++) {
+        if (data[j] === '"') {
+          if (data[j + 1] === '"') j++;
+          else break;
+        }
+      }
+      if (j >= data.length) return i;
+      i = j;
+      fieldStart = false;
+      continue;
+    }
+    fieldStart = ch === delimiter || ch === '\n' || ch === '\r';
+  }
+  return -1;
+}
+
+/** csv-parse, with its errors (an unclosed quote) as a 422 naming the file line. */
+function parseOrRefuse<T>(
+  data: string,
+  options: { delimiter: string } & Record<string, unknown>,
+  firstLine: number,
+): T {
+  try {
+    return parse(data, options) as T;
+  } catch (error) {
+    if (!(error instanceof CsvError)) throw error;
+    const at = unclosedQuoteAt(data, options.delimiter);
+    const where =
+      at < 0
+        ? `Row ${firstLine + (Number((error as { lines?: unknown }).lines) || 1) - 1}`
+        : `Row ${firstLine + countLines(data.slice(0, at + 1)) - 1}`;
+    const what =
+      at < 0
+        ? 'the text cannot be split into values'
+        : 'a value opens a double quote (") that is never closed';
+    throw new UnreadableFileError(
+      `${where}: ${what}; the file may be cut short. Nothing was stored.`,
+    );
+  }
+}
+
+/**
  * Parses the data section. Without csv-parse's per-record info (three times slower) a record
  * is one line; a quoted field spanning lines breaks that, so then the slower path runs.
  */
@@ -38,7 +90,7 @@ export function readDataTable(text: string, layout: FileLayout): DataTable {
     relax_quotes: true,
     skip_empty_lines: false,
   } as const;
-  const records = parse(data, options) as string[][];
+  const records = parseOrRefuse<string[][]>(data, options, layout.dataLine);
   const lines: number[] = [];
   const kept: string[][] = [];
   if (records.length === countLines(data)) {
@@ -50,10 +102,11 @@ export function readDataTable(text: string, layout: FileLayout): DataTable {
     }
     return { records: kept, lines };
   }
-  const withInfo = parse(data, { ...options, info: true }) as unknown as Array<{
-    record: string[];
-    info: { lines: number };
-  }>;
+  const withInfo = parseOrRefuse<Array<{ record: string[]; info: { lines: number } }>>(
+    data,
+    { ...options, info: true },
+    layout.dataLine,
+  );
   // `info.lines` is where a record ends; it starts on the line after the previous one ended.
   let start = 1;
   for (const { record, info } of withInfo) {
