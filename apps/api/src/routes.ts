@@ -2,6 +2,8 @@ import { Router } from 'express';
 import type { AppDeps } from './deps';
 import { healthRouter } from './health/health.router';
 import { sweepRouter } from './sweeps/sweep.router';
+import { recentSweepsRouter } from './sweeps/recent-sweeps';
+import { recentFitsRouter } from './fits/recent-fits';
 import { analysisRouter } from './analysis/analysis.router';
 import { fitsRouter } from './fits/fit.router';
 import { reportsRouter } from './reports/report.router';
@@ -20,6 +22,8 @@ import { devMailRouter } from './mail/dev-mail.router';
 export function apiRoutes(deps: AppDeps): Router {
   const router = Router();
   router.use(healthRouter(deps.sequelize));
+  router.use(recentSweepsRouter(deps));
+  router.use(recentFitsRouter(deps));
   router.use(sweepRouter(deps));
   router.use(authRouter(deps));
   router.use(usersRouter(deps));

@@ -4,3 +4,4 @@ export * from './auth';
 export * from './records';
 export * from './analysis';
 export * from './sweeps';
+export * from './activity';
