@@ -1,13 +1,16 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
+import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './deps';
 import { requireBodyType } from './middleware/content-type';
 import { errorHandler, notFoundHandler } from './middleware/error-handler';
+import { noStore } from './middleware/no-store';
 import { apiRoutes } from './routes';
+import { configureRawStorage } from './storage/storage';
 import { SWEEP_UPLOAD_PATHS } from './sweeps/sweep.router';
 
 /** The content security policy the built web app runs under (no request leaves the origin). */
@@ -28,6 +31,7 @@ export const CONTENT_SECURITY_POLICY = {
 
 /** Builds the Express application: API under /api, the built web app everywhere else. */
 export function createApp(deps: AppDeps): Express {
+  configureRawStorage(deps.config);
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', false);
@@ -36,6 +40,12 @@ export function createApp(deps: AppDeps): Express {
       contentSecurityPolicy: { useDefaults: false, directives: CONTENT_SECURITY_POLICY },
       crossOriginEmbedderPolicy: false,
       hsts: false,
+    }),
+  );
+  // gzip for the web bundle and large reads; never for sign-in answers that carry a token
+  app.use(
+    compression({
+      filter: (req, res) => !req.path.startsWith('/api/auth') && compression.filter(req, res),
     }),
   );
   app.use(
@@ -61,6 +71,7 @@ export function createApp(deps: AppDeps): Express {
     }),
   );
   app.use('/api', requireBodyType(SWEEP_UPLOAD_PATHS));
+  app.use('/api/auth', noStore);
   app.use('/api', express.json({ limit: '1mb', strict: true }));
   app.use('/api', apiRoutes(deps));
   app.use('/api', notFoundHandler);
