@@ -55,6 +55,7 @@ export type { FourPointProbeResult } from './probe/four-point';
 export { vanDerPauw } from './probe/van-der-pauw';
 export type { VanDerPauwResult } from './probe/van-der-pauw';
 export { barResistivity } from './probe/bar';
+export { resistivityFromSheetResistance } from './probe/sheet-resistance';
 
 export { IEC_60751, rtdResistance, rtdTemperatureK } from './thermometry/rtd';
 export {

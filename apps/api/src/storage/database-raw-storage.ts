@@ -4,6 +4,7 @@ import { newStorageKey, type RawStorage, type StorageContext } from './raw-stora
 /** Raw files in the `raw_files` table, written in the caller's transaction. */
 export class DatabaseRawStorage implements RawStorage {
   readonly kind = 'db' as const;
+  readonly writesInTransaction = true;
 
   async put(content: Buffer, context: StorageContext = {}): Promise<string> {
     const storageKey = newStorageKey();

@@ -1,7 +1,8 @@
 /**
  * Where uploaded files are kept byte for byte. The database implementation writes inside the
- * upload's transaction; an object-store implementation (S3) can be added behind the same
- * interface, writing before commit and removing the object again when the transaction rolls back.
+ * upload's transaction; an object store (S3) cannot, so its object is written before the
+ * transaction commits and the caller deletes it again when the transaction rolls back or the
+ * import fails (`writesInTransaction` tells the two apart).
  */
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
@@ -17,6 +18,11 @@ export interface StorageContext {
 /** Keeps raw upload bytes under keys it generates (never the user's file name). */
 export interface RawStorage {
   readonly kind: StorageKind;
+  /**
+   * True when `put` joins the caller's transaction (rolled back with it); false for an object
+   * store, whose object the caller must `delete` when the transaction does not commit.
+   */
+  readonly writesInTransaction: boolean;
   /** Stores `content` under a new key and returns the key. */
   put(content: Buffer, context?: StorageContext): Promise<string>;
   /** The stored bytes, or null when nothing is stored under `key`. */

@@ -46,6 +46,7 @@ export function s3SettingsFromEnv(
  */
 export class S3RawStorage implements RawStorage {
   readonly kind = 's3' as const;
+  readonly writesInTransaction = false;
   private readonly client: S3Client;
   private bucketChecked = false;
 

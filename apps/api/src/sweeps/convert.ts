@@ -7,6 +7,7 @@ import {
   barResistivity,
   celsiusToKelvin,
   fourPointProbe,
+  resistivityFromSheetResistance,
   rtdTemperatureK,
   vanDerPauw,
 } from '@rhotrace/physics';
@@ -278,14 +279,19 @@ export function convertRows(
   const points: ConvertedPoint[] = [];
   if (problems.length === 0) {
     const unpaired: number[] = [];
-    for (const group of pairReadings(readings)) {
-      if (problems.length >= MAX_PROBLEMS) break;
-      const point = toPoint(group, method, geometry, problems, columns);
+    const convert = pointMaker(method, geometry, problems, columns);
+    // Neighbouring forward and reverse readings form a pair; everything else stands alone.
+    for (let i = 0; i < readings.length && problems.length < MAX_PROBLEMS; i++) {
+      const a = readings[i]!;
+      const b = readings[i + 1];
+      const paired = a.polarity !== 0 && b !== undefined && b.polarity === -a.polarity;
+      if (paired) i++;
+      const point = paired ? (a.polarity === 1 ? convert(a, b) : convert(b, a)) : convert(a);
       if (!point) continue;
-      if (group.length === 2) point.flags.push('polarity-averaged');
-      else if (group[0]!.polarity !== 0) {
+      if (paired) point.flags.push('polarity-averaged');
+      else if (a.polarity !== 0) {
         point.flags.push('unpaired-polarity');
-        unpaired.push(group[0]!.row);
+        unpaired.push(a.row);
       }
       points.push(point);
     }
@@ -308,36 +314,40 @@ export function listRows(rows: number[]): string {
   return rows.length > 10 ? `${shown} and ${rows.length - 10} more` : shown;
 }
 
-/** Neighbouring forward and reverse readings form a pair; everything else stands alone. */
-function pairReadings(readings: Reading[]): Reading[][] {
-  const groups: Reading[][] = [];
-  for (let i = 0; i < readings.length; i++) {
-    const a = readings[i]!;
-    const b = readings[i + 1];
-    if (a.polarity !== 0 && b && b.polarity === -a.polarity) {
-      groups.push(a.polarity === 1 ? [a, b] : [b, a]);
-      i++;
-    } else groups.push([a]);
-  }
-  return groups;
+/** Mean of a value of the forward and reverse readings (null if either lacks it). */
+function pairMean(f: number | null, r: number | null): number | null {
+  return f === null || r === null ? null : (f + r) / 2;
 }
 
-/** Mean of the two readings' values (forward first), or the single reading's. */
-function mean(group: Reading[], get: (r: Reading) => number | null): number | null {
-  if (group.length === 1) return get(group[0]!);
-  const values = group.map(get);
-  if (values.some((v) => v === null)) return null;
-  return (values as number[]).reduce((s, v) => s + v, 0) / values.length;
-}
-
-function toPoint(
-  group: Reading[],
+/**
+ * A converter of one reading, or of a forward/reverse pair (forward first), to a point; null
+ * after recording a row problem. The physics input object is reused from row to row.
+ */
+function pointMaker(
   method: SweepMethod,
   geometry: SweepGeometry,
   problems: RowProblem[],
   columns: ResolvedColumn[],
+): (f: Reading, r?: Reading) => ConvertedPoint | null {
+  const probeInput: Parameters<typeof fourPointProbe>[0] = {
+    voltageV: 0,
+    currentA: 0,
+    spacingCm: geometry.spacingCm!,
+    thicknessCm: geometry.thicknessCm!,
+  };
+  if (geometry.diameterCm !== undefined) probeInput.diameterCm = geometry.diameterCm;
+  return (f, r) => toPoint(f, r, method, geometry, problems, columns, probeInput);
+}
+
+function toPoint(
+  f: Reading,
+  r: Reading | undefined,
+  method: SweepMethod,
+  geometry: SweepGeometry,
+  problems: RowProblem[],
+  columns: ResolvedColumn[],
+  probeInput: Parameters<typeof fourPointProbe>[0],
 ): ConvertedPoint | null {
-  const [f, r] = group as [Reading, Reading | undefined];
   // Forward/reverse average: V = (V+ - V-)/2 over I = (I+ - I-)/2 cancels thermal EMFs.
   const voltageV = r
     ? f.voltageV !== null && r.voltageV !== null
@@ -350,13 +360,13 @@ function toPoint(
       : null
     : f.currentA;
   const point: ConvertedPoint = {
-    sourceRows: group.map((g) => g.row),
-    recordIndexes: group.map((g) => g.record),
-    temperatureK: mean(group, (g) => g.temperatureK)!,
+    sourceRows: r ? [f.row, r.row] : [f.row],
+    recordIndexes: r ? [f.record, r.record] : [f.record],
+    temperatureK: r ? (f.temperatureK + r.temperatureK) / 2 : f.temperatureK,
     currentA,
     voltageV,
-    resistanceOhm: mean(group, (g) => g.resistanceOhm),
-    sheetResistanceOhmSq: mean(group, (g) => g.sheetOhmSq),
+    resistanceOhm: r ? pairMean(f.resistanceOhm, r.resistanceOhm) : f.resistanceOhm,
+    sheetResistanceOhmSq: r ? pairMean(f.sheetOhmSq, r.sheetOhmSq) : f.sheetOhmSq,
     resistivityOhmCm: 0,
     flags: [],
   };
@@ -366,14 +376,9 @@ function toPoint(
   const i = hasVI ? point.currentA! : 1;
   try {
     if (method === 'four-point') {
-      const input: Parameters<typeof fourPointProbe>[0] = {
-        voltageV: v,
-        currentA: i,
-        spacingCm: geometry.spacingCm!,
-        thicknessCm: geometry.thicknessCm!,
-      };
-      if (geometry.diameterCm !== undefined) input.diameterCm = geometry.diameterCm;
-      const out = fourPointProbe(input);
+      probeInput.voltageV = v;
+      probeInput.currentA = i;
+      const out = fourPointProbe(probeInput);
       point.sheetResistanceOhmSq = out.sheetResistanceOhmSq;
       point.resistivityOhmCm = out.resistivityOhmCm;
     } else if (method === 'bar') {
@@ -387,16 +392,20 @@ function toPoint(
     } else if (method === 'van-der-pauw') {
       const out = vanDerPauw({
         resistanceAOhm: point.resistanceOhm!,
-        resistanceBOhm: mean(group, (g) => g.resistanceBOhm)!,
+        resistanceBOhm: (r ? pairMean(f.resistanceBOhm, r.resistanceBOhm) : f.resistanceBOhm)!,
         thicknessCm: geometry.thicknessCm!,
       });
       point.sheetResistanceOhmSq = out.sheetResistanceOhmSq;
       point.resistivityOhmCm = out.resistivityOhmCm!;
     } else if (method === 'resistivity') {
-      point.resistivityOhmCm = mean(group, (g) => g.resistivityOhmCm)!;
+      point.resistivityOhmCm = (
+        r ? pairMean(f.resistivityOhmCm, r.resistivityOhmCm) : f.resistivityOhmCm
+      )!;
     } else {
-      // Resistivity of a uniform sheet is its sheet resistance times its thickness (definition).
-      point.resistivityOhmCm = point.sheetResistanceOhmSq! * geometry.thicknessCm!;
+      point.resistivityOhmCm = resistivityFromSheetResistance({
+        sheetResistanceOhmSq: point.sheetResistanceOhmSq!,
+        thicknessCm: geometry.thicknessCm!,
+      });
     }
   } catch (error) {
     const message = friendly(error);

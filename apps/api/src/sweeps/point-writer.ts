@@ -1,6 +1,6 @@
 /**
  * Writes a sweep's points with the mariadb driver's batch insert on the transaction's own
- * connection: one round of the bulk protocol instead of a statement per row.
+ * connection: the bulk protocol instead of a statement per row.
  */
 import type { Transaction } from 'sequelize';
 import type { ConvertedPoint } from './convert';
@@ -15,12 +15,17 @@ interface BatchConnection {
   batch(sql: string, values: unknown[][]): Promise<unknown>;
 }
 
-/** Rows per batch call, so one call's packet stays well under max_allowed_packet. */
-const CHUNK = 50_000;
+/**
+ * Rows per batch call. The calls are pipelined on the connection: while the server inserts one
+ * chunk, the next is built and sent, and each chunk's packets stay well under
+ * max_allowed_packet. Only the rows of chunks not yet written are held twice in memory.
+ */
+export const POINT_CHUNK = 20_000;
 
 /**
  * Inserts the points of sweep `sweepId` inside `transaction`. `rawOf` gives each point's raw
- * JSON document.
+ * JSON document. Rejects with the first failing chunk's error once every chunk has settled, so
+ * the caller's rollback never races a write still in flight.
  */
 export async function insertPoints(
   sweepId: number,
@@ -29,12 +34,13 @@ export async function insertPoints(
   transaction: Transaction,
 ): Promise<void> {
   const connection = (transaction as unknown as { connection: BatchConnection }).connection;
-  for (let start = 0; start < points.length; start += CHUNK) {
-    const rows: unknown[][] = [];
-    const end = Math.min(points.length, start + CHUNK);
+  const pending: Array<Promise<unknown>> = [];
+  for (let start = 0; start < points.length; start += POINT_CHUNK) {
+    const end = Math.min(points.length, start + POINT_CHUNK);
+    const rows: unknown[][] = new Array<unknown[]>(end - start);
     for (let i = start; i < end; i++) {
       const p = points[i]!;
-      rows.push([
+      rows[i - start] = [
         sweepId,
         i + 1,
         p.sourceRows[0],
@@ -45,9 +51,11 @@ export async function insertPoints(
         p.sheetResistanceOhmSq,
         p.resistivityOhmCm,
         rawOf(p),
-        p.flags.join(','),
-      ]);
+        p.flags.length === 0 ? '' : p.flags.join(','),
+      ];
     }
-    await connection.batch(INSERT_POINTS, rows);
+    pending.push(connection.batch(INSERT_POINTS, rows));
   }
+  const settled = await Promise.allSettled(pending);
+  for (const outcome of settled) if (outcome.status === 'rejected') throw outcome.reason;
 }

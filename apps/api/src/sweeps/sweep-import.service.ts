@@ -17,7 +17,7 @@ import { Transaction } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
 import { conflict, unprocessable, validationFailed } from '../errors';
 import { Station } from '../stations/station.model';
-import { rawStorageFor } from '../storage/storage';
+import { uploadRawStorage } from '../storage/storage';
 import type { RawStorage } from '../storage/raw-storage';
 import { visibleWafer } from '../wafers/wafer-access.service';
 import { Wafer } from '../wafers/wafer.model';
@@ -127,7 +127,8 @@ async function findStation(
 
 /**
  * The raw JSON document of a point: the cells of its file row as read (an array), or for a
- * polarity pair `{ rows, cells }` with both rows.
+ * polarity pair `{ rows, cells }` with both rows. The header names are kept once, in the
+ * sweep's column mapping; the read path rebuilds `[{ row, values: { header: cell } }]`.
  */
 function rawJson(parsed: ParsedSweepFile): (p: ConvertedPoint) => string {
   const records = parsed.table.records;
@@ -137,16 +138,29 @@ function rawJson(parsed: ParsedSweepFile): (p: ConvertedPoint) => string {
       : JSON.stringify({ rows: p.sourceRows, cells: p.recordIndexes.map((i) => records[i]) });
 }
 
+/** Removes an object-store copy whose transaction did not commit; never masks the cause. */
+async function discardRaw(storage: RawStorage, key: Promise<string>): Promise<void> {
+  try {
+    await storage.delete(await key);
+  } catch {
+    // The put itself failed (nothing stored) or the store is unreachable: the import's own
+    // error is what the caller must see; an orphaned object holds no sweep data.
+  }
+}
+
 /**
  * Imports a sweep file onto a wafer as `actor`. Stores everything or nothing; throws the
  * API's errors (404 hidden wafer, 400 mapping or geometry, 409 duplicate, 422 unreadable rows).
+ * The raw file goes to `options.storage`, by default the configured one (`RAW_STORAGE`). An
+ * object store's copy is written before the transaction commits and deleted again when the
+ * transaction rolls back or the import fails.
  */
 export async function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
   options: { storage?: RawStorage } = {},
 ): Promise<SweepCreatedResponse> {
-  const storage = options.storage ?? rawStorageFor('db');
+  const storage = options.storage ?? uploadRawStorage();
   const parsed = readFile(input.file);
   const mapped = applyColumnOverrides(parsed.columns, input.columns ?? []);
   if (mapped.problems.length)
@@ -163,101 +177,143 @@ export async function importSweep(
   const sha256 = createHash('sha256').update(input.file).digest('hex');
   const sequelize = Sweep.sequelize!;
 
-  return sequelize.transaction(async (transaction) => {
-    const { wafer, lot } = await visibleWafer(actor, input.waferId, transaction);
-    // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
-    await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
-    const earlier = await Sweep.findOne({ where: { waferId: wafer.id, sha256 }, transaction });
-    if (earlier) {
-      throw conflict(`This file was already uploaded to this wafer as sweep ${earlier.id}`, {
-        sweepId: earlier.id,
-      });
-    }
-    const warnings: string[] = [];
-    const station = await findStation(
-      input.stationId,
-      parsed.recognised.stationName,
-      warnings,
-      transaction,
-    );
-    const tCol = columns.find((c) => c.meaning === 'temperature')!;
-    const geometry = resolveGeometry({
-      method: input.method,
-      request: input.geometry ?? {},
-      wafer,
-      lot,
-      station,
-      file: parsed.recognised,
-      needsRtd: tCol.unitInfo?.kind === 'resistance',
+  /** The raw write, once started; an object store's copy is removed if nothing commits. */
+  let rawKey: Promise<string> | null = null;
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const { wafer, lot } = await visibleWafer(actor, input.waferId, transaction);
+      // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
+      await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
+      const earlier = await Sweep.findOne({ where: { waferId: wafer.id, sha256 }, transaction });
+      if (earlier) {
+        throw conflict(`This file was already uploaded to this wafer as sweep ${earlier.id}`, {
+          sweepId: earlier.id,
+        });
+      }
+      // The raw bytes are sent now, so the store writes them while the rows are converted.
+      const put = storage.put(input.file, { transaction });
+      rawKey = put;
+      put.catch(() => undefined); // awaited below; never an unhandled rejection
+      try {
+        return await storeSweep(
+          { input, actor, parsed, columns, sha256, storage, rawKey: put, wafer, lot },
+          transaction,
+        );
+      } catch (error) {
+        // The write in flight finishes before the rollback runs on the same connection.
+        await put.catch(() => undefined);
+        throw error;
+      }
     });
-    const converted = convertRows(parsed, columns, input.method, geometry, constantCurrentA);
-    if (converted.problems.length) {
-      throw unprocessable(
-        'Some rows hold values that cannot be stored; nothing was stored',
-        converted.problems,
-      );
-    }
-    warnings.push(...converted.warnings);
-    const points = converted.points;
-    let minK = Infinity;
-    let maxK = -Infinity;
-    for (const p of points) {
-      if (p.temperatureK < minK) minK = p.temperatureK;
-      if (p.temperatureK > maxK) maxK = p.temperatureK;
-    }
-    const parseReport: SweepParseReport = {
-      delimiter: parsed.layout.delimiter,
-      decimalMark: parsed.layout.decimalMark,
-      headerRow: parsed.layout.headerLine,
-      rowCount: parsed.table.records.length,
-      warnings,
-      flaggedPoints: points.filter((p) =>
-        p.flags.some((f) => f === 'jump' || f === 'temperature-reversal'),
-      ).length,
-    };
-    const storageKey = await storage.put(input.file, { transaction });
-    const sweep = await Sweep.create(
-      {
-        waferId: wafer.id,
-        stationId: station?.id ?? null,
-        method: input.method,
-        geometry,
-        uploadedById: actor.id,
-        originalName: input.originalName.slice(0, 255) || 'sweep.csv',
-        sizeBytes: input.file.length,
-        sha256,
-        storageKind: storage.kind,
-        storageKey,
-        columnMapping: publicColumns(columns),
-        metadata: parsed.layout.metadata,
-        parseReport,
-        pointCount: points.length,
-        minTemperatureK: minK,
-        maxTemperatureK: maxK,
-        deletedById: null,
-      },
-      { transaction },
-    );
-    await insertPoints(sweep.id, points, rawJson(parsed), transaction);
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'create',
-        entity: 'sweep',
-        entityId: sweep.id,
-        after: {
-          waferId: wafer.id,
-          method: input.method,
-          originalName: sweep.originalName,
-          sha256,
-          pointCount: points.length,
-          stationId: sweep.stationId,
-          geometry,
-        },
-        requestId: actor.requestId ?? null,
-      },
-      transaction,
-    );
-    return { id: sweep.id, pointCount: points.length, warnings };
+  } catch (error) {
+    if (rawKey && !storage.writesInTransaction) await discardRaw(storage, rawKey);
+    throw error;
+  }
+}
+
+/** What the transaction's work needs once the duplicate check passed and the raw write began. */
+interface StoreContext {
+  input: ImportSweepInput;
+  actor: SweepActor;
+  parsed: ParsedSweepFile;
+  columns: ResolvedColumn[];
+  sha256: string;
+  storage: RawStorage;
+  rawKey: Promise<string>;
+  wafer: Wafer;
+  lot: Awaited<ReturnType<typeof visibleWafer>>['lot'];
+}
+
+/** Converts the rows and stores the sweep, its points and the audit event. */
+async function storeSweep(
+  { input, actor, parsed, columns, sha256, storage, rawKey, wafer, lot }: StoreContext,
+  transaction: Transaction,
+): Promise<SweepCreatedResponse> {
+  const constantCurrentA = parsed.recognised.currentA;
+  const warnings: string[] = [];
+  const station = await findStation(
+    input.stationId,
+    parsed.recognised.stationName,
+    warnings,
+    transaction,
+  );
+  const tCol = columns.find((c) => c.meaning === 'temperature')!;
+  const geometry = resolveGeometry({
+    method: input.method,
+    request: input.geometry ?? {},
+    wafer,
+    lot,
+    station,
+    file: parsed.recognised,
+    needsRtd: tCol.unitInfo?.kind === 'resistance',
   });
+  const converted = convertRows(parsed, columns, input.method, geometry, constantCurrentA);
+  if (converted.problems.length) {
+    throw unprocessable(
+      'Some rows hold values that cannot be stored; nothing was stored',
+      converted.problems,
+    );
+  }
+  warnings.push(...converted.warnings);
+  const points = converted.points;
+  let minK = Infinity;
+  let maxK = -Infinity;
+  for (const p of points) {
+    if (p.temperatureK < minK) minK = p.temperatureK;
+    if (p.temperatureK > maxK) maxK = p.temperatureK;
+  }
+  const parseReport: SweepParseReport = {
+    delimiter: parsed.layout.delimiter,
+    decimalMark: parsed.layout.decimalMark,
+    headerRow: parsed.layout.headerLine,
+    rowCount: parsed.table.records.length,
+    warnings,
+    flaggedPoints: points.filter((p) =>
+      p.flags.some((f) => f === 'jump' || f === 'temperature-reversal'),
+    ).length,
+  };
+  const storageKey = await rawKey;
+  const sweep = await Sweep.create(
+    {
+      waferId: wafer.id,
+      stationId: station?.id ?? null,
+      method: input.method,
+      geometry,
+      uploadedById: actor.id,
+      originalName: input.originalName.slice(0, 255) || 'sweep.csv',
+      sizeBytes: input.file.length,
+      sha256,
+      storageKind: storage.kind,
+      storageKey,
+      columnMapping: publicColumns(columns),
+      metadata: parsed.layout.metadata,
+      parseReport,
+      pointCount: points.length,
+      minTemperatureK: minK,
+      maxTemperatureK: maxK,
+      deletedById: null,
+    },
+    { transaction },
+  );
+  await insertPoints(sweep.id, points, rawJson(parsed), transaction);
+  await recordAudit(
+    {
+      actorId: actor.id,
+      action: 'create',
+      entity: 'sweep',
+      entityId: sweep.id,
+      after: {
+        waferId: wafer.id,
+        method: input.method,
+        originalName: sweep.originalName,
+        sha256,
+        pointCount: points.length,
+        stationId: sweep.stationId,
+        geometry,
+      },
+      requestId: actor.requestId ?? null,
+    },
+    transaction,
+  );
+  return { id: sweep.id, pointCount: points.length, warnings };
 }

@@ -45,7 +45,66 @@ export function finiteThicknessFactor(thicknessOverSpacing: number): number {
     'thicknessOverSpacing',
     thicknessOverSpacing,
   );
-  return thicknessFactorUnchecked(tau);
+  return cachedThicknessFactor(tau);
+}
+
+/**
+ * Geometry factors already computed, keyed by the exact ratios t/s and d/s. A sweep converts
+ * thousands of readings with one geometry, and the thickness factor sums at least 64 image
+ * terms, so repeating it per reading dominated the conversion. A cached value is the number the
+ * computation returned for that exact key, so results are bit-for-bit those of the uncached
+ * path. Each map is bounded: when full it is emptied and refilled.
+ */
+const GEOMETRY_CACHE_LIMIT = 256;
+const thicknessFactorCache = new Map<number, number>();
+const diameterFactorCache = new Map<number, number>();
+
+function remember(cache: Map<number, number>, key: number, value: number): number {
+  if (cache.size >= GEOMETRY_CACHE_LIMIT) cache.clear();
+  cache.set(key, value);
+  return value;
+}
+
+/** F(t/s) through the cache (tau already checked positive). */
+function cachedThicknessFactor(tau: number): number {
+  return (
+    thicknessFactorCache.get(tau) ??
+    remember(thicknessFactorCache, tau, thicknessFactorUnchecked(tau))
+  );
+}
+
+/** C(d/s) / (pi / ln 2) through the cache (d/s already checked to be at least about 3). */
+function cachedDiameterFactor(diameterOverSpacing: number): number {
+  return (
+    diameterFactorCache.get(diameterOverSpacing) ??
+    remember(diameterFactorCache, diameterOverSpacing, diameterFactorUnchecked(diameterOverSpacing))
+  );
+}
+
+/**
+ * @internal The geometry factors computed afresh, bypassing the cache (for tests comparing the
+ * cached path with the computation).
+ */
+export function uncachedGeometryFactors(
+  thicknessOverSpacing: number,
+  diameterOverSpacing?: number,
+): { thicknessFactor: number; diameterFactor: number } {
+  return {
+    thicknessFactor: thicknessFactorUnchecked(thicknessOverSpacing),
+    diameterFactor:
+      diameterOverSpacing === undefined ? 1 : diameterFactorUnchecked(diameterOverSpacing),
+  };
+}
+
+/** @internal Empties the geometry-factor cache (tests). */
+export function clearGeometryFactorCache(): void {
+  thicknessFactorCache.clear();
+  diameterFactorCache.clear();
+}
+
+function diameterFactorUnchecked(diameterOverSpacing: number): number {
+  const r = Math.max(MIN_DIAMETER_SPACINGS, diameterOverSpacing);
+  return Math.LN2 / (Math.LN2 + Math.log((r * r + 3) / (r * r - 3)));
 }
 
 function thicknessFactorUnchecked(tau: number): number {
@@ -101,6 +160,9 @@ export interface FourPointProbeResult {
  * Assumptions: probes collinear, equal spacing s, centred on the slice, insulating base,
  * homogeneous material; the two corrections are applied as independent factors (exact each on
  * its own, the usual practice when both apply).
+ * Performance: both factors depend only on t/s and d/s and are memoised per exact ratio (see
+ * `GEOMETRY_CACHE_LIMIT`), so a sweep with one geometry sums the image series once; results are
+ * identical to computing them on every call.
  * Source: Valdes 1954, Proc. IRE 42, 420; Smits 1958, Bell Syst. Tech. J. 37, 711.
  *
  * @param input voltageV (V), currentA (A, non-zero), spacingCm, thicknessCm, optional diameterCm
@@ -128,10 +190,9 @@ export function fourPointProbe(input: {
         `\`fourPointProbe\` requires diameterCm of at least 3 probe spacings (${3 * s} cm), got ${d}`,
       );
     }
-    const r = Math.max(MIN_DIAMETER_SPACINGS, d / s);
-    diameterFactor = Math.LN2 / (Math.LN2 + Math.log((r * r + 3) / (r * r - 3)));
+    diameterFactor = cachedDiameterFactor(d / s);
   }
-  const thicknessFactor = thicknessFactorUnchecked(t / s);
+  const thicknessFactor = cachedThicknessFactor(t / s);
   const sheetResistanceOhmSq = THIN_SHEET_FACTOR * diameterFactor * ratio;
   return {
     sheetResistanceOhmSq,
