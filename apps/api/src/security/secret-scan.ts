@@ -38,7 +38,7 @@ const ALWAYS: Array<[string, RegExp]> = [
 const ASSIGNMENT =
   /(?<![\w/@.-])([A-Za-z_]*(?:password|passwd|secret)[A-Za-z_]*)["']?\s*[:=]\s*(["'`]?)([^"'`\s,;)]*)\2/gi;
 
-/** A URL with a password in it (`mysql://user:pw@host`). */
+/** A URL whose user part carries a password (scheme, user, a colon, the password, an at-sign). */
 const URL_PASSWORD = /\b[a-z][a-z0-9+.-]*:\/\/[^\s:@/'"]+:([^\s@/'"]+)@/gi;
 
 /** Values that are no secret: empty, a reference (`$X`, `${x}`, `process.env`), a placeholder. */
