@@ -35,6 +35,8 @@ export function verifyToken(
       issuer: 'rhotrace',
     }) as jwt.JwtPayload;
     const userId = Number(claims.sub);
+    // jwt.verify checks expiry only when the claim is there: a token without one is refused here.
+    if (typeof claims.exp !== 'number') return null;
     if (!Number.isInteger(userId) || userId <= 0 || typeof claims.ver !== 'number') return null;
     return { userId, version: claims.ver };
   } catch {
