@@ -22,20 +22,29 @@ describe('a manager assigns a wafer', () => {
     await signIn(page, 'manager');
     await page.getByRole('link', { name: /Worklist/ }).click();
     await page.getByRole('heading', { name: 'Worklist' }).waitFor();
-    await expect(page.getByRole('note', { name: 'Safety caution' }).isVisible()).resolves.toBe(true);
+    await expect(page.getByRole('note', { name: 'Safety caution' }).isVisible()).resolves.toBe(
+      true,
+    );
 
     const wafer = page.getByRole('combobox', { name: 'Wafer' });
     await wafer.click();
     await wafer.fill('0');
     await page.getByRole('option').first().click();
     await page.getByRole('combobox', { name: 'Assignee' }).click();
-    await page.getByRole('option', { name: /\(technician\)/ }).first().click();
+    await page
+      .getByRole('option', { name: /\(technician\)/ })
+      .first()
+      .click();
     await page.getByLabel('Task').fill('Temperature sweep, 77 K to 400 K (browser test)');
     const due = new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 10);
     await page.getByLabel('Due date').fill(due);
     await page.getByRole('button', { name: 'Assign and e-mail' }).click();
     await page.getByText(/an e-mail is on its way/).waitFor({ timeout: 20_000 });
-    await page.getByRole('table', { name: 'Assignments' }).getByText('(browser test)').first().waitFor();
+    await page
+      .getByRole('table', { name: 'Assignments' })
+      .getByText('(browser test)')
+      .first()
+      .waitFor();
 
     let message = '';
     for (let i = 0; i < 60 && !message; i++) {

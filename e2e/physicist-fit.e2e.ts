@@ -1,11 +1,28 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, REPO_DIR, apiGet, apiToken, openBrowser, screenshot, seriousViolations, signIn } from './support/app';
+import {
+  BASE_URL,
+  REPO_DIR,
+  apiGet,
+  apiToken,
+  openBrowser,
+  screenshot,
+  seriousViolations,
+  signIn,
+} from './support/app';
 
-interface Page<T> { items: T[] }
-interface Wafer { id: number; number: string }
-interface Sweep { id: number; pointCount: number }
+interface Page<T> {
+  items: T[];
+}
+interface Wafer {
+  id: number;
+  number: string;
+}
+interface Sweep {
+  id: number;
+  pointCount: number;
+}
 
 /** A sweep to study: the largest stored one, or the demo file uploaded to the first wafer. */
 async function findOrMakeSweep(): Promise<Sweep> {
@@ -14,7 +31,8 @@ async function findOrMakeSweep(): Promise<Sweep> {
   let best: Sweep | null = null;
   for (const wafer of wafers.items) {
     const body = await apiGet<Page<Sweep> | Sweep[]>(token, `/api/wafers/${wafer.id}/sweeps`);
-    for (const s of Array.isArray(body) ? body : body.items) if (!best || s.pointCount > best.pointCount) best = s;
+    for (const s of Array.isArray(body) ? body : body.items)
+      if (!best || s.pointCount > best.pointCount) best = s;
   }
   if (best) return best;
   const target = wafers.items[0];
@@ -22,11 +40,18 @@ async function findOrMakeSweep(): Promise<Sweep> {
   const form = new FormData();
   form.append('method', 'four-point');
   const file = join(REPO_DIR, 'seed-data/sweeps/comma-kelvin-four-point.csv');
-  form.append('file', new Blob([readFileSync(file)], { type: 'text/csv' }), 'comma-kelvin-four-point.csv');
+  form.append(
+    'file',
+    new Blob([readFileSync(file)], { type: 'text/csv' }),
+    'comma-kelvin-four-point.csv',
+  );
   const res = await fetch(`${BASE_URL}/api/wafers/${target.id}/sweeps`, {
-    method: 'POST', headers: { authorization: `Bearer ${token}` }, body: form,
+    method: 'POST',
+    headers: { authorization: `Bearer ${token}` },
+    body: form,
   });
-  if (res.status !== 201) throw new Error(`set-up upload answered ${res.status}: ${await res.text()}`);
+  if (res.status !== 201)
+    throw new Error(`set-up upload answered ${res.status}: ${await res.text()}`);
   const created = (await res.json()) as { id: number; pointCount: number };
   return { id: created.id, pointCount: created.pointCount };
 }
@@ -49,8 +74,14 @@ describe('a physicist studies a sweep', () => {
     await page.goto(`${BASE_URL}/sweeps/${sweep.id}`);
     const arrhenius = page.getByRole('figure', { name: /Arrhenius plot/ });
     await arrhenius.locator('.nsewdrag').first().waitFor({ timeout: 60_000 });
-    await page.getByRole('figure', { name: /with the model curve/ }).locator('.nsewdrag').first().waitFor({ timeout: 60_000 });
-    console.log(`[e2e] sweep study of ${sweep.pointCount} points interactive after ${Date.now() - started} ms`);
+    await page
+      .getByRole('figure', { name: /with the model curve/ })
+      .locator('.nsewdrag')
+      .first()
+      .waitFor({ timeout: 60_000 });
+    console.log(
+      `[e2e] sweep study of ${sweep.pointCount} points interactive after ${Date.now() - started} ms`,
+    );
 
     const layer = arrhenius.locator('.nsewdrag').first();
     await layer.scrollIntoViewIfNeeded();
@@ -72,7 +103,9 @@ describe('a physicist studies a sweep', () => {
     await saved.getByText(`#${fitId}`).waitFor();
 
     const token = await apiToken('physicist');
-    const fits = await apiGet<Page<{ id: number; kind: string }> | Array<{ id: number; kind: string }>>(token, `/api/sweeps/${sweep.id}/fits`);
+    const fits = await apiGet<
+      Page<{ id: number; kind: string }> | Array<{ id: number; kind: string }>
+    >(token, `/api/sweeps/${sweep.id}/fits`);
     const list = Array.isArray(fits) ? fits : fits.items;
     expect(list.find((f) => f.id === fitId)?.kind).toBe('arrhenius');
 

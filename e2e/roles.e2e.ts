@@ -1,9 +1,24 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { BASE_URL, type DemoRole, openBrowser, screenshot, seriousViolations, signIn } from './support/app';
+import {
+  BASE_URL,
+  type DemoRole,
+  openBrowser,
+  screenshot,
+  seriousViolations,
+  signIn,
+} from './support/app';
 
 /** The navigation each role should see (PRODUCT.md section 2), in order. */
 const EXPECTED_NAV: Record<DemoRole, string[]> = {
-  admin: ['Bench', 'Lots & wafers', 'Overlay', 'Worklist', 'Probe stations', 'People', 'Change trail'],
+  admin: [
+    'Bench',
+    'Lots & wafers',
+    'Overlay',
+    'Worklist',
+    'Probe stations',
+    'People',
+    'Change trail',
+  ],
   manager: ['Bench', 'Lots & wafers', 'Overlay', 'Worklist', 'Probe stations', 'Change trail'],
   engineer: ['Bench', 'Lots & wafers', 'Overlay', 'Probe stations'],
   physicist: ['Bench', 'Lots & wafers', 'Overlay', 'Probe stations'],
@@ -37,9 +52,17 @@ describe('each role sees only what it may use', () => {
         .getEntriesByType('resource')
         .map((e) => e as PerformanceResourceTiming)
         .filter((e) => e.name.endsWith('.js'))
-        .reduce((sum, e) => ({ transfer: sum.transfer + e.transferSize, decoded: sum.decoded + e.decodedBodySize }), { transfer: 0, decoded: 0 }),
+        .reduce(
+          (sum, e) => ({
+            transfer: sum.transfer + e.transferSize,
+            decoded: sum.decoded + e.decodedBodySize,
+          }),
+          { transfer: 0, decoded: 0 },
+        ),
     );
-    console.log(`[e2e] initial JS on sign-in: ${(js.transfer / 1024).toFixed(1)} kB transferred, ${(js.decoded / 1024).toFixed(1)} kB decoded`);
+    console.log(
+      `[e2e] initial JS on sign-in: ${(js.transfer / 1024).toFixed(1)} kB transferred, ${(js.decoded / 1024).toFixed(1)} kB decoded`,
+    );
     expect(js.decoded).toBeGreaterThan(0);
     expect(await seriousViolations(page)).toEqual([]);
     await screenshot(page, 'sign-in');

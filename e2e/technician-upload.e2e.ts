@@ -26,12 +26,16 @@ describe('a technician uploads a sweep to an assigned wafer', () => {
         const card = width === 390 && (await cards.count()) > 1 ? cards.nth(1) : cards.first();
         await card.getByRole('link', { name: 'Open and upload' }).click();
         await page.getByRole('heading', { name: 'Bring in sweeps' }).waitFor();
-        await expect(page.getByRole('note', { name: 'Safety caution' }).first().isVisible()).resolves.toBe(true);
+        await expect(
+          page.getByRole('note', { name: 'Safety caution' }).first().isVisible(),
+        ).resolves.toBe(true);
 
         await page.locator('input[type=file]').setInputFiles(DEMO_FILE);
         const file = page.getByRole('article', { name: /comma-kelvin-four-point\.csv/ });
         await file.getByText('Ready to store').waitFor();
-        await expect(file.getByRole('table', { name: /Detected columns/ }).isVisible()).resolves.toBe(true);
+        await expect(
+          file.getByRole('table', { name: /Detected columns/ }).isVisible(),
+        ).resolves.toBe(true);
         expect(await seriousViolations(page)).toEqual([]);
         await screenshot(page, `upload-preview-${width}`);
 
@@ -49,11 +53,15 @@ describe('a technician uploads a sweep to an assigned wafer', () => {
         const text = (await outcome.textContent()) ?? '';
         if (text.includes('Refused')) {
           // A rerun on the same data: the duplicate must be recognised, not stored twice.
-          await expect(file.getByRole('alert').first().textContent()).resolves.toMatch(/already|earlier|duplicate/i);
+          await expect(file.getByRole('alert').first().textContent()).resolves.toMatch(
+            /already|earlier|duplicate/i,
+          );
         } else {
           expect(Number(/Stored: (\d+)/.exec(text)?.[1])).toBeGreaterThan(0);
         }
-        const points = page.getByRole('heading', { name: /Points of comma-kelvin-four-point\.csv \(\d+\)/ });
+        const points = page.getByRole('heading', {
+          name: /Points of comma-kelvin-four-point\.csv \(\d+\)/,
+        });
         await points.waitFor({ timeout: 30_000 });
         await page.locator('.js-plotly-plot').first().waitFor({ timeout: 30_000 });
         await screenshot(page, `wafer-after-upload-${width}`);

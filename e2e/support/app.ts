@@ -8,7 +8,9 @@ import { type BrowserContext, type Page, chromium } from 'playwright-core';
 const base = process.env['E2E_BASE_URL'];
 if (!base) {
   // Fail loudly: a browser suite that silently skips proves nothing.
-  throw new Error('E2E_BASE_URL is not set: start Rhotrace and point E2E_BASE_URL at it (npm test does).');
+  throw new Error(
+    'E2E_BASE_URL is not set: start Rhotrace and point E2E_BASE_URL at it (npm test does).',
+  );
 }
 /** The app under test, without a trailing slash. */
 export const BASE_URL = base.replace(/\/$/, '');
@@ -23,15 +25,25 @@ export const ROLES = ['admin', 'manager', 'engineer', 'physicist', 'technician']
 export type DemoRole = (typeof ROLES)[number];
 
 /** A fresh Chromium profile (Debian's browser; never a downloaded one). */
-export async function openBrowser(width = 1280, height = 900): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+export async function openBrowser(
+  width = 1280,
+  height = 900,
+): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
   const profile = mkdtempSync(join(tmpdir(), 'rt-e2e-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env['CHROMIUM_PATH'] ?? '/usr/bin/chromium',
     headless: true,
     viewport: { width, height },
     acceptDownloads: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
-      '--disable-component-update', '--disable-sync'],
+    args: [
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--no-first-run',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+    ],
   });
   const page = context.pages()[0] ?? (await context.newPage());
   return {
@@ -62,10 +74,18 @@ export async function screenshot(page: Page, name: string): Promise<void> {
 
 /** Serious and critical axe violations on the page, as readable lines. */
 export async function seriousViolations(page: Page): Promise<string[]> {
-  const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+  const result = await new AxeBuilder({ page })
+    .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'])
+    .analyze();
   return result.violations
     .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
+    .map(
+      (v) =>
+        `${v.id} (${v.impact}): ${v.help} — ${v.nodes
+          .map((n) => n.target.join(' '))
+          .slice(0, 3)
+          .join(', ')}`,
+    );
 }
 
 /** A bearer token for API set-up steps, through the same sign-in the app uses. */

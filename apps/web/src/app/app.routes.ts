@@ -44,7 +44,8 @@ export const routes: Routes = [
       {
         path: 'overlay',
         canMatch: [rolesGuard(...PERMISSIONS.analyse)],
-        loadChildren: () => import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES),
+        loadChildren: () =>
+          import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES),
       },
       {
         path: 'worklist',
@@ -55,7 +56,8 @@ export const routes: Routes = [
       {
         path: 'stations',
         canMatch: [rolesGuard(...PERMISSIONS.seeAllLots)],
-        loadChildren: () => import('./features/stations/stations.routes').then((m) => m.STATIONS_ROUTES),
+        loadChildren: () =>
+          import('./features/stations/stations.routes').then((m) => m.STATIONS_ROUTES),
       },
       {
         path: 'people',

@@ -18,13 +18,19 @@ const TOXIC_MATERIALS = new Set(['GaAs']);
         <strong>Before you measure</strong>
         <ul>
           <li>Hot chucks burn; let the stage cool before touching the wafer or the probes.</li>
-          <li>Cryogens freeze skin and displace oxygen; use them only where the room is ventilated.</li>
+          <li>
+            Cryogens freeze skin and displace oxygen; use them only where the room is ventilated.
+          </li>
           <li>Probe current heats small samples and can damage thin films; start low.</li>
           @if (toxic()) {
-            <li><strong>{{ material() }}</strong> is toxic when broken or abraded; handle fragments
-              as hazardous waste.</li>
+            <li>
+              <strong>{{ material() }}</strong> is toxic when broken or abraded; handle fragments as
+              hazardous waste.
+            </li>
           } @else {
-            <li>Some compound semiconductors (GaAs and others) are toxic when broken or abraded.</li>
+            <li>
+              Some compound semiconductors (GaAs and others) are toxic when broken or abraded.
+            </li>
           }
         </ul>
         <p>Your lab's own safety rules, local codes and licensed practice come first.</p>
@@ -43,9 +49,18 @@ const TOXIC_MATERIALS = new Set(['GaAs']);
       font: var(--mat-sys-body-medium);
       margin: 12px 0;
     }
-    .mark { color: var(--rt-caution-border); margin-top: 2px; }
-    ul { margin: 4px 0; padding-left: 18px; }
-    p { margin: 4px 0 0; font: var(--mat-sys-body-small); }
+    .mark {
+      color: var(--rt-caution-border);
+      margin-top: 2px;
+    }
+    ul {
+      margin: 4px 0;
+      padding-left: 18px;
+    }
+    p {
+      margin: 4px 0 0;
+      font: var(--mat-sys-body-small);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

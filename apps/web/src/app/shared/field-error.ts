@@ -13,6 +13,7 @@ export function fieldError(control: AbstractControl | null): string {
   if (errors['minlength']) return `Use at least ${errors['minlength'].requiredLength} characters.`;
   if (errors['maxlength']) return `Use at most ${errors['maxlength'].requiredLength} characters.`;
   if (errors['pattern']) return 'That is not in the expected form.';
+  if (errors['notNumber']) return 'Type a number, e.g. 1.5e15.';
   if (errors['order']) return String(errors['order']);
   return 'Check this value.';
 }

@@ -11,11 +11,24 @@ export function formatValue(value: number | null | undefined, digits = 4): strin
 }
 
 const SUPERSCRIPT: Record<string, string> = {
-  '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹',
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
 };
 
 function superscript(n: number): string {
-  return String(n).split('').map((c) => SUPERSCRIPT[c] ?? c).join('');
+  return String(n)
+    .split('')
+    .map((c) => SUPERSCRIPT[c] ?? c)
+    .join('');
 }
 
 /** Kelvin to degrees Celsius. */

@@ -17,8 +17,14 @@ export type IconName = keyof typeof PATHS;
 @Component({
   selector: 'rt-icon',
   template: `<svg viewBox="0 0 24 24" width="22" height="22" aria-hidden="true" focusable="false">
-    <path [attr.d]="path()" fill="none" stroke="currentColor" stroke-width="1.8"
-      stroke-linecap="round" stroke-linejoin="round" />
+    <path
+      [attr.d]="path()"
+      fill="none"
+      stroke="currentColor"
+      stroke-width="1.8"
+      stroke-linecap="round"
+      stroke-linejoin="round"
+    />
   </svg>`,
   styles: ':host { display: inline-flex; line-height: 0; }',
   changeDetection: ChangeDetectionStrategy.OnPush,

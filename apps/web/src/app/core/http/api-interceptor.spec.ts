@@ -39,7 +39,9 @@ describe('apiInterceptor', () => {
   it('adds the bearer token to API requests only', () => {
     http.get('/api/lots').subscribe();
     http.get('/assets/x.json').subscribe();
-    expect(backend.expectOne('/api/lots').request.headers.get('Authorization')).toBe('Bearer tok-1');
+    expect(backend.expectOne('/api/lots').request.headers.get('Authorization')).toBe(
+      'Bearer tok-1',
+    );
     expect(backend.expectOne('/assets/x.json').request.headers.has('Authorization')).toBe(false);
   });
 
@@ -47,7 +49,13 @@ describe('apiInterceptor', () => {
     let caught: unknown;
     http.post('/api/lots', {}).subscribe({ error: (e: unknown) => (caught = e) });
     backend.expectOne('/api/lots').flush(
-      { error: { code: 'validation_failed', message: 'Check the fields', details: [{ field: 'body.code', problem: 'is required' }] } },
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Check the fields',
+          details: [{ field: 'body.code', problem: 'is required' }],
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     expect(caught).toBeInstanceOf(ApiError);
@@ -59,10 +67,12 @@ describe('apiInterceptor', () => {
     const router = TestBed.inject(Router);
     const navigate = vi.spyOn(router, 'navigate').mockResolvedValue(true);
     http.get('/api/lots').subscribe({ error: () => undefined });
-    backend.expectOne('/api/lots').flush(
-      { error: { code: 'unauthenticated', message: 'Sign in again' } },
-      { status: 401, statusText: 'Unauthorized' },
-    );
+    backend
+      .expectOne('/api/lots')
+      .flush(
+        { error: { code: 'unauthenticated', message: 'Sign in again' } },
+        { status: 401, statusText: 'Unauthorized' },
+      );
     expect(session.signedIn()).toBe(false);
     expect(navigate).toHaveBeenCalledWith(['/sign-in'], { queryParams: { next: '/', expired: 1 } });
     expect(snack.open).not.toHaveBeenCalled();

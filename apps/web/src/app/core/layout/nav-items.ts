@@ -15,10 +15,20 @@ const EVERYONE = PERMISSIONS.upload;
 /** The navigation, in order; each role sees only the entries it may use. */
 export const NAV_ITEMS: readonly NavItem[] = [
   { path: '/', label: 'Bench', hint: 'Your work today', roles: EVERYONE, exact: true },
-  { path: '/lots', label: 'Lots & wafers', hint: 'Registered material', roles: PERMISSIONS.seeAllLots },
+  {
+    path: '/lots',
+    label: 'Lots & wafers',
+    hint: 'Registered material',
+    roles: PERMISSIONS.seeAllLots,
+  },
   { path: '/overlay', label: 'Overlay', hint: 'Curves side by side', roles: PERMISSIONS.analyse },
   { path: '/worklist', label: 'Worklist', hint: 'Who measures what', roles: PERMISSIONS.assign },
-  { path: '/stations', label: 'Probe stations', hint: 'Benches and sensors', roles: PERMISSIONS.seeAllLots },
+  {
+    path: '/stations',
+    label: 'Probe stations',
+    hint: 'Benches and sensors',
+    roles: PERMISSIONS.seeAllLots,
+  },
   { path: '/people', label: 'People', hint: 'Accounts and roles', roles: PERMISSIONS.manageUsers },
   { path: '/trail', label: 'Change trail', hint: 'Who changed what', roles: PERMISSIONS.readAudit },
 ];

@@ -29,7 +29,9 @@ export class AnalysisApi {
 
   /** Quiet: shown beside the parameters while the user types. */
   modelCurve(body: ModelCurveRequest): Observable<ModelCurveResponse> {
-    return this.http.post<ModelCurveResponse>('/api/model/curve', body, { context: quietRequest() });
+    return this.http.post<ModelCurveResponse>('/api/model/curve', body, {
+      context: quietRequest(),
+    });
   }
 
   fits(sweepId: number): Observable<FitDto[]> {

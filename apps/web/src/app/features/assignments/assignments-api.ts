@@ -30,12 +30,16 @@ export class AssignmentsApi {
   }
 
   assignees(): Observable<AssigneeDto[]> {
-    return this.http.get<{ items: AssigneeDto[] }>('/api/users/assignees').pipe(map((b) => b.items));
+    return this.http
+      .get<{ items: AssigneeDto[] }>('/api/users/assignees')
+      .pipe(map((b) => b.items));
   }
 
   wafers(q: string): Observable<WaferDto[]> {
     return this.http
-      .get<Page<WaferDto>>('/api/wafers', { params: listParams({ q, pageSize: 50, sort: '-updatedAt' }) })
+      .get<Page<WaferDto>>('/api/wafers', {
+        params: listParams({ q, pageSize: 50, sort: '-updatedAt' }),
+      })
       .pipe(map((p) => p.items));
   }
 }

@@ -13,38 +13,87 @@ const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit
 /** Who changed what and when, with the values before and after. */
 @Component({
   selector: 'rt-change-trail',
-  imports: [MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatInputModule],
+  imports: [
+    MatTableModule,
+    MatPaginatorModule,
+    MatSelectModule,
+    MatFormFieldModule,
+    MatInputModule,
+  ],
   template: `
     <div class="rt-page">
       <h1 class="rt-page-title">Change trail</h1>
       <div class="rt-row">
-        <mat-form-field><mat-label>Record kind</mat-label>
+        <mat-form-field
+          ><mat-label>Record kind</mat-label>
           <mat-select [value]="entity()" (valueChange)="entity.set($event); pageIndex.set(0)">
             <mat-option value="">Every kind</mat-option>
-            @for (e of entities; track e) { <mat-option [value]="e">{{ e }}</mat-option> }
-          </mat-select></mat-form-field>
-        <mat-form-field><mat-label>Record id</mat-label>
-          <input matInput [value]="recordId()" (change)="recordId.set($any($event.target).value); pageIndex.set(0)" /></mat-form-field>
+            @for (e of entities; track e) {
+              <mat-option [value]="e">{{ e }}</mat-option>
+            }
+          </mat-select></mat-form-field
+        >
+        <mat-form-field
+          ><mat-label>Record id</mat-label>
+          <input
+            matInput
+            [value]="recordId()"
+            (change)="recordId.set($any($event.target).value); pageIndex.set(0)"
+        /></mat-form-field>
       </div>
       <div class="rt-table-wrap">
         <table mat-table [dataSource]="events.value()?.items ?? []" aria-label="Change events">
-          <ng-container matColumnDef="when"><th mat-header-cell *matHeaderCellDef>When</th><td mat-cell *matCellDef="let e">{{ e.createdAt.slice(0, 19).replace('T', ' ') }}</td></ng-container>
-          <ng-container matColumnDef="who"><th mat-header-cell *matHeaderCellDef>Who</th><td mat-cell *matCellDef="let e">{{ e.actorEmail ?? 'system' }}</td></ng-container>
-          <ng-container matColumnDef="what"><th mat-header-cell *matHeaderCellDef>What</th><td mat-cell *matCellDef="let e">{{ e.action }} {{ e.entity }} #{{ e.entityId }}</td></ng-container>
-          <ng-container matColumnDef="change"><th mat-header-cell *matHeaderCellDef>Change</th>
-            <td mat-cell *matCellDef="let e"><details><summary>before / after</summary>
-              <pre>{{ show(e.before) }}</pre><pre>{{ show(e.after) }}</pre></details></td></ng-container>
+          <ng-container matColumnDef="when"
+            ><th mat-header-cell *matHeaderCellDef>When</th>
+            <td mat-cell *matCellDef="let e">
+              {{ e.createdAt.slice(0, 19).replace('T', ' ') }}
+            </td></ng-container
+          >
+          <ng-container matColumnDef="who"
+            ><th mat-header-cell *matHeaderCellDef>Who</th>
+            <td mat-cell *matCellDef="let e">{{ e.actorEmail ?? 'system' }}</td></ng-container
+          >
+          <ng-container matColumnDef="what"
+            ><th mat-header-cell *matHeaderCellDef>What</th>
+            <td mat-cell *matCellDef="let e">
+              {{ e.action }} {{ e.entity }} #{{ e.entityId }}
+            </td></ng-container
+          >
+          <ng-container matColumnDef="change"
+            ><th mat-header-cell *matHeaderCellDef>Change</th>
+            <td mat-cell *matCellDef="let e">
+              <details>
+                <summary>before / after</summary>
+                <pre>{{ show(e.before) }}</pre>
+                <pre>{{ show(e.after) }}</pre>
+              </details>
+            </td></ng-container
+          >
           <tr mat-header-row *matHeaderRowDef="columns"></tr>
           <tr mat-row *matRowDef="let row; columns: columns"></tr>
         </table>
-        <mat-paginator [length]="events.value()?.total ?? 0" [pageIndex]="pageIndex()" [pageSize]="pageSize()"
-          [pageSizeOptions]="[25, 50, 100]" (page)="setPage($event)" aria-label="Pages of the change trail" />
+        <mat-paginator
+          [length]="events.value()?.total ?? 0"
+          [pageIndex]="pageIndex()"
+          [pageSize]="pageSize()"
+          [pageSizeOptions]="[25, 50, 100]"
+          (page)="setPage($event)"
+          aria-label="Pages of the change trail"
+        />
       </div>
     </div>
   `,
   styles: `
-    table { width: 100%; }
-    pre { white-space: pre-wrap; word-break: break-word; font-size: 12px; max-width: 560px; margin: 4px 0; }
+    table {
+      width: 100%;
+    }
+    pre {
+      white-space: pre-wrap;
+      word-break: break-word;
+      font-size: 12px;
+      max-width: 560px;
+      margin: 4px 0;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -57,7 +106,12 @@ export class ChangeTrail {
   protected readonly pageIndex = signal(0);
   protected readonly pageSize = signal(DEFAULT_PAGE_SIZE);
   protected readonly events = rxResource({
-    params: () => ({ entity: this.entity(), id: this.recordId(), page: this.pageIndex() + 1, pageSize: this.pageSize() }),
+    params: () => ({
+      entity: this.entity(),
+      id: this.recordId(),
+      page: this.pageIndex() + 1,
+      pageSize: this.pageSize(),
+    }),
     stream: ({ params }) => this.api.list(params),
   });
 

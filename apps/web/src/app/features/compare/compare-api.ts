@@ -29,26 +29,38 @@ export class CompareApi {
     if (lots.length === 0) return of([]);
     return forkJoin(
       lots.map((lot) =>
-        this.http.get<Page<WaferDto>>(`/api/lots/${lot.id}/wafers`, { params: listParams({ pageSize: 200 }) }).pipe(
-          switchMap((page) =>
-            page.items.length === 0
-              ? of([] as SweepChoice[][])
-              : forkJoin(
-                  page.items.map((wafer) =>
-                    this.http.get<Page<SweepSummaryDto> | SweepSummaryDto[]>(`/api/wafers/${wafer.id}/sweeps`).pipe(
-                      map((b) => itemsOf(b).map((sweep) => ({ sweep, wafer, lotCode: lot.code }))),
-                      catchError(() => of([] as SweepChoice[])),
+        this.http
+          .get<Page<WaferDto>>(`/api/lots/${lot.id}/wafers`, {
+            params: listParams({ pageSize: 200 }),
+          })
+          .pipe(
+            switchMap((page) =>
+              page.items.length === 0
+                ? of([] as SweepChoice[][])
+                : forkJoin(
+                    page.items.map((wafer) =>
+                      this.http
+                        .get<Page<SweepSummaryDto> | SweepSummaryDto[]>(
+                          `/api/wafers/${wafer.id}/sweeps`,
+                        )
+                        .pipe(
+                          map((b) =>
+                            itemsOf(b).map((sweep) => ({ sweep, wafer, lotCode: lot.code })),
+                          ),
+                          catchError(() => of([] as SweepChoice[])),
+                        ),
                     ),
                   ),
-                ),
+            ),
+            map((lists) => lists.flat()),
           ),
-          map((lists) => lists.flat()),
-        ),
       ),
     ).pipe(map((lists) => lists.flat()));
   }
 
   compare(sweepIds: number[]): Observable<CompareResponse> {
-    return this.http.get<CompareResponse>('/api/compare', { params: listParams({ sweeps: sweepIds.join(',') }) });
+    return this.http.get<CompareResponse>('/api/compare', {
+      params: listParams({ sweeps: sweepIds.join(',') }),
+    });
   }
 }

@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
@@ -14,7 +24,15 @@ import { CompareApi } from './compare-api';
 /** Overlay: sweeps from several wafers or lots on one plot. */
 @Component({
   selector: 'rt-compare',
-  imports: [MatFormFieldModule, MatSelectModule, MatCheckboxModule, MatButtonModule, MatButtonToggleModule, Plot, EstimateNote],
+  imports: [
+    MatFormFieldModule,
+    MatSelectModule,
+    MatCheckboxModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    Plot,
+    EstimateNote,
+  ],
   template: `
     <div class="rt-page">
       <h1 class="rt-page-title">Overlay</h1>
@@ -22,20 +40,37 @@ import { CompareApi } from './compare-api';
         <mat-form-field class="lots">
           <mat-label>Lots</mat-label>
           <mat-select multiple [value]="lotIds()" (valueChange)="lotIds.set($event)">
-            @for (l of lots.value() ?? []; track l.id) { <mat-option [value]="l.id">{{ l.code }} ({{ l.material }})</mat-option> }
+            @for (l of lots.value() ?? []; track l.id) {
+              <mat-option [value]="l.id">{{ l.code }} ({{ l.material }})</mat-option>
+            }
           </mat-select>
         </mat-form-field>
-        <mat-button-toggle-group [value]="unit()" (change)="unit.set($event.value)" aria-label="Temperature unit" hideSingleSelectionIndicator>
+        <mat-button-toggle-group
+          [value]="unit()"
+          (change)="unit.set($event.value)"
+          aria-label="Temperature unit"
+          hideSingleSelectionIndicator
+        >
           <mat-button-toggle value="K">K</mat-button-toggle>
           <mat-button-toggle value="C">°C</mat-button-toggle>
         </mat-button-toggle-group>
-        <button mat-button type="button" (click)="plot()?.downloadPng('overlay')" [disabled]="!figure()">Save as PNG</button>
+        <button
+          mat-button
+          type="button"
+          (click)="plot()?.downloadPng('overlay')"
+          [disabled]="!figure()"
+        >
+          Save as PNG
+        </button>
       </div>
       @if ((choices.value() ?? []).length > 0) {
         <fieldset class="choices">
           <legend>Sweeps to overlay</legend>
           @for (c of choices.value() ?? []; track c.sweep.id) {
-            <mat-checkbox [checked]="chosen().includes(c.sweep.id)" (change)="toggle(c.sweep.id, $event.checked)">
+            <mat-checkbox
+              [checked]="chosen().includes(c.sweep.id)"
+              (change)="toggle(c.sweep.id, $event.checked)"
+            >
               {{ c.lotCode }} · W{{ c.wafer.number }} · {{ c.sweep.originalName }}
             </mat-checkbox>
           }
@@ -44,7 +79,12 @@ import { CompareApi } from './compare-api';
         <p class="rt-muted">These lots have no sweeps yet.</p>
       }
       @if (figure(); as f) {
-        <rt-plot #plot [data]="f.data" [layout]="f.layout" label="Resistivity against temperature for the chosen sweeps" />
+        <rt-plot
+          #plot
+          [data]="f.data"
+          [layout]="f.layout"
+          label="Resistivity against temperature for the chosen sweeps"
+        />
         <rt-estimate-note />
       } @else {
         <p class="rt-muted">Choose lots, then the sweeps to draw.</p>
@@ -52,8 +92,18 @@ import { CompareApi } from './compare-api';
     </div>
   `,
   styles: `
-    .lots { width: 360px; max-width: 100%; }
-    .choices { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; display: flex; flex-wrap: wrap; gap: 0 16px; margin-bottom: 12px; }
+    .lots {
+      width: 360px;
+      max-width: 100%;
+    }
+    .choices {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0 16px;
+      margin-bottom: 12px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -87,7 +137,11 @@ export class Compare {
         x,
         y: c.resistivityOhmCm,
         line: { color: seriesColour(i), width: 2 },
-        marker: { color: seriesColour(i), size: 4, symbol: ['circle', 'square', 'diamond', 'triangle-up', 'cross'][i % 5] },
+        marker: {
+          color: seriesColour(i),
+          size: 4,
+          symbol: ['circle', 'square', 'diamond', 'triangle-up', 'cross'][i % 5],
+        },
         connectgaps: false,
       })),
       layout: {

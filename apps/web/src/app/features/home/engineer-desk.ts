@@ -12,27 +12,43 @@ import { HomeApi } from './home-api';
   imports: [RouterLink, FormatValuePipe, MatProgressBarModule],
   template: `
     <h2 class="rt-section-title">Out of spec</h2>
-    @if (outOfSpec.isLoading()) { <mat-progress-bar mode="indeterminate" aria-label="Checking specs" /> }
+    @if (outOfSpec.isLoading()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Checking specs" />
+    }
     @if ((outOfSpec.value() ?? []).length === 0 && !outOfSpec.isLoading()) {
       <p class="rt-muted">Every measured wafer of the recent lots is in spec.</p>
     }
     <ul class="cards" aria-label="Wafers out of spec">
       @for (o of outOfSpec.value() ?? []; track o.wafer.waferId) {
         <li class="card overdue">
-          <a class="title" [routerLink]="['/wafers', o.wafer.waferId]">Lot {{ o.lot.code }} · W{{ o.wafer.number }}</a>
-          <span>ρ at 23 °C {{ o.wafer.resistivityAt23COhmCm | value }} Ω·cm; spec {{ o.lot.specMinOhmCm | value }}–{{ o.lot.specMaxOhmCm | value }}</span>
+          <a class="title" [routerLink]="['/wafers', o.wafer.waferId]"
+            >Lot {{ o.lot.code }} · W{{ o.wafer.number }}</a
+          >
+          <span
+            >ρ at 23 °C {{ o.wafer.resistivityAt23COhmCm | value }} Ω·cm; spec
+            {{ o.lot.specMinOhmCm | value }}–{{ o.lot.specMaxOhmCm | value }}</span
+          >
         </li>
       }
     </ul>
     <h2 class="rt-section-title">Recent uploads</h2>
-    @if ((recent.value() ?? []).length === 0 && !recent.isLoading()) { <p class="rt-muted">No sweep uploaded yet.</p> }
+    @if (recent.isLoading()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Loading uploads" />
+    }
+    @if ((recent.value() ?? []).length === 0 && !recent.isLoading()) {
+      <p class="rt-muted">No sweep uploaded yet.</p>
+    }
     <ul class="cards" aria-label="Recent uploads">
-      @for (r of recent.value() ?? []; track r.sweep.id) {
+      @for (s of recent.value() ?? []; track s.id) {
         <li class="card">
-          <a class="title" [routerLink]="['/wafers', r.wafer.id]">{{ r.wafer.lotCode ? 'Lot ' + r.wafer.lotCode + ' · ' : '' }}W{{ r.wafer.number }}</a>
-          <span>{{ r.sweep.originalName }} · {{ r.sweep.pointCount }} points</span>
-          <span class="rt-muted">{{ day(r.sweep.createdAt) }} by {{ r.sweep.uploadedByName ?? 'someone' }}</span>
-          <a [routerLink]="['/sweeps', r.sweep.id]">Study this sweep</a>
+          <a class="title" [routerLink]="['/wafers', s.waferId]"
+            >Lot {{ s.lotCode }} · W{{ s.waferNumber }}</a
+          >
+          <span>{{ s.originalName }} · {{ s.pointCount }} points</span>
+          <span class="rt-muted"
+            >{{ day(s.createdAt) }} by {{ s.uploadedBy.name ?? 'someone' }}</span
+          >
+          <a [routerLink]="['/sweeps', s.id]">Study this sweep</a>
         </li>
       }
     </ul>

@@ -13,11 +13,21 @@ import { TechnicianQueue } from './technician-queue';
     <div class="rt-page">
       <h1 class="rt-page-title">{{ greeting() }}</h1>
       @switch (role()) {
-        @case ('technician') { <rt-technician-queue /> }
-        @case ('manager') { <rt-manager-board /> }
-        @case ('admin') { <rt-manager-board /> <rt-engineer-desk /> }
-        @case ('engineer') { <rt-engineer-desk /> }
-        @case ('physicist') { <rt-physicist-desk /> }
+        @case ('technician') {
+          <rt-technician-queue />
+        }
+        @case ('manager') {
+          <rt-manager-board />
+        }
+        @case ('admin') {
+          <rt-manager-board /> <rt-engineer-desk />
+        }
+        @case ('engineer') {
+          <rt-engineer-desk />
+        }
+        @case ('physicist') {
+          <rt-physicist-desk />
+        }
       }
     </div>
   `,

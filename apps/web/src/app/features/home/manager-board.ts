@@ -16,17 +16,27 @@ import { HomeApi } from './home-api';
       <a mat-stroked-button routerLink="/worklist">Open the worklist</a>
     </div>
     <div class="counts">
-      <div class="count"><strong>{{ open().length }}</strong> open</div>
-      <div class="count" [class.alarm]="overdue().length > 0"><strong>{{ overdue().length }}</strong> overdue</div>
-      <div class="count"><strong>{{ finished().length }}</strong> finished</div>
+      <div class="count">
+        <strong>{{ open().length }}</strong> open
+      </div>
+      <div class="count" [class.alarm]="overdue().length > 0">
+        <strong>{{ overdue().length }}</strong> overdue
+      </div>
+      <div class="count">
+        <strong>{{ finished().length }}</strong> finished
+      </div>
     </div>
     @for (group of groups(); track group.title) {
       <h3 class="rt-section-title">{{ group.title }}</h3>
-      @if (group.items.length === 0) { <p class="rt-muted">None.</p> }
+      @if (group.items.length === 0) {
+        <p class="rt-muted">None.</p>
+      }
       <ul class="cards" [attr.aria-label]="group.title">
         @for (a of group.items.slice(0, 6); track a.id) {
           <li class="card" [class.overdue]="a.overdue">
-            <a class="title" [routerLink]="['/wafers', a.waferId]">Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a>
+            <a class="title" [routerLink]="['/wafers', a.waferId]"
+              >Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a
+            >
             <span>{{ a.task }} — {{ a.assigneeName }}</span>
             <span class="due">Due {{ day(a.dueDate) }}</span>
             <span class="chip">{{ a.state }}</span>
@@ -41,14 +51,21 @@ import { HomeApi } from './home-api';
 export class ManagerBoard {
   private readonly api = inject(HomeApi);
   protected readonly day = formatDay;
-  private readonly all = rxResource({ stream: () => this.api.assignments({ sort: 'dueDate', pageSize: 200 }) });
+  private readonly all = rxResource({
+    stream: () => this.api.assignments({ sort: 'dueDate', pageSize: 200 }),
+  });
   private readonly items = computed(() => this.all.value()?.items ?? []);
   protected readonly overdue = computed(() => this.items().filter((a) => a.overdue));
-  protected readonly open = computed(() => this.items().filter((a) => a.state === 'assigned' || a.state === 'in progress'));
+  protected readonly open = computed(() =>
+    this.items().filter((a) => a.state === 'assigned' || a.state === 'in progress'),
+  );
   protected readonly finished = computed(() => this.items().filter((a) => a.state === 'done'));
   protected readonly groups = computed(() => [
     { title: 'Overdue', items: this.overdue() },
     { title: 'Open', items: this.open().filter((a) => !a.overdue) },
-    { title: 'Recently finished', items: [...this.finished()].sort((a, b) => b.updatedAt.localeCompare(a.updatedAt)) },
+    {
+      title: 'Recently finished',
+      items: [...this.finished()].sort((a, b) => b.updatedAt.localeCompare(a.updatedAt)),
+    },
   ]);
 }

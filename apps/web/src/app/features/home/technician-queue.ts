@@ -14,19 +14,34 @@ import { HomeApi } from './home-api';
   imports: [RouterLink, MatButtonModule, MatProgressBarModule, Caution],
   template: `
     <h2 class="rt-section-title">Your queue</h2>
-    @if (queue.isLoading()) { <mat-progress-bar mode="indeterminate" aria-label="Loading your queue" /> }
+    @if (queue.isLoading()) {
+      <mat-progress-bar mode="indeterminate" aria-label="Loading your queue" />
+    }
     @if (open().length === 0 && !queue.isLoading()) {
       <p class="rt-muted">Nothing is assigned to you right now.</p>
     }
     <ul class="cards" aria-label="Assigned wafers">
       @for (a of open(); track a.id) {
         <li class="card" [class.overdue]="a.overdue">
-          <a class="title" [routerLink]="['/wafers', a.waferId]">Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a>
+          <a class="title" [routerLink]="['/wafers', a.waferId]"
+            >Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a
+          >
           <span>{{ a.task }}</span>
-          <span class="due">Due {{ day(a.dueDate) }}@if (a.overdue) { — <span class="rt-fail">overdue</span> } @else if (a.dueDate.slice(0, 10) === today) { — today }</span>
+          <span class="due"
+            >Due {{ day(a.dueDate) }}
+            @if (a.overdue) {
+              — <span class="rt-fail">overdue</span>
+            } @else if (a.dueDate.slice(0, 10) === today) {
+              — today
+            }
+          </span>
           <span class="chip">{{ a.state }}</span>
-          @if (a.notes) { <span class="rt-muted">{{ a.notes }}</span> }
-          <div class="actions"><a mat-flat-button [routerLink]="['/wafers', a.waferId]">Open and upload</a></div>
+          @if (a.notes) {
+            <span class="rt-muted">{{ a.notes }}</span>
+          }
+          <div class="actions">
+            <a mat-flat-button [routerLink]="['/wafers', a.waferId]">Open and upload</a>
+          </div>
         </li>
       }
     </ul>
@@ -43,6 +58,8 @@ export class TechnicianQueue {
     stream: () => this.api.assignments({ assignee: 'me', sort: 'dueDate', pageSize: 100 }),
   });
   protected readonly open = computed<AssignmentDto[]>(() =>
-    (this.queue.value()?.items ?? []).filter((a) => a.state === 'assigned' || a.state === 'in progress'),
+    (this.queue.value()?.items ?? []).filter(
+      (a) => a.state === 'assigned' || a.state === 'in progress',
+    ),
   );
 }

@@ -12,7 +12,6 @@ import type { Observable } from 'rxjs';
 import { quietRequest } from '../../core/http/api-error';
 import { type ListQuery, listParams } from '../../shared/list-query';
 
-
 /** Lots, their wafers and their summary. */
 @Injectable({ providedIn: 'root' })
 export class LotsApi {
@@ -40,7 +39,9 @@ export class LotsApi {
   }
 
   wafers(lotId: number, query: ListQuery = { pageSize: 200 }): Observable<Page<WaferDto>> {
-    return this.http.get<Page<WaferDto>>(`/api/lots/${lotId}/wafers`, { params: listParams(query) });
+    return this.http.get<Page<WaferDto>>(`/api/lots/${lotId}/wafers`, {
+      params: listParams(query),
+    });
   }
 
   createWafer(lotId: number, body: WaferInput): Observable<WaferDto> {

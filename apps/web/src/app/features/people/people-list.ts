@@ -15,44 +15,100 @@ import { PeopleApi } from './people-api';
 /** Accounts and roles (admin). */
 @Component({
   selector: 'rt-people-list',
-  imports: [MatTableModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatSlideToggleModule, ReactiveFormsModule],
+  imports: [
+    MatTableModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatSlideToggleModule,
+    ReactiveFormsModule,
+  ],
   template: `
     <div class="rt-page">
       <div class="rt-row">
         <h1 class="rt-page-title">People</h1>
         <span class="rt-spacer"></span>
-        @if (!adding()) { <button mat-flat-button type="button" (click)="adding.set(true)">Add a person</button> }
+        @if (!adding()) {
+          <button mat-flat-button type="button" (click)="adding.set(true)">Add a person</button>
+        }
       </div>
       @if (adding()) {
         <form [formGroup]="form" (ngSubmit)="create()" novalidate aria-label="New account">
-          @if (problem(); as p) { <p class="problem" role="alert">{{ p }}</p> }
+          @if (problem(); as p) {
+            <p class="problem" role="alert">{{ p }}</p>
+          }
           <div class="rt-grid">
-            <mat-form-field><mat-label>Name</mat-label><input matInput formControlName="name" required />
-              <mat-error>{{ error(form.controls.name) }}</mat-error></mat-form-field>
-            <mat-form-field><mat-label>E-mail</mat-label><input matInput type="email" formControlName="email" required />
-              <mat-error>{{ error(form.controls.email) }}</mat-error></mat-form-field>
-            <mat-form-field><mat-label>Role</mat-label>
-              <mat-select formControlName="role">@for (r of roles; track r) { <mat-option [value]="r">{{ r }}</mat-option> }</mat-select></mat-form-field>
-            <mat-form-field><mat-label>First password</mat-label><input matInput type="password" formControlName="password" autocomplete="new-password" required />
-              <mat-hint>At least {{ minLength }} characters; they can change it by e-mail.</mat-hint>
-              <mat-error>{{ error(form.controls.password) }}</mat-error></mat-form-field>
+            <mat-form-field
+              ><mat-label>Name</mat-label><input matInput formControlName="name" required />
+              <mat-error>{{ error(form.controls.name) }}</mat-error></mat-form-field
+            >
+            <mat-form-field
+              ><mat-label>E-mail</mat-label
+              ><input matInput type="email" formControlName="email" required />
+              <mat-error>{{ error(form.controls.email) }}</mat-error></mat-form-field
+            >
+            <mat-form-field
+              ><mat-label>Role</mat-label>
+              <mat-select formControlName="role">
+                @for (r of roles; track r) {
+                  <mat-option [value]="r">{{ r }}</mat-option>
+                }
+              </mat-select></mat-form-field
+            >
+            <mat-form-field
+              ><mat-label>First password</mat-label
+              ><input
+                matInput
+                type="password"
+                formControlName="password"
+                autocomplete="new-password"
+                required
+              />
+              <mat-hint
+                >At least {{ minLength }} characters; they can change it by e-mail.</mat-hint
+              >
+              <mat-error>{{ error(form.controls.password) }}</mat-error></mat-form-field
+            >
           </div>
-          <div class="rt-row"><button mat-flat-button type="submit">Create the account</button>
-            <button mat-button type="button" (click)="adding.set(false)">Cancel</button></div>
+          <div class="rt-row">
+            <button mat-flat-button type="submit">Create the account</button>
+            <button mat-button type="button" (click)="adding.set(false)">Cancel</button>
+          </div>
         </form>
       }
       <div class="rt-table-wrap">
         <table mat-table [dataSource]="people.value()?.items ?? []" aria-label="Accounts">
-          <ng-container matColumnDef="name"><th mat-header-cell *matHeaderCellDef>Name</th><td mat-cell *matCellDef="let u">{{ u.name }}</td></ng-container>
-          <ng-container matColumnDef="email"><th mat-header-cell *matHeaderCellDef>E-mail</th><td mat-cell *matCellDef="let u">{{ u.email }}</td></ng-container>
-          <ng-container matColumnDef="role"><th mat-header-cell *matHeaderCellDef>Role</th>
+          <ng-container matColumnDef="name"
+            ><th mat-header-cell *matHeaderCellDef>Name</th>
+            <td mat-cell *matCellDef="let u">{{ u.name }}</td></ng-container
+          >
+          <ng-container matColumnDef="email"
+            ><th mat-header-cell *matHeaderCellDef>E-mail</th>
+            <td mat-cell *matCellDef="let u">{{ u.email }}</td></ng-container
+          >
+          <ng-container matColumnDef="role"
+            ><th mat-header-cell *matHeaderCellDef>Role</th>
             <td mat-cell *matCellDef="let u">
-              <mat-form-field subscriptSizing="dynamic"><mat-label>Role</mat-label>
-                <mat-select [value]="u.role" (valueChange)="setRole(u, $event)">@for (r of roles; track r) { <mat-option [value]="r">{{ r }}</mat-option> }</mat-select>
+              <mat-form-field subscriptSizing="dynamic"
+                ><mat-label>Role</mat-label>
+                <mat-select [value]="u.role" (valueChange)="setRole(u, $event)">
+                  @for (r of roles; track r) {
+                    <mat-option [value]="r">{{ r }}</mat-option>
+                  }
+                </mat-select>
               </mat-form-field>
-            </td></ng-container>
-          <ng-container matColumnDef="active"><th mat-header-cell *matHeaderCellDef>Active</th>
-            <td mat-cell *matCellDef="let u"><mat-slide-toggle [checked]="u.active" (change)="setActive(u, $event.checked)" [aria-label]="'Account of ' + u.name + ' active'" /></td></ng-container>
+            </td></ng-container
+          >
+          <ng-container matColumnDef="active"
+            ><th mat-header-cell *matHeaderCellDef>Active</th>
+            <td mat-cell *matCellDef="let u">
+              <mat-slide-toggle
+                [checked]="u.active"
+                (change)="setActive(u, $event.checked)"
+                [aria-label]="'Account of ' + u.name + ' active'"
+              /></td
+          ></ng-container>
           <tr mat-header-row *matHeaderRowDef="columns"></tr>
           <tr mat-row *matRowDef="let row; columns: columns"></tr>
         </table>
@@ -60,9 +116,18 @@ import { PeopleApi } from './people-api';
     </div>
   `,
   styles: `
-    table { width: 100%; }
-    form { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 12px 16px; margin-bottom: 16px; }
-    .problem { color: var(--mat-sys-error); }
+    table {
+      width: 100%;
+    }
+    form {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 16px;
+      padding: 12px 16px;
+      margin-bottom: 16px;
+    }
+    .problem {
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -73,7 +138,9 @@ export class PeopleList {
   protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly error = fieldError;
   protected readonly columns = ['name', 'email', 'role', 'active'];
-  protected readonly people = rxResource({ stream: () => this.api.list({ pageSize: 200, sort: 'name' }) });
+  protected readonly people = rxResource({
+    stream: () => this.api.list({ pageSize: 200, sort: 'name' }),
+  });
   protected readonly adding = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly form = this.fb.group({
@@ -96,7 +163,8 @@ export class PeopleList {
       },
       error: (err: unknown) => {
         if (err instanceof ApiError) {
-          if (err.status === 409) this.form.controls.email.setErrors({ server: 'already has an account' });
+          if (err.status === 409)
+            this.form.controls.email.setErrors({ server: 'already has an account' });
           applyServerErrors(this.form, err);
           this.problem.set(err.message);
         }

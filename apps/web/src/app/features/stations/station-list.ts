@@ -18,12 +18,29 @@ import { StationsApi } from './stations-api';
 /** Probe stations: list, register, edit. */
 @Component({
   selector: 'rt-station-list',
-  imports: [MatTableModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ReactiveFormsModule, FormatValuePipe],
+  imports: [
+    MatTableModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    ReactiveFormsModule,
+    FormatValuePipe,
+  ],
   templateUrl: './station-list.html',
   styles: `
-    table { width: 100%; }
-    form { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 12px 16px; margin-bottom: 16px; }
-    .problem { color: var(--mat-sys-error); }
+    table {
+      width: 100%;
+    }
+    form {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 16px;
+      padding: 12px 16px;
+      margin-bottom: 16px;
+    }
+    .problem {
+      color: var(--mat-sys-error);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -34,8 +51,18 @@ export class StationList {
   protected readonly thermometers = THERMOMETERS;
   protected readonly error = fieldError;
   protected readonly day = formatDay;
-  protected readonly columns = ['name', 'spacing', 'tip', 'thermometer', 'range', 'calibrated', 'edit'];
-  protected readonly stations = rxResource({ stream: () => this.api.list({ pageSize: 200, sort: 'name' }) });
+  protected readonly columns = [
+    'name',
+    'spacing',
+    'tip',
+    'thermometer',
+    'range',
+    'calibrated',
+    'edit',
+  ];
+  protected readonly stations = rxResource({
+    stream: () => this.api.list({ pageSize: 200, sort: 'name' }),
+  });
   protected readonly editing = signal<number | 'new' | null>(null);
   protected readonly problem = signal<string | null>(null);
 
@@ -80,7 +107,8 @@ export class StationList {
       notes: v.notes || null,
     };
     const target = this.editing();
-    const request = target === 'new' ? this.api.create(body) : this.api.update(Number(target), body);
+    const request =
+      target === 'new' ? this.api.create(body) : this.api.update(Number(target), body);
     request.subscribe({
       next: () => {
         this.editing.set(null);

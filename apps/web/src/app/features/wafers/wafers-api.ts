@@ -82,7 +82,9 @@ export class WafersApi {
 
   stations(): Observable<StationDto[]> {
     return this.http
-      .get<Page<StationDto>>('/api/stations', { params: listParams({ pageSize: 200, sort: 'name' }) })
+      .get<Page<StationDto>>('/api/stations', {
+        params: listParams({ pageSize: 200, sort: 'name' }),
+      })
       .pipe(map(itemsOf));
   }
 
@@ -96,7 +98,11 @@ export class WafersApi {
   }
 
   /** Stores a sweep, reporting upload progress. */
-  store(waferId: number, file: File, options: SweepStoreOptions): Observable<HttpEvent<SweepCreatedResponse>> {
+  store(
+    waferId: number,
+    file: File,
+    options: SweepStoreOptions,
+  ): Observable<HttpEvent<SweepCreatedResponse>> {
     const body = new FormData();
     body.append('method', options.method);
     if (options.stationId !== null) body.append('stationId', String(options.stationId));

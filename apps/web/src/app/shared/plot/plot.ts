@@ -11,6 +11,7 @@ import {
   viewChild,
 } from '@angular/core';
 import type { PlotlyHTMLElement } from 'plotly.js-dist-min';
+import { ThemeMode } from '../../core/layout/theme-mode';
 import { PlotlyLoader } from './plotly-loader';
 
 /** A selection made by dragging a box on the plot: the x range chosen. */
@@ -22,6 +23,20 @@ export interface PlotSelection {
 interface PlotlySelectedEvent {
   range?: { x?: [number, number] };
   points?: Array<{ x: number }>;
+}
+
+/**
+ * A theme colour as plotly can read it. Material's system colours may be `light-dark(…)`
+ * expressions, which plotly does not understand: let the browser resolve them on a probe.
+ */
+export function resolvedColour(element: HTMLElement, variable: string, fallback: string): string {
+  const probe = element.ownerDocument.createElement('span');
+  probe.style.color = `var(${variable}, ${fallback})`;
+  probe.style.display = 'none';
+  element.appendChild(probe);
+  const colour = getComputedStyle(probe).color;
+  probe.remove();
+  return colour || fallback;
 }
 
 /** A Plotly chart; loads plotly lazily and redraws when its inputs change. */
@@ -39,16 +54,33 @@ interface PlotlySelectedEvent {
     </figure>
   `,
   styles: `
-    :host { display: block; }
-    .figure { margin: 0; position: relative; }
-    .host { width: 100%; height: var(--rt-plot-height, 380px); }
-    .loading { position: absolute; inset: 40% 0 auto; text-align: center; color: var(--mat-sys-on-surface-variant); }
-    figcaption { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    :host {
+      display: block;
+    }
+    .figure {
+      margin: 0;
+      position: relative;
+    }
+    .host {
+      width: 100%;
+      height: var(--rt-plot-height, 380px);
+    }
+    .loading {
+      position: absolute;
+      inset: 40% 0 auto;
+      text-align: center;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    figcaption {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Plot {
   private readonly loader = inject(PlotlyLoader);
+  private readonly theme = inject(ThemeMode);
   private readonly host = viewChild.required<ElementRef<HTMLDivElement>>('host');
 
   readonly data = input.required<unknown[]>();
@@ -67,6 +99,8 @@ export class Plot {
       const data = this.data();
       const layout = this.layout();
       const selectable = this.selectable();
+      // Read so a change of scheme redraws with that scheme's colours.
+      this.theme.dark();
       const element = this.host().nativeElement;
       void this.draw(element, data, layout, selectable);
     });
@@ -78,7 +112,12 @@ export class Plot {
   /** Saves the plot as a PNG file. */
   async downloadPng(filename: string): Promise<void> {
     const plotly = await this.loader.load();
-    await plotly.downloadImage(this.host().nativeElement, { format: 'png', filename, width: 1200, height: 700 });
+    await plotly.downloadImage(this.host().nativeElement, {
+      format: 'png',
+      filename,
+      width: 1200,
+      height: 700,
+    });
   }
 
   private async draw(
@@ -88,10 +127,9 @@ export class Plot {
     selectable: boolean,
   ): Promise<void> {
     const plotly = await this.loader.load();
-    const style = getComputedStyle(element);
-    const text = style.getPropertyValue('--mat-sys-on-surface').trim() || '#1b1b1b';
-    const grid = style.getPropertyValue('--mat-sys-outline-variant').trim() || '#ccc';
-    const axis = { gridcolor: grid, zerolinecolor: grid, linecolor: grid };
+    const text = resolvedColour(element, '--mat-sys-on-surface', '#1b1b1b');
+    const grid = resolvedColour(element, '--mat-sys-outline-variant', '#cccccc');
+    const axis = { gridcolor: grid, zerolinecolor: grid, linecolor: grid, automargin: true };
     const merged: Record<string, unknown> = {
       font: { family: 'IBM Plex Sans, sans-serif', color: text, size: 13 },
       paper_bgcolor: 'rgba(0,0,0,0)',

@@ -78,7 +78,9 @@ export class SignIn {
     this.auth.requestReset(this.forgotForm.getRawValue()).subscribe({
       next: () => {
         this.busy.set(false);
-        this.notice.set('If that address has an account, a link to choose a new password is on its way.');
+        this.notice.set(
+          'If that address has an account, a link to choose a new password is on its way.',
+        );
         this.mode.set('sign-in');
       },
       error: (err: unknown) => {

@@ -47,17 +47,28 @@ interface ParameterRow {
       </header>
       <table class="params">
         <thead>
-          <tr><th scope="col">Parameter</th><th scope="col">Value</th><th scope="col">± std. error</th><th scope="col">95 % interval</th></tr>
+          <tr>
+            <th scope="col">Parameter</th>
+            <th scope="col">Value</th>
+            <th scope="col">± std. error</th>
+            <th scope="col">95 % interval</th>
+          </tr>
         </thead>
         <tbody>
           @for (r of rows(); track r.key) {
-            <tr><th scope="row">{{ r.words }}</th><td>{{ r.value }}</td><td>{{ r.error }}</td><td>{{ r.interval }}</td></tr>
+            <tr>
+              <th scope="row">{{ r.words }}</th>
+              <td>{{ r.value }}</td>
+              <td>{{ r.error }}</td>
+              <td>{{ r.interval }}</td>
+            </tr>
           }
         </tbody>
       </table>
       <p class="goodness">
-        R² {{ rSquared() }} · {{ fit().goodness.count }} points · residual RMS {{ rms() }}
-        ({{ fit().goodness.residualUnit }})
+        R² {{ rSquared() }} · {{ fit().goodness.count }} points · residual RMS {{ rms() }} ({{
+          fit().goodness.residualUnit
+        }})
       </p>
       @if (fit().reading) {
         <p class="reading">{{ fit().reading }}</p>
@@ -65,20 +76,55 @@ interface ParameterRow {
       @if (fit().reason && fit().converged) {
         <p class="rt-muted">{{ fit().reason }}</p>
       }
-      <p class="rt-muted small">Model {{ fit().modelVersion }} · by {{ fit().createdBy.name ?? 'someone' }} ·
-        {{ fit().createdAt.slice(0, 16).replace('T', ' ') }} · engineering estimate</p>
+      <p class="rt-muted small">
+        Model {{ fit().modelVersion }} · by {{ fit().createdBy.name ?? 'someone' }} ·
+        {{ fit().createdAt.slice(0, 16).replace('T', ' ') }} · engineering estimate
+      </p>
     </article>
   `,
   styles: `
-    .fit { border: 1px solid var(--mat-sys-outline-variant); border-radius: 12px; padding: 10px 14px; background: var(--mat-sys-surface-container-lowest); }
-    header { display: flex; gap: 10px; align-items: baseline; margin-bottom: 6px; }
-    .bad { color: var(--mat-sys-error); font-weight: 600; }
-    table { border-collapse: collapse; font: var(--mat-sys-body-medium); width: 100%; }
-    th, td { text-align: left; padding: 3px 8px 3px 0; border-bottom: 1px solid var(--mat-sys-outline-variant); }
-    thead th { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
-    .reading { font: var(--mat-sys-body-large); margin: 8px 0 4px; }
-    .goodness { margin: 6px 0 0; }
-    .small { font: var(--mat-sys-body-small); margin: 4px 0 0; }
+    .fit {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 12px;
+      padding: 10px 14px;
+      background: var(--mat-sys-surface-container-lowest);
+    }
+    header {
+      display: flex;
+      gap: 10px;
+      align-items: baseline;
+      margin-bottom: 6px;
+    }
+    .bad {
+      color: var(--mat-sys-error);
+      font-weight: 600;
+    }
+    table {
+      border-collapse: collapse;
+      font: var(--mat-sys-body-medium);
+      width: 100%;
+    }
+    th,
+    td {
+      text-align: left;
+      padding: 3px 8px 3px 0;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    thead th {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .reading {
+      font: var(--mat-sys-body-large);
+      margin: 8px 0 4px;
+    }
+    .goodness {
+      margin: 6px 0 0;
+    }
+    .small {
+      font: var(--mat-sys-body-small);
+      margin: 4px 0 0;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -87,7 +133,10 @@ export class FitCard {
 
   protected readonly title = computed(() => {
     const f = this.fit();
-    const window = f.windowMinK !== null && f.windowMaxK !== null ? ` ${formatValue(f.windowMinK)}–${formatValue(f.windowMaxK)} K` : '';
+    const window =
+      f.windowMinK !== null && f.windowMaxK !== null
+        ? ` ${formatValue(f.windowMinK)}–${formatValue(f.windowMaxK)} K`
+        : '';
     return `${KIND_WORDS[f.kind] ?? f.kind}${window} (fit ${f.id})`;
   });
   protected readonly rSquared = computed(() => {

@@ -1,26 +1,61 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  effect,
+  inject,
+  input,
+  output,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import type { DopingInput } from '@rhotrace/api-types';
+import { exponentValidator, formatExponent, parseExponent } from '../../../shared/engineering';
 import { fieldError } from '../../../shared/field-error';
 
-/** Doping the model is drawn with, as the user edits it. */
+/** Highest density the model takes, cm^-3. */
+const MAX_DENSITY_CM3 = 1e22;
+
+/**
+ * Doping the model is drawn with, as the user edits it. Densities are typed and shown in
+ * exponent notation (1.55e15); the model gets exactly the value shown.
+ */
 @Component({
   selector: 'rt-model-controls',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule],
   template: `
-    <form [formGroup]="form" class="controls" aria-label="Model parameters" (submit)="$event.preventDefault()">
+    <form
+      [formGroup]="form"
+      class="controls"
+      aria-label="Model parameters"
+      (submit)="$event.preventDefault()"
+    >
       <mat-form-field>
-        <mat-label>Donor density</mat-label>
-        <input matInput type="number" step="any" formControlName="donorDensity" />
+        <mat-label>Donor density{{ donorName() }}</mat-label>
+        <input
+          matInput
+          type="text"
+          inputmode="decimal"
+          autocomplete="off"
+          spellcheck="false"
+          formControlName="donorDensity"
+        />
         <span matTextSuffix>cm⁻³</span>
         <mat-error>{{ error(form.controls.donorDensity) }}</mat-error>
       </mat-form-field>
       <mat-form-field>
-        <mat-label>Acceptor density</mat-label>
-        <input matInput type="number" step="any" formControlName="acceptorDensity" />
+        <mat-label>Acceptor density{{ acceptorName() }}</mat-label>
+        <input
+          matInput
+          type="text"
+          inputmode="decimal"
+          autocomplete="off"
+          spellcheck="false"
+          formControlName="acceptorDensity"
+        />
         <span matTextSuffix>cm⁻³</span>
         <mat-error>{{ error(form.controls.acceptorDensity) }}</mat-error>
       </mat-form-field>
@@ -39,8 +74,14 @@ import { fieldError } from '../../../shared/field-error';
     </form>
   `,
   styles: `
-    .controls { display: flex; flex-wrap: wrap; gap: 0 12px; }
-    mat-form-field { width: 190px; }
+    .controls {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0 12px;
+    }
+    mat-form-field {
+      width: 200px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -53,9 +94,15 @@ export class ModelControls {
   readonly dopingChange = output<DopingInput | null>();
 
   protected readonly error = fieldError;
+  protected readonly donorName = computed(() =>
+    this.initial().donor ? ` (${this.initial().donor})` : '',
+  );
+  protected readonly acceptorName = computed(() =>
+    this.initial().acceptor ? ` (${this.initial().acceptor})` : '',
+  );
   protected readonly form = this.fb.group({
-    donorDensity: this.fb.control<number | null>(null, [Validators.required, Validators.min(0), Validators.max(1e22)]),
-    acceptorDensity: this.fb.control<number | null>(null, [Validators.required, Validators.min(0), Validators.max(1e22)]),
+    donorDensity: this.fb.control('', [exponentValidator(0, MAX_DENSITY_CM3)]),
+    acceptorDensity: this.fb.control('', [exponentValidator(0, MAX_DENSITY_CM3)]),
     donorLevel: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(2)]),
     acceptorLevel: this.fb.control<number | null>(null, [Validators.min(0), Validators.max(2)]),
   });
@@ -65,8 +112,8 @@ export class ModelControls {
       const initial = this.initial();
       this.form.setValue(
         {
-          donorDensity: initial.donorDensity,
-          acceptorDensity: initial.acceptorDensity,
+          donorDensity: formatExponent(initial.donorDensity),
+          acceptorDensity: formatExponent(initial.acceptorDensity),
           donorLevel: initial.donorLevel ?? null,
           acceptorLevel: initial.acceptorLevel ?? null,
         },
@@ -86,8 +133,8 @@ export class ModelControls {
     const initial = this.initial();
     return {
       ...initial,
-      donorDensity: v.donorDensity ?? 0,
-      acceptorDensity: v.acceptorDensity ?? 0,
+      donorDensity: parseExponent(v.donorDensity) ?? 0,
+      acceptorDensity: parseExponent(v.acceptorDensity) ?? 0,
       ...(v.donorLevel !== null ? { donorLevel: v.donorLevel } : {}),
       ...(v.acceptorLevel !== null ? { acceptorLevel: v.acceptorLevel } : {}),
     };

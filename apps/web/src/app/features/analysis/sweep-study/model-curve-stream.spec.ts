@@ -7,14 +7,20 @@ import { type CurveState, modelCurveStream } from './model-curve-stream';
 
 const doping = (n: number): DopingInput => ({ donorDensity: n, acceptorDensity: 0 });
 const curve: ModelCurveResponse = {
-  kind: 'semiconductor', material: 'Si', points: [], boundaries: { freezeOutBelowK: null, intrinsicAboveK: null }, modelVersion: 't',
+  kind: 'semiconductor',
+  material: 'Si',
+  points: [],
+  boundaries: { freezeOutBelowK: null, intrinsicAboveK: null },
+  modelVersion: 't',
 };
 
 describe('modelCurveStream', () => {
   let backend: HttpTestingController;
   let http: HttpClient;
   beforeEach(() => {
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(), provideHttpClientTesting()],
+    });
     backend = TestBed.inject(HttpTestingController);
     http = TestBed.inject(HttpClient);
     vi.useFakeTimers();

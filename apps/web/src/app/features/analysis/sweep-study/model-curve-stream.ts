@@ -26,14 +26,19 @@ export function modelCurveStream(
     debounceTime(debounceMs),
     switchMap((doping) => {
       if (doping === null) {
-        return of<CurveState>({ curve: null, problem: 'Fix the highlighted parameters to draw the model.', loading: false });
+        return of<CurveState>({
+          curve: null,
+          problem: 'Fix the highlighted parameters to draw the model.',
+          loading: false,
+        });
       }
       return fetch({ ...base, doping }).pipe(
         map((curve): CurveState => ({ curve, problem: null, loading: false })),
         catchError((err: unknown) =>
           of<CurveState>({
             curve: null,
-            problem: err instanceof ApiError ? err.message : 'The model curve could not be computed.',
+            problem:
+              err instanceof ApiError ? err.message : 'The model curve could not be computed.',
             loading: false,
           }),
         ),

@@ -1,5 +1,6 @@
 import type { AnalysisStep, ArrheniusPoint, FitDto, ModelCurveResponse } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
+import { thinForDisplay } from '../../../shared/plot/thin';
 
 /** Temperature axis unit of the curve plot. */
 export type TemperatureUnit = 'K' | 'C';
@@ -11,19 +12,56 @@ export interface Figure {
 }
 
 const toAxis = (unit: TemperatureUnit) => (k: number) => (unit === 'K' ? k : k - 273.15);
+const axisTitle = (unit: TemperatureUnit) =>
+  unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)';
+
+/** The temperature range a sweep's plots show: the data's range with a margin of 4 % (≥ 2 K). */
+export function plotRangeK(
+  minK: number | null,
+  maxK: number | null,
+): { fromK: number; toK: number } {
+  const lo = minK ?? 50;
+  const hi = maxK ?? 500;
+  const margin = Math.max(2, (hi - lo) * 0.04);
+  return { fromK: Math.max(1, lo - margin), toK: Math.min(1500, hi + margin) };
+}
+
+/** Options of the curve and residual plots. */
+export interface CurveOptions {
+  unit: TemperatureUnit;
+  /** The temperature range shown, K (see plotRangeK). */
+  rangeK: { fromK: number; toK: number };
+  /** Legend words for the model line (e.g. "model (Si, P 1.55e15 cm⁻³)" or "bulk W reference"). */
+  modelName: string;
+}
 
 /** Measured steps (with their spread) over the model curve, log resistivity axis. */
-export function curveFigure(steps: AnalysisStep[], model: ModelCurveResponse | null, unit: TemperatureUnit): Figure {
+export function curveFigure(
+  steps: AnalysisStep[],
+  model: ModelCurveResponse | null,
+  options: CurveOptions,
+): Figure {
+  const { unit, rangeK } = options;
   const x = toAxis(unit);
+  const shown = thinForDisplay(steps, (s) => s.resistivityOhmCm);
+  const thinned = shown.length < steps.length;
   const data: unknown[] = [
     {
-      type: steps.length > 2000 ? 'scattergl' : 'scatter',
+      type: 'scatter',
       mode: 'markers',
-      name: 'measured',
-      x: steps.map((s) => x(s.temperatureK)),
-      y: steps.map((s) => s.resistivityOhmCm),
-      error_y: { type: 'data', array: steps.map((s) => s.spreadOhmCm), visible: true, color: PLOT_ROLES.measured, thickness: 1 },
-      marker: { color: PLOT_ROLES.measured, size: 6 },
+      name: thinned
+        ? `measured (${shown.length} of ${steps.length} steps shown)`
+        : 'measured (mean ± spread per step)',
+      x: shown.map((s) => x(s.temperatureK)),
+      y: shown.map((s) => s.resistivityOhmCm),
+      error_y: {
+        type: 'data',
+        array: shown.map((s) => s.spreadOhmCm),
+        visible: !thinned,
+        color: PLOT_ROLES.measured,
+        thickness: 1,
+      },
+      marker: { color: PLOT_ROLES.measured, size: thinned ? 4 : 6 },
       hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.4g} Ω·cm<extra>measured</extra>`,
     },
   ];
@@ -31,30 +69,78 @@ export function curveFigure(steps: AnalysisStep[], model: ModelCurveResponse | n
     data.push({
       type: 'scatter',
       mode: 'lines',
-      name: 'model',
+      name: options.modelName,
       x: model.points.map((p) => x(p.temperatureK)),
       y: model.points.map((p) => p.resistivityOhmCm),
       line: { color: PLOT_ROLES.model, width: 2.5, dash: 'solid' },
+      hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.4g} Ω·cm<extra>model</extra>`,
     });
   }
   const shapes: unknown[] = [];
+  const annotations: unknown[] = [];
   if (model?.kind === 'semiconductor') {
-    for (const [k, label] of [
-      [model.boundaries.freezeOutBelowK, 'freeze-out'],
-      [model.boundaries.intrinsicAboveK, 'intrinsic'],
+    for (const [k, label, anchor] of [
+      [model.boundaries.freezeOutBelowK, '← freeze-out', 'right'],
+      [model.boundaries.intrinsicAboveK, 'intrinsic →', 'left'],
     ] as const) {
-      if (k === null) continue;
-      shapes.push({ type: 'line', yref: 'paper', y0: 0, y1: 1, x0: x(k), x1: x(k), line: { color: PLOT_ROLES.window, dash: 'dot', width: 1.5 }, name: label });
+      // Only boundaries inside the shown range: one far outside would stretch the axis.
+      if (k === null || k < rangeK.fromK || k > rangeK.toK) continue;
+      shapes.push({
+        type: 'line',
+        yref: 'paper',
+        y0: 0,
+        y1: 1,
+        x0: x(k),
+        x1: x(k),
+        line: { color: PLOT_ROLES.window, dash: 'dot', width: 1.5 },
+      });
+      annotations.push({
+        x: x(k),
+        y: 1,
+        yref: 'paper',
+        yanchor: 'bottom',
+        xanchor: anchor,
+        text: label,
+        showarrow: false,
+        font: { size: 12 },
+      });
     }
   }
   return {
     data,
     layout: {
       shapes,
-      xaxis: { title: { text: unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)' } },
-      yaxis: { title: { text: 'Resistivity (Ω·cm)' }, type: 'log', exponentformat: 'power' },
+      annotations,
+      xaxis: {
+        title: { text: axisTitle(unit) },
+        range: [x(rangeK.fromK), x(rangeK.toK)],
+        autorange: false,
+      },
+      yaxis: {
+        title: { text: 'Resistivity (Ω·cm)' },
+        type: 'log',
+        exponentformat: 'power',
+        ...logRangeOf(steps),
+      },
     },
   };
+}
+
+/**
+ * The log axis range of the measured values, widened by a factor of 3 each way: the model may
+ * run far off (10²⁵ Ω·cm deep in freeze-out) without squashing the data into a line.
+ */
+function logRangeOf(steps: AnalysisStep[]): { range?: [number, number]; autorange?: boolean } {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const s of steps) {
+    if (!(s.resistivityOhmCm > 0)) continue;
+    lo = Math.min(lo, s.resistivityOhmCm);
+    hi = Math.max(hi, s.resistivityOhmCm);
+  }
+  if (!Number.isFinite(lo) || !Number.isFinite(hi)) return {};
+  const pad = Math.log10(3);
+  return { range: [Math.log10(lo) - pad, Math.log10(hi) + pad], autorange: false };
 }
 
 /** Model resistivity at temperature `k`, interpolated in log ρ between the curve's points. */
@@ -73,24 +159,43 @@ export function modelAt(model: ModelCurveResponse, k: number): number | null {
 }
 
 /** Residuals ln(ρ measured / ρ model) at each measured step inside the model's range. */
-export function residualFigure(steps: AnalysisStep[], model: ModelCurveResponse | null, unit: TemperatureUnit): Figure | null {
+export function residualFigure(
+  steps: AnalysisStep[],
+  model: ModelCurveResponse | null,
+  options: CurveOptions,
+): Figure | null {
   if (!model) return null;
+  const { unit, rangeK } = options;
   const x = toAxis(unit);
   const xs: number[] = [];
   const ys: number[] = [];
-  for (const s of steps) {
+  for (const s of thinForDisplay(steps, (s) => s.resistivityOhmCm)) {
     const m = modelAt(model, s.temperatureK);
     if (m === null || m <= 0) continue;
     xs.push(x(s.temperatureK));
     ys.push(Math.log(s.resistivityOhmCm / m));
   }
   return {
-    data: [{ type: 'scatter', mode: 'markers', name: 'residual', x: xs, y: ys, marker: { color: PLOT_ROLES.measured, size: 5 } }],
+    data: [
+      {
+        type: 'scatter',
+        mode: 'markers',
+        name: 'residual',
+        x: xs,
+        y: ys,
+        marker: { color: PLOT_ROLES.measured, size: 5 },
+        hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.3f}<extra>ln(ρ measured / ρ model)</extra>`,
+      },
+    ],
     layout: {
       showlegend: false,
-      margin: { l: 70, r: 20, t: 10, b: 48 },
-      xaxis: { title: { text: unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)' } },
-      yaxis: { title: { text: 'ln(ρ measured / ρ model)' }, zeroline: true },
+      margin: { l: 80, r: 20, t: 10, b: 48 },
+      xaxis: {
+        title: { text: axisTitle(unit) },
+        range: [x(rangeK.fromK), x(rangeK.toK)],
+        autorange: false,
+      },
+      yaxis: { title: { text: 'ln(ρ / ρ model)' }, zeroline: true },
     },
   };
 }
@@ -102,48 +207,75 @@ export function arrheniusFigure(
   window: { minK: number; maxK: number } | null,
   fit: FitDto | null,
 ): Figure {
-  const y = (p: ArrheniusPoint) => (quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity);
+  const y = (p: ArrheniusPoint) =>
+    quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity;
+  const shown = thinForDisplay(points, y);
   const data: unknown[] = [
     {
-      type: points.length > 2000 ? 'scattergl' : 'scatter',
+      type: 'scatter',
       mode: 'markers',
-      name: quantity === 'resistivity' ? 'ln ρ' : 'ln σ',
-      x: points.map((p) => p.inverseTemperaturePerKK),
-      y: points.map(y),
-      marker: { color: PLOT_ROLES.measured, size: 6 },
+      name: quantity === 'resistivity' ? 'measured ln ρ' : 'measured ln σ',
+      x: shown.map((p) => p.inverseTemperaturePerKK),
+      y: shown.map(y),
+      customdata: shown.map((p) => 1000 / p.inverseTemperaturePerKK),
+      marker: { color: PLOT_ROLES.measured, size: shown.length < points.length ? 4 : 6 },
+      hovertemplate: '1000/T %{x:.3f} 1/K (%{customdata:.1f} K): %{y:.3f}<extra></extra>',
     },
   ];
   const shapes: unknown[] = [];
   if (window) {
     shapes.push({
-      type: 'rect', yref: 'paper', y0: 0, y1: 1, x0: 1000 / window.maxK, x1: 1000 / window.minK,
-      fillcolor: PLOT_ROLES.window, opacity: 0.15, line: { width: 0 }, layer: 'below',
+      type: 'rect',
+      yref: 'paper',
+      y0: 0,
+      y1: 1,
+      x0: 1000 / window.maxK,
+      x1: 1000 / window.minK,
+      fillcolor: PLOT_ROLES.window,
+      opacity: 0.15,
+      line: { width: 0 },
+      layer: 'below',
     });
   }
   const line = fit ? fitLine(points, quantity, fit) : null;
   if (line) {
-    data.push({ type: 'scatter', mode: 'lines', name: 'fit', x: line.x, y: line.y, line: { color: PLOT_ROLES.fit, width: 3 } });
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      name: 'window fit',
+      x: line.x,
+      y: line.y,
+      line: { color: PLOT_ROLES.fit, width: 3 },
+    });
   }
   return {
     data,
     layout: {
       shapes,
-      xaxis: { title: { text: '1000 / T (1/kK)' } },
+      showlegend: true,
+      xaxis: { title: { text: '1000 / T (1/K)' } },
       yaxis: { title: { text: quantity === 'resistivity' ? 'ln(ρ / Ω·cm)' : 'ln(σ · Ω·cm)' } },
     },
   };
 }
 
 /** The fitted line over the window: through the mean of the window's points with the fit's slope. */
-function fitLine(points: ArrheniusPoint[], quantity: 'resistivity' | 'conductivity', fit: FitDto): { x: number[]; y: number[] } | null {
+function fitLine(
+  points: ArrheniusPoint[],
+  quantity: 'resistivity' | 'conductivity',
+  fit: FitDto,
+): { x: number[]; y: number[] } | null {
   if (fit.kind !== 'arrhenius' || fit.windowMinK === null || fit.windowMaxK === null) return null;
   const slope = slopeOf(fit);
   if (slope === null) return null;
   const lo = 1000 / fit.windowMaxK;
   const hi = 1000 / fit.windowMinK;
-  const inside = points.filter((p) => p.inverseTemperaturePerKK >= lo && p.inverseTemperaturePerKK <= hi);
+  const inside = points.filter(
+    (p) => p.inverseTemperaturePerKK >= lo && p.inverseTemperaturePerKK <= hi,
+  );
   if (inside.length === 0) return null;
-  const y = (p: ArrheniusPoint) => (quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity);
+  const y = (p: ArrheniusPoint) =>
+    quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity;
   const mx = inside.reduce((s, p) => s + p.inverseTemperaturePerKK, 0) / inside.length;
   const my = inside.reduce((s, p) => s + y(p), 0) / inside.length;
   return { x: [lo, hi], y: [my + slope * (lo - mx), my + slope * (hi - mx)] };

@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  effect,
+  inject,
+  input,
+  signal,
+  untracked,
+  viewChild,
+} from '@angular/core';
 import { rxResource, takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -9,21 +19,36 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { type DopingInput, type FitDto, type FitRequest, METAL_FILMS, type SuggestedWindow } from '@rhotrace/api-types';
-import { ReplaySubject, catchError, filter, of, switchMap } from 'rxjs';
+import {
+  type DopingInput,
+  type FitDto,
+  type FitRequest,
+  METAL_FILMS,
+  type SuggestedWindow,
+} from '@rhotrace/api-types';
+import { type Observable, ReplaySubject, catchError, filter, map, of, switchMap } from 'rxjs';
 import { ApiError } from '../../../core/http/api-error';
 import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
+import { formatExponent } from '../../../shared/engineering';
 import { formatValue } from '../../../shared/format';
 import { Plot, type PlotSelection } from '../../../shared/plot/plot';
+import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
 import { LotsApi } from '../../lots/lots-api';
 import { WafersApi } from '../../wafers/wafers-api';
 import { AnalysisApi } from '../analysis-api';
-import { FitCard } from './fit-card';
-import { initialDoping } from './initial-doping';
+import { FitCard, KIND_WORDS } from './fit-card';
+import { type StartingDoping, majorityDensity, startingDoping } from './initial-doping';
 import { ModelControls } from './model-controls';
 import { type CurveState, modelCurveStream } from './model-curve-stream';
-import { type TemperatureUnit, arrheniusFigure, curveFigure, residualFigure } from './study-plots';
+import {
+  type CurveOptions,
+  type TemperatureUnit,
+  arrheniusFigure,
+  curveFigure,
+  plotRangeK,
+  residualFigure,
+} from './study-plots';
 
 type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][number];
 
@@ -74,8 +99,13 @@ export class SweepStudy {
   private readonly curvePlot = viewChild<Plot>('curvePlot');
   private readonly arrheniusPlot = viewChild<Plot>('arrheniusPlot');
 
-  protected readonly analysis = rxResource({ params: () => this.sweepId(), stream: ({ params }) => this.api.analysis(params) });
-  protected readonly materials = rxResource({ stream: () => this.api.materials().pipe(catchError(() => of(null))) });
+  protected readonly analysis = rxResource({
+    params: () => this.sweepId(),
+    stream: ({ params }) => this.api.analysis(params),
+  });
+  protected readonly materials = rxResource({
+    stream: () => this.api.materials().pipe(catchError(() => of(null))),
+  });
   protected readonly lot = rxResource({
     params: () => this.analysis.value()?.sweep.lotId,
     stream: ({ params }) => this.lots.get(params),
@@ -84,7 +114,10 @@ export class SweepStudy {
     params: () => this.analysis.value()?.sweep.waferId,
     stream: ({ params }) => this.wafers.dopant(params).pipe(catchError(() => of(null))),
   });
-  protected readonly fits = rxResource({ params: () => this.sweepId(), stream: ({ params }) => this.api.fits(params) });
+  protected readonly fits = rxResource({
+    params: () => this.sweepId(),
+    stream: ({ params }) => this.api.fits(params),
+  });
 
   protected readonly material = computed(() => {
     const id = this.analysis.value()?.sweep.material;
@@ -93,20 +126,68 @@ export class SweepStudy {
   protected readonly isMetal = computed(() =>
     (METAL_FILMS as readonly string[]).includes(this.analysis.value()?.sweep.material ?? ''),
   );
-  protected readonly initial = computed<DopingInput | null>(() => {
-    if (!this.analysis.value() || this.lot.isLoading() || this.dopant.isLoading() || this.materials.isLoading()) return null;
-    return initialDoping(this.lot.value(), this.material(), this.dopant.value());
+  /** The temperature range every ρ(T) plot and the model curve cover: the sweep's, plus a margin. */
+  protected readonly rangeK = computed(() => {
+    const s = this.analysis.value()?.sweep;
+    return plotRangeK(s?.minTemperatureK ?? null, s?.maxTemperatureK ?? null);
   });
+  /** Where the model starts, and why (semiconductors only). */
+  protected readonly start = rxResource({
+    params: () => {
+      const a = this.analysis.value();
+      if (
+        !a ||
+        this.isMetal() ||
+        this.lot.isLoading() ||
+        this.dopant.isLoading() ||
+        this.materials.isLoading()
+      )
+        return undefined;
+      return { a, lot: this.lot.value(), material: this.material(), dopant: this.dopant.value() };
+    },
+    stream: ({ params }) => {
+      const base = startingDoping(params.lot, params.material, params.dopant);
+      const rho23 =
+        params.a.spec.resistivityAt23COhmCm ?? params.dopant?.resistivityAt23COhmCm ?? null;
+      if (base.basis !== 'fallback' || rho23 === null || rho23 <= 0 || !params.material)
+        return of(base);
+      return this.scaleToMeasured(base, rho23, (d) =>
+        startingDoping(params.lot, params.material, params.dopant, d),
+      );
+    },
+  });
+  protected readonly initial = computed<DopingInput | null>(
+    () => this.start.value()?.doping ?? null,
+  );
 
   // Model curve, redrawn as parameters are typed (stale requests cancelled).
   private readonly doping$ = new ReplaySubject<DopingInput | null>(1);
-  protected readonly curveState = signal<CurveState>({ curve: null, problem: null, loading: false });
+  protected readonly curveState = signal<CurveState>({
+    curve: null,
+    problem: null,
+    loading: false,
+  });
   protected readonly unit = signal<TemperatureUnit>('K');
+  private readonly doping = signal<DopingInput | null>(null);
+  private readonly curveOptions = computed<CurveOptions>(() => {
+    const d = this.doping();
+    const material = this.analysis.value()?.sweep.material ?? '';
+    const modelName = this.isMetal()
+      ? `bulk ${material} reference (films read higher)`
+      : d
+        ? `model: donors ${formatExponent(d.donorDensity)}, acceptors ${formatExponent(d.acceptorDensity)} cm⁻³`
+        : 'model';
+    return { unit: this.unit(), rangeK: this.rangeK(), modelName };
+  });
   protected readonly curveFig = computed(() =>
-    curveFigure(this.analysis.value()?.steps ?? [], this.curveState().curve, this.unit()),
+    curveFigure(this.analysis.value()?.steps ?? [], this.curveState().curve, this.curveOptions()),
   );
   protected readonly residualFig = computed(() =>
-    residualFigure(this.analysis.value()?.steps ?? [], this.curveState().curve, this.unit()),
+    residualFigure(
+      this.analysis.value()?.steps ?? [],
+      this.curveState().curve,
+      this.curveOptions(),
+    ),
   );
 
   // Arrhenius window.
@@ -139,12 +220,17 @@ export class SweepStudy {
 
   // Saved fits chosen for comparison.
   protected readonly compared = signal<number[]>([]);
-  protected readonly comparedFits = computed(() => (this.fits.value() ?? []).filter((f) => this.compared().includes(f.id)));
+  protected readonly comparedFits = computed(() =>
+    (this.fits.value() ?? []).filter((f) => this.compared().includes(f.id)),
+  );
 
   protected readonly regimeWords = REGIME_WORDS;
+  protected readonly kindWords: Record<string, string> = KIND_WORDS;
   protected readonly format = formatValue;
 
   constructor() {
+    // Fetch and evaluate plotly while the sweep's data are on their way, not after.
+    void inject(PlotlyLoader).load();
     toObservable(this.analysis.value)
       .pipe(
         filter((a) => a !== undefined),
@@ -153,8 +239,10 @@ export class SweepStudy {
             this.doping$,
             {
               material: a.sweep.material,
-              fromK: Math.max(1, Math.floor(a.sweep.minTemperatureK ?? 50)),
-              toK: Math.ceil(a.sweep.maxTemperatureK ?? 500),
+              ...untracked(() => {
+                const { fromK, toK } = this.rangeK();
+                return { fromK: Number(fromK.toFixed(2)), toK: Number(toK.toFixed(2)) };
+              }),
               steps: 400,
             },
             (body) => this.api.modelCurve(body),
@@ -165,11 +253,42 @@ export class SweepStudy {
       .subscribe((state) => this.curveState.set(state));
     // Metal films have no doping to edit: draw their reference curve once.
     effect(() => {
-      if (this.isMetal()) untracked(() => this.doping$.next({ donorDensity: 0, acceptorDensity: 0 }));
+      if (this.isMetal())
+        untracked(() => this.doping$.next({ donorDensity: 0, acceptorDensity: 0 }));
     });
   }
 
+  /**
+   * With no measured density, scales the majority density until the model meets the measured
+   * 23 °C resistivity (ρ ∝ 1/N in the extrinsic range; two steps absorb the mobility's change).
+   */
+  private scaleToMeasured(
+    base: StartingDoping,
+    rho23: number,
+    make: (override: { densityCm3: number; basis: 'scaled' }) => StartingDoping,
+  ): Observable<StartingDoping> {
+    const material = this.analysis.value()?.sweep.material ?? '';
+    const modelAt23 = (doping: DopingInput) =>
+      this.api
+        .modelCurve({ material, doping, fromK: 296.15, toK: 296.65, steps: 2 })
+        .pipe(map((c) => c.points[0]?.resistivityOhmCm ?? null));
+    const step = (from: StartingDoping, rho: number | null): StartingDoping | null => {
+      if (rho === null || !(rho > 0)) return null;
+      const scaled = Math.min(1e21, Math.max(1e10, (majorityDensity(from) * rho) / rho23));
+      return make({ densityCm3: Number(scaled.toPrecision(3)), basis: 'scaled' });
+    };
+    return modelAt23(base.doping).pipe(
+      switchMap((rho) => {
+        const first = step(base, rho);
+        if (!first) return of(base);
+        return modelAt23(first.doping).pipe(map((rho2) => step(first, rho2) ?? first));
+      }),
+      catchError(() => of(base)),
+    );
+  }
+
   protected onDoping(doping: DopingInput | null): void {
+    this.doping.set(doping);
     this.lastDoping = doping;
     this.doping$.next(doping);
   }
@@ -218,7 +337,9 @@ export class SweepStudy {
         error: (err: unknown) => {
           this.fitting.set(false);
           this.windowFit.set(null);
-          this.windowProblem.set(err instanceof ApiError ? err.message : 'The window could not be fitted.');
+          this.windowProblem.set(
+            err instanceof ApiError ? err.message : 'The window could not be fitted.',
+          );
         },
       });
   }
@@ -233,7 +354,9 @@ export class SweepStudy {
   }
 
   protected toggleFree(parameter: FreeParameter, on: boolean): void {
-    this.free.update((list) => (on ? [...new Set([...list, parameter])] : list.filter((p) => p !== parameter)));
+    this.free.update((list) =>
+      on ? [...new Set([...list, parameter])] : list.filter((p) => p !== parameter),
+    );
   }
 
   protected runModelFit(): void {
@@ -243,7 +366,9 @@ export class SweepStudy {
   }
 
   protected runMetalFit(kind: 'tcr' | 'bloch-gruneisen'): void {
-    this.runFit(kind === 'tcr' ? { kind: 'tcr', referenceK: this.referenceK() } : { kind: 'bloch-gruneisen' });
+    this.runFit(
+      kind === 'tcr' ? { kind: 'tcr', referenceK: this.referenceK() } : { kind: 'bloch-gruneisen' },
+    );
   }
 
   private runFit(body: FitRequest): void {
@@ -290,7 +415,17 @@ export class SweepStudy {
     void this.arrheniusPlot()?.downloadPng(`sweep-${this.sweepId()}-arrhenius`);
   }
 
+  protected downloadFitsCsv(): void {
+    void this.downloader.save(
+      `/api/sweeps/${this.sweepId()}/fits.csv`,
+      `sweep-${this.sweepId()}-fits.csv`,
+    );
+  }
+
   protected downloadReport(): void {
-    void this.downloader.save(`/api/sweeps/${this.sweepId()}/report`, `sweep-${this.sweepId()}-report.pdf`);
+    void this.downloader.save(
+      `/api/sweeps/${this.sweepId()}/report`,
+      `sweep-${this.sweepId()}-report.pdf`,
+    );
   }
 }

@@ -1,6 +1,19 @@
-import { ChangeDetectionStrategy, Component, inject, input, output, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  inject,
+  input,
+  output,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { rxResource, toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormGroupDirective,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -25,13 +38,34 @@ export const COMMON_TASKS = [
 /** Assigning a wafer to someone with a task and a due date (the assignee is e-mailed). */
 @Component({
   selector: 'rt-assign-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatAutocompleteModule, MatButtonModule, Caution],
+  imports: [
+    ReactiveFormsModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatAutocompleteModule,
+    MatButtonModule,
+    Caution,
+  ],
   templateUrl: './assign-form.html',
   styles: `
-    form { display: flex; flex-wrap: wrap; gap: 0 12px; align-items: flex-start; }
-    mat-form-field { width: 260px; }
-    .wide { width: 100%; max-width: 540px; }
-    .problem { color: var(--mat-sys-error); width: 100%; }
+    form {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0 12px;
+      align-items: flex-start;
+    }
+    mat-form-field {
+      width: 260px;
+    }
+    .wide {
+      width: 100%;
+      max-width: 540px;
+    }
+    .problem {
+      color: var(--mat-sys-error);
+      width: 100%;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -69,7 +103,8 @@ export class AssignForm {
     { initialValue: [] as WaferDto[] },
   );
   protected readonly chosenWafer = signal<WaferDto | null>(null);
-  protected readonly waferLabel = (w: WaferDto | null) => (w ? `${w.lotCode ? 'Lot ' + w.lotCode + ' · ' : ''}W${w.number}` : '');
+  protected readonly waferLabel = (w: WaferDto | null) =>
+    w ? `${w.lotCode ? 'Lot ' + w.lotCode + ' · ' : ''}W${w.number}` : '';
 
   protected pickWafer(wafer: WaferDto): void {
     this.chosenWafer.set(wafer);
@@ -78,7 +113,8 @@ export class AssignForm {
 
   protected submit(): void {
     const pre = this.preselectWaferId();
-    if (this.form.controls.waferId.value === null && pre !== null) this.form.controls.waferId.setValue(pre);
+    if (this.form.controls.waferId.value === null && pre !== null)
+      this.form.controls.waferId.setValue(pre);
     if (this.form.invalid) {
       this.form.markAllAsTouched();
       return;
@@ -87,7 +123,13 @@ export class AssignForm {
     this.saving.set(true);
     this.problem.set(null);
     this.api
-      .create({ waferId: v.waferId!, assigneeId: v.assigneeId!, task: v.task, dueDate: v.dueDate, notes: v.notes || null })
+      .create({
+        waferId: v.waferId!,
+        assigneeId: v.assigneeId!,
+        task: v.task,
+        dueDate: v.dueDate,
+        notes: v.notes || null,
+      })
       .subscribe({
         next: (a) => {
           this.saving.set(false);

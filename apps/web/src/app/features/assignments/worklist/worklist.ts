@@ -8,7 +8,12 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { ASSIGNMENT_STATES, type AssignmentDto, type AssignmentState, DEFAULT_PAGE_SIZE } from '@rhotrace/api-types';
+import {
+  ASSIGNMENT_STATES,
+  type AssignmentDto,
+  type AssignmentState,
+  DEFAULT_PAGE_SIZE,
+} from '@rhotrace/api-types';
 import { formatDay } from '../../../shared/format';
 import { AssignmentsApi } from '../assignments-api';
 import { AssignForm } from './assign-form';
@@ -16,14 +21,36 @@ import { AssignForm } from './assign-form';
 /** The manager's worklist: assign wafers, follow states, see what is overdue. */
 @Component({
   selector: 'rt-worklist',
-  imports: [MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatCheckboxModule, MatButtonModule, RouterLink, AssignForm],
+  imports: [
+    MatTableModule,
+    MatPaginatorModule,
+    MatSelectModule,
+    MatFormFieldModule,
+    MatCheckboxModule,
+    MatButtonModule,
+    RouterLink,
+    AssignForm,
+  ],
   templateUrl: './worklist.html',
   styles: `
-    table { width: 100%; }
-    .filters mat-form-field { width: 200px; }
-    tr.overdue td:first-child { border-left: 4px solid var(--mat-sys-error); }
-    .state-field { width: 150px; }
-    .panel { border: 1px solid var(--mat-sys-outline-variant); border-radius: 16px; padding: 4px 16px 12px; margin-bottom: 16px; }
+    table {
+      width: 100%;
+    }
+    .filters mat-form-field {
+      width: 200px;
+    }
+    tr.overdue td:first-child {
+      border-left: 4px solid var(--mat-sys-error);
+    }
+    .state-field {
+      width: 150px;
+    }
+    .panel {
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 16px;
+      padding: 4px 16px 12px;
+      margin-bottom: 16px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -43,7 +70,12 @@ export class Worklist {
   protected readonly pageIndex = signal(0);
   protected readonly pageSize = signal(DEFAULT_PAGE_SIZE);
   protected readonly list = rxResource({
-    params: () => ({ state: this.state(), overdue: this.overdueOnly(), page: this.pageIndex() + 1, pageSize: this.pageSize() }),
+    params: () => ({
+      state: this.state(),
+      overdue: this.overdueOnly(),
+      page: this.pageIndex() + 1,
+      pageSize: this.pageSize(),
+    }),
     stream: ({ params }) =>
       this.api.list({
         state: params.state,
@@ -64,7 +96,9 @@ export class Worklist {
   }
 
   protected onCreated(a: AssignmentDto): void {
-    this.snackBar.open(`Assigned to ${a.assigneeName ?? 'them'}; an e-mail is on its way.`, 'OK', { duration: 5000 });
+    this.snackBar.open(`Assigned to ${a.assigneeName ?? 'them'}; an e-mail is on its way.`, 'OK', {
+      duration: 5000,
+    });
     this.list.reload();
   }
 }

@@ -11,14 +11,27 @@ export function lotChart(summary: LotSummaryResponse): {
   const shapes: unknown[] = [];
   if (low !== null && high !== null) {
     shapes.push({
-      type: 'rect', xref: 'paper', x0: 0, x1: 1, y0: low, y1: high,
-      fillcolor: PLOT_ROLES.band, opacity: 0.18, line: { width: 0 }, layer: 'below',
+      type: 'rect',
+      xref: 'paper',
+      x0: 0,
+      x1: 1,
+      y0: low,
+      y1: high,
+      fillcolor: PLOT_ROLES.band,
+      opacity: 0.18,
+      line: { width: 0 },
+      layer: 'below',
     });
   }
   for (const limit of [low, high]) {
     if (limit === null) continue;
     shapes.push({
-      type: 'line', xref: 'paper', x0: 0, x1: 1, y0: limit, y1: limit,
+      type: 'line',
+      xref: 'paper',
+      x0: 0,
+      x1: 1,
+      y0: limit,
+      y1: limit,
       line: { color: PLOT_ROLES.band, width: 1.5, dash: 'dash' },
     });
   }

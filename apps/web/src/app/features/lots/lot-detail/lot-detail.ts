@@ -1,6 +1,19 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormGroupDirective,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -12,6 +25,7 @@ import { of } from 'rxjs';
 import { Session } from '../../../core/auth/session';
 import { PERMISSIONS } from '../../../core/auth/permissions';
 import { ApiError, applyServerErrors } from '../../../core/http/api-error';
+import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { above, fieldError } from '../../../shared/field-error';
 import { formatDay } from '../../../shared/format';
@@ -47,6 +61,7 @@ interface WaferRow {
 export class LotDetail {
   private readonly api = inject(LotsApi);
   private readonly router = inject(Router);
+  private readonly downloader = inject(Downloader);
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly waferFormDirective = viewChild(FormGroupDirective);
   protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editRecords);
@@ -54,7 +69,10 @@ export class LotDetail {
   readonly id = input.required<string>();
   protected readonly lotId = computed(() => Number(this.id()));
 
-  protected readonly lot = rxResource({ params: () => this.lotId(), stream: ({ params }) => this.api.get(params) });
+  protected readonly lot = rxResource({
+    params: () => this.lotId(),
+    stream: ({ params }) => this.api.get(params),
+  });
   protected readonly wafers = rxResource({
     params: () => this.lotId(),
     stream: ({ params }) => this.api.wafers(params),
@@ -69,11 +87,16 @@ export class LotDetail {
   protected readonly error = fieldError;
   protected readonly rows = computed<WaferRow[]>(() => {
     const bySummary = new Map((this.summary.value()?.wafers ?? []).map((w) => [w.waferId, w]));
-    return (this.wafers.value()?.items ?? []).map((wafer) => ({ wafer, summary: bySummary.get(wafer.id) }));
+    return (this.wafers.value()?.items ?? []).map((wafer) => ({
+      wafer,
+      summary: bySummary.get(wafer.id),
+    }));
   });
   protected readonly chart = computed(() => {
     const summary = this.summary.value();
-    return summary && summary.wafers.some((w) => w.resistivityAt23COhmCm !== null) ? lotChart(summary) : null;
+    return summary && summary.wafers.some((w) => w.resistivityAt23COhmCm !== null)
+      ? lotChart(summary)
+      : null;
   });
 
   protected readonly adding = signal(false);
@@ -100,7 +123,8 @@ export class LotDetail {
       },
       error: (err: unknown) => {
         if (err instanceof ApiError) {
-          if (err.status === 409) this.waferForm.controls.number.setErrors({ server: 'is already used in this lot' });
+          if (err.status === 409)
+            this.waferForm.controls.number.setErrors({ server: 'is already used in this lot' });
           applyServerErrors(this.waferForm, err);
           this.addProblem.set(err.message);
         }
@@ -118,5 +142,11 @@ export class LotDetail {
     const list = row.summary?.activationEnergies ?? [];
     if (list.length === 0) return '–';
     return list.map((e) => `${e.activationEnergyEv.toFixed(3)} eV`).join(', ');
+  }
+
+  /** The lot summary (wafers, 23 °C values, verdicts, statistics) as a CSV file. */
+  protected downloadSummaryCsv(code: string): void {
+    const safe = code.replace(/[^\w.-]+/g, '_');
+    void this.downloader.save(`/api/lots/${this.lotId()}/summary.csv`, `lot-${safe}-summary.csv`);
   }
 }

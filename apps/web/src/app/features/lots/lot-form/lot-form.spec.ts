@@ -13,7 +13,11 @@ import { LotForm } from './lot-form';
 async function setup() {
   TestBed.configureTestingModule({
     imports: [LotForm],
-    providers: [provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
+    providers: [
+      provideRouter([]),
+      provideHttpClient(withInterceptors([apiInterceptor])),
+      provideHttpClientTesting(),
+    ],
   });
   const fixture = TestBed.createComponent(LotForm);
   const loader = TestbedHarnessEnvironment.loader(fixture);
@@ -35,28 +39,53 @@ describe('LotForm', () => {
 
   it('flags an inverted spec range before sending', async () => {
     const { loader, backend, fixture } = await setup();
-    await (await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))).setValue('LV-T-1');
-    await (await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=specMinOhmCm]' }))).setValue('12');
-    await (await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=specMaxOhmCm]' }))).setValue('8');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))
+    ).setValue('LV-T-1');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=specMinOhmCm]' }))
+    ).setValue('12');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=specMaxOhmCm]' }))
+    ).setValue('8');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).textContent).toContain('The lower spec limit is above the upper one.');
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'The lower spec limit is above the upper one.',
+    );
     backend.expectNone('/api/lots');
   });
 
   it('sends the lot and shows server problems against their fields', async () => {
     const { loader, backend, fixture } = await setup();
-    await (await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))).setValue('LV-T-2');
-    const material = await loader.getHarness(MatSelectHarness.with({ selector: '[formControlName=material]' }));
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))
+    ).setValue('LV-T-2');
+    const material = await loader.getHarness(
+      MatSelectHarness.with({ selector: '[formControlName=material]' }),
+    );
     await material.open();
     await material.clickOptions({ text: 'GaAs' });
-    await (await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=thicknessCm]' }))).setValue('0.05');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=thicknessCm]' }))
+    ).setValue('0.05');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
 
     const req = backend.expectOne({ method: 'POST', url: '/api/lots' });
-    expect(req.request.body).toMatchObject({ code: 'LV-T-2', material: 'GaAs', thicknessCm: 0.05, dopant: null });
+    expect(req.request.body).toMatchObject({
+      code: 'LV-T-2',
+      material: 'GaAs',
+      thicknessCm: 0.05,
+      dopant: null,
+    });
     req.flush(
-      { error: { code: 'validation_failed', message: 'Some fields need a look', details: [{ field: 'body.thicknessCm', problem: 'must be at most 0.02' }] } },
+      {
+        error: {
+          code: 'validation_failed',
+          message: 'Some fields need a look',
+          details: [{ field: 'body.thicknessCm', problem: 'must be at most 0.02' }],
+        },
+      },
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();
@@ -67,9 +96,13 @@ describe('LotForm', () => {
   it('goes to the new lot when the server accepts it', async () => {
     const { loader, backend } = await setup();
     const navigate = vi.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);
-    await (await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))).setValue('LV-T-3');
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))
+    ).setValue('LV-T-3');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
-    backend.expectOne('/api/lots').flush({ id: 41, code: 'LV-T-3' }, { status: 201, statusText: 'Created' });
+    backend
+      .expectOne('/api/lots')
+      .flush({ id: 41, code: 'LV-T-3' }, { status: 201, statusText: 'Created' });
     expect(navigate).toHaveBeenCalledWith(['/lots', 41]);
   });
 });

@@ -11,7 +11,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { type FieldProblem, type LotDto, type LotInput, MATERIALS, type Material } from '@rhotrace/api-types';
+import {
+  type FieldProblem,
+  type LotDto,
+  type LotInput,
+  MATERIALS,
+  type Material,
+} from '@rhotrace/api-types';
 import { ApiError, applyServerErrors } from '../../../core/http/api-error';
 import { above, fieldError } from '../../../shared/field-error';
 import { LotsApi } from '../lots-api';

@@ -10,7 +10,16 @@ import type { LotDto } from '@rhotrace/api-types';
 import { LotList } from './lot-list';
 
 const lot = (id: number, code: string): Partial<LotDto> => ({
-  id, code, material: 'Si', dopant: 'B', dopantType: 'p', specMinOhmCm: 8, specMaxOhmCm: 12, waferCount: 3, receivedOn: '2026-10-06', supplier: 'Invented Crystals',
+  id,
+  code,
+  material: 'Si',
+  dopant: 'B',
+  dopantType: 'p',
+  specMinOhmCm: 8,
+  specMaxOhmCm: 12,
+  waferCount: 3,
+  receivedOn: '2026-10-06',
+  supplier: 'Invented Crystals',
 });
 
 describe('LotList', () => {
@@ -44,7 +53,9 @@ describe('LotList', () => {
     expect(sorted.request.params.get('sort')).toBe('code');
     sorted.flush({ items: [lot(1, 'LV-A')], total: 1, page: 1, pageSize: 25 });
 
-    const material = await loader.getHarness(MatSelectHarness.with({ selector: '.filters mat-select' }));
+    const material = await loader.getHarness(
+      MatSelectHarness.with({ selector: '.filters mat-select' }),
+    );
     await material.open();
     await material.clickOptions({ text: 'GaAs' });
     await fixture.whenStable();
@@ -53,7 +64,9 @@ describe('LotList', () => {
     expect(filtered.request.params.get('page')).toBe('1');
     filtered.flush({ items: [], total: 0, page: 1, pageSize: 25 });
     await fixture.whenStable();
-    expect((fixture.nativeElement as HTMLElement).textContent).toContain('No lot matches these filters.');
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'No lot matches these filters.',
+    );
     backend.verify();
   });
 });

@@ -52,7 +52,15 @@ export class LotList {
   private readonly api = inject(LotsApi);
   protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editRecords);
   protected readonly materials = MATERIALS;
-  protected readonly columns = ['code', 'material', 'dopant', 'spec', 'waferCount', 'receivedOn', 'supplier'];
+  protected readonly columns = [
+    'code',
+    'material',
+    'dopant',
+    'spec',
+    'waferCount',
+    'receivedOn',
+    'supplier',
+  ];
   protected readonly day = formatDay;
 
   protected readonly search = signal('');
@@ -70,7 +78,10 @@ export class LotList {
     toObservable(this.search).pipe(debounceTime(250), distinctUntilChanged()),
     { initialValue: '' },
   );
-  private readonly effectiveQuery = computed(() => ({ ...this.query(), q: this.debouncedSearch() }));
+  private readonly effectiveQuery = computed(() => ({
+    ...this.query(),
+    q: this.debouncedSearch(),
+  }));
 
   protected readonly page = toSignal(
     toObservable(this.effectiveQuery).pipe(

@@ -45,7 +45,7 @@ export const METHOD_WORDS: Record<SweepMethod, string> = {
 export function unitLabel(unit: string | null): string {
   if (!unit) return '—';
   if (unit === 'degC') return '°C';
-  if (unit === 'ohm' ) return 'Ω (RTD or resistance)';
+  if (unit === 'ohm') return 'Ω (RTD or resistance)';
   return unit
     .replace(/^u/, 'µ')
     .replace(/ohm_cm$/, 'Ω·cm')

@@ -31,7 +31,11 @@ const PREVIEW: SweepPreviewResponse = {
 async function setup() {
   TestBed.configureTestingModule({
     imports: [SweepUpload],
-    providers: [provideRouter([]), provideHttpClient(withInterceptors([apiInterceptor])), provideHttpClientTesting()],
+    providers: [
+      provideRouter([]),
+      provideHttpClient(withInterceptors([apiInterceptor])),
+      provideHttpClientTesting(),
+    ],
   });
   const fixture = TestBed.createComponent(SweepUpload);
   fixture.componentRef.setInput('waferId', 7);
@@ -42,12 +46,16 @@ async function setup() {
   await fixture.whenStable();
   const loader = TestbedHarnessEnvironment.loader(fixture);
   const backend = TestBed.inject(HttpTestingController);
-  const input = (fixture.nativeElement as HTMLElement).querySelector('input[type=file]') as HTMLInputElement;
+  const input = (fixture.nativeElement as HTMLElement).querySelector(
+    'input[type=file]',
+  ) as HTMLInputElement;
   return { fixture, loader, backend, input };
 }
 
 function choose(input: HTMLInputElement, files: File[]): void {
-  const list = Object.assign([...files], { item: (i: number) => files[i] ?? null }) as unknown as FileList;
+  const list = Object.assign([...files], {
+    item: (i: number) => files[i] ?? null,
+  }) as unknown as FileList;
   Object.defineProperty(input, 'files', { value: list, configurable: true });
   input.dispatchEvent(new Event('change'));
 }
@@ -65,7 +73,9 @@ describe('SweepUpload', () => {
     expect((previews[0]!.request.body as FormData).get('file')).toBeInstanceOf(File);
     previews[0]!.flush(PREVIEW);
     previews[1]!.flush(
-      { error: { code: 'unprocessable', message: 'This file holds no readable table', details: [] } },
+      {
+        error: { code: 'unprocessable', message: 'This file holds no readable table', details: [] },
+      },
       { status: 422, statusText: 'Unprocessable' },
     );
     await fixture.whenStable();
@@ -84,13 +94,19 @@ describe('SweepUpload', () => {
     backend.expectOne('/api/wafers/7/sweeps/preview').flush({ ...PREVIEW, problems: [] });
     await fixture.whenStable();
 
-    const method = await loader.getHarness(MatSelectHarness.with({ selector: '.settings mat-select' }));
+    const method = await loader.getHarness(
+      MatSelectHarness.with({ selector: '.settings mat-select' }),
+    );
     expect(await method.getValueText()).toBe('Four-point probe (collinear)');
-    const [, station] = await loader.getAllHarnesses(MatSelectHarness.with({ selector: '.settings mat-select' }));
+    const [, station] = await loader.getAllHarnesses(
+      MatSelectHarness.with({ selector: '.settings mat-select' }),
+    );
     await station!.open();
     await station!.clickOptions({ text: 'Cryo bench' });
     // Correct the voltage column's unit from V to mV.
-    const unitSelects = await loader.getAllHarnesses(MatSelectHarness.with({ selector: '.mapping mat-select' }));
+    const unitSelects = await loader.getAllHarnesses(
+      MatSelectHarness.with({ selector: '.mapping mat-select' }),
+    );
     const voltageUnit = unitSelects[3]!;
     await voltageUnit.open();
     await voltageUnit.clickOptions({ text: 'mV' });
@@ -109,10 +125,15 @@ describe('SweepUpload', () => {
 
     store.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
     await fixture.whenStable();
-    const bar = await loader.getHarness(MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }));
+    const bar = await loader.getHarness(
+      MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }),
+    );
     expect(await bar.getValue()).toBe(40);
 
-    store.flush({ id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] }, { status: 201, statusText: 'Created' });
+    store.flush(
+      { id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] },
+      { status: 201, statusText: 'Created' },
+    );
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
     expect(text).toContain('Stored: 24 points');

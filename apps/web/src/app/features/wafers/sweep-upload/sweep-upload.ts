@@ -1,5 +1,13 @@
 import { HttpEventType } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  output,
+  signal,
+} from '@angular/core';
 import { KeyValuePipe } from '@angular/common';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -76,7 +84,9 @@ export class SweepUpload {
   protected readonly stationId = signal<number | null>(null);
   protected readonly geometry = signal<SweepGeometryInput>({});
   protected readonly ready = computed(() => this.items().filter((i) => i.status === 'ready'));
-  protected readonly busy = computed(() => this.items().some((i) => i.status === 'uploading' || i.status === 'reading'));
+  protected readonly busy = computed(() =>
+    this.items().some((i) => i.status === 'uploading' || i.status === 'reading'),
+  );
   private nextKey = 1;
 
   /** Takes newly chosen or dropped files and previews each. */
@@ -126,7 +136,9 @@ export class SweepUpload {
   }
 
   protected problemsAt(item: UploadItem, row: number): string[] {
-    return item.problems.filter((p) => p.row === row).map((p) => (p.column ? `${p.column}: ${p.problem}` : p.problem));
+    return item.problems
+      .filter((p) => p.row === row)
+      .map((p) => (p.column ? `${p.column}: ${p.problem}` : p.problem));
   }
 
   /** Stores every file that previewed cleanly, one after another. */
@@ -142,7 +154,12 @@ export class SweepUpload {
       ? item.columns.map((c) => ({ index: c.index, meaning: c.meaning, unit: c.unit }))
       : null;
     this.api
-      .store(this.waferId(), item.file, { method, stationId: this.stationId(), columns, geometry: this.geometry() })
+      .store(this.waferId(), item.file, {
+        method,
+        stationId: this.stationId(),
+        columns,
+        geometry: this.geometry(),
+      })
       .subscribe({
         next: (event) => {
           if (event.type === HttpEventType.UploadProgress) {
@@ -174,7 +191,8 @@ export class SweepUpload {
           columns: preview.columns,
           problems: preview.problems,
         });
-        if (this.method() === null && preview.suggestedMethod) this.method.set(preview.suggestedMethod);
+        if (this.method() === null && preview.suggestedMethod)
+          this.method.set(preview.suggestedMethod);
       },
       error: (err: unknown) => {
         const apiError = err instanceof ApiError ? err : null;
@@ -191,11 +209,19 @@ export class SweepUpload {
     this.items.update((list) => list.map((i) => (i.key === key ? { ...i, ...change } : i)));
   }
 
-  private patchColumn(key: number, index: number, edit: (c: UploadItem['columns'][number]) => UploadItem['columns'][number]): void {
+  private patchColumn(
+    key: number,
+    index: number,
+    edit: (c: UploadItem['columns'][number]) => UploadItem['columns'][number],
+  ): void {
     this.items.update((list) =>
       list.map((i) =>
         i.key === key
-          ? { ...i, mappingEdited: true, columns: i.columns.map((c) => (c.index === index ? edit(c) : c)) }
+          ? {
+              ...i,
+              mappingEdited: true,
+              columns: i.columns.map((c) => (c.index === index ? edit(c) : c)),
+            }
           : i,
       ),
     );

@@ -6,7 +6,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import { type AssignmentDto, type AssignmentState, WAFER_STATES, type WaferState } from '@rhotrace/api-types';
+import {
+  type AssignmentDto,
+  type AssignmentState,
+  WAFER_STATES,
+  type WaferState,
+} from '@rhotrace/api-types';
 import { catchError, of } from 'rxjs';
 import { Session } from '../../../core/auth/session';
 import { PERMISSIONS } from '../../../core/auth/permissions';
@@ -14,6 +19,7 @@ import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
 import { FormatValuePipe } from '../../../shared/format-value';
+import { thinForDisplay } from '../../../shared/plot/thin';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { Plot } from '../../../shared/plot/plot';
 import { LotsApi } from '../../lots/lots-api';
@@ -63,20 +69,29 @@ export class WaferPage {
   protected readonly day = formatDay;
   protected readonly nextState = NEXT_STATE;
 
-  protected readonly wafer = rxResource({ params: () => this.waferId(), stream: ({ params }) => this.api.get(params) });
+  protected readonly wafer = rxResource({
+    params: () => this.waferId(),
+    stream: ({ params }) => this.api.get(params),
+  });
   protected readonly lot = rxResource({
     params: () => this.wafer.value()?.lotId,
     stream: ({ params }) => this.lots.get(params),
   });
-  protected readonly sweeps = rxResource({ params: () => this.waferId(), stream: ({ params }) => this.api.sweeps(params) });
+  protected readonly sweeps = rxResource({
+    params: () => this.waferId(),
+    stream: ({ params }) => this.api.sweeps(params),
+  });
   protected readonly dopant = rxResource({
     params: () => ({ id: this.waferId(), sweeps: this.sweeps.value()?.length ?? 0 }),
-    stream: ({ params }) => (params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null)),
+    stream: ({ params }) =>
+      params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null),
   });
   protected readonly assignments = rxResource({
     params: () => this.waferId(),
     stream: ({ params }) =>
-      this.api.assignments(this.isTechnician ? { assignee: 'me', waferId: params } : { waferId: params }),
+      this.api.assignments(
+        this.isTechnician ? { assignee: 'me', waferId: params } : { waferId: params },
+      ),
   });
   protected readonly stations = rxResource({
     params: () => this.canUpload,
@@ -84,26 +99,38 @@ export class WaferPage {
   });
 
   protected readonly chosenSweepId = signal<number | null>(null);
-  protected readonly shownSweepId = computed(() => this.chosenSweepId() ?? this.sweeps.value()?.[0]?.id ?? null);
+  protected readonly shownSweepId = computed(
+    () => this.chosenSweepId() ?? this.sweeps.value()?.[0]?.id ?? null,
+  );
   protected readonly shownSweep = rxResource({
     params: () => this.shownSweepId() ?? undefined,
     stream: ({ params }) => this.api.sweep(params),
   });
-  protected readonly pointColumns = ['sequence', 'temperatureK', 'currentA', 'voltageV', 'resistivityOhmCm', 'flags'];
+  protected readonly pointColumns = [
+    'sequence',
+    'temperatureK',
+    'currentA',
+    'voltageV',
+    'resistivityOhmCm',
+    'flags',
+  ];
   protected readonly sweepColumns = ['file', 'method', 'points', 'range', 'by', 'when', 'actions'];
 
   protected readonly pointsPlot = computed(() => {
     const sweep = this.shownSweep.value();
     if (!sweep) return null;
+    // SVG markers only (no WebGL); long sweeps are thinned for display, never for analysis.
+    const shown = thinForDisplay(sweep.points, (p) => p.resistivityOhmCm);
     return {
       data: [
         {
-          type: 'scattergl',
+          type: 'scatter',
           mode: 'markers',
           name: 'measured ρ',
-          x: sweep.points.map((p) => p.temperatureK),
-          y: sweep.points.map((p) => p.resistivityOhmCm),
-          marker: { color: PLOT_ROLES.measured, size: 6 },
+          x: shown.map((p) => p.temperatureK),
+          y: shown.map((p) => p.resistivityOhmCm),
+          marker: { color: PLOT_ROLES.measured, size: shown.length < sweep.points.length ? 4 : 6 },
+          hovertemplate: '%{x:.2f} K: %{y:.4g} Ω·cm<extra></extra>',
         },
       ],
       layout: {

@@ -1,0 +1,29 @@
+/** Most markers a plot draws; longer series are thinned for display (fits use every point). */
+export const MAX_DISPLAY_POINTS = 1500;
+
+/**
+ * Thins a series for display: the series is cut into MAX_DISPLAY_POINTS / 2 runs in order and
+ * each run keeps its lowest and highest point, so peaks, knees and outliers stay visible.
+ */
+export function thinForDisplay<T>(
+  items: readonly T[],
+  value: (item: T) => number,
+  max = MAX_DISPLAY_POINTS,
+): T[] {
+  if (items.length <= max) return [...items];
+  const runs = Math.max(1, Math.floor(max / 2));
+  const out: T[] = [];
+  for (let r = 0; r < runs; r++) {
+    const from = Math.floor((r * items.length) / runs);
+    const to = Math.floor(((r + 1) * items.length) / runs);
+    let lo = from;
+    let hi = from;
+    for (let i = from + 1; i < to; i++) {
+      if (value(items[i]!) < value(items[lo]!)) lo = i;
+      if (value(items[i]!) > value(items[hi]!)) hi = i;
+    }
+    if (lo === hi) out.push(items[lo]!);
+    else out.push(items[Math.min(lo, hi)]!, items[Math.max(lo, hi)]!);
+  }
+  return out;
+}

@@ -1,0 +1,162 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, apiGet, apiToken, openBrowser, signIn } from './support/app';
+
+interface Page<T> {
+  items: T[];
+}
+
+/** Points in the large sweep the study page is timed with. */
+const POINT_COUNT = 10_000;
+const FILE_NAME = 'e2e-10k-points.csv';
+
+/**
+ * A generated four-point file of POINT_COUNT readings, 250–450 K, of a lightly doped sample
+ * (ρ rising as T^1.5 with 0.3 % noise from a fixed seed), one reading per temperature.
+ */
+function largeFourPointCsv(): string {
+  let seed = 12345;
+  const noise = () => {
+    seed = (seed * 1103515245 + 12345) % 2147483648;
+    return seed / 2147483648 - 0.5;
+  };
+  const lines = ['temperature_K,current_A,voltage_V'];
+  for (let i = 0; i < POINT_COUNT; i++) {
+    const t = 250 + (200 * i) / (POINT_COUNT - 1);
+    const v = 4e-3 * (t / 300) ** 1.5 * (1 + 0.006 * noise());
+    lines.push(`${t.toFixed(3)},1.000e-03,${v.toExponential(6)}`);
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** Uploads the generated sweep as the engineer, through the same API the upload page uses. */
+async function uploadLargeSweep(): Promise<number> {
+  const token = await apiToken('engineer');
+  // A second run on the same database reuses the sweep the first one stored.
+  const recent = await apiGet<{
+    items: Array<{ id: number; originalName: string; pointCount: number }>;
+  }>(token, '/api/sweeps/recent?limit=50');
+  const stored = recent.items.find(
+    (s) => s.originalName === FILE_NAME && s.pointCount === POINT_COUNT,
+  );
+  if (stored) return stored.id;
+  // A wafer without sweeps, so no demo wafer's 23 °C value (and spec verdict) changes.
+  const wafers = await apiGet<Page<{ id: number }>>(
+    token,
+    '/api/wafers?pageSize=200&sort=-createdAt',
+  );
+  let wafer = wafers.items[0];
+  for (const w of wafers.items) {
+    const sweeps = await apiGet<Page<unknown> | unknown[]>(token, `/api/wafers/${w.id}/sweeps`);
+    if ((Array.isArray(sweeps) ? sweeps : sweeps.items).length === 0) {
+      wafer = w;
+      break;
+    }
+  }
+  if (!wafer) throw new Error('the demo data holds no wafer');
+  const form = new FormData();
+  form.append('method', 'four-point');
+  form.append('spacingCm', '0.1');
+  form.append('file', new Blob([largeFourPointCsv()], { type: 'text/csv' }), FILE_NAME);
+  const res = await fetch(`${BASE_URL}/api/wafers/${wafer.id}/sweeps`, {
+    method: 'POST',
+    headers: { authorization: `Bearer ${token}` },
+    body: form,
+  });
+  // The same generated file again (a second run on one database): the stored sweep is reused.
+  if (res.status === 409) {
+    const body = (await res.json()) as { error: { details?: { sweepId?: number } } };
+    const existing = body.error.details?.sweepId;
+    if (existing) return existing;
+  }
+  if (res.status !== 201)
+    throw new Error(`uploading the 10k sweep answered ${res.status}: ${await res.text()}`);
+  const created = (await res.json()) as { id: number; pointCount: number };
+  expect(created.pointCount).toBe(POINT_COUNT);
+  return created.id;
+}
+
+describe('performance figures (printed, not asserted)', () => {
+  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  beforeAll(async () => {
+    browser = await openBrowser(1280, 1000);
+  });
+  afterAll(async () => {
+    await browser.close();
+  });
+
+  it('initial JavaScript transferred up to an idle sign-in page', async () => {
+    const { page, context } = browser;
+    const cdp = await context.newCDPSession(page);
+    await cdp.send('Network.enable');
+    await cdp.send('Network.setCacheDisabled', { cacheDisabled: true });
+    const scripts = new Map<string, { url: string; encoding: string }>();
+    let wireBytes = 0;
+    cdp.on('Network.responseReceived', (e) => {
+      const url = new URL(e.response.url);
+      if (url.pathname.endsWith('.js')) {
+        const headers = Object.fromEntries(
+          Object.entries(e.response.headers).map(([k, v]) => [k.toLowerCase(), String(v)]),
+        );
+        scripts.set(e.requestId, {
+          url: url.pathname,
+          encoding: headers['content-encoding'] ?? 'identity',
+        });
+      }
+    });
+    cdp.on('Network.loadingFinished', (e) => {
+      if (scripts.has(e.requestId)) wireBytes += e.encodedDataLength;
+    });
+    await page.goto(`${BASE_URL}/sign-in`);
+    await page.getByRole('button', { name: 'Sign in' }).waitFor();
+    await page.waitForLoadState('networkidle');
+    const timing = await page.evaluate(() =>
+      performance
+        .getEntriesByType('resource')
+        .map((e) => e as PerformanceResourceTiming)
+        .filter((e) => new URL(e.name).pathname.endsWith('.js'))
+        .reduce(
+          (sum, e) => ({
+            encoded: sum.encoded + e.encodedBodySize,
+            decoded: sum.decoded + e.decodedBodySize,
+          }),
+          { encoded: 0, decoded: 0 },
+        ),
+    );
+    await cdp.detach();
+    const encodings = [...new Set([...scripts.values()].map((s) => s.encoding))].join(', ');
+    console.log(
+      `[perf] initial JS on sign-in: ${scripts.size} files, ${(timing.encoded / 1024).toFixed(1)} kB encoded bodies ` +
+        `(${(wireBytes / 1024).toFixed(1)} kB on the wire with headers; content-encoding: ${encodings}), ` +
+        `${(timing.decoded / 1024).toFixed(1)} kB decoded`,
+    );
+    expect(scripts.size).toBeGreaterThan(0);
+    expect(timing.decoded).toBeGreaterThan(0);
+    // plotly is lazy: it must not be part of the sign-in page.
+    expect([...scripts.values()].some((s) => /plotly/i.test(s.url))).toBe(false);
+  });
+
+  it(`study page of a ${POINT_COUNT}-point sweep: time to plotted and responsive`, async () => {
+    const sweepId = await uploadLargeSweep();
+    const { page } = browser;
+    await signIn(page, 'engineer');
+    const started = Date.now();
+    await page.goto(`${BASE_URL}/sweeps/${sweepId}`);
+    const curve = page.getByRole('figure', { name: /with the model curve/ });
+    // Drawn: the measured markers are on the plot (not only its frame).
+    await curve.locator('.scatterlayer .trace .point').first().waitFor({ timeout: 60_000 });
+    const drawnMs = Date.now() - started;
+    // Responsive: switching the axis to °C redraws the plot.
+    await page
+      .locator('mat-button-toggle-group[aria-label="Temperature unit"]')
+      .getByText('°C')
+      .click();
+    await curve.locator('.xtitle', { hasText: 'Temperature (°C)' }).waitFor({ timeout: 60_000 });
+    const interactiveMs = Date.now() - started;
+    const steps = await page.getByText(/temperature steps from 10000 points/).textContent();
+    console.log(
+      `[perf] study page of ${POINT_COUNT} points (${steps?.trim().split('·')[1]?.trim() ?? '?'}): ` +
+        `main plot drawn after ${drawnMs} ms, unit switch answered after ${interactiveMs} ms from navigation`,
+    );
+    expect(interactiveMs).toBeGreaterThan(0);
+  });
+});
