@@ -124,7 +124,9 @@ export default tseslint.config(
     files: ['db/seeders/**/*.ts'],
     rules: {
       'no-restricted-imports': restrict([], []).map((v, i) =>
-        i === 1 ? { paths: [], patterns: [{ group: ['@angular/*'], message: 'no web code here' }] } : v,
+        i === 1
+          ? { paths: [], patterns: [{ group: ['@angular/*'], message: 'no web code here' }] }
+          : v,
       ),
     },
   },

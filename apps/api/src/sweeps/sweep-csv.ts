@@ -59,6 +59,7 @@ export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): stri
 export function safeFileName(name: string, fallback: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
   const cleaned = base
+    // eslint-disable-next-line no-control-regex -- control characters are exactly what is removed
     .replace(/[\u0000-\u001f\u007f"*:<>?|;]/g, '_')
     .replace(/^\.+/, '')
     .trim()
