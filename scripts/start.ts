@@ -132,6 +132,7 @@ async function main(): Promise<void> {
       console.error('[start] the web build failed');
       await shutdown(1);
     }
+    await runCommand(bin('tsx'), ['scripts/precompress.ts'], { env, cwd: ROOT });
     writeFileSync(stamp, hash);
   } else {
     console.log('[start] web app unchanged since the last build');

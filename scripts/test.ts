@@ -253,7 +253,10 @@ async function main(): Promise<void> {
         env: { ...env, NG_CLI_ANALYTICS: 'false' },
         kind: 'exit',
       });
-      if (results.at(-1)?.failed === 0) await e2e(env);
+      if (results.at(-1)?.failed === 0) {
+        await runCommand(bin('tsx'), ['scripts/precompress.ts'], { cwd: ROOT });
+        await e2e(env);
+      }
     }
   }
 }

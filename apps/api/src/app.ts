@@ -3,6 +3,7 @@ import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import compression from 'compression';
 import express, { type Express } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './deps';
@@ -78,7 +79,15 @@ export function createApp(deps: AppDeps): Express {
 
   const dist = deps.config.webDist;
   if (existsSync(join(dist, 'index.html'))) {
-    app.use(express.static(dist, { index: false, maxAge: '1h' }));
+    // .br/.gz copies written at build time are sent as they are; others are compressed on the fly
+    app.use(
+      expressStaticGzip(dist, {
+        enableBrotli: true,
+        orderPreference: ['br', 'gz'],
+        index: false,
+        serveStatic: { index: false, maxAge: '1h' },
+      }),
+    );
     app.get('/{*path}', (_req, res) => res.sendFile(join(dist, 'index.html')));
   }
   app.use(errorHandler);

@@ -1,4 +1,5 @@
 import { mkdtempSync, writeFileSync } from 'node:fs';
+import { brotliCompressSync } from 'node:zlib';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
@@ -8,6 +9,7 @@ import { createTestContext, type TestContext } from '../testing/test-context';
 describe('serving the built web app from the API process', () => {
   let ctx: TestContext;
   const bundle = `console.log(${JSON.stringify('rhotrace '.repeat(20_000))});`;
+  const brotli = brotliCompressSync(Buffer.from(bundle));
   beforeAll(async () => {
     const dist = mkdtempSync(join(tmpdir(), 'rhotrace-dist-'));
     writeFileSync(
@@ -15,6 +17,8 @@ describe('serving the built web app from the API process', () => {
       '<!doctype html><title>Rhotrace</title><rt-root></rt-root>',
     );
     writeFileSync(join(dist, 'main-TEST.js'), bundle);
+    writeFileSync(join(dist, 'plot-TEST.js'), bundle);
+    writeFileSync(join(dist, 'plot-TEST.js.br'), brotli);
     ctx = await createTestContext({ webDist: dist });
   });
   afterAll(async () => {
@@ -34,6 +38,22 @@ describe('serving the built web app from the API process', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-encoding']).toBe('gzip');
     expect(res.text).toBe(bundle);
+  });
+
+  it('sends a precompressed .br copy as it is, with the type of the original file', async () => {
+    const res = await request(ctx.app)
+      .get('/plot-TEST.js')
+      .set('Accept-Encoding', 'br, gzip')
+      .buffer(true)
+      .parse((r, done) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(res.status).toBe(200);
+    expect(res.headers['content-encoding']).toBe('br');
+    expect(res.headers['content-type']).toMatch(/javascript/);
+    expect(Number(res.headers['content-length'])).toBe(brotli.length);
   });
 
   it('never compresses sign-in answers, which carry a token', async () => {
