@@ -1,5 +1,20 @@
+import { createSecretKey, type KeyObject } from 'node:crypto';
 import jwt from 'jsonwebtoken';
 import type { SessionUser } from '@rhotrace/api-types';
+
+const keys = new Map<string, KeyObject>();
+/**
+ * The secret as a KeyObject, made once: given a plain string, jsonwebtoken first tries to read
+ * it as a public key on every call, which costs about a millisecond per request.
+ */
+function keyOf(secret: string): KeyObject {
+  let key = keys.get(secret);
+  if (!key) {
+    key = createSecretKey(Buffer.from(secret, 'utf8'));
+    keys.set(secret, key);
+  }
+  return key;
+}
 
 /** Only this algorithm is accepted; `none` and asymmetric confusion are refused. */
 export const TOKEN_ALGORITHM = 'HS256' as const;
@@ -30,7 +45,7 @@ export function verifyToken(
   secret: string,
 ): { userId: number; version: number } | null {
   try {
-    const claims = jwt.verify(token, secret, {
+    const claims = jwt.verify(token, keyOf(secret), {
       algorithms: [TOKEN_ALGORITHM],
       issuer: 'rhotrace',
     }) as jwt.JwtPayload;
