@@ -23,6 +23,8 @@ import { Wafer } from '../src/wafers/wafer.model';
 const CLIENTS = Number(process.env.LOAD_CLIENTS ?? 50);
 const DURATION_S = Number(process.env.LOAD_SECONDS ?? 30);
 const MAX_REQUESTS = 200_000;
+const SIGN_IN_EVERY = Number(process.env.LOAD_SIGN_IN_EVERY ?? 25);
+const UPLOAD_EVERY = Number(process.env.LOAD_UPLOAD_EVERY ?? 5);
 const PASSWORD = 'load-bench-password';
 type Kind = 'sign-in' | 'list lots' | 'read sweep' | 'upload';
 
@@ -147,23 +149,27 @@ async function main(): Promise<void> {
       if (status !== ok) errors[kind] += 1;
       return status;
     };
+    // The mix of a working lab: a client signs in once and again every SIGN_IN_EVERY rounds,
+    // reads in every round, and uploads a new sweep every UPLOAD_EVERY rounds.
     const client = async (i: number) => {
       const email = users[i]!.email;
       let token = '';
-      while (Date.now() < until && total < MAX_REQUESTS) {
-        await timed(
-          'sign-in',
-          async () => {
-            const res = await fetch(`${url}/api/auth/login`, {
-              method: 'POST',
-              headers: { 'content-type': 'application/json' },
-              body: JSON.stringify({ email, password: PASSWORD }),
-            });
-            if (res.ok) token = ((await res.clone().json()) as { token: string }).token;
-            return res;
-          },
-          200,
-        );
+      for (let round = 0; Date.now() < until && total < MAX_REQUESTS; round += 1) {
+        if (round % SIGN_IN_EVERY === 0) {
+          await timed(
+            'sign-in',
+            async () => {
+              const res = await fetch(`${url}/api/auth/login`, {
+                method: 'POST',
+                headers: { 'content-type': 'application/json' },
+                body: JSON.stringify({ email, password: PASSWORD }),
+              });
+              if (res.ok) token = ((await res.clone().json()) as { token: string }).token;
+              return res;
+            },
+            200,
+          );
+        }
         const auth = { authorization: `Bearer ${token}` };
         await timed(
           'list lots',
@@ -175,12 +181,14 @@ async function main(): Promise<void> {
           () => fetch(`${url}/api/sweeps/${sweepId}`, { headers: auth }),
           200,
         );
-        const status = await timed(
-          'upload',
-          () => upload(token, fourPointCsv(1_000, `load ${i}`)),
-          201,
-        );
-        if (status === 201) created += 1;
+        if (round % UPLOAD_EVERY === UPLOAD_EVERY - 1) {
+          const status = await timed(
+            'upload',
+            () => upload(token, fourPointCsv(1_000, `load ${i}`)),
+            201,
+          );
+          if (status === 201) created += 1;
+        }
       }
     };
     const started = performance.now();
