@@ -4,12 +4,11 @@ import { Transaction } from 'sequelize';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../config';
-import { Lot } from '../lots/lot.model';
+import { makeWafer } from '../sweeps/sweep-test-helpers';
 import { freePortForTest } from '../testing/free-port';
 import { PrivateDatabase } from '../testing/private-database';
 import { fourPointCsv } from '../testing/sweep-files';
 import { createTestContext, type TestContext } from '../testing/test-context';
-import { Wafer } from '../wafers/wafer.model';
 
 /** Count and a checksum of every stored point, to prove committed sweeps survive a crash. */
 async function pointDigest(
@@ -69,23 +68,7 @@ describe('faults: the database killed under a running API', () => {
   beforeAll(async () => {
     await db.start();
     ctx = await createTestContext({}, db.env);
-    const lot = await Lot.create({
-      code: 'FAULT-1',
-      material: 'Si',
-      dopant: 'B',
-      dopantType: 'p',
-      orientation: '(100)',
-      diameterCm: 10,
-      thicknessCm: 0.05,
-      supplier: null,
-      receivedOn: null,
-      specMinOhmCm: 1,
-      specMaxOhmCm: 20,
-      notes: null,
-      createdById: null,
-    });
-    waferId = (await Wafer.create({ lotId: lot.id, number: '01', thicknessCm: 0.05, notes: null }))
-      .id;
+    waferId = (await makeWafer({ thicknessCm: 0.05, diameterCm: 10 })).id;
   }, 120_000);
   afterAll(async () => {
     await ctx?.close().catch(() => undefined);
@@ -198,23 +181,7 @@ describe('faults and scale-out: API processes', () => {
   beforeAll(async () => {
     await db.start();
     ctx = await createTestContext({}, db.env);
-    const lot = await Lot.create({
-      code: 'SCALE-1',
-      material: 'Si',
-      dopant: 'P',
-      dopantType: 'n',
-      orientation: '(100)',
-      diameterCm: 10,
-      thicknessCm: 0.05,
-      supplier: null,
-      receivedOn: null,
-      specMinOhmCm: 1,
-      specMaxOhmCm: 20,
-      notes: null,
-      createdById: null,
-    });
-    waferId = (await Wafer.create({ lotId: lot.id, number: '01', thicknessCm: 0.05, notes: null }))
-      .id;
+    waferId = (await makeWafer({ thicknessCm: 0.05, diameterCm: 10 })).id;
   }, 120_000);
   afterAll(async () => {
     for (const p of processes) killGroup(p, 'SIGKILL');
