@@ -42,7 +42,7 @@ async function uploadLargeSweep(): Promise<number> {
   // A wafer without sweeps, so no demo wafer's 23 °C value (and spec verdict) changes.
   const wafers = await apiGet<Page<{ id: number }>>(
     token,
-    '/api/wafers?pageSize=200&sort=-createdAt',
+    '/api/wafers?pageSize=200&sort=-createdAt&material=Si',
   );
   let wafer = wafers.items[0];
   for (const w of wafers.items) {

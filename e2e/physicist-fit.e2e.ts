@@ -24,10 +24,11 @@ interface Sweep {
   pointCount: number;
 }
 
-/** A sweep to study: the largest stored one, or the demo file uploaded to the first wafer. */
+/** A sweep to study: the largest stored silicon one, or the demo file uploaded to the first silicon wafer. */
 async function findOrMakeSweep(): Promise<Sweep> {
   const token = await apiToken('physicist');
-  const wafers = await apiGet<Page<Wafer>>(token, '/api/wafers?pageSize=200');
+  // Silicon only: a metal-film sweep has no Arrhenius plot to drag on.
+  const wafers = await apiGet<Page<Wafer>>(token, '/api/wafers?pageSize=200&material=Si');
   let best: Sweep | null = null;
   for (const wafer of wafers.items) {
     const body = await apiGet<Page<Sweep> | Sweep[]>(token, `/api/wafers/${wafer.id}/sweeps`);
