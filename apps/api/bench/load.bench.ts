@@ -25,6 +25,8 @@ const DURATION_S = Number(process.env.LOAD_SECONDS ?? 30);
 const MAX_REQUESTS = 200_000;
 const SIGN_IN_EVERY = Number(process.env.LOAD_SIGN_IN_EVERY ?? 25);
 const UPLOAD_EVERY = Number(process.env.LOAD_UPLOAD_EVERY ?? 5);
+/** Pause between a client's rounds, as a person or an instrument leaves; 0 hammers back to back. */
+const THINK_MS = Number(process.env.LOAD_THINK_MS ?? 1000);
 const PASSWORD = 'load-bench-password';
 type Kind = 'sign-in' | 'list lots' | 'read sweep' | 'upload';
 
@@ -154,6 +156,8 @@ async function main(): Promise<void> {
     const client = async (i: number) => {
       const email = users[i]!.email;
       let token = '';
+      // clients arrive spread over the first pause, not all in the same millisecond
+      await new Promise((r) => setTimeout(r, Math.random() * THINK_MS));
       for (let round = 0; Date.now() < until && total < MAX_REQUESTS; round += 1) {
         if (round % SIGN_IN_EVERY === 0) {
           await timed(
@@ -189,6 +193,7 @@ async function main(): Promise<void> {
           );
           if (status === 201) created += 1;
         }
+        if (THINK_MS > 0) await new Promise((r) => setTimeout(r, THINK_MS * (0.5 + Math.random())));
       }
     };
     const started = performance.now();

@@ -85,9 +85,49 @@ interface StoredRaw {
 }
 
 /** The sweep with its columns, metadata, report and every point in sequence. */
+/**
+ * Points of recently read sweeps, in response form. Stored points are never changed after the
+ * upload commits (a deletion is soft and checked before the cache is consulted), so a cached
+ * copy cannot go stale, and several API processes may each keep their own.
+ */
+const pointCache = new Map<string, SweepPointDto[]>();
+let cachedPointCount = 0;
+/** Points kept across all cached sweeps (about 0.5 kB each). */
+export const POINT_CACHE_LIMIT = 400_000;
+
+/** Cache key: the database as well as the id, since a test process may talk to several. */
+function cacheKey(id: number): string {
+  return `${Sweep.sequelize?.getDatabaseName() ?? ''}:${id}`;
+}
+
+function rememberPoints(id: number, points: SweepPointDto[]): void {
+  if (points.length > POINT_CACHE_LIMIT / 4) return;
+  pointCache.set(cacheKey(id), points);
+  cachedPointCount += points.length;
+  for (const [oldest, cached] of pointCache) {
+    if (cachedPointCount <= POINT_CACHE_LIMIT) break;
+    pointCache.delete(oldest);
+    cachedPointCount -= cached.length;
+  }
+}
+
+function forgetPoints(id: number): void {
+  const cached = pointCache.get(cacheKey(id));
+  if (cached) cachedPointCount -= cached.length;
+  pointCache.delete(cacheKey(id));
+}
+
 export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto> {
   const sweep = await visibleSweep(id, actor);
   const columns = sweep.columnMapping as SweepColumn[];
+  const names = await uploaderNames([sweep]);
+  const cached = pointCache.get(cacheKey(id));
+  if (cached) {
+    // least recently used goes first when the cache is full
+    pointCache.delete(cacheKey(id));
+    pointCache.set(cacheKey(id), cached);
+    return sweepDto(sweep, names, columns, cached);
+  }
   const points = await SweepPoint.findAll({
     where: { sweepId: id },
     order: [['sequence', 'ASC']],
@@ -113,12 +153,22 @@ export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto>
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
     };
   });
+  rememberPoints(id, dtos);
+  return sweepDto(sweep, names, columns, dtos);
+}
+
+function sweepDto(
+  sweep: Sweep,
+  names: Map<number, string>,
+  columns: SweepColumn[],
+  points: SweepPointDto[],
+): SweepDto {
   return {
-    ...summary(sweep, await uploaderNames([sweep])),
+    ...summary(sweep, names),
     columns,
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,
-    points: dtos,
+    points,
   };
 }
 
@@ -169,4 +219,5 @@ export async function deleteSweep(id: number, actor: SweepActor): Promise<void> 
       transaction,
     );
   });
+  forgetPoints(id);
 }

@@ -1,0 +1,49 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { fourPointCsv } from '../testing/sweep-files';
+import { createTestContext, type TestContext } from '../testing/test-context';
+import { makeWafer } from './sweep-test-helpers';
+
+describe('reading a sweep twice (points kept in memory after the first read)', () => {
+  let ctx: TestContext;
+  let sweepId: number;
+  beforeAll(async () => {
+    ctx = await createTestContext();
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const res = await request(ctx.app)
+      .post(`/api/wafers/${wafer.id}/sweeps`)
+      .set(ctx.auth('engineer'))
+      .field('method', 'four-point')
+      .field('spacingCm', '0.1')
+      .attach('file', fourPointCsv(300), 'cache.csv');
+    expect(res.status).toBe(201);
+    sweepId = res.body.id;
+  });
+  afterAll(async () => {
+    await ctx.close();
+  });
+
+  it('answers the second read with exactly the stored points, without reading them again', async () => {
+    const first = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('physicist'));
+    expect(first.status).toBe(200);
+    expect(first.body.points).toHaveLength(300);
+    // Points are immutable once committed; prove the second answer does not come from the table.
+    await ctx.sequelize.query(
+      'UPDATE sweep_points SET resistivity_ohm_cm = -1 WHERE sweep_id = ?',
+      {
+        replacements: [sweepId],
+      },
+    );
+    const second = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('physicist'));
+    expect(second.body).toEqual(first.body);
+  });
+
+  it('still hides the sweep from a technician who is not assigned, and forgets it once deleted', async () => {
+    const hidden = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('technician'));
+    expect(hidden.status).toBe(404);
+    const del = await request(ctx.app).delete(`/api/sweeps/${sweepId}`).set(ctx.auth('engineer'));
+    expect(del.status).toBe(204);
+    const gone = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('physicist'));
+    expect(gone.status).toBe(404);
+  });
+});
