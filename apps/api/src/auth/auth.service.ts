@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import bcrypt from 'bcryptjs';
+import { comparePassword } from './password-hasher';
 import type { LoginResponse, SessionUser } from '@rhotrace/api-types';
 import { Op } from 'sequelize';
 import { recordAudit } from '../audit/audit.service';
@@ -8,7 +8,7 @@ import { badRequest, unauthenticated } from '../errors';
 import type { Mailer } from '../mail/mailer.service';
 import { passwordResetMail } from '../mail/templates/password-reset.mail';
 import { PasswordReset, User } from '../users/user.model';
-import { BCRYPT_COST, hashPassword, normaliseEmail } from '../users/users.service';
+import { hashPassword, normaliseEmail } from '../users/users.service';
 import {
   ACCOUNT_POLICY,
   ADDRESS_POLICY,
@@ -28,7 +28,7 @@ export const RESET_VALID_MINUTES = 60;
 
 let dummyHash: Promise<string> | undefined;
 /** A hash to compare against when the account does not exist, so timing does not tell. */
-const dummy = () => (dummyHash ??= bcrypt.hash(randomBytes(16).toString('hex'), BCRYPT_COST));
+const dummy = () => (dummyHash ??= hashPassword(randomBytes(16).toString('hex')));
 
 function session(user: User): SessionUser {
   return { id: user.id, email: user.email, name: user.name, role: user.role };
@@ -49,7 +49,7 @@ export async function login(
     const now = new Date();
     await assertNotThrottled([keys.account, keys.address], now, t);
     const found = await User.findOne({ where: { email }, transaction: t });
-    const matches = await bcrypt.compare(input.password, found?.passwordHash ?? (await dummy()));
+    const matches = await comparePassword(input.password, found?.passwordHash ?? (await dummy()));
     if (!found || !matches) {
       await recordFailure(keys.account, ACCOUNT_POLICY, now, t);
       return null;

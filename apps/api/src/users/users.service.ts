@@ -1,9 +1,9 @@
-import bcrypt from 'bcryptjs';
 import type { AssigneeDto, Page, Role, UserDto } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
 import { recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { likePattern, orderFrom } from '../middleware/fields';
+import { hashPassword as hashInWorker } from '../auth/password-hasher';
 import { User } from './user.model';
 
 /** bcrypt work factor for every stored password. */
@@ -11,7 +11,7 @@ export const BCRYPT_COST = 10;
 
 /** Hashes a password with bcrypt at `BCRYPT_COST`. */
 export function hashPassword(password: string): Promise<string> {
-  return bcrypt.hash(password, BCRYPT_COST);
+  return hashInWorker(password, BCRYPT_COST);
 }
 
 /** The API's view of a user: never the hash or the token version. */
