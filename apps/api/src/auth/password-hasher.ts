@@ -37,7 +37,7 @@ class HasherPool {
 
   private worker(): Worker | null {
     if (this.broken) return null;
-    const size = Math.max(1, Math.min(2, availableParallelism() - 1));
+    const size = Math.max(1, Math.min(4, availableParallelism()));
     if (this.workers.length < size) {
       try {
         const worker = new Worker(WORKER_SOURCE, { eval: true });
