@@ -321,7 +321,7 @@ function pairMean(f: number | null, r: number | null): number | null {
 
 /**
  * A converter of one reading, or of a forward/reverse pair (forward first), to a point; null
- * after recording a row problem. The physics input object is reused from row to row.
+ * after noting a row problem. The physics input object is reused from row to row.
  */
 function pointMaker(
   method: SweepMethod,
