@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
+import { constants as zlibConstants } from 'node:zlib';
 import compression from 'compression';
 import express, { type Express } from 'express';
 import expressStaticGzip from 'express-static-gzip';
@@ -47,6 +48,9 @@ export function createApp(deps: AppDeps): Express {
   app.use(
     compression({
       filter: (req, res) => !req.path.startsWith('/api/auth') && compression.filter(req, res),
+      // fast settings: the big static files are precompressed, this is for JSON on the fly
+      level: 1,
+      brotli: { params: { [zlibConstants.BROTLI_PARAM_QUALITY]: 1 } },
     }),
   );
   app.use(

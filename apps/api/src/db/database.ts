@@ -20,7 +20,7 @@ export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}
     port: db.port,
     dialect: 'mariadb',
     logging: false,
-    pool: { max: options.poolMax ?? 20, min: 0, acquire: 10_000, idle: 10_000 },
+    pool: { max: options.poolMax ?? 40, min: 0, acquire: 10_000, idle: 10_000 },
     dialectOptions: {
       connectTimeout: 5_000,
       // Keep BIGINT and DECIMAL as numbers for JSON; ids never come near 2^53.
