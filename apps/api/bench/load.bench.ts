@@ -14,11 +14,10 @@ import { quantile } from 'simple-statistics';
 import { loadConfig, REPO_ROOT } from '../src/config';
 import { connectDatabase } from '../src/db/database';
 import { migrator } from '../src/db/migrator';
-import { Lot } from '../src/lots/lot.model';
+import { makeWafer } from '../src/sweeps/sweep-test-helpers';
 import { freePortForTest } from '../src/testing/free-port';
 import { fourPointCsv } from '../src/testing/sweep-files';
 import { User } from '../src/users/user.model';
-import { Wafer } from '../src/wafers/wafer.model';
 
 const CLIENTS = Number(process.env.LOAD_CLIENTS ?? 50);
 const DURATION_S = Number(process.env.LOAD_SECONDS ?? 30);
@@ -48,22 +47,7 @@ async function main(): Promise<void> {
       passwordHash: hash,
     })),
   );
-  const lot = await Lot.create({
-    code: 'LOAD-1',
-    material: 'Si',
-    dopant: 'B',
-    dopantType: 'p',
-    orientation: '(100)',
-    diameterCm: 10,
-    thicknessCm: 0.05,
-    supplier: null,
-    receivedOn: null,
-    specMinOhmCm: 1,
-    specMaxOhmCm: 20,
-    notes: null,
-    createdById: null,
-  });
-  const wafer = await Wafer.create({ lotId: lot.id, number: '01', thicknessCm: 0.05, notes: null });
+  const wafer = await makeWafer({ thicknessCm: 0.05, diameterCm: 10 });
 
   const port = await freePortForTest();
   const url = `http://127.0.0.1:${port}`;
