@@ -27,3 +27,12 @@ export const unauthenticated = (message = 'Sign in to continue') =>
   new HttpError('unauthenticated', message);
 export const unprocessable = (message: string, details?: FieldProblem[]) =>
   new HttpError('unprocessable', message, details);
+
+/**
+ * Re-labels a 404 so it names the record the caller asked for (a hidden wafer answers as the
+ * sweep or fit on it, so existence does not leak); any other error, a lost database connection
+ * above all, passes through unchanged.
+ */
+export function asNotFound(error: unknown, what: string): unknown {
+  return error instanceof HttpError && error.code === 'not_found' ? notFound(what) : error;
+}

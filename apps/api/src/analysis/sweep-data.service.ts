@@ -1,7 +1,7 @@
 import type { AnalysisStep, SessionUser, AnalysisSweepDto } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
 import { Op } from 'sequelize';
-import { notFound } from '../errors';
+import { asNotFound, notFound } from '../errors';
 import type { Lot } from '../lots/lot.model';
 import { Sweep, SweepPoint } from '../sweeps/sweep.model';
 import type { Wafer } from '../wafers/wafer.model';
@@ -44,8 +44,8 @@ export async function visibleSweep(user: SessionUser, sweepId: number): Promise<
   try {
     const { wafer, lot } = await visibleWafer(user, sweep.waferId);
     return { sweep, wafer, lot };
-  } catch {
-    throw notFound(`Sweep ${sweepId}`);
+  } catch (error) {
+    throw asNotFound(error, `Sweep ${sweepId}`);
   }
 }
 

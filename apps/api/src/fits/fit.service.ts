@@ -2,7 +2,7 @@ import type { FitDto, FitKind, FitRequest, SessionUser } from '@rhotrace/api-typ
 import type { Sequelize } from 'sequelize';
 import type { Actor } from '../audit/audit.service';
 import { recordAudit } from '../audit/audit.service';
-import { badRequest, forbidden, notFound } from '../errors';
+import { asNotFound, badRequest, forbidden, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
 import { isMetal, isSemiconductor, semiconductorParameterSet } from '../analysis/model.service';
 import { withPhysicsOnData } from '../analysis/physics-errors';
@@ -229,8 +229,8 @@ async function visibleFit(user: SessionUser, fitId: number): Promise<Fit> {
   if (!fit) throw notFound(`Fit ${fitId}`);
   try {
     await visibleSweep(user, fit.sweepId);
-  } catch {
-    throw notFound(`Fit ${fitId}`);
+  } catch (error) {
+    throw asNotFound(error, `Fit ${fitId}`);
   }
   return fit;
 }

@@ -12,7 +12,7 @@ import type {
   SweepSummaryDto,
 } from '@rhotrace/api-types';
 import { recordAudit } from '../audit/audit.service';
-import { forbidden, notFound } from '../errors';
+import { asNotFound, forbidden, notFound } from '../errors';
 import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
@@ -32,8 +32,8 @@ async function visibleSweep(id: number, actor: SweepActor): Promise<Sweep> {
   if (!sweep) throw notFound(`Sweep ${id}`);
   try {
     await visibleWafer(actor, sweep.waferId);
-  } catch {
-    throw notFound(`Sweep ${id}`);
+  } catch (error) {
+    throw asNotFound(error, `Sweep ${id}`);
   }
   return sweep;
 }
