@@ -51,20 +51,27 @@ async function main(): Promise<void> {
 
   const port = await freePortForTest();
   const url = `http://127.0.0.1:${port}`;
-  const server = spawn(join(REPO_ROOT, 'node_modules/.bin/tsx'), ['apps/api/src/main.ts'], {
-    cwd: REPO_ROOT,
-    env: {
-      ...process.env,
-      DB_NAME: dbName,
-      PORT: String(port),
-      SMTP_PORT: String(await freePortForTest()),
-      LOG_LEVEL: 'warn',
-      SIGN_IN_LIMIT: '1000000',
-      NODE_ENV: 'production',
+  // LOAD_PROFILE_DIR=/some/dir writes a CPU profile of the API process there when it stops
+  const profile = process.env.LOAD_PROFILE_DIR;
+  const nodeArgs = profile ? ['--cpu-prof', `--cpu-prof-dir=${profile}`] : [];
+  const server = spawn(
+    join(REPO_ROOT, 'node_modules/.bin/tsx'),
+    [...nodeArgs, 'apps/api/src/main.ts'],
+    {
+      cwd: REPO_ROOT,
+      env: {
+        ...process.env,
+        DB_NAME: dbName,
+        PORT: String(port),
+        SMTP_PORT: String(await freePortForTest()),
+        LOG_LEVEL: 'warn',
+        SIGN_IN_LIMIT: '1000000',
+        NODE_ENV: 'production',
+      },
+      stdio: ['ignore', 'inherit', 'inherit'],
+      detached: true,
     },
-    stdio: ['ignore', 'inherit', 'inherit'],
-    detached: true,
-  });
+  );
   try {
     for (let i = 0; i < 120; i += 1) {
       if (
@@ -119,7 +126,9 @@ async function main(): Promise<void> {
     };
     let created = 0;
     let total = 0;
+    const started = performance.now();
     const until = Date.now() + DURATION_S * 1000;
+    const trace: Array<{ kind: Kind; atMs: number; ms: number }> = [];
     const timed = async (kind: Kind, run: () => Promise<Response>, ok: number) => {
       const t0 = performance.now();
       let status = 0;
@@ -131,6 +140,7 @@ async function main(): Promise<void> {
         status = -1;
       }
       latencies[kind].push(performance.now() - t0);
+      trace.push({ kind, atMs: t0 - started, ms: performance.now() - t0 });
       total += 1;
       if (status !== ok) errors[kind] += 1;
       return status;
@@ -180,7 +190,6 @@ async function main(): Promise<void> {
         if (THINK_MS > 0) await new Promise((r) => setTimeout(r, THINK_MS * (0.5 + Math.random())));
       }
     };
-    const started = performance.now();
     await Promise.all(Array.from({ length: CLIENTS }, (_, i) => client(i)));
     const seconds = (performance.now() - started) / 1000;
     const stored = (await sequelizeCount(sequelize)) - sweepsBefore;
@@ -240,6 +249,11 @@ async function main(): Promise<void> {
     const out = join(REPO_ROOT, 'bench/out');
     mkdirSync(out, { recursive: true });
     writeFileSync(join(out, 'load.json'), JSON.stringify(figures, null, 2));
+    // every request with its start (ms from the first client) and latency, to find where a tail is
+    writeFileSync(
+      join(out, 'load-trace.ndjson'),
+      trace.map((r) => JSON.stringify(r)).join('\n') + '\n',
+    );
   } finally {
     process.kill(-server.pid!, 'SIGTERM');
     await sequelize.query(`DROP DATABASE IF EXISTS \`${dbName}\``).catch(() => undefined);

@@ -12,11 +12,10 @@ import { hashPassword, normaliseEmail } from '../users/users.service';
 import {
   ACCOUNT_POLICY,
   ADDRESS_POLICY,
-  assertNotThrottled,
   clearFailures,
   recordFailure,
+  takeSignInTurn,
   throttleKeys,
-  withAccountTurn,
 } from './sign-in-throttle.service';
 import { signToken } from './token.service';
 
@@ -35,8 +34,9 @@ function session(user: User): SessionUser {
 }
 
 /**
- * Signs in with e-mail and password. Failures count against the account and the address; a
- * throttled key answers 429 before the password is even checked.
+ * Signs in with e-mail and password. Every attempt counts against the account before the
+ * password is checked (and is taken back by a match); failures also count against the address.
+ * A throttled account or address answers 429 before the password is even checked.
  */
 export async function login(
   input: { email: string; password: string },
@@ -45,22 +45,16 @@ export async function login(
 ): Promise<LoginResponse> {
   const email = normaliseEmail(input.email);
   const keys = throttleKeys(email, address);
-  const user = await withAccountTurn(keys.account, async (t) => {
-    const now = new Date();
-    await assertNotThrottled([keys.account, keys.address], now, t);
-    const found = await User.findOne({ where: { email }, transaction: t });
-    const matches = await comparePassword(input.password, found?.passwordHash ?? (await dummy()));
-    if (!found || !matches) {
-      await recordFailure(keys.account, ACCOUNT_POLICY, now, t);
-      return null;
-    }
-    await clearFailures(keys.account, t);
-    return found;
-  });
-  if (!user) {
+  await takeSignInTurn(keys, ACCOUNT_POLICY);
+  const user = await User.findOne({ where: { email } });
+  // bcrypt runs with no database connection or lock held, so a burst of sign-ins cannot
+  // starve the pool that every other request needs
+  const matches = await comparePassword(input.password, user?.passwordHash ?? (await dummy()));
+  if (!user || !matches) {
     await recordFailure(keys.address, ADDRESS_POLICY);
     throw unauthenticated(SIGN_IN_FAILED);
   }
+  await clearFailures(keys.account);
   if (!user.active) throw unauthenticated(SIGN_IN_FAILED);
   const { token, expiresAt } = signToken(user, config.jwtSecret, config.tokenTtlS);
   return { token, expiresAt, user: session(user) };

@@ -8,11 +8,19 @@ import bcrypt from 'bcryptjs';
  * of CPU, and on the main thread a burst of sign-ins would stall every other request. The workers
  * run the same bcryptjs code, so hashes are identical; if a worker cannot start, the main thread
  * does the work as before.
+ *
+ * Each worker also lowers its own scheduling priority (nice 10; on Linux the nice value belongs
+ * to the thread). A burst of sign-ins then uses the CPU the rest of the server leaves idle and no
+ * longer delays the requests of people already signed in; the sign-ins themselves take longer
+ * only while the server is busy.
  */
+/** The nice value of the hashing threads (0 is normal, 19 the lowest priority). */
+export const HASHER_NICE = 10;
 const BCRYPTJS_PATH = createRequire(import.meta.url).resolve('bcryptjs');
 const WORKER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
 const bcrypt = require(${JSON.stringify(BCRYPTJS_PATH)});
+try { require('node:os').setPriority(${HASHER_NICE}); } catch {}
 parentPort.on('message', ({ id, op, a, b }) => {
   try {
     const result = op === 'compare' ? bcrypt.compareSync(a, b) : bcrypt.hashSync(a, b);
@@ -24,6 +32,7 @@ parentPort.on('message', ({ id, op, a, b }) => {
 `;
 
 interface Pending {
+  worker: Worker;
   resolve: (value: unknown) => void;
   reject: (error: Error) => void;
 }
@@ -61,9 +70,15 @@ class HasherPool {
     return this.workers[this.next] ?? null;
   }
 
+  /** Drops a worker that failed or exited, failing the jobs it still had. */
   private retire(worker: Worker): void {
     const i = this.workers.indexOf(worker);
     if (i >= 0) this.workers.splice(i, 1);
+    for (const [id, job] of this.pending) {
+      if (job.worker !== worker) continue;
+      this.pending.delete(id);
+      job.reject(new Error('the password hashing thread stopped'));
+    }
   }
 
   run<T>(
@@ -77,7 +92,7 @@ class HasherPool {
     this.serial += 1;
     const id = this.serial;
     return new Promise<T>((resolve, reject) => {
-      this.pending.set(id, { resolve: resolve as (v: unknown) => void, reject });
+      this.pending.set(id, { worker, resolve: resolve as (v: unknown) => void, reject });
       worker.postMessage({ id, op, a, b });
     });
   }

@@ -67,37 +67,46 @@ export async function assertNotThrottled(
 }
 
 /**
+ * Counts one failure on the locked throttle `row` under `policy` and sets the key's wait when
+ * the count crosses a threshold.
+ */
+async function countFailure(
+  row: SignInThrottle,
+  policy: ThrottlePolicy,
+  now: Date,
+  t: Transaction,
+): Promise<void> {
+  const expired = now.getTime() - row.firstFailureAt.getTime() > policy.windowS * 1000;
+  const lockOver = !row.lockedUntil || row.lockedUntil.getTime() <= now.getTime();
+  const failures = expired && lockOver ? 1 : row.failures + 1;
+  let waitS = 0;
+  if (failures >= policy.lockAfter) waitS = policy.lockS;
+  else if (failures >= policy.slowAfter) {
+    waitS = Math.min(2 ** (failures - policy.slowAfter), policy.maxDelayS);
+  }
+  await row.update(
+    {
+      failures,
+      firstFailureAt: expired && lockOver ? now : row.firstFailureAt,
+      lockedUntil: waitS > 0 ? new Date(now.getTime() + waitS * 1000) : null,
+    },
+    { transaction: t },
+  );
+}
+
+/**
  * Counts one failure against `key` under `policy`, atomically across API processes (row lock
- * in the shared database), and sets the key's wait when it crosses a threshold.
+ * in the shared database).
  */
 export async function recordFailure(
   key: string,
   policy: ThrottlePolicy,
   now = new Date(),
-  transaction?: Transaction,
 ): Promise<void> {
-  const work = async (t: Transaction) => {
-    const row = await lockKey(key, t);
-    const expired = now.getTime() - row.firstFailureAt.getTime() > policy.windowS * 1000;
-    const lockOver = !row.lockedUntil || row.lockedUntil.getTime() <= now.getTime();
-    const failures = expired && lockOver ? 1 : row.failures + 1;
-    let waitS = 0;
-    if (failures >= policy.lockAfter) waitS = policy.lockS;
-    else if (failures >= policy.slowAfter) {
-      waitS = Math.min(2 ** (failures - policy.slowAfter), policy.maxDelayS);
-    }
-    await row.update(
-      {
-        failures,
-        firstFailureAt: expired && lockOver ? now : row.firstFailureAt,
-        lockedUntil: waitS > 0 ? new Date(now.getTime() + waitS * 1000) : null,
-      },
-      { transaction: t },
-    );
-  };
-  if (transaction) return work(transaction);
   await ensureRow(key);
-  await SignInThrottle.sequelize!.transaction(work);
+  await SignInThrottle.sequelize!.transaction(async (t) =>
+    countFailure(await lockKey(key, t), policy, now, t),
+  );
 }
 
 /**
@@ -119,17 +128,26 @@ async function lockKey(key: string, t: Transaction): Promise<SignInThrottle> {
 }
 
 /**
- * Runs one sign-in attempt of an account while holding its throttle row's lock, so parallel
- * attempts (from any API process) take turns and each sees the count the previous one left.
+ * Takes the turn of one sign-in attempt on an account: under its throttle row's lock (shared by
+ * every API process) it refuses the attempt with a 429 when the account or the address is
+ * slowed or locked, and otherwise counts the attempt as a failure before the password is even
+ * checked. Parallel attempts therefore each see the count the previous one left, while no
+ * connection or lock is held during the slow password check; a correct password then clears
+ * the count with `clearFailures`.
  */
-export async function withAccountTurn<T>(
-  key: string,
-  attempt: (t: Transaction) => Promise<T>,
-): Promise<T> {
-  await ensureRow(key);
-  return SignInThrottle.sequelize!.transaction(async (t) => {
-    await lockKey(key, t);
-    return attempt(t);
+export async function takeSignInTurn(
+  keys: { account: string; address: string },
+  policy: ThrottlePolicy,
+  now = new Date(),
+): Promise<void> {
+  await ensureRow(keys.account);
+  await SignInThrottle.sequelize!.transaction(async (t) => {
+    const row = await lockKey(keys.account, t);
+    if (row.lockedUntil && row.lockedUntil.getTime() > now.getTime()) {
+      throw tooManyAttempts(row.lockedUntil, now);
+    }
+    await assertNotThrottled([keys.address], now, t);
+    await countFailure(row, policy, now, t);
   });
 }
 

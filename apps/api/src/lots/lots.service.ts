@@ -1,12 +1,20 @@
 import type { LotDto, LotInput, Material, Page, SessionUser } from '@rhotrace/api-types';
-import { fn, col, Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
+import {
+  col,
+  fn,
+  literal,
+  Op,
+  UniqueConstraintError,
+  type Transaction,
+  type WhereOptions,
+} from 'sequelize';
 import { Assignment } from '../assignments/assignment.model';
 import { recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../middleware/fields';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
-import { assignedWaferIds } from '../wafers/wafer-access.service';
+import { assignedWaferIds, VISIBLE_ASSIGNMENT_STATES } from '../wafers/wafer-access.service';
 import { Lot } from './lot.model';
 
 /** The API's view of a lot. */
@@ -59,6 +67,19 @@ async function waferCounts(user: SessionUser, lotIds: number[]): Promise<Map<num
   return new Map(rows.map((r) => [r.lotId, Number(r.count)]));
 }
 
+/**
+ * SQL for the number of a lot's wafers the user may see (`Lot` is the outer row): wafers not
+ * deleted, and for a technician only those assigned to them in a state that still shows them.
+ */
+function waferCountSql(user: SessionUser): string {
+  const sequelize = Lot.sequelize!;
+  const assigned =
+    user.role === 'technician'
+      ? ` AND EXISTS (SELECT 1 FROM assignments AS a WHERE a.wafer_id = w.id AND a.assignee_id = ${sequelize.escape(user.id)} AND a.state IN (${VISIBLE_ASSIGNMENT_STATES.map((v) => sequelize.escape(v)).join(', ')}))`
+      : '';
+  return `(SELECT COUNT(*) FROM wafers AS w WHERE w.lot_id = \`Lot\`.\`id\` AND w.deleted_at IS NULL${assigned})`;
+}
+
 export interface LotListOptions {
   page: number;
   pageSize: number;
@@ -82,19 +103,27 @@ export async function listLots(user: SessionUser, options: LotListOptions): Prom
   }
   if (options.material) where.push({ material: options.material });
   if (options.dopantType) where.push({ dopantType: options.dopantType });
-  const { rows, count } = await Lot.findAndCountAll({
+  // One query: the page, each lot's visible wafer count and the total of matching lots
+  const rows = await Lot.findAll({
+    attributes: {
+      include: [
+        [literal(waferCountSql(user)), 'visibleWaferCount'],
+        [literal('COUNT(*) OVER ()'), 'matchingTotal'],
+      ],
+    },
     where: { [Op.and]: where },
     order: orderFrom(options.sort, 'code'),
     limit: options.pageSize,
     offset: (options.page - 1) * options.pageSize,
   });
-  const counts = await waferCounts(
-    user,
-    rows.map((l) => l.id),
-  );
+  const total = rows.length
+    ? Number(rows[0]!.get('matchingTotal'))
+    : options.page > 1
+      ? await Lot.count({ where: { [Op.and]: where } })
+      : 0;
   return {
-    items: rows.map((l) => toLotDto(l, counts.get(l.id) ?? 0)),
-    total: count,
+    items: rows.map((l) => toLotDto(l, Number(l.get('visibleWaferCount')))),
+    total,
     page: options.page,
     pageSize: options.pageSize,
   };

@@ -184,6 +184,17 @@ describe('lots and wafers', () => {
       .query({ material: 'GaAs', sort: '-code', pageSize: 2, page: 2 })
       .set(ctx.auth('manager'));
     expect(page2.body.items.map((l: { code: string }) => l.code)).toEqual(['LIST-1']);
+    expect(page2.body.total).toBe(3);
+    const beyond = await request(ctx.app)
+      .get('/api/lots')
+      .query({ material: 'GaAs', pageSize: 2, page: 5 })
+      .set(ctx.auth('manager'));
+    expect(beyond.body).toMatchObject({ items: [], total: 3, page: 5 });
+    const none = await request(ctx.app)
+      .get('/api/lots')
+      .query({ q: 'no-such-lot-anywhere' })
+      .set(ctx.auth('manager'));
+    expect(none.body).toMatchObject({ items: [], total: 0 });
     const n = await request(ctx.app)
       .get('/api/lots')
       .query({ dopantType: 'n' })
@@ -278,6 +289,21 @@ describe('lots and wafers', () => {
     expect(wafers.body.total).toBe(1);
     const lots = await request(ctx.app).get('/api/lots').set(header);
     expect(lots.body.items).toEqual([expect.objectContaining({ id: mine.id, waferCount: 1 })]);
+    // everyone else sees every wafer that is not deleted
+    expect(
+      (await request(ctx.app).delete(`/api/wafers/${w2.id}`).set(ctx.auth('admin'))).status,
+    ).toBe(204);
+    const all = await request(ctx.app)
+      .get('/api/lots')
+      .query({ q: 'LOT-TECH' })
+      .set(ctx.auth('manager'));
+    expect(
+      all.body.items.map((l: { code: string; waferCount: number }) => [l.code, l.waferCount]),
+    ).toEqual([
+      ['LOT-TECH-MINE', 1],
+      ['LOT-TECH-OTHER', 1],
+    ]);
+    expect(all.body.total).toBe(2);
     expect((await request(ctx.app).get(`/api/wafers/${w1.id}`).set(header)).status).toBe(200);
     expect((await request(ctx.app).get(`/api/wafers/${w2.id}`).set(header)).status).toBe(404);
     expect((await request(ctx.app).get(`/api/wafers/${w3.id}`).set(header)).status).toBe(404);

@@ -36,6 +36,24 @@ describe('database failures during visibility checks', () => {
     await ctx.close();
   });
 
+  const refused = () => new ConnectionRefusedError(new Error('connect ECONNREFUSED'));
+  /** Makes the wafer lookup fail, whichever form the route uses. */
+  const failWaferLookup = () => {
+    const model = vi.spyOn(Wafer, 'findByPk').mockRejectedValue(refused());
+    const query = ctx.sequelize.query.bind(ctx.sequelize);
+    // the sweep read checks sweep, wafer and lot in one joined query
+    const joined = vi
+      .spyOn(ctx.sequelize, 'query')
+      .mockImplementation(((sql: unknown, options: unknown) =>
+        typeof sql === 'string' && sql.includes('JOIN wafers AS w')
+          ? Promise.reject(refused())
+          : query(sql as string, options as never)) as never);
+    return () => {
+      model.mockRestore();
+      joined.mockRestore();
+    };
+  };
+
   it.each([
     ['the sweep', () => `/api/sweeps/${sweepId}`],
     ['its analysis', () => `/api/sweeps/${sweepId}/analysis`],
@@ -43,15 +61,13 @@ describe('database failures during visibility checks', () => {
   ])(
     'reading %s answers 503 with a retry hint when the wafer lookup fails',
     async (_what, path) => {
-      const spy = vi
-        .spyOn(Wafer, 'findByPk')
-        .mockRejectedValue(new ConnectionRefusedError(new Error('connect ECONNREFUSED')));
+      const restore = failWaferLookup();
       try {
         const res = await request(ctx.app).get(path()).set(ctx.auth('physicist'));
         expect(res.status).toBe(503);
         expect(res.headers['retry-after']).toBeDefined();
       } finally {
-        spy.mockRestore();
+        restore();
       }
       const ok = await request(ctx.app).get(path()).set(ctx.auth('physicist'));
       expect(ok.status).toBe(200);

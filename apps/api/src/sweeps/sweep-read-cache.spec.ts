@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fourPointCsv } from '../testing/sweep-files';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { makeWafer } from './sweep-test-helpers';
+import { getSweep } from './sweep.service';
 
 describe('reading a sweep twice (points kept in memory after the first read)', () => {
   let ctx: TestContext;
@@ -36,6 +37,12 @@ describe('reading a sweep twice (points kept in memory after the first read)', (
     );
     const second = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('physicist'));
     expect(second.body).toEqual(first.body);
+    // the answer is spliced from cached JSON text: it must be exactly the DTO serialised whole
+    const physicist = { ...ctx.users.physicist.get({ plain: true }), requestId: null };
+    const dto = await getSweep(sweepId, physicist);
+    expect(second.text).toBe(JSON.stringify(dto));
+    expect(second.headers['content-type']).toMatch(/^application\/json; charset=utf-8/);
+    expect(dto.uploadedByName).toBe(ctx.users.engineer.name);
   });
 
   it('still hides the sweep from a technician who is not assigned, and forgets it once deleted', async () => {

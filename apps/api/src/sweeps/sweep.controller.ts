@@ -11,6 +11,7 @@ import { pointsCsv, safeFileName } from './sweep-csv';
 import {
   deleteSweep,
   getSweep,
+  getSweepJson,
   importSweep,
   listSweeps,
   previewSweep,
@@ -134,7 +135,7 @@ export async function listSweepsHandler(req: Request, res: Response): Promise<vo
 
 /** `GET /api/sweeps/:id` */
 export async function getSweepHandler(req: Request, res: Response): Promise<void> {
-  res.json(await getSweep(parseId(req.params), actorOf(req)));
+  res.type('application/json').send(await getSweepJson(parseId(req.params), actorOf(req)));
 }
 
 /** `GET /api/sweeps/:id/points.csv` */

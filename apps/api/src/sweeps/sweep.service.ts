@@ -12,11 +12,11 @@ import type {
   SweepSummaryDto,
 } from '@rhotrace/api-types';
 import { recordAudit } from '../audit/audit.service';
-import { asNotFound, forbidden, notFound } from '../errors';
+import { forbidden, notFound } from '../errors';
 import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
-import { visibleWafer } from '../wafers/wafer-access.service';
+import { VISIBLE_ASSIGNMENT_STATES, visibleWafer } from '../wafers/wafer-access.service';
 import type { SweepActor } from './sweep-import.service';
 import { Sweep, SweepPoint } from './sweep.model';
 
@@ -27,18 +27,40 @@ export {
   type SweepActor,
 } from './sweep-import.service';
 
-async function visibleSweep(id: number, actor: SweepActor): Promise<Sweep> {
-  const sweep = await Sweep.findByPk(id);
+/**
+ * The sweep with its uploader's name, when the actor may see it: one query joining the wafer
+ * and lot (neither deleted) and, for a technician, their assignment. Hidden or missing is 404.
+ */
+async function visibleSweep(
+  id: number,
+  actor: SweepActor,
+): Promise<{ sweep: Sweep; uploaderName: string | null }> {
+  const assigned =
+    actor.role === 'technician'
+      ? ' AND EXISTS (SELECT 1 FROM assignments AS a WHERE a.wafer_id = w.id' +
+        ' AND a.assignee_id = :userId AND a.state IN (:states))'
+      : '';
+  const rows = (await Sweep.sequelize!.query(
+    'SELECT s.*, u.name AS uploader_name FROM sweeps AS s' +
+      ' JOIN wafers AS w ON w.id = s.wafer_id AND w.deleted_at IS NULL' +
+      ' JOIN lots AS l ON l.id = w.lot_id AND l.deleted_at IS NULL' +
+      ' LEFT JOIN users AS u ON u.id = s.uploaded_by_id' +
+      ` WHERE s.id = :id AND s.deleted_at IS NULL${assigned}`,
+    {
+      replacements: { id, userId: actor.id, states: VISIBLE_ASSIGNMENT_STATES },
+      model: Sweep,
+      mapToModel: true,
+    },
+  )) as Sweep[];
+  const sweep = rows[0];
   if (!sweep) throw notFound(`Sweep ${id}`);
-  try {
-    await visibleWafer(actor, sweep.waferId);
-  } catch (error) {
-    throw asNotFound(error, `Sweep ${id}`);
-  }
-  return sweep;
+  return {
+    sweep,
+    uploaderName: (sweep.get('uploader_name' as never) as unknown as string | null) ?? null,
+  };
 }
 
-function summary(sweep: Sweep, names: Map<number, string>): SweepSummaryDto {
+function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
   return {
     id: sweep.id,
     waferId: sweep.waferId,
@@ -46,7 +68,7 @@ function summary(sweep: Sweep, names: Map<number, string>): SweepSummaryDto {
     method: sweep.method as SweepMethod,
     geometry: sweep.geometry as SweepGeometry,
     uploadedById: sweep.uploadedById,
-    uploadedByName: names.get(sweep.uploadedById) ?? null,
+    uploadedByName: uploaderName,
     originalName: sweep.originalName,
     sizeBytes: sweep.sizeBytes,
     sha256: sweep.sha256,
@@ -76,7 +98,7 @@ export async function listSweeps(waferId: number, actor: SweepActor): Promise<Sw
     ],
   });
   const names = await uploaderNames(sweeps);
-  return sweeps.map((s) => summary(s, names));
+  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null));
 }
 
 interface StoredRaw {
@@ -84,15 +106,19 @@ interface StoredRaw {
   cells: string[][];
 }
 
-/** The sweep with its columns, metadata, report and every point in sequence. */
 /**
- * Points of recently read sweeps, in response form. Stored points are never changed after the
- * upload commits (a deletion is soft and checked before the cache is consulted), so a cached
- * copy cannot go stale, and several API processes may each keep their own.
+ * Points of recently read sweeps, in response form, with their JSON text once a response has
+ * needed it. Stored points are never changed after the upload commits (a deletion is soft and
+ * checked before the cache is consulted), so a cached copy cannot go stale, and several API
+ * processes may each keep their own.
  */
-const pointCache = new Map<string, SweepPointDto[]>();
+interface CachedPoints {
+  points: SweepPointDto[];
+  json?: string;
+}
+const pointCache = new Map<string, CachedPoints>();
 let cachedPointCount = 0;
-/** Points kept across all cached sweeps (about 0.5 kB each). */
+/** Points kept across all cached sweeps (about 0.5 kB each, and as much again as JSON). */
 export const POINT_CACHE_LIMIT = 400_000;
 
 /** Cache key: the database as well as the id, since a test process may talk to several. */
@@ -100,41 +126,58 @@ function cacheKey(id: number): string {
   return `${Sweep.sequelize?.getDatabaseName() ?? ''}:${id}`;
 }
 
-function rememberPoints(id: number, points: SweepPointDto[]): void {
-  if (points.length > POINT_CACHE_LIMIT / 4) return;
-  pointCache.set(cacheKey(id), points);
+function rememberPoints(id: number, points: SweepPointDto[]): CachedPoints {
+  const entry: CachedPoints = { points };
+  if (points.length > POINT_CACHE_LIMIT / 4) return entry;
+  pointCache.set(cacheKey(id), entry);
   cachedPointCount += points.length;
   for (const [oldest, cached] of pointCache) {
     if (cachedPointCount <= POINT_CACHE_LIMIT) break;
     pointCache.delete(oldest);
-    cachedPointCount -= cached.length;
+    cachedPointCount -= cached.points.length;
   }
+  return entry;
 }
 
 function forgetPoints(id: number): void {
   const cached = pointCache.get(cacheKey(id));
-  if (cached) cachedPointCount -= cached.length;
+  if (cached) cachedPointCount -= cached.points.length;
   pointCache.delete(cacheKey(id));
 }
 
-export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto> {
-  const sweep = await visibleSweep(id, actor);
+interface SweepParts {
+  head: Omit<SweepDto, 'points'>;
+  cached: CachedPoints;
+}
+
+/** The sweep's response without points, and its points from the cache or the table. */
+async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
+  const { sweep, uploaderName } = await visibleSweep(id, actor);
   const columns = sweep.columnMapping as SweepColumn[];
-  const names = await uploaderNames([sweep]);
+  const head = {
+    ...summary(sweep, uploaderName),
+    columns,
+    metadata: (sweep.metadata ?? {}) as Record<string, string>,
+    parseReport: sweep.parseReport as SweepParseReport,
+  };
   const cached = pointCache.get(cacheKey(id));
   if (cached) {
     // least recently used goes first when the cache is full
     pointCache.delete(cacheKey(id));
     pointCache.set(cacheKey(id), cached);
-    return sweepDto(sweep, names, columns, cached);
+    return { head, cached };
   }
+  return { head, cached: rememberPoints(id, await readPoints(id, columns)) };
+}
+
+async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPointDto[]> {
   const points = await SweepPoint.findAll({
     where: { sweepId: id },
     order: [['sequence', 'ASC']],
     raw: true,
   });
   const headers = columns.map((c) => c.header);
-  const dtos: SweepPointDto[] = points.map((p) => {
+  return points.map((p) => {
     const doc = (typeof p.raw === 'string' ? JSON.parse(p.raw) : p.raw) as StoredRaw | string[];
     const stored: StoredRaw = Array.isArray(doc) ? { rows: [p.sourceRow], cells: [doc] } : doc;
     return {
@@ -153,23 +196,22 @@ export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto>
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
     };
   });
-  rememberPoints(id, dtos);
-  return sweepDto(sweep, names, columns, dtos);
 }
 
-function sweepDto(
-  sweep: Sweep,
-  names: Map<number, string>,
-  columns: SweepColumn[],
-  points: SweepPointDto[],
-): SweepDto {
-  return {
-    ...summary(sweep, names),
-    columns,
-    metadata: (sweep.metadata ?? {}) as Record<string, string>,
-    parseReport: sweep.parseReport as SweepParseReport,
-    points,
-  };
+/** The sweep with its columns, metadata, report and every point in sequence. */
+export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto> {
+  const { head, cached } = await sweepParts(id, actor);
+  return { ...head, points: cached.points };
+}
+
+/**
+ * `getSweep` as the JSON text of the response, byte for byte `JSON.stringify(getSweep(…))`;
+ * the points' part is serialised once per cached sweep, not on every read.
+ */
+export async function getSweepJson(id: number, actor: SweepActor): Promise<string> {
+  const { head, cached } = await sweepParts(id, actor);
+  cached.json ??= JSON.stringify(cached.points);
+  return `${JSON.stringify(head).slice(0, -1)},"points":${cached.json}}`;
 }
 
 /** The original upload, byte for byte, with the name it was uploaded under. */
@@ -177,7 +219,7 @@ export async function sweepRawFile(
   id: number,
   actor: SweepActor,
 ): Promise<{ originalName: string; content: Buffer }> {
-  const sweep = await visibleSweep(id, actor);
+  const { sweep } = await visibleSweep(id, actor);
   const content = await rawStorageFor(sweep.storageKind as StorageKind).get(sweep.storageKey);
   if (!content) throw notFound(`The raw file of sweep ${id}`);
   return { originalName: sweep.originalName, content };
@@ -188,7 +230,7 @@ export async function sweepRawFile(
  * their own uploads, technicians none.
  */
 export async function deleteSweep(id: number, actor: SweepActor): Promise<void> {
-  const sweep = await visibleSweep(id, actor);
+  const { sweep } = await visibleSweep(id, actor);
   const mayDelete =
     actor.role === 'admin' ||
     actor.role === 'manager' ||

@@ -6,7 +6,7 @@ import { Lot } from '../lots/lot.model';
 import { Wafer } from './wafer.model';
 
 /** Assignment states that still give a technician sight of the wafer. */
-const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'];
+export const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'];
 
 /** Ids of the wafers a technician has been assigned (any state but cancelled). */
 export async function assignedWaferIds(
