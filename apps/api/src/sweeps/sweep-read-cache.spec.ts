@@ -42,7 +42,40 @@ describe('reading a sweep twice (points kept in memory after the first read)', (
     const dto = await getSweep(sweepId, physicist);
     expect(second.text).toBe(JSON.stringify(dto));
     expect(second.headers['content-type']).toMatch(/^application\/json; charset=utf-8/);
+    expect(second.headers['content-encoding']).toBe('gzip');
+    expect(second.headers['vary']).toMatch(/Accept-Encoding/);
     expect(dto.uploadedByName).toBe(ctx.users.engineer.name);
+    const plain = await request(ctx.app)
+      .get(`/api/sweeps/${sweepId}`)
+      .set(ctx.auth('physicist'))
+      .set('Accept-Encoding', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    expect(plain.text).toBe(JSON.stringify(dto));
+    expect(plain.headers['etag']).toBe(second.headers['etag']);
+  });
+
+  it('answers a revalidation with 304, and a renamed uploader with a new body and tag', async () => {
+    const first = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('manager'));
+    const etag = first.headers['etag'] as string;
+    expect(etag).toMatch(/^W\/"sweep-\d+-300-/);
+    const again = await request(ctx.app)
+      .get(`/api/sweeps/${sweepId}`)
+      .set(ctx.auth('manager'))
+      .set('If-None-Match', etag);
+    expect(again.status).toBe(304);
+    const renamed = await request(ctx.app)
+      .patch(`/api/users/${ctx.users.engineer.id}`)
+      .set(ctx.auth('admin'))
+      .send({ name: 'Renamed Engineer' });
+    expect(renamed.status).toBe(200);
+    const after = await request(ctx.app)
+      .get(`/api/sweeps/${sweepId}`)
+      .set(ctx.auth('manager'))
+      .set('If-None-Match', etag);
+    expect(after.status).toBe(200);
+    expect(after.headers['etag']).not.toBe(etag);
+    expect(after.body.uploadedByName).toBe('Renamed Engineer');
+    expect(after.body.points).toEqual(first.body.points);
   });
 
   it('still hides the sweep from a technician who is not assigned, and forgets it once deleted', async () => {

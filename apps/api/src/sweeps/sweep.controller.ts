@@ -11,7 +11,7 @@ import { pointsCsv, safeFileName } from './sweep-csv';
 import {
   deleteSweep,
   getSweep,
-  getSweepJson,
+  getSweepBody,
   importSweep,
   listSweeps,
   previewSweep,
@@ -135,7 +135,13 @@ export async function listSweepsHandler(req: Request, res: Response): Promise<vo
 
 /** `GET /api/sweeps/:id` */
 export async function getSweepHandler(req: Request, res: Response): Promise<void> {
-  res.type('application/json').send(await getSweepJson(parseId(req.params), actorOf(req)));
+  const gzip = req.acceptsEncodings('gzip') === 'gzip';
+  const { body, gzipped, etag } = await getSweepBody(parseId(req.params), actorOf(req), gzip);
+  // the compression middleware leaves a body that already has its Content-Encoding alone
+  res.vary('Accept-Encoding');
+  res.set('ETag', etag);
+  if (gzipped) res.set('Content-Encoding', 'gzip');
+  res.type('application/json').send(body);
 }
 
 /** `GET /api/sweeps/:id/points.csv` */

@@ -1,6 +1,9 @@
 /**
  * Reading and soft-deleting sweeps. Visibility follows the wafer: hidden is 404.
  */
+import { createHash } from 'node:crypto';
+import { promisify } from 'node:util';
+import { gzip as gzipCallback } from 'node:zlib';
 import type {
   PointFlag,
   SweepColumn,
@@ -19,6 +22,8 @@ import { User } from '../users/user.model';
 import { VISIBLE_ASSIGNMENT_STATES, visibleWafer } from '../wafers/wafer-access.service';
 import type { SweepActor } from './sweep-import.service';
 import { Sweep, SweepPoint } from './sweep.model';
+
+const gzipAsync = promisify(gzipCallback);
 
 export {
   importSweep,
@@ -115,6 +120,8 @@ interface StoredRaw {
 interface CachedPoints {
   points: SweepPointDto[];
   json?: string;
+  /** The whole answer gzipped, with the head it was made with (a renamed uploader changes it). */
+  gzipped?: { head: string; bytes: Buffer };
 }
 const pointCache = new Map<string, CachedPoints>();
 let cachedPointCount = 0;
@@ -204,14 +211,36 @@ export async function getSweep(id: number, actor: SweepActor): Promise<SweepDto>
   return { ...head, points: cached.points };
 }
 
+/** The sweep read as a response body, see `getSweepBody`. */
+export interface SweepBody {
+  body: string | Buffer;
+  gzipped: boolean;
+  /** Changes whenever the body does: sweep id, head and point count (points never change). */
+  etag: string;
+}
+
 /**
- * `getSweep` as the JSON text of the response, byte for byte `JSON.stringify(getSweep(…))`;
- * the points' part is serialised once per cached sweep, not on every read.
+ * `getSweep` as the response body: the JSON text, byte for byte `JSON.stringify(getSweep(…))`,
+ * or with `gzip` that text gzipped. The points' JSON is made once per cached sweep and the
+ * gzip once per cached sweep and head, not on every read: a 1,000-point sweep is about 300 kB of
+ * JSON, and serialising and compressing it was most of a read's CPU.
  */
-export async function getSweepJson(id: number, actor: SweepActor): Promise<string> {
+export async function getSweepBody(
+  id: number,
+  actor: SweepActor,
+  gzip: boolean,
+): Promise<SweepBody> {
   const { head, cached } = await sweepParts(id, actor);
   cached.json ??= JSON.stringify(cached.points);
-  return `${JSON.stringify(head).slice(0, -1)},"points":${cached.json}}`;
+  const headJson = JSON.stringify(head);
+  const tag = createHash('sha1').update(headJson).digest('base64url').slice(0, 20);
+  const etag = `W/"sweep-${id}-${cached.points.length}-${tag}"`;
+  const body = `${headJson.slice(0, -1)},"points":${cached.json}}`;
+  if (!gzip) return { body, gzipped: false, etag };
+  if (cached.gzipped?.head !== headJson) {
+    cached.gzipped = { head: headJson, bytes: await gzipAsync(body, { level: 6 }) };
+  }
+  return { body: cached.gzipped.bytes, gzipped: true, etag };
 }
 
 /** The original upload, byte for byte, with the name it was uploaded under. */
