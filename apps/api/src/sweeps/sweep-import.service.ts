@@ -190,7 +190,7 @@ export async function importSweep(
           sweepId: earlier.id,
         });
       }
-      // The raw bytes are sent now, so the store writes them while the rows are converted.
+      // The raw bytes go to the store first (awaited in storeSweep).
       const put = storage.put(input.file, { transaction });
       rawKey = put;
       put.catch(() => undefined); // awaited below; never an unhandled rejection
@@ -231,6 +231,9 @@ async function storeSweep(
 ): Promise<SweepCreatedResponse> {
   const constantCurrentA = parsed.recognised.currentA;
   const warnings: string[] = [];
+  // The raw bytes are written before the rows are converted: conversion keeps the event loop
+  // busy, and a write still queued in this process would only reach the store afterwards.
+  const storageKey = await rawKey;
   const station = await findStation(
     input.stationId,
     parsed.recognised.stationName,
@@ -272,7 +275,6 @@ async function storeSweep(
       p.flags.some((f) => f === 'jump' || f === 'temperature-reversal'),
     ).length,
   };
-  const storageKey = await rawKey;
   const sweep = await Sweep.create(
     {
       waferId: wafer.id,
