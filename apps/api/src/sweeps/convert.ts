@@ -151,18 +151,114 @@ function friendly(error: unknown): string {
 }
 
 /**
- * Converts every row. Returns the points, the row problems (at most `MAX_PROBLEMS`) and warnings.
- * Geometry that the physics refuses (a diameter under three probe spacings) is a 400.
+ * Converts rows to points a slice at a time, so that the caller can store one slice while the
+ * next is converted. Row problems are collected (at most `MAX_PROBLEMS`) across all slices;
+ * once there is one, no more points are given out and the caller must store nothing. A forward
+ * or reverse reading at the end of a slice waits for the next slice's first reading, its
+ * possible partner. Geometry that the physics refuses (a diameter under three probe spacings)
+ * is a 400.
  */
-export function convertRows(
+export class RowConverter {
+  /** Row problems found so far (at most `MAX_PROBLEMS`). */
+  readonly problems: RowProblem[];
+  private readonly unpaired: number[] = [];
+  /** A reading with a polarity whose partner may open the next slice. */
+  private held: Reading | null = null;
+  private emitted = 0;
+  private readonly read: (i: number) => Reading | null;
+  private readonly convert: (f: Reading, r?: Reading) => ConvertedPoint | null;
+
+  constructor(
+    private readonly parsed: ParsedSweepFile,
+    columns: ResolvedColumn[],
+    method: SweepMethod,
+    geometry: SweepGeometry,
+    constantCurrentA: number | undefined,
+  ) {
+    this.problems = [...parsed.problems];
+    this.read = readingReader(parsed, columns, method, geometry, constantCurrentA, this.problems);
+    this.convert = pointMaker(method, geometry, this.problems, columns);
+  }
+
+  /** True while more problems may still be collected. */
+  get open(): boolean {
+    return this.problems.length < MAX_PROBLEMS;
+  }
+
+  /** Converts records `start` to `end` (exclusive) and returns the points completed so far. */
+  next(start: number, end: number): ConvertedPoint[] {
+    const readings: Reading[] = this.held ? [this.held] : [];
+    this.held = null;
+    for (let i = start; i < end && this.open; i++) {
+      const reading = this.read(i);
+      if (reading) readings.push(reading);
+    }
+    if (this.problems.length) return [];
+    const last = readings[readings.length - 1];
+    if (last && last.polarity !== 0 && end < this.parsed.table.records.length) {
+      this.held = readings.pop()!;
+    }
+    return this.pointsOf(readings);
+  }
+
+  /** The points still held after the last slice, and the final check for an empty file. */
+  finish(): ConvertedPoint[] {
+    const rest = this.held && !this.problems.length ? this.pointsOf([this.held]) : [];
+    this.held = null;
+    if (this.problems.length === 0 && this.emitted === 0) {
+      this.problems.push(rowProblem(null, null, 'the file holds no data rows'));
+    }
+    return rest;
+  }
+
+  /** The warnings about the conversion itself (polarity readings left unpaired). */
+  get warnings(): string[] {
+    return this.unpaired.length
+      ? [
+          `${this.unpaired.length} reading(s) with a polarity but no opposite-polarity partner were stored on their own (rows ${listRows(this.unpaired)})`,
+        ]
+      : [];
+  }
+
+  /** Neighbouring forward and reverse readings form a pair; everything else stands alone. */
+  private pointsOf(readings: Reading[]): ConvertedPoint[] {
+    const points: ConvertedPoint[] = [];
+    for (let i = 0; i < readings.length && this.open; i++) {
+      const a = readings[i]!;
+      const b = readings[i + 1];
+      const paired = a.polarity !== 0 && b !== undefined && b.polarity === -a.polarity;
+      if (paired) i++;
+      const point = paired
+        ? a.polarity === 1
+          ? this.convert(a, b)
+          : this.convert(b, a)
+        : this.convert(a);
+      if (!point) continue;
+      if (paired) point.flags.push('polarity-averaged');
+      else if (a.polarity !== 0) {
+        point.flags.push('unpaired-polarity');
+        this.unpaired.push(a.row);
+      }
+      points.push(point);
+    }
+    if (this.problems.length) return [];
+    this.emitted += points.length;
+    return points;
+  }
+}
+
+/**
+ * A reader of one record as a reading in stored units; null after noting its problems (or for
+ * a row left out). Problems go to `problems`.
+ */
+function readingReader(
   parsed: ParsedSweepFile,
   columns: ResolvedColumn[],
   method: SweepMethod,
   geometry: SweepGeometry,
   constantCurrentA: number | undefined,
-): { points: ConvertedPoint[]; problems: RowProblem[]; warnings: string[] } {
-  const problems: RowProblem[] = [...parsed.problems];
-  const warnings: string[] = [];
+  problems: RowProblem[],
+): (i: number) => Reading | null {
   const mark = parsed.layout.decimalMark;
   const col = (m: ColumnMeaning) => columns.find((c) => c.meaning === m) ?? null;
   const tCol = col('temperature')!;
@@ -176,13 +272,11 @@ export function convertRows(
   const tUnit = tCol.unitInfo!;
   const rtd = tUnit.kind === 'resistance';
   const { records, lines } = parsed.table;
-  const readings: Reading[] = [];
-
   const ctx: CellContext = { cells: [], row: 0, bad: false, mark, problems };
   const num = (c: ResolvedColumn | null, required: boolean) =>
     c ? readCell(ctx, c, required) : null;
   const needVI = method === 'four-point' || method === 'bar';
-  for (let i = 0; i < records.length && problems.length < MAX_PROBLEMS; i++) {
+  return (i) => {
     const cells = records[i]!;
     const row = lines[i]!;
     ctx.cells = cells;
@@ -215,7 +309,7 @@ export function convertRows(
     const resistanceBOhm = num(rbCol, method === 'van-der-pauw');
     const sheetOhmSq = num(sCol, method === 'sheet-resistance');
     const resistivityOhmCm = num(rhoCol, method === 'resistivity');
-    if (ctx.bad || tRaw === null) continue;
+    if (ctx.bad || tRaw === null) return null;
 
     let temperatureK: number;
     try {
@@ -229,13 +323,13 @@ export function convertRows(
       problems.push(
         rowProblem(row, tCol.header, `the temperature cannot be converted: ${friendly(error)}`),
       );
-      continue;
+      return null;
     }
     if (!(temperatureK > 0)) {
       problems.push(
         rowProblem(row, tCol.header, `the temperature is at or below 0 K (${temperatureK} K)`),
       );
-      continue;
+      return null;
     }
     if (currentA !== null && iCol) {
       // A reverse reading may give the current as a magnitude; it flows the other way.
@@ -251,7 +345,7 @@ export function convertRows(
               : `the current must not be zero or point the wrong way (${currentA} A)`,
           ),
         );
-        continue;
+        return null;
       }
     }
     if (
@@ -260,9 +354,9 @@ export function convertRows(
       positiveOrReport(ctx, sCol, sheetOhmSq) ||
       positiveOrReport(ctx, rhoCol, resistivityOhmCm)
     ) {
-      continue;
+      return null;
     }
-    readings.push({
+    return {
       record: i,
       row,
       temperatureK,
@@ -273,39 +367,27 @@ export function convertRows(
       resistanceBOhm,
       sheetOhmSq,
       resistivityOhmCm,
-    });
-  }
+    };
+  };
+}
 
-  const points: ConvertedPoint[] = [];
-  if (problems.length === 0) {
-    const unpaired: number[] = [];
-    const convert = pointMaker(method, geometry, problems, columns);
-    // Neighbouring forward and reverse readings form a pair; everything else stands alone.
-    for (let i = 0; i < readings.length && problems.length < MAX_PROBLEMS; i++) {
-      const a = readings[i]!;
-      const b = readings[i + 1];
-      const paired = a.polarity !== 0 && b !== undefined && b.polarity === -a.polarity;
-      if (paired) i++;
-      const point = paired ? (a.polarity === 1 ? convert(a, b) : convert(b, a)) : convert(a);
-      if (!point) continue;
-      if (paired) point.flags.push('polarity-averaged');
-      else if (a.polarity !== 0) {
-        point.flags.push('unpaired-polarity');
-        unpaired.push(a.row);
-      }
-      points.push(point);
-    }
-    if (unpaired.length) {
-      warnings.push(
-        `${unpaired.length} reading(s) with a polarity but no opposite-polarity partner were stored on their own (rows ${listRows(unpaired)})`,
-      );
-    }
-  }
-  if (problems.length === 0 && points.length === 0) {
-    problems.push(rowProblem(null, null, 'the file holds no data rows'));
-  }
-  if (problems.length === 0) warnings.push(...flagSuspiciousPoints(points));
-  return { points, problems: problems.slice(0, MAX_PROBLEMS), warnings };
+/**
+ * Converts every row at once: the points, the row problems (at most `MAX_PROBLEMS`) and the
+ * warnings, with suspicious points flagged. The import converts slice by slice instead.
+ */
+export function convertRows(
+  parsed: ParsedSweepFile,
+  columns: ResolvedColumn[],
+  method: SweepMethod,
+  geometry: SweepGeometry,
+  constantCurrentA: number | undefined,
+): { points: ConvertedPoint[]; problems: RowProblem[]; warnings: string[] } {
+  const converter = new RowConverter(parsed, columns, method, geometry, constantCurrentA);
+  const points = converter.next(0, parsed.table.records.length);
+  points.push(...converter.finish());
+  const problems = converter.problems.slice(0, MAX_PROBLEMS);
+  if (problems.length) return { points: [], problems, warnings: [] };
+  return { points, problems, warnings: [...converter.warnings, ...flagSuspiciousPoints(points)] };
 }
 
 /** Row numbers for a warning, the first ten and a count of the rest. */

@@ -8,12 +8,64 @@ import type { ConvertedPoint } from './convert';
 /** A step against the ramp direction larger than this is a reversal (thermometer noise is less). */
 export const REVERSAL_TOLERANCE_K = 0.5;
 
-function rows(points: ConvertedPoint[]): string {
-  const shown = points
-    .slice(0, 10)
-    .map((p) => p.sourceRows[0])
-    .join(', ');
-  return points.length > 10 ? `${shown} and ${points.length - 10} more` : shown;
+function rows(list: number[]): string {
+  const shown = list.slice(0, 10).join(', ');
+  return list.length > 10 ? `${shown} and ${list.length - 10} more` : shown;
+}
+
+/**
+ * Finds suspicious points as they come, for an import that stores them slice by slice: a jump
+ * is flagged on the point itself as it is added (it needs only the previous point); a reversal
+ * needs the ramp direction, from the first to the last point, so `finish` names those.
+ */
+export class SuspiciousPointFinder {
+  private previous: ConvertedPoint | null = null;
+  private readonly temperatures: number[] = [];
+  private readonly rows: number[] = [];
+  private readonly jumps: number[] = [];
+
+  /** Takes the next point, adding its `jump` flag in place. */
+  add(point: ConvertedPoint): void {
+    const prev = this.previous;
+    if (prev) {
+      const ratio = point.resistivityOhmCm / prev.resistivityOhmCm;
+      if (ratio > JUMP_FACTOR || ratio < 1 / JUMP_FACTOR) {
+        point.flags.push('jump');
+        this.jumps.push(this.rows.length);
+      }
+    }
+    this.previous = point;
+    this.temperatures.push(point.temperatureK);
+    this.rows.push(point.sourceRows[0]!);
+  }
+
+  /**
+   * After the last point: the positions (0-based, in the order added) of the points that go
+   * against the ramp, how many points carry either flag, and one warning per kind.
+   */
+  finish(): { reversals: number[]; flagged: number; warnings: string[] } {
+    const t = this.temperatures;
+    const reversals: number[] = [];
+    const direction = t.length < 2 ? 0 : Math.sign(t[t.length - 1]! - t[0]!);
+    if (direction !== 0) {
+      for (let i = 1; i < t.length; i++) {
+        if ((t[i]! - t[i - 1]!) * direction < -REVERSAL_TOLERANCE_K) reversals.push(i);
+      }
+    }
+    const warnings: string[] = [];
+    if (this.jumps.length) {
+      warnings.push(
+        `${this.jumps.length} point(s) differ from the previous one by more than ${JUMP_FACTOR} times in resistivity (rows ${rows(this.jumps.map((i) => this.rows[i]!))})`,
+      );
+    }
+    if (reversals.length) {
+      warnings.push(
+        `the temperature goes against the ramp at ${reversals.length} point(s) (rows ${rows(reversals.map((i) => this.rows[i]!))})`,
+      );
+    }
+    const flagged = new Set([...this.jumps, ...reversals]).size;
+    return { reversals, flagged, warnings };
+  }
 }
 
 /**
@@ -21,36 +73,9 @@ function rows(points: ConvertedPoint[]): string {
  * The ramp direction is that from the first to the last point.
  */
 export function flagSuspiciousPoints(points: ConvertedPoint[]): string[] {
-  const warnings: string[] = [];
-  if (points.length < 2) return warnings;
-  const direction = Math.sign(points[points.length - 1]!.temperatureK - points[0]!.temperatureK);
-  const jumps: ConvertedPoint[] = [];
-  const reversals: ConvertedPoint[] = [];
-  for (let i = 1; i < points.length; i++) {
-    const prev = points[i - 1]!;
-    const p = points[i]!;
-    const ratio = p.resistivityOhmCm / prev.resistivityOhmCm;
-    if (ratio > JUMP_FACTOR || ratio < 1 / JUMP_FACTOR) {
-      p.flags.push('jump');
-      jumps.push(p);
-    }
-    if (
-      direction !== 0 &&
-      (p.temperatureK - prev.temperatureK) * direction < -REVERSAL_TOLERANCE_K
-    ) {
-      p.flags.push('temperature-reversal');
-      reversals.push(p);
-    }
-  }
-  if (jumps.length) {
-    warnings.push(
-      `${jumps.length} point(s) differ from the previous one by more than ${JUMP_FACTOR} times in resistivity (rows ${rows(jumps)})`,
-    );
-  }
-  if (reversals.length) {
-    warnings.push(
-      `the temperature goes against the ramp at ${reversals.length} point(s) (rows ${rows(reversals)})`,
-    );
-  }
+  const finder = new SuspiciousPointFinder();
+  for (const p of points) finder.add(p);
+  const { reversals, warnings } = finder.finish();
+  for (const i of reversals) points[i]!.flags.push('temperature-reversal');
   return warnings;
 }
