@@ -24,43 +24,83 @@ interface BatchConnection {
  */
 export const POINT_CHUNK = 10_000;
 
+/** Batches one writer keeps on the connection before it waits for the oldest to finish. */
+export const POINT_BATCHES_IN_FLIGHT = 2;
+
 /**
- * Inserts the points of sweep `sweepId` inside `transaction`. `rawOf` gives each point's raw
- * JSON document. Rejects with the first failing chunk's error once every chunk has settled, so
- * the caller's rollback never races a write still in flight.
+ * Writes a sweep's points as they are converted, slice by slice, numbering them on from the
+ * points before. Each slice goes out as batch inserts pipelined on the transaction's
+ * connection; the writer yields to the event loop after each so the socket sends it while the
+ * next slice is converted, and it waits once `POINT_BATCHES_IN_FLIGHT` are outstanding, so
+ * the conversion never runs far ahead of the database. A failed batch fails the next `write`
+ * or `finish`, but only after every batch sent has settled, so a rollback never races a write.
  */
-export async function insertPoints(
-  sweepId: number,
-  points: ConvertedPoint[],
-  rawOf: (point: ConvertedPoint) => string,
-  transaction: Transaction,
-): Promise<void> {
-  const connection = (transaction as unknown as { connection: BatchConnection }).connection;
-  const pending: Array<Promise<unknown>> = [];
-  for (let start = 0; start < points.length; start += POINT_CHUNK) {
-    const end = Math.min(points.length, start + POINT_CHUNK);
-    const rows: unknown[][] = new Array<unknown[]>(end - start);
-    for (let i = start; i < end; i++) {
-      const p = points[i]!;
-      rows[i - start] = [
-        sweepId,
-        i + 1,
-        p.sourceRows[0],
-        p.temperatureK,
-        p.currentA,
-        p.voltageV,
-        p.resistanceOhm,
-        p.sheetResistanceOhmSq,
-        p.resistivityOhmCm,
-        rawOf(p),
-        p.flags.length === 0 ? '' : p.flags.join(','),
-      ];
-    }
-    const sent = connection.batch(INSERT_POINTS, rows);
-    sent.catch(() => undefined); // settled below; never an unhandled rejection meanwhile
-    pending.push(sent);
-    await new Promise((resolve) => setImmediate(resolve));
+export class PointWriter {
+  private readonly connection: BatchConnection;
+  private readonly inFlight: Array<Promise<void>> = [];
+  private failure: { error: unknown } | null = null;
+  private written = 0;
+
+  constructor(
+    private readonly sweepId: number,
+    private readonly rawOf: (point: ConvertedPoint) => string,
+    transaction: Transaction,
+  ) {
+    this.connection = (transaction as unknown as { connection: BatchConnection }).connection;
   }
-  const settled = await Promise.allSettled(pending);
-  for (const outcome of settled) if (outcome.status === 'rejected') throw outcome.reason;
+
+  /** Sends `points` after those written before. */
+  async write(points: ConvertedPoint[]): Promise<void> {
+    await this.throwIfFailed();
+    for (let start = 0; start < points.length; start += POINT_CHUNK) {
+      const end = Math.min(points.length, start + POINT_CHUNK);
+      const rows: unknown[][] = new Array<unknown[]>(end - start);
+      for (let i = start; i < end; i++) {
+        const p = points[i]!;
+        this.written += 1;
+        rows[i - start] = [
+          this.sweepId,
+          this.written,
+          p.sourceRows[0],
+          p.temperatureK,
+          p.currentA,
+          p.voltageV,
+          p.resistanceOhm,
+          p.sheetResistanceOhmSq,
+          p.resistivityOhmCm,
+          this.rawOf(p),
+          p.flags.length === 0 ? '' : p.flags.join(','),
+        ];
+      }
+      this.inFlight.push(
+        this.connection.batch(INSERT_POINTS, rows).then(
+          () => undefined,
+          (error: unknown) => {
+            this.failure ??= { error };
+          },
+        ),
+      );
+      await new Promise((resolve) => setImmediate(resolve));
+      while (this.inFlight.length > POINT_BATCHES_IN_FLIGHT) await this.inFlight.shift();
+      await this.throwIfFailed();
+    }
+  }
+
+  /** Waits for every batch; resolves with the number of points written. */
+  async finish(): Promise<number> {
+    await this.settle();
+    await this.throwIfFailed();
+    return this.written;
+  }
+
+  /** Waits for every batch sent, ignoring failures (before a rollback). */
+  async settle(): Promise<void> {
+    while (this.inFlight.length) await this.inFlight.shift();
+  }
+
+  private async throwIfFailed(): Promise<void> {
+    if (!this.failure) return;
+    await this.settle();
+    throw this.failure.error;
+  }
 }

@@ -21,9 +21,10 @@ import { uploadRawStorage } from '../storage/storage';
 import type { RawStorage } from '../storage/raw-storage';
 import { visibleWafer } from '../wafers/wafer-access.service';
 import { Wafer } from '../wafers/wafer.model';
-import { convertRows, requireColumns, type ConvertedPoint } from './convert';
+import { RowConverter, requireColumns, type ConvertedPoint } from './convert';
 import {
   applyColumnOverrides,
+  MAX_PROBLEMS,
   parseSweepFile,
   readNumber,
   unreadableCells,
@@ -31,7 +32,8 @@ import {
   type ParsedSweepFile,
   type ResolvedColumn,
 } from './parse';
-import { insertPoints } from './point-writer';
+import { SuspiciousPointFinder } from './point-flags';
+import { POINT_CHUNK, PointWriter } from './point-writer';
 import { resolveGeometry } from './sweep-geometry';
 import { Sweep } from './sweep.model';
 
@@ -138,6 +140,25 @@ function rawJson(parsed: ParsedSweepFile): (p: ConvertedPoint) => string {
       : JSON.stringify({ rows: p.sourceRows, cells: p.recordIndexes.map((i) => records[i]) });
 }
 
+/** Positions (0-based, in stored order) of the points to mark per update statement. */
+const REVERSAL_UPDATE_ROWS = 5_000;
+
+/** Adds the `temperature-reversal` flag to the points at `positions` (after any flags they have). */
+async function markReversals(
+  sweepId: number,
+  positions: number[],
+  transaction: Transaction,
+): Promise<void> {
+  for (let start = 0; start < positions.length; start += REVERSAL_UPDATE_ROWS) {
+    const sequences = positions.slice(start, start + REVERSAL_UPDATE_ROWS).map((i) => i + 1);
+    await Sweep.sequelize!.query(
+      "UPDATE sweep_points SET flags = IF(flags = '', 'temperature-reversal', " +
+        "CONCAT(flags, ',temperature-reversal')) WHERE sweep_id = ? AND sequence IN (?)",
+      { replacements: [sweepId, sequences], transaction },
+    );
+  }
+}
+
 /** Removes an object-store copy whose transaction did not commit; never masks the cause. */
 async function discardRaw(storage: RawStorage, key: Promise<string>): Promise<void> {
   try {
@@ -224,16 +245,23 @@ interface StoreContext {
   lot: Awaited<ReturnType<typeof visibleWafer>>['lot'];
 }
 
-/** Converts the rows and stores the sweep, its points and the audit event. */
+/** Records converted per slice: one slice is stored while the next is converted. */
+export const IMPORT_SLICE_ROWS = POINT_CHUNK;
+
+/**
+ * Converts the rows and stores the sweep, its points and the audit event. The conversion and
+ * the point writes overlap slice by slice (the database inserts one slice while this process
+ * converts the next); a row problem anywhere still stores nothing, since the caller's
+ * transaction rolls back. The sweep row is written with the first slice and completed (count,
+ * temperature range, report) after the last; points that go against the ramp, known only
+ * then, get their flag in one update.
+ */
 async function storeSweep(
   { input, actor, parsed, columns, sha256, storage, rawKey, wafer, lot }: StoreContext,
   transaction: Transaction,
 ): Promise<SweepCreatedResponse> {
   const constantCurrentA = parsed.recognised.currentA;
   const warnings: string[] = [];
-  // The raw bytes are written before the rows are converted: conversion keeps the event loop
-  // busy, and a write still queued in this process would only reach the store afterwards.
-  const storageKey = await rawKey;
   const station = await findStation(
     input.stationId,
     parsed.recognised.stationName,
@@ -250,54 +278,79 @@ async function storeSweep(
     file: parsed.recognised,
     needsRtd: tCol.unitInfo?.kind === 'resistance',
   });
-  const converted = convertRows(parsed, columns, input.method, geometry, constantCurrentA);
-  if (converted.problems.length) {
-    throw unprocessable(
-      'Some rows hold values that cannot be stored; nothing was stored',
-      converted.problems,
-    );
-  }
-  warnings.push(...converted.warnings);
-  const points = converted.points;
+  const converter = new RowConverter(parsed, columns, input.method, geometry, constantCurrentA);
+  const finder = new SuspiciousPointFinder();
   let minK = Infinity;
   let maxK = -Infinity;
-  for (const p of points) {
-    if (p.temperatureK < minK) minK = p.temperatureK;
-    if (p.temperatureK > maxK) maxK = p.temperatureK;
+  let stored: { sweep: Sweep; writer: PointWriter } | null = null;
+  const take = async (points: ConvertedPoint[]) => {
+    for (const p of points) {
+      finder.add(p);
+      if (p.temperatureK < minK) minK = p.temperatureK;
+      if (p.temperatureK > maxK) maxK = p.temperatureK;
+    }
+    if (!points.length) return;
+    if (!stored) {
+      const sweep = await Sweep.create(
+        {
+          waferId: wafer.id,
+          stationId: station?.id ?? null,
+          method: input.method,
+          geometry,
+          uploadedById: actor.id,
+          originalName: input.originalName.slice(0, 255) || 'sweep.csv',
+          sizeBytes: input.file.length,
+          sha256,
+          storageKind: storage.kind,
+          storageKey: await rawKey,
+          columnMapping: publicColumns(columns),
+          metadata: parsed.layout.metadata,
+          parseReport: {},
+          pointCount: 0,
+          minTemperatureK: null,
+          maxTemperatureK: null,
+          deletedById: null,
+        },
+        { transaction },
+      );
+      stored = { sweep, writer: new PointWriter(sweep.id, rawJson(parsed), transaction) };
+    }
+    await stored.writer.write(points);
+  };
+  const total = parsed.table.records.length;
+  try {
+    for (let start = 0; start < total && converter.open; start += IMPORT_SLICE_ROWS) {
+      await take(converter.next(start, Math.min(total, start + IMPORT_SLICE_ROWS)));
+    }
+    await take(converter.finish());
+    if (converter.problems.length) {
+      throw unprocessable(
+        'Some rows hold values that cannot be stored; nothing was stored',
+        converter.problems.slice(0, MAX_PROBLEMS),
+      );
+    }
+  } catch (error) {
+    // every batch sent settles before the caller's rollback runs on the same connection
+    await (stored as { writer: PointWriter } | null)?.writer.settle();
+    throw error;
   }
+  const { sweep, writer } = stored!;
+  const pointCount = await writer.finish();
+  const flags = finder.finish();
+  await markReversals(sweep.id, flags.reversals, transaction);
+  warnings.push(...converter.warnings, ...flags.warnings);
   const parseReport: SweepParseReport = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,
     headerRow: parsed.layout.headerLine,
-    rowCount: parsed.table.records.length,
+    rowCount: total,
     warnings,
-    flaggedPoints: points.filter((p) =>
-      p.flags.some((f) => f === 'jump' || f === 'temperature-reversal'),
-    ).length,
+    flaggedPoints: flags.flagged,
   };
-  const sweep = await Sweep.create(
-    {
-      waferId: wafer.id,
-      stationId: station?.id ?? null,
-      method: input.method,
-      geometry,
-      uploadedById: actor.id,
-      originalName: input.originalName.slice(0, 255) || 'sweep.csv',
-      sizeBytes: input.file.length,
-      sha256,
-      storageKind: storage.kind,
-      storageKey,
-      columnMapping: publicColumns(columns),
-      metadata: parsed.layout.metadata,
-      parseReport,
-      pointCount: points.length,
-      minTemperatureK: minK,
-      maxTemperatureK: maxK,
-      deletedById: null,
-    },
+  await sweep.update(
+    { pointCount, minTemperatureK: minK, maxTemperatureK: maxK, parseReport },
     { transaction },
   );
-  await insertPoints(sweep.id, points, rawJson(parsed), transaction);
   await recordAudit(
     {
       actorId: actor.id,
@@ -309,7 +362,7 @@ async function storeSweep(
         method: input.method,
         originalName: sweep.originalName,
         sha256,
-        pointCount: points.length,
+        pointCount,
         stationId: sweep.stationId,
         geometry,
       },
@@ -317,5 +370,5 @@ async function storeSweep(
     },
     transaction,
   );
-  return { id: sweep.id, pointCount: points.length, warnings };
+  return { id: sweep.id, pointCount, warnings };
 }
