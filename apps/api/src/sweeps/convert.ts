@@ -185,8 +185,15 @@ export class RowConverter {
     return this.problems.length < MAX_PROBLEMS;
   }
 
-  /** Converts records `start` to `end` (exclusive) and returns the points completed so far. */
-  next(start: number, end: number): ConvertedPoint[] {
+  /**
+   * Converts records `start` to `end` (exclusive) and returns the points completed so far;
+   * `more` tells whether records follow (read or not yet read).
+   */
+  next(
+    start: number,
+    end: number,
+    more = end < this.parsed.table.records.length,
+  ): ConvertedPoint[] {
     const readings: Reading[] = this.held ? [this.held] : [];
     this.held = null;
     for (let i = start; i < end && this.open; i++) {
@@ -195,7 +202,7 @@ export class RowConverter {
     }
     if (this.problems.length) return [];
     const last = readings[readings.length - 1];
-    if (last && last.polarity !== 0 && end < this.parsed.table.records.length) {
+    if (last && last.polarity !== 0 && more) {
       this.held = readings.pop()!;
     }
     return this.pointsOf(readings);

@@ -4,6 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import type {
+  RowProblem,
   SessionUser,
   SweepColumn,
   SweepColumnOverride,
@@ -25,6 +26,8 @@ import { RowConverter, requireColumns, type ConvertedPoint } from './convert';
 import {
   applyColumnOverrides,
   MAX_PROBLEMS,
+  openSweepFile,
+  type OpenedSweepFile,
   parseSweepFile,
   readNumber,
   unreadableCells,
@@ -54,9 +57,10 @@ export interface ImportSweepInput {
 /** The signed-in user, with the request id the audit event records. */
 export type SweepActor = SessionUser & { requestId?: string | null };
 
-function readFile(file: Buffer): ParsedSweepFile {
+/** Runs a step of reading the file, with its errors as the API's 400 or 422. */
+function reading<T>(step: () => T): T {
   try {
-    return parseSweepFile(file);
+    return step();
   } catch (error) {
     if (error instanceof UnreadableFileError) {
       throw error.status === 400
@@ -65,6 +69,10 @@ function readFile(file: Buffer): ParsedSweepFile {
     }
     throw error;
   }
+}
+
+function readFile(file: Buffer): ParsedSweepFile {
+  return reading(() => parseSweepFile(file));
 }
 
 function publicColumns(columns: ResolvedColumn[]): SweepColumn[] {
@@ -140,6 +148,14 @@ function rawJson(parsed: ParsedSweepFile): (p: ConvertedPoint) => string {
       : JSON.stringify({ rows: p.sourceRows, cells: p.recordIndexes.map((i) => records[i]) });
 }
 
+/** The 422 for rows that cannot be read (a wrong number of values). */
+function unreadableRows(problems: RowProblem[]) {
+  return unprocessable(
+    'Some rows cannot be read; nothing was stored',
+    problems.slice(0, MAX_PROBLEMS),
+  );
+}
+
 /** Positions (0-based, in stored order) of the points to mark per update statement. */
 const REVERSAL_UPDATE_ROWS = 5_000;
 
@@ -182,19 +198,16 @@ export async function importSweep(
   options: { storage?: RawStorage } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
-  const parsed = readFile(input.file);
+  // the rest of the file is read slice by slice while the first slices are stored
+  const file = reading(() => openSweepFile(input.file, IMPORT_SLICE_ROWS));
+  const parsed = file.parsed;
   const mapped = applyColumnOverrides(parsed.columns, input.columns ?? []);
   if (mapped.problems.length)
     throw validationFailed('The column mapping is not valid', mapped.problems);
   const columns = mapped.columns;
   const constantCurrentA = parsed.recognised.currentA;
   requireColumns(input.method, columns, constantCurrentA);
-  if (parsed.problems.length) {
-    throw unprocessable(
-      'Some rows cannot be read; nothing was stored',
-      parsed.problems.slice(0, 50),
-    );
-  }
+  if (parsed.problems.length) throw unreadableRows(parsed.problems);
   const sha256 = createHash('sha256').update(input.file).digest('hex');
   const sequelize = Sweep.sequelize!;
 
@@ -217,7 +230,7 @@ export async function importSweep(
       put.catch(() => undefined); // awaited below; never an unhandled rejection
       try {
         return await storeSweep(
-          { input, actor, parsed, columns, sha256, storage, rawKey: put, wafer, lot },
+          { input, actor, file, columns, sha256, storage, rawKey: put, wafer, lot },
           transaction,
         );
       } catch (error) {
@@ -236,7 +249,7 @@ export async function importSweep(
 interface StoreContext {
   input: ImportSweepInput;
   actor: SweepActor;
-  parsed: ParsedSweepFile;
+  file: OpenedSweepFile;
   columns: ResolvedColumn[];
   sha256: string;
   storage: RawStorage;
@@ -257,9 +270,10 @@ export const IMPORT_SLICE_ROWS = POINT_CHUNK;
  * then, get their flag in one update.
  */
 async function storeSweep(
-  { input, actor, parsed, columns, sha256, storage, rawKey, wafer, lot }: StoreContext,
+  { input, actor, file, columns, sha256, storage, rawKey, wafer, lot }: StoreContext,
   transaction: Transaction,
 ): Promise<SweepCreatedResponse> {
+  const parsed = file.parsed;
   const constantCurrentA = parsed.recognised.currentA;
   const warnings: string[] = [];
   const station = await findStation(
@@ -317,10 +331,22 @@ async function storeSweep(
     }
     await stored.writer.write(points);
   };
-  const total = parsed.table.records.length;
+  const records = parsed.table.records;
   try {
-    for (let start = 0; start < total && converter.open; start += IMPORT_SLICE_ROWS) {
-      await take(converter.next(start, Math.min(total, start + IMPORT_SLICE_ROWS)));
+    for (let start = 0; converter.open; start += IMPORT_SLICE_ROWS) {
+      const end = start + IMPORT_SLICE_ROWS;
+      while (!file.done && records.length < end) reading(() => file.readMore(IMPORT_SLICE_ROWS));
+      if (parsed.problems.length) break;
+      if (start >= records.length) break;
+      const more = !file.done || end < records.length;
+      await take(converter.next(start, Math.min(records.length, end), more));
+    }
+    if (parsed.problems.length) {
+      // a row of the wrong width: read on only to name the others, as a whole-file read would
+      while (!file.done && parsed.problems.length < MAX_PROBLEMS) {
+        reading(() => file.readMore(IMPORT_SLICE_ROWS));
+      }
+      throw unreadableRows(parsed.problems);
     }
     await take(converter.finish());
     if (converter.problems.length) {
@@ -343,7 +369,7 @@ async function storeSweep(
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,
     headerRow: parsed.layout.headerLine,
-    rowCount: total,
+    rowCount: records.length,
     warnings,
     flaggedPoints: flags.flagged,
   };

@@ -14,7 +14,7 @@ import { makeWafer } from './sweep-test-helpers';
 const PAIRS = IMPORT_SLICE_ROWS; // 1 lone reading + 2 × PAIRS rows: the pair at 9,999/10,000 straddles
 const HEADER_LINES = 2; // a comment line, then the header
 
-function pairFile(options: { badRecord?: number } = {}): Buffer {
+function pairFile(options: { badRecord?: number; shortRecords?: number[] } = {}): Buffer {
   const lines = [
     `# slice test ${process.pid}-${Date.now()}`,
     'temperature_K,current_A,voltage_V,polarity',
@@ -32,6 +32,7 @@ function pairFile(options: { badRecord?: number } = {}): Buffer {
   if (options.badRecord !== undefined) {
     lines[HEADER_LINES + options.badRecord] = '112.5,1.000e-3,OVERLOAD,+';
   }
+  for (const r of options.shortRecords ?? []) lines[HEADER_LINES + r] = '112.5,1.000e-3';
   return Buffer.from(`${lines.join('\n')}\n`);
 }
 
@@ -126,6 +127,15 @@ describe('importing a file larger than one slice', () => {
         column: 'voltage_V',
         problem: '"OVERLOAD" is not a number',
       }),
+    ]);
+    expect({ sweeps: await count('sweeps'), points: await count('sweep_points') }).toEqual(before);
+    // rows of the wrong width, read only after the first slices were stored, are named too
+    const short = await upload(wafer.id, pairFile({ shortRecords: [12_000, 19_999] }));
+    expect(short.status).toBe(422);
+    expect(short.body.error.message).toBe('Some rows cannot be read; nothing was stored');
+    expect(short.body.error.details.map((d: { row: number }) => d.row)).toEqual([
+      12_000 + HEADER_LINES + 1,
+      19_999 + HEADER_LINES + 1,
     ]);
     expect({ sweeps: await count('sweeps'), points: await count('sweep_points') }).toEqual(before);
     // and the same file without the bad row goes in afterwards

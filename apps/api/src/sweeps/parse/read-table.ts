@@ -78,19 +78,71 @@ function parseOrRefuse<T>(
   }
 }
 
-/**
- * Parses the data section. Without csv-parse's per-record info (three times slower) a record
- * is one line; a quoted field spanning lines breaks that, so then the slower path runs.
- */
+/** Parses the data section as a whole. */
 export function readDataTable(text: string, layout: FileLayout): DataTable {
-  const data = text.slice(layout.dataOffset);
+  const reader = new DataTableReader(text, layout);
+  reader.readMore(Infinity);
+  return reader.table;
+}
+
+/**
+ * Reads the data section a stretch of lines at a time (`readMore`), appending to `table`, so an
+ * import can store what it has read while it reads on. Line-aligned stretches are safe only
+ * when no quoted field can span lines: a data section holding a double quote anywhere is read
+ * in one go.
+ */
+export class DataTableReader {
+  readonly table: DataTable = { records: [], lines: [] };
+  private offset: number;
+  private line: number;
+  private readonly whole: boolean;
+
+  constructor(
+    private readonly text: string,
+    private readonly layout: FileLayout,
+  ) {
+    this.offset = layout.dataOffset;
+    this.line = layout.dataLine;
+    this.whole = text.indexOf('"', layout.dataOffset) !== -1;
+  }
+
+  /** True once the whole data section has been read. */
+  get done(): boolean {
+    return this.offset >= this.text.length;
+  }
+
+  /** Reads about `lines` more lines (all that are left with `Infinity`). */
+  readMore(lines: number): void {
+    if (this.done) return;
+    let end = this.text.length;
+    if (!this.whole && Number.isFinite(lines)) {
+      let at = this.offset - 1;
+      for (let n = 0; n < lines; n++) {
+        at = this.text.indexOf('\n', at + 1);
+        if (at === -1) break;
+      }
+      if (at !== -1) end = at + 1;
+    }
+    const data = this.text.slice(this.offset, end);
+    const read = parseStretch(data, this.layout.delimiter, this.line);
+    for (let i = 0; i < read.records.length; i++) {
+      this.table.records.push(read.records[i]!);
+      this.table.lines.push(read.lines[i]!);
+    }
+    this.line += countLines(data);
+    this.offset = end;
+  }
+}
+
+/** One stretch of data lines, starting at file line `firstLine`, as records with their lines. */
+function parseStretch(data: string, delimiter: string, firstLine: number): DataTable {
   const options = {
-    delimiter: layout.delimiter,
+    delimiter,
     relax_column_count: true,
     relax_quotes: true,
     skip_empty_lines: false,
   } as const;
-  const records = parseOrRefuse<string[][]>(data, options, layout.dataLine);
+  const records = parseOrRefuse<string[][]>(data, options, firstLine);
   const lines: number[] = [];
   const kept: string[][] = [];
   if (records.length === countLines(data)) {
@@ -98,21 +150,21 @@ export function readDataTable(text: string, layout: FileLayout): DataTable {
       const r = records[i]!;
       if (isBlankOrComment(r)) continue;
       kept.push(r);
-      lines.push(layout.dataLine + i);
+      lines.push(firstLine + i);
     }
     return { records: kept, lines };
   }
   const withInfo = parseOrRefuse<Array<{ record: string[]; info: { lines: number } }>>(
     data,
     { ...options, info: true },
-    layout.dataLine,
+    firstLine,
   );
   // `info.lines` is where a record ends; it starts on the line after the previous one ended.
   let start = 1;
   for (const { record, info } of withInfo) {
     if (!isBlankOrComment(record)) {
       kept.push(record);
-      lines.push(layout.dataLine + start - 1);
+      lines.push(firstLine + start - 1);
     }
     start = info.lines + 1;
   }

@@ -19,7 +19,7 @@ import { decodeText, UnreadableFileError } from './decode';
 import { detectLayout, type FileLayout } from './layout';
 import { recogniseMetadata, type RecognisedMetadata } from './metadata';
 import { readNumber } from './numbers';
-import { readDataTable, type DataTable } from './read-table';
+import { DataTableReader, type DataTable } from './read-table';
 import { parseUnit } from './units';
 
 /** Most problems listed in one answer; the count says how many there were. */
@@ -45,9 +45,22 @@ export function rowProblem(row: number | null, column: string | null, problem: s
 }
 
 /**
- * Reads a sweep export. Throws `UnreadableFileError` for empty, binary and shapeless files.
+ * A sweep file opened for reading a stretch at a time: `parsed.table` and `parsed.problems`
+ * grow with each `readMore`, until `done`.
  */
-export function parseSweepFile(bytes: Buffer): ParsedSweepFile {
+export interface OpenedSweepFile {
+  parsed: ParsedSweepFile;
+  readonly done: boolean;
+  /** Reads about `lines` more lines of the data section. */
+  readMore(lines: number): void;
+}
+
+/**
+ * Decodes the file, finds its layout and columns and reads the first `firstLines` lines of data
+ * (at least one record when there is one). Throws `UnreadableFileError` for a file with no
+ * rows of numbers.
+ */
+export function openSweepFile(bytes: Buffer, firstLines = Infinity): OpenedSweepFile {
   const text = decodeText(bytes);
   const layout = detectLayout(text);
   if (!layout) {
@@ -56,21 +69,29 @@ export function parseSweepFile(bytes: Buffer): ParsedSweepFile {
         'commas, semicolons or tabs, with one reading per line.',
     );
   }
-  const table = readDataTable(text, layout);
+  const reader = new DataTableReader(text, layout);
+  const table = reader.table;
+  do reader.readMore(firstLines);
+  while (!reader.done && table.records.length === 0);
   const width = Math.max(layout.headers.length, table.records[0]?.length ?? 0);
   const columns = guessColumns(layout.headers, layout.units, width);
   const recognised = recogniseMetadata(layout.metadata);
   const problems: RowProblem[] = [];
-  for (let i = 0; i < table.records.length; i++) {
-    const n = table.records[i]!.length;
-    if (
-      n !== width &&
-      !(n > width && table.records[i]!.slice(width).every((c) => c.trim() === ''))
-    ) {
-      problems.push(rowProblem(table.lines[i]!, null, `expected ${width} values, found ${n}`));
+  let checked = 0;
+  /** Rows whose number of cells differs from the header (extra empty cells are fine). */
+  const checkWidths = () => {
+    for (; checked < table.records.length && problems.length < MAX_PROBLEMS; checked++) {
+      const record = table.records[checked]!;
+      const n = record.length;
+      if (n !== width && !(n > width && record.slice(width).every((c) => c.trim() === ''))) {
+        problems.push(
+          rowProblem(table.lines[checked]!, null, `expected ${width} values, found ${n}`),
+        );
+      }
     }
-  }
-  return {
+  };
+  checkWidths();
+  const parsed: ParsedSweepFile = {
     layout,
     columns,
     table,
@@ -78,6 +99,21 @@ export function parseSweepFile(bytes: Buffer): ParsedSweepFile {
     suggestedMethod: suggestMethod(columns, recognised.method ?? null),
     problems,
   };
+  return {
+    parsed,
+    get done() {
+      return reader.done;
+    },
+    readMore(lines: number) {
+      reader.readMore(lines);
+      checkWidths();
+    },
+  };
+}
+
+/** Reads the whole file: layout, columns, every data row and the rows of the wrong width. */
+export function parseSweepFile(bytes: Buffer): ParsedSweepFile {
+  return openSweepFile(bytes).parsed;
 }
 
 /**
