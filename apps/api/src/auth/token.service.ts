@@ -5,7 +5,8 @@ import type { SessionUser } from '@rhotrace/api-types';
 const keys = new Map<string, KeyObject>();
 /**
  * The secret as a KeyObject, made once: given a plain string, jsonwebtoken first tries to read
- * it as a public key on every call, which costs about a millisecond per request.
+ * it as a key in PEM form on every call (to sign as well as to verify), which costs about a
+ * millisecond each time.
  */
 function keyOf(secret: string): KeyObject {
   let key = keys.get(secret);
@@ -30,7 +31,8 @@ export function signToken(
   secret: string,
   ttlS: number,
 ): { token: string; expiresAt: string } {
-  const token = jwt.sign({ ver: user.tokenVersion } satisfies Omit<TokenClaims, 'sub'>, secret, {
+  const claims = { ver: user.tokenVersion } satisfies Omit<TokenClaims, 'sub'>;
+  const token = jwt.sign(claims, keyOf(secret), {
     algorithm: TOKEN_ALGORITHM,
     subject: String(user.id),
     expiresIn: ttlS,
