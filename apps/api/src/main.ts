@@ -1,6 +1,7 @@
 /** Starts the Rhotrace server: API and built web app on one port, mail queue delivery. */
 import { createServer } from 'node:http';
 import { createApp } from './app';
+import { pruneThrottles } from './auth/sign-in-throttle.service';
 import { loadConfig } from './config';
 import { connectDatabase } from './db/database';
 import { createLogger } from './logger';
@@ -29,8 +30,18 @@ server.on('error', (error: NodeJS.ErrnoException) => {
   process.exit(1);
 });
 
+/** Forgotten sign-in throttle rows go once an hour (any instance may do it; it is idempotent). */
+const PRUNE_EVERY_MS = 60 * 60 * 1000;
+const prune = () =>
+  void pruneThrottles().catch((error: unknown) =>
+    logger.warn({ err: error }, 'pruning old sign-in throttle rows failed'),
+  );
+const pruning = setInterval(prune, PRUNE_EVERY_MS);
+pruning.unref();
+
 server.listen(config.port, config.host, () => {
   mailer.start();
+  prune();
   console.log(`[api] listening on http://${config.host}:${config.port}`);
 });
 
@@ -39,6 +50,7 @@ async function shutdown(signal: string): Promise<void> {
   if (stopping) return;
   stopping = true;
   console.log(`[api] ${signal}: stopping`);
+  clearInterval(pruning);
   server.close();
   server.closeAllConnections();
   await mailer.stop();

@@ -103,15 +103,12 @@ export async function recordFailure(
   policy: ThrottlePolicy,
   now = new Date(),
 ): Promise<void> {
-  await ensureRow(key);
-  await SignInThrottle.sequelize!.transaction(async (t) =>
-    countFailure(await lockKey(key, t), policy, now, t),
-  );
+  await withLockedRow(key, (row, t) => countFailure(row, policy, now, t));
 }
 
 /**
  * Makes sure `key` has a row, outside any transaction (concurrent INSERT IGNOREs inside
- * transactions deadlock on the gap lock); rows are reset, never deleted, so it stays there.
+ * transactions deadlock on the gap lock).
  */
 async function ensureRow(key: string): Promise<void> {
   await SignInThrottle.bulkCreate(
@@ -120,11 +117,41 @@ async function ensureRow(key: string): Promise<void> {
   );
 }
 
-/** Locks the row of `key` for the rest of `t` (after `ensureRow`). */
-async function lockKey(key: string, t: Transaction): Promise<SignInThrottle> {
-  const row = await SignInThrottle.findByPk(key, { transaction: t, lock: t.LOCK.UPDATE });
-  if (!row) throw new Error('sign-in throttle row is missing');
-  return row;
+/**
+ * Runs `work` in a transaction holding the lock of `key`'s row. `pruneThrottles` may delete the
+ * row between its creation and the lock; then it is made again.
+ */
+async function withLockedRow<T>(
+  key: string,
+  work: (row: SignInThrottle, t: Transaction) => Promise<T>,
+): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    await ensureRow(key);
+    const done = await SignInThrottle.sequelize!.transaction(async (t) => {
+      const row = await SignInThrottle.findByPk(key, { transaction: t, lock: t.LOCK.UPDATE });
+      return row ? { value: await work(row, t) } : null;
+    });
+    if (done) return done.value;
+    if (attempt >= 3) throw new Error('the sign-in throttle row keeps disappearing');
+  }
+}
+
+/** How long a key's row outlives its last failure window and lock, s. */
+export const THROTTLE_KEEP_S = 24 * 60 * 60;
+
+/**
+ * Deletes the rows of keys with nothing left to count: no lock in force and no failure (nor
+ * successful sign-in) for `THROTTLE_KEEP_S`, far longer than any window. Without this every
+ * address and every e-mail ever tried, a guesser's made-up ones included, would keep a row.
+ * Returns how many rows went.
+ */
+export async function pruneThrottles(now = new Date()): Promise<number> {
+  return SignInThrottle.destroy({
+    where: {
+      firstFailureAt: { [Op.lt]: new Date(now.getTime() - THROTTLE_KEEP_S * 1000) },
+      [Op.or]: [{ lockedUntil: null }, { lockedUntil: { [Op.lte]: now } }],
+    },
+  });
 }
 
 /**
@@ -140,9 +167,7 @@ export async function takeSignInTurn(
   policy: ThrottlePolicy,
   now = new Date(),
 ): Promise<void> {
-  await ensureRow(keys.account);
-  await SignInThrottle.sequelize!.transaction(async (t) => {
-    const row = await lockKey(keys.account, t);
+  await withLockedRow(keys.account, async (row, t) => {
     if (row.lockedUntil && row.lockedUntil.getTime() > now.getTime()) {
       throw tooManyAttempts(row.lockedUntil, now);
     }
