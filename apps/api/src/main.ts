@@ -1,11 +1,11 @@
 /** Starts the Rhotrace server: API and built web app on one port, mail queue delivery. */
 import { createServer } from 'node:http';
 import { createApp } from './app';
-import { pruneThrottles } from './auth/sign-in-throttle.service';
 import { loadConfig } from './config';
 import { connectDatabase } from './db/database';
 import { createLogger } from './logger';
 import { Mailer } from './mail/mailer.service';
+import { startHousekeeping } from './ops/housekeeping';
 
 const config = loadConfig();
 const logger = createLogger();
@@ -30,18 +30,10 @@ server.on('error', (error: NodeJS.ErrnoException) => {
   process.exit(1);
 });
 
-/** Forgotten sign-in throttle rows go once an hour (any instance may do it; it is idempotent). */
-const PRUNE_EVERY_MS = 60 * 60 * 1000;
-const prune = () =>
-  void pruneThrottles().catch((error: unknown) =>
-    logger.warn({ err: error }, 'pruning old sign-in throttle rows failed'),
-  );
-const pruning = setInterval(prune, PRUNE_EVERY_MS);
-pruning.unref();
-
+let stopHousekeeping = () => undefined as void;
 server.listen(config.port, config.host, () => {
   mailer.start();
-  prune();
+  stopHousekeeping = startHousekeeping({ sequelize, config, logger });
   console.log(`[api] listening on http://${config.host}:${config.port}`);
 });
 
@@ -50,7 +42,7 @@ async function shutdown(signal: string): Promise<void> {
   if (stopping) return;
   stopping = true;
   console.log(`[api] ${signal}: stopping`);
-  clearInterval(pruning);
+  stopHousekeeping();
   server.close();
   server.closeAllConnections();
   await mailer.stop();

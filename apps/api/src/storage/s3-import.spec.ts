@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3';
+import { ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 // s3rver ships no types; it is the local S3 stand-in for tests only.
 // @ts-expect-error no type declarations
 import S3rver from 's3rver';
@@ -13,6 +13,9 @@ import { makeWafer } from '../sweeps/sweep-test-helpers';
 import { RawFile, Sweep, SweepPoint } from '../sweeps/sweep.model';
 import { freePortForTest } from '../testing/free-port';
 import { createTestContext, type TestContext } from '../testing/test-context';
+import { houseKeep } from '../ops/housekeeping';
+import { ORPHAN_GRACE_S, removeOrphanedObjects } from './object-reconciler';
+import type { S3RawStorage } from './s3-raw-storage';
 import { closeRawStorages, rawStorageFor } from './storage';
 
 const BUCKET = 'rhotrace-raw-e2e';
@@ -186,5 +189,44 @@ describe('RAW_STORAGE=s3 end to end (s3rver stand-in)', () => {
       });
     expect(raw.status).toBe(200);
     expect(Buffer.compare(raw.body as Buffer, file)).toBe(0);
+  });
+
+  it('removes objects no sweep names once they are an hour old, and keeps every named one', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const kept = await upload(wafer.id, sweepFile(30, 'six'));
+    expect(kept.status).toBe(201);
+    const deleted = await upload(wafer.id, sweepFile(30, 'seven'));
+    expect(deleted.status).toBe(201);
+    expect(
+      (await request(ctx.app).delete(`/api/sweeps/${deleted.body.id}`).set(ctx.auth('admin')))
+        .status,
+    ).toBe(204);
+    // what an API process killed between the object write and the commit leaves behind
+    await client.send(
+      new PutObjectCommand({ Bucket: BUCKET, Key: 'raw-orphan-of-a-killed-upload', Body: 'T;V\n' }),
+    );
+    const named = (await Sweep.findAll({ paranoid: false, where: { storageKind: 's3' } })).map(
+      (s) => s.storageKey,
+    );
+    expect(named).toHaveLength(4);
+    const storage = rawStorageFor('s3') as S3RawStorage;
+    // just written: inside the grace period, nothing goes
+    expect(await removeOrphanedObjects(ctx.sequelize, storage)).toEqual({ checked: 0, deleted: 0 });
+    const later = new Date(Date.now() + (ORPHAN_GRACE_S + 60) * 1000);
+    expect(await removeOrphanedObjects(ctx.sequelize, storage, later)).toEqual({
+      checked: 5,
+      deleted: 1,
+    });
+    expect(await bucketKeys()).toEqual([...named].sort());
+    // the hourly chores do the same, and say what they removed
+    await client.send(new PutObjectCommand({ Bucket: BUCKET, Key: 'raw-orphan-two', Body: 'x' }));
+    const logged: unknown[] = [];
+    const logger = { info: (o: unknown) => logged.push(o), warn: (o: unknown) => logged.push(o) };
+    await houseKeep(
+      { sequelize: ctx.sequelize, config: { storage: 's3' }, logger: logger as never },
+      later,
+    );
+    expect(await bucketKeys()).toEqual([...named].sort());
+    expect(logged).toContainEqual({ checked: 5, deleted: 1 });
   });
 });

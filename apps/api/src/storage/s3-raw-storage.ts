@@ -3,6 +3,7 @@ import {
   DeleteObjectCommand,
   GetObjectCommand,
   HeadBucketCommand,
+  ListObjectsV2Command,
   NoSuchKey,
   PutObjectCommand,
   S3Client,
@@ -99,6 +100,25 @@ export class S3RawStorage implements RawStorage {
         return null;
       throw error;
     }
+  }
+
+  /**
+   * The keys of the bucket's objects last written before `before`, a page (up to 1,000) at a
+   * time.
+   */
+  async *keysWrittenBefore(before: Date): AsyncGenerator<string[]> {
+    await this.ensureBucket();
+    let token: string | undefined;
+    do {
+      const page = await this.client.send(
+        new ListObjectsV2Command({ Bucket: this.settings.bucket, ContinuationToken: token }),
+      );
+      const keys = (page.Contents ?? [])
+        .filter((o) => o.Key && o.LastModified && o.LastModified.getTime() < before.getTime())
+        .map((o) => o.Key!);
+      if (keys.length) yield keys;
+      token = page.IsTruncated ? page.NextContinuationToken : undefined;
+    } while (token);
   }
 
   async delete(key: string): Promise<void> {
