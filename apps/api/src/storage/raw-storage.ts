@@ -31,7 +31,10 @@ export interface RawStorage {
   delete(key: string, context?: StorageContext): Promise<void>;
 }
 
+/** What every storage key starts with. */
+export const STORAGE_KEY_PREFIX = 'raw-';
+
 /** A fresh storage key: `raw-` and a random UUID, safe as a file or object name. */
 export function newStorageKey(): string {
-  return `raw-${randomUUID()}`;
+  return `${STORAGE_KEY_PREFIX}${randomUUID()}`;
 }

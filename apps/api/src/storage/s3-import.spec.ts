@@ -218,6 +218,9 @@ describe('RAW_STORAGE=s3 end to end (s3rver stand-in)', () => {
       deleted: 1,
     });
     expect(await bucketKeys()).toEqual([...named].sort());
+    // an object Rhotrace did not name is never touched
+    await client.send(new PutObjectCommand({ Bucket: BUCKET, Key: 'notes/other.txt', Body: 'x' }));
+    named.push('notes/other.txt');
     // the hourly chores do the same, and say what they removed
     await client.send(new PutObjectCommand({ Bucket: BUCKET, Key: 'raw-orphan-two', Body: 'x' }));
     const logged: unknown[] = [];

@@ -8,7 +8,7 @@ import {
   PutObjectCommand,
   S3Client,
 } from '@aws-sdk/client-s3';
-import { newStorageKey, type RawStorage } from './raw-storage';
+import { newStorageKey, STORAGE_KEY_PREFIX, type RawStorage } from './raw-storage';
 
 /** Settings of an S3-compatible object store, read from `S3_*` variables. */
 export interface S3Settings {
@@ -103,15 +103,19 @@ export class S3RawStorage implements RawStorage {
   }
 
   /**
-   * The keys of the bucket's objects last written before `before`, a page (up to 1,000) at a
-   * time.
+   * The keys Rhotrace generates (`raw-…`) of objects last written before `before`, a page (up
+   * to 1,000) at a time. Other objects in the bucket are never listed.
    */
   async *keysWrittenBefore(before: Date): AsyncGenerator<string[]> {
     await this.ensureBucket();
     let token: string | undefined;
     do {
       const page = await this.client.send(
-        new ListObjectsV2Command({ Bucket: this.settings.bucket, ContinuationToken: token }),
+        new ListObjectsV2Command({
+          Bucket: this.settings.bucket,
+          Prefix: STORAGE_KEY_PREFIX,
+          ContinuationToken: token,
+        }),
       );
       const keys = (page.Contents ?? [])
         .filter((o) => o.Key && o.LastModified && o.LastModified.getTime() < before.getTime())
