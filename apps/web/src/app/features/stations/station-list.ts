@@ -38,7 +38,8 @@ import { StationsApi } from './stations-api';
       padding: 12px 16px;
       margin-bottom: 16px;
     }
-    .problem {
+    .problem,
+    .danger {
       color: var(--mat-sys-error);
     }
   `,
@@ -77,6 +78,17 @@ export class StationList {
     calibratedOn: this.fb.control<string | null>(null),
     notes: this.fb.control<string | null>(null),
   });
+
+  protected remove(s: StationDto): void {
+    const question =
+      `Delete station ${s.name}? Sweeps measured on it keep their record of it, ` +
+      'and it stays in the change trail.';
+    if (!globalThis.confirm(question)) return;
+    this.api.remove(s.id).subscribe(() => {
+      if (this.editing() === s.id) this.editing.set(null);
+      this.stations.reload();
+    });
+  }
 
   protected startNew(): void {
     this.form.reset();

@@ -21,4 +21,8 @@ export class StationsApi {
   update(id: number, body: Partial<StationInput>): Observable<StationDto> {
     return this.http.patch<StationDto>(`/api/stations/${id}`, body, { context: quietRequest() });
   }
+
+  remove(id: number): Observable<unknown> {
+    return this.http.delete(`/api/stations/${id}`);
+  }
 }

@@ -59,6 +59,10 @@ export class WafersApi {
     return this.http.get<SweepDto>(`/api/sweeps/${id}`);
   }
 
+  deleteWafer(id: number): Observable<unknown> {
+    return this.http.delete(`/api/wafers/${id}`);
+  }
+
   deleteSweep(id: number): Observable<unknown> {
     return this.http.delete(`/api/sweeps/${id}`);
   }

@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { RouterLink } from '@angular/router';
+import { Router, RouterLink } from '@angular/router';
 import {
   type AssignmentDto,
   type AssignmentState,
@@ -56,6 +56,7 @@ export class WaferPage {
   private readonly lots = inject(LotsApi);
   private readonly downloader = inject(Downloader);
   private readonly session = inject(Session);
+  private readonly router = inject(Router);
 
   readonly id = input.required<string>();
   protected readonly waferId = computed(() => Number(this.id()));
@@ -167,6 +168,17 @@ export class WaferPage {
 
   protected downloadPoints(id: number): void {
     void this.downloader.save(`/api/sweeps/${id}/points.csv`, `sweep-${id}-points.csv`);
+  }
+
+  /** Deletes a wafer not yet measured (the API refuses a measured one with a message). */
+  protected removeWafer(number: string, lotId: number): void {
+    const question =
+      `Delete wafer W${number}? Its open assignments are cancelled; ` +
+      'it stays in the change trail.';
+    if (!globalThis.confirm(question)) return;
+    this.api
+      .deleteWafer(this.waferId())
+      .subscribe(() => void this.router.navigate(['/lots', lotId]));
   }
 
   protected removeSweep(id: number): void {
