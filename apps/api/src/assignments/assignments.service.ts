@@ -5,7 +5,7 @@ import {
   type SessionUser,
 } from '@rhotrace/api-types';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import { recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { forbidden, notFound, validationFailed } from '../errors';
 import { Lot } from '../lots/lot.model';
 import { assignmentMail } from '../mail/templates/assignment.mail';
@@ -135,17 +135,7 @@ export async function createAssignment(
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
     const assignee = await activeAssignee(input.assigneeId, t);
     const a = await Assignment.create({ ...input, assignedById: actor.id }, { transaction: t });
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'create',
-        entity: 'assignment',
-        entityId: a.id,
-        after: snapshot(a),
-        requestId: actor.requestId,
-      },
-      t,
-    );
+    await auditChange(t, actor, 'create', 'assignment', a.id, { after: snapshot(a) });
     await queueMail(a, { wafer, lot, assignee, assignerName: actor.name }, mail, t);
     return toAssignmentDto(a, await related([a], t));
   });
@@ -255,18 +245,7 @@ export async function updateAssignment(
         ? await activeAssignee(changes.assigneeId, t)
         : null;
     await a.update(changes, { transaction: t });
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'update',
-        entity: 'assignment',
-        entityId: id,
-        before,
-        after: snapshot(a),
-        requestId: actor.requestId,
-      },
-      t,
-    );
+    await auditChange(t, actor, 'update', 'assignment', id, { before, after: snapshot(a) });
     const r = await related([a], t);
     const wafer = r.wafers.get(a.waferId);
     const lot = wafer ? r.lots.get(wafer.lotId) : undefined;

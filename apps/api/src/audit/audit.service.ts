@@ -38,6 +38,24 @@ export async function recordAudit(entry: AuditEntry, transaction: Transaction): 
   );
 }
 
+/**
+ * `recordAudit` for a change made by `actor`: the actor and the request id come from it, the
+ * record's states before and after (either left out for a creation or a deletion) from `states`.
+ */
+export function auditChange(
+  transaction: Transaction,
+  actor: Actor,
+  action: AuditEntry['action'],
+  entity: string,
+  entityId: number | string,
+  states: { before?: unknown; after?: unknown },
+): Promise<void> {
+  return recordAudit(
+    { actorId: actor.id, action, entity, entityId, ...states, requestId: actor.requestId ?? null },
+    transaction,
+  );
+}
+
 /** Filters of `GET /api/audit`. */
 export interface AuditListOptions {
   page: number;

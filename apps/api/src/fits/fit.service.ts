@@ -1,7 +1,7 @@
 import type { FitDto, FitKind, FitRequest, SessionUser } from '@rhotrace/api-types';
 import type { Sequelize } from 'sequelize';
 import type { Actor } from '../audit/audit.service';
-import { recordAudit } from '../audit/audit.service';
+import { auditChange, recordAudit } from '../audit/audit.service';
 import { asNotFound, badRequest, forbidden, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
 import { isMetal, isSemiconductor, semiconductorParameterSet } from '../analysis/model.service';
@@ -265,16 +265,8 @@ export async function deleteFit(
   await sequelize.transaction(async (transaction) => {
     const before = await toFitDto(fit);
     await fit.destroy({ transaction });
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'delete',
-        entity: 'fit',
-        entityId: fit.id,
-        before: { ...before, residuals: undefined },
-        requestId: actor.requestId,
-      },
-      transaction,
-    );
+    await auditChange(transaction, actor, 'delete', 'fit', fit.id, {
+      before: { ...before, residuals: undefined },
+    });
   });
 }

@@ -9,7 +9,7 @@ import {
   type WhereOptions,
 } from 'sequelize';
 import { Assignment } from '../assignments/assignment.model';
-import { recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../middleware/fields';
 import { Sweep } from '../sweeps/sweep.model';
@@ -173,17 +173,7 @@ export async function createLot(input: LotInput, actor: Actor): Promise<LotDto> 
     return await Lot.sequelize!.transaction(async (t) => {
       const lot = await Lot.create({ ...input, createdById: actor.id }, { transaction: t });
       const dto = toLotDto(lot, 0);
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'create',
-          entity: 'lot',
-          entityId: lot.id,
-          after: dto,
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'create', 'lot', lot.id, { after: dto });
       return dto;
     });
   } catch (error) {
@@ -209,18 +199,7 @@ export async function updateLot(
       await lot.update(changes, { transaction: t });
       const count = await Wafer.count({ where: { lotId: id }, transaction: t });
       const dto = toLotDto(lot, count);
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'update',
-          entity: 'lot',
-          entityId: id,
-          before,
-          after: toLotDto(lot),
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'update', 'lot', id, { before, after: toLotDto(lot) });
       return dto;
     });
   } catch (error) {

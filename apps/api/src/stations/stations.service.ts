@@ -1,6 +1,6 @@
 import type { Page, StationDto, StationInput, Thermometer } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
-import { recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../middleware/fields';
 import { Station } from './station.model';
@@ -100,17 +100,7 @@ export async function createStation(input: StationInput, actor: Actor): Promise<
     return await Station.sequelize!.transaction(async (t) => {
       const station = await Station.create(input, { transaction: t });
       const dto = toStationDto(station);
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'create',
-          entity: 'station',
-          entityId: station.id,
-          after: dto,
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'create', 'station', station.id, { after: dto });
       return dto;
     });
   } catch (error) {
@@ -132,18 +122,7 @@ export async function updateStation(
       assertConsistent({ ...before, ...changes });
       await station.update(changes, { transaction: t });
       const dto = toStationDto(station);
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'update',
-          entity: 'station',
-          entityId: id,
-          before,
-          after: dto,
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'update', 'station', id, { before, after: dto });
       return dto;
     });
   } catch (error) {
@@ -158,17 +137,6 @@ export async function deleteStation(id: number, actor: Actor): Promise<void> {
     if (!station) throw notFound(`Station ${id}`);
     const before = toStationDto(station);
     await station.destroy({ transaction: t });
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'delete',
-        entity: 'station',
-        entityId: id,
-        before,
-        after: null,
-        requestId: actor.requestId,
-      },
-      t,
-    );
+    await auditChange(t, actor, 'delete', 'station', id, { before, after: null });
   });
 }

@@ -1,7 +1,7 @@
 import type { Page, SessionUser, WaferDto, WaferState } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { Assignment } from '../assignments/assignment.model';
-import { recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { Lot } from '../lots/lot.model';
 import { visibleLot } from '../lots/lots.service';
@@ -117,17 +117,7 @@ export async function createWafer(
       if (!lot) throw notFound(`Lot ${lotId}`);
       const wafer = await Wafer.create({ ...input, lotId }, { transaction: t });
       const dto = toWaferDto(wafer, lot.code);
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'create',
-          entity: 'wafer',
-          entityId: wafer.id,
-          after: dto,
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'create', 'wafer', wafer.id, { after: dto });
       return dto;
     });
   } catch (error) {
@@ -149,18 +139,7 @@ export async function updateWafer(
       const before = toWaferDto(wafer, lot.code);
       await wafer.update(changes, { transaction: t });
       const dto = toWaferDto(wafer, lot.code);
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'update',
-          entity: 'wafer',
-          entityId: id,
-          before,
-          after: dto,
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'update', 'wafer', id, { before, after: dto });
       return dto;
     });
   } catch (error) {
@@ -189,32 +168,10 @@ export async function deleteWafer(id: number, actor: Actor): Promise<void> {
     for (const a of open) {
       const before = a.toJSON();
       await a.update({ state: 'cancelled' }, { transaction: t });
-      await recordAudit(
-        {
-          actorId: actor.id,
-          action: 'update',
-          entity: 'assignment',
-          entityId: a.id,
-          before,
-          after: a.toJSON(),
-          requestId: actor.requestId,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'update', 'assignment', a.id, { before, after: a.toJSON() });
     }
     const before = toWaferDto(wafer);
     await wafer.destroy({ transaction: t });
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'delete',
-        entity: 'wafer',
-        entityId: id,
-        before,
-        after: null,
-        requestId: actor.requestId,
-      },
-      t,
-    );
+    await auditChange(t, actor, 'delete', 'wafer', id, { before, after: null });
   });
 }
