@@ -9,8 +9,8 @@ import bcrypt from 'bcryptjs';
  * run the same bcryptjs code, so hashes are identical; if a worker cannot start, the main thread
  * does the work as before.
  *
- * Each worker also lowers its own scheduling priority (nice 10; on Linux the nice value belongs
- * to the thread). A burst of sign-ins then uses the CPU the rest of the server leaves idle and no
+ * On Linux each worker also lowers its own scheduling priority (nice 10; there the nice value
+ * belongs to the thread, while on other systems it would be the whole process's, so they skip it). A burst of sign-ins then uses the CPU the rest of the server leaves idle and no
  * longer delays the requests of people already signed in; the sign-ins themselves take longer
  * only while the server is busy.
  */
@@ -20,7 +20,10 @@ const BCRYPTJS_PATH = createRequire(import.meta.url).resolve('bcryptjs');
 const WORKER_SOURCE = `
 const { parentPort } = require('node:worker_threads');
 const bcrypt = require(${JSON.stringify(BCRYPTJS_PATH)});
-try { require('node:os').setPriority(${HASHER_NICE}); } catch {}
+// per thread on Linux only; elsewhere the call would lower the whole server's priority
+if (process.platform === 'linux') {
+  try { require('node:os').setPriority(${HASHER_NICE}); } catch {}
+}
 parentPort.on('message', ({ id, op, a, b }) => {
   try {
     const result = op === 'compare' ? bcrypt.compareSync(a, b) : bcrypt.hashSync(a, b);
