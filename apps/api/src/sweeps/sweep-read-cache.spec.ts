@@ -78,6 +78,24 @@ describe('reading a sweep twice (points kept in memory after the first read)', (
     expect(after.body.points).toEqual(first.body.points);
   });
 
+  it('does not mistake another sweep under the same id (as after a restore) for the cached one', async () => {
+    const before = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('manager'));
+    expect(before.body.points[0].resistivityOhmCm).not.toBe(42);
+    // what a restore of an older backup followed by a new upload can leave: same id, new sweep
+    await ctx.sequelize.query("UPDATE sweeps SET sha256 = REPEAT('f', 64) WHERE id = ?", {
+      replacements: [sweepId],
+    });
+    await ctx.sequelize.query(
+      'UPDATE sweep_points SET resistivity_ohm_cm = 42 WHERE sweep_id = ?',
+      { replacements: [sweepId] },
+    );
+    const after = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('manager'));
+    expect(after.body.sha256).toBe('f'.repeat(64));
+    expect(after.body.points.map((p: { resistivityOhmCm: number }) => p.resistivityOhmCm)).toEqual(
+      Array(300).fill(42),
+    );
+  });
+
   it('still hides the sweep from a technician who is not assigned, and forgets it once deleted', async () => {
     const hidden = await request(ctx.app).get(`/api/sweeps/${sweepId}`).set(ctx.auth('technician'));
     expect(hidden.status).toBe(404);

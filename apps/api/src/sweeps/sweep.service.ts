@@ -118,6 +118,8 @@ interface StoredRaw {
  * processes may each keep their own.
  */
 interface CachedPoints {
+  /** Which stored sweep these are (see `stampOf`); a different one under the same id misses. */
+  stamp: string;
   points: SweepPointDto[];
   json?: string;
   /** The whole answer gzipped, with the head it was made with (a renamed uploader changes it). */
@@ -133,8 +135,17 @@ function cacheKey(id: number): string {
   return `${Sweep.sequelize?.getDatabaseName() ?? ''}:${id}`;
 }
 
-function rememberPoints(id: number, points: SweepPointDto[]): CachedPoints {
-  const entry: CachedPoints = { points };
+/**
+ * What tells one stored sweep from another under the same id: after a database restore ids
+ * are handed out again, so the id alone could name a sweep other than the one cached.
+ */
+function stampOf(sweep: Sweep): string {
+  return `${sweep.sha256}:${sweep.createdAt.getTime()}:${sweep.pointCount}`;
+}
+
+function rememberPoints(id: number, stamp: string, points: SweepPointDto[]): CachedPoints {
+  forgetPoints(id);
+  const entry: CachedPoints = { stamp, points };
   if (points.length > POINT_CACHE_LIMIT / 4) return entry;
   pointCache.set(cacheKey(id), entry);
   cachedPointCount += points.length;
@@ -167,14 +178,15 @@ async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,
   };
+  const stamp = stampOf(sweep);
   const cached = pointCache.get(cacheKey(id));
-  if (cached) {
+  if (cached?.stamp === stamp) {
     // least recently used goes first when the cache is full
     pointCache.delete(cacheKey(id));
     pointCache.set(cacheKey(id), cached);
     return { head, cached };
   }
-  return { head, cached: rememberPoints(id, await readPoints(id, columns)) };
+  return { head, cached: rememberPoints(id, stamp, await readPoints(id, columns)) };
 }
 
 async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPointDto[]> {
