@@ -153,13 +153,12 @@ export function modelFit(
   };
 }
 
-/** Linear temperature coefficient through `fitLinearTcr`; residuals are relative (rho/fit - 1). */
+/** Linear temperature coefficient through `fitLinearTcr`, with its relative residuals. */
 export function tcrFit(points: readonly AnalysisPoint[], referenceK: number): FitComputation {
   const r = fitLinearTcr([...points], referenceK);
-  const line = (t: number) => r.referenceResistivityOhmCm * (1 + r.alphaPerK * (t - referenceK));
-  const residuals = points.map((pt) => ({
+  const residuals = points.map((pt, i) => ({
     temperatureK: pt.temperatureK,
-    residual: pt.resistivityOhmCm / line(pt.temperatureK) - 1,
+    residual: r.relativeResiduals[i]!,
   }));
   return {
     parameters: { referenceResistivityOhmCm: r.referenceResistivityOhmCm, alphaPerK: r.alphaPerK },

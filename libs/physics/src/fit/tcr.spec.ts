@@ -41,6 +41,29 @@ describe('fitLinearTcr', () => {
 });
 
 describe('fitLinearTcr invalid inputs', () => {
+  it('gives each point its relative residual against the fitted line, in input order', () => {
+    // An exact line with one point lifted 2 %: least squares spreads the lift over all points,
+    // so the check is against the fitted line from simple-statistics, computed independently.
+    const temps = [350, 250, 300, 275, 325];
+    const pts = temps.map((t, i) => ({
+      temperatureK: t,
+      resistivityOhmCm: copper(t) * (i === 2 ? 1.02 : 1),
+    }));
+    const r = fitLinearTcr(pts);
+    const ref = linearRegression(pts.map((p) => [p.temperatureK - 293.15, p.resistivityOhmCm]));
+    const expected = pts.map(
+      (p) => p.resistivityOhmCm / (ref.b + ref.m * (p.temperatureK - 293.15)) - 1,
+    );
+    expect(r.relativeResiduals).toHaveLength(5);
+    r.relativeResiduals.forEach((v, i) => expect(v).toBeCloseTo(expected[i]!, 12));
+    expect(r.relativeResiduals[2]).toBeGreaterThan(0.01);
+    // exact data: every residual is zero
+    const exact = fitLinearTcr(
+      temps.map((t) => ({ temperatureK: t, resistivityOhmCm: copper(t) })),
+    );
+    exact.relativeResiduals.forEach((v) => expect(Math.abs(v)).toBeLessThan(1e-12));
+  });
+
   it('rejects bad points and reference temperatures', () => {
     const pts = [250, 300, 350].map((t) => ({ temperatureK: t, resistivityOhmCm: copper(t) }));
     expect(() => fitLinearTcr(pts.slice(0, 2))).toThrow(/`fitLinearTcr`.*points/);

@@ -19,6 +19,11 @@ export interface LinearTcrFit {
   ci95AlphaPerK: [number, number];
   rSquared: number;
   count: number;
+  /**
+   * Relative residual of each point, in input order: rho_measured / rho_fitted(T) - 1
+   * (dimensionless; 0.01 is one per cent above the line).
+   */
+  relativeResiduals: number[];
 }
 
 /**
@@ -66,6 +71,7 @@ export function fitLinearTcr(
   const variance = (varC1 - 2 * alpha * line.covariance + alpha * alpha * varC0) / (c0 * c0);
   const se = Math.sqrt(Math.max(0, variance));
   const t = studentTCritical(0.95, line.count - 2);
+  const relativeResiduals = Array.from(x, (dx, i) => rhos[i]! / (c0 + c1 * dx) - 1);
   return {
     referenceResistivityOhmCm: c0,
     alphaPerK: alpha,
@@ -74,5 +80,6 @@ export function fitLinearTcr(
     ci95AlphaPerK: [alpha - t * se, alpha + t * se],
     rSquared: line.rSquared,
     count: line.count,
+    relativeResiduals,
   };
 }
