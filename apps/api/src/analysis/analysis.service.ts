@@ -36,7 +36,7 @@ export async function sweepAnalysis(
   sweepId: number,
 ): Promise<SweepAnalysisResponse> {
   const v = await visibleSweep(user, sweepId);
-  const { points, skipped } = await sweepReadings(sweepId);
+  const { points, skipped } = await sweepReadings(v.sweep);
   const steps = averageSteps(points);
   return {
     sweep: sweepSummary(v, skipped),
@@ -60,7 +60,7 @@ export async function waferValueAt23C(
   });
   let firstMiss: ValueAt23C | null = null;
   for (const sweep of sweeps) {
-    const { points } = await sweepReadings(sweep.id);
+    const { points } = await sweepReadings(sweep);
     const value = valueAt23C(averageSteps(points));
     if (value.resistivityOhmCm !== null)
       return { sweepId: sweep.id, value, sweepCount: sweeps.length };
@@ -160,7 +160,7 @@ export async function compareSweeps(
   const loaded = [];
   for (const id of sweepIds) {
     const v = await visibleSweep(user, id);
-    const steps = averageSteps((await sweepReadings(id)).points);
+    const steps = averageSteps((await sweepReadings(v.sweep)).points);
     if (steps.length === 0) throw unprocessable(`Sweep ${id} has no usable points`);
     loaded.push({ v, steps });
   }

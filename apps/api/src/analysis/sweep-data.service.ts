@@ -1,6 +1,5 @@
 import type { AnalysisStep, SessionUser, AnalysisSweepDto } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
-import { Op } from 'sequelize';
 import { asNotFound, notFound } from '../errors';
 import type { Lot } from '../lots/lot.model';
 import { Sweep, SweepPoint } from '../sweeps/sweep.model';
@@ -49,34 +48,134 @@ export async function visibleSweep(user: SessionUser, sweepId: number): Promise<
   }
 }
 
+/** The sweep row fields the readings cache needs to tell one stored sweep from another. */
+type SweepIdentity = Pick<Sweep, 'id' | 'sha256' | 'createdAt' | 'pointCount'>;
+
+interface CachedReadings {
+  stamp: string;
+  /** Usable readings sorted by temperature. */
+  points: AnalysisPoint[];
+  /** Temperatures of the readings left out (finite ones only), sorted. */
+  skippedK: number[];
+  /** Readings left out whose temperature is not finite (in no window). */
+  skippedNoTemperature: number;
+}
+
 /**
- * Reads a sweep's points (temperature and resistivity only), sorted by temperature; with a
- * window, only the points with minK <= T <= maxK (inclusive).
+ * Readings of recently analysed sweeps. Stored points never change once their upload commits,
+ * and the stamp (hash, time, count) tells sweeps apart when an id is handed out again after a
+ * restore, so a cached copy cannot go stale; every analysis, fit and comparison of a sweep
+ * then reads its points from the database once.
  */
-export async function sweepReadings(
-  sweepId: number,
-  window?: { minK: number; maxK: number },
-): Promise<SweepReadings> {
-  const where: Record<string | symbol, unknown> = { sweepId };
-  if (window) where['temperatureK'] = { [Op.between]: [window.minK, window.maxK] };
+const readingsCache = new Map<string, CachedReadings>();
+let cachedReadings = 0;
+/** Readings kept across all cached sweeps (about 60 bytes each). */
+export const READINGS_CACHE_LIMIT = 1_000_000;
+
+function readingsKey(id: number): string {
+  return `${Sweep.sequelize?.getDatabaseName() ?? ''}:${id}`;
+}
+
+const stampOf = (s: SweepIdentity) => `${s.sha256}:${s.createdAt.getTime()}:${s.pointCount}`;
+
+async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
+  const key = readingsKey(sweep.id);
+  const stamp = stampOf(sweep);
+  const hit = readingsCache.get(key);
+  if (hit?.stamp === stamp) {
+    readingsCache.delete(key); // least recently used goes first when the cache is full
+    readingsCache.set(key, hit);
+    return hit;
+  }
+  if (hit) {
+    readingsCache.delete(key);
+    cachedReadings -= hit.points.length + hit.skippedK.length;
+  }
   const rows = (await SweepPoint.findAll({
     attributes: ['temperatureK', 'resistivityOhmCm'],
-    where,
+    where: { sweepId: sweep.id },
     raw: true,
   })) as unknown as AnalysisPoint[];
   const points: AnalysisPoint[] = [];
-  let skipped = 0;
+  const skippedK: number[] = [];
+  let skippedNoTemperature = 0;
   for (const r of rows) {
     const t = Number(r.temperatureK);
     const rho = Number(r.resistivityOhmCm);
     if (Number.isFinite(t) && t > 0 && Number.isFinite(rho) && rho > 0) {
       points.push({ temperatureK: t, resistivityOhmCm: rho });
+    } else if (Number.isFinite(t)) {
+      skippedK.push(t);
     } else {
-      skipped += 1;
+      skippedNoTemperature += 1;
     }
   }
   points.sort((a, b) => a.temperatureK - b.temperatureK);
-  return { points, skipped };
+  skippedK.sort((a, b) => a - b);
+  const entry = { stamp, points, skippedK, skippedNoTemperature };
+  const size = points.length + skippedK.length;
+  if (size <= READINGS_CACHE_LIMIT / 4) {
+    readingsCache.set(key, entry);
+    cachedReadings += size;
+    for (const [oldest, cached] of readingsCache) {
+      if (cachedReadings <= READINGS_CACHE_LIMIT) break;
+      readingsCache.delete(oldest);
+      cachedReadings -= cached.points.length + cached.skippedK.length;
+    }
+  }
+  return entry;
+}
+
+/** First index of sorted `values` (through `at`) not below `x`. */
+function lowerBound(n: number, at: (i: number) => number, x: number): number {
+  let lo = 0;
+  let hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (at(mid) < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** First index of sorted `values` (through `at`) above `x`. */
+function upperBound(n: number, at: (i: number) => number, x: number): number {
+  let lo = 0;
+  let hi = n;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (at(mid) <= x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * A sweep's usable readings (temperature and resistivity), sorted by temperature; with a
+ * window, only those with minK <= T <= maxK (inclusive). `skipped` counts the readings left
+ * out (resistivity or temperature not finite or not positive), within the window when one is
+ * given.
+ */
+export async function sweepReadings(
+  sweep: SweepIdentity,
+  window?: { minK: number; maxK: number },
+): Promise<SweepReadings> {
+  const cached = await loadReadings(sweep);
+  if (!window) {
+    return {
+      points: cached.points.slice(),
+      skipped: cached.skippedK.length + cached.skippedNoTemperature,
+    };
+  }
+  const pts = cached.points;
+  const tOf = (i: number) => pts[i]!.temperatureK;
+  const from = lowerBound(pts.length, tOf, window.minK);
+  const to = upperBound(pts.length, tOf, window.maxK);
+  const sk = cached.skippedK;
+  const skOf = (i: number) => sk[i]!;
+  const skipped =
+    upperBound(sk.length, skOf, window.maxK) - lowerBound(sk.length, skOf, window.minK);
+  return { points: pts.slice(from, Math.max(from, to)), skipped: Math.max(0, skipped) };
 }
 
 /**

@@ -100,7 +100,7 @@ export async function createFit(
   // An Arrhenius fit with its regime given needs only the window's points from the database.
   const windowOnly = request.kind === 'arrhenius' && request.regime !== undefined;
   const { points: all } = await sweepReadings(
-    sweepId,
+    v.sweep,
     windowOnly ? { minK: request.minK, maxK: request.maxK } : undefined,
   );
   const window = windowPoints(all, request.minK, request.maxK);
@@ -206,7 +206,27 @@ export async function createFit(
       },
       transaction,
     );
-    return toFitDto(fit, new Map([[user.id, user.name]]));
+    // The answer is made from the values just stored, not read back through the JSON columns
+    // (parsing a few thousand residuals again cost more than the fit itself).
+    return {
+      id: fit.id,
+      sweepId,
+      kind: request.kind,
+      inputs,
+      windowMinK: window.minK,
+      windowMaxK: window.maxK,
+      parameters: computed.parameters as FitDto['parameters'],
+      standardErrors: computed.standardErrors as FitDto['standardErrors'],
+      confidenceIntervals: computed.confidenceIntervals as FitDto['confidenceIntervals'],
+      goodness: computed.goodness as FitDto['goodness'],
+      residuals: computed.residuals,
+      converged: computed.converged,
+      reason: computed.reason,
+      reading: computed.reading,
+      modelVersion: fit.modelVersion,
+      createdBy: { id: user.id, name: user.name },
+      createdAt: fit.createdAt.toISOString(),
+    } satisfies FitDto;
   });
 }
 

@@ -170,6 +170,9 @@ describe('full-model fit', () => {
     expect(res.body.reason).toMatch(/\w+/);
     expect(res.body.reading).toMatch(/did not converge/);
     expect((await Fit.findByPk(res.body.id))!.converged).toBe(false);
+    // the answer to the POST is exactly what reading the stored fit gives
+    const stored = await request(ctx.app).get(`/api/fits/${res.body.id}`).set(ctx.auth('admin'));
+    expect(stored.body).toEqual(res.body);
   });
 });
 
@@ -183,6 +186,8 @@ describe('metal fits', () => {
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, points);
     const res = await post(sweep.id, { kind: 'tcr' });
     expect(res.status).toBe(201);
+    const stored = await request(ctx.app).get(`/api/fits/${res.body.id}`).set(ctx.auth('engineer'));
+    expect(stored.body).toEqual(res.body);
     expect(res.body.inputs.referenceK).toBe(293.15);
     expect(Math.abs(res.body.parameters.alphaPerK / 0.0039 - 1)).toBeLessThan(0.02);
     expect(
@@ -203,6 +208,8 @@ describe('metal fits', () => {
     const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, points);
     const res = await post(sweep.id, { kind: 'bloch-gruneisen' });
     expect(res.status).toBe(201);
+    const stored = await request(ctx.app).get(`/api/fits/${res.body.id}`).set(ctx.auth('engineer'));
+    expect(stored.body).toEqual(res.body);
     expect(res.body.converged).toBe(true);
     for (const key of ['residualOhmCm', 'couplingOhmCm', 'debyeK'] as const) {
       expect(Math.abs(res.body.parameters[key] / truth[key] - 1)).toBeLessThan(0.03);

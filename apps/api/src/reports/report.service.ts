@@ -40,7 +40,7 @@ export interface ReportData {
 /** Gathers a sweep's report data (visibility as for every sweep read). */
 export async function reportData(user: SessionUser, sweepId: number): Promise<ReportData> {
   const v = await visibleSweep(user, sweepId);
-  const steps = averageSteps((await sweepReadings(sweepId)).points);
+  const steps = averageSteps((await sweepReadings(v.sweep)).points);
   const station = v.sweep.stationId ? await Station.findByPk(v.sweep.stationId) : null;
   const spec = specCheck(steps, v.lot.specMinOhmCm, v.lot.specMaxOhmCm);
   const geometry = { ...((v.sweep.geometry as Record<string, unknown> | null) ?? {}) };
