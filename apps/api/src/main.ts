@@ -30,7 +30,7 @@ server.on('error', (error: NodeJS.ErrnoException) => {
   process.exit(1);
 });
 
-let stopHousekeeping = () => undefined as void;
+let stopHousekeeping: (() => void) | null = null;
 server.listen(config.port, config.host, () => {
   mailer.start();
   stopHousekeeping = startHousekeeping({ sequelize, config, logger });
@@ -42,7 +42,7 @@ async function shutdown(signal: string): Promise<void> {
   if (stopping) return;
   stopping = true;
   console.log(`[api] ${signal}: stopping`);
-  stopHousekeeping();
+  stopHousekeeping?.();
   server.close();
   server.closeAllConnections();
   await mailer.stop();

@@ -2,6 +2,7 @@ import type { AnalysisStep, SessionUser, AnalysisSweepDto } from '@rhotrace/api-
 import { mean, sampleStandardDeviation } from 'simple-statistics';
 import { asNotFound, notFound } from '../errors';
 import type { Lot } from '../lots/lot.model';
+import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
 import { Sweep, SweepPoint } from '../sweeps/sweep.model';
 import type { Wafer } from '../wafers/wafer.model';
 import { visibleWafer } from '../wafers/wafer-access.service';
@@ -48,11 +49,7 @@ export async function visibleSweep(user: SessionUser, sweepId: number): Promise<
   }
 }
 
-/** The sweep row fields the readings cache needs to tell one stored sweep from another. */
-type SweepIdentity = Pick<Sweep, 'id' | 'sha256' | 'createdAt' | 'pointCount'>;
-
 interface CachedReadings {
-  stamp: string;
   /** Usable readings sorted by temperature. */
   points: AnalysisPoint[];
   /** Temperatures of the readings left out (finite ones only), sorted. */
@@ -61,36 +58,17 @@ interface CachedReadings {
   skippedNoTemperature: number;
 }
 
-/**
- * Readings of recently analysed sweeps. Stored points never change once their upload commits,
- * and the stamp (hash, time, count) tells sweeps apart when an id is handed out again after a
- * restore, so a cached copy cannot go stale; every analysis, fit and comparison of a sweep
- * then reads its points from the database once.
- */
-const readingsCache = new Map<string, CachedReadings>();
-let cachedReadings = 0;
 /** Readings kept across all cached sweeps (about 60 bytes each). */
 export const READINGS_CACHE_LIMIT = 1_000_000;
-
-function readingsKey(id: number): string {
-  return `${Sweep.sequelize?.getDatabaseName() ?? ''}:${id}`;
-}
-
-const stampOf = (s: SweepIdentity) => `${s.sha256}:${s.createdAt.getTime()}:${s.pointCount}`;
+/** Readings of recently analysed sweeps: each sweep's points are read from the database once. */
+const readingsCache = new SweepCache<CachedReadings>(
+  READINGS_CACHE_LIMIT,
+  (r) => r.points.length + r.skippedK.length,
+);
 
 async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
-  const key = readingsKey(sweep.id);
-  const stamp = stampOf(sweep);
-  const hit = readingsCache.get(key);
-  if (hit?.stamp === stamp) {
-    readingsCache.delete(key); // least recently used goes first when the cache is full
-    readingsCache.set(key, hit);
-    return hit;
-  }
-  if (hit) {
-    readingsCache.delete(key);
-    cachedReadings -= hit.points.length + hit.skippedK.length;
-  }
+  const hit = readingsCache.get(sweep);
+  if (hit) return hit;
   const rows = (await SweepPoint.findAll({
     attributes: ['temperatureK', 'resistivityOhmCm'],
     where: { sweepId: sweep.id },
@@ -112,40 +90,17 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
   }
   points.sort((a, b) => a.temperatureK - b.temperatureK);
   skippedK.sort((a, b) => a - b);
-  const entry = { stamp, points, skippedK, skippedNoTemperature };
-  const size = points.length + skippedK.length;
-  if (size <= READINGS_CACHE_LIMIT / 4) {
-    readingsCache.set(key, entry);
-    cachedReadings += size;
-    for (const [oldest, cached] of readingsCache) {
-      if (cachedReadings <= READINGS_CACHE_LIMIT) break;
-      readingsCache.delete(oldest);
-      cachedReadings -= cached.points.length + cached.skippedK.length;
-    }
-  }
-  return entry;
+  return readingsCache.remember(sweep, { points, skippedK, skippedNoTemperature });
 }
 
-/** First index of sorted `values` (through `at`) not below `x`. */
-function lowerBound(n: number, at: (i: number) => number, x: number): number {
+/** The first index in 0..n at which `pred` holds (it must hold from some index on), or n. */
+function firstIndex(n: number, pred: (i: number) => boolean): number {
   let lo = 0;
   let hi = n;
   while (lo < hi) {
     const mid = (lo + hi) >>> 1;
-    if (at(mid) < x) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
-}
-
-/** First index of sorted `values` (through `at`) above `x`. */
-function upperBound(n: number, at: (i: number) => number, x: number): number {
-  let lo = 0;
-  let hi = n;
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (at(mid) <= x) lo = mid + 1;
-    else hi = mid;
+    if (pred(mid)) hi = mid;
+    else lo = mid + 1;
   }
   return lo;
 }
@@ -168,13 +123,12 @@ export async function sweepReadings(
     };
   }
   const pts = cached.points;
-  const tOf = (i: number) => pts[i]!.temperatureK;
-  const from = lowerBound(pts.length, tOf, window.minK);
-  const to = upperBound(pts.length, tOf, window.maxK);
+  const from = firstIndex(pts.length, (i) => pts[i]!.temperatureK >= window.minK);
+  const to = firstIndex(pts.length, (i) => pts[i]!.temperatureK > window.maxK);
   const sk = cached.skippedK;
-  const skOf = (i: number) => sk[i]!;
   const skipped =
-    upperBound(sk.length, skOf, window.maxK) - lowerBound(sk.length, skOf, window.minK);
+    firstIndex(sk.length, (i) => sk[i]! > window.maxK) -
+    firstIndex(sk.length, (i) => sk[i]! >= window.minK);
   return { points: pts.slice(from, Math.max(from, to)), skipped: Math.max(0, skipped) };
 }
 

@@ -14,7 +14,7 @@ import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../middleware/fields';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
-import { assignedWaferIds, VISIBLE_ASSIGNMENT_STATES } from '../wafers/wafer-access.service';
+import { assignedWaferIds, assignedWaferSql } from '../wafers/wafer-access.service';
 import { Lot } from './lot.model';
 
 /** The API's view of a lot. */
@@ -72,11 +72,7 @@ async function waferCounts(user: SessionUser, lotIds: number[]): Promise<Map<num
  * deleted, and for a technician only those assigned to them in a state that still shows them.
  */
 function waferCountSql(user: SessionUser): string {
-  const sequelize = Lot.sequelize!;
-  const assigned =
-    user.role === 'technician'
-      ? ` AND EXISTS (SELECT 1 FROM assignments AS a WHERE a.wafer_id = w.id AND a.assignee_id = ${sequelize.escape(user.id)} AND a.state IN (${VISIBLE_ASSIGNMENT_STATES.map((v) => sequelize.escape(v)).join(', ')}))`
-      : '';
+  const assigned = user.role === 'technician' ? ` AND ${assignedWaferSql('w.id', user.id)}` : '';
   return `(SELECT COUNT(*) FROM wafers AS w WHERE w.lot_id = \`Lot\`.\`id\` AND w.deleted_at IS NULL${assigned})`;
 }
 

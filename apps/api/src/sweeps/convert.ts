@@ -26,7 +26,6 @@ import {
   type ParsedSweepFile,
   type ResolvedColumn,
 } from './parse';
-import { flagSuspiciousPoints } from './point-flags';
 
 /** A converted point, ready to store. */
 export interface ConvertedPoint {
@@ -376,25 +375,6 @@ function readingReader(
       resistivityOhmCm,
     };
   };
-}
-
-/**
- * Converts every row at once: the points, the row problems (at most `MAX_PROBLEMS`) and the
- * warnings, with suspicious points flagged. The import converts slice by slice instead.
- */
-export function convertRows(
-  parsed: ParsedSweepFile,
-  columns: ResolvedColumn[],
-  method: SweepMethod,
-  geometry: SweepGeometry,
-  constantCurrentA: number | undefined,
-): { points: ConvertedPoint[]; problems: RowProblem[]; warnings: string[] } {
-  const converter = new RowConverter(parsed, columns, method, geometry, constantCurrentA);
-  const points = converter.next(0, parsed.table.records.length);
-  points.push(...converter.finish());
-  const problems = converter.problems.slice(0, MAX_PROBLEMS);
-  if (problems.length) return { points: [], problems, warnings: [] };
-  return { points, problems, warnings: [...converter.warnings, ...flagSuspiciousPoints(points)] };
 }
 
 /** Row numbers for a warning, the first ten and a count of the rest. */

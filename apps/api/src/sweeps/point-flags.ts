@@ -3,15 +3,10 @@
  * temperature going against the ramp.
  */
 import { JUMP_FACTOR } from '@rhotrace/api-types';
-import type { ConvertedPoint } from './convert';
+import { listRows, type ConvertedPoint } from './convert';
 
 /** A step against the ramp direction larger than this is a reversal (thermometer noise is less). */
 export const REVERSAL_TOLERANCE_K = 0.5;
-
-function rows(list: number[]): string {
-  const shown = list.slice(0, 10).join(', ');
-  return list.length > 10 ? `${shown} and ${list.length - 10} more` : shown;
-}
 
 /**
  * Finds suspicious points as they come, for an import that stores them slice by slice: a jump
@@ -55,27 +50,15 @@ export class SuspiciousPointFinder {
     const warnings: string[] = [];
     if (this.jumps.length) {
       warnings.push(
-        `${this.jumps.length} point(s) differ from the previous one by more than ${JUMP_FACTOR} times in resistivity (rows ${rows(this.jumps.map((i) => this.rows[i]!))})`,
+        `${this.jumps.length} point(s) differ from the previous one by more than ${JUMP_FACTOR} times in resistivity (rows ${listRows(this.jumps.map((i) => this.rows[i]!))})`,
       );
     }
     if (reversals.length) {
       warnings.push(
-        `the temperature goes against the ramp at ${reversals.length} point(s) (rows ${rows(reversals.map((i) => this.rows[i]!))})`,
+        `the temperature goes against the ramp at ${reversals.length} point(s) (rows ${listRows(reversals.map((i) => this.rows[i]!))})`,
       );
     }
     const flagged = new Set([...this.jumps, ...reversals]).size;
     return { reversals, flagged, warnings };
   }
-}
-
-/**
- * Adds `jump` and `temperature-reversal` flags in place and returns one warning per kind.
- * The ramp direction is that from the first to the last point.
- */
-export function flagSuspiciousPoints(points: ConvertedPoint[]): string[] {
-  const finder = new SuspiciousPointFinder();
-  for (const p of points) finder.add(p);
-  const { reversals, warnings } = finder.finish();
-  for (const i of reversals) points[i]!.flags.push('temperature-reversal');
-  return warnings;
 }

@@ -19,8 +19,9 @@ import { forbidden, notFound } from '../errors';
 import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
-import { VISIBLE_ASSIGNMENT_STATES, visibleWafer } from '../wafers/wafer-access.service';
+import { assignedWaferSql, visibleWafer } from '../wafers/wafer-access.service';
 import type { SweepActor } from './sweep-import.service';
+import { SweepCache } from './sweep-cache';
 import { Sweep, SweepPoint } from './sweep.model';
 
 const gzipAsync = promisify(gzipCallback);
@@ -40,11 +41,7 @@ async function visibleSweep(
   id: number,
   actor: SweepActor,
 ): Promise<{ sweep: Sweep; uploaderName: string | null }> {
-  const assigned =
-    actor.role === 'technician'
-      ? ' AND EXISTS (SELECT 1 FROM assignments AS a WHERE a.wafer_id = w.id' +
-        ' AND a.assignee_id = :userId AND a.state IN (:states))'
-      : '';
+  const assigned = actor.role === 'technician' ? ` AND ${assignedWaferSql('w.id', actor.id)}` : '';
   const rows = (await Sweep.sequelize!.query(
     'SELECT s.*, u.name AS uploader_name FROM sweeps AS s' +
       ' JOIN wafers AS w ON w.id = s.wafer_id AND w.deleted_at IS NULL' +
@@ -52,7 +49,7 @@ async function visibleSweep(
       ' LEFT JOIN users AS u ON u.id = s.uploaded_by_id' +
       ` WHERE s.id = :id AND s.deleted_at IS NULL${assigned}`,
     {
-      replacements: { id, userId: actor.id, states: VISIBLE_ASSIGNMENT_STATES },
+      replacements: { id },
       model: Sweep,
       mapToModel: true,
     },
@@ -113,55 +110,17 @@ interface StoredRaw {
 
 /**
  * Points of recently read sweeps, in response form, with their JSON text once a response has
- * needed it. Stored points are never changed after the upload commits (a deletion is soft and
- * checked before the cache is consulted), so a cached copy cannot go stale, and several API
- * processes may each keep their own.
+ * needed it (a deletion is soft and checked before the cache is consulted).
  */
 interface CachedPoints {
-  /** Which stored sweep these are (see `stampOf`); a different one under the same id misses. */
-  stamp: string;
   points: SweepPointDto[];
   json?: string;
   /** The whole answer gzipped, with the head it was made with (a renamed uploader changes it). */
   gzipped?: { head: string; bytes: Buffer };
 }
-const pointCache = new Map<string, CachedPoints>();
-let cachedPointCount = 0;
 /** Points kept across all cached sweeps (about 0.5 kB each, and as much again as JSON). */
 export const POINT_CACHE_LIMIT = 400_000;
-
-/** Cache key: the database as well as the id, since a test process may talk to several. */
-function cacheKey(id: number): string {
-  return `${Sweep.sequelize?.getDatabaseName() ?? ''}:${id}`;
-}
-
-/**
- * What tells one stored sweep from another under the same id: after a database restore ids
- * are handed out again, so the id alone could name a sweep other than the one cached.
- */
-function stampOf(sweep: Sweep): string {
-  return `${sweep.sha256}:${sweep.createdAt.getTime()}:${sweep.pointCount}`;
-}
-
-function rememberPoints(id: number, stamp: string, points: SweepPointDto[]): CachedPoints {
-  forgetPoints(id);
-  const entry: CachedPoints = { stamp, points };
-  if (points.length > POINT_CACHE_LIMIT / 4) return entry;
-  pointCache.set(cacheKey(id), entry);
-  cachedPointCount += points.length;
-  for (const [oldest, cached] of pointCache) {
-    if (cachedPointCount <= POINT_CACHE_LIMIT) break;
-    pointCache.delete(oldest);
-    cachedPointCount -= cached.points.length;
-  }
-  return entry;
-}
-
-function forgetPoints(id: number): void {
-  const cached = pointCache.get(cacheKey(id));
-  if (cached) cachedPointCount -= cached.points.length;
-  pointCache.delete(cacheKey(id));
-}
+const pointCache = new SweepCache<CachedPoints>(POINT_CACHE_LIMIT, (c) => c.points.length);
 
 interface SweepParts {
   head: Omit<SweepDto, 'points'>;
@@ -178,15 +137,9 @@ async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,
   };
-  const stamp = stampOf(sweep);
-  const cached = pointCache.get(cacheKey(id));
-  if (cached?.stamp === stamp) {
-    // least recently used goes first when the cache is full
-    pointCache.delete(cacheKey(id));
-    pointCache.set(cacheKey(id), cached);
-    return { head, cached };
-  }
-  return { head, cached: rememberPoints(id, stamp, await readPoints(id, columns)) };
+  const cached =
+    pointCache.get(sweep) ?? pointCache.remember(sweep, { points: await readPoints(id, columns) });
+  return { head, cached };
 }
 
 async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPointDto[]> {
@@ -302,5 +255,5 @@ export async function deleteSweep(id: number, actor: SweepActor): Promise<void> 
       transaction,
     );
   });
-  forgetPoints(id);
+  pointCache.forget(id);
 }

@@ -6,7 +6,7 @@ import { Lot } from '../lots/lot.model';
 import { Wafer } from './wafer.model';
 
 /** Assignment states that still give a technician sight of the wafer. */
-export const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'];
+const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'];
 
 /** Ids of the wafers a technician has been assigned (any state but cancelled). */
 export async function assignedWaferIds(
@@ -19,6 +19,19 @@ export async function assignedWaferIds(
     transaction,
   });
   return [...new Set(rows.map((r) => r.waferId))];
+}
+
+/**
+ * The same rule as SQL, for queries that join their way to a wafer: true when the wafer in
+ * column `waferColumn` is assigned to user `userId` in a state that still shows it.
+ */
+export function assignedWaferSql(waferColumn: string, userId: number): string {
+  const db = Wafer.sequelize!;
+  const states = VISIBLE_ASSIGNMENT_STATES.map((v) => db.escape(v)).join(', ');
+  return (
+    `EXISTS (SELECT 1 FROM assignments AS a WHERE a.wafer_id = ${waferColumn}` +
+    ` AND a.assignee_id = ${db.escape(userId)} AND a.state IN (${states}))`
+  );
 }
 
 /**

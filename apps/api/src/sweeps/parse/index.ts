@@ -3,7 +3,7 @@ export { decodeText, UnreadableFileError } from './decode';
 export { detectLayout, splitLine, type Delimiter, type FileLayout } from './layout';
 export { recogniseMetadata, readLengthCm, type RecognisedMetadata } from './metadata';
 export { readNumber, type DecimalMark } from './numbers';
-export { DataTableReader, readDataTable, type DataTable } from './read-table';
+export { DataTableReader, type DataTable } from './read-table';
 export {
   applyColumnOverrides,
   MAX_PROBLEMS,

@@ -78,13 +78,6 @@ function parseOrRefuse<T>(
   }
 }
 
-/** Parses the data section as a whole. */
-export function readDataTable(text: string, layout: FileLayout): DataTable {
-  const reader = new DataTableReader(text, layout);
-  reader.readMore(Infinity);
-  return reader.table;
-}
-
 /**
  * Reads the data section a stretch of lines at a time (`readMore`), appending to `table`, so an
  * import can store what it has read while it reads on. Line-aligned stretches are safe only
