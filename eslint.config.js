@@ -4,7 +4,7 @@ import angular from 'angular-eslint';
 import tseslint from 'typescript-eslint';
 
 /**
- * Package boundaries (STYLE.md): libraries import no framework and no other workspace package;
+ * Package boundaries: libraries import no framework and no other workspace package;
  * the web app never imports the API; nothing reaches into another package by relative path.
  */
 const crossPackageRelative = {
@@ -37,7 +37,7 @@ const restrict = (paths, groups = []) => [
   {
     paths: paths.map((name) => ({
       name,
-      message: 'This package may not depend on it (STYLE.md).',
+      message: 'This package may not depend on it (package boundaries, README.md).',
     })),
     patterns: [crossPackageRelative, ...groups],
   },

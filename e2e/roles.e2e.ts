@@ -8,7 +8,7 @@ import {
   signIn,
 } from './support/app';
 
-/** The navigation each role should see (PRODUCT.md section 2), in order. */
+/** The navigation each role should see, in order (each role sees only what it may use). */
 const EXPECTED_NAV: Record<DemoRole, string[]> = {
   admin: [
     'Bench',

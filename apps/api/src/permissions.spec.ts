@@ -1,6 +1,6 @@
 /**
  * The permission matrix: every route against every role (and no token), expecting the status
- * PRODUCT.md section 2 gives. One row per route; read it as a table.
+ * each role is meant to get. One row per route; read it as a table.
  *
  * Placeholders in paths (`:lot`, `:wafer`…) are fixture ids made in `beforeAll`; a row with
  * `fresh` gets a new record per request (deletes, state changes), so each role meets the same
@@ -98,7 +98,7 @@ const MATRIX: Row[] = [
   // ── sweep import, fits, analysis and reports: append your rows below this line ──
 ];
 
-describe('permission matrix (PRODUCT.md section 2)', () => {
+describe('permission matrix: every route against every role', () => {
   let ctx: TestContext;
   beforeAll(async () => {
     ctx = await createTestContext();

@@ -5,7 +5,7 @@ import { createTestContext, type TestContext } from '../testing/test-context';
 import { assign, makeLot, makeSweep, range, synthesize } from './testing/fixtures';
 
 /**
- * Route × role → status for the analysis, fit and report routes (PRODUCT.md section 2):
+ * Route × role → status for the analysis, fit and report routes:
  * everyone reads analysis of what they may see; technicians only their assigned wafers (404
  * otherwise, so existence does not leak) and never run fits (403); deleting a fit: admin and
  * manager any, engineer and physicist their own.

@@ -20,7 +20,7 @@ import { safetyCautionsFor } from './assignment-safety';
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
 /** The order an assignee may move their own assignment along. */
 const FORWARD: AssignmentState[] = ['assigned', 'in progress', 'done'];
-/** Roles that assign work (PRODUCT.md section 2). */
+/** Roles that assign work: admins and managers hand wafers to technicians. */
 export const ASSIGNERS = ['admin', 'manager'] as const;
 
 const isAssigner = (user: SessionUser) => (ASSIGNERS as readonly string[]).includes(user.role);

@@ -3,7 +3,7 @@ import type { AppDeps } from '../deps';
 import { authenticate, requireRole } from '../middleware/authenticate';
 import { lotsController as c } from './lots.controller';
 
-/** Roles that create and edit lots, wafers and specs (PRODUCT.md section 2). */
+/** Roles that create and edit lots, wafers and specs; physicists and technicians only read. */
 export const RECORD_EDITORS = ['admin', 'manager', 'engineer'] as const;
 
 /** /api/lots: everyone reads (technicians only lots holding their wafers); editors write. */

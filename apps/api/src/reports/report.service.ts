@@ -4,7 +4,7 @@ import { averageSteps, sweepReadings, visibleSweep } from '../analysis/sweep-dat
 import { specCheck } from '../analysis/spec-check';
 import { listFitsOfSweep } from '../fits/fit.service';
 
-/** Cautions every printed report carries (PRODUCT.md section 6, in Rhotrace's words). */
+/** Cautions every printed report carries: the bench's usual hazards, deferring to local rules. */
 export const REPORT_CAUTIONS = [
   'Hot chucks burn and cryogens freeze skin and displace oxygen: handle stages and dewars with the protection your lab requires.',
   'Probe current heats small samples and can damage thin films: keep the current as low as the reading allows.',

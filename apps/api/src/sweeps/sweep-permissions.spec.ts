@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { assignToTechnician, makeWafer } from './sweep-test-helpers';
 
-/** PRODUCT.md section 2, import rows: the status each role gets. */
+/** Sweep import: the status each role gets (technicians see only their assigned wafers). */
 const MATRIX: Array<{ action: string; expected: Record<Role, number> }> = [
   {
     action: 'upload to an unassigned wafer',
@@ -121,7 +121,7 @@ async function attempt(action: string, role: Role): Promise<number> {
   }
 }
 
-describe('sweep import permissions (PRODUCT.md section 2)', () => {
+describe('sweep import permissions', () => {
   for (const { action, expected } of MATRIX) {
     for (const role of ROLES) {
       it(`${role}: ${action} → ${expected[role]}`, async () => {

@@ -1,6 +1,6 @@
 import type { Role } from '@rhotrace/api-types';
 
-/** Who may do what in the app (mirrors the product's role table; the API enforces it). */
+/** Who may do what in the app (the API enforces the same rules; this only shapes the screens). */
 export const PERMISSIONS = {
   editRecords: ['admin', 'manager', 'engineer'],
   editStations: ['admin', 'manager', 'engineer'],
