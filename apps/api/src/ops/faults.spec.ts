@@ -1,5 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { join } from 'node:path';
+import mariadb from 'mariadb';
 import { Transaction } from 'sequelize';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -30,17 +31,26 @@ function killGroup(child: ChildProcess, signal: NodeJS.Signals): void {
   }
 }
 
-/** Points visible to a READ UNCOMMITTED reader, i.e. including uncommitted ones. */
-function dirtyPointCount(ctx: TestContext): Promise<number> {
+/** Rows of `table` visible to a READ UNCOMMITTED reader, i.e. including uncommitted ones. */
+function dirtyCount(ctx: TestContext, table: string): Promise<number> {
   return ctx.sequelize.transaction(
     { isolationLevel: Transaction.ISOLATION_LEVELS.READ_UNCOMMITTED },
     async (transaction) => {
-      const [rows] = (await ctx.sequelize.query('SELECT COUNT(*) AS n FROM sweep_points', {
+      const [rows] = (await ctx.sequelize.query(`SELECT COUNT(*) AS n FROM ${table}`, {
         transaction,
       })) as [Array<{ n: number }>, unknown];
       return Number(rows[0]!.n);
     },
   );
+}
+
+/** Statements of the application's user now running an INSERT into `table` (waiting included). */
+async function waitingInserts(ctx: TestContext, table: string): Promise<number> {
+  const [rows] = (await ctx.sequelize.query(
+    'SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE INFO LIKE ?',
+    { replacements: [`INSERT INTO \`${table}\`%`] },
+  )) as [Array<{ n: number }>, unknown];
+  return Number(rows[0]!.n);
 }
 
 /** `SELECT COUNT(*)` of a table as a number. */
@@ -122,6 +132,13 @@ describe('faults: the database killed under a running API', () => {
     const stored = await upload(fourPointCsv(400, 'for fit'));
     expect(stored.status).toBe(201);
     const fitsBefore = await countRows(ctx, 'fits');
+    const auditBefore = await countRows(ctx, 'audit_events');
+    // Hold the audit table from a connection of our own: the fit's transaction writes its row,
+    // then waits on its audit event, so the kill below lands inside that transaction every time.
+    const { host, port, user, password, name } = ctx.config.db;
+    const holder = await mariadb.createConnection({ host, port, user, password, database: name });
+    holder.on('error', () => undefined); // the kill below drops this connection too
+    await holder.query('LOCK TABLES audit_events WRITE');
     const pending = request(ctx.app)
       .post(`/api/sweeps/${stored.body.id}/fits`)
       .set(ctx.auth('physicist'))
@@ -131,19 +148,29 @@ describe('faults: the database killed under a running API', () => {
         maxK: 400,
         quantity: 'resistivity',
         prefactorExponent: 0,
-      });
-    setTimeout(() => db.kill(), 5);
+      })
+      .then((res) => res);
+    const midFit = await waitFor(
+      async () =>
+        (await dirtyCount(ctx, 'fits')) === fitsBefore + 1 &&
+        (await waitingInserts(ctx, 'audit_events')) === 1,
+      30_000,
+    );
+    expect(midFit).toBe(true);
+    db.kill();
     const res = await pending;
-    expect([503, 201]).toContain(res.status);
+    await holder.end().catch(() => undefined);
+    expect(res.status).toBe(503);
+    expect(res.headers['retry-after']).toBeDefined();
+    expect(res.body.error.code).toBe('unavailable');
     await db.waitUntilGone();
     await db.start();
     expect(
       await waitFor(async () => (await request(ctx.app).get('/api/health')).status === 200, 30_000),
     ).toBe(true);
-    const fitsAfter = await countRows(ctx, 'fits');
-    // Either the fit committed whole before the kill (201) or nothing of it remains (503).
-    expect(Number(fitsAfter)).toBe(Number(fitsBefore) + (res.status === 201 ? 1 : 0));
-    if (res.status === 503) expect(res.headers['retry-after']).toBeDefined();
+    // Crash recovery rolled the open transaction back: neither the fit nor its audit event stayed.
+    expect(await countRows(ctx, 'fits')).toBe(fitsBefore);
+    expect(await countRows(ctx, 'audit_events')).toBe(auditBefore);
   }, 120_000);
 });
 
@@ -228,15 +255,15 @@ describe('faults and scale-out: API processes', () => {
       () => 'aborted',
     );
     // Kill the API process while its upload transaction has rows written but not committed.
-    expect(await waitFor(async () => (await dirtyPointCount(ctx)) > before.points, 30_000)).toBe(
-      true,
-    );
+    expect(
+      await waitFor(async () => (await dirtyCount(ctx, 'sweep_points')) > before.points, 30_000),
+    ).toBe(true);
     killGroup(first.child, 'SIGKILL');
     expect(await pending).toBe('aborted');
     // MariaDB sees the dropped connection and rolls back: even a dirty read finds no extra point.
-    expect(await waitFor(async () => (await dirtyPointCount(ctx)) === before.points, 30_000)).toBe(
-      true,
-    );
+    expect(
+      await waitFor(async () => (await dirtyCount(ctx, 'sweep_points')) === before.points, 30_000),
+    ).toBe(true);
     expect(await pointDigest(ctx)).toEqual(before);
     const rawAfter = await countRows(ctx, 'raw_files');
     expect(Number(rawAfter)).toBe(Number(rawBefore));
