@@ -92,7 +92,9 @@ export function createApp(deps: AppDeps): Express {
         serveStatic: { index: false, maxAge: '1h' },
       }),
     );
-    app.get('/{*path}', (_req, res) => res.sendFile(join(dist, 'index.html')));
+    // With `root`, send checks only the file's own path for dotted names: given the absolute
+    // path, it refused every deep link of a checkout under a folder such as ~/.local.
+    app.get('/{*path}', (_req, res) => res.sendFile('index.html', { root: dist }));
   }
   app.use(errorHandler);
   return app;

@@ -1,4 +1,4 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { brotliCompressSync } from 'node:zlib';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -69,5 +69,38 @@ describe('serving the built web app from the API process', () => {
     const res = await request(ctx.app).get('/api/not-a-route');
     expect(res.status).toBe(404);
     expect(res.body.error.code).toBe('not_found');
+  });
+});
+
+describe('serving the web app from a checkout inside a folder whose name starts with a dot', () => {
+  let ctx: TestContext;
+  beforeAll(async () => {
+    // e.g. a checkout under ~/.local/src: `send` refuses dotted folders in an absolute path
+    const dist = join(mkdtempSync(join(tmpdir(), 'rhotrace-')), '.hidden', 'dist');
+    mkdirSync(dist, { recursive: true });
+    writeFileSync(join(dist, 'index.html'), '<!doctype html><title>Rhotrace</title><rt-root>');
+    writeFileSync(join(dist, 'main-TEST.js'), 'console.log("rhotrace");');
+    ctx = await createTestContext({ webDist: dist });
+  });
+  afterAll(async () => {
+    await ctx.close();
+  });
+
+  it('answers a deep link with index.html', async () => {
+    const res = await request(ctx.app).get('/lots/3/wafers?tab=sweeps');
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('<rt-root>');
+  });
+
+  it('serves the bundle files beside it', async () => {
+    const res = await request(ctx.app).get('/main-TEST.js');
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('rhotrace');
+  });
+
+  it('still refuses dotted names inside the build folder itself', async () => {
+    writeFileSync(join(ctx.config.webDist, '.secret'), 'not for the web');
+    const res = await request(ctx.app).get('/.secret');
+    expect(res.text).not.toContain('not for the web');
   });
 });
