@@ -1,5 +1,6 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
+import { basename } from 'node:path';
 
 /** A free TCP port on loopback. */
 export function freePort(): Promise<number> {
@@ -14,7 +15,30 @@ export function freePort(): Promise<number> {
   });
 }
 
-const children = new Set<ChildProcess>();
+const children = new Map<ChildProcess, string>();
+let onChange: ((groups: Array<{ pid: number; label: string }>) => void) | null = null;
+
+/** Tells `listener` the process groups running now, each time one starts or ends. */
+export function onChildrenChange(
+  listener: (groups: Array<{ pid: number; label: string }>) => void,
+): void {
+  onChange = listener;
+}
+
+function track(child: ChildProcess, label: string): void {
+  children.set(child, label);
+  notify();
+}
+
+function untrack(child: ChildProcess): void {
+  if (children.delete(child)) notify();
+}
+
+function notify(): void {
+  onChange?.(
+    [...children].flatMap(([c, label]) => (c.pid === undefined ? [] : [{ pid: c.pid, label }])),
+  );
+}
 
 /** Starts a long-running process in its own process group, so it can be stopped with its children. */
 export function startProcess(
@@ -24,7 +48,7 @@ export function startProcess(
   label: string,
 ): ChildProcess {
   const child = spawn(command, args, { env, stdio: ['ignore', 'pipe', 'pipe'], detached: true });
-  children.add(child);
+  track(child, label);
   const prefix = (chunk: Buffer) =>
     chunk
       .toString()
@@ -34,7 +58,7 @@ export function startProcess(
       .join('');
   child.stdout?.on('data', (c: Buffer) => process.stdout.write(prefix(c)));
   child.stderr?.on('data', (c: Buffer) => process.stderr.write(prefix(c)));
-  child.on('exit', () => children.delete(child));
+  child.on('exit', () => untrack(child));
   return child;
 }
 
@@ -60,7 +84,7 @@ export async function stopProcess(child: ChildProcess, graceMs = 5_000): Promise
 
 /** Stops every process still running that `startProcess` started. */
 export async function stopAll(): Promise<void> {
-  await Promise.all([...children].map((c) => stopProcess(c)));
+  await Promise.all([...children.keys()].map((c) => stopProcess(c)));
 }
 
 /** Runs a command to completion, echoing its output, and returns its exit code and output. */
@@ -76,7 +100,7 @@ export function runCommand(
       stdio: ['ignore', 'pipe', 'pipe'],
       detached: true,
     });
-    children.add(child);
+    track(child, [basename(command), ...args.slice(0, 2)].join(' '));
     let output = '';
     child.stdout.on('data', (c: Buffer) => {
       output += c.toString();
@@ -87,11 +111,11 @@ export function runCommand(
       process.stderr.write(c);
     });
     child.on('close', (code, signal) => {
-      children.delete(child);
+      untrack(child);
       resolveRun({ code: code ?? (signal ? 1 : 0), output });
     });
     child.on('error', (error) => {
-      children.delete(child);
+      untrack(child);
       resolveRun({ code: 127, output: String(error) });
     });
   });

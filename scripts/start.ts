@@ -1,11 +1,13 @@
 /**
  * `npm start`: the one command that runs Rhotrace on this machine. Starts the private MariaDB,
  * migrates, seeds the demo once (never with NODE_ENV=production), starts the SMTP stand-in,
- * builds the web app when its sources changed, and serves web app and API on 127.0.0.1:PORT.
- * Ctrl-C or SIGTERM stops everything and shuts MariaDB down cleanly.
+ * builds the web app when its sources changed (not with --no-web-build), and serves web app and
+ * API on 127.0.0.1:PORT. Ctrl-C, SIGTERM or `npm run stop` stops everything and shuts MariaDB down
+ * cleanly. If the starter is killed outright, or whatever launched it ends, the guardian it leaves
+ * behind (scripts/guardian.ts) or its own watch stops the rest, so no port stays taken.
  */
 import { createHash } from 'node:crypto';
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
 import {
   existsSync,
   mkdirSync,
@@ -17,25 +19,26 @@ import {
 } from 'node:fs';
 import { createServer } from 'node:net';
 import { isAbsolute, join, resolve } from 'node:path';
-import { runCommand, startProcess, stopAll, waitForHttp } from './processes';
+import { watchLaunchers } from './launcher-watch';
+import {
+  alive,
+  recordFile,
+  starterPidFile,
+  survivors,
+  writeRecord,
+  type StartRecord,
+} from './leftovers';
+import { onChildrenChange, runCommand, startProcess, stopAll, waitForHttp } from './processes';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const port = Number(process.env.PORT ?? 4300);
 const dataDirRaw = process.env.DATA_DIR ?? join(ROOT, 'db/.data');
 const dataDir = isAbsolute(dataDirRaw) ? dataDirRaw : resolve(ROOT, dataDirRaw);
 const production = process.env.NODE_ENV === 'production';
-const pidFile = join(dataDir, 'rhotrace.pid');
+const pidFile = starterPidFile(dataDir);
+const buildWeb = !process.argv.includes('--no-web-build');
 const bin = (name: string) => join(ROOT, 'node_modules/.bin', name);
 const env: NodeJS.ProcessEnv = { ...process.env, DATA_DIR: dataDir, PORT: String(port) };
-
-function alive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-}
 
 function portFree(p: number): Promise<boolean> {
   return new Promise((r) => {
@@ -64,6 +67,27 @@ function webSourceHash(): string {
   return hash.digest('hex');
 }
 
+/** The command that stops this data folder's Rhotrace from another terminal. */
+function stopCommand(): string {
+  return process.env.DATA_DIR ? `DATA_DIR=${dataDir} npm run stop` : 'npm run stop';
+}
+
+/**
+ * Starts the guardian, which stops what this start started if this process ends without doing
+ * it (see scripts/guardian.ts). Its standard input is a pipe that only our death closes.
+ */
+function startGuardian(): number | null {
+  const guardian = spawn(bin('tsx'), ['scripts/guardian.ts', dataDir, String(process.pid)], {
+    cwd: ROOT,
+    env,
+    stdio: ['pipe', 'inherit', 'inherit'],
+    detached: true,
+  });
+  guardian.on('error', (error) => console.error(`[start] no guardian: ${error.message}`));
+  guardian.unref();
+  return guardian.pid ?? null;
+}
+
 let stopping = false;
 async function shutdown(code: number): Promise<never> {
   if (!stopping) {
@@ -75,6 +99,8 @@ async function shutdown(code: number): Promise<never> {
     } catch {
       /* db.sh reports */
     }
+    // Last: while the record exists, the guardian would finish this work if we were killed.
+    rmSync(recordFile(dataDir), { force: true });
     rmSync(pidFile, { force: true });
   }
   process.exit(code);
@@ -87,12 +113,19 @@ async function main(): Promise<void> {
     if (pid && alive(pid)) {
       console.error(
         `[start] Rhotrace is already running from ${dataDir} (process ${pid}) at http://127.0.0.1:${readFileSync(join(dataDir, 'rhotrace.port'), 'utf8').trim()}.\n` +
-          '        Stop it with Ctrl-C in its terminal (or `kill ' +
-          pid +
-          '`), or start a second copy with another PORT, DB_PORT and DATA_DIR.',
+          `        Stop it with Ctrl-C in its terminal or with: ${stopCommand()}\n` +
+          '        or start a second copy with another PORT, DB_PORT and DATA_DIR.',
       );
       process.exit(1);
     }
+  }
+  const stale = survivors(dataDir);
+  if (stale.length) {
+    console.error(
+      `[start] an earlier start of Rhotrace from ${dataDir} ended but left running: ` +
+        `${stale.join(', ')}.\n        Stop them with: ${stopCommand()}`,
+    );
+    process.exit(1);
   }
   if (!(await portFree(port))) {
     console.error(
@@ -104,6 +137,21 @@ async function main(): Promise<void> {
   writeFileSync(join(dataDir, 'rhotrace.port'), String(port));
   for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const)
     process.on(signal, () => void shutdown(0));
+  watchLaunchers((gone) => {
+    console.error(`[start] the process that launched Rhotrace (${gone}) has ended`);
+    void shutdown(1);
+  });
+  const record: StartRecord = {
+    starterPid: process.pid,
+    guardianPid: startGuardian(),
+    // before db.sh runs: a kill during its start must still stop the server
+    database: true,
+    groups: [],
+  };
+  writeRecord(dataDir, record);
+  onChildrenChange((groups) => {
+    if (!stopping) writeRecord(dataDir, { ...record, groups });
+  });
 
   execFileSync('bash', [join(ROOT, 'db/db.sh'), 'start'], { env, stdio: 'inherit' });
   const step = async (label: string, args: string[]) => {
@@ -118,7 +166,9 @@ async function main(): Promise<void> {
 
   const stamp = join(ROOT, 'dist/web/.source-hash');
   const hash = webSourceHash();
-  if (
+  if (!buildWeb) {
+    console.log('[start] --no-web-build: serving the web app as last built, if it was');
+  } else if (
     !existsSync(join(ROOT, 'dist/web/browser/index.html')) ||
     !existsSync(stamp) ||
     readFileSync(stamp, 'utf8') !== hash
