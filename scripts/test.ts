@@ -10,6 +10,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
+import { alive } from './leftovers';
 import { freePort, runCommand, startProcess, stopAll, stopProcess, waitForHttp } from './processes';
 import { ensureDebianPackage } from './system-packages';
 
@@ -81,15 +82,6 @@ async function suite(
   });
 }
 
-function pidAlive(pid: number): boolean {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-}
-
 /** Stops databases and removes folders left by earlier runs that were killed half-way. */
 function cleanStaleRuns(): void {
   for (const entry of readdirSync(tmpdir())) {
@@ -98,7 +90,7 @@ function cleanStaleRuns(): void {
     const owner = Number(
       existsSync(join(dir, 'runner.pid')) ? readFileSync(join(dir, 'runner.pid'), 'utf8') : 0,
     );
-    if (owner && pidAlive(owner)) continue;
+    if (owner && alive(owner)) continue;
     try {
       execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], {
         env: { ...process.env, DATA_DIR: dir },
