@@ -2,14 +2,14 @@
  * `npm start` killed outright: nothing it started may outlive it (the next start would find its
  * ports taken), and a start that finds leftovers of its own data folder says so and names the
  * command that stops them. Each test starts the stack as `npm start` does (npm's `sh -c`, the tsx
- * launcher, scripts/start.ts; without the web build) on free ports in a fresh data folder.
+ * launcher, scripts/start.ts; without the web build) on free ports in a temporary data folder.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../config';
 import { freePortForTest } from '../testing/free-port';
 
@@ -50,9 +50,10 @@ async function waitFor(check: () => boolean | Promise<boolean>, timeoutMs: numbe
 }
 
 const stacks: Stack[] = [];
+/** One data folder for every start here: each test stops its stack, and a second start is faster. */
+const dataDir = mkdtempSync(join(tmpdir(), 'rhotrace-lifetime-'));
 
 async function startStack(): Promise<Stack> {
-  const dataDir = mkdtempSync(join(tmpdir(), 'rhotrace-lifetime-'));
   const [port, dbPort, smtpPort] = [
     await freePortForTest(),
     await freePortForTest(),
@@ -126,9 +127,9 @@ afterEach(() => {
     } catch {
       /* reported by the test */
     }
-    rmSync(stack.dataDir, { recursive: true, force: true });
   }
 });
+afterAll(() => rmSync(dataDir, { recursive: true, force: true }));
 
 describe('process lifetime: npm start killed with SIGKILL', () => {
   it('a killed launcher (as npm is) takes the API, mail stand-in and MariaDB down', async () => {
