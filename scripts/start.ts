@@ -165,7 +165,7 @@ async function main(): Promise<void> {
   if (!production) await step('demo seed', ['apps/api/src/db/cli.ts', 'seed']);
 
   const stamp = join(ROOT, 'dist/web/.source-hash');
-  const hash = webSourceHash();
+  const hash = buildWeb ? webSourceHash() : '';
   if (!buildWeb) {
     console.log('[start] --no-web-build: serving the web app as last built, if it was');
   } else if (
