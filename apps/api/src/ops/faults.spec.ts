@@ -53,6 +53,18 @@ async function waitingInserts(ctx: TestContext, table: string): Promise<number> 
   return Number(rows[0]!.n);
 }
 
+/**
+ * Locks `table` against writes from a connection of the test's own, so that a transaction that
+ * writes to it waits there, open, until the lock ends (or the database dies).
+ */
+async function holdTable(ctx: TestContext, table: string): Promise<mariadb.Connection> {
+  const { host, port, user, password, name } = ctx.config.db;
+  const holder = await mariadb.createConnection({ host, port, user, password, database: name });
+  holder.on('error', () => undefined); // killing the database drops this connection too
+  await holder.query(`LOCK TABLES ${table} WRITE`);
+  return holder;
+}
+
 /** `SELECT COUNT(*)` of a table as a number. */
 async function countRows(ctx: TestContext, table: string): Promise<number> {
   const [rows] = (await ctx.sequelize.query(`SELECT COUNT(*) AS n FROM ${table}`)) as [
@@ -99,15 +111,19 @@ describe('faults: the database killed under a running API', () => {
     const before = await pointDigest(ctx);
     expect(before.points).toBe(2_000);
 
-    const started = Date.now();
-    const baseline = await upload(fourPointCsv(60_000, 'baseline'));
-    expect(baseline.status).toBe(201);
-    const uploadMs = Date.now() - started;
-    const committed = await pointDigest(ctx);
-
-    const pending = upload(fourPointCsv(60_000, 'killed'));
-    setTimeout(() => db.kill(), Math.max(50, uploadMs / 2));
+    // The upload writes every point, then waits on its audit event: the kill lands inside it.
+    const holder = await holdTable(ctx, 'audit_events');
+    const pending = upload(fourPointCsv(20_000, 'killed')).then((res) => res);
+    const midUpload = await waitFor(
+      async () =>
+        (await dirtyCount(ctx, 'sweep_points')) === before.points + 20_000 &&
+        (await waitingInserts(ctx, 'audit_events')) === 1,
+      60_000,
+    );
+    expect(midUpload).toBe(true);
+    db.kill();
     const killed = await pending;
+    await holder.end().catch(() => undefined);
     expect(killed.status).toBe(503);
     expect(killed.headers['retry-after']).toBeDefined();
     expect(killed.body.error.code).toBe('unavailable');
@@ -123,7 +139,7 @@ describe('faults: the database killed under a running API', () => {
       30_000,
     );
     expect(recovered).toBe(true);
-    expect(await pointDigest(ctx)).toEqual(committed);
+    expect(await pointDigest(ctx)).toEqual(before);
     const again = await upload(fourPointCsv(500, 'after recovery'));
     expect(again.status).toBe(201);
   }, 120_000);
@@ -133,12 +149,8 @@ describe('faults: the database killed under a running API', () => {
     expect(stored.status).toBe(201);
     const fitsBefore = await countRows(ctx, 'fits');
     const auditBefore = await countRows(ctx, 'audit_events');
-    // Hold the audit table from a connection of our own: the fit's transaction writes its row,
-    // then waits on its audit event, so the kill below lands inside that transaction every time.
-    const { host, port, user, password, name } = ctx.config.db;
-    const holder = await mariadb.createConnection({ host, port, user, password, database: name });
-    holder.on('error', () => undefined); // the kill below drops this connection too
-    await holder.query('LOCK TABLES audit_events WRITE');
+    // The fit's transaction writes its row, then waits on its audit event: the kill lands inside.
+    const holder = await holdTable(ctx, 'audit_events');
     const pending = request(ctx.app)
       .post(`/api/sweeps/${stored.body.id}/fits`)
       .set(ctx.auth('physicist'))
