@@ -1,9 +1,10 @@
 /**
  * Notices when whatever launched this process is gone. `npm start` runs npm, then npm's `sh -c`,
- * then start.sh exec'd into the tsx launcher, then this script: a SIGKILL of npm leaves the rest
- * running as orphans, since neither sh nor tsx stop when their parent dies. So the watch covers
- * the parent and, through those wrappers, every ancestor up to the first that is not one (npm,
- * a terminal's shell, a test runner). On Linux it reads /proc; elsewhere only the parent's id.
+ * then start.sh exec'd into node running this script: a SIGKILL of npm leaves the rest running as
+ * orphans, since sh does not stop when its parent dies (nor does the tsx launcher, where one runs
+ * this script). So the watch covers the parent and, through those wrappers, every ancestor up to
+ * the first that is not one (npm, a terminal's shell, a test runner). On Linux it reads /proc;
+ * elsewhere it sees only the parent's id.
  */
 import { readFileSync } from 'node:fs';
 

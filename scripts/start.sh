@@ -3,4 +3,6 @@
 set -euo pipefail
 cd "$(dirname "${BASH_SOURCE[0]}")/.."
 source scripts/ensure-node-modules.sh
-exec node_modules/.bin/tsx scripts/start.ts "$@"
+# node itself, not the tsx launcher: on Ctrl-C the launcher SIGKILLs a child that does not confirm
+# the signal within 30 ms, which cut the shutdown short and left MariaDB running.
+exec node --import tsx scripts/start.ts "$@"

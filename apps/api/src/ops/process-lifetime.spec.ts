@@ -1,8 +1,8 @@
 /**
  * `npm start` killed outright: nothing it started may outlive it (the next start would find its
  * ports taken), and a start that finds leftovers of its own data folder says so and names the
- * command that stops them. Each test starts the stack as `npm start` does (npm's `sh -c`, the tsx
- * launcher, scripts/start.ts; without the web build) on free ports in a temporary data folder.
+ * command that stops them. Each test starts the stack as `npm start` does (npm's `sh -c`, then
+ * node running scripts/start.ts; without the web build) on free ports in a temporary data folder.
  */
 import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
@@ -70,10 +70,14 @@ async function startStack(): Promise<Stack> {
   };
   // the suite's own database settings would point the API away from the stack's server
   for (const key of ['DB_HOST', 'DB_NAME', 'DB_USER', 'DB_PASSWORD', 'JWT_SECRET']) delete env[key];
-  const launcher = spawn('sh', ['-c', `"${tsx}" scripts/start.ts --no-web-build`], {
+  // what `npm start` runs: npm's `sh -c`, then scripts/start.sh's command line
+  const command = `"${process.execPath}" --import tsx scripts/start.ts --no-web-build`;
+  const launcher = spawn('sh', ['-c', command], {
     cwd: REPO_ROOT,
     env,
     stdio: ['ignore', 'pipe', 'pipe'],
+    // a group of its own, as a terminal gives the command it runs (Ctrl-C signals that group)
+    detached: true,
   });
   let output = '';
   launcher.stdout!.on('data', (c: Buffer) => (output += c.toString()));
@@ -132,6 +136,16 @@ afterEach(() => {
 afterAll(() => rmSync(dataDir, { recursive: true, force: true }));
 
 describe('process lifetime: npm start killed with SIGKILL', () => {
+  it('Ctrl-C: the starter itself stops everything, MariaDB cleanly', async () => {
+    const stack = await startStack();
+    const ids = processesOf(stack);
+    process.kill(-stack.launcher.pid!, 'SIGINT');
+    expect(await waitFor(() => allGone(stack, ids), 30_000)).toBe(true);
+    expect(stack.output()).toContain('[db] stopped');
+    // the guardian had nothing to finish
+    expect(stack.output()).not.toContain('[guardian]');
+  }, 150_000);
+
   it('a killed launcher (as npm is) takes the API, mail stand-in and MariaDB down', async () => {
     const stack = await startStack();
     const ids = processesOf(stack);
@@ -164,7 +178,7 @@ describe('process lifetime: npm start killed with SIGKILL', () => {
 
     let refusal = '';
     try {
-      execFileSync(tsx, ['scripts/start.ts', '--no-web-build'], {
+      execFileSync(process.execPath, ['--import', 'tsx', 'scripts/start.ts', '--no-web-build'], {
         cwd: REPO_ROOT,
         env: stack.env,
         stdio: 'pipe',
