@@ -38,6 +38,11 @@ const production = process.env.NODE_ENV === 'production';
 const pidFile = starterPidFile(dataDir);
 const buildWeb = !process.argv.includes('--no-web-build');
 const bin = (name: string) => join(ROOT, 'node_modules/.bin', name);
+/**
+ * Node running a TypeScript file, for the processes that must stop gracefully: through the tsx
+ * launcher, a SIGTERM not confirmed by the child within 30 ms becomes a SIGKILL.
+ */
+const typescript = (script: string, ...args: string[]) => ['--import', 'tsx', script, ...args];
 const env: NodeJS.ProcessEnv = { ...process.env, DATA_DIR: dataDir, PORT: String(port) };
 
 function portFree(p: number): Promise<boolean> {
@@ -77,12 +82,16 @@ function stopCommand(): string {
  * it (see scripts/guardian.ts). Its standard input is a pipe that only our death closes.
  */
 function startGuardian(): number | null {
-  const guardian = spawn(bin('tsx'), ['scripts/guardian.ts', dataDir, String(process.pid)], {
-    cwd: ROOT,
-    env,
-    stdio: ['pipe', 'inherit', 'inherit'],
-    detached: true,
-  });
+  const guardian = spawn(
+    process.execPath,
+    typescript('scripts/guardian.ts', dataDir, `${process.pid}`),
+    {
+      cwd: ROOT,
+      env,
+      stdio: ['pipe', 'inherit', 'inherit'],
+      detached: true,
+    },
+  );
   guardian.on('error', (error) => console.error(`[start] no guardian: ${error.message}`));
   guardian.unref();
   return guardian.pid ?? null;
@@ -188,8 +197,9 @@ async function main(): Promise<void> {
     console.log('[start] web app unchanged since the last build');
   }
 
-  const mail = startProcess(bin('tsx'), ['apps/api/src/mail/stand-in-main.ts'], env, 'mail');
-  const api = startProcess(bin('tsx'), ['apps/api/src/main.ts'], env, 'api');
+  const node = process.execPath;
+  const mail = startProcess(node, typescript('apps/api/src/mail/stand-in-main.ts'), env, 'mail');
+  const api = startProcess(node, typescript('apps/api/src/main.ts'), env, 'api');
   for (const child of [mail, api]) {
     child.on('exit', (code) => {
       if (!stopping) {
