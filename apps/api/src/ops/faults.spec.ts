@@ -105,6 +105,40 @@ describe('faults: the database killed under a running API', () => {
       .field('spacingCm', '0.1')
       .attach('file', file, 'sweep.csv');
 
+  /**
+   * Sends a request whose transaction ends with an audit event, with the audit table held: once
+   * `written()` (its rows are in, uncommitted) and its audit insert waits, the database is killed.
+   * The request must answer 503 with a retry hint.
+   */
+  async function killInsideTransaction(
+    send: () => PromiseLike<request.Response>,
+    written: () => Promise<boolean>,
+  ): Promise<void> {
+    const holder = await holdTable(ctx, 'audit_events');
+    const pending = Promise.resolve(send());
+    const inside = await waitFor(
+      async () => (await written()) && (await waitingInserts(ctx, 'audit_events')) === 1,
+      60_000,
+    );
+    expect(inside).toBe(true);
+    db.kill();
+    const res = await pending;
+    await holder.end().catch(() => undefined);
+    expect(res.status).toBe(503);
+    expect(res.headers['retry-after']).toBeDefined();
+    expect(res.body.error.code).toBe('unavailable');
+    await db.waitUntilGone();
+  }
+
+  async function restartDatabase(): Promise<void> {
+    await db.start();
+    const recovered = await waitFor(
+      async () => (await request(ctx.app).get('/api/health')).status === 200,
+      30_000,
+    );
+    expect(recovered).toBe(true);
+  }
+
   it('answers 503 with a retry hint, keeps committed sweeps intact and recovers by itself', async () => {
     const first = await upload(fourPointCsv(2_000, 'committed'));
     expect(first.status).toBe(201);
@@ -112,33 +146,16 @@ describe('faults: the database killed under a running API', () => {
     expect(before.points).toBe(2_000);
 
     // The upload writes every point, then waits on its audit event: the kill lands inside it.
-    const holder = await holdTable(ctx, 'audit_events');
-    const pending = upload(fourPointCsv(20_000, 'killed')).then((res) => res);
-    const midUpload = await waitFor(
-      async () =>
-        (await dirtyCount(ctx, 'sweep_points')) === before.points + 20_000 &&
-        (await waitingInserts(ctx, 'audit_events')) === 1,
-      60_000,
+    await killInsideTransaction(
+      () => upload(fourPointCsv(20_000, 'killed')),
+      async () => (await dirtyCount(ctx, 'sweep_points')) === before.points + 20_000,
     );
-    expect(midUpload).toBe(true);
-    db.kill();
-    const killed = await pending;
-    await holder.end().catch(() => undefined);
-    expect(killed.status).toBe(503);
-    expect(killed.headers['retry-after']).toBeDefined();
-    expect(killed.body.error.code).toBe('unavailable');
-    await db.waitUntilGone();
 
     const health = await request(ctx.app).get('/api/health');
     expect(health.status).toBe(503);
     expect(health.body.db).toBe('down');
 
-    await db.start();
-    const recovered = await waitFor(
-      async () => (await request(ctx.app).get('/api/health')).status === 200,
-      30_000,
-    );
-    expect(recovered).toBe(true);
+    await restartDatabase();
     expect(await pointDigest(ctx)).toEqual(before);
     const again = await upload(fourPointCsv(500, 'after recovery'));
     expect(again.status).toBe(201);
@@ -150,36 +167,21 @@ describe('faults: the database killed under a running API', () => {
     const fitsBefore = await countRows(ctx, 'fits');
     const auditBefore = await countRows(ctx, 'audit_events');
     // The fit's transaction writes its row, then waits on its audit event: the kill lands inside.
-    const holder = await holdTable(ctx, 'audit_events');
-    const pending = request(ctx.app)
-      .post(`/api/sweeps/${stored.body.id}/fits`)
-      .set(ctx.auth('physicist'))
-      .send({
-        kind: 'arrhenius',
-        minK: 100,
-        maxK: 400,
-        quantity: 'resistivity',
-        prefactorExponent: 0,
-      })
-      .then((res) => res);
-    const midFit = await waitFor(
-      async () =>
-        (await dirtyCount(ctx, 'fits')) === fitsBefore + 1 &&
-        (await waitingInserts(ctx, 'audit_events')) === 1,
-      30_000,
+    await killInsideTransaction(
+      () =>
+        request(ctx.app)
+          .post(`/api/sweeps/${stored.body.id}/fits`)
+          .set(ctx.auth('physicist'))
+          .send({
+            kind: 'arrhenius',
+            minK: 100,
+            maxK: 400,
+            quantity: 'resistivity',
+            prefactorExponent: 0,
+          }),
+      async () => (await dirtyCount(ctx, 'fits')) === fitsBefore + 1,
     );
-    expect(midFit).toBe(true);
-    db.kill();
-    const res = await pending;
-    await holder.end().catch(() => undefined);
-    expect(res.status).toBe(503);
-    expect(res.headers['retry-after']).toBeDefined();
-    expect(res.body.error.code).toBe('unavailable');
-    await db.waitUntilGone();
-    await db.start();
-    expect(
-      await waitFor(async () => (await request(ctx.app).get('/api/health')).status === 200, 30_000),
-    ).toBe(true);
+    await restartDatabase();
     // Crash recovery rolled the open transaction back: neither the fit nor its audit event stayed.
     expect(await countRows(ctx, 'fits')).toBe(fitsBefore);
     expect(await countRows(ctx, 'audit_events')).toBe(auditBefore);
