@@ -28,6 +28,11 @@ interface Result {
 }
 const results: Result[] = [];
 
+/** Records a suite that could not run or report, as one failure with the reason. */
+function recordFailure(suite: string, note?: string, seconds = 0): void {
+  results.push({ suite, passed: 0, failed: 1, skipped: 0, seconds, note });
+}
+
 /** Counts from vitest's closing "Tests  N passed | M failed (T)" line. */
 function vitestCounts(output: string): { passed: number; failed: number; skipped: number } | null {
   // eslint-disable-next-line no-control-regex
@@ -61,14 +66,7 @@ async function suite(
   }
   const counts = vitestCounts(output);
   if (!counts) {
-    results.push({
-      suite: name,
-      passed: 0,
-      failed: 1,
-      skipped: 0,
-      seconds,
-      note: `exit ${code}, no test summary`,
-    });
+    recordFailure(name, `exit ${code}, no test summary`, seconds);
     return;
   }
   // A non-zero exit with no failed test (an unhandled error, a crashed worker) still fails.
@@ -141,26 +139,12 @@ function readEnvFile(path: string): Record<string, string> {
 async function e2e(env: NodeJS.ProcessEnv): Promise<void> {
   const name = 'e2e';
   if (!ensureDebianPackage('/usr/bin/chromium', 'chromium', 'the browser tests')) {
-    results.push({
-      suite: name,
-      passed: 0,
-      failed: 1,
-      skipped: 0,
-      seconds: 0,
-      note: 'chromium missing',
-    });
+    recordFailure(name, 'chromium missing');
     return;
   }
   const seed = await runCommand(bin('tsx'), ['apps/api/src/db/cli.ts', 'seed'], { env, cwd: ROOT });
   if (seed.code !== 0) {
-    results.push({
-      suite: name,
-      passed: 0,
-      failed: 1,
-      skipped: 0,
-      seconds: 0,
-      note: 'demo seed failed',
-    });
+    recordFailure(name, 'demo seed failed');
     return;
   }
   const port = await freePort();
@@ -170,14 +154,7 @@ async function e2e(env: NodeJS.ProcessEnv): Promise<void> {
   const api = startProcess(bin('tsx'), ['apps/api/src/main.ts'], appEnv, 'api');
   const baseUrl = `http://127.0.0.1:${port}`;
   if (!(await waitForHttp(`${baseUrl}/api/health`, 60_000))) {
-    results.push({
-      suite: name,
-      passed: 0,
-      failed: 1,
-      skipped: 0,
-      seconds: 0,
-      note: 'API did not start',
-    });
+    recordFailure(name, 'API did not start');
   } else {
     await suite(name, bin('vitest'), ['run'], {
       cwd: join(ROOT, 'e2e'),
@@ -258,7 +235,7 @@ main()
     console.error(
       `[test] runner error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}`,
     );
-    results.push({ suite: 'runner', passed: 0, failed: 1, skipped: 0, seconds: 0 });
+    recordFailure('runner');
   })
   .finally(async () => {
     await cleanUp();
