@@ -5,7 +5,7 @@
  * beside them.
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 
 const ROOT = resolve(import.meta.dirname, '..');
@@ -66,14 +66,59 @@ export function databasePid(dataDir: string): number | null {
   return pid;
 }
 
-/** What of a recorded start is still running, as "api (process group 123)" phrases. */
+const SERVERS: Record<string, string> = {
+  'apps/api/src/main.ts': 'api',
+  'apps/api/src/mail/stand-in-main.ts': 'mail',
+};
+
+/**
+ * API and mail stand-in processes serving `dataDir` that no record names (left by a start whose
+ * record is lost, or by a Rhotrace from before records were kept), by their process groups.
+ * Linux only: it reads /proc; elsewhere it finds none.
+ */
+export function strays(dataDir: string): RecordedGroup[] {
+  const found = new Map<number, string>();
+  const matching = new Set<number>();
+  let entries: string[] = [];
+  try {
+    entries = readdirSync('/proc').filter((e) => /^\d+$/.test(e));
+  } catch {
+    return [];
+  }
+  for (const entry of entries) {
+    try {
+      const command = readFileSync(`/proc/${entry}/cmdline`, 'utf8').split('\0');
+      const script = command.find((a) => Object.keys(SERVERS).some((s) => a.endsWith(s)));
+      if (!script) continue;
+      const environment = readFileSync(`/proc/${entry}/environ`, 'utf8').split('\0');
+      if (!environment.includes(`DATA_DIR=${dataDir}`)) continue;
+      const stat = readFileSync(`/proc/${entry}/stat`, 'utf8');
+      // after "pid (comm) ": state, ppid, process group
+      const group = Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[2]);
+      const label = Object.entries(SERVERS).find(([s]) => script.endsWith(s))![1];
+      matching.add(Number(entry));
+      if (group > 1) found.set(group, label);
+    } catch {
+      /* ended meanwhile, or not ours to read */
+    }
+  }
+  // Only groups a server leads, as a start makes them: never a shell's group a server runs in.
+  return [...found].filter(([pid]) => matching.has(pid)).map(([pid, label]) => ({ pid, label }));
+}
+
+/** Process groups of `dataDir`'s servers still running: the record's and any strays. */
+function runningGroups(dataDir: string, record: StartRecord | null): RecordedGroup[] {
+  const groups = new Map<number, string>();
+  for (const g of [...(record?.groups ?? []), ...strays(dataDir)])
+    if (alive(-g.pid)) groups.set(g.pid, g.label);
+  return [...groups].map(([pid, label]) => ({ pid, label }));
+}
+
+/** What an earlier start of `dataDir` left running, as "api (process group 123)" phrases. */
 export function survivors(dataDir: string): string[] {
   const record = readRecord(dataDir);
-  if (!record) return [];
-  const found = record.groups
-    .filter((g) => alive(-g.pid))
-    .map((g) => `${g.label} (process group ${g.pid})`);
-  const db = record.database ? databasePid(dataDir) : null;
+  const found = runningGroups(dataDir, record).map((g) => `${g.label} (process group ${g.pid})`);
+  const db = record?.database || found.length ? databasePid(dataDir) : null;
   if (db) found.push(`MariaDB (process ${db})`);
   return found;
 }
@@ -91,8 +136,8 @@ export async function stopLeftovers(
   graceMs = 5_000,
 ): Promise<string[]> {
   const record = readRecord(dataDir);
-  if (!record) return [];
-  const groups = record.groups.filter((g) => alive(-g.pid));
+  const groups = runningGroups(dataDir, record);
+  const database = record?.database || groups.length > 0;
   for (const g of groups) {
     log(`stopping ${g.label} (process group ${g.pid})`);
     try {
@@ -111,7 +156,7 @@ export async function stopLeftovers(
       /* ended meanwhile */
     }
   }
-  if (record.database) {
+  if (database) {
     try {
       execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], {
         env: { ...process.env, DATA_DIR: dataDir },
