@@ -1,0 +1,20 @@
+/** A bar (bridge) sample: V/I between voltage taps with the bar's length, width and thickness. */
+import { barResistivity } from '@rhotrace/physics';
+import { voltageAndCurrent, type PointMethod } from './point-method';
+
+export const BAR: PointMethod = {
+  requiredColumns: [['temperature'], ['voltage', 'resistance']],
+  readsVoltageOverCurrent: true,
+  requiredCells: [],
+  converter(geometry) {
+    return (input) => ({
+      sheetResistanceOhmSq: input.sheetResistanceOhmSq,
+      resistivityOhmCm: barResistivity({
+        ...voltageAndCurrent(input),
+        lengthCm: geometry.barLengthCm!,
+        widthCm: geometry.barWidthCm!,
+        thicknessCm: geometry.thicknessCm!,
+      }),
+    });
+  },
+};
