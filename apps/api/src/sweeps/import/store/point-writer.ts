@@ -33,8 +33,11 @@ export const POINT_CHUNK = 10_000;
  */
 export const POINT_CHUNK_BYTES = 3 * 1024 * 1024;
 
-/** Bytes a row may take besides its raw text: ten numbers, null marks, flags, length prefixes. */
-const ROW_OVERHEAD_BYTES = 384;
+/**
+ * Bytes a row takes besides its raw text and flags in the bulk protocol, at most: eleven null
+ * marks, three 4-byte integers, six 8-byte doubles and two length prefixes (up to 9 bytes each).
+ */
+const ROW_OVERHEAD_BYTES = 11 + 3 * 4 + 6 * 8 + 2 * 9;
 
 /** Batches one writer keeps on the connection before it waits for the oldest to finish. */
 export const POINT_BATCHES_IN_FLIGHT = 2;
@@ -72,8 +75,9 @@ export class PointWriter {
       for (; start < points.length && rows.length < POINT_CHUNK; start++) {
         const p = points[start]!;
         const raw = this.rawOf(p);
+        const flags = p.flags.length === 0 ? '' : p.flags.join(',');
         // UTF-8 takes at most 3 bytes per UTF-16 unit: a bound, not an estimate.
-        bytes += 3 * raw.length + ROW_OVERHEAD_BYTES;
+        bytes += 3 * raw.length + flags.length + ROW_OVERHEAD_BYTES;
         if (bytes > POINT_CHUNK_BYTES && rows.length > 0) break;
         this.written += 1;
         rows.push([
@@ -87,7 +91,7 @@ export class PointWriter {
           p.sheetResistanceOhmSq,
           p.resistivityOhmCm,
           raw,
-          p.flags.length === 0 ? '' : p.flags.join(','),
+          flags,
         ]);
       }
       this.send(rows);
