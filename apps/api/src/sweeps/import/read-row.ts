@@ -95,18 +95,13 @@ export class RowReader {
       currentA = this.signedCurrent(currentA, polarity, row);
       if (currentA === null) return null;
     }
-    const positive: Array<[keyof ColumnsByMeaning, number | null]> = [
-      ['resistance', resistanceOhm],
-      ['resistance-b', resistanceBOhm],
-      ['sheet-resistance', sheetResistanceOhmSq],
-      ['resistivity', resistivityOhmCm],
-    ];
-    for (const [meaning, value] of positive) {
-      const c = this.columns[meaning];
-      if (c && value !== null && !(value > 0)) {
-        this.problems.push(rowProblem(row, c.header, `the value must be above zero (${value})`));
-        return null;
-      }
+    if (
+      this.notPositive(row, 'resistance', resistanceOhm) ||
+      this.notPositive(row, 'resistance-b', resistanceBOhm) ||
+      this.notPositive(row, 'sheet-resistance', sheetResistanceOhmSq) ||
+      this.notPositive(row, 'resistivity', resistivityOhmCm)
+    ) {
+      return null;
     }
     return {
       record: i,
@@ -120,6 +115,14 @@ export class RowReader {
       sheetResistanceOhmSq,
       resistivityOhmCm,
     };
+  }
+
+  /** Notes a zero or negative resistance-like value; true when it did. */
+  private notPositive(row: number, meaning: keyof ColumnsByMeaning, value: number | null): boolean {
+    const c = this.columns[meaning];
+    if (!c || value === null || value > 0) return false;
+    this.problems.push(rowProblem(row, c.header, `the value must be above zero (${value})`));
+    return true;
   }
 
   private value(cells: string[], row: number, meaning: keyof ColumnsByMeaning): number | null {

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { RowProblem } from '@rhotrace/api-types';
 import { HttpError } from '../../errors';
 import { openTable, readTable, slices } from './read-table';
 
@@ -51,6 +52,6 @@ describe('read the table', () => {
     expect(given).toEqual([0]);
     expect(error.status).toBe(422);
     expect(error.message).toBe('Some rows cannot be read; nothing was stored');
-    expect((error.details as Array<{ row: number }>).map((d) => d.row)).toEqual([16, 24]);
+    expect((error.details as RowProblem[]).map((d) => d.row)).toEqual([16, 24]);
   });
 });

@@ -1,6 +1,6 @@
 /** A bar (bridge) sample: V/I between voltage taps with the bar's length, width and thickness. */
 import { barResistivity } from '@rhotrace/physics';
-import { voltageAndCurrent, type PointMethod } from './point-method';
+import { currentOf, voltageOf, type PointMethod } from './point-method';
 
 export const BAR: PointMethod = {
   requiredColumns: [['temperature'], ['voltage', 'resistance']],
@@ -10,7 +10,8 @@ export const BAR: PointMethod = {
     return (input) => ({
       sheetResistanceOhmSq: input.sheetResistanceOhmSq,
       resistivityOhmCm: barResistivity({
-        ...voltageAndCurrent(input),
+        voltageV: voltageOf(input),
+        currentA: currentOf(input),
         lengthCm: geometry.barLengthCm!,
         widthCm: geometry.barWidthCm!,
         thicknessCm: geometry.thicknessCm!,

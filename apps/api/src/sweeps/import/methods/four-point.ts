@@ -1,6 +1,6 @@
 /** Collinear four-point probe: V/I with the probe spacing, thickness and slice diameter. */
 import { fourPointProbe } from '@rhotrace/physics';
-import { voltageAndCurrent, type PointMethod } from './point-method';
+import { currentOf, voltageOf, type PointMethod } from './point-method';
 
 export const FOUR_POINT: PointMethod = {
   requiredColumns: [['temperature'], ['voltage', 'resistance']],
@@ -16,9 +16,8 @@ export const FOUR_POINT: PointMethod = {
     };
     if (geometry.diameterCm !== undefined) probeInput.diameterCm = geometry.diameterCm;
     return (input) => {
-      const { voltageV, currentA } = voltageAndCurrent(input);
-      probeInput.voltageV = voltageV;
-      probeInput.currentA = currentA;
+      probeInput.voltageV = voltageOf(input);
+      probeInput.currentA = currentOf(input);
       const out = fourPointProbe(probeInput);
       return {
         sheetResistanceOhmSq: out.sheetResistanceOhmSq,

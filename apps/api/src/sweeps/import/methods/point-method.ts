@@ -38,12 +38,17 @@ export interface PointMethod {
   converter(geometry: SweepGeometry): (input: PointInput) => PointValues;
 }
 
-/**
- * V and I of a point; without them the file gives V/I as a resistance column, passed as V over a
- * unit current.
- */
-export function voltageAndCurrent(input: PointInput): { voltageV: number; currentA: number } {
-  return input.voltageV !== null && input.currentA !== null
-    ? { voltageV: input.voltageV, currentA: input.currentA }
-    : { voltageV: input.resistanceOhm!, currentA: 1 };
+/** True when a point has V and I; without them the file gives V/I as a resistance column. */
+function hasVoltageAndCurrent(input: PointInput): boolean {
+  return input.voltageV !== null && input.currentA !== null;
+}
+
+/** The voltage of a point, or its V/I resistance (passed as V over a unit current). */
+export function voltageOf(input: PointInput): number {
+  return hasVoltageAndCurrent(input) ? input.voltageV! : input.resistanceOhm!;
+}
+
+/** The current of a point, or a unit current when the file gives V/I as a resistance. */
+export function currentOf(input: PointInput): number {
+  return hasVoltageAndCurrent(input) ? input.currentA! : 1;
 }
