@@ -29,6 +29,7 @@ import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
 import { openTable, readTable, slices, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
+import { RawCopy } from './import/store/raw-copy';
 import { rawJson, SweepStore } from './import/store/sweep-store';
 import {
   MAX_PROBLEMS,
@@ -110,8 +111,7 @@ async function importOnce(
   const columns = detectColumns(file.parsed, input.columns ?? [], input.method);
   if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
   const sha256 = createHash('sha256').update(input.file).digest('hex');
-  /** The raw write, once started; its copy is removed again if nothing commits. */
-  const raw: { key: Promise<string> | null } = { key: null };
+  const raw = new RawCopy(storage);
   try {
     return await Sweep.sequelize!.transaction(async (transaction) => {
       const { wafer, lot } = await visibleWafer(actor, input.waferId, transaction);
@@ -123,35 +123,20 @@ async function importOnce(
           sweepId: earlier.id,
         });
       }
-      raw.key = storage.put(input.file, { transaction });
-      raw.key.catch(() => undefined); // awaited by the store; never an unhandled rejection
+      const rawKey = raw.put(input.file, transaction);
       try {
         return await storeSweep(
-          { input, actor, file, columns, sha256, storage, rawKey: raw.key, wafer, lot },
+          { input, actor, file, columns, sha256, storage, rawKey, wafer, lot },
           transaction,
         );
       } catch (error) {
-        // The write in flight finishes before the rollback runs on the same connection.
-        await raw.key.catch(() => undefined);
+        await raw.settle();
         throw error;
       }
     });
   } catch (error) {
-    if (raw.key) await discardRaw(storage, raw.key);
+    await raw.discard();
     throw error;
-  }
-}
-
-/**
- * Removes the raw copy of an upload that did not commit: an object store's, and a database
- * copy that escaped its rolled-back transaction. Never masks the import's own error.
- */
-async function discardRaw(storage: RawStorage, key: Promise<string>): Promise<void> {
-  try {
-    await storage.delete(await key);
-  } catch {
-    // The put itself failed (nothing stored) or the store is unreachable: the import's own
-    // error is what the caller must see; an orphaned copy holds no sweep data.
   }
 }
 
