@@ -90,15 +90,16 @@ export async function previewSweep(
  * Imports a sweep file onto a wafer as `actor`. Stores everything or nothing; throws the
  * API's errors (404 hidden wafer, 400 mapping or geometry, 409 duplicate, 422 unreadable rows,
  * 503 when the database refused it twice for reasons of the moment). The raw file goes to
- * `options.storage`, by default the configured one (`RAW_STORAGE`).
+ * `options.storage`, by default the configured one (`RAW_STORAGE`); `options.onRetry` hears of a
+ * retried attempt.
  */
 export function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
-  options: { storage?: RawStorage } = {},
+  options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
-  return retryTransientOnce('upload', () => importOnce(input, actor, storage));
+  return retryTransientOnce('upload', () => importOnce(input, actor, storage), options.onRetry);
 }
 
 /** One attempt: the file is read again, so a retry starts from the same bytes. */
