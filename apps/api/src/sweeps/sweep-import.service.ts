@@ -38,7 +38,7 @@ import {
   type OpenedSweepFile,
   type ResolvedColumn,
 } from './parse';
-import { resolveGeometry } from './sweep-geometry';
+import { resolveGeometry } from './import/resolve-geometry';
 import { Sweep } from './sweep.model';
 
 /** Rows the preview shows. */

@@ -6,6 +6,7 @@ export const BAR: PointMethod = {
   requiredColumns: [['temperature'], ['voltage', 'resistance']],
   readsVoltageOverCurrent: true,
   requiredCells: [],
+  geometry: { needs: ['thicknessCm', 'barLengthCm', 'barWidthCm'], uses: [] },
   converter(geometry) {
     return (input) => ({
       sheetResistanceOhmSq: input.sheetResistanceOhmSq,

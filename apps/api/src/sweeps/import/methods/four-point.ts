@@ -6,6 +6,7 @@ export const FOUR_POINT: PointMethod = {
   requiredColumns: [['temperature'], ['voltage', 'resistance']],
   readsVoltageOverCurrent: true,
   requiredCells: [],
+  geometry: { needs: ['thicknessCm', 'spacingCm'], uses: ['diameterCm'] },
   converter(geometry) {
     // One input object for the whole sweep: a 100,000-row file makes no garbage here.
     const probeInput: Parameters<typeof fourPointProbe>[0] = {

@@ -2,7 +2,7 @@
  * What a measurement method brings to the import: the columns it needs and how a row's values
  * become sheet resistance and resistivity. One file per method, listed in `index.ts`.
  */
-import type { ColumnMeaning, SweepGeometry } from '@rhotrace/api-types';
+import type { ColumnMeaning, SweepGeometry, SweepGeometryInput } from '@rhotrace/api-types';
 
 /** The values a point is computed from: one reading's, or a forward/reverse pair's means. */
 export interface PointInput {
@@ -31,6 +31,8 @@ export interface PointMethod {
   readsVoltageOverCurrent: boolean;
   /** Cells every row must fill, besides the temperature. */
   requiredCells: ColumnMeaning[];
+  /** Geometry the method needs (a 400 when unknown) and uses when it is known. */
+  geometry: { needs: Array<keyof SweepGeometryInput>; uses: Array<keyof SweepGeometryInput> };
   /**
    * Makes the converter for one sweep's geometry (once per import; it is called per point).
    * It throws the physics library's `PhysicsInputError` for values it cannot use.

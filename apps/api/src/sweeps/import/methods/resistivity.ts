@@ -5,6 +5,7 @@ export const RESISTIVITY: PointMethod = {
   requiredColumns: [['temperature'], ['resistivity']],
   readsVoltageOverCurrent: false,
   requiredCells: ['resistivity'],
+  geometry: { needs: [], uses: ['thicknessCm'] },
   converter() {
     return (input) => ({
       sheetResistanceOhmSq: input.sheetResistanceOhmSq,

@@ -6,6 +6,7 @@ export const SHEET_RESISTANCE: PointMethod = {
   requiredColumns: [['temperature'], ['sheet-resistance']],
   readsVoltageOverCurrent: false,
   requiredCells: ['sheet-resistance'],
+  geometry: { needs: ['thicknessCm'], uses: [] },
   converter(geometry) {
     return (input) => ({
       sheetResistanceOhmSq: input.sheetResistanceOhmSq,

@@ -6,6 +6,7 @@ export const VAN_DER_PAUW: PointMethod = {
   requiredColumns: [['temperature'], ['resistance'], ['resistance-b']],
   readsVoltageOverCurrent: false,
   requiredCells: ['resistance', 'resistance-b'],
+  geometry: { needs: ['thicknessCm'], uses: [] },
   converter(geometry) {
     return (input) => {
       const out = vanDerPauw({
