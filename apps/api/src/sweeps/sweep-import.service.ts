@@ -202,8 +202,8 @@ async function storeSweep(
     transaction,
   );
   try {
-    for (const slice of slices(file, IMPORT_SLICE_ROWS)) {
-      if (!converter.open) break;
+    // no slice is read once the converter holds as many problems as an answer lists
+    for (const slice of slices(file, IMPORT_SLICE_ROWS, () => converter.open)) {
       await store.write(finder.addAll(converter.next(slice)));
     }
     await store.write(finder.addAll(converter.finish()));

@@ -54,4 +54,12 @@ describe('read the table', () => {
     expect(error.message).toBe('Some rows cannot be read; nothing was stored');
     expect((error.details as RowProblem[]).map((d) => d.row)).toEqual([16, 24]);
   });
+
+  it('reads no further slice once the caller wants none', () => {
+    const file = openTable(csv(rows(25)), 10);
+    let calls = 0;
+    const given = [...slices(file, 10, () => ++calls < 2)].map((s) => s.start);
+    expect(given).toEqual([0]);
+    expect(file.parsed.table.records.length).toBeLessThan(25);
+  });
 });

@@ -53,13 +53,18 @@ export interface Slice {
 
 /**
  * The table's records in slices of `sliceRows`, each read from the file just before it is
- * given out, so the caller can store one slice while the next is read. A row of the wrong
- * width throws the 422, after reading on to name the others (as a whole-file read would).
+ * given out, so the caller can store one slice while the next is read; none is read once
+ * `wanted` says false. A row of the wrong width throws the 422, after reading on to name the
+ * others (as a whole-file read would).
  */
-export function* slices(file: OpenedSweepFile, sliceRows: number): Generator<Slice> {
+export function* slices(
+  file: OpenedSweepFile,
+  sliceRows: number,
+  wanted: () => boolean = () => true,
+): Generator<Slice> {
   const { records } = file.parsed.table;
   const problems = file.parsed.problems;
-  for (let start = 0; ; start += sliceRows) {
+  for (let start = 0; wanted(); start += sliceRows) {
     const end = start + sliceRows;
     while (!file.done && records.length < end) reading(() => file.readMore(sliceRows));
     if (problems.length) {
