@@ -27,6 +27,7 @@ afterAll(async () => {
 });
 afterEach(async () => {
   ctx.sequelize.removeHook('beforeQuery', 'silent-abort');
+  ctx.sequelize.removeHook('afterQuery', 'silent-abort');
   await ctx.sequelize.query('DROP TRIGGER IF EXISTS transient_fault');
   await ctx.sequelize.query('DROP TABLE IF EXISTS transient_fault_fired');
 });
@@ -53,27 +54,40 @@ async function counts() {
 
 type QueryOptions = Options & { transaction?: Transaction; type?: string; model?: unknown };
 
+/** A point in the import: before or after the first query `at` matches. */
+interface Place {
+  hook: 'beforeQuery' | 'afterQuery';
+  at: (o: QueryOptions) => boolean;
+}
+
+const completingTheSweep = (o: QueryOptions) => o.type === 'UPDATE' || o.type === 'BULKUPDATE';
+
 /** Where in the import the transaction is lost. */
-const WHERE: Record<string, (o: QueryOptions) => boolean> = {
+const WHERE: Record<string, Place> = {
   // after every point is written, before the sweep row is completed (what issue 19 saw)
-  'after the points': (o) => o.type === 'UPDATE' || o.type === 'BULKUPDATE',
+  'after the points': { hook: 'beforeQuery', at: completingTheSweep },
+  // after the sweep row is completed, before the audit event
+  'before the audit event': { hook: 'afterQuery', at: completingTheSweep },
   // after the wafer lock, before the duplicate check and the raw file's write
-  'before the raw file': (o) => o.type === 'SELECT' && o.model === Sweep,
+  'before the raw file': {
+    hook: 'beforeQuery',
+    at: (o) => o.type === 'SELECT' && o.model === Sweep,
+  },
 };
 
 /**
- * Issues ROLLBACK on the upload transaction's own connection before the first query `at`
- * matches, `times` times in all (Infinity: every attempt). Sequelize and the import are not
- * told, as when a Galera node aborts a transaction and its error goes unseen.
+ * Issues ROLLBACK on the upload transaction's own connection at `place`, `times` times in all
+ * (Infinity: every attempt). Sequelize and the import are not told, as when a Galera node
+ * aborts a transaction and its error goes unseen.
  */
-function loseTransaction(at: (o: QueryOptions) => boolean, times: number): { fired: number } {
+function loseTransaction(place: Place, times: number): { fired: number } {
   const state = { fired: 0 };
-  ctx.sequelize.addHook('beforeQuery', 'silent-abort', async (options: QueryOptions) => {
-    if (!options.transaction || !at(options) || state.fired >= times) return;
+  ctx.sequelize.addHook(place.hook, 'silent-abort', async (options: QueryOptions) => {
+    if (!options.transaction || !place.at(options) || state.fired >= times) return;
     state.fired += 1;
-    const connection = (
-      options.transaction as unknown as { connection: { query(sql: string): Promise<unknown> } }
-    ).connection;
+    const { connection } = options.transaction as unknown as {
+      connection: { query(sql: string): Promise<unknown> };
+    };
     await connection.query('ROLLBACK');
   });
   return state;

@@ -19,15 +19,20 @@ const point = (row: number): ConvertedPoint => ({
 /** A connection that records each batch and answers as `answer` says. */
 function fakeConnection(answer: (rows: unknown[][], call: number) => Promise<unknown>) {
   const batches: unknown[][][] = [];
+  /** The batch count at each `destroy`. */
+  const destroyed: number[] = [];
   const transaction = {
     connection: {
       batch: (_sql: string, rows: unknown[][]) => {
         batches.push(rows);
         return answer(rows, batches.length);
       },
+      destroy: () => {
+        destroyed.push(batches.length);
+      },
     },
   } as unknown as Transaction;
-  return { batches, transaction };
+  return { batches, destroyed, transaction };
 }
 
 const inserted = (rows: unknown[][]) => Promise.resolve({ affectedRows: rows.length });
@@ -81,5 +86,19 @@ describe('the point writer', () => {
     const writer = new PointWriter(1, () => '[]', transaction);
     await writer.write([point(1)]).catch(() => undefined);
     await expect(writer.finish()).rejects.toBe(refused);
+  });
+
+  it('closes the connection after a fatal error, which a later statement must not inherit', async () => {
+    const fatal = Object.assign(new Error('WSREP has not yet prepared node'), {
+      errno: 1047,
+      fatal: true,
+    });
+    const { destroyed, transaction } = fakeConnection((rows, call) =>
+      call === 1 ? Promise.reject(fatal) : inserted(rows),
+    );
+    const writer = new PointWriter(1, () => '[]', transaction);
+    await writer.write([point(1)]).catch(() => undefined);
+    await expect(writer.finish()).rejects.toBe(fatal);
+    expect(destroyed).toEqual([1]);
   });
 });

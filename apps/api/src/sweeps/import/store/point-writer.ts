@@ -14,6 +14,7 @@ const INSERT_POINTS =
 /** The driver connection Sequelize holds for a transaction. */
 interface BatchConnection {
   batch(sql: string, values: unknown[][]): Promise<unknown>;
+  destroy(): void;
 }
 
 /**
@@ -126,6 +127,11 @@ export class PointWriter {
         },
         (error: unknown) => {
           this.failure ??= { error };
+          // A fatal error (SQLSTATE 08..., e.g. Galera's 1047) ends mariadb 3.0.2's bulk command
+          // while answers to its other packets are still due; they would be taken by the next
+          // statements (a ROLLBACK "succeeding" on a stray OK) and the connection would go back
+          // to the pool out of step. Closing it makes the server roll the transaction back.
+          if ((error as { fatal?: unknown } | null)?.fatal === true) this.connection.destroy();
         },
       ),
     );
