@@ -140,6 +140,29 @@ describe('a transaction lost part-way through an upload', () => {
   );
 });
 
+describe('a point missing from the transaction though its batch reported it inserted', () => {
+  it('is found by the count behind the audit event: retried, stored exactly once', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const before = await counts();
+    let dropped = 0;
+    // after the sweep row is completed: remove one point from the middle, behind the import's back
+    ctx.sequelize.addHook('afterQuery', 'silent-abort', async (options: QueryOptions) => {
+      if (!options.transaction || !completingTheSweep(options) || dropped > 0) return;
+      dropped += 1;
+      const { connection } = options.transaction as unknown as {
+        connection: { query(sql: string): Promise<unknown> };
+      };
+      // the upload's own sweep is the newest one its transaction sees
+      await connection.query(
+        'DELETE FROM sweep_points WHERE sequence = 1234 AND sweep_id = (SELECT MAX(id) FROM sweeps)',
+      );
+    });
+    const res = await upload(wafer.id, fourPointCsv(ROWS, 'one point missing'));
+    expect(dropped).toBe(1);
+    await expectStoredOnce(res, before);
+  });
+});
+
 /**
  * A trigger that refuses the 1,500th point with `errno` (as InnoDB or Galera would), `times`
  * times in all: a MyISAM table, which a rollback does not undo, counts the refusals.

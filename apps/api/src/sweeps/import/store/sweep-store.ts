@@ -39,6 +39,19 @@ export interface SweepDraft {
   metadata: Record<string, string>;
 }
 
+/**
+ * The number of the sweep's points visible in the transaction (replacements: sweep id three
+ * times, then the last sequence). The points were inserted in sequence order on one connection,
+ * so their ids rise with their sequence and all lie between the ids of the first and the last;
+ * counting that stretch of the primary key reads each row once, where counting through the
+ * (sweep_id, sequence) index checks each uncommitted row against the clustered index (measured
+ * 21 ms against 106 ms for 100,000 points). A missing first or last point counts 0.
+ */
+const COUNT_POINTS =
+  'SELECT COUNT(*) FROM sweep_points USE INDEX (PRIMARY) WHERE sweep_id = ? AND id BETWEEN ' +
+  '(SELECT id FROM sweep_points WHERE sweep_id = ? AND sequence = 1) AND ' +
+  '(SELECT id FROM sweep_points WHERE sweep_id = ? AND sequence = ?)';
+
 /** Positions (0-based, in stored order) of the points to mark per update statement. */
 const REVERSAL_UPDATE_ROWS = 5_000;
 
@@ -95,12 +108,15 @@ export class SweepStore {
       {
         sql:
           '@@in_transaction = 1 AND EXISTS (SELECT 1 FROM sweeps WHERE id = ? AND point_count = ?)' +
-          ' AND (SELECT COUNT(*) FROM sweep_points WHERE sweep_id = ?) = ?' +
+          ` AND (${COUNT_POINTS}) = ?` +
           " AND (? <> 'db' OR EXISTS (SELECT 1 FROM raw_files WHERE storage_key = ?))",
         replacements: [
           id,
           pointCount,
           id,
+          id,
+          id,
+          pointCount,
           pointCount,
           this.draft.storageKind,
           await this.draft.storageKey,
