@@ -93,7 +93,7 @@ export async function previewSweep(
  * `options.storage`, by default the configured one (`RAW_STORAGE`); `options.onRetry` hears of a
  * retried attempt.
  */
-export function importSweep(
+export async function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
   options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
