@@ -13,6 +13,7 @@ export {
   PLANCK_J_S,
   ZERO_CELSIUS_K,
 } from './constants';
+export { PhysicsInputError, PhysicsTypeError } from './errors';
 export { PHYSICS_DEFAULTS } from './defaults';
 export type { DensityOfStatesSetId, IonizationModelId, MobilityModelId } from './defaults';
 export { celsiusToKelvin, kelvinToCelsius } from './temperature';

@@ -2,6 +2,7 @@
  * Celsius–kelvin conversions.
  */
 import { ZERO_CELSIUS_K } from './constants';
+import { PhysicsInputError } from './errors';
 import { requireFiniteNumber } from './validate';
 
 /**
@@ -14,8 +15,10 @@ import { requireFiniteNumber } from './validate';
 export function celsiusToKelvin(temperatureCelsius: number): number {
   const t = requireFiniteNumber('celsiusToKelvin', 'temperatureCelsius', temperatureCelsius);
   if (t < -ZERO_CELSIUS_K) {
-    throw new RangeError(
-      `\`celsiusToKelvin\` requires temperatureCelsius of at least -273.15, got ${t}`,
+    throw new PhysicsInputError(
+      'celsiusToKelvin',
+      'temperatureCelsius',
+      `requires temperatureCelsius of at least -273.15, got ${t}`,
     );
   }
   return t + ZERO_CELSIUS_K;
@@ -31,6 +34,10 @@ export function celsiusToKelvin(temperatureCelsius: number): number {
 export function kelvinToCelsius(temperatureK: number): number {
   const t = requireFiniteNumber('kelvinToCelsius', 'temperatureK', temperatureK);
   if (t < 0)
-    throw new RangeError(`\`kelvinToCelsius\` requires temperatureK of at least 0, got ${t}`);
+    throw new PhysicsInputError(
+      'kelvinToCelsius',
+      'temperatureK',
+      `requires temperatureK of at least 0, got ${t}`,
+    );
   return t - ZERO_CELSIUS_K;
 }

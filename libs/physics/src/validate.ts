@@ -1,12 +1,14 @@
 /**
  * Input checks for the public boundary of the library.
  *
- * Every public function checks its arguments once, here, and throws a `TypeError` (wrong kind of
- * value) or a `RangeError` (right kind, unusable value) whose message names the function and the
- * argument, e.g. "`bandGap` requires a temperature (temperatureK) between 1 K and 1500 K, got 0".
+ * Every public function checks its arguments once, here, and throws a `PhysicsTypeError` (a
+ * `TypeError`: wrong kind of value) or a `PhysicsInputError` (a `RangeError`: right kind, unusable
+ * value) that carries the function and argument names as fields; the message names them too,
+ * e.g. "`bandGap` requires a temperature (temperatureK) between 1 K and 1500 K, got 0".
  * Internal code then trusts its inputs, which keeps the hot loops free of checks.
  */
 import { BOUND_ALLOWANCE_K, MAX_TEMPERATURE_K, MIN_TEMPERATURE_K } from './constants';
+import { PhysicsInputError, PhysicsTypeError } from './errors';
 
 /** Formats a received value for an error message without throwing on odd inputs. */
 export function describeValue(value: unknown): string {
@@ -21,14 +23,19 @@ export function describeValue(value: unknown): string {
 
 /**
  * Requires a finite number.
- * @throws TypeError when `value` is not a number; RangeError when it is NaN or infinite.
+ * @throws PhysicsTypeError when `value` is not a number; PhysicsInputError when it is NaN or
+ *   infinite.
  */
 export function requireFiniteNumber(fn: string, name: string, value: unknown): number {
   if (typeof value !== 'number') {
-    throw new TypeError(`\`${fn}\` requires ${name} to be a number, got ${describeValue(value)}`);
+    throw new PhysicsTypeError(
+      fn,
+      name,
+      `requires ${name} to be a number, got ${describeValue(value)}`,
+    );
   }
   if (!Number.isFinite(value)) {
-    throw new RangeError(`\`${fn}\` requires ${name} to be a finite number, got ${value}`);
+    throw new PhysicsInputError(fn, name, `requires ${name} to be a finite number, got ${value}`);
   }
   return value;
 }
@@ -36,14 +43,14 @@ export function requireFiniteNumber(fn: string, name: string, value: unknown): n
 /** Requires a finite number strictly above zero. */
 export function requirePositive(fn: string, name: string, value: unknown): number {
   const v = requireFiniteNumber(fn, name, value);
-  if (v <= 0) throw new RangeError(`\`${fn}\` requires ${name} above 0, got ${v}`);
+  if (v <= 0) throw new PhysicsInputError(fn, name, `requires ${name} above 0, got ${v}`);
   return v;
 }
 
 /** Requires a finite number at or above zero. */
 export function requireNonNegative(fn: string, name: string, value: unknown): number {
   const v = requireFiniteNumber(fn, name, value);
-  if (v < 0) throw new RangeError(`\`${fn}\` requires ${name} of at least 0, got ${v}`);
+  if (v < 0) throw new PhysicsInputError(fn, name, `requires ${name} of at least 0, got ${v}`);
   return v;
 }
 
@@ -64,8 +71,10 @@ export function requireInRange(
   const unit = options.unit ? ` ${options.unit}` : '';
   if (v < min - allowance || v > max + allowance) {
     const what = options.what ? `${options.what} (${name})` : name;
-    throw new RangeError(
-      `\`${fn}\` requires ${what} between ${min}${unit} and ${max}${unit}, got ${v}`,
+    throw new PhysicsInputError(
+      fn,
+      name,
+      `requires ${what} between ${min}${unit} and ${max}${unit}, got ${v}`,
     );
   }
   return Math.min(max, Math.max(min, v));
@@ -88,13 +97,17 @@ export function requireOneOf<T extends string>(
   allowed: readonly T[],
 ): T {
   if (typeof value !== 'string') {
-    throw new TypeError(
-      `\`${fn}\` requires ${name} to be one of ${allowed.join(', ')}, got ${describeValue(value)}`,
+    throw new PhysicsTypeError(
+      fn,
+      name,
+      `requires ${name} to be one of ${allowed.join(', ')}, got ${describeValue(value)}`,
     );
   }
   if (!(allowed as readonly string[]).includes(value)) {
-    throw new RangeError(
-      `\`${fn}\` requires ${name} to be one of ${allowed.join(', ')}, got ${describeValue(value)}`,
+    throw new PhysicsInputError(
+      fn,
+      name,
+      `requires ${name} to be one of ${allowed.join(', ')}, got ${describeValue(value)}`,
     );
   }
   return value as T;
@@ -103,7 +116,11 @@ export function requireOneOf<T extends string>(
 /** Requires a plain object (not null, not an array). */
 export function requireObject(fn: string, name: string, value: unknown): Record<string, unknown> {
   if (typeof value !== 'object' || value === null || Array.isArray(value)) {
-    throw new TypeError(`\`${fn}\` requires ${name} to be an object, got ${describeValue(value)}`);
+    throw new PhysicsTypeError(
+      fn,
+      name,
+      `requires ${name} to be an object, got ${describeValue(value)}`,
+    );
   }
   return value as Record<string, unknown>;
 }
@@ -111,11 +128,17 @@ export function requireObject(fn: string, name: string, value: unknown): Record<
 /** Requires an array, optionally with a minimum length. */
 export function requireArray(fn: string, name: string, value: unknown, minLength = 0): unknown[] {
   if (!Array.isArray(value)) {
-    throw new TypeError(`\`${fn}\` requires ${name} to be an array, got ${describeValue(value)}`);
+    throw new PhysicsTypeError(
+      fn,
+      name,
+      `requires ${name} to be an array, got ${describeValue(value)}`,
+    );
   }
   if (value.length < minLength) {
-    throw new RangeError(
-      `\`${fn}\` requires ${name} to hold at least ${minLength} entries, got ${value.length}`,
+    throw new PhysicsInputError(
+      fn,
+      name,
+      `requires ${name} to hold at least ${minLength} entries, got ${value.length}`,
     );
   }
   return value;

@@ -1,5 +1,5 @@
 import type { AuditEventDto, Page } from '@rhotrace/api-types';
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize';
 import { User } from '../users/user.model';
 import { AuditEvent } from './audit-event.model';
 
@@ -36,6 +36,46 @@ export async function recordAudit(entry: AuditEntry, transaction: Transaction): 
     },
     { transaction },
   );
+}
+
+/** An SQL condition with its `?` replacements. */
+export interface SqlCondition {
+  sql: string;
+  replacements: unknown[];
+}
+
+/**
+ * `recordAudit` only when `condition` holds inside `transaction`, in one statement
+ * (INSERT ... SELECT ... WHERE condition), so the event can only be written where the change it
+ * records is visible. Resolves with the number of events written (1 or 0).
+ */
+export async function recordAuditWhen(
+  entry: AuditEntry,
+  condition: SqlCondition,
+  transaction: Transaction,
+): Promise<number> {
+  const json = (value: unknown) =>
+    value === undefined || value === null ? null : JSON.stringify(value);
+  const [, affectedRows] = await AuditEvent.sequelize!.query(
+    'INSERT INTO audit_events (actor_id, action, entity, entity_id, `before`, `after`, request_id, ' +
+      `created_at) SELECT ?, ?, ?, ?, ?, ?, ?, ? FROM DUAL WHERE ${condition.sql}`,
+    {
+      replacements: [
+        entry.actorId,
+        entry.action,
+        entry.entity,
+        String(entry.entityId),
+        json(entry.before),
+        json(entry.after),
+        entry.requestId ?? null,
+        new Date(),
+        ...condition.replacements,
+      ],
+      type: QueryTypes.INSERT,
+      transaction,
+    },
+  );
+  return affectedRows;
 }
 
 /**

@@ -1,47 +1,51 @@
 /**
- * Preview and import of probe-station exports: parse, map, convert, and store the sweep, its raw
- * file, its points and the audit event in one transaction.
+ * Preview and import of probe-station exports. The import runs as named stages, each in
+ * `import/`: read the table → detect columns → read a row → pair polarities → turn a row into a
+ * point (one entry per measurement method) → flag → store. It converts and stores slice by
+ * slice inside one transaction, so the database inserts one slice while the next is converted,
+ * and stores the sweep, its raw file, its points and the audit event all together or not at
+ * all. A transaction failure of the moment (a deadlock, a Galera certification failure or
+ * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
 import type {
-  RowProblem,
   SessionUser,
-  SweepColumn,
   SweepColumnOverride,
   SweepCreatedResponse,
   SweepGeometryInput,
   SweepMethod,
-  SweepParseReport,
   SweepPreviewResponse,
 } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
-import { recordAudit } from '../audit/audit.service';
-import { conflict, unprocessable, validationFailed } from '../errors';
-import { Station } from '../stations/station.model';
-import { uploadRawStorage } from '../storage/storage';
+import { retryTransientOnce } from '../db/transient-errors';
+import { conflict, unprocessable } from '../errors';
 import type { RawStorage } from '../storage/raw-storage';
+import { uploadRawStorage } from '../storage/storage';
 import { visibleWafer } from '../wafers/wafer-access.service';
 import { Wafer } from '../wafers/wafer.model';
-import { RowConverter, requireColumns, type ConvertedPoint } from './convert';
+import { RowConverter } from './import/convert-rows';
+import { detectColumns, publicColumns } from './import/detect-columns';
+import { findStation } from './import/find-station';
+import { SuspiciousPointFinder } from './import/flag';
+import { openTable, readTable, slices, unreadableRows } from './import/read-table';
+import { POINT_CHUNK } from './import/store/point-writer';
+import { RawCopy } from './import/store/raw-copy';
+import { rawJson, SweepStore } from './import/store/sweep-store';
 import {
-  applyColumnOverrides,
   MAX_PROBLEMS,
-  openSweepFile,
-  type OpenedSweepFile,
-  parseSweepFile,
   readNumber,
   unreadableCells,
-  UnreadableFileError,
-  type ParsedSweepFile,
+  type OpenedSweepFile,
   type ResolvedColumn,
 } from './parse';
-import { SuspiciousPointFinder } from './point-flags';
-import { POINT_CHUNK, PointWriter } from './point-writer';
-import { resolveGeometry } from './sweep-geometry';
+import { resolveGeometry } from './import/resolve-geometry';
 import { Sweep } from './sweep.model';
 
 /** Rows the preview shows. */
 export const PREVIEW_ROWS = 20;
+
+/** Records converted per slice: one slice is stored while the next is converted. */
+export const IMPORT_SLICE_ROWS = POINT_CHUNK;
 
 /** What `importSweep` needs; the demo seeder calls it directly. */
 export interface ImportSweepInput {
@@ -57,41 +61,13 @@ export interface ImportSweepInput {
 /** The signed-in user, with the request id the audit event records. */
 export type SweepActor = SessionUser & { requestId?: string | null };
 
-/** Runs a step of reading the file, with its errors as the API's 400 or 422. */
-function reading<T>(step: () => T): T {
-  try {
-    return step();
-  } catch (error) {
-    if (error instanceof UnreadableFileError) {
-      throw error.status === 400
-        ? validationFailed(error.message, [{ field: 'file', problem: error.message }])
-        : unprocessable(error.message, [{ field: 'file', problem: error.message }]);
-    }
-    throw error;
-  }
-}
-
-function readFile(file: Buffer): ParsedSweepFile {
-  return reading(() => parseSweepFile(file));
-}
-
-function publicColumns(columns: ResolvedColumn[]): SweepColumn[] {
-  return columns.map(({ index, header, meaning, unit, confidence }) => ({
-    index,
-    header,
-    meaning,
-    unit,
-    confidence,
-  }));
-}
-
 /** Parses without storing: layout, guessed columns, the first rows and the problems found. */
 export async function previewSweep(
   input: { waferId: number; file: Buffer },
   actor: SweepActor,
 ): Promise<SweepPreviewResponse> {
   await visibleWafer(actor, input.waferId);
-  const parsed = readFile(input.file);
+  const parsed = readTable(input.file);
   const { layout, table } = parsed;
   const rows = table.records.slice(0, PREVIEW_ROWS).map((cells, i) => ({
     row: table.lines[i]!,
@@ -110,111 +86,35 @@ export async function previewSweep(
   };
 }
 
-async function findStation(
-  stationId: number | null | undefined,
-  stationName: string | undefined,
-  warnings: string[],
-  transaction: Transaction,
-): Promise<Station | null> {
-  if (stationId) {
-    const station = await Station.findByPk(stationId, { transaction });
-    if (!station) {
-      throw validationFailed('The station does not exist', [
-        { field: 'stationId', problem: `there is no station ${stationId}` },
-      ]);
-    }
-    return station;
-  }
-  if (!stationName) return null;
-  const station = await Station.findOne({ where: { name: stationName }, transaction });
-  if (!station) {
-    warnings.push(
-      `the file names station "${stationName}", which is not registered; no station was linked`,
-    );
-  }
-  return station;
-}
-
-/**
- * The raw JSON document of a point: the cells of its file row as read (an array), or for a
- * polarity pair `{ rows, cells }` with both rows. The header names are kept once, in the
- * sweep's column mapping; the read path rebuilds `[{ row, values: { header: cell } }]`.
- */
-function rawJson(parsed: ParsedSweepFile): (p: ConvertedPoint) => string {
-  const records = parsed.table.records;
-  return (p) =>
-    p.sourceRows.length === 1
-      ? JSON.stringify(records[p.recordIndexes[0]!])
-      : JSON.stringify({ rows: p.sourceRows, cells: p.recordIndexes.map((i) => records[i]) });
-}
-
-/** The 422 for rows that cannot be read (a wrong number of values). */
-function unreadableRows(problems: RowProblem[]) {
-  return unprocessable(
-    'Some rows cannot be read; nothing was stored',
-    problems.slice(0, MAX_PROBLEMS),
-  );
-}
-
-/** Positions (0-based, in stored order) of the points to mark per update statement. */
-const REVERSAL_UPDATE_ROWS = 5_000;
-
-/** Adds the `temperature-reversal` flag to the points at `positions` (after any flags they have). */
-async function markReversals(
-  sweepId: number,
-  positions: number[],
-  transaction: Transaction,
-): Promise<void> {
-  for (let start = 0; start < positions.length; start += REVERSAL_UPDATE_ROWS) {
-    const sequences = positions.slice(start, start + REVERSAL_UPDATE_ROWS).map((i) => i + 1);
-    await Sweep.sequelize!.query(
-      "UPDATE sweep_points SET flags = IF(flags = '', 'temperature-reversal', " +
-        "CONCAT(flags, ',temperature-reversal')) WHERE sweep_id = ? AND sequence IN (?)",
-      { replacements: [sweepId, sequences], transaction },
-    );
-  }
-}
-
-/** Removes an object-store copy whose transaction did not commit; never masks the cause. */
-async function discardRaw(storage: RawStorage, key: Promise<string>): Promise<void> {
-  try {
-    await storage.delete(await key);
-  } catch {
-    // The put itself failed (nothing stored) or the store is unreachable: the import's own
-    // error is what the caller must see; an orphaned object holds no sweep data.
-  }
-}
-
 /**
  * Imports a sweep file onto a wafer as `actor`. Stores everything or nothing; throws the
- * API's errors (404 hidden wafer, 400 mapping or geometry, 409 duplicate, 422 unreadable rows).
- * The raw file goes to `options.storage`, by default the configured one (`RAW_STORAGE`). An
- * object store's copy is written before the transaction commits and deleted again when the
- * transaction rolls back or the import fails.
+ * API's errors (404 hidden wafer, 400 mapping or geometry, 409 duplicate, 422 unreadable rows,
+ * 503 when the database refused it twice for reasons of the moment). The raw file goes to
+ * `options.storage`, by default the configured one (`RAW_STORAGE`); `options.onRetry` hears of a
+ * retried attempt.
  */
 export async function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
-  options: { storage?: RawStorage } = {},
+  options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
-  // the rest of the file is read slice by slice while the first slices are stored
-  const file = reading(() => openSweepFile(input.file, IMPORT_SLICE_ROWS));
-  const parsed = file.parsed;
-  const mapped = applyColumnOverrides(parsed.columns, input.columns ?? []);
-  if (mapped.problems.length)
-    throw validationFailed('The column mapping is not valid', mapped.problems);
-  const columns = mapped.columns;
-  const constantCurrentA = parsed.recognised.currentA;
-  requireColumns(input.method, columns, constantCurrentA);
-  if (parsed.problems.length) throw unreadableRows(parsed.problems);
-  const sha256 = createHash('sha256').update(input.file).digest('hex');
-  const sequelize = Sweep.sequelize!;
+  return retryTransientOnce('upload', () => importOnce(input, actor, storage), options.onRetry);
+}
 
-  /** The raw write, once started; an object store's copy is removed if nothing commits. */
-  let rawKey: Promise<string> | null = null;
+/** One attempt: the file is read again, so a retry starts from the same bytes. */
+async function importOnce(
+  input: ImportSweepInput,
+  actor: SweepActor,
+  storage: RawStorage,
+): Promise<SweepCreatedResponse> {
+  const file = openTable(input.file, IMPORT_SLICE_ROWS);
+  const columns = detectColumns(file.parsed, input.columns ?? [], input.method);
+  if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
+  const sha256 = createHash('sha256').update(input.file).digest('hex');
+  const raw = new RawCopy(storage);
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await Sweep.sequelize!.transaction(async (transaction) => {
       const { wafer, lot } = await visibleWafer(actor, input.waferId, transaction);
       // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
       await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
@@ -224,23 +124,19 @@ export async function importSweep(
           sweepId: earlier.id,
         });
       }
-      // The raw bytes go to the store first (awaited in storeSweep).
-      const put = storage.put(input.file, { transaction });
-      rawKey = put;
-      put.catch(() => undefined); // awaited below; never an unhandled rejection
+      const rawKey = raw.put(input.file, transaction);
       try {
         return await storeSweep(
-          { input, actor, file, columns, sha256, storage, rawKey: put, wafer, lot },
+          { input, actor, file, columns, sha256, storage, rawKey, wafer, lot },
           transaction,
         );
       } catch (error) {
-        // The write in flight finishes before the rollback runs on the same connection.
-        await put.catch(() => undefined);
+        await raw.settle();
         throw error;
       }
     });
   } catch (error) {
-    if (rawKey && !storage.writesInTransaction) await discardRaw(storage, rawKey);
+    await raw.discard();
     throw error;
   }
 }
@@ -258,23 +154,16 @@ interface StoreContext {
   lot: Awaited<ReturnType<typeof visibleWafer>>['lot'];
 }
 
-/** Records converted per slice: one slice is stored while the next is converted. */
-export const IMPORT_SLICE_ROWS = POINT_CHUNK;
-
 /**
- * Converts the rows and stores the sweep, its points and the audit event. The conversion and
- * the point writes overlap slice by slice (the database inserts one slice while this process
- * converts the next); a row problem anywhere still stores nothing, since the caller's
- * transaction rolls back. The sweep row is written with the first slice and completed (count,
- * temperature range, report) after the last; points that go against the ramp, known only
- * then, get their flag in one update.
+ * Runs the stages over the file slice by slice and stores the result. A row problem anywhere
+ * stores nothing, since the caller's transaction rolls back.
  */
 async function storeSweep(
-  { input, actor, file, columns, sha256, storage, rawKey, wafer, lot }: StoreContext,
+  ctx: StoreContext,
   transaction: Transaction,
 ): Promise<SweepCreatedResponse> {
+  const { input, actor, file, columns, sha256, storage, rawKey, wafer, lot } = ctx;
   const parsed = file.parsed;
-  const constantCurrentA = parsed.recognised.currentA;
   const warnings: string[] = [];
   const station = await findStation(
     input.stationId,
@@ -282,7 +171,6 @@ async function storeSweep(
     warnings,
     transaction,
   );
-  const tCol = columns.find((c) => c.meaning === 'temperature')!;
   const geometry = resolveGeometry({
     method: input.method,
     request: input.geometry ?? {},
@@ -290,65 +178,35 @@ async function storeSweep(
     lot,
     station,
     file: parsed.recognised,
-    needsRtd: tCol.unitInfo?.kind === 'resistance',
+    needsRtd: columns.find((c) => c.meaning === 'temperature')?.unitInfo?.kind === 'resistance',
   });
-  const converter = new RowConverter(parsed, columns, input.method, geometry, constantCurrentA);
+  const converter = new RowConverter(parsed, columns, input.method, geometry);
   const finder = new SuspiciousPointFinder();
-  let minK = Infinity;
-  let maxK = -Infinity;
-  let stored: { sweep: Sweep; writer: PointWriter } | null = null;
-  const take = async (points: ConvertedPoint[]) => {
-    for (const p of points) {
-      finder.add(p);
-      if (p.temperatureK < minK) minK = p.temperatureK;
-      if (p.temperatureK > maxK) maxK = p.temperatureK;
-    }
-    if (!points.length) return;
-    if (!stored) {
-      const sweep = await Sweep.create(
-        {
-          waferId: wafer.id,
-          stationId: station?.id ?? null,
-          method: input.method,
-          geometry,
-          uploadedById: actor.id,
-          originalName: input.originalName.slice(0, 255) || 'sweep.csv',
-          sizeBytes: input.file.length,
-          sha256,
-          storageKind: storage.kind,
-          storageKey: await rawKey,
-          columnMapping: publicColumns(columns),
-          metadata: parsed.layout.metadata,
-          parseReport: {},
-          pointCount: 0,
-          minTemperatureK: null,
-          maxTemperatureK: null,
-          deletedById: null,
-        },
-        { transaction },
-      );
-      stored = { sweep, writer: new PointWriter(sweep.id, rawJson(parsed), transaction) };
-    }
-    await stored.writer.write(points);
-  };
-  const records = parsed.table.records;
+  const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
+  const store = new SweepStore(
+    {
+      waferId: wafer.id,
+      stationId: station?.id ?? null,
+      method: input.method,
+      geometry,
+      uploadedById: actor.id,
+      originalName,
+      sizeBytes: input.file.length,
+      sha256,
+      storageKind: storage.kind,
+      storageKey: rawKey,
+      columnMapping: publicColumns(columns),
+      metadata: parsed.layout.metadata,
+    },
+    rawJson(parsed),
+    transaction,
+  );
   try {
-    for (let start = 0; converter.open; start += IMPORT_SLICE_ROWS) {
-      const end = start + IMPORT_SLICE_ROWS;
-      while (!file.done && records.length < end) reading(() => file.readMore(IMPORT_SLICE_ROWS));
-      if (parsed.problems.length) break;
-      if (start >= records.length) break;
-      const more = !file.done || end < records.length;
-      await take(converter.next(start, Math.min(records.length, end), more));
+    // no slice is read once the converter holds as many problems as an answer lists
+    for (const slice of slices(file, IMPORT_SLICE_ROWS, () => converter.open)) {
+      await store.write(finder.addAll(converter.next(slice)));
     }
-    if (parsed.problems.length) {
-      // a row of the wrong width: read on only to name the others, as a whole-file read would
-      while (!file.done && parsed.problems.length < MAX_PROBLEMS) {
-        reading(() => file.readMore(IMPORT_SLICE_ROWS));
-      }
-      throw unreadableRows(parsed.problems);
-    }
-    await take(converter.finish());
+    await store.write(finder.addAll(converter.finish()));
     if (converter.problems.length) {
       throw unprocessable(
         'Some rows hold values that cannot be stored; nothing was stored',
@@ -356,45 +214,34 @@ async function storeSweep(
       );
     }
   } catch (error) {
-    // every batch sent settles before the caller's rollback runs on the same connection
-    await (stored as { writer: PointWriter } | null)?.writer.settle();
+    await store.abandon();
     throw error;
   }
-  const { sweep, writer } = stored!;
-  const pointCount = await writer.finish();
   const flags = finder.finish();
-  await markReversals(sweep.id, flags.reversals, transaction);
   warnings.push(...converter.warnings, ...flags.warnings);
-  const parseReport: SweepParseReport = {
+  const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,
     headerRow: parsed.layout.headerLine,
-    rowCount: records.length,
+    rowCount: parsed.table.records.length,
     warnings,
     flaggedPoints: flags.flagged,
   };
-  await sweep.update(
-    { pointCount, minTemperatureK: minK, maxTemperatureK: maxK, parseReport },
-    { transaction },
-  );
-  await recordAudit(
-    {
-      actorId: actor.id,
-      action: 'create',
-      entity: 'sweep',
-      entityId: sweep.id,
-      after: {
-        waferId: wafer.id,
-        method: input.method,
-        originalName: sweep.originalName,
-        sha256,
-        pointCount,
-        stationId: sweep.stationId,
-        geometry,
-      },
-      requestId: actor.requestId ?? null,
+  const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
+    actorId: actor.id,
+    action: 'create',
+    entity: 'sweep',
+    entityId: sweepId,
+    after: {
+      waferId: wafer.id,
+      method: input.method,
+      originalName,
+      sha256,
+      pointCount: count,
+      stationId: station?.id ?? null,
+      geometry,
     },
-    transaction,
-  );
-  return { id: sweep.id, pointCount, warnings };
+    requestId: actor.requestId ?? null,
+  }));
+  return { id, pointCount, warnings };
 }

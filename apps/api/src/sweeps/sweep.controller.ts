@@ -124,6 +124,9 @@ export async function storeSweepHandler(req: Request, res: Response): Promise<vo
       geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
     },
     actorOf(req),
+    {
+      onRetry: (err) => req.log?.warn({ err }, 'upload retried after a transient database failure'),
+    },
   );
   res.status(201).json(result);
 }

@@ -2,6 +2,7 @@
  * Collinear four-point probe: sheet resistance and resistivity with the finite-thickness and
  * finite-diameter corrections.
  */
+import { PhysicsInputError } from '../errors';
 import { requireFiniteNumber, requireObject, requirePositive } from '../validate';
 
 /** pi / ln 2 = 4.5324: the thin infinite-sheet factor of the collinear four-point probe. */
@@ -132,8 +133,10 @@ function thicknessFactorUnchecked(tau: number): number {
 export function circularSliceFactor(diameterOverSpacing: number): number {
   const r = requirePositive('circularSliceFactor', 'diameterOverSpacing', diameterOverSpacing);
   if (r < MIN_DIAMETER_SPACINGS) {
-    throw new RangeError(
-      `\`circularSliceFactor\` requires diameterOverSpacing of at least 3, got ${r}`,
+    throw new PhysicsInputError(
+      'circularSliceFactor',
+      'diameterOverSpacing',
+      `requires diameterOverSpacing of at least 3, got ${r}`,
     );
   }
   return Math.PI / (Math.LN2 + Math.log((r * r + 3) / (r * r - 3)));
@@ -186,8 +189,10 @@ export function fourPointProbe(input: {
   if (o['diameterCm'] !== undefined) {
     const d = requirePositive(fn, 'diameterCm', o['diameterCm']);
     if (d < MIN_DIAMETER_SPACINGS * s * (1 - 1e-12)) {
-      throw new RangeError(
-        `\`fourPointProbe\` requires diameterCm of at least 3 probe spacings (${3 * s} cm), got ${d}`,
+      throw new PhysicsInputError(
+        fn,
+        'diameterCm',
+        `requires diameterCm of at least 3 probe spacings (${3 * s} cm), got ${d}`,
       );
     }
     diameterFactor = cachedDiameterFactor(d / s);
@@ -206,11 +211,13 @@ export function fourPointProbe(input: {
 export function voltageOverCurrent(fn: string, o: Record<string, unknown>): number {
   const v = requireFiniteNumber(fn, 'voltageV', o['voltageV']);
   const i = requireFiniteNumber(fn, 'currentA', o['currentA']);
-  if (i === 0) throw new RangeError(`\`${fn}\` requires a non-zero currentA, got 0`);
+  if (i === 0) throw new PhysicsInputError(fn, 'currentA', 'requires a non-zero currentA, got 0');
   const ratio = v / i;
   if (!(ratio > 0) || !Number.isFinite(ratio)) {
-    throw new RangeError(
-      `\`${fn}\` requires voltageV and currentA of the same sign and non-zero, got ${v} V and ${i} A`,
+    throw new PhysicsInputError(
+      fn,
+      'voltageV and currentA',
+      `requires voltageV and currentA of the same sign and non-zero, got ${v} V and ${i} A`,
     );
   }
   return ratio;

@@ -2,6 +2,7 @@
  * Van der Pauw sheet resistance from the two four-terminal resistances of a lamella.
  */
 import { brentRoot } from '../numeric/brent';
+import { PhysicsInputError } from '../errors';
 import { requireObject, requirePositive } from '../validate';
 import { THIN_SHEET_FACTOR } from './four-point';
 
@@ -56,8 +57,10 @@ export function vanDerPauw(input: {
   const rb = requirePositive(fn, 'resistanceBOhm', o['resistanceBOhm']);
   const ratio = ra / rb;
   if (ratio > MAX_RATIO || ratio < 1 / MAX_RATIO) {
-    throw new RangeError(
-      `\`vanDerPauw\` requires resistanceAOhm / resistanceBOhm between 1e-12 and 1e12, got ${ratio}`,
+    throw new PhysicsInputError(
+      fn,
+      'resistanceAOhm and resistanceBOhm',
+      `requires resistanceAOhm / resistanceBOhm between 1e-12 and 1e12, got ${ratio}`,
     );
   }
   const f = vanDerPauwFactor(ratio);

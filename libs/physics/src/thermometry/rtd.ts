@@ -3,6 +3,7 @@
  */
 import { BOUND_ALLOWANCE_K, ZERO_CELSIUS_K } from '../constants';
 import { PHYSICS_DEFAULTS } from '../defaults';
+import { PhysicsInputError } from '../errors';
 import { requireFiniteNumber, requireInRange, requirePositive } from '../validate';
 
 /** IEC 60751 coefficients and range. */
@@ -90,8 +91,10 @@ export function rtdTemperatureK(
   const hi = ratioAt(maxCelsius);
   const ratio = r / r0;
   if (ratio < lo - TABLE_ROUNDING_RATIO || ratio > hi + TABLE_ROUNDING_RATIO) {
-    throw new RangeError(
-      `\`rtdTemperatureK\` requires a resistance (resistanceOhm) between ${(lo * r0).toPrecision(7)} ` +
+    throw new PhysicsInputError(
+      'rtdTemperatureK',
+      'resistanceOhm',
+      `requires a resistance (resistanceOhm) between ${(lo * r0).toPrecision(7)} ` +
         `and ${(hi * r0).toPrecision(7)} ohm for R0 = ${r0} ohm, got ${r}`,
     );
   }

@@ -1,12 +1,23 @@
 /**
- * Marks suspicious points without refusing them: a resistivity jump between neighbours and a
- * temperature going against the ramp.
+ * Stage 6, flag: marks suspicious points without refusing them (a resistivity jump between
+ * neighbours, a temperature going against the ramp) and finds the sweep's temperature range.
  */
 import { JUMP_FACTOR } from '@rhotrace/api-types';
-import { listRows, type ConvertedPoint } from './convert';
+import { listRows, type ConvertedPoint } from './import-types';
 
 /** A step against the ramp direction larger than this is a reversal (thermometer noise is less). */
 export const REVERSAL_TOLERANCE_K = 0.5;
+
+/** What the flag stage found over the whole sweep. */
+export interface FlagSummary {
+  /** Positions (0-based, in stored order) of the points that go against the ramp. */
+  reversals: number[];
+  /** Points carrying a jump or reversal flag. */
+  flagged: number;
+  warnings: string[];
+  minTemperatureK: number | null;
+  maxTemperatureK: number | null;
+}
 
 /**
  * Finds suspicious points as they come, for an import that stores them slice by slice: a jump
@@ -18,6 +29,12 @@ export class SuspiciousPointFinder {
   private readonly temperatures: number[] = [];
   private readonly rows: number[] = [];
   private readonly jumps: number[] = [];
+
+  /** Takes the next points, adding their `jump` flags in place; returns them. */
+  addAll(points: ConvertedPoint[]): ConvertedPoint[] {
+    for (const point of points) this.add(point);
+    return points;
+  }
 
   /** Takes the next point, adding its `jump` flag in place. */
   add(point: ConvertedPoint): void {
@@ -36,9 +53,10 @@ export class SuspiciousPointFinder {
 
   /**
    * After the last point: the positions (0-based, in the order added) of the points that go
-   * against the ramp, how many points carry either flag, and one warning per kind.
+   * against the ramp, how many points carry either flag, one warning per kind, and the lowest
+   * and highest temperature (null without points).
    */
-  finish(): { reversals: number[]; flagged: number; warnings: string[] } {
+  finish(): FlagSummary {
     const t = this.temperatures;
     const reversals: number[] = [];
     const direction = t.length < 2 ? 0 : Math.sign(t[t.length - 1]! - t[0]!);
@@ -59,6 +77,12 @@ export class SuspiciousPointFinder {
       );
     }
     const flagged = new Set([...this.jumps, ...reversals]).size;
-    return { reversals, flagged, warnings };
+    let minTemperatureK = t.length ? Infinity : null;
+    let maxTemperatureK = t.length ? -Infinity : null;
+    for (const k of t) {
+      if (k < minTemperatureK!) minTemperatureK = k;
+      if (k > maxTemperatureK!) maxTemperatureK = k;
+    }
+    return { reversals, flagged, warnings, minTemperatureK, maxTemperatureK };
   }
 }

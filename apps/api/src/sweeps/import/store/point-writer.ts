@@ -3,7 +3,8 @@
  * connection: the bulk protocol instead of a statement per row.
  */
 import type { Transaction } from 'sequelize';
-import type { ConvertedPoint } from './convert';
+import type { ConvertedPoint } from '../import-types';
+import { requireAffected } from '../../../db/transient-errors';
 
 const INSERT_POINTS =
   'INSERT INTO sweep_points (sweep_id, sequence, source_row, temperature_k, current_a, voltage_v, ' +
@@ -13,16 +14,31 @@ const INSERT_POINTS =
 /** The driver connection Sequelize holds for a transaction. */
 interface BatchConnection {
   batch(sql: string, values: unknown[][]): Promise<unknown>;
+  destroy(): void;
 }
 
 /**
  * Rows per batch call. The calls are pipelined on the connection, and the writer yields to the
  * event loop after each one, so the socket sends a chunk while the next is built and the
  * server inserts one while the next arrives (without the yield every chunk was built first
- * and sent after: 25 % slower for 100,000 rows). Each chunk's packets stay well under
- * max_allowed_packet; only the rows of chunks not yet written are held twice in memory.
+ * and sent after: 25 % slower for 100,000 rows). Only the rows of chunks not yet written are
+ * held twice in memory.
  */
 export const POINT_CHUNK = 10_000;
+
+/**
+ * Upper bound of one batch's encoded size, bytes. mariadb 3.0.2 mis-handles a bulk insert whose
+ * last row spills past its packet limit (`maxAllowedPacket`, 4 MiB unless configured): the
+ * batch rejects with a TypeError while its command stays at the head of the connection's
+ * queue and swallows the answers to the statements after it. Chunks are cut below the limit.
+ */
+export const POINT_CHUNK_BYTES = 3 * 1024 * 1024;
+
+/**
+ * Bytes a row takes besides its raw text and flags in the bulk protocol, at most: eleven null
+ * marks, three 4-byte integers, six 8-byte doubles and two length prefixes (up to 9 bytes each).
+ */
+const ROW_OVERHEAD_BYTES = 11 + 3 * 4 + 6 * 8 + 2 * 9;
 
 /** Batches one writer keeps on the connection before it waits for the oldest to finish. */
 export const POINT_BATCHES_IN_FLIGHT = 2;
@@ -32,8 +48,9 @@ export const POINT_BATCHES_IN_FLIGHT = 2;
  * points before. Each slice goes out as batch inserts pipelined on the transaction's
  * connection; the writer yields to the event loop after each so the socket sends it while the
  * next slice is converted, and it waits once `POINT_BATCHES_IN_FLIGHT` are outstanding, so
- * the conversion never runs far ahead of the database. A failed batch fails the next `write`
- * or `finish`, but only after every batch sent has settled, so a rollback never races a write.
+ * the conversion never runs far ahead of the database. Each batch must report every row it
+ * sent as inserted. A failed batch fails the next `write` or `finish`, but only after every
+ * batch sent has settled, so a rollback never races a write.
  */
 export class PointWriter {
   private readonly connection: BatchConnection;
@@ -52,13 +69,19 @@ export class PointWriter {
   /** Sends `points` after those written before. */
   async write(points: ConvertedPoint[]): Promise<void> {
     await this.throwIfFailed();
-    for (let start = 0; start < points.length; start += POINT_CHUNK) {
-      const end = Math.min(points.length, start + POINT_CHUNK);
-      const rows: unknown[][] = new Array<unknown[]>(end - start);
-      for (let i = start; i < end; i++) {
-        const p = points[i]!;
+    let start = 0;
+    while (start < points.length) {
+      const rows: unknown[][] = [];
+      let bytes = 0;
+      for (; start < points.length && rows.length < POINT_CHUNK; start++) {
+        const p = points[start]!;
+        const raw = this.rawOf(p);
+        const flags = p.flags.length === 0 ? '' : p.flags.join(',');
+        // UTF-8 takes at most 3 bytes per UTF-16 unit: a bound, not an estimate.
+        bytes += 3 * raw.length + flags.length + ROW_OVERHEAD_BYTES;
+        if (bytes > POINT_CHUNK_BYTES && rows.length > 0) break;
         this.written += 1;
-        rows[i - start] = [
+        rows.push([
           this.sweepId,
           this.written,
           p.sourceRows[0],
@@ -68,18 +91,11 @@ export class PointWriter {
           p.resistanceOhm,
           p.sheetResistanceOhmSq,
           p.resistivityOhmCm,
-          this.rawOf(p),
-          p.flags.length === 0 ? '' : p.flags.join(','),
-        ];
+          raw,
+          flags,
+        ]);
       }
-      this.inFlight.push(
-        this.connection.batch(INSERT_POINTS, rows).then(
-          () => undefined,
-          (error: unknown) => {
-            this.failure ??= { error };
-          },
-        ),
-      );
+      this.send(rows);
       await new Promise((resolve) => setImmediate(resolve));
       while (this.inFlight.length > POINT_BATCHES_IN_FLIGHT) await this.inFlight.shift();
       await this.throwIfFailed();
@@ -96,6 +112,29 @@ export class PointWriter {
   /** Waits for every batch sent, ignoring failures (before a rollback). */
   async settle(): Promise<void> {
     while (this.inFlight.length) await this.inFlight.shift();
+  }
+
+  private send(rows: unknown[][]): void {
+    const first = rows[0]![1] as number;
+    this.inFlight.push(
+      this.connection.batch(INSERT_POINTS, rows).then(
+        (result) => {
+          try {
+            requireAffected(result, rows.length, `points ${first} to ${first + rows.length - 1}`);
+          } catch (error) {
+            this.failure ??= { error };
+          }
+        },
+        (error: unknown) => {
+          this.failure ??= { error };
+          // A fatal error (SQLSTATE 08..., e.g. Galera's 1047) ends mariadb 3.0.2's bulk command
+          // while answers to its other packets are still due; they would be taken by the next
+          // statements (a ROLLBACK "succeeding" on a stray OK) and the connection would go back
+          // to the pool out of step. Closing it makes the server roll the transaction back.
+          if ((error as { fatal?: unknown } | null)?.fatal === true) this.connection.destroy();
+        },
+      ),
+    );
   }
 
   private async throwIfFailed(): Promise<void> {

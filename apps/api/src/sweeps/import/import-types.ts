@@ -1,0 +1,42 @@
+/**
+ * What the import stages hand each other: a row read in stored units (`Reading`), and the point
+ * made from one reading or a forward/reverse pair (`ConvertedPoint`).
+ */
+import type { PointFlag } from '@rhotrace/api-types';
+
+/** One data row read in stored units (SI, kelvin, ohm cm); null where the file has no value. */
+export interface Reading {
+  /** Index of the row among the parsed records. */
+  record: number;
+  /** Line number in the file. */
+  row: number;
+  temperatureK: number;
+  /** 1 forward, -1 reverse, 0 when the file has no polarity column. */
+  polarity: 1 | -1 | 0;
+  voltageV: number | null;
+  currentA: number | null;
+  resistanceOhm: number | null;
+  resistanceBOhm: number | null;
+  sheetResistanceOhmSq: number | null;
+  resistivityOhmCm: number | null;
+}
+
+/** A converted point, ready to store. */
+export interface ConvertedPoint {
+  sourceRows: number[];
+  /** Indexes into the parsed records of the rows this point was made from. */
+  recordIndexes: number[];
+  temperatureK: number;
+  currentA: number | null;
+  voltageV: number | null;
+  resistanceOhm: number | null;
+  sheetResistanceOhmSq: number | null;
+  resistivityOhmCm: number;
+  flags: PointFlag[];
+}
+
+/** Row numbers for a warning, the first ten and a count of the rest. */
+export function listRows(rows: number[]): string {
+  const shown = rows.slice(0, 10).join(', ');
+  return rows.length > 10 ? `${shown} and ${rows.length - 10} more` : shown;
+}

@@ -1,0 +1,214 @@
+/**
+ * Stage 3, read a row: its cells as numbers in stored units (kelvin, volts, amperes, ohms,
+ * ohm cm), its polarity, and the checks one row allows on its own. Problems are collected per
+ * row and column; a row with one gives no reading.
+ */
+import type { ColumnMeaning, RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
+import { celsiusToKelvin, PhysicsInputError, rtdTemperatureK } from '@rhotrace/physics';
+import {
+  readNumber,
+  rowProblem,
+  type DecimalMark,
+  type ParsedSweepFile,
+  type ResolvedColumn,
+} from '../parse';
+import type { Reading } from './import-types';
+import { POINT_METHODS } from './methods';
+
+const FORWARD = /^(\+|\+1|1|f|fwd|forward|pos|positive|p|normal|\+i)$/i;
+const REVERSE = /^(-|-1|r|rev|reverse|neg|negative|n|reversed|-i)$/i;
+
+/** Columns a reading may use, by meaning (null when not mapped). */
+type ColumnsByMeaning = Record<
+  'voltage' | 'current' | 'resistance' | 'resistance-b' | 'sheet-resistance' | 'resistivity',
+  ResolvedColumn | null
+>;
+
+/** Reads records of a parsed file as readings; problems go to the list it is given. */
+export class RowReader {
+  private readonly temperature: ResolvedColumn;
+  private readonly polarity: ResolvedColumn | null;
+  private readonly columns: ColumnsByMeaning;
+  /** Whether each column's cell must be filled. */
+  private readonly required: Record<keyof ColumnsByMeaning, boolean>;
+  private readonly mark: DecimalMark;
+  /** True while the row being read has a problem. */
+  private bad = false;
+
+  constructor(
+    private readonly parsed: ParsedSweepFile,
+    columns: ResolvedColumn[],
+    method: SweepMethod,
+    private readonly geometry: SweepGeometry,
+    private readonly constantCurrentA: number | undefined,
+    private readonly problems: RowProblem[],
+  ) {
+    const col = (m: ColumnMeaning) => columns.find((c) => c.meaning === m) ?? null;
+    this.temperature = col('temperature')!;
+    this.polarity = col('polarity');
+    this.columns = {
+      voltage: col('voltage'),
+      current: col('current'),
+      resistance: col('resistance'),
+      'resistance-b': col('resistance-b'),
+      'sheet-resistance': col('sheet-resistance'),
+      resistivity: col('resistivity'),
+    };
+    const entry = POINT_METHODS[method];
+    const cells = new Set(entry.requiredCells);
+    // V and I give the reading unless the file has V/I as a resistance column, and vice versa.
+    const vi = entry.readsVoltageOverCurrent;
+    const { voltage, resistance } = this.columns;
+    this.required = {
+      voltage: vi && !resistance,
+      current: vi && !resistance,
+      resistance: cells.has('resistance') || (vi && !voltage),
+      'resistance-b': cells.has('resistance-b'),
+      'sheet-resistance': cells.has('sheet-resistance'),
+      resistivity: cells.has('resistivity'),
+    };
+    this.mark = parsed.layout.decimalMark;
+  }
+
+  /** Record `i` as a reading, or null after noting its problems. */
+  read(i: number): Reading | null {
+    const cells = this.parsed.table.records[i]!;
+    const row = this.parsed.table.lines[i]!;
+    this.bad = false;
+    const temperatureRaw = this.cell(cells, row, this.temperature, true);
+    const polarity = this.readPolarity(cells, row);
+    const voltageV = this.value(cells, row, 'voltage');
+    let currentA = this.columns.current
+      ? this.value(cells, row, 'current')
+      : voltageV !== null
+        ? (this.constantCurrentA ?? null)
+        : null;
+    const resistanceOhm = this.value(cells, row, 'resistance');
+    const resistanceBOhm = this.value(cells, row, 'resistance-b');
+    const sheetResistanceOhmSq = this.value(cells, row, 'sheet-resistance');
+    const resistivityOhmCm = this.value(cells, row, 'resistivity');
+    if (this.bad || temperatureRaw === null) return null;
+
+    const temperatureK = this.kelvin(temperatureRaw, row);
+    if (temperatureK === null) return null;
+    if (currentA !== null && this.columns.current) {
+      currentA = this.signedCurrent(currentA, polarity, row);
+      if (currentA === null) return null;
+    }
+    if (
+      this.notPositive(row, 'resistance', resistanceOhm) ||
+      this.notPositive(row, 'resistance-b', resistanceBOhm) ||
+      this.notPositive(row, 'sheet-resistance', sheetResistanceOhmSq) ||
+      this.notPositive(row, 'resistivity', resistivityOhmCm)
+    ) {
+      return null;
+    }
+    return {
+      record: i,
+      row,
+      temperatureK,
+      polarity,
+      voltageV,
+      currentA,
+      resistanceOhm,
+      resistanceBOhm,
+      sheetResistanceOhmSq,
+      resistivityOhmCm,
+    };
+  }
+
+  /** Notes a zero or negative resistance-like value; true when it did. */
+  private notPositive(row: number, meaning: keyof ColumnsByMeaning, value: number | null): boolean {
+    const c = this.columns[meaning];
+    if (!c || value === null || value > 0) return false;
+    this.problems.push(rowProblem(row, c.header, `the value must be above zero (${value})`));
+    return true;
+  }
+
+  private value(cells: string[], row: number, meaning: keyof ColumnsByMeaning): number | null {
+    const c = this.columns[meaning];
+    return c ? this.cell(cells, row, c, this.required[meaning]) : null;
+  }
+
+  /** A cell as a number in stored units; null when empty (a problem when `required`). */
+  private cell(cells: string[], row: number, c: ResolvedColumn, required: boolean): number | null {
+    const cell = cells[c.index] ?? '';
+    const value = readNumber(cell, this.mark);
+    if (value === undefined) {
+      this.problems.push(rowProblem(row, c.header, `"${cell.trim()}" is not a number`));
+      this.bad = true;
+      return null;
+    }
+    if (value === null) {
+      if (required) {
+        this.problems.push(rowProblem(row, c.header, 'the value is missing'));
+        this.bad = true;
+      }
+      return null;
+    }
+    return c.unitInfo!.factor === 1 ? value : value * c.unitInfo!.factor;
+  }
+
+  private readPolarity(cells: string[], row: number): 1 | -1 | 0 {
+    const c = this.polarity;
+    if (!c) return 0;
+    const text = (cells[c.index] ?? '').trim();
+    if (FORWARD.test(text)) return 1;
+    if (REVERSE.test(text)) return -1;
+    this.bad = true;
+    this.problems.push(
+      rowProblem(
+        row,
+        c.header,
+        `polarity "${text}" is not understood (use + or -, forward or reverse)`,
+      ),
+    );
+    return 0;
+  }
+
+  /** The temperature in kelvin (from °C, an RTD's ohms or kelvin); null after a problem. */
+  private kelvin(raw: number, row: number): number | null {
+    const c = this.temperature;
+    const unit = c.unitInfo!;
+    let temperatureK: number;
+    try {
+      temperatureK =
+        unit.label === 'degC'
+          ? celsiusToKelvin(raw)
+          : unit.kind === 'resistance'
+            ? rtdTemperatureK(raw, this.geometry.rtdR0Ohm)
+            : raw;
+    } catch (error) {
+      if (!(error instanceof PhysicsInputError)) throw error;
+      this.problems.push(
+        rowProblem(row, c.header, `the temperature cannot be converted: ${error.requirement}`),
+      );
+      return null;
+    }
+    if (!(temperatureK > 0)) {
+      this.problems.push(
+        rowProblem(row, c.header, `the temperature is at or below 0 K (${temperatureK} K)`),
+      );
+      return null;
+    }
+    return temperatureK;
+  }
+
+  /** The current with the sign its polarity gives it; null after a problem. */
+  private signedCurrent(currentA: number, polarity: 1 | -1 | 0, row: number): number | null {
+    // A reverse reading may give the current as a magnitude; it flows the other way.
+    const signed = polarity === -1 && currentA > 0 ? -currentA : currentA;
+    const wrong = polarity === -1 ? signed >= 0 : signed <= 0;
+    if (!wrong) return signed;
+    this.problems.push(
+      rowProblem(
+        row,
+        this.columns.current!.header,
+        polarity === 0 && signed < 0
+          ? `the current is negative (${signed} A); mark reverse-polarity readings in a polarity column`
+          : `the current must not be zero or point the wrong way (${signed} A)`,
+      ),
+    );
+    return null;
+  }
+}

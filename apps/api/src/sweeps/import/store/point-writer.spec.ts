@@ -1,0 +1,104 @@
+import { describe, expect, it } from 'vitest';
+import type { Transaction } from 'sequelize';
+import { TransactionLostError } from '../../../db/transient-errors';
+import type { ConvertedPoint } from '../import-types';
+import { POINT_CHUNK, POINT_CHUNK_BYTES, PointWriter } from './point-writer';
+
+const point = (row: number): ConvertedPoint => ({
+  sourceRows: [row],
+  recordIndexes: [row],
+  temperatureK: 300,
+  currentA: 1e-3,
+  voltageV: 1e-2,
+  resistanceOhm: null,
+  sheetResistanceOhmSq: 45,
+  resistivityOhmCm: 2.2,
+  flags: [],
+});
+
+/** A connection that records each batch and answers as `answer` says. */
+function fakeConnection(answer: (rows: unknown[][], call: number) => Promise<unknown>) {
+  const batches: unknown[][][] = [];
+  /** The batch count at each `destroy`. */
+  const destroyed: number[] = [];
+  const transaction = {
+    connection: {
+      batch: (_sql: string, rows: unknown[][]) => {
+        batches.push(rows);
+        return answer(rows, batches.length);
+      },
+      destroy: () => {
+        destroyed.push(batches.length);
+      },
+    },
+  } as unknown as Transaction;
+  return { batches, destroyed, transaction };
+}
+
+const inserted = (rows: unknown[][]) => Promise.resolve({ affectedRows: rows.length });
+
+describe('the point writer', () => {
+  it('numbers the points on across writes and cuts batches at POINT_CHUNK rows', async () => {
+    const { batches, transaction } = fakeConnection(inserted);
+    const writer = new PointWriter(7, () => '[]', transaction);
+    await writer.write(Array.from({ length: POINT_CHUNK + 5 }, (_, i) => point(i)));
+    await writer.write([point(99_999)]);
+    expect(await writer.finish()).toBe(POINT_CHUNK + 6);
+    expect(batches.map((b) => b.length)).toEqual([POINT_CHUNK, 5, 1]);
+    expect(batches[2]![0]!.slice(0, 3)).toEqual([7, POINT_CHUNK + 6, 99_999]);
+  });
+
+  it('keeps each batch under the driver packet limit, however wide the raw rows', async () => {
+    const { batches, transaction } = fakeConnection(inserted);
+    const raw = 'x'.repeat(400_000);
+    const writer = new PointWriter(1, () => raw, transaction);
+    await writer.write(Array.from({ length: 9 }, (_, i) => point(i)));
+    await writer.finish();
+    // a UTF-8 bound: 3 bytes per character
+    for (const b of batches)
+      expect(b.length * 3 * raw.length).toBeLessThanOrEqual(POINT_CHUNK_BYTES);
+    expect(batches.flat()).toHaveLength(9);
+  });
+
+  it('fails when a batch reports fewer rows inserted than it sent, after every batch settled', async () => {
+    let settled = 0;
+    const { batches, transaction } = fakeConnection(async (rows, call) => {
+      await new Promise((r) => setTimeout(r, call === 1 ? 1 : 20));
+      settled += 1;
+      return { affectedRows: call === 1 ? rows.length - 1 : rows.length };
+    });
+    const writer = new PointWriter(1, () => '[]', transaction);
+    const points = Array.from({ length: 3 * POINT_CHUNK }, (_, i) => point(i));
+    const error = await writer
+      .write(points)
+      .then(() => writer.finish())
+      .catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(TransactionLostError);
+    expect((error as Error).message).toMatch(/points 1 to 10000: 9999 of 10000 row\(s\)/);
+    // no batch still runs on the connection when the error reaches the caller's rollback
+    expect(batches.length).toBeGreaterThan(1);
+    expect(settled).toBe(batches.length);
+  });
+
+  it('passes a driver error on at the next write or finish', async () => {
+    const refused = Object.assign(new Error('Deadlock found'), { errno: 1213 });
+    const { transaction } = fakeConnection(() => Promise.reject(refused));
+    const writer = new PointWriter(1, () => '[]', transaction);
+    await writer.write([point(1)]).catch(() => undefined);
+    await expect(writer.finish()).rejects.toBe(refused);
+  });
+
+  it('closes the connection after a fatal error, which a later statement must not inherit', async () => {
+    const fatal = Object.assign(new Error('WSREP has not yet prepared node'), {
+      errno: 1047,
+      fatal: true,
+    });
+    const { destroyed, transaction } = fakeConnection((rows, call) =>
+      call === 1 ? Promise.reject(fatal) : inserted(rows),
+    );
+    const writer = new PointWriter(1, () => '[]', transaction);
+    await writer.write([point(1)]).catch(() => undefined);
+    await expect(writer.finish()).rejects.toBe(fatal);
+    expect(destroyed).toEqual([1]);
+  });
+});

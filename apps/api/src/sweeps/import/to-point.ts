@@ -1,0 +1,97 @@
+/**
+ * Stage 5, turn a row into a point: a reading, or a forward/reverse pair averaged, becomes
+ * sheet resistance and resistivity through the method's entry in `POINT_METHODS`. The physics
+ * library's `PhysicsInputError` says which argument it refused: a geometry argument makes the
+ * whole upload a 400, anything else is a problem of that row.
+ */
+import type { RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
+import { PhysicsInputError } from '@rhotrace/physics';
+import { validationFailed } from '../../errors';
+import { rowProblem, type ResolvedColumn } from '../parse';
+import type { ConvertedPoint, Reading } from './import-types';
+import { POINT_METHODS, type PointInput, type PointValues } from './methods';
+import type { ReadingGroup } from './pair-polarities';
+
+/** Arguments of the physics functions that come from the sweep's geometry, not from a row. */
+const GEOMETRY_ARGUMENTS: ReadonlySet<string> = new Set([
+  'diameterCm',
+  'spacingCm',
+  'thicknessCm',
+  'lengthCm',
+  'widthCm',
+]);
+
+/** Refused together when V/I is zero or negative. */
+const VOLTAGE_OVER_CURRENT = 'voltageV and currentA';
+
+/** Mean of a value of the forward and reverse readings (null if either lacks it). */
+function pairMean(f: number | null, r: number | null): number | null {
+  return f === null || r === null ? null : (f + r) / 2;
+}
+
+/**
+ * The values of a group. Forward/reverse: V = (V+ - V-)/2 over I = (I+ - I-)/2 cancels thermal
+ * EMFs; resistances are averaged.
+ */
+function pointInput(f: Reading, r: Reading | undefined): PointInput {
+  if (!r) return f;
+  return {
+    voltageV: f.voltageV !== null && r.voltageV !== null ? (f.voltageV - r.voltageV) / 2 : null,
+    currentA: f.currentA !== null && r.currentA !== null ? (f.currentA - r.currentA) / 2 : null,
+    resistanceOhm: pairMean(f.resistanceOhm, r.resistanceOhm),
+    resistanceBOhm: pairMean(f.resistanceBOhm, r.resistanceBOhm),
+    sheetResistanceOhmSq: pairMean(f.sheetResistanceOhmSq, r.sheetResistanceOhmSq),
+    resistivityOhmCm: pairMean(f.resistivityOhmCm, r.resistivityOhmCm),
+  };
+}
+
+/**
+ * A converter of reading groups to points for one sweep; null after noting a row problem in
+ * `problems`. Throws a 400 when the physics refuses the geometry (a diameter under three probe
+ * spacings).
+ */
+export function pointMaker(
+  method: SweepMethod,
+  geometry: SweepGeometry,
+  columns: ResolvedColumn[],
+  problems: RowProblem[],
+): (group: ReadingGroup) => ConvertedPoint | null {
+  const compute = POINT_METHODS[method].converter(geometry);
+  const valueColumn =
+    columns.find((c) => c.meaning === 'voltage' || c.meaning === 'resistance')?.header ?? null;
+  return ({ forward: f, reverse: r, flag }) => {
+    const input = pointInput(f, r);
+    let values: PointValues;
+    try {
+      values = compute(input);
+    } catch (error) {
+      if (!(error instanceof PhysicsInputError)) throw error;
+      if (GEOMETRY_ARGUMENTS.has(error.argument)) {
+        throw validationFailed('The geometry does not fit the method', [
+          { field: 'geometry', problem: error.requirement },
+        ]);
+      }
+      problems.push(
+        rowProblem(
+          f.row,
+          valueColumn,
+          error.argument === VOLTAGE_OVER_CURRENT
+            ? 'voltage and current have opposite signs (a negative resistance); check the wiring or the polarity column'
+            : `the resistivity cannot be computed: ${error.requirement}`,
+        ),
+      );
+      return null;
+    }
+    return {
+      sourceRows: r ? [f.row, r.row] : [f.row],
+      recordIndexes: r ? [f.record, r.record] : [f.record],
+      temperatureK: r ? (f.temperatureK + r.temperatureK) / 2 : f.temperatureK,
+      currentA: input.currentA,
+      voltageV: input.voltageV,
+      resistanceOhm: input.resistanceOhm,
+      sheetResistanceOhmSq: values.sheetResistanceOhmSq,
+      resistivityOhmCm: values.resistivityOhmCm,
+      flags: flag ? [flag] : [],
+    };
+  };
+}
