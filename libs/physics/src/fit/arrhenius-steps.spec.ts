@@ -23,7 +23,10 @@ function dwellSweep(
     const trueK = 450 + (150 * i) / (steps - 1);
     const recordedK = trueK + stepErrorK * n();
     for (let j = 0; j < readings; j++) {
-      out.push({ temperatureK: recordedK, value: 1e-3 * Math.exp(ea / (k * trueK)) * (1 + noise * n()) });
+      out.push({
+        temperatureK: recordedK,
+        value: 1e-3 * Math.exp(ea / (k * trueK)) * (1 + noise * n()),
+      });
     }
   }
   return out;
@@ -86,7 +89,9 @@ describe('fitArrhenius on dwell steps', () => {
     const withT = fitArrhenius(pts, { temperatureUncertaintyK: 0.5 });
     expect(withT.converged).toBe(true);
     expect(withT.iterations).toBeGreaterThan(1);
-    expect(Math.abs(withT.parameters.activationEnergyEv / plain.parameters.activationEnergyEv - 1)).toBeLessThan(0.05);
+    expect(
+      Math.abs(withT.parameters.activationEnergyEv / plain.parameters.activationEnergyEv - 1),
+    ).toBeLessThan(0.05);
   });
 
   it('reports significant curvature for a window spanning two activation energies', () => {
@@ -95,7 +100,8 @@ describe('fitArrhenius on dwell steps', () => {
     const n = seededNormal(seededRandom(4));
     const bent = temps.map((t) => ({
       temperatureK: t,
-      value: (Math.exp(-0.2 / (k * t)) * 1e2 + Math.exp(-0.6 / (k * t)) * 1e6) ** -1 * (1 + 0.002 * n()),
+      value:
+        (Math.exp(-0.2 / (k * t)) * 1e2 + Math.exp(-0.6 / (k * t)) * 1e6) ** -1 * (1 + 0.002 * n()),
     }));
     const straight = temps.map((t) => ({
       temperatureK: t,

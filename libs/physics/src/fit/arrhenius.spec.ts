@@ -58,7 +58,10 @@ describe('fitArrhenius', () => {
       temperatureK: t,
       value: Math.pow(t, -1.5) * Math.exp(0.3 / (k * t)),
     }));
-    expect(fitArrhenius(pts, { prefactorExponent: 1.5 }).parameters.activationEnergyEv).toBeCloseTo(0.3, 10);
+    expect(fitArrhenius(pts, { prefactorExponent: 1.5 }).parameters.activationEnergyEv).toBeCloseTo(
+      0.3,
+      10,
+    );
     expect(Math.abs(fitArrhenius(pts).parameters.activationEnergyEv - 0.3)).toBeGreaterThan(0.01);
   });
 
@@ -77,10 +80,9 @@ describe('fitArrhenius', () => {
     const r = fitArrhenius(pts, { minK: 310, maxK: 330 });
     expect(r.count).toBe(3);
     expect(r.tCritical).toBeCloseTo(12.706, 2);
-    expect(r.confidenceIntervals95.activationEnergyEv![1] - r.parameters.activationEnergyEv).toBeCloseTo(
-      r.tCritical * r.standardErrors.activationEnergyEv!,
-      12,
-    );
+    expect(
+      r.confidenceIntervals95.activationEnergyEv![1] - r.parameters.activationEnergyEv,
+    ).toBeCloseTo(r.tCritical * r.standardErrors.activationEnergyEv!, 12);
   });
 
   it('gives 95 % intervals that cover the truth in 90–99 % of noisy trials', () => {
@@ -101,8 +103,10 @@ describe('fitArrhenius', () => {
   it('has a standard error that scales with the noise', () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 1000 }), (seed) => {
-        const a = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.01, seed)).standardErrors.activationEnergyEv!;
-        const b = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.02, seed)).standardErrors.activationEnergyEv!;
+        const a = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.01, seed)).standardErrors
+          .activationEnergyEv!;
+        const b = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.02, seed)).standardErrors
+          .activationEnergyEv!;
         return Math.abs(b / a - 2) < 1e-6;
       }),
       { numRuns: 20 },

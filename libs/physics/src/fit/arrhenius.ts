@@ -6,7 +6,7 @@ import { PHYSICS_DEFAULTS } from '../defaults';
 import { weightedLeastSquares } from '../numeric/weighted-least-squares';
 import { requireFiniteNumber, requireObject, requireOneOf } from '../validate';
 import type { FitResult } from './fit-result';
-import { uncertaintiesOf, weightedRSquared } from './fit-result';
+import { standardWarnings, uncertaintiesOf, weightedRSquared } from './fit-result';
 import { readPoints } from './points';
 import type { StepOptions } from './steps';
 import { dwellSteps, readStepOptions } from './steps';
@@ -156,8 +156,15 @@ export function fitArrhenius(
     dof,
     line.converged,
   );
-  const residuals = t.map((tk, i) => y[i]! - (line.intercept + line.slope / (BOLTZMANN_EV_PER_K * tk)));
-  return {
+  const residuals = t.map(
+    (tk, i) => y[i]! - (line.intercept + line.slope / (BOLTZMANN_EV_PER_K * tk)),
+  );
+  const curvature = curvatureOf(
+    grouped.map((s) => s.mean),
+    x,
+    line.weights,
+  );
+  const result: ArrheniusFit = {
     parameters: { activationEnergyEv: ea, intercept: line.intercept },
     fitted: ['activationEnergyEv', 'intercept'],
     ...u,
@@ -173,8 +180,17 @@ export function fitArrhenius(
     converged: line.converged,
     reason: line.reason,
     iterations: line.iterations,
-    curvature: curvatureOf(grouped.map((s) => s.mean), x, line.weights),
+    curvature,
+    warnings: [],
   };
+  result.warnings = standardWarnings(result, ['activationEnergyEv']);
+  if (curvature?.significant) {
+    result.warnings.push(
+      `ln(value) bends against 1/T across the window (quadratic term t = ` +
+        `${curvature.t.toFixed(1)}, |t| > ${CURVATURE_T_LIMIT}): it probably spans two regimes.`,
+    );
+  }
+  return result;
 }
 
 function curvatureOf(

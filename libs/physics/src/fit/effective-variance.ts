@@ -66,10 +66,7 @@ export function effectiveVarianceLine(
   // Back from the centred basis: a = ac - b xm.
   const unscaledCovariance = c
     ? [
-        [
-          c[0]![0]! - 2 * xm * c[0]![1]! + xm * xm * c[1]![1]!,
-          c[0]![1]! - xm * c[1]![1]!,
-        ],
+        [c[0]![0]! - 2 * xm * c[0]![1]! + xm * xm * c[1]![1]!, c[0]![1]! - xm * c[1]![1]!],
         [c[0]![1]! - xm * c[1]![1]!, c[1]![1]!],
       ]
     : null;

@@ -40,6 +40,37 @@ export interface FitResult<P extends string> {
   iterations: number;
   /** Student's t(0.975, degreesOfFreedom) used for the intervals. */
   tCritical: number;
+  /**
+   * Plain-language cautions: a relative standard error above 50 %, a parameter at a bound of
+   * its range, a window that bends (Arrhenius curvature), no convergence.
+   */
+  warnings: string[];
+}
+
+/** Relative standard error above which a parameter is called poorly determined. */
+export const MAX_RELATIVE_STANDARD_ERROR = 0.5;
+
+/**
+ * @internal Warnings every fit gives: no convergence, and each fitted parameter whose standard
+ * error exceeds `MAX_RELATIVE_STANDARD_ERROR` of its value (or is not available).
+ */
+export function standardWarnings<P extends string>(
+  r: Pick<FitResult<P>, 'parameters' | 'fitted' | 'standardErrors' | 'converged' | 'reason'>,
+  checked: readonly P[] = r.fitted,
+): string[] {
+  if (!r.converged) return [`The fit did not converge (${r.reason}); no intervals are given.`];
+  const out: string[] = [];
+  for (const name of checked) {
+    const se = r.standardErrors[name];
+    const value = r.parameters[name];
+    if (se === null || se === undefined) {
+      out.push(`${name} is not determined by the data (no standard error).`);
+    } else if (se > MAX_RELATIVE_STANDARD_ERROR * Math.abs(value)) {
+      const pct = value === 0 ? 'infinite' : `${((100 * se) / Math.abs(value)).toFixed(0)} %`;
+      out.push(`${name} is poorly determined: relative standard error ${pct} (above 50 %).`);
+    }
+  }
+  return out;
 }
 
 /** @internal Correlation matrix from a covariance matrix (null when a variance is not > 0). */
@@ -58,7 +89,7 @@ export type ParameterScale = 'linear' | 'log';
 /**
  * @internal Standard errors and 95 % intervals of fitted coordinates q (parameter = q, or
  * exp(q) on a log scale, whose interval is exp(q ± t se) and whose se is P se(q) by the delta
- * method). `scaledCovariance` null, or `converged` false, gives null for every one: a fit that
+ * method; a linear one may be a multiple `factors[i]` of q). `scaledCovariance` null, or `converged` false, gives null for every one: a fit that
  * has not converged stores no intervals.
  */
 export function uncertaintiesOf<P extends string>(
@@ -68,6 +99,7 @@ export function uncertaintiesOf<P extends string>(
   scaledCovariance: number[][] | null,
   degreesOfFreedom: number,
   converged: boolean,
+  factors?: readonly number[],
 ): Pick<FitResult<P>, 'standardErrors' | 'confidenceIntervals95' | 'correlation' | 'tCritical'> {
   const tCritical = degreesOfFreedom > 0 ? studentTCritical(0.95, degreesOfFreedom) : Number.NaN;
   const standardErrors: Partial<Record<P, number | null>> = {};
@@ -85,8 +117,9 @@ export function uncertaintiesOf<P extends string>(
       standardErrors[name] = Math.exp(q) * se;
       confidenceIntervals95[name] = [Math.exp(q - tCritical * se), Math.exp(q + tCritical * se)];
     } else {
-      standardErrors[name] = se;
-      confidenceIntervals95[name] = [q - tCritical * se, q + tCritical * se];
+      const f = factors?.[i] ?? 1;
+      standardErrors[name] = f * se;
+      confidenceIntervals95[name] = [f * (q - tCritical * se), f * (q + tCritical * se)];
     }
   });
   return {
