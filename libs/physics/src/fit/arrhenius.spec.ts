@@ -131,7 +131,8 @@ describe('fitArrhenius invalid inputs', () => {
     expect(() => fitArrhenius([...pts, { temperatureK: Number.NaN, value: 1 }])).toThrow(
       RangeError,
     );
-    expect(() => fitArrhenius('x' as unknown as typeof pts)).toThrow(TypeError);
+    const notAList: unknown = 'x';
+    expect(() => fitArrhenius(notAList as typeof pts)).toThrow(TypeError);
     expect(() => fitArrhenius(pts, { quantity: 'mobility' as 'resistivity' })).toThrow(/quantity/);
     expect(() => fitArrhenius(pts, { prefactorExponent: Number.NaN })).toThrow(/prefactorExponent/);
   });
