@@ -5,10 +5,10 @@ import type { AnalysisPoint } from '../analysis/sweep-data.service';
 /**
  * Ratio of the cold-end to the warm-end activation energy of the freeze-out data above which
  * the slope is taken to rise from Ed/2 towards Ed (n falling below N_A). The full change is a
- * factor 2 (Sze 1981; Blakemore 1962, from memory); 1.5 is half-way on a log scale, common
- * practice, no source.
+ * factor 2 (Sze 1981; Blakemore 1962, from memory); uncompensated model curves of silicon vary
+ * by less than 1.1 between the thirds, so 1.3 separates the two (Rhotrace's choice, no source).
  */
-export const COMPENSATION_SLOPE_RATIO = 1.5;
+export const COMPENSATION_SLOPE_RATIO = 1.3;
 
 /** How the compensation of a freeze-out reading was settled. */
 export interface CompensationReading {
@@ -25,32 +25,57 @@ const eaOf = (points: readonly AnalysisPoint[], options: Parameters<typeof fitAr
   return { ea: r.parameters.activationEnergyEv, se: r.standardErrors.activationEnergyEv ?? null };
 };
 
+/** Readings at least this many times the sweep's lowest resistivity count as deep freeze-out. */
+export const DEEP_FREEZE_OUT_FACTOR = 10;
+
 /**
  * Infers the compensation of a freeze-out window from the data. In an uncompensated sample
  * n ~ sqrt(Nc N_D / 2) exp(-Ed / 2kT), so the slope reads Ed/2; once n falls below N_A it is
  * n ~ Nc (N_D - N_A) / (2 N_A) exp(-Ed / kT), reading Ed (Sze 1981; Blakemore 1962, from memory).
- * The freeze-out readings (all those at or below the window's top) are split at the median of
- * 1/T; when the cold half's activation energy exceeds the warm half's by
+ * Only deep freeze-out readings are compared (colder than the sweep's lowest resistivity and at
+ * least `DEEP_FREEZE_OUT_FACTOR` times it, so n is well below N_D - N_A and the approach to
+ * exhaustion does not flatten the warm end). Their coldest and warmest thirds are fitted;
+ * when the cold third's activation energy exceeds the warm third's by
  * `COMPENSATION_SLOPE_RATIO` and by twice their combined standard error, the change is seen and
  * the window reads as compensated when its own Ea is nearer (on a log scale) the cold value,
- * else as uncompensated. Without a visible change the compensation is 'unknown'.
+ * else uncompensated. With no change seen and a tabulated level for the lot's dopant, the
+ * window reads as whichever of E0/2 and E0 its Ea is nearer; otherwise 'unknown'.
  */
 export function inferCompensation(
   windowEa: number,
   all: readonly AnalysisPoint[],
-  windowMaxK: number,
-  options: { stepToleranceK: number; prefactorExponent: number },
+  options: { stepToleranceK: number; prefactorExponent: number; tableLevelEv: number | null },
 ): CompensationReading {
-  const cold = all.filter((p) => p.temperatureK <= windowMaxK);
-  const none = (why: string): CompensationReading => ({
-    compensation: 'unknown',
-    source: 'inferred',
-    why,
-  });
-  if (cold.length < 12) return none('too few freeze-out readings to see a change of slope');
-  const mid = cold[Math.floor(cold.length / 2)]!.temperatureK;
-  const low = cold.filter((p) => p.temperatureK < mid);
-  const high = cold.filter((p) => p.temperatureK >= mid);
+  // Colder than the lowest resistivity (not the intrinsic side) and far above it.
+  let lowest = Number.POSITIVE_INFINITY;
+  let lowestK = 0;
+  for (const p of all) {
+    if (p.resistivityOhmCm < lowest) {
+      lowest = p.resistivityOhmCm;
+      lowestK = p.temperatureK;
+    }
+  }
+  const deep = all.filter(
+    (p) => p.temperatureK < lowestK && p.resistivityOhmCm >= DEEP_FREEZE_OUT_FACTOR * lowest,
+  );
+  const byTable = (why: string): CompensationReading => {
+    const level = options.tableLevelEv;
+    if (level === null || !(windowEa > 0))
+      return { compensation: 'unknown', source: 'inferred', why };
+    const compensated =
+      Math.abs(Math.log(windowEa / level)) < Math.abs(Math.log((2 * windowEa) / level));
+    return {
+      compensation: compensated ? 'compensated' : 'uncompensated',
+      source: 'inferred',
+      why:
+        `${why}; Ea is nearer ${compensated ? 'E0' : 'E0/2'} of the tabulated level ` +
+        `${level.toFixed(4)} eV`,
+    };
+  };
+  if (deep.length < 12) return byTable('too few deep freeze-out readings to compare slopes');
+  const third = Math.floor(deep.length / 3);
+  const coldTopK = deep[third - 1]!.temperatureK;
+  const warmBottomK = deep[deep.length - third]!.temperatureK;
   const fitOptions = {
     stepToleranceK: options.stepToleranceK,
     prefactorExponent: options.prefactorExponent,
@@ -58,17 +83,23 @@ export function inferCompensation(
   let c: { ea: number; se: number | null };
   let w: { ea: number; se: number | null };
   try {
-    c = eaOf(low, fitOptions);
-    w = eaOf(high, fitOptions);
+    c = eaOf(
+      deep.filter((p) => p.temperatureK <= coldTopK),
+      fitOptions,
+    );
+    w = eaOf(
+      deep.filter((p) => p.temperatureK >= warmBottomK),
+      fitOptions,
+    );
   } catch (error) {
-    if (error instanceof RangeError) return none('too few temperature steps to compare slopes');
+    if (error instanceof RangeError) return byTable('too few temperature steps to compare slopes');
     throw error;
   }
   const spread = Math.hypot(c.se ?? Number.POSITIVE_INFINITY, w.se ?? Number.POSITIVE_INFINITY);
   const seen = w.ea > 0 && c.ea >= COMPENSATION_SLOPE_RATIO * w.ea && c.ea - w.ea > 2 * spread;
   if (!seen || !(windowEa > 0)) {
-    return none(
-      `no change of slope in the freeze-out data (cold ${c.ea.toFixed(4)} eV, warm ${w.ea.toFixed(4)} eV)`,
+    return byTable(
+      `no change of slope in deep freeze-out (coldest third ${c.ea.toFixed(4)} eV, warmest ${w.ea.toFixed(4)} eV)`,
     );
   }
   const compensated = Math.abs(Math.log(windowEa / c.ea)) < Math.abs(Math.log(windowEa / w.ea));
@@ -76,8 +107,9 @@ export function inferCompensation(
     compensation: compensated ? 'compensated' : 'uncompensated',
     source: 'inferred',
     why:
-      `the slope rises from ${w.ea.toFixed(4)} eV above ${mid.toFixed(1)} K to ` +
-      `${c.ea.toFixed(4)} eV below, and this window's follows the ${compensated ? 'cold' : 'warm'} part`,
+      `the slope rises from ${w.ea.toFixed(4)} eV above ${warmBottomK.toFixed(1)} K to ` +
+      `${c.ea.toFixed(4)} eV below ${coldTopK.toFixed(1)} K (n falling below N_A), and this window follows the ` +
+      `${compensated ? 'cold' : 'warm'} part`,
   };
 }
 

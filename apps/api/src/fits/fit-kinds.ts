@@ -18,8 +18,9 @@ export interface FitContext {
   points: AnalysisPoint[];
   /** Every reading the fit may use, whole sweep (for suggested windows and inferences). */
   all: AnalysisPoint[];
-  /** The lot's material. */
+  /** The lot's material and dopant. */
   material: string;
+  dopant: string | null;
   stepToleranceK: number;
   temperatureUncertaintyK: number;
 }

@@ -115,6 +115,7 @@ export async function createFit(
     points: window.points,
     all: readings.points,
     material: v.lot.material,
+    dopant: v.lot.dopant,
     stepToleranceK,
     temperatureUncertaintyK,
   });

@@ -1,5 +1,5 @@
 import type { RegimeName } from '@rhotrace/api-types';
-import { SEMICONDUCTORS, fitArrhenius, interpretArrheniusSlope } from '@rhotrace/physics';
+import { DOPANTS, SEMICONDUCTORS, fitArrhenius, interpretArrheniusSlope } from '@rhotrace/physics';
 import { z } from 'zod';
 import { withPhysicsOnData } from '../../analysis/physics-errors';
 import { regimeOfWindow, suggestWindows } from '../../analysis/suggested-windows';
@@ -11,6 +11,14 @@ import { boundsInOrder, fitOptionsShape, kelvin } from '../fit-schemas';
 
 const isSemiconductorId = (m: string): m is (typeof SEMICONDUCTORS)[number] =>
   (SEMICONDUCTORS as readonly string[]).includes(m);
+
+/** The isolated level of the lot's dopant in the material's table (Sze 1981), eV, or null. */
+function tabulatedLevel(material: string, dopant: string | null): number | null {
+  if (!dopant || !isSemiconductorId(material)) return null;
+  const table = DOPANTS[material];
+  const levels: Record<string, number | undefined> = { ...table.donors, ...table.acceptors };
+  return levels[dopant] ?? null;
+}
 
 /**
  * Arrhenius fit through `fitArrhenius` on dwell-step means; the reading is
@@ -70,9 +78,10 @@ export const arrheniusKind: FitKindEntry<'arrhenius'> = {
               source: 'request' as const,
               why: '',
             }
-          : inferCompensation(ea, context.all, request.maxK, {
+          : inferCompensation(ea, context.all, {
               stepToleranceK: context.stepToleranceK,
               prefactorExponent,
+              tableLevelEv: tabulatedLevel(context.material, context.dopant),
             });
     const first = context.points[0]!.temperatureK;
     const last = context.points[context.points.length - 1]!.temperatureK;
