@@ -230,3 +230,17 @@ describe('full-model fit on extrinsic-only data', () => {
     expect(two.body.goodness.correlation.matrix[0][0]).toBeCloseTo(1, 12);
   });
 });
+
+describe('fit windows', () => {
+  it('stores a window reaching past the data as far as the data go', async () => {
+    // Issue 22 item 3: a drag reported 96.41-573.1 K on data spanning 25-480 K.
+    const { wafers } = await makeLot({ material: 'Si' });
+    const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, dwellPoints(3).points);
+    const res = await post(sweep.id, { kind: 'arrhenius', minK: 96.41, maxK: 1200 });
+    expect(res.status).toBe(201);
+    const temps = dwellPoints(3).points.map((p) => p.temperatureK);
+    expect(res.body.windowMinK).toBe(Math.min(...temps));
+    expect(res.body.windowMaxK).toBe(Math.max(...temps));
+    expect(res.body.inputs).toMatchObject({ minK: 96.41, maxK: 1200 });
+  });
+});

@@ -56,7 +56,10 @@ export async function toFitDto(fit: Fit, names?: Map<number, string>): Promise<F
   return fitDtoOf(fit, { id: fit.createdById, name });
 }
 
-/** Points of the request's window (the whole sweep when no window is given), at least 3. */
+/**
+ * Points of the request's window (the whole sweep when no window is given), at least 3; the
+ * bounds given are clipped to the readings inside them.
+ */
 function windowPoints(
   all: readonly AnalysisPoint[],
   minK: number | undefined,
@@ -89,7 +92,12 @@ function windowPoints(
       ],
     );
   }
-  return { points, minK: minK ?? null, maxK: maxK ?? null };
+  // A window reaching past the data is stored as far as the data go.
+  return {
+    points,
+    minK: minK === undefined ? null : Math.max(minK, points[0]!.temperatureK),
+    maxK: maxK === undefined ? null : Math.min(maxK, points[points.length - 1]!.temperatureK),
+  };
 }
 
 /**
@@ -119,8 +127,8 @@ export async function createFit(
     stepToleranceK,
     temperatureUncertaintyK,
   });
-  const lo = window.minK ?? Number.NEGATIVE_INFINITY;
-  const hi = window.maxK ?? Number.POSITIVE_INFINITY;
+  const lo = request.minK ?? Number.NEGATIVE_INFINITY;
+  const hi = request.maxK ?? Number.POSITIVE_INFINITY;
   const excludedSequences = readings.excluded
     .filter((e) => e.temperatureK >= lo && e.temperatureK <= hi)
     .map((e) => e.sequence)
