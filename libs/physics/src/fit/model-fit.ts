@@ -135,7 +135,7 @@ export function fitModel(
     });
     return v;
   };
-  const lnModel = (q: readonly number[], t: number): number => {
+  const lnModel = (q: readonly number[]): ((t: number) => number) | null => {
     const v = unpack(q);
     const feasible =
       v.donorDensity <= MAX_DOPING_CM3 &&
@@ -147,7 +147,7 @@ export function fitModel(
       v.acceptorLevel <= LEVEL_RANGE_EV[1] &&
       v.mobilityScale > MOBILITY_SCALE_RANGE[0] &&
       v.mobilityScale < MOBILITY_SCALE_RANGE[1];
-    if (!feasible) return Number.NaN;
+    if (!feasible) return null;
     const d = ionizeDoping(
       m,
       ionization,
@@ -156,7 +156,8 @@ export function fitModel(
       v.donorLevel,
       v.acceptorLevel,
     );
-    return modelPointUnchecked({ ...model, mobilityScale: v.mobilityScale }, d, t).lnResistivity;
+    const cfg = { ...model, mobilityScale: v.mobilityScale };
+    return (t) => modelPointUnchecked(cfg, d, t).lnResistivity;
   };
   const initialCoordinates = [
     ...densities.initial,

@@ -20,8 +20,11 @@ export interface LnRhoStepProblem<P extends string> {
   initial: readonly number[];
   /** Parameter = factor x coordinate for linear-scale ones (default 1). */
   factors?: readonly number[];
-  /** ln rho of the model at T for coordinates q; NaN where q is infeasible. */
-  lnModel: (q: readonly number[], temperatureK: number) => number;
+  /**
+   * The model's ln rho(T) for coordinates q (prepared once per q), or null where q is
+   * infeasible.
+   */
+  lnModel: (q: readonly number[]) => ((temperatureK: number) => number) | null;
   /**
    * Maps the solver's coordinates and their covariance to the reported ones (`names`, `scales`);
    * default: the same.
@@ -60,8 +63,10 @@ export function fitLnRhoSteps<P extends string>(problem: LnRhoStepProblem<P>): F
     return levenbergMarquardt({
       residuals: (q) => {
         const out = new Float64Array(steps.length);
+        const model = problem.lnModel(q);
+        if (!model) return out.fill(Number.NaN);
         for (let i = 0; i < steps.length; i++) {
-          out[i] = (problem.lnModel(q, steps[i]!.temperatureK) - steps[i]!.mean) / sigma[i]!;
+          out[i] = (model(steps[i]!.temperatureK) - steps[i]!.mean) / sigma[i]!;
         }
         return out;
       },
@@ -72,12 +77,11 @@ export function fitLnRhoSteps<P extends string>(problem: LnRhoStepProblem<P>): F
   let iterations = lm.iterations;
   const uT = problem.temperatureUncertaintyK;
   for (let round = 0; uT > 0 && lm.converged && round < EFFECTIVE_VARIANCE_ROUNDS; round++) {
+    const model = problem.lnModel(lm.parameters);
+    if (!model) break;
     variances = steps.map((s) => {
       const h = 1e-3 * s.temperatureK;
-      const slope =
-        (problem.lnModel(lm.parameters, s.temperatureK + h) -
-          problem.lnModel(lm.parameters, s.temperatureK - h)) /
-        (2 * h);
+      const slope = (model(s.temperatureK + h) - model(s.temperatureK - h)) / (2 * h);
       return s.varianceOfMean + (Number.isFinite(slope) ? slope * uT : 0) ** 2;
     });
     lm = solve(lm.parameters);
@@ -98,7 +102,10 @@ export function fitLnRhoSteps<P extends string>(problem: LnRhoStepProblem<P>): F
     lm.converged,
     problem.factors,
   );
-  const residuals = Array.from(temps, (t, i) => lnRho[i]! - problem.lnModel(lm.parameters, t));
+  const finalModel = problem.lnModel(lm.parameters);
+  const residuals = Array.from(temps, (t, i) =>
+    finalModel ? lnRho[i]! - finalModel(t) : Number.NaN,
+  );
   const result: FitResult<P> = {
     parameters: problem.parametersOf(lm.parameters),
     fitted: [...names],

@@ -69,12 +69,12 @@ export function fitBlochGruneisen(
     scales: ['linear', 'linear', 'log'],
     factors: [scale, scale, 1],
     initial: [rho00 / scale, a0 / scale, Math.log(theta0)],
-    lnModel: (q, t) => {
+    lnModel: (q) => {
       const rho0 = q[0]! * scale;
       const a = q[1]! * scale;
       const theta = Math.exp(q[2]!);
-      if (rho0 < 0 || a < 0 || !(theta > 0.1 && theta < 1e5)) return Number.NaN;
-      return Math.log(blochGruneisenUnchecked(t, rho0, a, theta));
+      if (rho0 < 0 || a < 0 || !(theta > 0.1 && theta < 1e5)) return null;
+      return (t) => Math.log(blochGruneisenUnchecked(t, rho0, a, theta));
     },
     parametersOf: (q) => ({
       residualOhmCm: q[0]! * scale,
