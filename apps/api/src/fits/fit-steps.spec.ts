@@ -232,6 +232,19 @@ describe('full-model fit on extrinsic-only data', () => {
 });
 
 describe('fit windows', () => {
+  it('answers 422 naming the step tolerance when it leaves fewer than 3 steps', async () => {
+    const { wafers } = await makeLot({ material: 'Si' });
+    const sweep = await makeSweep(wafers[0]!.id, ctx.users.engineer.id, dwellPoints(3).points);
+    const res = await post(sweep.id, {
+      kind: 'arrhenius',
+      minK: 440,
+      maxK: 500,
+      stepToleranceK: 20,
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.error.message).toMatch(/stepToleranceK = 20 K.*got [12]$/);
+  });
+
   it('stores a window reaching past the data as far as the data go', async () => {
     // Issue 22 item 3: a drag reported 96.41-573.1 K on data spanning 25-480 K.
     const { wafers } = await makeLot({ material: 'Si' });
