@@ -131,9 +131,12 @@ export function interpretArrhenius(
   const se = fit.standardErrors.activationEnergyEv ?? null;
   const m = input.prefactorExponent;
   const shift = BOLTZMANN_EV_PER_K * input.meanTemperatureK;
+  // For resistivity the prefactor is the density of states (T^3/4 uncompensated freeze-out,
+  // T^3/2 compensated or intrinsic) times the mobility's T^p; Rhotrace does not know p here.
   const assumption =
-    `Ea is the slope of ln(value T^${m}) against 1/kT; a T^m' prefactor left in the data ` +
-    `shifts Ea by about (m' - ${m}) x ${shift.toFixed(4)} eV.`;
+    `Ea is the slope of ln(value T^${m}) against 1/kT; the true prefactor T^m' (density of ` +
+    `states times mobility) shifts Ea by about (m' - ${m}) x ${shift.toFixed(4)} eV, so a ` +
+    'full-model fit gives the level free of that assumption.';
   const base = { regime: input.regime, prefactorExponent: m };
   if (input.regime === null || input.regime === 'extrinsic') {
     return {
