@@ -136,7 +136,7 @@ export function interpretArrhenius(
   const assumption =
     `Ea is the slope of ln(value T^${m}) against 1/kT; the true prefactor T^m' (density of ` +
     `states times mobility) shifts Ea by about (m' - ${m}) x ${shift.toFixed(4)} eV, so a ` +
-    'full-model fit gives the level free of that assumption.';
+    "full-model fit reads the level with the model's mobility instead.";
   const base = { regime: input.regime, prefactorExponent: m };
   if (input.regime === null || input.regime === 'extrinsic') {
     return {
