@@ -132,3 +132,21 @@ describe('every fit on dwell-step means', () => {
     );
   });
 });
+
+describe('effective variance in the nonlinear fits', () => {
+  it('reweights the Bloch–Grüneisen fit by the temperature uncertainty (Orear 1982)', () => {
+    // Steps 20-400 K with one reading each and 0.3 % ripple: u_T = 2 K weighs down the steep
+    // steps, so the fit runs the extra effective-variance rounds and the result moves.
+    const truth = { residualOhmCm: 2e-7, couplingOhmCm: 7e-6, debyeK: 343 };
+    const pts = temps.map((t, i) => ({
+      temperatureK: t,
+      resistivityOhmCm: blochGruneisen(t, truth) * (1 + 0.003 * Math.sin(3 * i)),
+    }));
+    const plain = fitBlochGruneisen(pts);
+    const weighted = fitBlochGruneisen(pts, undefined, { temperatureUncertaintyK: 2 });
+    expect(weighted.converged).toBe(true);
+    expect(weighted.iterations).toBeGreaterThan(plain.iterations);
+    expect(weighted.parameters.debyeK).not.toBe(plain.parameters.debyeK);
+    expect(Math.abs(weighted.parameters.debyeK / 343 - 1)).toBeLessThan(0.05);
+  });
+});
