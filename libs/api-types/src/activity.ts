@@ -2,7 +2,7 @@
  * Recent activity the benches show: the newest sweeps and the newest saved fits, each with the
  * labels needed to name it (wafer number, lot code, who) so a bench needs one request per list.
  */
-import type { FitKind } from './analysis';
+import type { FitKind } from './fits';
 import type { SweepMethod } from './sweeps';
 
 /** Most items a recent-activity list returns. */

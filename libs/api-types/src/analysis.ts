@@ -184,68 +184,6 @@ export interface SweepAnalysisResponse {
   spec: SpecCheckDto;
 }
 
-export const FIT_KINDS = ['arrhenius', 'model', 'tcr', 'bloch-gruneisen'] as const;
-export type FitKind = (typeof FIT_KINDS)[number];
-
-/** `POST /api/sweeps/:id/fits` body, by kind. */
-export type FitRequest =
-  | {
-      kind: 'arrhenius';
-      minK: number;
-      maxK: number;
-      quantity?: 'resistivity' | 'conductivity';
-      prefactorExponent?: number;
-      /** Regime for the reading; default: the suggested window the fit window overlaps most. */
-      regime?: RegimeName;
-      /** Freeze-out only: a compensated sample reads Ea ≈ Ed instead of Ed/2. Default false. */
-      compensated?: boolean;
-    }
-  | {
-      kind: 'model';
-      material?: string;
-      initial: DopingInput & { mobilityScale?: number };
-      free: Array<
-        'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel' | 'mobilityScale'
-      >;
-      minK?: number;
-      maxK?: number;
-    }
-  | { kind: 'tcr'; referenceK?: number; minK?: number; maxK?: number }
-  | { kind: 'bloch-gruneisen'; minK?: number; maxK?: number };
-
-/** Goodness of fit; every kind has rSquared (null where not defined), count and residualRms. */
-export interface FitGoodness {
-  rSquared: number | null;
-  count: number;
-  /** RMS of the residuals, in the residuals' own unit (see `residualUnit`). */
-  residualRms: number;
-  residualUnit: string;
-  [extra: string]: unknown;
-}
-
-/** A stored fit. */
-export interface FitDto {
-  id: number;
-  sweepId: number;
-  kind: FitKind;
-  /** Everything needed to re-run the fit (the request plus defaults applied). */
-  inputs: Record<string, unknown>;
-  windowMinK: number | null;
-  windowMaxK: number | null;
-  parameters: Record<string, number>;
-  standardErrors: Record<string, number | null>;
-  /** 95 % intervals keyed like `standardErrors`. */
-  confidenceIntervals: Record<string, [number, number] | null>;
-  goodness: FitGoodness;
-  residuals: Array<{ temperatureK: number; residual: number }>;
-  converged: boolean;
-  reason: string | null;
-  reading: string | null;
-  modelVersion: string;
-  createdBy: { id: number; name: string | null };
-  createdAt: string;
-}
-
 /** `GET /api/wafers/:id/dopant` answer. */
 export interface DopantDensityResponse {
   waferId: number;

@@ -104,6 +104,13 @@ export const PHYSICS_DEFAULTS = {
   arrheniusQuantity: 'resistivity' as 'resistivity' | 'conductivity',
   /** Default T^m prefactor exponent m of `fitArrhenius`. */
   arrheniusPrefactorExponent: 0,
+  /**
+   * Consecutive readings whose temperatures lie within this of a step's first reading form one
+   * dwell step, K (see `dwellSteps`).
+   */
+  fitStepToleranceK: 0.5,
+  /** Standard uncertainty of each step's temperature for the effective variance, K. */
+  fitTemperatureUncertaintyK: 0,
   /** Iteration cap of the Levenberg–Marquardt fits. */
   fitMaxIterations: 200,
   /** Relative change of the sum of squares below which a Levenberg–Marquardt fit has converged. */

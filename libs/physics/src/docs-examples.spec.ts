@@ -72,7 +72,7 @@ describe('documented examples and defaults', () => {
       temperatureK: t,
       resistivityOhmCm: 1e-6 * (1 + 0.004 * (t - 293.15)),
     }));
-    expect(physics.fitLinearTcr(pts).referenceResistivityOhmCm).toBeCloseTo(1e-6, 15);
+    expect(physics.fitLinearTcr(pts).parameters.referenceResistivityOhmCm).toBeCloseTo(1e-6, 15);
     expect(d.tcrReferenceK).toBe(293.15);
     const ap = [300, 350, 400].map((t) => ({
       temperatureK: t,
@@ -82,8 +82,14 @@ describe('documented examples and defaults', () => {
       physics.fitArrhenius(ap, {
         quantity: d.arrheniusQuantity,
         prefactorExponent: d.arrheniusPrefactorExponent,
+        stepToleranceK: d.fitStepToleranceK,
+        temperatureUncertaintyK: d.fitTemperatureUncertaintyK,
       }),
     );
+    // A documented default that differs from the code fails here: 0.4 K apart is one step.
+    const close = [300, 300.4, 350, 400].map((t) => ({ temperatureK: t, value: t }));
+    expect(physics.fitArrhenius(close).stepCount).toBe(3);
+    expect(physics.fitArrhenius(close, { stepToleranceK: 0.3 }).stepCount).toBe(4);
     expect(physics.resistivity('Si', n15, 300)).toBe(
       physics.resistivity('Si', n15, 300, {
         densityOfStatesSet: d.densityOfStatesSet.Si,

@@ -66,16 +66,25 @@ export {
 } from './silicon/astm-f723';
 export type { F723Dopant } from './silicon/astm-f723';
 
-export { fitArrhenius } from './fit/arrhenius';
-export type { ArrheniusFit, ArrheniusOptions } from './fit/arrhenius';
+export { CURVATURE_T_LIMIT, fitArrhenius } from './fit/arrhenius';
+export type {
+  ArrheniusCurvature,
+  ArrheniusFit,
+  ArrheniusOptions,
+  ArrheniusParameter,
+} from './fit/arrhenius';
+export { MAX_RELATIVE_STANDARD_ERROR } from './fit/fit-result';
+export type { FitResult, ParameterScale } from './fit/fit-result';
+export { dwellSteps } from './fit/steps';
+export type { DwellStep, StepOptions } from './fit/steps';
 export { interpretArrheniusSlope } from './fit/interpret';
 export type { ArrheniusReading } from './fit/interpret';
 export { levenbergMarquardt } from './fit/levenberg-marquardt';
 export type { LeastSquaresProblem, LeastSquaresResult } from './fit/levenberg-marquardt';
 export { fitModel } from './fit/model-fit';
-export type { ModelFit, ModelParameter } from './fit/model-fit';
+export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit';
 export { fitLinearTcr } from './fit/tcr';
-export type { LinearTcrFit } from './fit/tcr';
+export type { LinearTcrFit, TcrParameter } from './fit/tcr';
 export { studentTCritical } from './numeric/student-t';
 export { seededNormal, seededRandom } from './numeric/prng';
 
@@ -87,7 +96,7 @@ export {
 } from './metal/bloch-gruneisen';
 export type { BlochGruneisenParameters } from './metal/bloch-gruneisen';
 export { fitBlochGruneisen } from './metal/bloch-gruneisen-fit';
-export type { BlochGruneisenFit } from './metal/bloch-gruneisen-fit';
+export type { BlochGruneisenFit, BlochGruneisenParameter } from './metal/bloch-gruneisen-fit';
 export { METALS, metalResistivity } from './metal/metals';
 export type { MetalId, MetalReference } from './metal/metals';
 export { listMaterials } from './materials';

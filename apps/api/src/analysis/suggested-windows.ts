@@ -33,7 +33,9 @@ export function localActivationEnergies(steps: readonly AnalysisStep[]): number[
     const window = steps
       .slice(from, to)
       .map((s) => ({ temperatureK: s.temperatureK, value: s.resistivityOhmCm }));
-    return fitArrhenius(window, { quantity: 'resistivity' }).activationEnergyEv;
+    // The steps are already averaged: each is its own step here.
+    return fitArrhenius(window, { quantity: 'resistivity', stepToleranceK: 0 }).parameters
+      .activationEnergyEv;
   });
 }
 

@@ -1,4 +1,5 @@
 import type { AnalysisStep, SessionUser, AnalysisSweepDto } from '@rhotrace/api-types';
+import { FIT_EXCLUDED_FLAGS } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
 import { asNotFound, notFound } from '../errors';
 import type { Lot } from '../lots/lot.model';
@@ -52,6 +53,9 @@ export async function visibleSweep(user: SessionUser, sweepId: number): Promise<
 interface CachedReadings {
   /** Usable readings sorted by temperature. */
   points: AnalysisPoint[];
+  /** Sequence number of each of `points`, and whether it carries a `FIT_EXCLUDED_FLAGS` flag. */
+  sequences: Int32Array;
+  excludable: Uint8Array;
   /** Temperatures of the readings left out (finite ones only), sorted. */
   skippedK: number[];
   /** Readings left out whose temperature is not finite (in no window). */
@@ -69,28 +73,70 @@ const readingsCache = new SweepCache<CachedReadings>(
 async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
   const hit = readingsCache.get(sweep);
   if (hit) return hit;
-  const rows = (await SweepPoint.findAll({
-    attributes: ['temperatureK', 'resistivityOhmCm'],
+  const rows = await SweepPoint.findAll({
+    attributes: ['sequence', 'temperatureK', 'resistivityOhmCm', 'flags'],
     where: { sweepId: sweep.id },
     raw: true,
-  })) as unknown as AnalysisPoint[];
-  const points: AnalysisPoint[] = [];
+  });
+  const usable: Array<{ point: AnalysisPoint; sequence: number; excludable: boolean }> = [];
   const skippedK: number[] = [];
   let skippedNoTemperature = 0;
   for (const r of rows) {
     const t = Number(r.temperatureK);
     const rho = Number(r.resistivityOhmCm);
     if (Number.isFinite(t) && t > 0 && Number.isFinite(rho) && rho > 0) {
-      points.push({ temperatureK: t, resistivityOhmCm: rho });
+      const flags = r.flags ? r.flags.split(',') : [];
+      usable.push({
+        point: { temperatureK: t, resistivityOhmCm: rho },
+        sequence: Number(r.sequence),
+        excludable: FIT_EXCLUDED_FLAGS.some((f) => flags.includes(f)),
+      });
     } else if (Number.isFinite(t)) {
       skippedK.push(t);
     } else {
       skippedNoTemperature += 1;
     }
   }
-  points.sort((a, b) => a.temperatureK - b.temperatureK);
+  // Stable sort by temperature, then recording order, so a dwell step keeps its readings' order.
+  usable.sort((a, b) => a.point.temperatureK - b.point.temperatureK || a.sequence - b.sequence);
   skippedK.sort((a, b) => a - b);
-  return readingsCache.remember(sweep, { points, skippedK, skippedNoTemperature });
+  return readingsCache.remember(sweep, {
+    points: usable.map((u) => u.point),
+    sequences: Int32Array.from(usable, (u) => u.sequence),
+    excludable: Uint8Array.from(usable, (u) => (u.excludable ? 1 : 0)),
+    skippedK,
+    skippedNoTemperature,
+  });
+}
+
+/** Readings a fit uses, and the flagged ones it left out. */
+export interface FitReadings {
+  /** Usable readings sorted by temperature, flagged ones left out unless included. */
+  points: AnalysisPoint[];
+  /** Temperature and sequence number of each flagged reading left out, sorted by temperature. */
+  excluded: Array<{ sequence: number; temperatureK: number }>;
+}
+
+/**
+ * A sweep's readings for a fit: as `sweepReadings` without a window, but readings carrying a
+ * `FIT_EXCLUDED_FLAGS` flag are left out (and listed) unless `includeFlagged`.
+ */
+export async function sweepFitReadings(
+  sweep: SweepIdentity,
+  includeFlagged: boolean,
+): Promise<FitReadings> {
+  const cached = await loadReadings(sweep);
+  if (includeFlagged) return { points: cached.points.slice(), excluded: [] };
+  const points: AnalysisPoint[] = [];
+  const excluded: FitReadings['excluded'] = [];
+  cached.points.forEach((p, i) => {
+    if (cached.excludable[i]) {
+      excluded.push({ sequence: cached.sequences[i]!, temperatureK: p.temperatureK });
+    } else {
+      points.push(p);
+    }
+  });
+  return { points, excluded };
 }
 
 /** The first index in 0..n at which `pred` holds (it must hold from some index on), or n. */

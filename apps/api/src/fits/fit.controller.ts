@@ -1,78 +1,18 @@
 import type { Request, Response } from 'express';
 import type { FitRequest } from '@rhotrace/api-types';
-import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { dopingSchema } from '../analysis/analysis.controller';
 import { toCsv } from '../analysis/csv';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
-import { MODEL_FREE_PARAMETERS } from './fit-kinds';
+import { FIT_KIND_TABLE } from './fit-kinds';
+import { fitKindSchema } from './fit-schemas';
 import { createFit, deleteFit, getFit, sweepFits } from './fit.service';
 
-const kelvin = z
-  .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
-  .finite('must be finite')
-  .positive('must be positive (kelvin)')
-  .max(1500, 'must be at most 1500 K');
-
-const reversed = (b: { minK?: number; maxK?: number }) =>
-  b.minK === undefined || b.maxK === undefined || b.minK < b.maxK;
-const reversedIssue = {
-  message: 'must be above minK (the bounds are reversed or equal)',
-  path: ['maxK'],
-};
-
-const arrheniusSchema = z
-  .object({
-    kind: z.literal('arrhenius'),
-    minK: kelvin,
-    maxK: kelvin,
-    quantity: z.enum(['resistivity', 'conductivity']).optional(),
-    prefactorExponent: z
-      .number()
-      .finite()
-      .min(-5, 'must be at least -5')
-      .max(5, 'must be at most 5')
-      .optional(),
-    regime: z.enum(['freeze-out', 'extrinsic', 'intrinsic']).optional(),
-    compensated: z.boolean().optional(),
-  })
-  .strict();
-const modelSchema = z
-  .object({
-    kind: z.literal('model'),
-    material: z.string().max(16).optional(),
-    initial: dopingSchema.extend({
-      mobilityScale: z.number().positive('must be positive').max(100).optional(),
-    }),
-    free: z
-      .array(z.enum(MODEL_FREE_PARAMETERS))
-      .min(1, 'must free at least one parameter')
-      .refine((a) => new Set(a).size === a.length, 'must not repeat a parameter'),
-    minK: kelvin.optional(),
-    maxK: kelvin.optional(),
-  })
-  .strict();
-const tcrSchema = z
-  .object({
-    kind: z.literal('tcr'),
-    referenceK: kelvin.optional(),
-    minK: kelvin.optional(),
-    maxK: kelvin.optional(),
-  })
-  .strict();
-const bgSchema = z
-  .object({ kind: z.literal('bloch-gruneisen'), minK: kelvin.optional(), maxK: kelvin.optional() })
-  .strict();
-
-const fitSchema = z
-  .discriminatedUnion('kind', [arrheniusSchema, modelSchema, tcrSchema, bgSchema], {
-    errorMap: (issue, ctx) =>
-      issue.code === 'invalid_union_discriminator'
-        ? { message: 'must be one of arrhenius, model, tcr, bloch-gruneisen' }
-        : { message: ctx.defaultError },
-  })
-  .refine(reversed, reversedIssue);
+/** The body checked first for its kind, then by that kind's schema in `FIT_KIND_TABLE`. */
+function parseFitRequest(body: unknown): FitRequest {
+  const { kind } = parseOrThrow(fitKindSchema, body, 'body');
+  return parseOrThrow(FIT_KIND_TABLE[kind].schema, body, 'body');
+}
 
 /** Route handlers for fits. */
 export function fitHandlers(deps: AppDeps) {
@@ -84,7 +24,7 @@ export function fitHandlers(deps: AppDeps) {
     /** `POST /api/sweeps/:id/fits` → 201 with the stored fit. */
     async create(req: Request, res: Response): Promise<void> {
       const sweepId = parseId(req.params);
-      const body = parseOrThrow(fitSchema, req.body, 'body') as FitRequest;
+      const body = parseFitRequest(req.body);
       res
         .status(201)
         .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actor(req)));

@@ -1,3 +1,4 @@
+import type { FitDto } from '@rhotrace/api-types';
 import {
   DataTypes,
   Model,
@@ -8,21 +9,28 @@ import {
 } from 'sequelize';
 import { jsonColumn } from '../db/json-column';
 
+/** A stored fit; its JSON columns hold the `FitDto` fields of the same names. */
 export class Fit extends Model<InferAttributes<Fit>, InferCreationAttributes<Fit>> {
   declare id: CreationOptional<number>;
   declare sweepId: number;
-  declare kind: string;
-  declare inputs: unknown;
+  declare kind: FitDto['kind'];
+  declare inputs: FitDto['inputs'];
   declare windowMinK: number | null;
   declare windowMaxK: number | null;
-  declare parameters: unknown;
-  declare standardErrors: unknown;
-  declare confidenceIntervals: unknown;
-  declare goodness: unknown;
-  declare residuals: unknown;
+  declare parameters: FitDto['parameters'];
+  declare standardErrors: FitDto['standardErrors'];
+  declare confidenceIntervals: FitDto['confidenceIntervals'];
+  declare goodness: FitDto['goodness'];
+  declare residuals: FitDto['residuals'];
   declare converged: boolean;
   declare reason: string | null;
   declare reading: string | null;
+  /** Null on fits stored before dwell steps (and on the columns below likewise). */
+  declare stepCount: number | null;
+  declare excludedSequences: FitDto['excludedSequences'] | null;
+  declare interpretation: FitDto['interpretation'];
+  declare curvature: FitDto['curvature'];
+  declare warnings: FitDto['warnings'] | null;
   declare modelVersion: string;
   declare createdById: number;
   declare deletedAt: CreationOptional<Date | null>;
@@ -47,6 +55,11 @@ export function initFitModel(sequelize: Sequelize): void {
       converged: { type: DataTypes.BOOLEAN, allowNull: false },
       reason: DataTypes.TEXT,
       reading: DataTypes.TEXT,
+      stepCount: DataTypes.INTEGER,
+      excludedSequences: jsonColumn('excludedSequences'),
+      interpretation: jsonColumn('interpretation'),
+      curvature: jsonColumn('curvature'),
+      warnings: jsonColumn('warnings'),
       modelVersion: { type: DataTypes.STRING(32), allowNull: false },
       createdById: { type: DataTypes.INTEGER, allowNull: false },
       deletedAt: DataTypes.DATE(3),

@@ -1,58 +1,65 @@
-import type { FitDto, FitKind, FitRequest, SessionUser } from '@rhotrace/api-types';
+import type { FitDto, FitRequest, SessionUser } from '@rhotrace/api-types';
+import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import type { Sequelize } from 'sequelize';
 import type { Actor } from '../audit/audit.service';
 import { auditChange, recordAudit } from '../audit/audit.service';
 import { asNotFound, badRequest, forbidden, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
-import { isMetal, isSemiconductor, semiconductorParameterSet } from '../analysis/model.service';
-import { withPhysicsOnData } from '../analysis/physics-errors';
-import { regimeOfWindow, suggestWindows } from '../analysis/suggested-windows';
 import {
-  averageSteps,
   pointsInWindow,
-  sweepReadings,
+  sweepFitReadings,
   visibleSweep,
   type AnalysisPoint,
 } from '../analysis/sweep-data.service';
 import { User } from '../users/user.model';
-import {
-  DEFAULT_TCR_REFERENCE_K,
-  arrheniusFit,
-  blochGruneisenFit,
-  modelFit,
-  tcrFit,
-  type FitComputation,
-} from './fit-kinds';
+import { runFitKind } from './fit-kinds';
 import { Fit } from './fit.model';
 
 /** Fewest points any fit takes. */
 export const MIN_FIT_POINTS = 3;
 
-/** Shapes a stored fit for the API. */
-export async function toFitDto(fit: Fit, names?: Map<number, string>): Promise<FitDto> {
-  const name = names?.get(fit.createdById) ?? (await User.findByPk(fit.createdById))?.name ?? null;
+/**
+ * The one place a stored fit becomes its API shape, for the answer to a POST (from the values
+ * just stored) and for every read alike. Fits stored before dwell steps read with
+ * `stepCount` null and empty lists.
+ */
+export function fitDtoOf(fit: Fit, createdBy: FitDto['createdBy']): FitDto {
   return {
     id: fit.id,
     sweepId: fit.sweepId,
-    kind: fit.kind as FitKind,
-    inputs: fit.inputs as Record<string, unknown>,
+    kind: fit.kind,
+    inputs: fit.inputs,
     windowMinK: fit.windowMinK,
     windowMaxK: fit.windowMaxK,
-    parameters: fit.parameters as FitDto['parameters'],
-    standardErrors: fit.standardErrors as FitDto['standardErrors'],
-    confidenceIntervals: fit.confidenceIntervals as FitDto['confidenceIntervals'],
-    goodness: fit.goodness as FitDto['goodness'],
-    residuals: fit.residuals as FitDto['residuals'],
+    parameters: fit.parameters,
+    standardErrors: fit.standardErrors,
+    confidenceIntervals: fit.confidenceIntervals,
+    goodness: fit.goodness,
+    residuals: fit.residuals,
     converged: fit.converged,
     reason: fit.reason,
     reading: fit.reading,
+    stepCount: fit.stepCount,
+    excludedSequences: fit.excludedSequences ?? [],
+    interpretation: fit.interpretation ?? null,
+    curvature: fit.curvature ?? null,
+    warnings: fit.warnings ?? [],
     modelVersion: fit.modelVersion,
-    createdBy: { id: fit.createdById, name },
+    createdBy,
     createdAt: fit.createdAt.toISOString(),
   };
 }
 
-/** Points of the request's window (the whole sweep when no window is given), at least 3. */
+/** Shapes a stored fit for the API, naming who saved it. */
+export async function toFitDto(fit: Fit, names?: Map<number, string>): Promise<FitDto> {
+  const name = names?.get(fit.createdById) ?? (await User.findByPk(fit.createdById))?.name ?? null;
+  return fitDtoOf(fit, { id: fit.createdById, name });
+}
+
+/**
+ * Points of the request's window (the whole sweep when no window is given), at least 3; the
+ * bounds given are clipped to the readings inside them.
+ */
 function windowPoints(
   all: readonly AnalysisPoint[],
   minK: number | undefined,
@@ -85,10 +92,19 @@ function windowPoints(
       ],
     );
   }
-  return { points, minK: minK ?? null, maxK: maxK ?? null };
+  // A window reaching past the data is stored as far as the data go.
+  return {
+    points,
+    minK: minK === undefined ? null : Math.max(minK, points[0]!.temperatureK),
+    maxK: maxK === undefined ? null : Math.min(maxK, points[points.length - 1]!.temperatureK),
+  };
 }
 
-/** Runs the requested fit over the sweep and stores it with an audit event. */
+/**
+ * Runs the requested fit over the sweep (its kind's entry in `FIT_KIND_TABLE`) and stores it
+ * with an audit event. Flagged readings are left out unless `includeFlagged`; their sequence
+ * numbers inside the window are stored with the fit.
+ */
 export async function createFit(
   sequelize: Sequelize,
   user: SessionUser,
@@ -97,83 +113,41 @@ export async function createFit(
   actor: Actor,
 ): Promise<FitDto> {
   const v = await visibleSweep(user, sweepId);
-  // An Arrhenius fit with its regime given needs only the window's points from the database.
-  const windowOnly = request.kind === 'arrhenius' && request.regime !== undefined;
-  const { points: all } = await sweepReadings(
-    v.sweep,
-    windowOnly ? { minK: request.minK, maxK: request.maxK } : undefined,
-  );
-  const window = windowPoints(all, request.minK, request.maxK);
-  let computed: FitComputation;
-  let inputs: Record<string, unknown>;
-  let parameterSet: string;
-  /** Only the bounds the request gave, so stored inputs can be posted again as they are. */
-  const bounds = {
+  const includeFlagged = request.includeFlagged ?? false;
+  const stepToleranceK = request.stepToleranceK ?? PHYSICS_DEFAULTS.fitStepToleranceK;
+  const temperatureUncertaintyK =
+    request.temperatureUncertaintyK ?? PHYSICS_DEFAULTS.fitTemperatureUncertaintyK;
+  const readings = await sweepFitReadings(v.sweep, includeFlagged);
+  const window = windowPoints(readings.points, request.minK, request.maxK);
+  const run = runFitKind(request.kind, request, {
+    points: window.points,
+    all: readings.points,
+    material: v.lot.material,
+    dopant: v.lot.dopant,
+    stepToleranceK,
+    temperatureUncertaintyK,
+  });
+  const lo = request.minK ?? Number.NEGATIVE_INFINITY;
+  const hi = request.maxK ?? Number.POSITIVE_INFINITY;
+  const excludedSequences = readings.excluded
+    .filter((e) => e.temperatureK >= lo && e.temperatureK <= hi)
+    .map((e) => e.sequence)
+    .sort((a, b) => a - b);
+  /** The request's own bounds and the step options, so stored inputs can be posted again. */
+  const inputs = {
+    ...run.inputs,
     ...(request.minK !== undefined ? { minK: request.minK } : {}),
     ...(request.maxK !== undefined ? { maxK: request.maxK } : {}),
+    includeFlagged,
+    stepToleranceK,
+    temperatureUncertaintyK,
   };
-  switch (request.kind) {
-    case 'arrhenius': {
-      const quantity = request.quantity ?? 'resistivity';
-      const prefactorExponent = request.prefactorExponent ?? 0;
-      const compensated = request.compensated ?? false;
-      const regime =
-        request.regime ??
-        regimeOfWindow(suggestWindows(averageSteps(all), all), request.minK, request.maxK);
-      inputs = {
-        kind: 'arrhenius',
-        minK: request.minK,
-        maxK: request.maxK,
-        quantity,
-        prefactorExponent,
-        ...(regime ? { regime } : {}),
-        compensated,
-      };
-      computed = withPhysicsOnData('Arrhenius fit', () =>
-        arrheniusFit(window.points, {
-          quantity,
-          prefactorExponent,
-          material: v.lot.material,
-          regime,
-          compensated,
-        }),
-      );
-      parameterSet = 'arrhenius';
-      break;
-    }
-    case 'model': {
-      const material = request.material ?? v.lot.material;
-      if (!isSemiconductor(material)) {
-        throw badRequest(`A full-model fit needs a semiconductor; ${material} is not one`, [
-          { field: 'body.material', problem: 'must be Si, Ge, GaAs or 4H-SiC' },
-        ]);
-      }
-      inputs = { kind: 'model', material, initial: request.initial, free: request.free, ...bounds };
-      computed = withPhysicsOnData('Model fit', () =>
-        modelFit(window.points, material, request.initial as never, request.free),
-      );
-      parameterSet = semiconductorParameterSet(material);
-      break;
-    }
-    case 'tcr': {
-      const referenceK = request.referenceK ?? DEFAULT_TCR_REFERENCE_K;
-      inputs = { kind: 'tcr', referenceK, ...bounds };
-      computed = withPhysicsOnData('TCR fit', () => tcrFit(window.points, referenceK));
-      parameterSet = 'linear-tcr';
-      break;
-    }
-    case 'bloch-gruneisen': {
-      inputs = { kind: 'bloch-gruneisen', ...bounds };
-      computed = withPhysicsOnData('Bloch–Grüneisen fit', () => blochGruneisenFit(window.points));
-      parameterSet = 'bloch-gruneisen';
-      break;
-    }
-  }
-  if (request.kind === 'arrhenius' && !request.regime && computed.reading) {
-    computed.reading += ' (Regime taken from the suggested windows.)';
-  }
-  if (request.kind === 'bloch-gruneisen' && !isMetal(v.lot.material)) {
-    computed.reading = `Bloch–Grüneisen describes metals; this lot is ${v.lot.material}. ${computed.reading ?? ''}`;
+  const computed = run.computation;
+  if (excludedSequences.length) {
+    computed.warnings.push(
+      `${excludedSequences.length} flagged reading(s) in the window were left out ` +
+        '(includeFlagged: true keeps them).',
+    );
   }
   return sequelize.transaction(async (transaction) => {
     const fit = await Fit.create(
@@ -184,7 +158,8 @@ export async function createFit(
         windowMinK: window.minK,
         windowMaxK: window.maxK,
         ...computed,
-        modelVersion: modelVersion(parameterSet),
+        excludedSequences,
+        modelVersion: modelVersion(run.parameterSet),
         createdById: user.id,
       },
       { transaction },
@@ -206,27 +181,9 @@ export async function createFit(
       },
       transaction,
     );
-    // The answer is made from the values just stored, not read back through the JSON columns
-    // (parsing a few thousand residuals again cost more than the fit itself).
-    return {
-      id: fit.id,
-      sweepId,
-      kind: request.kind,
-      inputs,
-      windowMinK: window.minK,
-      windowMaxK: window.maxK,
-      parameters: computed.parameters as FitDto['parameters'],
-      standardErrors: computed.standardErrors as FitDto['standardErrors'],
-      confidenceIntervals: computed.confidenceIntervals as FitDto['confidenceIntervals'],
-      goodness: computed.goodness as FitDto['goodness'],
-      residuals: computed.residuals,
-      converged: computed.converged,
-      reason: computed.reason,
-      reading: computed.reading,
-      modelVersion: fit.modelVersion,
-      createdBy: { id: user.id, name: user.name },
-      createdAt: fit.createdAt.toISOString(),
-    } satisfies FitDto;
+    // Made from the values just stored, not read back through the JSON columns (parsing a few
+    // thousand residuals again cost more than the fit itself).
+    return fitDtoOf(fit, { id: user.id, name: user.name });
   });
 }
 

@@ -43,14 +43,14 @@ describe('fitArrhenius', () => {
   it('recovers an exact activation energy for resistivity and conductivity', () => {
     const pts = sweep(0.56, range(300, 500, 12));
     const r = fitArrhenius(pts);
-    expect(r.activationEnergyEv).toBeCloseTo(0.56, 10);
+    expect(r.parameters.activationEnergyEv).toBeCloseTo(0.56, 10);
     expect(r.rSquared).toBeCloseTo(1, 12);
-    expect(r.intercept).toBeCloseTo(Math.log(1e-3), 8);
+    expect(r.parameters.intercept).toBeCloseTo(Math.log(1e-3), 8);
     const c = fitArrhenius(
       pts.map((p) => ({ temperatureK: p.temperatureK, value: 1 / p.value })),
       { quantity: 'conductivity' },
     );
-    expect(c.activationEnergyEv).toBeCloseTo(0.56, 10);
+    expect(c.parameters.activationEnergyEv).toBeCloseTo(0.56, 10);
   });
 
   it('removes a T^m prefactor', () => {
@@ -58,8 +58,11 @@ describe('fitArrhenius', () => {
       temperatureK: t,
       value: Math.pow(t, -1.5) * Math.exp(0.3 / (k * t)),
     }));
-    expect(fitArrhenius(pts, { prefactorExponent: 1.5 }).activationEnergyEv).toBeCloseTo(0.3, 10);
-    expect(Math.abs(fitArrhenius(pts).activationEnergyEv - 0.3)).toBeGreaterThan(0.01);
+    expect(fitArrhenius(pts, { prefactorExponent: 1.5 }).parameters.activationEnergyEv).toBeCloseTo(
+      0.3,
+      10,
+    );
+    expect(Math.abs(fitArrhenius(pts).parameters.activationEnergyEv - 0.3)).toBeGreaterThan(0.01);
   });
 
   it('agrees with simple-statistics linearRegression as an independent reference', () => {
@@ -68,8 +71,8 @@ describe('fitArrhenius', () => {
     const ref = linearRegression(
       pts.map((p) => [1 / (k * p.temperatureK), Math.log(p.value * Math.sqrt(p.temperatureK))]),
     );
-    expect(r.activationEnergyEv / ref.m).toBeCloseTo(1, 10);
-    expect(r.intercept).toBeCloseTo(ref.b, 8);
+    expect(r.parameters.activationEnergyEv / ref.m).toBeCloseTo(1, 10);
+    expect(r.parameters.intercept).toBeCloseTo(ref.b, 8);
   });
 
   it('uses an inclusive window and Student t with n - 2 degrees of freedom', () => {
@@ -77,7 +80,9 @@ describe('fitArrhenius', () => {
     const r = fitArrhenius(pts, { minK: 310, maxK: 330 });
     expect(r.count).toBe(3);
     expect(r.tCritical).toBeCloseTo(12.706, 2);
-    expect(r.ci95Ev[1] - r.activationEnergyEv).toBeCloseTo(r.tCritical * r.standardErrorEv, 12);
+    expect(
+      r.confidenceIntervals95.activationEnergyEv![1] - r.parameters.activationEnergyEv,
+    ).toBeCloseTo(r.tCritical * r.standardErrors.activationEnergyEv!, 12);
   });
 
   it('gives 95 % intervals that cover the truth in 90–99 % of noisy trials', () => {
@@ -87,7 +92,8 @@ describe('fitArrhenius', () => {
     const temps = range(250, 450, 12);
     for (let s = 0; s < trials; s++) {
       const r = fitArrhenius(sweep(0.35, temps, 0.03, 1000 + s));
-      if (r.ci95Ev[0] <= 0.35 && 0.35 <= r.ci95Ev[1]) covered++;
+      const ci = r.confidenceIntervals95.activationEnergyEv!;
+      if (ci[0] <= 0.35 && 0.35 <= ci[1]) covered++;
     }
     const coverage = covered / trials;
     expect(coverage).toBeGreaterThan(0.9);
@@ -97,8 +103,10 @@ describe('fitArrhenius', () => {
   it('has a standard error that scales with the noise', () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 1000 }), (seed) => {
-        const a = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.01, seed)).standardErrorEv;
-        const b = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.02, seed)).standardErrorEv;
+        const a = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.01, seed)).standardErrors
+          .activationEnergyEv!;
+        const b = fitArrhenius(sweep(0.3, range(200, 400, 20), 0.02, seed)).standardErrors
+          .activationEnergyEv!;
         return Math.abs(b / a - 2) < 1e-6;
       }),
       { numRuns: 20 },
@@ -123,7 +131,8 @@ describe('fitArrhenius invalid inputs', () => {
     expect(() => fitArrhenius([...pts, { temperatureK: Number.NaN, value: 1 }])).toThrow(
       RangeError,
     );
-    expect(() => fitArrhenius('x' as unknown as typeof pts)).toThrow(TypeError);
+    const notAList: unknown = 'x';
+    expect(() => fitArrhenius(notAList as typeof pts)).toThrow(TypeError);
     expect(() => fitArrhenius(pts, { quantity: 'mobility' as 'resistivity' })).toThrow(/quantity/);
     expect(() => fitArrhenius(pts, { prefactorExponent: Number.NaN })).toThrow(/prefactorExponent/);
   });

@@ -10,7 +10,7 @@ const arrhenius = (donorDensity: number, acceptorDensity: number, temps: number[
       value: p.resistivityOhmCm,
     })),
     { prefactorExponent: m },
-  ).activationEnergyEv;
+  ).parameters.activationEnergyEv;
 const range = (a: number, b: number): number[] =>
   Array.from({ length: b - a + 1 }, (_, i) => a + i);
 

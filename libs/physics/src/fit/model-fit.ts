@@ -1,8 +1,7 @@
 /**
  * Full-model fit of a measured rho(T) sweep: dopant densities, levels and a mobility scale.
  */
-import { studentTCritical } from '../numeric/student-t';
-import { requireArray, requireOneOf } from '../validate';
+import { requireArray, requireObject, requireOneOf } from '../validate';
 import type { Doping } from '../semiconductor/dopants';
 import {
   checkDoping,
@@ -14,8 +13,12 @@ import type { SemiconductorId } from '../semiconductor/material';
 import { requireSemiconductor } from '../semiconductor/material';
 import type { ResistivityOptions } from '../semiconductor/resistivity';
 import { modelPointUnchecked, resolveModel } from '../semiconductor/resistivity';
-import { levenbergMarquardt } from './levenberg-marquardt';
+import type { FitResult, ParameterScale } from './fit-result';
 import { readPoints } from './points';
+import { fitLnRhoSteps } from './step-levenberg';
+import type { StepOptions } from './steps';
+import { readStepOptions } from './steps';
+import { densityCoordinates } from './model-densities';
 
 /** Parameters `fitModel` can free. */
 export type ModelParameter =
@@ -34,57 +37,58 @@ const LOG_SCALE: ReadonlySet<ModelParameter> = new Set([
   'acceptorDensity',
   'mobilityScale',
 ]);
+/** Bounds of the levels (eV) and the mobility scale; a result this close to one is flagged. */
+const LEVEL_RANGE_EV: [number, number] = [0, 1];
+const MOBILITY_SCALE_RANGE: [number, number] = [1e-6, 1e6];
+/** A compensation ratio above this is reported as at its bound (minority = majority). */
+const MAX_COMPENSATION_RATIO = 0.999;
 
-/** Result of `fitModel`. */
-export interface ModelFit {
-  /** All parameters, fixed ones included: densities cm^-3, levels eV, mobilityScale. */
-  parameters: Record<ModelParameter, number>;
-  /** Standard errors of the free parameters in their own units (null: not identifiable). */
-  standardErrors: Partial<Record<ModelParameter, number | null>>;
-  /** 95 % intervals of the free parameters (asymmetric for the log-scale ones). */
-  confidenceIntervals95: Partial<Record<ModelParameter, [number, number] | null>>;
-  /** Root mean square of ln(rho_model) - ln(rho_measured). */
-  residualRms: number;
-  /** ln(rho_model / rho_measured) per point. */
-  residuals: number[];
-  iterations: number;
-  converged: boolean;
-  reason: string;
-  degreesOfFreedom: number;
-}
+/** Options of `fitModel`: the model's and the dwell steps'. */
+export type ModelFitOptions = ResistivityOptions & StepOptions;
+
+/** Result of `fitModel` (parameters: densities cm^-3, levels eV, mobilityScale). */
+export type ModelFit = FitResult<ModelParameter>;
 
 /**
  * Least-squares fit of the resistivity model (`resistivity`) to a measured sweep.
  *
- * Method: Levenberg–Marquardt (`levenbergMarquardt`) on r_i = ln rho_model(T_i) - ln rho_i, with
- * densities and the mobility scale fitted as logarithms (so they stay positive and steps are
- * relative) and levels in eV. Covariance C = (J^T J)^-1 s^2, s^2 = SSR / (n - k), J the Jacobian
- * at the solution; for log-scale parameters se(P) = P se(ln P) (delta method) and the 95 %
- * interval is exp(ln P ± t se(ln P)), t from Student's t with n - k degrees of freedom.
+ * Method: Levenberg–Marquardt on ln rho_model(T) against the dwell-step means of ln rho
+ * (`dwellSteps`, weights 1 / variance of each mean plus the effective variance of
+ * `temperatureUncertaintyK`), covariance (J^T J)^-1 chi^2 / (steps - k), intervals with Student's
+ * t at steps - k degrees of freedom, none when the fit has not converged.
+ * The conduction type of the starting guess is kept: with both densities free the fit runs on
+ * ln N_net = ln |N_D - N_A| and the compensation ratio r = N_minority / N_majority through
+ * logit r (0 < r < 1), reported back as N_D and N_A (delta method); with one free, the minority
+ * density stays below the majority. Without this, data that only fix N_net (extrinsic-only
+ * sweeps) let the fit wander to the other type. Levels (eV) and the mobility scale are fitted
+ * directly and as a logarithm. Densities and the mobility scale have log-scale intervals,
+ * exp(ln P ± t se(ln P)); the correlation matrix is that of the fitted coordinates as reported
+ * (ln densities, levels, ln mobility scale).
  * Fixed parameters keep their `initial` values; a free level without an initial value starts at
  * the material's default level; `mobilityScale` starts at 1 unless `options.mobilityScale` says
- * otherwise. `converged` is true only when a convergence test was met (see `reason`).
- * Levels are the isolated (dilute-limit) ionization energies E0; the model lowers them with
- * density exactly as `resistivity` does (`options.ionizationModel`, default per material).
- * Assumptions: equal relative errors on rho; those of `resistivity`.
+ * otherwise. Levels are the isolated (dilute-limit) ionization energies E0, lowered with density
+ * exactly as `resistivity` does. Warnings: `standardWarnings`, and a parameter at a bound.
+ * Assumptions: equal relative errors within a step; those of `resistivity`.
  *
- * @param points measured { temperatureK, resistivityOhmCm } (more points than free parameters)
+ * @param points measured { temperatureK, resistivityOhmCm } (more steps than free parameters)
  * @param material semiconductor id
- * @param initial starting doping (free densities must be above 0)
+ * @param initial starting doping (free densities must be above 0, N_D ≠ N_A when both are free)
  * @param free names of the parameters to fit
- * @param options model options (density-of-states set, mobility model, starting mobility scale)
+ * @param options model options (density-of-states set, mobility model, starting mobility
+ *   scale) and step options
  */
 export function fitModel(
   points: Array<{ temperatureK: number; resistivityOhmCm: number }>,
   material: SemiconductorId,
   initial: Doping,
   free: ModelParameter[],
-  options: ResistivityOptions = {},
+  options: ModelFitOptions = {},
 ): ModelFit {
   const fn = 'fitModel';
   const m = requireSemiconductor(fn, material);
   const start = checkDoping(fn, m, initial);
   const ionization = resolveIonizationModel(fn, m, options?.ionizationModel);
+  const stepOptions = readStepOptions(fn, requireObject(fn, 'options', options ?? {}));
   const freeList = requireArray(fn, 'free', free, 1).map((f, i) =>
     requireOneOf(fn, `free[${i}]`, f, PARAMETERS),
   );
@@ -118,26 +122,32 @@ export function fitModel(
       );
     }
   }
-  const lnRho = Array.from(rhos, Math.log);
-
-  const unpack = (p: readonly number[]): Record<ModelParameter, number> => {
-    const v = { ...values };
-    freeList.forEach((f, i) => (v[f] = LOG_SCALE.has(f) ? Math.exp(p[i]!) : p[i]!));
+  const nType = values.donorDensity >= values.acceptorDensity;
+  const densities = densityCoordinates(fn, freeList, values, nType);
+  const others = freeList.filter((f) => f !== 'donorDensity' && f !== 'acceptorDensity');
+  const names: ModelParameter[] = [...densities.names, ...others];
+  const scales: ParameterScale[] = names.map((f) => (LOG_SCALE.has(f) ? 'log' : 'linear'));
+  const unpack = (q: readonly number[]): Record<ModelParameter, number> => {
+    const v = { ...values, ...densities.unpack(q) };
+    others.forEach((f, i) => {
+      const x = q[densities.size + i]!;
+      v[f] = LOG_SCALE.has(f) ? Math.exp(x) : x;
+    });
     return v;
   };
-  const residuals = (p: readonly number[]): Float64Array => {
-    const v = unpack(p);
-    const out = new Float64Array(temps.length);
+  const lnModel = (q: readonly number[]): ((t: number) => number) | null => {
+    const v = unpack(q);
     const feasible =
       v.donorDensity <= MAX_DOPING_CM3 &&
       v.acceptorDensity <= MAX_DOPING_CM3 &&
-      v.donorLevel > 0 &&
-      v.donorLevel <= 1 &&
-      v.acceptorLevel > 0 &&
-      v.acceptorLevel <= 1 &&
-      v.mobilityScale > 1e-6 &&
-      v.mobilityScale < 1e6;
-    if (!feasible) return out.fill(Number.NaN);
+      (nType ? v.acceptorDensity < v.donorDensity : v.donorDensity < v.acceptorDensity) &&
+      v.donorLevel > LEVEL_RANGE_EV[0] &&
+      v.donorLevel <= LEVEL_RANGE_EV[1] &&
+      v.acceptorLevel > LEVEL_RANGE_EV[0] &&
+      v.acceptorLevel <= LEVEL_RANGE_EV[1] &&
+      v.mobilityScale > MOBILITY_SCALE_RANGE[0] &&
+      v.mobilityScale < MOBILITY_SCALE_RANGE[1];
+    if (!feasible) return null;
     const d = ionizeDoping(
       m,
       ionization,
@@ -147,48 +157,48 @@ export function fitModel(
       v.acceptorLevel,
     );
     const cfg = { ...model, mobilityScale: v.mobilityScale };
-    for (let i = 0; i < temps.length; i++)
-      out[i] = modelPointUnchecked(cfg, d, temps[i]!).lnResistivity - lnRho[i]!;
-    return out;
+    return (t) => modelPointUnchecked(cfg, d, t).lnResistivity;
   };
-
-  const p0 = freeList.map((f) => (LOG_SCALE.has(f) ? Math.log(values[f]) : values[f]));
-  const lm = levenbergMarquardt({ residuals, initial: p0 });
-  const n = temps.length;
-  const k = freeList.length;
-  const dof = n - k;
-  const s2 = lm.cost / dof;
-  const t = studentTCritical(0.95, dof);
-  const fitted = unpack(lm.parameters);
-  const standardErrors: ModelFit['standardErrors'] = {};
-  const confidenceIntervals95: ModelFit['confidenceIntervals95'] = {};
-  freeList.forEach((f, i) => {
-    const variance = lm.unscaledCovariance ? lm.unscaledCovariance[i]![i]! * s2 : Number.NaN;
-    if (!(variance >= 0) || !Number.isFinite(variance)) {
-      standardErrors[f] = null;
-      confidenceIntervals95[f] = null;
-      return;
-    }
-    const se = Math.sqrt(variance);
-    const p = lm.parameters[i]!;
-    if (LOG_SCALE.has(f)) {
-      standardErrors[f] = fitted[f] * se;
-      confidenceIntervals95[f] = [Math.exp(p - t * se), Math.exp(p + t * se)];
-    } else {
-      standardErrors[f] = se;
-      confidenceIntervals95[f] = [p - t * se, p + t * se];
-    }
+  const initialCoordinates = [
+    ...densities.initial,
+    ...others.map((f) => (LOG_SCALE.has(f) ? Math.log(values[f]) : values[f])),
+  ];
+  const fit = fitLnRhoSteps<ModelParameter>({
+    fn,
+    temperaturesK: temps,
+    resistivitiesOhmCm: rhos,
+    toleranceK: stepOptions.toleranceK,
+    temperatureUncertaintyK: stepOptions.temperatureUncertaintyK,
+    names,
+    scales,
+    initial: initialCoordinates,
+    lnModel,
+    reported: (q, cov) => densities.reported(q, cov),
+    parametersOf: unpack,
   });
-  const residualRms = Number.isFinite(lm.cost) ? Math.sqrt(lm.cost / n) : Number.MAX_VALUE;
-  return {
-    parameters: fitted,
-    standardErrors,
-    confidenceIntervals95,
-    residualRms,
-    residuals: lm.residuals.map((r) => (Number.isFinite(r) ? r : 0)),
-    iterations: lm.iterations,
-    converged: lm.converged,
-    reason: lm.reason,
-    degreesOfFreedom: dof,
-  };
+  fit.warnings.push(...boundWarnings(fit, nType));
+  return fit;
+}
+
+function boundWarnings(fit: ModelFit, nType: boolean): string[] {
+  const p = fit.parameters;
+  const out: string[] = [];
+  const [majority, minority] = nType
+    ? (['donorDensity', 'acceptorDensity'] as const)
+    : (['acceptorDensity', 'donorDensity'] as const);
+  if (fit.fitted.includes(minority) && p[minority] > MAX_COMPENSATION_RATIO * p[majority]) {
+    out.push(
+      `${minority} is at its bound: it has reached ${majority} (the fit keeps the starting ` +
+        `${nType ? 'n' : 'p'}-type), so the data do not separate the two densities.`,
+    );
+  }
+  for (const level of ['donorLevel', 'acceptorLevel'] as const) {
+    if (!fit.fitted.includes(level)) continue;
+    if (p[level] < 0.002 || p[level] > LEVEL_RANGE_EV[1] - 0.002)
+      out.push(`${level} is at a bound of its range (0 to 1 eV): ${p[level].toFixed(4)} eV.`);
+  }
+  const s = p.mobilityScale;
+  if (fit.fitted.includes('mobilityScale') && (s < 1e-5 || s > 1e5))
+    out.push(`mobilityScale is at a bound of its range (1e-6 to 1e6): ${s.toPrecision(3)}.`);
+  return out;
 }

@@ -13,8 +13,8 @@ describe('fitLinearTcr', () => {
       resistivityOhmCm: copper(t),
     }));
     const r = fitLinearTcr(pts);
-    expect(r.referenceResistivityOhmCm / 1.68e-6).toBeCloseTo(1, 10);
-    expect(r.alphaPerK).toBeCloseTo(0.0039, 10);
+    expect(r.parameters.referenceResistivityOhmCm / 1.68e-6).toBeCloseTo(1, 10);
+    expect(r.parameters.alphaPerK).toBeCloseTo(0.0039, 10);
     expect(r.rSquared).toBeCloseTo(1, 10);
   });
 
@@ -22,7 +22,7 @@ describe('fitLinearTcr', () => {
     const pts = [250, 300, 350].map((t) => ({ temperatureK: t, resistivityOhmCm: copper(t) }));
     const r = fitLinearTcr(pts, 273.15);
     // alpha(T0) = alpha20 / (1 + alpha20 (T0 - 293.15)): common practice, no source.
-    expect(r.alphaPerK).toBeCloseTo(0.0039 / (1 - 0.0039 * 20), 10);
+    expect(r.parameters.alphaPerK).toBeCloseTo(0.0039 / (1 - 0.0039 * 20), 10);
   });
 
   it('agrees with simple-statistics and gives an interval holding the truth', () => {
@@ -33,15 +33,15 @@ describe('fitLinearTcr', () => {
     });
     const r = fitLinearTcr(pts);
     const ref = linearRegression(pts.map((p) => [p.temperatureK - 293.15, p.resistivityOhmCm]));
-    expect(r.alphaPerK / (ref.m / ref.b)).toBeCloseTo(1, 9);
-    expect(r.standardErrorAlpha).toBeGreaterThan(0);
-    expect(r.ci95AlphaPerK[0]).toBeLessThan(0.0039);
-    expect(r.ci95AlphaPerK[1]).toBeGreaterThan(0.0039);
+    expect(r.parameters.alphaPerK / (ref.m / ref.b)).toBeCloseTo(1, 9);
+    expect(r.standardErrors.alphaPerK!).toBeGreaterThan(0);
+    expect(r.confidenceIntervals95.alphaPerK![0]).toBeLessThan(0.0039);
+    expect(r.confidenceIntervals95.alphaPerK![1]).toBeGreaterThan(0.0039);
   });
 });
 
 describe('fitLinearTcr invalid inputs', () => {
-  it('gives each point its relative residual against the fitted line, in input order', () => {
+  it('gives each point its residual ln(observed / fitted line), in input order', () => {
     // An exact line with one point lifted 2 %: least squares spreads the lift over all points,
     // so the check is against the fitted line from simple-statistics, computed independently.
     const temps = [350, 250, 300, 275, 325];
@@ -51,17 +51,17 @@ describe('fitLinearTcr invalid inputs', () => {
     }));
     const r = fitLinearTcr(pts);
     const ref = linearRegression(pts.map((p) => [p.temperatureK - 293.15, p.resistivityOhmCm]));
-    const expected = pts.map(
-      (p) => p.resistivityOhmCm / (ref.b + ref.m * (p.temperatureK - 293.15)) - 1,
+    const expected = pts.map((p) =>
+      Math.log(p.resistivityOhmCm / (ref.b + ref.m * (p.temperatureK - 293.15))),
     );
-    expect(r.relativeResiduals).toHaveLength(5);
-    r.relativeResiduals.forEach((v, i) => expect(v).toBeCloseTo(expected[i]!, 12));
-    expect(r.relativeResiduals[2]).toBeGreaterThan(0.01);
+    expect(r.residuals).toHaveLength(5);
+    r.residuals.forEach((v, i) => expect(v).toBeCloseTo(expected[i]!, 12));
+    expect(r.residuals[2]).toBeGreaterThan(0.01);
     // exact data: every residual is zero
     const exact = fitLinearTcr(
       temps.map((t) => ({ temperatureK: t, resistivityOhmCm: copper(t) })),
     );
-    exact.relativeResiduals.forEach((v) => expect(Math.abs(v)).toBeLessThan(1e-12));
+    exact.residuals.forEach((v) => expect(Math.abs(v)).toBeLessThan(1e-12));
   });
 
   it('rejects bad points and reference temperatures', () => {

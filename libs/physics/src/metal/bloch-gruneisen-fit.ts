@@ -1,45 +1,41 @@
 /**
- * Bloch–Grüneisen fit of a measured metal rho(T).
+ * Bloch–Grüneisen fit of a measured metal rho(T), on dwell-step means.
  */
-import { levenbergMarquardt } from '../fit/levenberg-marquardt';
+import type { FitResult } from '../fit/fit-result';
 import { readPoints } from '../fit/points';
-import { studentTCritical } from '../numeric/student-t';
+import { fitLnRhoSteps } from '../fit/step-levenberg';
+import type { StepOptions } from '../fit/steps';
+import { readStepOptions } from '../fit/steps';
 import { requireObject } from '../validate';
 import type { BlochGruneisenParameters } from './bloch-gruneisen';
 import { blochGruneisenUnchecked } from './bloch-gruneisen';
 
-type BgKey = keyof BlochGruneisenParameters;
-const KEYS: readonly BgKey[] = ['residualOhmCm', 'couplingOhmCm', 'debyeK'];
+/** Parameters of `fitBlochGruneisen` (ohm cm, ohm cm, K). */
+export type BlochGruneisenParameter = keyof BlochGruneisenParameters;
 
 /** Result of `fitBlochGruneisen`. */
-export interface BlochGruneisenFit {
-  parameters: BlochGruneisenParameters;
-  /** Standard errors in the parameters' units (null: not identifiable from the data). */
-  standardErrors: Record<BgKey, number | null>;
-  confidenceIntervals95: Record<BgKey, [number, number] | null>;
-  /** Root mean square of ln(rho_model / rho_measured). */
-  residualRms: number;
-  residuals: number[];
-  iterations: number;
-  converged: boolean;
-  reason: string;
-}
+export type BlochGruneisenFit = FitResult<BlochGruneisenParameter>;
 
 /**
  * Fits rho_0, A and Theta of `blochGruneisen` to a measured sweep.
  *
- * Method: Levenberg–Marquardt on ln(rho_model) - ln(rho_measured) (equal relative errors), with
- * rho_0 and A scaled by the largest measured rho and Theta fitted as ln Theta; covariance
- * (J^T J)^-1 s^2, s^2 = SSR / (n - 3); intervals with Student's t at n - 3 degrees of freedom.
+ * Method: Levenberg–Marquardt on ln(rho_model) against the dwell-step means of ln rho
+ * (`dwellSteps`; weights 1 / variance of each mean, plus the effective variance of
+ * `temperatureUncertaintyK`), with rho_0 and A scaled by the largest measured rho and Theta
+ * fitted as ln Theta; covariance (J^T J)^-1 chi^2 / (steps - 3); intervals with Student's t at
+ * steps - 3 degrees of freedom, none when the fit has not converged. The correlation matrix is
+ * that of (rho_0, A, ln Theta). Residuals: ln(observed / model) per reading.
  * Starting point, unless given: rho_0 = half the smallest rho, Theta = 300 K, A from the
  * high-temperature slope. Theta is only well determined when the data reach below about Theta/3.
  *
- * @param points measured { temperatureK, resistivityOhmCm }, at least 4
+ * @param points measured { temperatureK, resistivityOhmCm }, at least 4 steps
  * @param initial optional starting parameters
+ * @param options step tolerance and temperature uncertainty
  */
 export function fitBlochGruneisen(
   points: Array<{ temperatureK: number; resistivityOhmCm: number }>,
   initial?: Partial<BlochGruneisenParameters>,
+  options: StepOptions = {},
 ): BlochGruneisenFit {
   const fn = 'fitBlochGruneisen';
   const [temps, rhos] = readPoints(fn, points, ['temperatureK', 'resistivityOhmCm'], 4) as [
@@ -47,6 +43,7 @@ export function fitBlochGruneisen(
     Float64Array,
   ];
   const given = initial === undefined ? {} : requireObject(fn, 'initial', initial);
+  const steps = readStepOptions(fn, requireObject(fn, 'options', options ?? {}));
   let rhoMax = 0;
   let rhoMin = Number.POSITIVE_INFINITY;
   let tMax = 0;
@@ -62,54 +59,27 @@ export function fitBlochGruneisen(
       ? given['couplingOhmCm']
       : Math.max(1e-12 * rhoMax, (4 * theta0 * (rhoMax - rho00)) / tMax);
   const scale = rhoMax;
-  const lnRho = Array.from(rhos, Math.log);
-  const residuals = (p: readonly number[]): Float64Array => {
-    const out = new Float64Array(temps.length);
-    const rho0 = p[0]! * scale;
-    const a = p[1]! * scale;
-    const theta = Math.exp(p[2]!);
-    if (rho0 < 0 || a < 0 || !(theta > 0.1 && theta < 1e5)) return out.fill(Number.NaN);
-    for (let i = 0; i < temps.length; i++) {
-      out[i] = Math.log(blochGruneisenUnchecked(temps[i]!, rho0, a, theta)) - lnRho[i]!;
-    }
-    return out;
-  };
-  const lm = levenbergMarquardt({
-    residuals,
+  return fitLnRhoSteps<BlochGruneisenParameter>({
+    fn,
+    temperaturesK: temps,
+    resistivitiesOhmCm: rhos,
+    toleranceK: steps.toleranceK,
+    temperatureUncertaintyK: steps.temperatureUncertaintyK,
+    names: ['residualOhmCm', 'couplingOhmCm', 'debyeK'],
+    scales: ['linear', 'linear', 'log'],
+    factors: [scale, scale, 1],
     initial: [rho00 / scale, a0 / scale, Math.log(theta0)],
+    lnModel: (q) => {
+      const rho0 = q[0]! * scale;
+      const a = q[1]! * scale;
+      const theta = Math.exp(q[2]!);
+      if (rho0 < 0 || a < 0 || !(theta > 0.1 && theta < 1e5)) return null;
+      return (t) => Math.log(blochGruneisenUnchecked(t, rho0, a, theta));
+    },
+    parametersOf: (q) => ({
+      residualOhmCm: q[0]! * scale,
+      couplingOhmCm: q[1]! * scale,
+      debyeK: Math.exp(q[2]!),
+    }),
   });
-  const [q0, q1, q2] = lm.parameters as [number, number, number];
-  const parameters = { residualOhmCm: q0 * scale, couplingOhmCm: q1 * scale, debyeK: Math.exp(q2) };
-  const dof = temps.length - 3;
-  const s2 = lm.cost / dof;
-  const t = studentTCritical(0.95, dof);
-  const standardErrors = {} as BlochGruneisenFit['standardErrors'];
-  const confidenceIntervals95 = {} as BlochGruneisenFit['confidenceIntervals95'];
-  KEYS.forEach((key, i) => {
-    const v = lm.unscaledCovariance ? lm.unscaledCovariance[i]![i]! * s2 : Number.NaN;
-    if (!(v >= 0) || !Number.isFinite(v)) {
-      standardErrors[key] = null;
-      confidenceIntervals95[key] = null;
-      return;
-    }
-    const se = Math.sqrt(v);
-    if (key === 'debyeK') {
-      standardErrors[key] = parameters.debyeK * se;
-      confidenceIntervals95[key] = [Math.exp(q2 - t * se), Math.exp(q2 + t * se)];
-    } else {
-      const value = parameters[key];
-      standardErrors[key] = se * scale;
-      confidenceIntervals95[key] = [value - t * se * scale, value + t * se * scale];
-    }
-  });
-  return {
-    parameters,
-    standardErrors,
-    confidenceIntervals95,
-    residualRms: Number.isFinite(lm.cost) ? Math.sqrt(lm.cost / temps.length) : Number.MAX_VALUE,
-    residuals: lm.residuals.map((r) => (Number.isFinite(r) ? r : 0)),
-    iterations: lm.iterations,
-    converged: lm.converged,
-    reason: lm.reason,
-  };
 }

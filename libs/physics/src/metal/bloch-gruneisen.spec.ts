@@ -82,7 +82,8 @@ describe('fitBlochGruneisen', () => {
     expect(Math.abs(fit.parameters.residualOhmCm / 2e-8 - 1)).toBeLessThan(0.05);
     expect(Math.abs(fit.parameters.couplingOhmCm / 1e-5 - 1)).toBeLessThan(0.03);
     expect(fit.standardErrors.debyeK!).toBeGreaterThan(0);
-    expect(fit.residualRms).toBeLessThan(0.01);
+    const rms = Math.sqrt(fit.residuals.reduce((s, r) => s + r * r, 0) / fit.residuals.length);
+    expect(rms).toBeLessThan(0.01);
   });
 });
 
