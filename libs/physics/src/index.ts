@@ -27,6 +27,11 @@ export { intrinsicDensity } from './semiconductor/intrinsic';
 export { DOPANTS, MAX_DOPING_CM3 } from './semiconductor/dopants';
 export type { AcceptorId, DonorId, Doping, DopantTable } from './semiconductor/dopants';
 export { carrierDensities } from './semiconductor/neutrality';
+export {
+  levelLoweringEvCm,
+  mergeDensityCm3,
+  RELATIVE_PERMITTIVITY,
+} from './semiconductor/ionization';
 export type { CarrierDensities, Regime } from './semiconductor/neutrality';
 export {
   ARORA_1982_SILICON,
@@ -41,8 +46,8 @@ export type {
 } from './semiconductor/mobility';
 export { modelCurve, resistivity } from './semiconductor/resistivity';
 export type { ModelPoint, ResistivityOptions } from './semiconductor/resistivity';
-export { regimeBoundaries } from './semiconductor/regimes';
-export type { RegimeBoundaries } from './semiconductor/regimes';
+export { regimeBoundaries, windowLimits } from './semiconductor/regimes';
+export type { RegimeBoundaries, WindowLimits } from './semiconductor/regimes';
 
 export {
   circularSliceFactor,
