@@ -92,7 +92,14 @@ export {
 export type { BlochGruneisenParameters } from './metal/bloch-gruneisen';
 export { fitBlochGruneisen } from './metal/bloch-gruneisen-fit';
 export type { BlochGruneisenFit } from './metal/bloch-gruneisen-fit';
-export { METALS, metalResistivity } from './metal/metals';
-export type { MetalId, MetalReference } from './metal/metals';
+export {
+  METAL_BLOCH_GRUNEISEN,
+  METAL_LINEAR_RANGE_K,
+  METAL_MODEL_RANGE_K,
+  METALS,
+  metalBlochGruneisen,
+  metalResistivity,
+} from './metal/metals';
+export type { MetalBlochGruneisen, MetalId, MetalReference } from './metal/metals';
 export { listMaterials } from './materials';
 export type { MaterialCatalogue, SemiconductorCatalogueEntry } from './materials';
