@@ -47,6 +47,7 @@ export type {
 export { modelCurve, resistivity } from './semiconductor/resistivity';
 export type { ModelPoint, ResistivityOptions } from './semiconductor/resistivity';
 export { regimeBoundaries, windowLimits } from './semiconductor/regimes';
+export { modelCurveWarnings, MOBILITY_FITTED_RANGE_K } from './semiconductor/validity';
 export type { RegimeBoundaries, WindowLimits } from './semiconductor/regimes';
 
 export {
