@@ -48,6 +48,7 @@ export { modelCurve, resistivity } from './semiconductor/resistivity';
 export type { ModelPoint, ResistivityOptions } from './semiconductor/resistivity';
 export { regimeBoundaries, windowLimits } from './semiconductor/regimes';
 export { modelCurveWarnings, MOBILITY_FITTED_RANGE_K } from './semiconductor/validity';
+export { dopingFromResistivity } from './semiconductor/doping-from-resistivity';
 export type { RegimeBoundaries, WindowLimits } from './semiconductor/regimes';
 
 export {

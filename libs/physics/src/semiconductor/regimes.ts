@@ -75,7 +75,7 @@ export function regimeBoundaries(
  * @param doping donor and acceptor densities (cm^-3) and levels (eV)
  * @param options optional density-of-states set and ionization model
  * @example windowLimits('Si', { donorDensity: 1e15, acceptorDensity: 0, donor: 'P' })
- *   // { freezeOutEndK: 47.5, intrinsicStartK: 652.2 }
+ *   // { freezeOutEndK: 62.2, intrinsicStartK: 591.3 }
  */
 export function windowLimits(
   material: SemiconductorId,
