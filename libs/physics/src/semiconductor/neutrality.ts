@@ -158,10 +158,12 @@ export interface CarrierDensities {
  * still holds carriers under Boltzmann statistics, so a share b of the dopants keeps a bound
  * level and the rest count as merged with the band:
  *   N_D^+ = N_D [(1 - b) + b / (1 + 2 exp((E_F - Eg + E_d)/kT))], likewise for acceptors,
- * with b = 1 up to N_merge / 10, 0 from N_merge on and a smooth step between (`boundShare`):
- * ionization becomes complete with no step in doping, and below N_merge / 10 every carrier
- * freezes out at low temperature (Si:P 1e17 at 10 K: n about 1e9). At 300 K the silicon
- * resistivity tracks ASTM F723 within 10 % from 1e14 to 1e19. `ionizationModel:
+ * with b = 1 up to the onset N_merge 10^-D (D = 1.5 for levels of 45 meV or shallower, more
+ * decades for deeper ones), 0 from N_merge on and a smooth step between (`boundShare`):
+ * ionization becomes complete with no step in doping (rho at 300 K changes by at most 1.31x per
+ * 1.2x in doping for the default dopants), and below the onset every carrier freezes out at low
+ * temperature (Si:P 1e17 at 10 K: n about 1e9). At 300 K the silicon resistivity tracks ASTM
+ * F723 within 9 % from 1e14 to 1e19 (6 % above 1e17). `ionizationModel:
  * 'constant-level'` keeps the tabulated level and merges at `PHYSICS_DEFAULTS.mottDensityCm3`
  * with the same smooth share. Explicit `donorLevel` / `acceptorLevel` values are the isolated
  * levels E0.
