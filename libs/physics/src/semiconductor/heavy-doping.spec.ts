@@ -53,7 +53,7 @@ describe('heavily doped silicon (Pearson & Bardeen level lowering)', () => {
     // ASTM F723 (Thurber et al., NBS SP 400-64), `siliconResistivityFromDopant`, which refers
     // to 23 °C; compared at 300 K as the issue asks. Worst deviation found: +8.8 % (phosphorus,
     // 1e14, where 300 K against 296.15 K alone accounts for about 3 %); between 1e17 and 1e19
-    // the worst is 5.7 % (boron, 1e18, where the bound share is merging). Tolerances 10 % and 6 %.
+    // the worst is 5.7 % (boron, 1e18, where the levels merge). Tolerances 10 % and 6 %.
     let worst = 0;
     for (const { name, doping } of SPECIES) {
       for (let i = 0; i <= 100; i++) {
