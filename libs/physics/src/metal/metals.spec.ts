@@ -32,6 +32,7 @@ describe('metal Bloch–Grüneisen constants (issue 13, defect 9)', () => {
     expect(Math.abs(metalBlochGruneisen('Cu', 273.15) / 1.543e-6 - 1)).toBeLessThan(0.01);
     expect(Math.abs(metalBlochGruneisen('Cu', 300) / 1.725e-6 - 1)).toBeLessThan(0.01);
     expect(Math.abs(metalBlochGruneisen('Cu', 77) / 0.21e-6 - 1)).toBeLessThan(0.15);
+    expect(metalBlochGruneisen('Cu', 300)).toBeCloseTo(1.725e-6, 9); // the JSDoc example
     // The linear reference is 19 % off at 100 K (issue 13) and so refused there.
     expect(() => metalResistivity('Cu', 100)).toThrow(/temperatureK/);
   });

@@ -32,6 +32,10 @@ describe('dopingFromResistivity', () => {
     expect(Math.abs(rhoF723 - 1)).toBeLessThan(0.1);
   });
 
+  it('holds its documented example', () => {
+    expect(dopingFromResistivity('Si', 'n', 4.72, 300)!.donorDensity / 1e15).toBeCloseTo(1, 2);
+  });
+
   it('returns null for a reading the model cannot give', () => {
     expect(dopingFromResistivity('Si', 'n', 1e9, 300)).toBeNull();
     expect(() => dopingFromResistivity('Si', 'x' as 'n', 1, 300)).toThrow(/type/);

@@ -14,6 +14,7 @@ describe('level lowering and merge with the band', () => {
     // Pearson & Bardeen 1949 (from memory): 3e-8 eV cm in silicon; Sze 1981 permittivities.
     expect(levelLoweringEvCm('Si')).toBe(3e-8);
     expect(levelLoweringEvCm('Ge')).toBeCloseTo((3e-8 * 11.9) / 16.0, 12);
+    expect(levelLoweringEvCm('Ge')).toBeCloseTo(2.23e-8, 10); // the JSDoc example
     expect(levelLoweringEvCm('GaAs') * RELATIVE_PERMITTIVITY.GaAs.value).toBeCloseTo(
       3e-8 * 11.9,
       12,

@@ -107,6 +107,12 @@ describe('windowLimits', () => {
     }
   });
 
+  it('holds its documented example', () => {
+    const w = windowLimits('Si', { donorDensity: 1e15, acceptorDensity: 0, donor: 'P' });
+    expect(w.freezeOutEndK!).toBeCloseTo(62.2, 1);
+    expect(w.intrinsicStartK!).toBeCloseTo(591.3, 1);
+  });
+
   it('gives null limits for an exactly compensated sample', () => {
     expect(windowLimits('Si', d(1e15, 1e15))).toEqual({
       freezeOutEndK: null,
