@@ -102,6 +102,7 @@ export interface SemiconductorMaterialDto {
   donors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   acceptors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   dopantSource: SourceDto;
+  /** Where the default donor and acceptor merge with the band (default ionization model), cm^-3. */
   mottDensityCm3: { donor: number; acceptor: number };
 }
 
