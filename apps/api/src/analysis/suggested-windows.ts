@@ -80,12 +80,15 @@ export function suggestWindows(
   if (steps.length < 2 * LOCAL_HALF_WIDTH + 1) return [];
   const found = regimeRuns(steps);
   const extrinsic = found.find((f) => f.regime === 'extrinsic');
-  const limits = sample
-    ? modelWindowLimits(
-        sample,
-        extrinsic ? steps.slice(extrinsic.run.from, extrinsic.run.to + 1) : [],
-      )
-    : null;
+  // The model check costs a few hundred neutrality solves: only when there is a window to clip.
+  const activated = found.some((f) => f.regime !== 'extrinsic');
+  const limits =
+    sample && activated
+      ? modelWindowLimits(
+          sample,
+          extrinsic ? steps.slice(extrinsic.run.from, extrinsic.run.to + 1) : [],
+        )
+      : null;
   const windows: SuggestedWindow[] = [];
   for (const { regime, run } of found) {
     const warnings: string[] = [];
