@@ -24,6 +24,15 @@ describe('modelCurveWarnings (issue 13, defect 10)', () => {
     expect(w.some((s) => /250 K to 300 K.*near-degenerate/.test(s))).toBe(true);
   });
 
+  it('warns where the level is merging with the band and the curve is cold', () => {
+    // 1e18 P in Si lies between the merge onset (1.07e17) and the merge density (3.4e18):
+    // the merged share stands in for impurity-band conduction (carrierDensities docs).
+    const cold = modelCurveWarnings('Si', n(1e18), [20, 300]);
+    expect(cold.some((s) => /merges with the band/.test(s))).toBe(true);
+    expect(modelCurveWarnings('Si', n(1e18), [250, 300])).toEqual([]);
+    expect(modelCurveWarnings('Si', n(1e16), [20]).some((s) => /merges/.test(s))).toBe(false);
+  });
+
   it('warns for the 300 K Caughey–Thomas sets away from 300 K', () => {
     expect(modelCurveWarnings('GaAs', { donorDensity: 1e15, acceptorDensity: 0 }, [300])).toEqual(
       [],

@@ -27,12 +27,16 @@ const MODEL_NAMES: Readonly<Record<MobilityModelId, string>> = {
   'caughey-thomas-ideal': 'Caughey–Thomas mobility set (300 K values, ideal T^-3/2 lattice term)',
 };
 
+/** Below this temperature the merge range of the dopant levels matters to the curve, K. */
+const LOW_TEMPERATURE_K = 100;
+
 const kelvin = (t: number): string => `${Math.round(t)} K`;
 
 /**
  * Plain-language warnings for a model curve: temperatures outside the mobility model's fitted
- * range (`MOBILITY_FITTED_RANGE_K`), and temperatures where the Fermi level lies within 3 kT of
- * a band edge (`carrierDensities` `nearDegenerate`: Boltzmann statistics overstate the carrier
+ * range (`MOBILITY_FITTED_RANGE_K`); doping inside the merge range of a dopant level (part of
+ * the dopants counted as band-like, see `carrierDensities`) on a curve reaching below 100 K;
+ * and temperatures where the Fermi level lies within 3 kT of a band edge (`carrierDensities` `nearDegenerate`: Boltzmann statistics overstate the carrier
  * density, so the curve's resistivity is too low there). Empty when neither applies.
  *
  * @param material semiconductor id
@@ -64,6 +68,15 @@ export function modelCurveWarnings(
       `The ${MODEL_NAMES[model.mobilityModel]} is fitted over ${lo}–${hi} K; from ` +
         `${kelvin(Math.min(...outside))} to ${kelvin(Math.max(...outside))} ` +
         `(${outside.length} of ${temps.length} temperatures) the mobility is extrapolated.`,
+    );
+  }
+  // Only a share strictly between 0 and 1 means the doping sits inside the merge range.
+  const partial = [d.donorBoundFraction, d.acceptorBoundFraction].some((b) => b > 0 && b < 1);
+  if (partial && Math.min(...temps) < LOW_TEMPERATURE_K) {
+    warnings.push(
+      'The doping lies where the dopant level merges with the band: below ' +
+        `${LOW_TEMPERATURE_K} K the model counts part of the dopants as band-like, standing in ` +
+        'for impurity-band (hopping) conduction, which it overstates.',
     );
   }
   const degenerate = temps.filter((t) => solveNeutrality(m, model.set, d, t).nearDegenerate);
