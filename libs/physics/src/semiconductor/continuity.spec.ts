@@ -1,6 +1,8 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { DOPANTS } from './dopants';
 import type { Doping } from './dopants';
-import type { SemiconductorId } from './material';
+import { SEMICONDUCTORS, type SemiconductorId } from './material';
 import { carrierDensities } from './neutrality';
 import { resistivity } from './resistivity';
 
@@ -65,5 +67,33 @@ describe('continuity of the resistivity in doping (issue 13, defect 4)', () => {
       expect(c.ionizedDonors).toBe(doping.donorDensity);
       expect(c.regime).toBe('extrinsic');
     }
+  });
+
+  it('stays neutral and finite for every material and dopant, 1e10 to 1e20 cm^-3 (property)', () => {
+    const species = SEMICONDUCTORS.flatMap((m) => [
+      ...Object.keys(DOPANTS[m].donors).map((d) => ({ m, doping: (n: number) => donors(n, d) })),
+      ...Object.keys(DOPANTS[m].acceptors).map((a) => ({
+        m,
+        doping: (n: number) => acceptors(n, a),
+      })),
+    ]);
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: species.length - 1 }),
+        fc.double({ min: 10, max: 20, noNaN: true }),
+        fc.double({ min: 2, max: 1500, noNaN: true }),
+        (i, logN, t) => {
+          const { m, doping } = species[i]!;
+          const c = carrierDensities(m, doping(10 ** logN), t);
+          const pos = c.holes + c.ionizedDonors;
+          const neg = c.electrons + c.ionizedAcceptors;
+          return (
+            [c.electrons, c.holes, c.fermiLevelEv].every(Number.isFinite) &&
+            Math.abs(pos - neg) <= 1e-8 * Math.max(pos, neg) + 1e-300
+          );
+        },
+      ),
+      { numRuns: 400 },
+    );
   });
 });
