@@ -41,7 +41,10 @@ export interface SemiconductorCurvePoint {
 /** One point of a metal-film reference curve (null outside the reference's valid range). */
 export interface MetalCurvePoint {
   temperatureK: number;
+  /** Bloch–Grüneisen model curve of the bulk metal (20–1000 K). */
   resistivityOhmCm: number | null;
+  /** Linear reference rho_20 [1 + alpha (T - 293.15 K)] (200–600 K). */
+  linearReferenceOhmCm: number | null;
 }
 
 /** `POST /api/model/curve` answer. */
@@ -52,6 +55,8 @@ export type ModelCurveResponse =
       points: SemiconductorCurvePoint[];
       boundaries: { freezeOutBelowK: number | null; intrinsicAboveK: number | null };
       modelVersion: string;
+      /** Where the model is extrapolated or its assumptions are doubtful (plain sentences). */
+      warnings: string[];
     }
   | {
       kind: 'metal';
@@ -61,6 +66,8 @@ export type ModelCurveResponse =
       /** The reference parameters the curve was drawn from. */
       reference: Record<string, unknown>;
       modelVersion: string;
+      /** Where the model is extrapolated or its assumptions are doubtful (plain sentences). */
+      warnings: string[];
     };
 
 /** A literature source as the physics library names it. */
@@ -95,6 +102,7 @@ export interface SemiconductorMaterialDto {
   donors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   acceptors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   dopantSource: SourceDto;
+  /** Where the default donor and acceptor merge with the band (default ionization model), cm^-3. */
   mottDensityCm3: { donor: number; acceptor: number };
 }
 
@@ -159,6 +167,8 @@ export interface SuggestedWindow {
   maxK: number;
   /** Stored points inside [minK, maxK]. */
   pointCount: number;
+  /** Why the window deserves caution, e.g. fewer than 5 steps. */
+  warnings?: string[];
 }
 
 /** Resistivity at 23 °C from a sweep and the spec check against the lot. */

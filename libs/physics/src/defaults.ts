@@ -12,8 +12,9 @@ export type MobilityModelId = 'arora-1982' | 'caughey-thomas-ideal';
 
 /**
  * Names of the dopant-ionization models (see `carrierDensities`): `pearson-bardeen-1949` lowers
- * each level with density and merges it continuously with the band; `constant-level` keeps the
- * tabulated level and switches to full ionization at `mottDensityCm3` (a step).
+ * each level with density and merges it continuously with the band at (E0/alpha)^3;
+ * `constant-level` keeps the tabulated level and merges it, just as continuously, at
+ * `mottDensityCm3`.
  */
 export type IonizationModelId = 'pearson-bardeen-1949' | 'constant-level';
 
@@ -38,20 +39,19 @@ export const PHYSICS_DEFAULTS = {
   /** Degeneracy factor of acceptor levels. */
   acceptorDegeneracy: 4,
   /**
-   * Fraction of the majority dopant that must be ionized for the regime to count as extrinsic
-   * rather than freeze-out.
+   * Fraction of the net doping |N_D - N_A| that the majority carrier density must reach for the
+   * regime to count as extrinsic rather than freeze-out.
    */
   ionizedFractionThreshold: 0.9,
   /**
-   * Ionization model per material unless `options.ionizationModel` names another. Silicon lowers
-   * its levels with density (Pearson & Bardeen 1949); the other materials have no lowering
-   * constant here and keep the tabulated level with the `mottDensityCm3` switch.
+   * Ionization model per material unless `options.ionizationModel` names another: every material
+   * lowers its levels with density (Pearson & Bardeen 1949), so rho is continuous in doping.
    */
   ionizationModel: {
     Si: 'pearson-bardeen-1949',
-    Ge: 'constant-level',
-    GaAs: 'constant-level',
-    '4H-SiC': 'constant-level',
+    Ge: 'pearson-bardeen-1949',
+    GaAs: 'pearson-bardeen-1949',
+    '4H-SiC': 'pearson-bardeen-1949',
   } as Readonly<Record<SemiconductorId, IonizationModelId>>,
   /**
    * Lowering constant alpha of E(N) = E0 - alpha N^(1/3), eV cm (Pearson & Bardeen, Phys. Rev.
@@ -59,27 +59,31 @@ export const PHYSICS_DEFAULTS = {
    * N_D + N_A: the lowering comes from the Coulomb fields of the ionized impurities, and every
    * dopant, compensating ones included, is ionized in the regime the relation was measured in.
    * The level is clamped at 0: with E0 = 45 meV (P, B) it merges with the band at
-   * (E0/alpha)^3 = 3.4e18 cm^-3, close to the Mott density of silicon.
+   * (E0/alpha)^3 = 3.4e18 cm^-3, close to the Mott density of silicon. Materials without an
+   * entry scale silicon's constant by the permittivity (`levelLoweringEvCm` in
+   * semiconductor/ionization.ts).
    */
-  levelLoweringEvCm: { Si: 3.0e-8 } as Readonly<Partial<Record<SemiconductorId, number>>>,
+  levelLoweringEvCm: { Si: 3.0e-8 } as Readonly<Partial<Record<SemiconductorId, number>>> & {
+    Si: number;
+  },
   /**
-   * Onset density N_b of the bound-state fraction of the `pearson-bardeen-1949` model, cm^-3:
-   * b = (1 - u) / (1 - u + exp(1 - N_b/N)), u = N / N_merge, N = N_D + N_A, is the share of the
-   * dopants that still hold a bound level; the rest have merged with the band and count as
-   * ionized. b is 1 to within 1e-20 below N_b / 50 (light-doping freeze-out is untouched), about
-   * 1/2 at N_b, and reaches 0 exactly where the level meets the band edge, N_merge = (E0/alpha)^3,
-   * so ionization becomes complete with no step. Rhotrace's own interpolation, not a published
-   * relation (the idea of a band-tail share follows Altermatt et al. 2006, J. Appl. Phys. 100,
-   * 113715, from memory); N_b was chosen so the 300 K model tracks ASTM F723 with the Arora
-   * mobilities, which were derived from resistivity assuming complete ionization.
+   * Onset of the merge of a bound level with the band, in decades D0 below the merge density
+   * for a level of `mergeReferenceLevelEv` or shallower (deeper levels: D0 sqrt(E0 / E_ref),
+   * `mergeOnsetDecades` in semiconductor/ionization.ts). Below the onset every dopant keeps its
+   * bound level (no carriers leak at low temperature: Si:P 1e17 at 10 K gives n about 1e9);
+   * from the onset to the merge density the bound share falls smoothly to 0. Rhotrace's own
+   * interpolation: 1.5 puts the onset of Si:P and Si:B at 1.07e17 and keeps the silicon model at
+   * 300 K within 6 % of ASTM F723 above 1e17 (F723's mobilities assume complete ionization).
    */
-  boundFractionOnsetDensityCm3: 5e17,
+  mergeOnsetDecades: 1.5,
+  /** Reference level of `mergeOnsetDecades`, eV (P and B in silicon). */
+  mergeReferenceLevelEv: 0.045,
   /**
-   * Dopant density at and above which the `constant-level` model treats a dopant as fully
-   * ionized (Mott transition), cm^-3. Silicon: about 3e18 (Pearson and Bardeen 1949; Altermatt
-   * et al. 2006 put P near 3.7e18, from memory). Other materials scale with the effective Bohr
-   * radius (order-of-magnitude estimates). Under the silicon default (`pearson-bardeen-1949`)
-   * the merge density is (E0/alpha)^3 per species instead.
+   * Density at which the `constant-level` model has merged a dopant with the band (Mott
+   * transition), cm^-3. Silicon: about 3e18 (Pearson and Bardeen 1949; Altermatt et al. 2006 put
+   * P near 3.7e18, from memory). Other materials scale with the effective Bohr radius
+   * (order-of-magnitude estimates). Under the default (`pearson-bardeen-1949`) the merge density
+   * is (E0/alpha)^3 per species instead.
    */
   mottDensityCm3: {
     Si: { donor: 3e18, acceptor: 3e18 },
@@ -87,6 +91,18 @@ export const PHYSICS_DEFAULTS = {
     GaAs: { donor: 1e16, acceptor: 1e18 },
     '4H-SiC': { donor: 1e19, acceptor: 1e20 },
   } as Readonly<Record<SemiconductorId, { donor: number; acceptor: number }>>,
+  /**
+   * Suggested intrinsic window (API): it starts where n_i reaches this multiple of the net
+   * doping, where n and p both lie within 18 % of n_i and the slope reads Eg/2 (common
+   * practice, no source).
+   */
+  intrinsicWindowRatio: 3,
+  /**
+   * Suggested freeze-out window (API): it ends where the majority carrier density is this
+   * fraction of the net doping, well inside the exp(-Ed/2kT) or exp(-Ed/kT) range (common
+   * practice, no source).
+   */
+  freezeOutWindowIonizedFraction: 0.5,
   /**
    * Fermi level closer than this many kT to a band edge marks Boltzmann statistics as doubtful
    * (`nearDegenerate` in `carrierDensities`).

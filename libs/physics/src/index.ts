@@ -28,6 +28,11 @@ export { intrinsicDensity } from './semiconductor/intrinsic';
 export { DOPANTS, MAX_DOPING_CM3 } from './semiconductor/dopants';
 export type { AcceptorId, DonorId, Doping, DopantTable } from './semiconductor/dopants';
 export { carrierDensities } from './semiconductor/neutrality';
+export {
+  levelLoweringEvCm,
+  mergeDensityCm3,
+  RELATIVE_PERMITTIVITY,
+} from './semiconductor/ionization';
 export type { CarrierDensities, Regime } from './semiconductor/neutrality';
 export {
   ARORA_1982_SILICON,
@@ -42,8 +47,10 @@ export type {
 } from './semiconductor/mobility';
 export { modelCurve, resistivity } from './semiconductor/resistivity';
 export type { ModelPoint, ResistivityOptions } from './semiconductor/resistivity';
-export { regimeBoundaries } from './semiconductor/regimes';
-export type { RegimeBoundaries } from './semiconductor/regimes';
+export { regimeBoundaries, windowLimits } from './semiconductor/regimes';
+export { modelCurveWarnings, MOBILITY_FITTED_RANGE_K } from './semiconductor/validity';
+export { dopingFromResistivity } from './semiconductor/doping-from-resistivity';
+export type { RegimeBoundaries, WindowLimits } from './semiconductor/regimes';
 
 export {
   circularSliceFactor,
@@ -97,7 +104,14 @@ export {
 export type { BlochGruneisenParameters } from './metal/bloch-gruneisen';
 export { fitBlochGruneisen } from './metal/bloch-gruneisen-fit';
 export type { BlochGruneisenFit, BlochGruneisenParameter } from './metal/bloch-gruneisen-fit';
-export { METALS, metalResistivity } from './metal/metals';
-export type { MetalId, MetalReference } from './metal/metals';
+export {
+  METAL_BLOCH_GRUNEISEN,
+  METAL_LINEAR_RANGE_K,
+  METAL_MODEL_RANGE_K,
+  METALS,
+  metalBlochGruneisen,
+  metalResistivity,
+} from './metal/metals';
+export type { MetalBlochGruneisen, MetalId, MetalReference } from './metal/metals';
 export { listMaterials } from './materials';
 export type { MaterialCatalogue, SemiconductorCatalogueEntry } from './materials';

@@ -9,6 +9,7 @@ import type { MetalReference } from './metal/metals';
 import { VARSHNI_PARAMETERS } from './semiconductor/band-gap';
 import { DENSITY_OF_STATES_SETS } from './semiconductor/density-of-states';
 import { DOPANTS } from './semiconductor/dopants';
+import { mergeDensityCm3 } from './semiconductor/ionization';
 import type { Citation, SemiconductorId } from './semiconductor/material';
 import { SEMICONDUCTORS, SEMICONDUCTOR_NAMES } from './semiconductor/material';
 import { ARORA_1982_SILICON, CAUGHEY_THOMAS_SETS } from './semiconductor/mobility';
@@ -43,6 +44,10 @@ export interface SemiconductorCatalogueEntry {
   donors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   acceptors: Array<{ name: string; levelEv: number; isDefault: boolean }>;
   dopantSource: Citation;
+  /**
+   * Density at which the default donor and acceptor merge with the band under the default
+   * ionization model (`mergeDensityCm3`), cm^-3.
+   */
   mottDensityCm3: { donor: number; acceptor: number };
 }
 
@@ -108,8 +113,18 @@ export function listMaterials(): MaterialCatalogue {
         isDefault: name === dopants.defaultAcceptor,
       })),
       dopantSource: dopants.source,
-      mottDensityCm3: { ...PHYSICS_DEFAULTS.mottDensityCm3[id] },
+      mottDensityCm3: {
+        donor: defaultMergeDensity(id, 'donor'),
+        acceptor: defaultMergeDensity(id, 'acceptor'),
+      },
     };
   });
   return { semiconductors, metals: Object.values(METALS) };
+}
+
+function defaultMergeDensity(id: SemiconductorId, kind: 'donor' | 'acceptor'): number {
+  const table = DOPANTS[id];
+  const level =
+    kind === 'donor' ? table.donors[table.defaultDonor]! : table.acceptors[table.defaultAcceptor]!;
+  return mergeDensityCm3(id, PHYSICS_DEFAULTS.ionizationModel[id], level, kind);
 }

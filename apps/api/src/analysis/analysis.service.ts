@@ -42,7 +42,13 @@ export async function sweepAnalysis(
     sweep: sweepSummary(v, skipped),
     steps,
     arrhenius: arrheniusCoordinates(steps),
-    suggestedWindows: isMetal(v.lot.material) ? [] : suggestWindows(steps, points),
+    suggestedWindows: isMetal(v.lot.material)
+      ? []
+      : suggestWindows(steps, points, {
+          material: v.lot.material,
+          dopant: v.lot.dopant,
+          dopantType: v.lot.dopantType,
+        }),
     spec: specCheck(steps, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
   };
 }

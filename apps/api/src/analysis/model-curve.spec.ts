@@ -1,6 +1,13 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { listMaterials, metalResistivity, modelCurve, regimeBoundaries } from '@rhotrace/physics';
+import {
+  listMaterials,
+  metalBlochGruneisen,
+  metalResistivity,
+  modelCurve,
+  modelCurveWarnings,
+  regimeBoundaries,
+} from '@rhotrace/physics';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { temperatureGrid } from './model.service';
 
@@ -32,6 +39,35 @@ describe('POST /api/model/curve', () => {
     expect(res.body.points).toEqual(modelCurve('Si', body.doping as never, temps));
     expect(res.body.boundaries).toEqual(regimeBoundaries('Si', body.doping as never));
     expect(res.body.modelVersion).toMatch(/^physics@\d+\.\d+\.\d+\+Si:/);
+    expect(res.body.warnings).toEqual(modelCurveWarnings('Si', body.doping as never, temps));
+  });
+
+  it('warns when the Arora mobility leaves its 200-500 K range and near degeneracy', async () => {
+    // Issue 13, defect 10: Arora, Hauser & Roulston 1982 fitted about 200-500 K; 20-800 K
+    // extrapolates. The library's near-degeneracy flag (Fermi level within 3 kT of a band
+    // edge) reaches the answer for 1e20 cm^-3.
+    const wide = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('engineer'))
+      .send(body);
+    expect(wide.body.warnings).toHaveLength(1);
+    expect(wide.body.warnings[0]).toMatch(/Arora.*200–500 K/);
+    const inside = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('engineer'))
+      .send({ ...body, fromK: 250, toK: 450, steps: 5 });
+    expect(inside.body.warnings).toEqual([]);
+    const heavy = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('engineer'))
+      .send({
+        ...body,
+        doping: { donorDensity: 1e20, acceptorDensity: 0 },
+        fromK: 250,
+        toK: 450,
+        steps: 5,
+      });
+    expect(heavy.body.warnings.join(' ')).toMatch(/near-degenerate/);
   });
 
   it('takes 2 and 2000 steps (the inclusive limits)', async () => {
@@ -106,23 +142,48 @@ describe('GET /api/materials', () => {
 });
 
 describe('POST /api/model/curve for a metal film', () => {
-  it('draws the library reference (metalResistivity) inside 100-1000 K and null outside', async () => {
+  it('follows Bloch–Grüneisen over 20-1000 K and the linear reference over 200-600 K only', async () => {
+    // Issue 13, defect 9: the linear reference was drawn over 100-1000 K though it is fair only
+    // over 200-600 K (Cu at 100 K 19 % off).
     const res = await request(ctx.app)
       .post('/api/model/curve')
       .set(ctx.auth('engineer'))
-      .send({ material: 'Cu', fromK: 50, toK: 1050, steps: 11 });
+      .send({ material: 'Cu', fromK: 10, toK: 1050, steps: 105 });
     expect(res.status).toBe(200);
     expect(res.body.kind).toBe('metal');
     expect(res.body.boundaries).toBeNull();
-    expect(res.body.points[0]).toEqual({ temperatureK: 50, resistivityOhmCm: null });
-    expect(res.body.points[10].resistivityOhmCm).toBeNull();
-    expect(res.body.points[3]).toEqual({
-      temperatureK: 350,
-      resistivityOhmCm: metalResistivity('Cu', 350),
+    const at = (t: number) =>
+      res.body.points.find((p: { temperatureK: number }) => Math.abs(p.temperatureK - t) < 1e-9);
+    expect(at(10)).toEqual({
+      temperatureK: 10,
+      resistivityOhmCm: null,
+      linearReferenceOhmCm: null,
     });
-    // Common practice: a metal's resistivity rises with temperature.
-    expect(res.body.points[5].resistivityOhmCm).toBeGreaterThan(
-      res.body.points[3].resistivityOhmCm,
-    );
+    expect(at(100)).toEqual({
+      temperatureK: 100,
+      resistivityOhmCm: metalBlochGruneisen('Cu', 100),
+      linearReferenceOhmCm: null,
+    });
+    expect(at(300)).toEqual({
+      temperatureK: 300,
+      resistivityOhmCm: metalBlochGruneisen('Cu', 300),
+      linearReferenceOhmCm: metalResistivity('Cu', 300),
+    });
+    expect(at(700).linearReferenceOhmCm).toBeNull();
+    expect(at(1050).resistivityOhmCm).toBeNull();
+    // Matula 1979 (J. Phys. Chem. Ref. Data 8, 1147; from memory): Cu 1.725 µΩ cm at 300 K.
+    expect(Math.abs(at(300).resistivityOhmCm / 1.725e-6 - 1)).toBeLessThan(0.01);
+    expect(res.body.reference.model).toBe('bloch-gruneisen');
+    expect(res.body.warnings).toEqual(['The Copper model curve covers 20–1000 K only.']);
+  });
+
+  it('says where Bloch–Grüneisen cannot follow a transition metal', async () => {
+    const res = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('engineer'))
+      .send({ material: 'Ni', fromK: 100, toK: 500, steps: 5 });
+    expect(res.status).toBe(200);
+    expect(res.body.warnings).toHaveLength(1);
+    expect(res.body.warnings[0]).toMatch(/Nickel \(0\.006 \/K/);
   });
 });

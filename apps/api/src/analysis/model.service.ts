@@ -1,12 +1,17 @@
 import type { DopingInput, MaterialsResponse, ModelCurveResponse } from '@rhotrace/api-types';
 import { METAL_FILMS } from '@rhotrace/api-types';
 import {
+  METAL_BLOCH_GRUNEISEN,
+  METAL_LINEAR_RANGE_K,
+  METAL_MODEL_RANGE_K,
   METALS,
   PHYSICS_DEFAULTS,
   SEMICONDUCTORS,
   listMaterials,
+  metalBlochGruneisen,
   metalResistivity,
   modelCurve,
+  modelCurveWarnings,
   regimeBoundaries,
   type Doping,
   type MetalId,
@@ -15,9 +20,6 @@ import {
 import { badRequest } from '../errors';
 import { modelVersion } from './model-version';
 import { withPhysics } from './physics-errors';
-
-/** Range of the library's linear metal reference (`metalResistivity`), K. */
-export const METAL_LINEAR_RANGE_K: readonly [number, number] = [100, 1000];
 
 /** Model-curve request after validation. */
 export interface CurveQuery {
@@ -67,16 +69,20 @@ export function curveFor(q: CurveQuery): ModelCurveResponse {
     const doping = q.doping as Doping;
     const points = withPhysics('body.doping', () => modelCurve(material, doping, temperatures));
     const boundaries = withPhysics('body.doping', () => regimeBoundaries(material, doping));
+    const warnings = withPhysics('body.doping', () =>
+      modelCurveWarnings(material, doping, temperatures),
+    );
     return {
       kind: 'semiconductor',
       material,
       points,
       boundaries,
       modelVersion: modelVersion(semiconductorParameterSet(material)),
+      warnings,
     };
   }
   if (isMetal(q.material)) {
-    const { points, reference, parameterSet } = withPhysics('body.material', () =>
+    const { points, reference, parameterSet, warnings } = withPhysics('body.material', () =>
       metalCurve(q.material as MetalId, temperatures),
     );
     return {
@@ -86,6 +92,7 @@ export function curveFor(q: CurveQuery): ModelCurveResponse {
       boundaries: null,
       reference,
       modelVersion: modelVersion(parameterSet),
+      warnings,
     };
   }
   throw badRequest(`Unknown material ${q.material}`, [
@@ -101,18 +108,44 @@ export function materials(): MaterialsResponse {
   };
 }
 
+const within = (t: number, [lo, hi]: readonly [number, number]) => t >= lo && t <= hi;
+
 /**
- * The metal reference curve: `metalResistivity` (linear, from the library's reference rho and
- * alpha at 20 °C) inside its 100–1000 K range, null outside it.
+ * The metal reference curve: the library's Bloch–Grüneisen constants of the bulk metal
+ * (`metalBlochGruneisen`, derived from the cited rho and alpha at 20 °C and the Debye
+ * temperature) over 20–1000 K, and the linear reference (`metalResistivity`) over 200–600 K
+ * only; null outside each range.
  */
 function metalCurve(material: MetalId, temperaturesK: readonly number[]) {
-  const [lo, hi] = METAL_LINEAR_RANGE_K;
+  const constants = METAL_BLOCH_GRUNEISEN[material];
+  const reference = METALS[material];
+  const warnings: string[] = [];
+  const [lo, hi] = METAL_MODEL_RANGE_K;
+  if (temperaturesK.some((t) => !within(t, METAL_MODEL_RANGE_K))) {
+    warnings.push(`The ${reference.name} model curve covers ${lo}–${hi} K only.`);
+  }
+  if (!constants.matchesAlpha) {
+    warnings.push(
+      `Bloch–Grüneisen cannot follow the tabulated temperature coefficient of ` +
+        `${reference.name} (${reference.alphaPerK} /K at 20 °C, raised by s–d or magnetic ` +
+        `scattering): the curve matches rho at 20 °C and rises at ` +
+        `${constants.alphaAt20CPerK.toFixed(5)} /K there.`,
+    );
+  }
   return {
     points: temperaturesK.map((t) => ({
       temperatureK: t,
-      resistivityOhmCm: t >= lo && t <= hi ? metalResistivity(material, t) : null,
+      resistivityOhmCm: within(t, METAL_MODEL_RANGE_K) ? metalBlochGruneisen(material, t) : null,
+      linearReferenceOhmCm: within(t, METAL_LINEAR_RANGE_K) ? metalResistivity(material, t) : null,
     })),
-    reference: { ...METALS[material], model: 'linear', validRangeK: [lo, hi] },
-    parameterSet: `metal-${material}`,
+    reference: {
+      ...reference,
+      model: 'bloch-gruneisen',
+      validRangeK: [lo, hi],
+      blochGruneisen: constants,
+      linearValidRangeK: [...METAL_LINEAR_RANGE_K],
+    },
+    parameterSet: `metal-${material}-bg`,
+    warnings,
   };
 }

@@ -1,6 +1,7 @@
 import type { AnalysisStep, RegimeName, SuggestedWindow } from '@rhotrace/api-types';
 import { fitArrhenius } from '@rhotrace/physics';
 import { pointsInWindow, type AnalysisPoint } from './sweep-data.service';
+import { modelWindowLimits, type WindowSample } from './window-limits';
 
 /** Steps either side of a step in its local Arrhenius fit. */
 export const LOCAL_HALF_WIDTH = 3;
@@ -13,6 +14,8 @@ export const ACTIVATED_THRESHOLD_EV = 0.01;
 export const INTRINSIC_THRESHOLD_EV = 0.2;
 /** Fewest steps a suggested window spans. */
 export const MIN_WINDOW_STEPS = 3;
+/** A suggested window with fewer steps than this carries a warning. */
+export const ADVISED_WINDOW_STEPS = 5;
 /** Longer step lists are thinned to about this many before the local slopes are taken. */
 export const MAX_SLOPE_STEPS = 300;
 
@@ -58,12 +61,18 @@ const longest = (runs: Run[]) =>
  * Freeze-out, extrinsic and intrinsic ranges the data suggest, from the local slope
  * d ln(rho) / d(1/T): the longest stretch of non-activated steps is the extrinsic range; the
  * longest activated stretch below it is freeze-out, the longest above it intrinsic (steps thinned
- * to about `MAX_SLOPE_STEPS` first, which also steadies the slope against noise). A heuristic
- * starting point for the user's own window, never a result in itself.
+ * to about `MAX_SLOPE_STEPS` first, which also steadies the slope against noise).
+ * With the lot's material and dopant type (`sample`), the activated windows are then kept clear
+ * of the transitions (`modelWindowLimits`): the intrinsic window starts where n_i is at least 3
+ * times the net doping and the freeze-out window ends where half of it is ionized, the net
+ * doping read from the extrinsic window through the model. A window left with fewer than
+ * `ADVISED_WINDOW_STEPS` steps says so in `warnings`. A heuristic starting point for the user's
+ * own window, never a result in itself.
  */
 export function suggestWindows(
   allSteps: readonly AnalysisStep[],
   points: readonly AnalysisPoint[],
+  sample?: WindowSample,
 ): SuggestedWindow[] {
   let steps = allSteps;
   if (allSteps.length > MAX_SLOPE_STEPS) {
@@ -71,6 +80,51 @@ export function suggestWindows(
     steps = allSteps.filter((_, i) => i % stride === 0 || i === allSteps.length - 1);
   }
   if (steps.length < 2 * LOCAL_HALF_WIDTH + 1) return [];
+  const found = regimeRuns(steps);
+  const extrinsic = found.find((f) => f.regime === 'extrinsic');
+  // The model check costs a few hundred neutrality solves: only when there is a window to clip.
+  const activated = found.some((f) => f.regime !== 'extrinsic');
+  const limits =
+    sample && activated
+      ? modelWindowLimits(
+          sample,
+          extrinsic ? steps.slice(extrinsic.run.from, extrinsic.run.to + 1) : [],
+        )
+      : null;
+  const windows: SuggestedWindow[] = [];
+  for (const { regime, run } of found) {
+    const warnings: string[] = [];
+    let { from, to } = run;
+    if (regime !== 'extrinsic' && limits) {
+      if ('reason' in limits) warnings.push(limits.reason);
+      else if (regime === 'intrinsic') {
+        const start = limits.intrinsicStartK ?? Number.POSITIVE_INFINITY;
+        while (from <= to && steps[from]!.temperatureK < start) from += 1;
+      } else {
+        const end = limits.freezeOutEndK ?? Number.NEGATIVE_INFINITY;
+        while (to >= from && steps[to]!.temperatureK > end) to -= 1;
+      }
+    }
+    if (to - from + 1 < MIN_WINDOW_STEPS) continue;
+    const minK = steps[from]!.temperatureK;
+    const maxK = steps[to]!.temperatureK;
+    const stepCount = allSteps.filter(
+      (s) => s.temperatureK >= minK && s.temperatureK <= maxK,
+    ).length;
+    if (stepCount < ADVISED_WINDOW_STEPS) {
+      warnings.push(
+        `Only ${stepCount} temperature steps: a slope from fewer than ${ADVISED_WINDOW_STEPS} ` +
+          'steps is poorly determined.',
+      );
+    }
+    const pointCount = pointsInWindow(points, minK, maxK).length;
+    windows.push({ regime, minK, maxK, pointCount, ...(warnings.length ? { warnings } : {}) });
+  }
+  return windows.sort((a, b) => a.minK - b.minK);
+}
+
+/** The regime stretches of the local slopes (see `suggestWindows`). */
+function regimeRuns(steps: readonly AnalysisStep[]): Array<{ regime: RegimeName; run: Run }> {
   const energies = localActivationEnergies(steps);
   const runs = runsOf(energies);
   const found: Array<{ regime: RegimeName; run: Run }> = [];
@@ -88,13 +142,7 @@ export function suggestWindows(
       found.push({ regime: middle > INTRINSIC_THRESHOLD_EV ? 'intrinsic' : 'freeze-out', run });
     }
   }
-  return found
-    .map(({ regime, run }) => {
-      const minK = steps[run.from]!.temperatureK;
-      const maxK = steps[run.to]!.temperatureK;
-      return { regime, minK, maxK, pointCount: pointsInWindow(points, minK, maxK).length };
-    })
-    .sort((a, b) => a.minK - b.minK);
+  return found;
 }
 
 /** The regime of the suggested window overlapping [minK, maxK] the most, or null. */

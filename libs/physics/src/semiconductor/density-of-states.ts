@@ -78,7 +78,7 @@ export interface BandModelOptions {
   densityOfStatesSet?: DensityOfStatesSetId;
   /**
    * Dopant-ionization model; default per material in `PHYSICS_DEFAULTS.ionizationModel`
-   * (`pearson-bardeen-1949` for silicon; `constant-level` turns the level lowering off).
+   * (`pearson-bardeen-1949` for every material; `constant-level` turns the level lowering off).
    */
   ionizationModel?: IonizationModelId;
 }

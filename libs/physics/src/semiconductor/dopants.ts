@@ -4,6 +4,7 @@
 import { PHYSICS_DEFAULTS } from '../defaults';
 import type { IonizationModelId } from '../defaults';
 import { describeValue, requireFiniteNumber, requireNonNegative, requireObject } from '../validate';
+import { dopantIonization } from './ionization';
 import type { Citation, SemiconductorId } from './material';
 
 /** Donor species the tables know. */
@@ -104,43 +105,7 @@ export function resolveIonizationModel(
         `got ${describeValue(model)}`,
     );
   }
-  if (
-    model === 'pearson-bardeen-1949' &&
-    PHYSICS_DEFAULTS.levelLoweringEvCm[material] === undefined
-  ) {
-    throw new RangeError(
-      `\`${fn}\` has no pearson-bardeen-1949 ionization model for ${material}; use 'constant-level'`,
-    );
-  }
   return model;
-}
-
-/**
- * @internal Effective level and bound fraction of one dopant species (see `carrierDensities`).
- * `impurityDensity` is N_D + N_A, the density of ionized impurities when ionization is complete.
- */
-export function dopantIonization(
-  material: SemiconductorId,
-  model: IonizationModelId,
-  density: number,
-  impurityDensity: number,
-  isolatedLevelEv: number,
-  kind: 'donor' | 'acceptor',
-): { levelEv: number; boundFraction: number } {
-  const alpha = PHYSICS_DEFAULTS.levelLoweringEvCm[material];
-  if (model === 'constant-level' || alpha === undefined) {
-    const mott = PHYSICS_DEFAULTS.mottDensityCm3[material][kind];
-    return { levelEv: isolatedLevelEv, boundFraction: density >= mott ? 0 : 1 };
-  }
-  // Pearson & Bardeen 1949: E(N) = E0 - alpha N^(1/3), clamped at 0 (merged with the band).
-  const levelEv = Math.max(0, isolatedLevelEv - alpha * Math.cbrt(impurityDensity));
-  const mergeDensity = Math.pow(isolatedLevelEv / alpha, 3);
-  const u = impurityDensity / mergeDensity;
-  if (u >= 1) return { levelEv: 0, boundFraction: 0 };
-  // Merged (band-like) weight q = exp(1 - N_b / N): below 1e-20 for N < N_b / 50.
-  const overlap = Math.exp(1 - PHYSICS_DEFAULTS.boundFractionOnsetDensityCm3 / impurityDensity);
-  const w = (1 - u) * (1 - u);
-  return { levelEv, boundFraction: w / (w + overlap) };
 }
 
 /** @internal Resolves effective levels and bound fractions from isolated levels. */
@@ -153,8 +118,8 @@ export function ionizeDoping(
   acceptorLevel0Ev: number,
 ): ResolvedDoping {
   const total = donorDensity + acceptorDensity;
-  const d = dopantIonization(material, model, donorDensity, total, donorLevel0Ev, 'donor');
-  const a = dopantIonization(material, model, acceptorDensity, total, acceptorLevel0Ev, 'acceptor');
+  const d = dopantIonization(material, model, total, donorLevel0Ev, 'donor');
+  const a = dopantIonization(material, model, total, acceptorLevel0Ev, 'acceptor');
   return {
     donorDensity,
     acceptorDensity,

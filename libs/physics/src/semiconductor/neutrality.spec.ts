@@ -94,6 +94,22 @@ describe('carrierDensities', () => {
     expect(carrierDensities('Si', si(1e15), 300).nearDegenerate).toBe(false);
   });
 
+  it('freezes out moderately doped silicon at 10 K (no bound-state leak)', () => {
+    // Issue 13, defect 3: Si:P 1e17 at 10 K gave n = 1.9e15 (a share of the dopants counted as
+    // merged with the band far below the Mott density, 3.7e18 for P, Altermatt et al. 2006,
+    // from memory). Uncompensated freeze-out, n = sqrt(Nc Nd / 2) exp(-Ed / 2kT) with the
+    // lowered level (Sze; Pearson & Bardeen 1949), gives about 1e9; tolerance 5 %.
+    const t = 10;
+    const c = carrierDensities('Si', { ...si(1e17), donor: 'P' }, t);
+    expect(c.electrons).toBeLessThan(1e10);
+    const ed = 0.045 - 3e-8 * Math.cbrt(1e17);
+    const nc = densityOfStates('Si', t).conduction;
+    const expected = Math.sqrt((nc * 1e17) / 2) * Math.exp(-ed / (2 * BOLTZMANN_EV_PER_K * t));
+    expect(c.electrons / expected).toBeCloseTo(1, 1);
+    expect(c.regime).toBe('freeze-out');
+    expect(c.nearDegenerate).toBe(false);
+  });
+
   it('uses the dopant name and an explicit level to pick the ionization energy', () => {
     // Sze: In in Si is deep (0.16 eV), so it is far less ionized than B at 100 K.
     const b = carrierDensities(

@@ -27,14 +27,15 @@ export interface NeutralitySolution {
   bandGapEv: number;
   ionizedDonors: number;
   ionizedAcceptors: number;
-  /** Ionized fraction of the majority dopant (1 when undoped). */
-  majorityIonizedFraction: number;
+  /** ln of the majority carrier density over |N_D - N_A| (Infinity when exactly compensated). */
+  lnMajorityFraction: number;
   regime: Regime;
   nearDegenerate: boolean;
 }
 
 const LN_GD = Math.log(PHYSICS_DEFAULTS.donorDegeneracy);
 const LN_GA = Math.log(PHYSICS_DEFAULTS.acceptorDegeneracy);
+const LN_FREEZE_OUT_THRESHOLD = Math.log(PHYSICS_DEFAULTS.ionizedFractionThreshold);
 
 /**
  * @internal Solves n + N_A^- = p + N_D^+ for the Fermi level, with eta = E_F / kT (E_F from the
@@ -91,17 +92,9 @@ export function solveNeutrality(
     : 1 - bA + bA * logisticComplement(acceptorShift - eta);
   const lnIntrinsic = 0.5 * (lnNc + lnNv) - 0.5 * epsG;
   const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
-  const majorityIonizedFraction =
-    doping.donorDensity === 0 && doping.acceptorDensity === 0
-      ? 1
-      : doping.donorDensity >= doping.acceptorDensity
-        ? donorFraction
-        : acceptorFraction;
-  let regime: Regime;
-  if (net === 0 || lnIntrinsic > Math.log(net)) regime = 'intrinsic';
-  else if (majorityIonizedFraction < PHYSICS_DEFAULTS.ionizedFractionThreshold)
-    regime = 'freeze-out';
-  else regime = 'extrinsic';
+  const lnMajority = doping.donorDensity >= doping.acceptorDensity ? lnN : lnP;
+  const lnMajorityFraction = net === 0 ? Number.POSITIVE_INFINITY : lnMajority - Math.log(net);
+  const regime = regimeOf(lnIntrinsic, net, lnMajorityFraction);
   const margin3 = PHYSICS_DEFAULTS.degeneracyMarginKt;
   return {
     lnElectrons: lnN,
@@ -111,10 +104,21 @@ export function solveNeutrality(
     bandGapEv: eg,
     ionizedDonors: doping.donorDensity * donorFraction,
     ionizedAcceptors: doping.acceptorDensity * acceptorFraction,
-    majorityIonizedFraction,
+    lnMajorityFraction,
     regime,
     nearDegenerate: eta < margin3 || epsG - eta < margin3,
   };
+}
+
+/**
+ * @internal The regime rule: `intrinsic` when n_i > |N_D - N_A| (or the sample is exactly
+ * compensated); else `freeze-out` when the majority carrier density is below
+ * `PHYSICS_DEFAULTS.ionizedFractionThreshold` (90 %) of |N_D - N_A|; else `extrinsic`.
+ */
+export function regimeOf(lnIntrinsic: number, net: number, lnMajorityFraction: number): Regime {
+  if (net === 0 || lnIntrinsic > Math.log(net)) return 'intrinsic';
+  if (lnMajorityFraction < LN_FREEZE_OUT_THRESHOLD) return 'freeze-out';
+  return 'extrinsic';
 }
 
 /** Result of `carrierDensities`. */
@@ -143,23 +147,26 @@ export interface CarrierDensities {
  *   n = Nc exp(-(Eg - E_F)/kT), p = Nv exp(-E_F/kT),
  *   N_D^+ = N_D / (1 + 2 exp((E_F - Eg + E_d)/kT)), N_A^- = N_A / (1 + 4 exp((E_a - E_F)/kT))
  * (degeneracy 2 for donors, 4 for acceptors), by Brent's method on ln(p + N_D^+) - ln(n + N_A^-).
- * Regime: `intrinsic` when n_i > |N_D - N_A|; else `freeze-out` when less than 90 % of the majority
- * dopant is ionized; else `extrinsic`.
- * Heavy doping (silicon default, `ionizationModel: 'pearson-bardeen-1949'`): each level falls
- * with density, E(N) = E0 - alpha N^(1/3) with alpha = 3e-8 eV cm (Pearson & Bardeen, Phys. Rev.
- * 75, 865 (1949); alpha from memory) and N = N_D + N_A the total (ionized-impurity) density,
- * clamped at 0: a 45 meV level (P, B) meets the band edge at (E0/alpha)^3 = 3.4e18 cm^-3 (the Mott
- * transition). Because a level at the band edge still holds carriers under Boltzmann statistics
- * (about 20 % of 2e18 boron at 300 K), only a share b of the dopants keeps a bound level:
- *   N_D^+ = N_D [(1 - b) + b / (1 + 2 exp((E_F - Eg + E_d)/kT))], likewise for acceptors, with
- *   b = (1 - u)^2 / ((1 - u)^2 + exp(1 - N_b/N)), u = N / N_merge, N_b = 5e17 cm^-3,
- * Rhotrace's own interpolation (see `PHYSICS_DEFAULTS.boundFractionOnsetDensityCm3`): b = 1 for
- * light doping, 0 at and above the merge density, so ionization becomes complete without a step
- * and 1e18 to 1e19 reads extrinsic at 300 K. At 300 K the resistivity then tracks ASTM F723
- * within 9 % from 1e14 to 1e19 (6 % above 1e17). `ionizationModel: 'constant-level'` turns this
- * off: the tabulated level is kept and a dopant at or above `PHYSICS_DEFAULTS.mottDensityCm3`
- * (3e18 in silicon) is fully ionized (a step at that density); it is the only model for Ge,
- * GaAs and 4H-SiC. Explicit `donorLevel` / `acceptorLevel` values are the isolated levels E0.
+ * Regime (`regimeOf`): `intrinsic` when n_i > |N_D - N_A|; else `freeze-out` when the majority
+ * carrier density is below 90 % of |N_D - N_A| (the ionized fraction of the net doping, so a
+ * compensated sample whose donors are mostly ionized can still be frozen out); else `extrinsic`.
+ * Ionization at any density (`ionizationModel`, default `pearson-bardeen-1949` for every
+ * material): each level falls with density, E(N) = E0 - alpha N^(1/3) (Pearson & Bardeen, Phys.
+ * Rev. 75, 865 (1949); silicon alpha = 3e-8 eV cm, from memory, scaled by eps_Si / eps for the
+ * other materials) with N = N_D + N_A, clamped at 0: a 45 meV level (P, B in Si) meets the band
+ * edge at N_merge = (E0/alpha)^3 = 3.4e18 cm^-3 (the Mott transition). A level at the band edge
+ * still holds carriers under Boltzmann statistics, so a share b of the dopants keeps a bound
+ * level and the rest count as merged with the band:
+ *   N_D^+ = N_D [(1 - b) + b / (1 + 2 exp((E_F - Eg + E_d)/kT))], likewise for acceptors,
+ * with b = 1 up to the onset N_merge 10^-D (D = 1.5 for levels of 45 meV or shallower, more
+ * decades for deeper ones), 0 from N_merge on and a smooth step between (`boundShare`):
+ * ionization becomes complete with no step in doping (rho at 300 K changes by at most 1.31x per
+ * 1.2x in doping for the default dopants), and below the onset every carrier freezes out at low
+ * temperature (Si:P 1e17 at 10 K: n about 1e9). At 300 K the silicon resistivity tracks ASTM
+ * F723 within 9 % from 1e14 to 1e19 (6 % above 1e17). `ionizationModel:
+ * 'constant-level'` keeps the tabulated level and merges at `PHYSICS_DEFAULTS.mottDensityCm3`
+ * with the same smooth share. Explicit `donorLevel` / `acceptorLevel` values are the isolated
+ * levels E0.
  * Assumptions: Boltzmann statistics for the bands (check `nearDegenerate`: within 3 kT of a band
  * edge the densities are overestimated), one donor and one acceptor level, no band-gap narrowing.
  * Source: Sze, Physics of Semiconductor Devices (1981), ch. 1; Blakemore, Semiconductor

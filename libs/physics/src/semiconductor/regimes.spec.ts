@@ -1,9 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Doping } from './dopants';
+import { BOLTZMANN_EV_PER_K } from '../constants';
+import { densityOfStates } from './density-of-states';
 import { intrinsicDensity } from './intrinsic';
 import { carrierDensities } from './neutrality';
-import { regimeBoundaries } from './regimes';
+import { regimeBoundaries, windowLimits } from './regimes';
 
 const d = (donorDensity: number, acceptorDensity = 0): Doping => ({
   donorDensity,
@@ -39,8 +41,17 @@ describe('regimeBoundaries', () => {
       freezeOutBelowK: null,
       intrinsicAboveK: null,
     });
-    // Compensation 95 %: at least 95 % of the donors are always ionized.
-    expect(regimeBoundaries('Si', d(1e16, 9.5e15)).freezeOutBelowK).toBeNull();
+    // Compensation 95 %: the old rule (ionized fraction of the donors, always above 95 %) gave
+    // null; on the net doping (issue 13) n stays below 0.9 (N_D - N_A) until most of the
+    // uncompensated 5e14 donors are ionized, about 120 K (the compensated freeze-out law
+    // n = ((N_D - N_A)/N_A)(Nc/2) exp(-Ed/kT), Sze 1981, from memory).
+    const t = regimeBoundaries('Si', d(1e16, 9.5e15)).freezeOutBelowK!;
+    const [nd, na] = [1e16, 9.5e15];
+    const n = 0.9 * (nd - na);
+    const ed = 0.045 - 3e-8 * Math.cbrt(nd + na); // Pearson & Bardeen 1949 lowering
+    const k = (densityOfStates('Si', t).conduction / 2) * Math.exp(-ed / (BOLTZMANN_EV_PER_K * t));
+    // n (N_A + n) / (N_D - N_A - n) = (Nc/2) exp(-Ed/kT) at the boundary; tolerance 1 %.
+    expect((n * (na + n)) / (nd - na - n) / k).toBeCloseTo(1, 2);
     // Undoped: no dopant to freeze out, intrinsic everywhere.
     expect(regimeBoundaries('Si', d(0))).toEqual({ freezeOutBelowK: null, intrinsicAboveK: null });
   });
@@ -62,10 +73,59 @@ describe('regimeBoundaries', () => {
   });
 });
 
+describe('regime rule on the net doping (issue 13, defect 2)', () => {
+  it('labels compensated silicon frozen out when n is far below N_D - N_A', () => {
+    // Issue 13: Si with N_D 1e15, N_A 9.5e14 at 20 K has n / (N_D - N_A) of about 1e-8; the old
+    // rule (ionized fraction of the donors, over 95 % here) called it extrinsic.
+    const c = carrierDensities('Si', d(1e15, 9.5e14), 20);
+    expect(c.electrons / 5e13).toBeLessThan(1e-6);
+    expect(c.regime).toBe('freeze-out');
+    // The boundary uses the same rule: 20 K lies below it.
+    expect(regimeBoundaries('Si', d(1e15, 9.5e14)).freezeOutBelowK!).toBeGreaterThan(20);
+  });
+
+  it('labels p-type samples on the hole density', () => {
+    const b = regimeBoundaries('Si', d(0, 1e15));
+    expect(carrierDensities('Si', d(0, 1e15), b.freezeOutBelowK! - 0.5).regime).toBe('freeze-out');
+    expect(carrierDensities('Si', d(0, 1e15), b.freezeOutBelowK! + 0.5).regime).toBe('extrinsic');
+  });
+});
+
+describe('windowLimits', () => {
+  it('ends freeze-out at half the net doping and starts intrinsic at n_i = 3 N_net', () => {
+    // Issue 13 definitions; checked against the solver itself and n_i. Tolerances 1e-4.
+    for (const doping of [d(1e15), d(1e16, 2e15), d(0, 3e15)]) {
+      const w = windowLimits('Si', doping);
+      const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
+      const c = carrierDensities('Si', doping, w.freezeOutEndK!);
+      const majority = doping.donorDensity > doping.acceptorDensity ? c.electrons : c.holes;
+      expect(majority / net).toBeCloseTo(0.5, 4);
+      expect(intrinsicDensity('Si', w.intrinsicStartK!) / (3 * net)).toBeCloseTo(1, 4);
+      const b = regimeBoundaries('Si', doping);
+      expect(w.freezeOutEndK!).toBeLessThan(b.freezeOutBelowK!);
+      expect(w.intrinsicStartK!).toBeGreaterThan(b.intrinsicAboveK!);
+    }
+  });
+
+  it('holds its documented example', () => {
+    const w = windowLimits('Si', { donorDensity: 1e15, acceptorDensity: 0, donor: 'P' });
+    expect(w.freezeOutEndK!).toBeCloseTo(62.2, 1);
+    expect(w.intrinsicStartK!).toBeCloseTo(591.3, 1);
+  });
+
+  it('gives null limits for an exactly compensated sample', () => {
+    expect(windowLimits('Si', d(1e15, 1e15))).toEqual({
+      freezeOutEndK: null,
+      intrinsicStartK: null,
+    });
+  });
+});
+
 describe('regimeBoundaries invalid inputs', () => {
   it('rejects bad arguments', () => {
     expect(() => regimeBoundaries('Si', d(-1))).toThrow(/`regimeBoundaries`.*donorDensity/);
     expect(() => regimeBoundaries('Sn' as 'Si', d(1e15))).toThrow(/material/);
     expect(() => regimeBoundaries('Si', undefined as unknown as Doping)).toThrow(TypeError);
+    expect(() => windowLimits('Si', d(-1))).toThrow(/`windowLimits`.*donorDensity/);
   });
 });
