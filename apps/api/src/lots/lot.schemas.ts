@@ -28,6 +28,8 @@ const lotFields = {
   orientation: optionalText(16),
   diameterCm: boundedNumber(0.5, 50, 'cm').nullable(),
   thicknessCm: boundedNumber(1e-7, 1, 'cm').nullable(),
+  /** +/- half-width; read by the uncertainty of the 23 °C values. */
+  thicknessToleranceCm: boundedNumber(0, 0.1, 'cm').nullable(),
   supplier: optionalText(LIMITS.name),
   receivedOn: isoDate.nullable(),
   specMinOhmCm: ohmCm.nullable(),
@@ -49,6 +51,7 @@ export const lotCreateBody = z
     dopantType: lotFields.dopantType.optional().default(null),
     diameterCm: lotFields.diameterCm.optional().default(null),
     thicknessCm: lotFields.thicknessCm.optional().default(null),
+    thicknessToleranceCm: lotFields.thicknessToleranceCm.optional().default(null),
     receivedOn: lotFields.receivedOn.optional().default(null),
     specMinOhmCm: lotFields.specMinOhmCm.optional().default(null),
     specMaxOhmCm: lotFields.specMaxOhmCm.optional().default(null),

@@ -1,0 +1,34 @@
+import type { SpecCheckDto, SpecVerdict } from '@rhotrace/api-types';
+
+/** The verdict as printed: the guard-banded outcome in Rhotrace's words. */
+export const VERDICT_WORDS: Readonly<Record<SpecVerdict, string>> = {
+  pass: 'within spec',
+  fail: 'OUT of spec',
+  indeterminate: 'too close to a limit to decide (within its uncertainty)',
+};
+
+const sig = (v: number) => v.toPrecision(4);
+
+/** The printed lines for the 23 °C value: value ± U (k = 2), method, verdict and the budget. */
+export function specLines(spec: SpecCheckDto): string[] {
+  const limits = `Spec ${spec.specMinOhmCm ?? '–'} to ${spec.specMaxOhmCm ?? '–'} ohm cm`;
+  const rho = spec.resistivityAt23COhmCm;
+  if (rho === null) return [`${limits}; no value at 23 °C: ${spec.reason ?? 'not available'}`];
+  const u =
+    spec.uncertaintyOhmCm === null
+      ? ''
+      : ` ± ${sig(spec.uncertaintyOhmCm)} (k = ${spec.coverageFactor ?? 2})`;
+  const how =
+    spec.method === 'interpolated'
+      ? 'interpolated between steps'
+      : `corrected from a step ${spec.distanceK?.toFixed(2) ?? '?'} K away`;
+  const verdict = spec.verdict ? `; ${VERDICT_WORDS[spec.verdict]}` : '';
+  const lines = [`${limits}; at 23 °C ${sig(rho)}${u} ohm cm, ${how}${verdict}`];
+  for (const b of spec.uncertaintyBudget) {
+    lines.push(
+      `   ${b.source}: ${sig(b.standardUncertaintyOhmCm)} ohm cm ` +
+        `(${(100 * b.relative).toFixed(3)} %, ${b.distribution}) – ${b.note}`,
+    );
+  }
+  return lines;
+}
