@@ -38,12 +38,7 @@ export async function sweepAnalysis(
     steps,
     arrhenius: arrheniusCoordinates(steps),
     suggestedWindows: isMetal(v.lot.material) ? [] : suggestWindows(steps, points),
-    spec: specCheck(
-      assessed.value,
-      assessed.uncertainty,
-      v.lot.specMinOhmCm,
-      v.lot.specMaxOhmCm,
-    ),
+    spec: specCheck(assessed.value, assessed.uncertainty, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
   };
 }
 

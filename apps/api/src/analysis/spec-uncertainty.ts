@@ -103,7 +103,13 @@ function spacingLine(value: number, ctx: BudgetContext): UncertaintyContribution
   if (ctx.method !== 'four-point' || !ctx.geometry?.spacingCm) return null;
   const tol = ctx.station?.probeSpacingToleranceCm ?? null;
   if (tol === null) {
-    return line('probe-spacing', 0, value, 'rectangular', 'Not assessed: no probe spacing tolerance is stated for the station');
+    return line(
+      'probe-spacing',
+      0,
+      value,
+      'rectangular',
+      'Not assessed: no probe spacing tolerance is stated for the station',
+    );
   }
   const c = fourPointSensitivity(ctx.geometry, 'spacingCm') ?? 0;
   const u = rectangularStandardUncertainty(tol) / ctx.geometry.spacingCm;
@@ -122,13 +128,21 @@ function thicknessLine(value: number, ctx: BudgetContext): UncertaintyContributi
   const t = ctx.geometry?.thicknessCm ?? ctx.thicknessCm;
   const tol = ctx.thicknessToleranceCm;
   if (tol === null) {
-    return line('thickness', 0, value, 'rectangular', 'Not assessed: the lot states no thickness tolerance');
+    return line(
+      'thickness',
+      0,
+      value,
+      'rectangular',
+      'Not assessed: the lot states no thickness tolerance',
+    );
   }
   if (!t) {
     return line('thickness', 0, value, 'rectangular', 'Not assessed: no thickness is recorded');
   }
   const c =
-    ctx.method === 'four-point' && ctx.geometry ? (fourPointSensitivity(ctx.geometry, 'thicknessCm') ?? 1) : 1;
+    ctx.method === 'four-point' && ctx.geometry
+      ? (fourPointSensitivity(ctx.geometry, 'thicknessCm') ?? 1)
+      : 1;
   const why =
     ctx.method === 'four-point'
       ? 'd ln ρ / d ln t of the four-point conversion with this geometry'
@@ -147,7 +161,8 @@ function thicknessLine(value: number, ctx: BudgetContext): UncertaintyContributi
 /** The budget and expanded uncertainty (k = 2) of a 23 °C value; empty without a value. */
 export function uncertaintyBudget(v: ValueAt23C, ctx: BudgetContext): ValueUncertainty {
   const value = v.resistivityOhmCm;
-  if (value === null) return { uncertaintyOhmCm: null, coverageFactor: null, uncertaintyBudget: [] };
+  if (value === null)
+    return { uncertaintyOhmCm: null, coverageFactor: null, uncertaintyBudget: [] };
   const budget: UncertaintyContribution[] = [];
   budget.push(
     v.repeatability
@@ -168,12 +183,28 @@ export function uncertaintyBudget(v: ValueAt23C, ctx: BudgetContext): ValueUncer
   );
   budget.push(
     v.correction
-      ? line('temperature-correction', v.correction.relative, value, v.correction.distribution, v.correction.note)
-      : line('temperature-correction', 0, value, 'rectangular', 'Not assessed: no third step near 23 °C to bound the interpolation'),
+      ? line(
+          'temperature-correction',
+          v.correction.relative,
+          value,
+          v.correction.distribution,
+          v.correction.note,
+        )
+      : line(
+          'temperature-correction',
+          0,
+          value,
+          'rectangular',
+          'Not assessed: no third step near 23 °C to bound the interpolation',
+        ),
   );
   const spacing = spacingLine(value, ctx);
   if (spacing) budget.push(spacing);
   budget.push(thicknessLine(value, ctx));
   const uc = combinedStandardUncertainty(budget.map((b) => b.standardUncertaintyOhmCm));
-  return { uncertaintyOhmCm: COVERAGE_FACTOR * uc, coverageFactor: COVERAGE_FACTOR, uncertaintyBudget: budget };
+  return {
+    uncertaintyOhmCm: COVERAGE_FACTOR * uc,
+    coverageFactor: COVERAGE_FACTOR,
+    uncertaintyBudget: budget,
+  };
 }

@@ -164,8 +164,7 @@ export function valueAt23C(
     const third = byDistance.find(
       (x) => x.i !== below && x.i !== above && distance(x.s) <= SLOPE_SPAN_K,
     );
-    const curvature =
-      third && span > 0 ? Math.abs(parabolaLn(a, b, third.s, t0) - ln) : null;
+    const curvature = third && span > 0 ? Math.abs(parabolaLn(a, b, third.s, t0) - ln) : null;
     return {
       resistivityOhmCm: Math.exp(ln),
       method: 'interpolated',

@@ -1,9 +1,4 @@
-import type {
-  AnalysisStep,
-  FitDto,
-  SessionUser,
-  SpecCheckDto,
-} from '@rhotrace/api-types';
+import type { AnalysisStep, FitDto, SessionUser, SpecCheckDto } from '@rhotrace/api-types';
 import { Station } from '../stations/station.model';
 import { averageSteps, sweepReadings, visibleSweep } from '../analysis/sweep-data.service';
 import { specCheck } from '../analysis/spec-check';
