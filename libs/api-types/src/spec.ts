@@ -51,3 +51,17 @@ export interface LotCapability {
   note: string | null;
   indeterminateCount: number;
 }
+
+/** Rhotrace's words for each verdict, shared by the web pages and the printed reports. */
+export const SPEC_VERDICT_WORDS: Readonly<Record<SpecVerdict, string>> = {
+  pass: 'meets spec',
+  fail: 'misses spec',
+  indeterminate: 'too close to call',
+};
+
+/** One sentence on what each verdict means (guard band = expanded uncertainty, k = 2). */
+export const SPEC_VERDICT_MEANINGS: Readonly<Record<SpecVerdict, string>> = {
+  pass: 'The whole interval value ± U lies inside the spec limits.',
+  fail: 'The whole interval value ± U lies outside a spec limit.',
+  indeterminate: 'A spec limit lies within value ± U: the measurement cannot decide.',
+};

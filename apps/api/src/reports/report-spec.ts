@@ -1,11 +1,4 @@
-import type { SpecCheckDto, SpecVerdict } from '@rhotrace/api-types';
-
-/** The verdict as printed: the guard-banded outcome in Rhotrace's words. */
-export const VERDICT_WORDS: Readonly<Record<SpecVerdict, string>> = {
-  pass: 'within spec',
-  fail: 'OUT of spec',
-  indeterminate: 'too close to a limit to decide (within its uncertainty)',
-};
+import { SPEC_VERDICT_MEANINGS, SPEC_VERDICT_WORDS, type SpecCheckDto } from '@rhotrace/api-types';
 
 const sig = (v: number) => v.toPrecision(4);
 
@@ -22,7 +15,9 @@ export function specLines(spec: SpecCheckDto): string[] {
     spec.method === 'interpolated'
       ? 'interpolated between steps'
       : `corrected from a step ${spec.distanceK?.toFixed(2) ?? '?'} K away`;
-  const verdict = spec.verdict ? `; ${VERDICT_WORDS[spec.verdict]}` : '';
+  const verdict = spec.verdict
+    ? `; ${SPEC_VERDICT_WORDS[spec.verdict]} (${SPEC_VERDICT_MEANINGS[spec.verdict]})`
+    : '';
   const lines = [`${limits}; at 23 °C ${sig(rho)}${u} ohm cm, ${how}${verdict}`];
   for (const b of spec.uncertaintyBudget) {
     lines.push(
