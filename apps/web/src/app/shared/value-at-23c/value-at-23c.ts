@@ -50,7 +50,6 @@ export function methodWords(reading: Pick<ValueAt23CReading, 'method' | 'distanc
 export class ValueAt23C {
   readonly reading = input.required<ValueAt23CReading>();
   protected readonly columns = ['source', 'u', 'relative', 'distribution', 'note'];
-  protected readonly sourceWords = SOURCE_WORDS;
   protected readonly how = computed(() => methodWords(this.reading()));
   protected readonly relativeU = computed(() => {
     const r = this.reading();
@@ -58,6 +57,10 @@ export class ValueAt23C {
       ? (100 * r.uncertaintyOhmCm) / r.resistivityAt23COhmCm
       : null;
   });
+
+  protected sourceLabel(line: UncertaintyContribution): string {
+    return SOURCE_WORDS[line.source];
+  }
 
   protected assessed(line: UncertaintyContribution): boolean {
     return !line.note.startsWith('Not assessed');
