@@ -1,6 +1,8 @@
 import { SPEC_VERDICT_MEANINGS, SPEC_VERDICT_WORDS, type SpecCheckDto } from '@rhotrace/api-types';
 
 const sig = (v: number) => v.toPrecision(4);
+/** Uncertainties with two significant digits (GUM 7.2.6). */
+const sig2 = (v: number) => v.toPrecision(2);
 
 /** The printed lines for the 23 °C value: value ± U (k = 2), method, verdict and the budget. */
 export function specLines(spec: SpecCheckDto): string[] {
@@ -10,7 +12,7 @@ export function specLines(spec: SpecCheckDto): string[] {
   const u =
     spec.uncertaintyOhmCm === null
       ? ''
-      : ` ± ${sig(spec.uncertaintyOhmCm)} (k = ${spec.coverageFactor ?? 2})`;
+      : ` ± ${sig2(spec.uncertaintyOhmCm)} (k = ${spec.coverageFactor ?? 2})`;
   const how =
     spec.method === 'interpolated'
       ? 'interpolated between steps'
@@ -21,7 +23,7 @@ export function specLines(spec: SpecCheckDto): string[] {
   const lines = [`${limits}; at 23 °C ${sig(rho)}${u} ohm cm, ${how}${verdict}`];
   for (const b of spec.uncertaintyBudget) {
     lines.push(
-      `   ${b.source}: ${sig(b.standardUncertaintyOhmCm)} ohm cm ` +
+      `   ${b.source}: ${sig2(b.standardUncertaintyOhmCm)} ohm cm ` +
         `(${(100 * b.relative).toFixed(3)} %, ${b.distribution}) – ${b.note}`,
     );
   }
