@@ -1,4 +1,5 @@
 import type { AnalysisStep } from '@rhotrace/api-types';
+import { seededNormal, seededRandom } from '@rhotrace/physics';
 import { describe, expect, it } from 'vitest';
 import { specCheck } from './spec-check';
 import { uncertaintyBudget, type BudgetContext } from './spec-uncertainty';
@@ -24,6 +25,8 @@ function steps(
     count,
   }));
 }
+
+const range31 = Array.from({ length: 31 }, (_, i) => 281.15 + i);
 
 const noRecords: BudgetContext = {
   method: 'resistivity',
@@ -140,6 +143,22 @@ describe('the uncertainty budget (JCGM 100:2008) and the guard-banded verdict (J
     const rss = Math.hypot(...u.uncertaintyBudget.map((b) => b.standardUncertaintyOhmCm));
     expect(u.coverageFactor).toBe(2);
     expect(u.uncertaintyOhmCm).toBeCloseTo(2 * rss, 12);
+  });
+
+  it('estimates the scatter of single-reading steps from their spread about the local line', () => {
+    // 31 single readings 1 K apart with 0.3 % Gaussian noise (seeded): the residual standard
+    // deviation about a straight line in ln rho estimates 0.3 % to about 13 % (chi-square, 29 dof).
+    const normal = seededNormal(seededRandom(7));
+    const noisy = range31.map((t) => ({
+      temperatureK: t,
+      resistivityOhmCm: exponential(t) * (1 + 0.003 * normal()),
+      spreadOhmCm: 0,
+      count: 1,
+    }));
+    const v = valueAt23C(noisy);
+    expect(v.repeatability!.note).toMatch(/^Single readings per step/);
+    expect(v.repeatability!.relative).toBeGreaterThan(0.002);
+    expect(v.repeatability!.relative).toBeLessThan(0.004);
   });
 
   it('marks unstated tolerances as not assessed rather than inventing them', () => {

@@ -56,8 +56,14 @@ const noValue = (reason: string, distanceK: number | null): ValueAt23C => ({
   correction: null,
 });
 
-/** Relative standard uncertainty of each step's mean; pooled where a step has one reading. */
-function stepRelativeUncertainties(steps: readonly AnalysisStep[]): Array<number | null> {
+/**
+ * Relative standard uncertainty of each step's mean: its own scatter, else the within-step
+ * scatter pooled over the sweep, else `fallbackSd` (the relative scatter of single readings).
+ */
+function stepRelativeUncertainties(
+  steps: readonly AnalysisStep[],
+  fallbackSd: number | null,
+): { u: Array<number | null>; source: 'within' | 'line' | null } {
   let sum = 0;
   let dof = 0;
   for (const s of steps) {
@@ -66,15 +72,23 @@ function stepRelativeUncertainties(steps: readonly AnalysisStep[]): Array<number
       dof += s.count - 1;
     }
   }
-  const pooled = dof > 0 ? Math.sqrt(sum / dof) : null;
-  return steps.map((s) => {
-    const sd = s.count > 1 ? s.spreadOhmCm / s.resistivityOhmCm : pooled;
-    return sd === null ? null : sd / Math.sqrt(s.count);
-  });
+  const pooled = dof > 0 ? Math.sqrt(sum / dof) : fallbackSd;
+  return {
+    u: steps.map((s) => {
+      const sd = s.count > 1 ? s.spreadOhmCm / s.resistivityOhmCm : pooled;
+      return sd === null ? null : sd / Math.sqrt(s.count);
+    }),
+    source: dof > 0 ? 'within' : pooled === null ? null : 'line',
+  };
 }
 
 /** Least squares of ln(rho) against T: slope and its standard error (null below 3 points). */
-function logSlope(steps: readonly AnalysisStep[]): { slope: number; se: number | null } {
+function logSlope(steps: readonly AnalysisStep[]): {
+  slope: number;
+  se: number | null;
+  /** Standard deviation of ln(rho) about the line (null below 3 points). */
+  residualSd: number | null;
+} {
   const n = steps.length;
   const xs = steps.map((s) => s.temperatureK);
   const ys = steps.map((s) => Math.log(s.resistivityOhmCm));
@@ -87,10 +101,10 @@ function logSlope(steps: readonly AnalysisStep[]): { slope: number; se: number |
     sxy += (xs[i]! - mx) * (ys[i]! - my);
   }
   const slope = sxy / sxx;
-  if (n < 3) return { slope, se: null };
+  if (n < 3) return { slope, se: null, residualSd: null };
   let sse = 0;
   for (let i = 0; i < n; i++) sse += (ys[i]! - my - slope * (xs[i]! - mx)) ** 2;
-  return { slope, se: Math.sqrt(sse / (n - 2) / sxx) };
+  return { slope, se: Math.sqrt(sse / (n - 2) / sxx), residualSd: Math.sqrt(sse / (n - 2)) };
 }
 
 /** ln(rho) at T on the parabola through three steps (Lagrange form). */
@@ -139,14 +153,17 @@ export function valueAt23C(
       distanceK,
     );
   }
-  const uSteps = stepRelativeUncertainties(steps);
   const local = steps.filter((s) => distance(s) <= SLOPE_SPAN_K);
   const fit = local.length >= 2 ? logSlope(local) : null;
+  const { u: uSteps, source } = stepRelativeUncertainties(steps, fit?.residualSd ?? null);
   const repeatabilityNote = (u: number | null) =>
     u === null
       ? null
-      : 'Scatter of the readings within the step(s) used (standard error of the mean; pooled ' +
-        'over the sweep where a step has one reading)';
+      : source === 'within'
+        ? 'Scatter of the readings within the step(s) used (standard error of the mean; ' +
+          'pooled over the sweep where a step has one reading)'
+        : `Single readings per step: their scatter about a straight line in ln ρ against T ` +
+          `over the ${local.length} steps within ${SLOPE_SPAN_K} K of 23 °C`;
 
   let below = -1;
   for (let i = 0; i < steps.length; i++) if (steps[i]!.temperatureK <= t0) below = i;
