@@ -41,6 +41,12 @@ describe('tolerances on lots and stations', () => {
       .send({ thicknessToleranceCm: -1 });
     expect(bad.status).toBe(400);
     expect(JSON.stringify(bad.body)).toMatch(/thicknessToleranceCm/);
+    const wider = await request(ctx.app)
+      .patch(`/api/lots/${lot.body.id}`)
+      .set(ctx.auth('engineer'))
+      .send({ thicknessCm: 0.002, thicknessToleranceCm: 0.002 });
+    expect(wider.status).toBe(400);
+    expect(JSON.stringify(wider.body)).toMatch(/must be smaller than thicknessCm/);
 
     const station = await request(ctx.app)
       .post('/api/stations')

@@ -40,6 +40,13 @@ const lotFields = {
 const metals: readonly string[] = METAL_FILMS;
 const semiconductorOnly = (lot: { material?: string; dopantType?: string | null }) =>
   !(lot.material && metals.includes(lot.material) && lot.dopantType);
+const toleranceBelowThickness = (lot: {
+  thicknessCm?: number | null;
+  thicknessToleranceCm?: number | null;
+}) =>
+  lot.thicknessCm == null ||
+  lot.thicknessToleranceCm == null ||
+  lot.thicknessToleranceCm < lot.thicknessCm;
 const specOrdered = (lot: { specMinOhmCm?: number | null; specMaxOhmCm?: number | null }) =>
   lot.specMinOhmCm == null || lot.specMaxOhmCm == null || lot.specMinOhmCm <= lot.specMaxOhmCm;
 
@@ -59,6 +66,10 @@ export const lotCreateBody = z
   .strict()
   .refine(specOrdered, { path: ['specMinOhmCm'], message: 'must not exceed specMaxOhmCm' })
   .refine(semiconductorOnly, { path: ['dopantType'], message: 'applies to semiconductors only' })
+  .refine(toleranceBelowThickness, {
+    path: ['thicknessToleranceCm'],
+    message: 'must be smaller than thicknessCm',
+  })
   .transform((lot) => ({
     ...lot,
     orientation: lot.orientation ?? null,
@@ -72,7 +83,11 @@ export const lotUpdateBody = z
   .partial()
   .strict()
   .refine(specOrdered, { path: ['specMinOhmCm'], message: 'must not exceed specMaxOhmCm' })
-  .refine(semiconductorOnly, { path: ['dopantType'], message: 'applies to semiconductors only' });
+  .refine(semiconductorOnly, { path: ['dopantType'], message: 'applies to semiconductors only' })
+  .refine(toleranceBelowThickness, {
+    path: ['thicknessToleranceCm'],
+    message: 'must be smaller than thicknessCm',
+  });
 
 /** `GET /api/lots` query. */
 export const lotListQuery = listQuerySchema(LOT_SORT_FIELDS, {
