@@ -9,7 +9,12 @@ import type { Wafer } from '../wafers/wafer.model';
 import { lotModel } from './lot-model';
 import { uncertaintyBudget } from './spec-uncertainty';
 import { averageSteps, sweepReadings } from './sweep-data.service';
-import { SPEC_TEMPERATURE_K, valueAt23C, type ValueAt23C } from './value-at-23c';
+import {
+  SPEC_TEMPERATURE_K,
+  valueAt23C,
+  type ModelResistivity,
+  type ValueAt23C,
+} from './value-at-23c';
 
 /** A 23 °C value and its uncertainty. */
 export interface Assessment {
@@ -34,7 +39,14 @@ export async function assessSweep(
     (a, b) =>
       Math.abs(a.temperatureK - SPEC_TEMPERATURE_K) - Math.abs(b.temperatureK - SPEC_TEMPERATURE_K),
   )[0];
-  const model = nearest ? lotModel(lot, nearest.temperatureK, nearest.resistivityOhmCm) : null;
+  // Built only when a single step needs it: anchoring the model is a root search.
+  let built: ModelResistivity | null | undefined;
+  const model: ModelResistivity = (t) => {
+    if (built === undefined) {
+      built = nearest ? lotModel(lot, nearest.temperatureK, nearest.resistivityOhmCm) : null;
+    }
+    return built ? built(t) : null;
+  };
   const value = valueAt23C(steps, model);
   if (value.resistivityOhmCm === null) return { value, uncertainty: NO_UNCERTAINTY };
   // A station deleted since still describes the sweeps it measured.
