@@ -86,7 +86,7 @@ describe('GET /api/lots/:id/summary', () => {
     expect(c.ppk).toBeCloseTo(2.10819, 5);
     expect(c.ppkLower95).toBeCloseTo(0.8579, 4);
     expect(c.ppkReason).toBeNull();
-    expect(c.note).toMatch(/Only 5 wafers \(fewer than 25\)/);
+    expect(c.note).toMatch(/Only 5 wafers with a value at 23 °C \(fewer than 25\)/);
     expect(c.indeterminateCount).toBe(1);
     expect(lotCapability(rows.slice(0, 4), 9, 11).ppkReason).toMatch(/at least 5 wafers/);
   });

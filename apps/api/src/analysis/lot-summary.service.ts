@@ -30,12 +30,12 @@ export function lotCapability(
   const values = rows.flatMap((r) =>
     r.resistivityAt23COhmCm === null ? [] : [r.resistivityAt23COhmCm],
   );
-  const p = processPerformance(values, lsl, usl);
+  const p = processPerformance(values, lsl, usl, 'wafers with a value at 23 °C');
   return {
     ppk: p.ppk,
     ppkLower95: p.ppkLower95,
-    ppkReason: p.reason && p.reason.replace('values', 'wafers with a value at 23 °C'),
-    note: p.note && p.note.replace('values', 'wafers'),
+    ppkReason: p.reason,
+    note: p.note,
     indeterminateCount: rows.filter((r) => r.verdict === 'indeterminate').length,
   };
 }

@@ -151,7 +151,7 @@ describe('the 23 °C value with its budget through the API', () => {
     const ppk = Math.min(15 - m, m - 8) / (3 * s);
     expect(st.ppk).toBeCloseTo(ppk, 6);
     expect(st.ppkLower95).toBeCloseTo(bissellLowerBound(ppk, 8), 6);
-    expect(st.note).toMatch(/Only 8 wafers \(fewer than 25\)/);
+    expect(st.note).toMatch(/Only 8 wafers with a value at 23 °C \(fewer than 25\)/);
 
     const dopant = await request(ctx.app)
       .get(`/api/wafers/${wafers[7]!.id}/dopant`)

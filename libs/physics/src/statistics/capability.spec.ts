@@ -31,7 +31,10 @@ describe('processPerformance', () => {
     expect(r.standardDeviation).toBeCloseTo(0.158114, 6);
     expect(r.ppk).toBeCloseTo(2.10819, 5);
     expect(r.ppkLower95).toBeCloseTo(bissellLowerBound(r.ppk!, 5), 12);
-    expect(r.note).toMatch(/fewer than 25/);
+    expect(r.note).toMatch(/^Only 5 values \(fewer than 25\)/);
+    expect(processPerformance([9.8, 10.1, 10.0, 9.9], 9, 11, 'wafers').reason).toBe(
+      'Ppk needs at least 5 wafers; there are 4',
+    );
   });
 
   it('takes the nearer limit, and one side when only one limit is set', () => {

@@ -65,6 +65,7 @@ export interface ProcessPerformance {
  * @param values the measured values (finite)
  * @param lsl lower specification limit or null
  * @param usl upper specification limit or null
+ * @param what how the reason and note name the values (default 'values'), e.g. 'wafers'
  * @returns n, mean, s, ppk, ppkLower95, reason, note
  * @example processPerformance([9.8, 10.1, 10.0, 9.9, 10.2], 9, 11).ppk // 2.108
  */
@@ -72,6 +73,7 @@ export function processPerformance(
   values: readonly number[],
   lsl: number | null,
   usl: number | null,
+  what = 'values',
 ): ProcessPerformance {
   const fn = 'processPerformance';
   const list = requireArray(fn, 'values', values).map((v, i) =>
@@ -99,7 +101,7 @@ export function processPerformance(
   });
   if (low === null && high === null) return none('There are no specification limits');
   if (n < MIN_PPK_SAMPLE) {
-    return none(`Ppk needs at least ${MIN_PPK_SAMPLE} values; there are ${n}`);
+    return none(`Ppk needs at least ${MIN_PPK_SAMPLE} ${what}; there are ${n}`);
   }
   if (sd === null || mean === null || sd === 0) {
     return none('All values are equal; the standard deviation is 0');
@@ -117,7 +119,7 @@ export function processPerformance(
     reason: null,
     note:
       n < SMALL_PPK_SAMPLE
-        ? `Only ${n} values (fewer than ${SMALL_PPK_SAMPLE}): Ppk is uncertain; read its lower bound`
+        ? `Only ${n} ${what} (fewer than ${SMALL_PPK_SAMPLE}): Ppk is uncertain; read its lower bound`
         : null,
   };
 }

@@ -147,7 +147,7 @@ describe('LotDetail', () => {
         ppk: 1.33,
         ppkLower95: 0.786,
         ppkReason: null,
-        note: 'Only 10 wafers (fewer than 25): Ppk is uncertain; read its lower bound',
+        note: 'Only 10 wafers with a value at 23 °C (fewer than 25): Ppk is uncertain; read its lower bound',
       },
     });
     expect(text()).toContain('1.33');
