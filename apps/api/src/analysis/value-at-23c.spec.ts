@@ -118,6 +118,21 @@ describe('the uncertainty budget (JCGM 100:2008) and the guard-banded verdict (J
     );
   });
 
+  it('assumes IEC 60584-1 class 2 for a thermocouple with no stated tolerance', () => {
+    // Class 2 for types K, N and J: +/- max(2.5 °C, 0.0075 |t|) (IEC 60584-1, from memory).
+    const tc = uncertaintyBudget(value, {
+      ...ctx,
+      station: { ...ctx.station!, thermometer: 'thermocouple' },
+    }).uncertaintyBudget.find((b) => b.source === 'temperature-sensor')!;
+    expect(tc.relative).toBeCloseTo((SLOPE_PER_K * 2.5) / Math.sqrt(3), 6);
+    expect(tc.note).toMatch(/IEC 60584-1 class 2 assumed/);
+    const stated = uncertaintyBudget(value, {
+      ...ctx,
+      station: { ...ctx.station!, temperatureToleranceK: 0.1 },
+    }).uncertaintyBudget.find((b) => b.source === 'temperature-sensor')!;
+    expect(stated.relative).toBeCloseTo((SLOPE_PER_K * 0.1) / Math.sqrt(3), 6);
+  });
+
   it('gives repeatability as the standard error of the step means', () => {
     // Interpolation weight 0.5 on each step; each mean has 0.2 % / sqrt(20).
     expect(line('repeatability').relative).toBeCloseTo(
