@@ -79,7 +79,14 @@ function fourPointSensitivity(geometry: SweepGeometry, which: 'spacingCm' | 'thi
       thicknessCm: which === 'thicknessCm' ? t * scale : t,
       ...(geometry.diameterCm !== undefined ? { diameterCm: geometry.diameterCm } : {}),
     }).resistivityOhmCm;
-  return (Math.log(at(1 + h)) - Math.log(at(1 - h))) / (2 * h);
+  try {
+    return (Math.log(at(1 + h)) - Math.log(at(1 - h))) / (2 * h);
+  } catch (error) {
+    // At the edge of the conversion's range (a diameter of just 3 spacings) step inwards only.
+    if (!(error instanceof RangeError)) throw error;
+    const inward = which === 'spacingCm' ? 1 - h : 1 + h;
+    return (Math.log(at(inward)) - Math.log(at(1))) / (inward - 1);
+  }
 }
 
 const line = (

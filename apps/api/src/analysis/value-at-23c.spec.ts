@@ -154,6 +154,17 @@ describe('the uncertainty budget (JCGM 100:2008) and the guard-banded verdict (J
     expect(cs + ct).toBeCloseTo(1, 6);
   });
 
+  it('evaluates the sensitivities at the edge of the four-point range without failing', () => {
+    // A diameter of exactly 3 spacings is the smallest the conversion takes (Smits 1958 slice).
+    const edge = uncertaintyBudget(value, {
+      ...ctx,
+      geometry: { spacingCm: 0.1, thicknessCm: 0.05, diameterCm: 0.3, sources: {} },
+    });
+    const spacing = edge.uncertaintyBudget.find((b) => b.source === 'probe-spacing')!;
+    expect(Number.isFinite(spacing.relative)).toBe(true);
+    expect(spacing.relative).toBeGreaterThan(0);
+  });
+
   it('combines the lines by root sum of squares and expands with k = 2', () => {
     const rss = Math.hypot(...u.uncertaintyBudget.map((b) => b.standardUncertaintyOhmCm));
     expect(u.coverageFactor).toBe(2);
