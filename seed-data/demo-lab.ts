@@ -27,6 +27,9 @@ export const DEMO_STATIONS: Array<{
   minTemperatureK: number;
   maxTemperatureK: number;
   calibratedOn: string;
+  /** +/- half-widths the 23 °C uncertainty budget reads (null: not stated). */
+  probeSpacingToleranceCm: number | null;
+  temperatureToleranceK: number | null;
   notes: string;
 }> = [
   {
@@ -38,6 +41,8 @@ export const DEMO_STATIONS: Array<{
     minTemperatureK: 20,
     maxTemperatureK: 500,
     calibratedOn: '2026-09-14',
+    probeSpacingToleranceCm: 0.0005,
+    temperatureToleranceK: null,
     notes: 'Closed-cycle helium cryostat with a Pt100 under the sample; liquid-nitrogen pre-cool.',
   },
   {
@@ -49,6 +54,8 @@ export const DEMO_STATIONS: Array<{
     minTemperatureK: 290,
     maxTemperatureK: 720,
     calibratedOn: '2026-06-02',
+    probeSpacingToleranceCm: null,
+    temperatureToleranceK: null,
     notes: 'Type K thermocouple in the chuck; ramps to 450 °C.',
   },
 ];
@@ -68,6 +75,8 @@ export const DEMO_LOTS: Array<{
   orientation: string | null;
   diameterCm: number;
   thicknessCm: number;
+  /** +/- supplier thickness tolerance, cm; absent when the supplier states none. */
+  thicknessToleranceCm?: number;
   supplier: string;
   receivedOn: string;
   specMinOhmCm: number | null;
@@ -83,6 +92,7 @@ export const DEMO_LOTS: Array<{
     orientation: '(100)',
     diameterCm: 10,
     thicknessCm: 0.0525,
+    thicknessToleranceCm: 0.0025,
     supplier: 'Quarrystone Crystal Works (fictional)',
     receivedOn: '2026-10-06',
     specMinOhmCm: 8,

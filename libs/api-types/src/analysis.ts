@@ -2,6 +2,7 @@
  * Analysis API shapes: model curves, materials, sweep analysis, fits, dopant density, lot
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
+import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
 export type RegimeName = 'freeze-out' | 'extrinsic' | 'intrinsic';
@@ -172,13 +173,15 @@ export interface SuggestedWindow {
 }
 
 /** Resistivity at 23 °C from a sweep and the spec check against the lot. */
-export interface SpecCheckDto {
+export interface SpecCheckDto extends ValueUncertainty {
   resistivityAt23COhmCm: number | null;
-  /** null when the lot has no spec limits or no value at 23 °C is available. */
+  /** `verdict === 'pass'`; null when there is no verdict. */
   inSpec: boolean | null;
+  /** Guard-banded; null when the lot has no spec limits or there is no value at 23 °C. */
+  verdict: SpecVerdict | null;
   specMinOhmCm: number | null;
   specMaxOhmCm: number | null;
-  method: 'interpolated' | 'nearest' | null;
+  method: ValueAt23CMethod | null;
   /** Distance from 296.15 K of the nearest step used, K. */
   distanceK: number | null;
   /** Why there is no value or no verdict, when there is none. */
@@ -195,30 +198,36 @@ export interface SweepAnalysisResponse {
 }
 
 /** `GET /api/wafers/:id/dopant` answer. */
-export interface DopantDensityResponse {
+export interface DopantDensityResponse extends ValueUncertainty {
   waferId: number;
   resistivityAt23COhmCm: number;
   dopant: string | null;
   dopantDensityCm3: number | null;
-  /** How the numbers were obtained (standard, sweep, interpolation or nearest point). */
+  /** How the numbers were obtained (standard, sweep, interpolation or correction). */
   source: string;
   sweepId: number;
-  method: 'interpolated' | 'nearest';
+  method: ValueAt23CMethod;
   distanceK: number;
+  /** `verdict === 'pass'`; null when there is no verdict. */
   inSpec: boolean | null;
+  verdict: SpecVerdict | null;
+  specMinOhmCm: number | null;
+  specMaxOhmCm: number | null;
   /** Why dopantDensityCm3 or inSpec is null, when one is. */
   reason: string | null;
 }
 
 /** One wafer row of a lot summary. */
-export interface LotSummaryWafer {
+export interface LotSummaryWafer extends ValueUncertainty {
   waferId: number;
   number: string;
   sweepId: number | null;
   resistivityAt23COhmCm: number | null;
-  method: 'interpolated' | 'nearest' | null;
+  method: ValueAt23CMethod | null;
   distanceK: number | null;
+  /** `verdict === 'pass'`; null when there is no verdict. */
   pass: boolean | null;
+  verdict: SpecVerdict | null;
   reason: string | null;
   activationEnergies: Array<{
     fitId: number;
@@ -242,7 +251,7 @@ export interface LotSummaryResponse {
     specMaxOhmCm: number | null;
   };
   wafers: LotSummaryWafer[];
-  statistics: {
+  statistics: LotCapability & {
     count: number;
     passCount: number;
     failCount: number;
@@ -250,6 +259,7 @@ export interface LotSummaryResponse {
     stdDevOhmCm: number | null;
     minOhmCm: number | null;
     maxOhmCm: number | null;
+    /** Always null: within-wafer repeatability is not measured (see `cpkReason`); use `ppk`. */
     cpk: number | null;
     cpkReason: string | null;
   };

@@ -14,5 +14,6 @@ export type {
   FitRequest,
   FitRequestOptions,
 } from './fits';
+export * from './spec';
 export * from './sweeps';
 export * from './activity';

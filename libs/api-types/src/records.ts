@@ -31,6 +31,8 @@ export interface LotDto {
   orientation: string | null;
   diameterCm: number | null;
   thicknessCm: number | null;
+  /** +/- thickness tolerance (half-width of a rectangular distribution), cm. */
+  thicknessToleranceCm: number | null;
   supplier: string | null;
   receivedOn: string | null;
   specMinOhmCm: number | null;
@@ -65,6 +67,10 @@ export interface StationDto {
   minTemperatureK: number;
   maxTemperatureK: number;
   calibratedOn: string | null;
+  /** +/- probe spacing tolerance (half-width), cm; null or absent when not stated. */
+  probeSpacingToleranceCm?: number | null;
+  /** +/- thermometer tolerance (half-width), K; null or absent: the sensor class is assumed. */
+  temperatureToleranceK?: number | null;
   notes: string | null;
   createdAt: string;
   updatedAt: string;

@@ -93,6 +93,25 @@ export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit'
 export { fitLinearTcr } from './fit/tcr';
 export type { LinearTcrFit, TcrParameter } from './fit/tcr';
 export { studentTCritical } from './numeric/student-t';
+
+export {
+  COVERAGE_FACTOR,
+  combinedStandardUncertainty,
+  IEC_60751_TOLERANCE,
+  iec60751Tolerance,
+  rectangularStandardUncertainty,
+} from './uncertainty/gum';
+export type { Iec60751Class } from './uncertainty/gum';
+export { guardBandedVerdict } from './uncertainty/conformity';
+export type { ConformityVerdict } from './uncertainty/conformity';
+export {
+  bissellLowerBound,
+  MIN_PPK_SAMPLE,
+  processPerformance,
+  SMALL_PPK_SAMPLE,
+  Z_ONE_SIDED_95,
+} from './statistics/capability';
+export type { ProcessPerformance } from './statistics/capability';
 export { seededNormal, seededRandom } from './numeric/prng';
 
 export {

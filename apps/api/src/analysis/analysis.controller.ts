@@ -93,9 +93,10 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
     w.resistivityAt23COhmCm,
     w.method,
     w.distanceK,
-    w.pass === null ? '' : w.pass ? 'pass' : 'fail',
+    w.verdict ?? '',
     w.activationEnergies.map((a) => `${a.activationEnergyEv.toPrecision(4)} eV`).join('; '),
     w.reason,
+    w.uncertaintyOhmCm,
   ]);
   const st = s.statistics;
   rows.push(
@@ -103,6 +104,8 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
     ['statistics', 'std dev', null, st.stdDevOhmCm, null, null, null, null, null],
     ['statistics', 'min', null, st.minOhmCm, null, null, null, null, null],
     ['statistics', 'max', null, st.maxOhmCm, null, null, null, null, null],
+    ['statistics', 'Ppk', null, st.ppk, null, null, null, null, st.ppkReason ?? st.note],
+    ['statistics', 'Ppk lower 95 %', null, st.ppkLower95, null, null, null, null, 'Bissell 1990'],
     ['statistics', 'Cpk', null, st.cpk, null, null, null, null, st.cpkReason],
   );
   const csv = toCsv(
@@ -116,6 +119,7 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
       'spec',
       'activation_energies',
       'note',
+      'expanded_uncertainty_k2_ohm_cm',
     ],
     rows,
   );

@@ -8,16 +8,10 @@ import type {
 } from '@rhotrace/api-types';
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
 import { notFound, unprocessable } from '../errors';
-import { Sweep } from '../sweeps/sweep.model';
 import { visibleWafer } from '../wafers/wafer-access.service';
 import { temperatureGrid, isMetal } from './model.service';
-import {
-  interpolateWithin,
-  specCheck,
-  specVerdict,
-  valueAt23C,
-  type ValueAt23C,
-} from './spec-check';
+import { interpolateWithin, specCheck, specVerdict } from './spec-check';
+import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
 import { averageSteps, sweepReadings, sweepSummary, visibleSweep } from './sweep-data.service';
 
@@ -38,6 +32,7 @@ export async function sweepAnalysis(
   const v = await visibleSweep(user, sweepId);
   const { points, skipped } = await sweepReadings(v.sweep);
   const steps = averageSteps(points);
+  const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   return {
     sweep: sweepSummary(v, skipped),
     steps,
@@ -49,38 +44,7 @@ export async function sweepAnalysis(
           dopant: v.lot.dopant,
           dopantType: v.lot.dopantType,
         }),
-    spec: specCheck(steps, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
-  };
-}
-
-/** A wafer's newest sweep that gives a value at 23 °C, or the reason none does. */
-export async function waferValueAt23C(
-  waferId: number,
-): Promise<{ sweepId: number | null; value: ValueAt23C; sweepCount: number }> {
-  const sweeps = await Sweep.findAll({
-    where: { waferId },
-    order: [
-      ['createdAt', 'DESC'],
-      ['id', 'DESC'],
-    ],
-  });
-  let firstMiss: ValueAt23C | null = null;
-  for (const sweep of sweeps) {
-    const { points } = await sweepReadings(sweep);
-    const value = valueAt23C(averageSteps(points));
-    if (value.resistivityOhmCm !== null)
-      return { sweepId: sweep.id, value, sweepCount: sweeps.length };
-    firstMiss ??= value;
-  }
-  return {
-    sweepId: null,
-    value: firstMiss ?? {
-      resistivityOhmCm: null,
-      method: null,
-      distanceK: null,
-      reason: 'The wafer has no sweep',
-    },
-    sweepCount: sweeps.length,
+    spec: specCheck(assessed.value, assessed.uncertainty, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
   };
 }
 
@@ -98,7 +62,7 @@ export async function waferDopant(
   waferId: number,
 ): Promise<DopantDensityResponse> {
   const { wafer, lot } = await visibleWafer(user, waferId);
-  const found = await waferValueAt23C(wafer.id);
+  const found = await waferAssessment(wafer, lot);
   if (found.sweepCount === 0) throw notFound(`A sweep of wafer ${wafer.number}`);
   const rho = found.value.resistivityOhmCm;
   if (found.sweepId === null || rho === null || found.value.method === null) {
@@ -109,8 +73,13 @@ export async function waferDopant(
   const where =
     found.value.method === 'interpolated'
       ? `interpolated at 23 °C (nearest step ${found.value.distanceK!.toFixed(2)} K away)`
-      : `nearest step, ${found.value.distanceK!.toFixed(2)} K from 23 °C`;
-  const verdict = specVerdict(rho, lot.specMinOhmCm, lot.specMaxOhmCm);
+      : `corrected to 23 °C from a step ${found.value.distanceK!.toFixed(2)} K away`;
+  const verdict = specVerdict(
+    rho,
+    found.uncertainty.uncertaintyOhmCm,
+    lot.specMinOhmCm,
+    lot.specMaxOhmCm,
+  );
   const base = {
     waferId: wafer.id,
     resistivityAt23COhmCm: rho,
@@ -118,7 +87,11 @@ export async function waferDopant(
     sweepId: found.sweepId,
     method: found.value.method,
     distanceK: found.value.distanceK!,
-    inSpec: verdict.inSpec,
+    inSpec: verdict.verdict === null ? null : verdict.verdict === 'pass',
+    verdict: verdict.verdict,
+    specMinOhmCm: lot.specMinOhmCm,
+    specMaxOhmCm: lot.specMaxOhmCm,
+    ...found.uncertainty,
   };
   if (lot.material !== 'Si') {
     return {

@@ -1,7 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestContext, type TestContext } from '../testing/test-context';
-import { processCapability } from './lot-summary.service';
+import { CPK_REASON, lotCapability } from './lot-summary.service';
 import { makeLot, makeSweep, range, synthesize } from './testing/fixtures';
 
 let ctx: TestContext;
@@ -14,7 +14,7 @@ const flat = (v: number) => () => v;
 const around23C = range(291, 301, 11);
 
 describe('GET /api/lots/:id/summary', () => {
-  it('gives per-wafer rho at 23 °C, pass/fail, statistics and a hand-checked Cpk', async () => {
+  it('gives per-wafer rho at 23 °C, verdicts, statistics, and no Cpk below 5 wafers', async () => {
     const { lot, wafers } = await makeLot({ specMinOhmCm: 8, specMaxOhmCm: 13 }, [
       'W01',
       'W02',
@@ -52,16 +52,19 @@ describe('GET /api/lots/:id/summary', () => {
     expect(res.status).toBe(200);
     const s = res.body.statistics;
     // Hand computation: values 9, 10, 11, 10 ohm cm; mean = 40/4 = 10;
-    // sample variance = ((-1)^2 + 0 + 1^2 + 0) / (4 - 1) = 2/3, s = sqrt(2/3) = 0.816497;
-    // USL - mean = 13 - 10 = 3, mean - LSL = 10 - 8 = 2 -> min = 2;
-    // Cpk = 2 / (3 * 0.816497) = 0.816497.
+    // sample variance = ((-1)^2 + 0 + 1^2 + 0) / (4 - 1) = 2/3, s = sqrt(2/3) = 0.816497.
+    // Four wafers: no Ppk (at least 5), and Cpk is never computed (no within-wafer spread).
     expect(s.count).toBe(4);
     expect(s.meanOhmCm).toBeCloseTo(10, 9);
     expect(s.stdDevOhmCm).toBeCloseTo(Math.sqrt(2 / 3), 9);
     expect(s.minOhmCm).toBeCloseTo(9, 9);
     expect(s.maxOhmCm).toBeCloseTo(11, 9);
-    expect(s.cpk).toBeCloseTo(0.816497, 5);
+    expect(s.cpk).toBeNull();
+    expect(s.cpkReason).toBe(CPK_REASON);
+    expect(s.ppk).toBeNull();
+    expect(s.ppkReason).toMatch(/at least 5 wafers/);
     expect(s.passCount).toBe(4);
+    expect(s.indeterminateCount).toBe(0);
     const w05 = res.body.wafers.find((w: { number: string }) => w.number === 'W05');
     expect(w05.resistivityAt23COhmCm).toBeNull();
     expect(w05.pass).toBeNull();
@@ -71,18 +74,21 @@ describe('GET /api/lots/:id/summary', () => {
     expect(w02.activationEnergies[0].activationEnergyEv).toBeCloseTo(3000 * 8.617333262e-5, 6);
   });
 
-  it('gives no Cpk, with the reason, for one wafer or zero spread', () => {
-    expect(processCapability([10], 8, 13)).toEqual({
-      cpk: null,
-      reason: expect.stringMatching(/at least 2/),
-    });
-    expect(processCapability([10, 10, 10], 8, 13)).toEqual({
-      cpk: null,
-      reason: expect.stringMatching(/standard deviation is 0/),
-    });
-    expect(processCapability([9, 11], null, null).cpk).toBeNull();
-    // one-sided: only USL 13; values 9 and 11 -> mean 10, s = sqrt(2), Cpk = 3 / (3 sqrt 2) = 0.7071
-    expect(processCapability([9, 11], null, 13).cpk).toBeCloseTo(1 / Math.sqrt(2), 9);
+  it('counts verdicts and gives Ppk with its Bissell bound from 5 wafers (hand computation)', () => {
+    // Values 9.8, 10.1, 10.0, 9.9, 10.2: mean 10.0, s = sqrt(0.1/4) = 0.158114;
+    // Ppk = min(11 - 10, 10 - 9) / (3 s) = 2.10819 (one-sided 95 % bound by Bissell 1990:
+    // 2.10819 - 1.645 sqrt(1/45 + 2.10819^2/8) = 0.85790, hand computation).
+    const rows = [9.8, 10.1, 10.0, 9.9, 10.2].map((v, i) => ({
+      resistivityAt23COhmCm: v,
+      verdict: i === 0 ? ('indeterminate' as const) : ('pass' as const),
+    }));
+    const c = lotCapability([...rows, { resistivityAt23COhmCm: null, verdict: null }], 9, 11);
+    expect(c.ppk).toBeCloseTo(2.10819, 5);
+    expect(c.ppkLower95).toBeCloseTo(0.8579, 4);
+    expect(c.ppkReason).toBeNull();
+    expect(c.note).toMatch(/Only 5 wafers with a value at 23 °C \(fewer than 25\)/);
+    expect(c.indeterminateCount).toBe(1);
+    expect(lotCapability(rows.slice(0, 4), 9, 11).ppkReason).toMatch(/at least 5 wafers/);
   });
 
   it('neutralises formula-like text cells in the CSV export', async () => {

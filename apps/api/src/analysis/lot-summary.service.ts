@@ -1,4 +1,10 @@
-import type { LotSummaryResponse, LotSummaryWafer, SessionUser } from '@rhotrace/api-types';
+import type {
+  LotCapability,
+  LotSummaryResponse,
+  LotSummaryWafer,
+  SessionUser,
+} from '@rhotrace/api-types';
+import { processPerformance } from '@rhotrace/physics';
 import { Op } from 'sequelize';
 import { max, mean, min, sampleStandardDeviation } from 'simple-statistics';
 import { notFound } from '../errors';
@@ -7,31 +13,31 @@ import { Lot } from '../lots/lot.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { visibleWaferWhere } from '../wafers/wafer-access.service';
-import { waferValueAt23C } from './analysis.service';
 import { specVerdict } from './spec-check';
+import { waferAssessment } from './spec.service';
 
-/**
- * Process capability against the spec: Cpk = min(USL - mean, mean - LSL) / (3 s) with s the
- * sample standard deviation; one-sided when the lot has only one limit. Null, with the reason,
- * for fewer than 2 values, s = 0, or no limits.
- */
-export function processCapability(
-  values: readonly number[],
+/** Why `cpk` is null: Cpk needs the within-wafer (short-term) spread, which is not measured. */
+export const CPK_REASON =
+  'Cpk needs the within-wafer repeatability (repeated sites or measurements per wafer), which ' +
+  'is not measured; Ppk from the spread between wafers is given instead';
+
+/** Ppk of the wafers' 23 °C values with Bissell's lower bound, and the verdict counts. */
+export function lotCapability(
+  rows: readonly Pick<LotSummaryWafer, 'resistivityAt23COhmCm' | 'verdict'>[],
   lsl: number | null,
   usl: number | null,
-): { cpk: number | null; reason: string | null } {
-  if (lsl === null && usl === null) return { cpk: null, reason: 'The lot has no resistivity spec' };
-  if (values.length < 2) {
-    return { cpk: null, reason: 'Cpk needs at least 2 wafers with a resistivity at 23 °C' };
-  }
-  const sd = sampleStandardDeviation([...values]);
-  if (sd === 0)
-    return { cpk: null, reason: 'All wafers read the same; the standard deviation is 0' };
-  const m = mean([...values]);
-  const sides: number[] = [];
-  if (usl !== null) sides.push(usl - m);
-  if (lsl !== null) sides.push(m - lsl);
-  return { cpk: Math.min(...sides) / (3 * sd), reason: null };
+): LotCapability {
+  const values = rows.flatMap((r) =>
+    r.resistivityAt23COhmCm === null ? [] : [r.resistivityAt23COhmCm],
+  );
+  const p = processPerformance(values, lsl, usl, 'wafers with a value at 23 °C');
+  return {
+    ppk: p.ppk,
+    ppkLower95: p.ppkLower95,
+    ppkReason: p.reason,
+    note: p.note,
+    indeterminateCount: rows.filter((r) => r.verdict === 'indeterminate').length,
+  };
 }
 
 /** `GET /api/lots/:id/summary`. Technicians see only their assigned wafers (404 if none). */
@@ -56,9 +62,14 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
 
   const rows: LotSummaryWafer[] = [];
   for (const wafer of wafers) {
-    const found = await waferValueAt23C(wafer.id);
+    const found = await waferAssessment(wafer, lot);
     const rho = found.value.resistivityOhmCm;
-    const verdict = specVerdict(rho, lot.specMinOhmCm, lot.specMaxOhmCm);
+    const verdict = specVerdict(
+      rho,
+      found.uncertainty.uncertaintyOhmCm,
+      lot.specMinOhmCm,
+      lot.specMaxOhmCm,
+    );
     rows.push({
       waferId: wafer.id,
       number: wafer.number,
@@ -66,7 +77,9 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
       resistivityAt23COhmCm: rho,
       method: found.value.method,
       distanceK: found.value.distanceK,
-      pass: verdict.inSpec,
+      pass: verdict.verdict === null ? null : verdict.verdict === 'pass',
+      verdict: verdict.verdict,
+      ...found.uncertainty,
       reason: found.value.reason ?? verdict.reason,
       activationEnergies: fits
         .filter((f) => waferOfSweep.get(f.sweepId) === wafer.id)
@@ -89,7 +102,6 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
   const values = rows.flatMap((r) =>
     r.resistivityAt23COhmCm === null ? [] : [r.resistivityAt23COhmCm],
   );
-  const capability = processCapability(values, lot.specMinOhmCm, lot.specMaxOhmCm);
   return {
     lot: {
       id: lot.id,
@@ -102,14 +114,15 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
     wafers: rows,
     statistics: {
       count: values.length,
-      passCount: rows.filter((r) => r.pass === true).length,
-      failCount: rows.filter((r) => r.pass === false).length,
+      passCount: rows.filter((r) => r.verdict === 'pass').length,
+      failCount: rows.filter((r) => r.verdict === 'fail').length,
       meanOhmCm: values.length ? mean(values) : null,
       stdDevOhmCm: values.length >= 2 ? sampleStandardDeviation(values) : null,
       minOhmCm: values.length ? min(values) : null,
       maxOhmCm: values.length ? max(values) : null,
-      cpk: capability.cpk,
-      cpkReason: capability.reason,
+      ...lotCapability(rows, lot.specMinOhmCm, lot.specMaxOhmCm),
+      cpk: null,
+      cpkReason: CPK_REASON,
     },
   };
 }

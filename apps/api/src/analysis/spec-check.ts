@@ -1,16 +1,15 @@
-import type { AnalysisStep, SpecCheckDto } from '@rhotrace/api-types';
-import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
-
-/** 23 °C in kelvin: the temperature ASTM F723 and the lot specs refer to. */
-export const SPEC_TEMPERATURE_K = PHYSICS_DEFAULTS.astmF723TemperatureK;
-/** A nearest step may be this far from 23 °C and still be used, K (inclusive). */
-export const MAX_NEAREST_DISTANCE_K = 5;
-/** Interpolate only between steps at most this far apart, K (inclusive). */
-export const MAX_INTERPOLATION_GAP_K = 10;
+import type {
+  AnalysisStep,
+  SpecCheckDto,
+  SpecVerdict,
+  ValueUncertainty,
+} from '@rhotrace/api-types';
+import { guardBandedVerdict } from '@rhotrace/physics';
+import type { ValueAt23C } from './value-at-23c';
 
 /**
  * Resistivity at temperature T between steps a and b, linear in ln(rho) against T. Used for
- * display alignment and the 23 °C value; no physics model is implied.
+ * display alignment; no physics model is implied.
  */
 export function logLinear(a: AnalysisStep, b: AnalysisStep, temperatureK: number): number {
   if (b.temperatureK === a.temperatureK) return a.resistivityOhmCm;
@@ -44,97 +43,54 @@ export function interpolateWithin(
   return logLinear(steps[lo]!, steps[hi]!, temperatureK);
 }
 
-/** The 23 °C resistivity of a sweep, how it was obtained, or why there is none. */
-export interface ValueAt23C {
-  resistivityOhmCm: number | null;
-  method: 'interpolated' | 'nearest' | null;
-  distanceK: number | null;
-  reason: string | null;
-}
-
-/**
- * Resistivity at 23 °C from averaged steps: interpolated between the steps either side of
- * 296.15 K when they are at most `MAX_INTERPOLATION_GAP_K` apart, otherwise the nearest step
- * when it lies within `MAX_NEAREST_DISTANCE_K`; none otherwise (with the reason).
- */
-export function valueAt23C(steps: readonly AnalysisStep[]): ValueAt23C {
-  if (steps.length === 0) {
-    return {
-      resistivityOhmCm: null,
-      method: null,
-      distanceK: null,
-      reason: 'The sweep has no usable points',
-    };
-  }
-  let nearest = steps[0]!;
-  for (const s of steps) {
-    if (
-      Math.abs(s.temperatureK - SPEC_TEMPERATURE_K) <
-      Math.abs(nearest.temperatureK - SPEC_TEMPERATURE_K)
-    ) {
-      nearest = s;
-    }
-  }
-  const distanceK = Math.abs(nearest.temperatureK - SPEC_TEMPERATURE_K);
-  const below = [...steps].reverse().find((s) => s.temperatureK <= SPEC_TEMPERATURE_K);
-  const above = steps.find((s) => s.temperatureK >= SPEC_TEMPERATURE_K);
-  if (below && above && above.temperatureK - below.temperatureK <= MAX_INTERPOLATION_GAP_K) {
-    return {
-      resistivityOhmCm: logLinear(below, above, SPEC_TEMPERATURE_K),
-      method: 'interpolated',
-      distanceK,
-      reason: null,
-    };
-  }
-  if (distanceK <= MAX_NEAREST_DISTANCE_K) {
-    return {
-      resistivityOhmCm: nearest.resistivityOhmCm,
-      method: 'nearest',
-      distanceK,
-      reason: null,
-    };
-  }
-  return {
-    resistivityOhmCm: null,
-    method: null,
-    distanceK,
-    reason:
-      `The sweep does not cover 23 °C: its nearest step is ${distanceK.toFixed(2)} K away ` +
-      `(at most ${MAX_NEAREST_DISTANCE_K} K allowed) and no steps at most ` +
-      `${MAX_INTERPOLATION_GAP_K} K apart bracket 296.15 K`,
-  };
-}
-
-/** Inclusive spec verdict; null when the lot has no limits or there is no value. */
+/** Guard-banded verdict (JCGM 106:2012, guard band w = U); null, with why, when there is none. */
 export function specVerdict(
   resistivityOhmCm: number | null,
+  uncertaintyOhmCm: number | null,
   specMinOhmCm: number | null,
   specMaxOhmCm: number | null,
-): { inSpec: boolean | null; reason: string | null } {
-  if (resistivityOhmCm === null) return { inSpec: null, reason: 'No resistivity at 23 °C' };
+): { verdict: SpecVerdict | null; reason: string | null } {
+  if (resistivityOhmCm === null) return { verdict: null, reason: 'No resistivity at 23 °C' };
   if (specMinOhmCm === null && specMaxOhmCm === null) {
-    return { inSpec: null, reason: 'The lot has no resistivity spec' };
+    return { verdict: null, reason: 'The lot has no resistivity spec' };
   }
-  const okMin = specMinOhmCm === null || resistivityOhmCm >= specMinOhmCm;
-  const okMax = specMaxOhmCm === null || resistivityOhmCm <= specMaxOhmCm;
-  return { inSpec: okMin && okMax, reason: null };
+  const verdict = guardBandedVerdict(
+    resistivityOhmCm,
+    uncertaintyOhmCm ?? 0,
+    specMinOhmCm,
+    specMaxOhmCm,
+  );
+  return {
+    verdict,
+    reason:
+      verdict === 'indeterminate'
+        ? 'The value lies within its expanded uncertainty (k = 2) of a spec limit'
+        : null,
+  };
 }
 
 /** The spec block of the sweep analysis. */
 export function specCheck(
-  steps: readonly AnalysisStep[],
+  value: ValueAt23C,
+  uncertainty: ValueUncertainty,
   specMinOhmCm: number | null,
   specMaxOhmCm: number | null,
 ): SpecCheckDto {
-  const v = valueAt23C(steps);
-  const verdict = specVerdict(v.resistivityOhmCm, specMinOhmCm, specMaxOhmCm);
-  return {
-    resistivityAt23COhmCm: v.resistivityOhmCm,
-    inSpec: verdict.inSpec,
+  const v = specVerdict(
+    value.resistivityOhmCm,
+    uncertainty.uncertaintyOhmCm,
     specMinOhmCm,
     specMaxOhmCm,
-    method: v.method,
-    distanceK: v.distanceK,
-    reason: v.reason ?? verdict.reason,
+  );
+  return {
+    resistivityAt23COhmCm: value.resistivityOhmCm,
+    inSpec: v.verdict === null ? null : v.verdict === 'pass',
+    verdict: v.verdict,
+    ...uncertainty,
+    specMinOhmCm,
+    specMaxOhmCm,
+    method: value.method,
+    distanceK: value.distanceK,
+    reason: value.reason ?? v.reason,
   };
 }

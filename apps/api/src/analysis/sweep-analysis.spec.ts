@@ -104,7 +104,7 @@ describe('spec check at the tolerance edges', () => {
     return res.body.spec;
   }
 
-  it('interpolates log-linearly between steps 9.9 K apart (within the 10 K gap allowed)', async () => {
+  it('interpolates log-linearly between steps 9.9 K apart', async () => {
     // ln rho linear between (291.2 K, 10) and (301.1 K, 40): at the midpoint 296.15 K, sqrt(10 * 40) = 20
     const spec = await specOf([
       { temperatureK: 291.2, resistivityOhmCm: 10 },
@@ -115,14 +115,19 @@ describe('spec check at the tolerance edges', () => {
     expect(spec.distanceK).toBeCloseTo(4.95, 9);
   });
 
-  it('takes the nearest step 4.9 K away but not one 5.1 K away', async () => {
-    const near = await specOf(synthesize([296.15 - 4.9, 250], flat(12)));
-    expect(near).toMatchObject({ method: 'nearest', inSpec: true });
+  it('corrects from steps up to 15 K away and refuses a sweep farther than that', async () => {
+    // rho = 12 exp(0.0074 (T - 296.15)): the correction from 301.05 K along the sweep's own slope
+    // gives 12 exactly; the nearest step alone would read 12 exp(0.0074 * 4.9) = 12.44.
+    const slope = (t: number) => 12 * Math.exp(0.0074 * (t - 296.15));
+    const near = await specOf(synthesize([296.15 + 4.9, 296.15 + 9.9, 320], slope));
+    expect(near).toMatchObject({ method: 'corrected', verdict: 'pass', inSpec: true });
     expect(near.distanceK).toBeCloseTo(4.9, 9);
-    const far = await specOf(synthesize([296.15 + 5.1, 400], flat(12)));
+    expect(near.resistivityAt23COhmCm).toBeCloseTo(12, 9);
+    const far = await specOf(synthesize([296.15 + 15.1, 400], flat(12)));
     expect(far.resistivityAt23COhmCm).toBeNull();
     expect(far.inSpec).toBeNull();
-    expect(far.reason).toMatch(/does not cover 23 °C/);
+    expect(far.verdict).toBeNull();
+    expect(far.reason).toMatch(/does not reach 23 °C.*at most 15 K/);
   });
 
   it('counts the limits themselves as in spec and a hair outside as out', async () => {

@@ -16,6 +16,8 @@ export class Lot extends Model<InferAttributes<Lot>, InferCreationAttributes<Lot
   declare orientation: string | null;
   declare diameterCm: number | null;
   declare thicknessCm: number | null;
+  /** +/- thickness tolerance (half-width), cm; null when not stated. */
+  declare thicknessToleranceCm: number | null;
   declare supplier: string | null;
   declare receivedOn: string | null;
   declare specMinOhmCm: number | null;
@@ -38,6 +40,7 @@ export function initLotModel(sequelize: Sequelize): void {
       orientation: DataTypes.STRING(16),
       diameterCm: DataTypes.DOUBLE,
       thicknessCm: DataTypes.DOUBLE,
+      thicknessToleranceCm: DataTypes.DOUBLE,
       supplier: DataTypes.STRING(200),
       receivedOn: DataTypes.DATEONLY,
       specMinOhmCm: DataTypes.DOUBLE,

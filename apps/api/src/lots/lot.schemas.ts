@@ -28,6 +28,8 @@ const lotFields = {
   orientation: optionalText(16),
   diameterCm: boundedNumber(0.5, 50, 'cm').nullable(),
   thicknessCm: boundedNumber(1e-7, 1, 'cm').nullable(),
+  /** +/- half-width; read by the uncertainty of the 23 °C values. */
+  thicknessToleranceCm: boundedNumber(0, 0.1, 'cm').nullable(),
   supplier: optionalText(LIMITS.name),
   receivedOn: isoDate.nullable(),
   specMinOhmCm: ohmCm.nullable(),
@@ -38,6 +40,13 @@ const lotFields = {
 const metals: readonly string[] = METAL_FILMS;
 const semiconductorOnly = (lot: { material?: string; dopantType?: string | null }) =>
   !(lot.material && metals.includes(lot.material) && lot.dopantType);
+const toleranceBelowThickness = (lot: {
+  thicknessCm?: number | null;
+  thicknessToleranceCm?: number | null;
+}) =>
+  lot.thicknessCm == null ||
+  lot.thicknessToleranceCm == null ||
+  lot.thicknessToleranceCm < lot.thicknessCm;
 const specOrdered = (lot: { specMinOhmCm?: number | null; specMaxOhmCm?: number | null }) =>
   lot.specMinOhmCm == null || lot.specMaxOhmCm == null || lot.specMinOhmCm <= lot.specMaxOhmCm;
 
@@ -49,6 +58,7 @@ export const lotCreateBody = z
     dopantType: lotFields.dopantType.optional().default(null),
     diameterCm: lotFields.diameterCm.optional().default(null),
     thicknessCm: lotFields.thicknessCm.optional().default(null),
+    thicknessToleranceCm: lotFields.thicknessToleranceCm.optional().default(null),
     receivedOn: lotFields.receivedOn.optional().default(null),
     specMinOhmCm: lotFields.specMinOhmCm.optional().default(null),
     specMaxOhmCm: lotFields.specMaxOhmCm.optional().default(null),
@@ -56,6 +66,10 @@ export const lotCreateBody = z
   .strict()
   .refine(specOrdered, { path: ['specMinOhmCm'], message: 'must not exceed specMaxOhmCm' })
   .refine(semiconductorOnly, { path: ['dopantType'], message: 'applies to semiconductors only' })
+  .refine(toleranceBelowThickness, {
+    path: ['thicknessToleranceCm'],
+    message: 'must be smaller than thicknessCm',
+  })
   .transform((lot) => ({
     ...lot,
     orientation: lot.orientation ?? null,
@@ -69,7 +83,11 @@ export const lotUpdateBody = z
   .partial()
   .strict()
   .refine(specOrdered, { path: ['specMinOhmCm'], message: 'must not exceed specMaxOhmCm' })
-  .refine(semiconductorOnly, { path: ['dopantType'], message: 'applies to semiconductors only' });
+  .refine(semiconductorOnly, { path: ['dopantType'], message: 'applies to semiconductors only' })
+  .refine(toleranceBelowThickness, {
+    path: ['thicknessToleranceCm'],
+    message: 'must be smaller than thicknessCm',
+  });
 
 /** `GET /api/lots` query. */
 export const lotListQuery = listQuerySchema(LOT_SORT_FIELDS, {

@@ -28,6 +28,7 @@ export function toLotDto(lot: Lot, waferCount?: number): LotDto {
     orientation: lot.orientation,
     diameterCm: lot.diameterCm,
     thicknessCm: lot.thicknessCm,
+    thicknessToleranceCm: lot.thicknessToleranceCm,
     supplier: lot.supplier,
     receivedOn: lot.receivedOn,
     specMinOhmCm: lot.specMinOhmCm,

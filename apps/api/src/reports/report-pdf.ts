@@ -2,6 +2,7 @@ import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import type { AnalysisStep, FitDto } from '@rhotrace/api-types';
 import type { ReportData } from './report.service';
+import { specLines } from './report-spec';
 
 const require = createRequire(import.meta.url);
 /** IBM Plex Sans static TTFs from the installed font package (no machine paths). */
@@ -182,10 +183,13 @@ export function renderReportPdf(
     `Material ${d.material}${d.dopant ? `, dopant ${d.dopant}` : ''}`,
     `Station ${d.station ? `${d.station.name} (probe spacing ${sig(d.station.probeSpacingCm)} cm, ${d.station.thermometer})` : 'not recorded'}`,
     `Geometry ${geometry || 'not recorded'}`,
-    `Spec ${d.specMinOhmCm ?? '–'} to ${d.specMaxOhmCm ?? '–'} ohm cm; at 23 °C ${sig(d.resistivityAt23COhmCm)} ohm cm` +
-      `${d.inSpec === null ? '' : d.inSpec ? ' (in spec)' : ' (OUT of spec)'}`,
   ];
   for (const f of facts) doc.text(f);
+  const [value, ...budget] = specLines(d.spec);
+  doc.text(value ?? '');
+  doc.fontSize(8).fillColor(MUTED);
+  for (const b of budget) doc.text(b, { width: 495 });
+  doc.fontSize(10).fillColor(INK);
 
   doc.moveDown(0.8);
   const top = doc.y;

@@ -1,7 +1,8 @@
-import type { AnalysisStep, FitDto, SessionUser } from '@rhotrace/api-types';
+import type { AnalysisStep, FitDto, SessionUser, SpecCheckDto } from '@rhotrace/api-types';
 import { Station } from '../stations/station.model';
 import { averageSteps, sweepReadings, visibleSweep } from '../analysis/sweep-data.service';
 import { specCheck } from '../analysis/spec-check';
+import { assessSweep } from '../analysis/spec.service';
 import { listFitsOfSweep } from '../fits/fit.service';
 
 /** Cautions every printed report carries: the bench's usual hazards, deferring to local rules. */
@@ -32,6 +33,8 @@ export interface ReportData {
   steps: AnalysisStep[];
   resistivityAt23COhmCm: number | null;
   inSpec: boolean | null;
+  /** The 23 °C value with its method, uncertainty budget and guard-banded verdict. */
+  spec: SpecCheckDto;
   fits: FitDto[];
   cautions: string[];
   disclaimer: string;
@@ -42,7 +45,13 @@ export async function reportData(user: SessionUser, sweepId: number): Promise<Re
   const v = await visibleSweep(user, sweepId);
   const steps = averageSteps((await sweepReadings(v.sweep)).points);
   const station = v.sweep.stationId ? await Station.findByPk(v.sweep.stationId) : null;
-  const spec = specCheck(steps, v.lot.specMinOhmCm, v.lot.specMaxOhmCm);
+  const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
+  const spec = specCheck(
+    assessed.value,
+    assessed.uncertainty,
+    v.lot.specMinOhmCm,
+    v.lot.specMaxOhmCm,
+  );
   const geometry = { ...((v.sweep.geometry as Record<string, unknown> | null) ?? {}) };
   delete geometry['sources'];
   return {
@@ -67,6 +76,7 @@ export async function reportData(user: SessionUser, sweepId: number): Promise<Re
     steps,
     resistivityAt23COhmCm: spec.resistivityAt23COhmCm,
     inSpec: spec.inSpec,
+    spec,
     fits: await listFitsOfSweep(sweepId),
     cautions: REPORT_CAUTIONS,
     disclaimer: REPORT_DISCLAIMER,

@@ -18,6 +18,8 @@ export class Station extends Model<InferAttributes<Station>, InferCreationAttrib
   declare minTemperatureK: number;
   declare maxTemperatureK: number;
   declare calibratedOn: string | null;
+  declare probeSpacingToleranceCm: CreationOptional<number | null>;
+  declare temperatureToleranceK: CreationOptional<number | null>;
   declare notes: string | null;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -36,6 +38,8 @@ export function initStationModel(sequelize: Sequelize): void {
       minTemperatureK: { type: DataTypes.DOUBLE, allowNull: false },
       maxTemperatureK: { type: DataTypes.DOUBLE, allowNull: false },
       calibratedOn: DataTypes.DATEONLY,
+      probeSpacingToleranceCm: DataTypes.DOUBLE,
+      temperatureToleranceK: DataTypes.DOUBLE,
       notes: DataTypes.TEXT,
       deletedAt: DataTypes.DATE(3),
       createdAt: DataTypes.DATE(3),

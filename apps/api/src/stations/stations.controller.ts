@@ -34,6 +34,9 @@ const fields = {
   minTemperatureK: boundedNumber(0.01, 2000, 'K'),
   maxTemperatureK: boundedNumber(0.01, 2000, 'K'),
   calibratedOn: isoDate.nullable(),
+  /** +/- half-widths read by the uncertainty budget of 23 °C values. */
+  probeSpacingToleranceCm: boundedNumber(0, 0.1, 'cm').nullable(),
+  temperatureToleranceK: boundedNumber(0, 50, 'K').nullable(),
   notes: optionalText(LIMITS.notes),
 };
 
@@ -43,6 +46,8 @@ const createBody = z
     tipRadiusCm: fields.tipRadiusCm.optional().default(null),
     rtdR0Ohm: fields.rtdR0Ohm.optional().default(null),
     calibratedOn: fields.calibratedOn.optional().default(null),
+    probeSpacingToleranceCm: fields.probeSpacingToleranceCm.optional().default(null),
+    temperatureToleranceK: fields.temperatureToleranceK.optional().default(null),
     notes: fields.notes.transform((v) => v ?? null),
   })
   .strict();

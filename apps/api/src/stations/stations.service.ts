@@ -17,6 +17,8 @@ export function toStationDto(s: Station): StationDto {
     minTemperatureK: s.minTemperatureK,
     maxTemperatureK: s.maxTemperatureK,
     calibratedOn: s.calibratedOn,
+    probeSpacingToleranceCm: s.probeSpacingToleranceCm ?? null,
+    temperatureToleranceK: s.temperatureToleranceK ?? null,
     notes: s.notes,
     createdAt: s.createdAt.toISOString(),
     updatedAt: s.updatedAt.toISOString(),

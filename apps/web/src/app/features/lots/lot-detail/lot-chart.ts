@@ -1,7 +1,14 @@
-import type { LotSummaryResponse } from '@rhotrace/api-types';
+import type { LotSummaryResponse, SpecVerdict } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 
-/** Plot data: each wafer's resistivity at 23 °C, with the lot's spec band shaded. */
+/** Marker per verdict: the shape, not only the colour, tells them apart. */
+const VERDICT_SYMBOLS: Readonly<Record<SpecVerdict, string>> = {
+  pass: 'circle',
+  fail: 'x',
+  indeterminate: 'diamond',
+};
+
+/** Plot data: each wafer's resistivity at 23 °C ± U (k = 2), with the lot's spec band shaded. */
 export function lotChart(summary: LotSummaryResponse): {
   data: unknown[];
   layout: Record<string, unknown>;
@@ -43,12 +50,23 @@ export function lotChart(summary: LotSummaryResponse): {
         name: 'ρ at 23 °C',
         x: measured.map((w) => `W${w.number}`),
         y: measured.map((w) => w.resistivityAt23COhmCm),
+        error_y: {
+          type: 'data',
+          array: measured.map((w) => w.uncertaintyOhmCm ?? 0),
+          visible: true,
+          color: PLOT_ROLES.measured,
+        },
         marker: {
           size: 11,
-          color: measured.map((w) => (w.pass === false ? PLOT_ROLES.model : PLOT_ROLES.measured)),
-          symbol: measured.map((w) => (w.pass === false ? 'x' : 'circle')),
+          color: measured.map((w) =>
+            w.verdict === 'fail' || w.verdict === 'indeterminate'
+              ? PLOT_ROLES.model
+              : PLOT_ROLES.measured,
+          ),
+          symbol: measured.map((w) => VERDICT_SYMBOLS[w.verdict ?? 'pass']),
         },
-        hovertemplate: '%{x}: %{y:.4g} Ω·cm<extra></extra>',
+        customdata: measured.map((w) => w.uncertaintyOhmCm ?? 0),
+        hovertemplate: '%{x}: %{y:.4g} ± %{customdata:.2g} Ω·cm (k = 2)<extra></extra>',
       },
     ],
     layout: {

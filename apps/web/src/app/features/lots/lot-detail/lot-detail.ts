@@ -31,6 +31,8 @@ import { above, fieldError } from '../../../shared/field-error';
 import { formatDay } from '../../../shared/format';
 import { FormatValuePipe } from '../../../shared/format-value';
 import { Plot } from '../../../shared/plot/plot';
+import { SpecVerdictBadge } from '../../../shared/spec-verdict';
+import { methodWords, ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
 import { LotsApi } from '../lots-api';
 import { lotChart } from './lot-chart';
 
@@ -39,7 +41,10 @@ interface WaferRow {
   summary: LotSummaryWafer | undefined;
 }
 
-/** One lot: facts, spec, wafers with their 23 °C values, statistics and the spec chart. */
+/**
+ * One lot: facts, spec, wafers with their 23 °C values (± U, verdict, budget), Ppk and the spec
+ * chart.
+ */
 @Component({
   selector: 'rt-lot-detail',
   imports: [
@@ -53,6 +58,8 @@ interface WaferRow {
     FormatValuePipe,
     Plot,
     EstimateNote,
+    SpecVerdictBadge,
+    ValueAt23C,
   ],
   templateUrl: './lot-detail.html',
   styleUrl: './lot-detail.scss',
@@ -82,7 +89,14 @@ export class LotDetail {
     stream: ({ params }) => (Number.isFinite(params) ? this.api.summary(params) : of(undefined)),
   });
 
-  protected readonly columns = ['number', 'state', 'thicknessCm', 'rho', 'verdict', 'ea'];
+  protected readonly columns = ['number', 'state', 'thicknessCm', 'rho', 'verdict', 'budget', 'ea'];
+  protected readonly methodWords = methodWords;
+  /** The wafer whose uncertainty budget is unfolded below the table. */
+  protected readonly budgetWaferId = signal<number | null>(null);
+  protected readonly budgetRow = computed(() => {
+    const id = this.budgetWaferId();
+    return this.summary.value()?.wafers.find((w) => w.waferId === id) ?? null;
+  });
   protected readonly day = formatDay;
   protected readonly error = fieldError;
   protected readonly rows = computed<WaferRow[]>(() => {
@@ -130,6 +144,10 @@ export class LotDetail {
         }
       },
     });
+  }
+
+  protected toggleBudget(waferId: number): void {
+    this.budgetWaferId.update((current) => (current === waferId ? null : waferId));
   }
 
   protected deleteLot(): void {

@@ -93,6 +93,26 @@ describe('LotForm', () => {
     expect(await thickness.getTextErrors()).toEqual(['The server says this must be at most 0.02.']);
   });
 
+  it('sends the thickness tolerance the uncertainty budget reads', async () => {
+    const { loader, backend } = await setup();
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))
+    ).setValue('LV-T-3');
+    const tolerance = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName=thicknessToleranceCm]' }),
+    );
+    await tolerance.setValue('-0.001');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
+    backend.expectNone('/api/lots');
+    expect(await (await field(loader, 'Thickness tolerance ±')).getTextErrors()).toEqual([
+      'Use 0 or more.',
+    ]);
+    await tolerance.setValue('0.0025');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
+    const req = backend.expectOne({ method: 'POST', url: '/api/lots' });
+    expect(req.request.body).toMatchObject({ code: 'LV-T-3', thicknessToleranceCm: 0.0025 });
+  });
+
   it('goes to the new lot when the server accepts it', async () => {
     const { loader, backend } = await setup();
     const navigate = vi.spyOn(TestBed.inject(Router), 'navigate').mockResolvedValue(true);

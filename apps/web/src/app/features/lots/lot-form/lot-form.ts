@@ -69,6 +69,10 @@ export class LotForm {
       orientation: this.fb.control<string | null>(null, Validators.maxLength(16)),
       diameterCm: this.fb.control<number | null>(null, above(0)),
       thicknessCm: this.fb.control<number | null>(null, above(0)),
+      thicknessToleranceCm: this.fb.control<number | null>(null, [
+        Validators.min(0),
+        Validators.max(0.1),
+      ]),
       supplier: this.fb.control<string | null>(null, Validators.maxLength(200)),
       receivedOn: this.fb.control<string | null>(null),
       specMinOhmCm: this.fb.control<number | null>(null, above(0)),

@@ -20,6 +20,7 @@ import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
 import { FormatValuePipe } from '../../../shared/format-value';
 import { thinForDisplay } from '../../../shared/plot/thin';
+import { ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { Plot } from '../../../shared/plot/plot';
 import { LotsApi } from '../../lots/lots-api';
@@ -32,7 +33,10 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
   'in progress': { state: 'done', words: 'Mark done' },
 };
 
-/** One wafer: its facts, dopant density, assignments, sweeps with their points, and the upload. */
+/**
+ * One wafer: its facts, the 23 °C value with its uncertainty and verdict, dopant density,
+ * assignments, sweeps with their points, and the upload.
+ */
 @Component({
   selector: 'rt-wafer-page',
   imports: [
@@ -46,6 +50,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     Plot,
     SweepUpload,
     EstimateNote,
+    ValueAt23C,
   ],
   templateUrl: './wafer-page.html',
   styleUrl: './wafer-page.scss',

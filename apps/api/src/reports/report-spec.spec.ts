@@ -1,0 +1,45 @@
+import type { SpecCheckDto } from '@rhotrace/api-types';
+import { describe, expect, it } from 'vitest';
+import { specLines } from './report-spec';
+
+const spec: SpecCheckDto = {
+  resistivityAt23COhmCm: 14.95,
+  inSpec: false,
+  verdict: 'indeterminate',
+  specMinOhmCm: 8,
+  specMaxOhmCm: 15,
+  method: 'corrected',
+  distanceK: 4.9,
+  reason: 'The value lies within its expanded uncertainty (k = 2) of a spec limit',
+  uncertaintyOhmCm: 0.12,
+  coverageFactor: 2,
+  uncertaintyBudget: [
+    {
+      source: 'temperature-sensor',
+      standardUncertaintyOhmCm: 0.06,
+      relative: 0.06 / 14.95,
+      distribution: 'rectangular',
+      note: '±0.42 K',
+    },
+  ],
+};
+
+describe('the printed 23 °C lines', () => {
+  it('print the value ± U with k, the method, the verdict and each budget line', () => {
+    const [value, ...budget] = specLines(spec);
+    expect(value).toBe(
+      'Spec 8 to 15 ohm cm; at 23 °C 14.95 ± 0.12 (k = 2) ohm cm, corrected from a step ' +
+        '4.90 K away; too close to call (A spec limit lies within value ± U: the measurement ' +
+        'cannot decide.)',
+    );
+    expect(budget).toEqual([
+      '   temperature-sensor: 0.060 ohm cm (0.401 %, rectangular) – ±0.42 K',
+    ]);
+  });
+
+  it('print why there is no value', () => {
+    expect(
+      specLines({ ...spec, resistivityAt23COhmCm: null, reason: 'The sweep does not reach 23 °C' }),
+    ).toEqual(['Spec 8 to 15 ohm cm; no value at 23 °C: The sweep does not reach 23 °C']);
+  });
+});

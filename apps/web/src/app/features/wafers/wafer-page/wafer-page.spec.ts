@@ -1,0 +1,116 @@
+import { provideHttpClient } from '@angular/common/http';
+import {
+  HttpTestingController,
+  provideHttpClientTesting,
+  type TestRequest,
+} from '@angular/common/http/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { TestBed } from '@angular/core/testing';
+import { MatExpansionPanelHarness } from '@angular/material/expansion/testing';
+import { MatTableHarness } from '@angular/material/table/testing';
+import { provideRouter } from '@angular/router';
+import type { DopantDensityResponse } from '@rhotrace/api-types';
+import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
+import { WaferPage } from './wafer-page';
+
+const plotly = { react: async () => ({ on: () => undefined }), purge: () => undefined };
+
+const dopant: DopantDensityResponse = {
+  waferId: 7,
+  resistivityAt23COhmCm: 9.87,
+  dopant: 'B',
+  dopantDensityCm3: 1.36e15,
+  source: 'ASTM F723 (boron) from sweep 3, interpolated at 23 °C (nearest step 1.15 K away)',
+  sweepId: 3,
+  method: 'interpolated',
+  distanceK: 1.15,
+  inSpec: true,
+  verdict: 'pass',
+  specMinOhmCm: 8,
+  specMaxOhmCm: 12,
+  uncertaintyOhmCm: 0.54,
+  coverageFactor: 2,
+  uncertaintyBudget: [
+    {
+      source: 'thickness',
+      standardUncertaintyOhmCm: 0.266,
+      relative: 0.0269,
+      distribution: 'rectangular',
+      note: '±0.00250 cm on 0.0524 cm',
+    },
+  ],
+  reason: null,
+};
+
+/** Answers each request the page makes by its URL. */
+function answer(req: TestRequest): void {
+  const url = req.request.url;
+  if (url === '/api/wafers/7') {
+    req.flush({
+      id: 7,
+      lotId: 2,
+      lotCode: 'LV-X',
+      number: '01',
+      thicknessCm: 0.0524,
+      state: 'measured',
+      notes: null,
+    });
+  } else if (url === '/api/lots/2') {
+    req.flush({
+      id: 2,
+      code: 'LV-X',
+      material: 'Si',
+      dopant: 'B',
+      dopantType: 'p',
+      specMinOhmCm: 8,
+      specMaxOhmCm: 12,
+    });
+  } else if (url === '/api/wafers/7/sweeps') {
+    req.flush({
+      items: [{ id: 3, originalName: 'w01.csv', method: 'four-point', pointCount: 1 }],
+      total: 1,
+    });
+  } else if (url === '/api/sweeps/3') {
+    req.flush({ id: 3, originalName: 'w01.csv', points: [] });
+  } else if (url === '/api/wafers/7/dopant') {
+    req.flush(dopant);
+  } else {
+    req.flush({ items: [], total: 0 });
+  }
+}
+
+describe('WaferPage', () => {
+  it('shows the 23 °C value ± U, its verdict and the folded budget', async () => {
+    TestBed.configureTestingModule({
+      imports: [WaferPage],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
+      ],
+    });
+    const fixture = TestBed.createComponent(WaferPage);
+    fixture.componentRef.setInput('id', '7');
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const backend = TestBed.inject(HttpTestingController);
+    // Requests come in waves (the lot after the wafer, the dopant after the sweeps).
+    for (let wave = 0; wave < 6; wave += 1) {
+      fixture.detectChanges();
+      await new Promise((resolve) => setTimeout(resolve));
+      for (const req of backend.match(() => true)) answer(req);
+    }
+    await fixture.whenStable();
+    const text = fixture.nativeElement.textContent as string;
+    expect(text).toContain('9.87');
+    expect(text).toContain('± 0.54');
+    expect(text).toContain('meets spec');
+    expect(text).toContain('interpolated between the steps either side');
+    const panel = await loader.getHarness(MatExpansionPanelHarness);
+    await panel.expand();
+    const budget = await loader.getHarness(
+      MatTableHarness.with({ selector: '[aria-label="Uncertainty budget"]' }),
+    );
+    expect((await budget.getCellTextByColumnName())['source']?.text).toEqual(['Thickness']);
+  });
+});
