@@ -1,7 +1,144 @@
-export * from './errors';
-export * from './common';
-export * from './auth';
-export * from './records';
-export * from './analysis';
-export * from './sweeps';
-export * from './activity';
+/**
+ * The public API of @rhotrace/api-types: request and response types shared by the API and the
+ * web app, the error shape, and the role-to-capability table. Named re-exports only.
+ */
+export {
+  ERROR_STATUS,
+} from './errors';
+export type {
+  FieldProblem,
+  ApiErrorBody,
+  ErrorCode,
+} from './errors';
+export {
+  MAX_PAGE_SIZE,
+  DEFAULT_PAGE_SIZE,
+} from './common';
+export type {
+  Page,
+  HealthResponse,
+} from './common';
+export {
+  ROLES,
+  MIN_PASSWORD_LENGTH,
+  USER_SORT_FIELDS,
+} from './auth';
+export type {
+  Role,
+  UserDto,
+  SessionUser,
+  LoginRequest,
+  LoginResponse,
+  PasswordResetRequest,
+  PasswordResetConfirm,
+  CreateUserRequest,
+  UpdateUserRequest,
+  PasswordResetAccepted,
+  UserListQuery,
+  AssigneeDto,
+} from './auth';
+export {
+  CAPABILITIES,
+  ROLE_CAPABILITIES,
+  roleCan,
+  rolesWith,
+} from './capabilities';
+export type {
+  Capability,
+} from './capabilities';
+export {
+  SEMICONDUCTORS,
+  METAL_FILMS,
+  MATERIALS,
+  WAFER_STATES,
+  ASSIGNMENT_STATES,
+  THERMOMETERS,
+  LOT_SORT_FIELDS,
+  WAFER_SORT_FIELDS,
+  STATION_SORT_FIELDS,
+  ASSIGNMENT_SORT_FIELDS,
+} from './records';
+export type {
+  Material,
+  WaferState,
+  AssignmentState,
+  Thermometer,
+  LotDto,
+  LotInput,
+  WaferDto,
+  StationDto,
+  AssignmentDto,
+  AuditEventDto,
+  LotListQuery,
+  WaferListQuery,
+  AssignmentListQuery,
+  WaferInput,
+  StationInput,
+  CreateAssignmentRequest,
+  UpdateAssignmentRequest,
+  AuditListQuery,
+} from './records';
+export {
+  FIT_KINDS,
+} from './analysis';
+export type {
+  RegimeName,
+  DopingInput,
+  ModelCurveRequest,
+  SemiconductorCurvePoint,
+  MetalCurvePoint,
+  ModelCurveResponse,
+  SourceDto,
+  SemiconductorMaterialDto,
+  MetalMaterialDto,
+  MaterialsResponse,
+  AnalysisSweepDto,
+  AnalysisStep,
+  ArrheniusPoint,
+  SuggestedWindow,
+  SpecCheckDto,
+  SweepAnalysisResponse,
+  FitKind,
+  FitRequest,
+  FitGoodness,
+  FitDto,
+  DopantDensityResponse,
+  LotSummaryWafer,
+  LotSummaryResponse,
+  CompareResponse,
+} from './analysis';
+export {
+  SWEEP_METHODS,
+  COLUMN_MEANINGS,
+  POINT_FLAGS,
+  JUMP_FACTOR,
+} from './sweeps';
+export type {
+  SweepMethod,
+  ColumnMeaning,
+  PointFlag,
+  SweepColumn,
+  RowProblem,
+  PreviewRow,
+  SweepPreviewResponse,
+  SweepColumnOverride,
+  SweepGeometryInput,
+  GeometrySource,
+  SweepGeometry,
+  SweepCreatedResponse,
+  SweepSummaryDto,
+  SweepParseReport,
+  RawReading,
+  SweepPointDto,
+  SweepDto,
+} from './sweeps';
+export {
+  MAX_RECENT_LIMIT,
+  DEFAULT_RECENT_LIMIT,
+} from './activity';
+export type {
+  RecentSweepDto,
+  RecentSweepsResponse,
+  RecentFitDto,
+  RecentFitsResponse,
+} from './activity';
