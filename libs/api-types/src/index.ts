@@ -2,27 +2,11 @@
  * The public API of @rhotrace/api-types: request and response types shared by the API and the
  * web app, the error shape, and the role-to-capability table. Named re-exports only.
  */
-export {
-  ERROR_STATUS,
-} from './errors';
-export type {
-  FieldProblem,
-  ApiErrorBody,
-  ErrorCode,
-} from './errors';
-export {
-  MAX_PAGE_SIZE,
-  DEFAULT_PAGE_SIZE,
-} from './common';
-export type {
-  Page,
-  HealthResponse,
-} from './common';
-export {
-  ROLES,
-  MIN_PASSWORD_LENGTH,
-  USER_SORT_FIELDS,
-} from './auth';
+export { ERROR_STATUS } from './errors';
+export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
+export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
+export type { Page, HealthResponse } from './common';
+export { ROLES, MIN_PASSWORD_LENGTH, USER_SORT_FIELDS } from './auth';
 export type {
   Role,
   UserDto,
@@ -37,15 +21,8 @@ export type {
   UserListQuery,
   AssigneeDto,
 } from './auth';
-export {
-  CAPABILITIES,
-  ROLE_CAPABILITIES,
-  roleCan,
-  rolesWith,
-} from './capabilities';
-export type {
-  Capability,
-} from './capabilities';
+export { CAPABILITIES, ROLE_CAPABILITIES, roleCan, rolesWith } from './capabilities';
+export type { Capability } from './capabilities';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,
@@ -78,9 +55,7 @@ export type {
   UpdateAssignmentRequest,
   AuditListQuery,
 } from './records';
-export {
-  FIT_KINDS,
-} from './analysis';
+export { FIT_KINDS } from './analysis';
 export type {
   RegimeName,
   DopingInput,
@@ -107,12 +82,7 @@ export type {
   LotSummaryResponse,
   CompareResponse,
 } from './analysis';
-export {
-  SWEEP_METHODS,
-  COLUMN_MEANINGS,
-  POINT_FLAGS,
-  JUMP_FACTOR,
-} from './sweeps';
+export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
 export type {
   SweepMethod,
   ColumnMeaning,
@@ -132,10 +102,7 @@ export type {
   SweepPointDto,
   SweepDto,
 } from './sweeps';
-export {
-  MAX_RECENT_LIMIT,
-  DEFAULT_RECENT_LIMIT,
-} from './activity';
+export { MAX_RECENT_LIMIT, DEFAULT_RECENT_LIMIT } from './activity';
 export type {
   RecentSweepDto,
   RecentSweepsResponse,

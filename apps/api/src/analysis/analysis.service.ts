@@ -7,9 +7,9 @@ import type {
   SweepAnalysisResponse,
 } from '@rhotrace/api-types';
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
+import { visibleSweep, visibleWafer } from '../access/visibility.service';
 import { notFound, unprocessable } from '../errors';
 import { Sweep } from '../sweeps/sweep.model';
-import { visibleWafer } from '../wafers/wafer-access.service';
 import { temperatureGrid, isMetal } from './model.service';
 import {
   interpolateWithin,
@@ -19,7 +19,7 @@ import {
   type ValueAt23C,
 } from './spec-check';
 import { suggestWindows } from './suggested-windows';
-import { averageSteps, sweepReadings, sweepSummary, visibleSweep } from './sweep-data.service';
+import { averageSteps, sweepReadings, sweepSummary } from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {

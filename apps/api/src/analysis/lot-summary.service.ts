@@ -1,12 +1,10 @@
 import type { LotSummaryResponse, LotSummaryWafer, SessionUser } from '@rhotrace/api-types';
 import { Op } from 'sequelize';
 import { max, mean, min, sampleStandardDeviation } from 'simple-statistics';
-import { notFound } from '../errors';
+import { visibleLot, visibleWafers } from '../access/visibility.service';
 import { Fit } from '../fits/fit.model';
-import { Lot } from '../lots/lot.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
-import { visibleWaferWhere } from '../wafers/wafer-access.service';
 import { waferValueAt23C } from './analysis.service';
 import { specVerdict } from './spec-check';
 
@@ -36,13 +34,11 @@ export function processCapability(
 
 /** `GET /api/lots/:id/summary`. Technicians see only their assigned wafers (404 if none). */
 export async function lotSummary(user: SessionUser, lotId: number): Promise<LotSummaryResponse> {
-  const lot = await Lot.findByPk(lotId);
-  if (!lot) throw notFound(`Lot ${lotId}`);
+  const lot = await visibleLot(user, lotId);
   const wafers = await Wafer.findAll({
-    where: { ...(await visibleWaferWhere(user)), lotId } as never,
+    where: { [Op.and]: [visibleWafers(user), { lotId }] },
     order: [['number', 'ASC']],
   });
-  if (user.role === 'technician' && wafers.length === 0) throw notFound(`Lot ${lotId}`);
 
   const sweeps = await Sweep.findAll({
     attributes: ['id', 'waferId'],

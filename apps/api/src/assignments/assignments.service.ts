@@ -6,6 +6,7 @@ import {
 } from '@rhotrace/api-types';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
+import { can, seesAllAssignments } from '../access/policy';
 import { forbidden, notFound, validationFailed } from '../errors';
 import { Lot } from '../lots/lot.model';
 import { assignmentMail } from '../mail/templates/assignment.mail';
@@ -20,10 +21,6 @@ import { safetyCautionsFor } from './assignment-safety';
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
 /** The order an assignee may move their own assignment along. */
 const FORWARD: AssignmentState[] = ['assigned', 'in progress', 'done'];
-/** Roles that assign work (PRODUCT.md section 2). */
-export const ASSIGNERS = ['admin', 'manager'] as const;
-
-const isAssigner = (user: SessionUser) => (ASSIGNERS as readonly string[]).includes(user.role);
 
 interface Related {
   wafers: Map<number, Wafer>;
@@ -157,7 +154,7 @@ export async function listAssignments(
   options: AssignmentListOptions,
 ): Promise<Page<AssignmentDto>> {
   let assigneeId = options.assignee === 'me' ? user.id : options.assignee;
-  if (user.role === 'technician') {
+  if (!seesAllAssignments(user)) {
     if (assigneeId !== undefined && assigneeId !== user.id) {
       throw forbidden('Technicians may list only their own assignments (assignee=me)');
     }
@@ -192,7 +189,7 @@ export async function listAssignments(
 /** One assignment; a technician sees only their own (404 otherwise). */
 export async function getAssignment(user: SessionUser, id: number): Promise<AssignmentDto> {
   const a = await Assignment.findByPk(id);
-  if (!a || (user.role === 'technician' && a.assigneeId !== user.id)) {
+  if (!a || (!seesAllAssignments(user) && a.assigneeId !== user.id)) {
     throw notFound(`Assignment ${id}`);
   }
   return toAssignmentDto(a, await related([a]));
@@ -219,10 +216,10 @@ export async function updateAssignment(
 ): Promise<AssignmentDto> {
   return Assignment.sequelize!.transaction(async (t) => {
     const a = await Assignment.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!a || (user.role === 'technician' && a.assigneeId !== user.id)) {
+    if (!a || (!seesAllAssignments(user) && a.assigneeId !== user.id)) {
       throw notFound(`Assignment ${id}`);
     }
-    if (!isAssigner(user)) {
+    if (!can(user, 'assignments:assign')) {
       if (a.assigneeId !== user.id)
         throw forbidden('Only admins, managers and the assignee may change this');
       const others = Object.keys(changes).filter((k) => k !== 'state');

@@ -12,14 +12,13 @@ import {
   type SweepMethod,
 } from '@rhotrace/api-types';
 import { Router, type Request, type Response } from 'express';
-import { Op, type WhereOptions } from 'sequelize';
 import { z } from 'zod';
+import { visibleSweeps } from '../access/visibility.service';
 import type { AppDeps } from '../deps';
 import { Lot } from '../lots/lot.model';
 import { authenticate, currentUser } from '../middleware/authenticate';
 import { parseOrThrow } from '../middleware/validate';
 import { User } from '../users/user.model';
-import { visibleWaferWhere } from '../wafers/wafer-access.service';
 import { Wafer } from '../wafers/wafer.model';
 import { Sweep } from './sweep.model';
 
@@ -32,23 +31,6 @@ export const recentLimitSchema = z.coerce
   .default(DEFAULT_RECENT_LIMIT);
 
 const querySchema = z.object({ limit: recentLimitSchema }).strict();
-
-/**
- * A `where` on sweeps limiting them to wafers the user may see, or null when the user may see
- * none (a technician without assignments).
- */
-export async function visibleSweepWhere(user: SessionUser): Promise<WhereOptions<Sweep> | null> {
-  const waferWhere = await visibleWaferWhere(user);
-  if (
-    Object.keys(waferWhere).length === 0 &&
-    Object.getOwnPropertySymbols(waferWhere).length === 0
-  ) {
-    return {};
-  }
-  const wafers = await Wafer.findAll({ attributes: ['id'], where: waferWhere });
-  if (wafers.length === 0) return null;
-  return { waferId: { [Op.in]: wafers.map((w) => w.id) } };
-}
 
 /** Names of the given users by id. */
 export async function userNames(ids: number[]): Promise<Map<number, string>> {
@@ -75,10 +57,8 @@ export async function waferLabels(
 
 /** The newest `limit` sweeps the user may see, newest first. */
 export async function recentSweeps(user: SessionUser, limit: number): Promise<RecentSweepDto[]> {
-  const where = await visibleSweepWhere(user);
-  if (where === null) return [];
   const sweeps = await Sweep.findAll({
-    where,
+    where: visibleSweeps(user),
     order: [
       ['createdAt', 'DESC'],
       ['id', 'DESC'],

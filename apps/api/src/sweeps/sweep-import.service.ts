@@ -20,7 +20,7 @@ import { conflict, unprocessable, validationFailed } from '../errors';
 import { Station } from '../stations/station.model';
 import { uploadRawStorage } from '../storage/storage';
 import type { RawStorage } from '../storage/raw-storage';
-import { visibleWafer } from '../wafers/wafer-access.service';
+import { mayUploadTo } from '../access/visibility.service';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter, requireColumns, type ConvertedPoint } from './convert';
 import {
@@ -90,7 +90,7 @@ export async function previewSweep(
   input: { waferId: number; file: Buffer },
   actor: SweepActor,
 ): Promise<SweepPreviewResponse> {
-  await visibleWafer(actor, input.waferId);
+  await mayUploadTo(actor, input.waferId);
   const parsed = readFile(input.file);
   const { layout, table } = parsed;
   const rows = table.records.slice(0, PREVIEW_ROWS).map((cells, i) => ({
@@ -215,7 +215,7 @@ export async function importSweep(
   let rawKey: Promise<string> | null = null;
   try {
     return await sequelize.transaction(async (transaction) => {
-      const { wafer, lot } = await visibleWafer(actor, input.waferId, transaction);
+      const { wafer, lot } = await mayUploadTo(actor, input.waferId, transaction);
       // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
       await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
       const earlier = await Sweep.findOne({ where: { waferId: wafer.id, sha256 }, transaction });
@@ -255,7 +255,7 @@ interface StoreContext {
   storage: RawStorage;
   rawKey: Promise<string>;
   wafer: Wafer;
-  lot: Awaited<ReturnType<typeof visibleWafer>>['lot'];
+  lot: Awaited<ReturnType<typeof mayUploadTo>>['lot'];
 }
 
 /** Records converted per slice: one slice is stored while the next is converted. */

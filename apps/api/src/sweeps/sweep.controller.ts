@@ -2,8 +2,9 @@
  * Parses sweep requests (multipart uploads and ids) and shapes the answers.
  */
 import { COLUMN_MEANINGS, SWEEP_METHODS, type SweepColumnOverride } from '@rhotrace/api-types';
-import type { Request, Response } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import { z } from 'zod';
+import { mayUploadTo } from '../access/visibility.service';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { validationFailed } from '../errors';
@@ -53,6 +54,15 @@ const storeSchema = z
     barWidthCm: length,
   })
   .strict();
+
+/**
+ * Middleware before an upload's body is read: 403 for a role that may not upload, 404 for a
+ * wafer the user may not see, so neither costs an upload.
+ */
+export const checkUploadTargetHandler: RequestHandler = async (req, _res, next) => {
+  await mayUploadTo(currentUser(req), parseId(req.params));
+  next();
+};
 
 function actorOf(req: Request): SweepActor {
   return { ...currentUser(req), requestId: (req as { id?: unknown }).id as string | undefined };

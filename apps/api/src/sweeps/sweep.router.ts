@@ -2,10 +2,9 @@ import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import type { AppDeps } from '../deps';
 import { badRequest } from '../errors';
-import { authenticate, currentUser } from '../middleware/authenticate';
-import { parseId } from '../middleware/validate';
-import { visibleWafer } from '../wafers/wafer-access.service';
+import { authenticate } from '../middleware/authenticate';
 import {
+  checkUploadTargetHandler,
   deleteSweepHandler,
   getSweepHandler,
   listSweepsHandler,
@@ -40,11 +39,8 @@ export function sweepRouter(deps: AppDeps): Router {
       if (!error || error instanceof multer.MulterError) next(error);
       else next(badRequest(`The upload could not be read: ${(error as Error).message}`));
     });
-  // 404 before the body is read, so a hidden wafer costs no upload.
-  const waferVisible: RequestHandler = async (req, _res, next) => {
-    await visibleWafer(currentUser(req), parseId(req.params));
-    next();
-  };
+  // Checked before the body is read, so a hidden wafer costs no upload.
+  const waferVisible = checkUploadTargetHandler;
   router.post('/wafers/:id/sweeps/preview', auth, waferVisible, upload, previewSweepHandler);
   router.post('/wafers/:id/sweeps', auth, waferVisible, upload, storeSweepHandler);
   router.get('/wafers/:id/sweeps', auth, listSweepsHandler);

@@ -1,4 +1,11 @@
-import type { AssigneeDto, Page, Role, UserDto } from '@rhotrace/api-types';
+import {
+  roleCan,
+  rolesWith,
+  type AssigneeDto,
+  type Page,
+  type Role,
+  type UserDto,
+} from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
 import { recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
@@ -93,13 +100,15 @@ export async function updateUser(id: number, changes: UserChanges, actor: Actor)
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound(`User ${id}`);
     const before = toUserDto(user);
+    // The last active account that manages accounts (the admin) must stay one.
     const losesAdmin =
-      user.role === 'admin' &&
+      roleCan(user.role, 'users:manage') &&
       user.active &&
-      ((changes.role !== undefined && changes.role !== 'admin') || changes.active === false);
+      ((changes.role !== undefined && !roleCan(changes.role, 'users:manage')) ||
+        changes.active === false);
     if (losesAdmin) {
       const admins = await User.count({
-        where: { role: 'admin', active: true },
+        where: { role: { [Op.in]: rolesWith('users:manage') }, active: true },
         transaction: t,
       });
       if (admins <= 1) throw conflict('This is the last active admin; appoint another one first');

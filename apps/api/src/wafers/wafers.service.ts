@@ -1,14 +1,13 @@
 import type { Page, SessionUser, WaferDto, WaferState } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
+import { visibleLot, visibleWafer, visibleWafers } from '../access/visibility.service';
 import { Assignment } from '../assignments/assignment.model';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { Lot } from '../lots/lot.model';
-import { visibleLot } from '../lots/lots.service';
 import { likePattern, orderFrom } from '../middleware/fields';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from './wafer.model';
-import { visibleWafer, visibleWaferWhere } from './wafer-access.service';
 
 /** The API's view of a wafer; `lotCode` when the lot is at hand. */
 export function toWaferDto(wafer: Wafer, lotCode?: string): WaferDto {
@@ -47,7 +46,7 @@ export async function listWafers(
   user: SessionUser,
   options: WaferListOptions,
 ): Promise<Page<WaferDto>> {
-  const where: WhereOptions<Wafer>[] = [await visibleWaferWhere(user)];
+  const where: WhereOptions<Wafer>[] = [visibleWafers(user)];
   if (options.lotId !== undefined) where.push({ lotId: options.lotId });
   if (options.state) where.push({ state: options.state });
   if (options.material) {
