@@ -4,6 +4,7 @@ import { z } from 'zod';
 import type { AppDeps } from '../deps';
 import { dopingSchema } from '../analysis/analysis.controller';
 import { toCsv } from '../analysis/csv';
+import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { MODEL_FREE_PARAMETERS } from './fit-kinds';
@@ -76,10 +77,6 @@ const fitSchema = z
 
 /** Route handlers for fits. */
 export function fitHandlers(deps: AppDeps) {
-  const actor = (req: Request) => ({
-    id: currentUser(req).id,
-    requestId: String(req.id ?? '') || null,
-  });
   return {
     /** `POST /api/sweeps/:id/fits` → 201 with the stored fit. */
     async create(req: Request, res: Response): Promise<void> {
@@ -87,7 +84,7 @@ export function fitHandlers(deps: AppDeps) {
       const body = parseOrThrow(fitSchema, req.body, 'body') as FitRequest;
       res
         .status(201)
-        .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actor(req)));
+        .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actorOf(req)));
     },
     /** `GET /api/sweeps/:id/fits`. */
     async list(req: Request, res: Response): Promise<void> {
@@ -99,7 +96,7 @@ export function fitHandlers(deps: AppDeps) {
     },
     /** `DELETE /api/fits/:id` → 204. */
     async remove(req: Request, res: Response): Promise<void> {
-      await deleteFit(deps.sequelize, currentUser(req), parseId(req.params), actor(req));
+      await deleteFit(deps.sequelize, currentUser(req), parseId(req.params), actorOf(req));
       res.status(204).end();
     },
     /** `GET /api/sweeps/:id/fits.csv`: one row per fitted parameter. */

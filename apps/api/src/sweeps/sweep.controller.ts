@@ -5,6 +5,7 @@ import { COLUMN_MEANINGS, SWEEP_METHODS, type SweepColumnOverride } from '@rhotr
 import type { Request, RequestHandler, Response } from 'express';
 import { z } from 'zod';
 import { mayUploadTo } from '../access/visibility.service';
+import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { validationFailed } from '../errors';
@@ -17,7 +18,6 @@ import {
   listSweeps,
   previewSweep,
   sweepRawFile,
-  type SweepActor,
 } from './sweep.service';
 
 const length = z.coerce
@@ -64,9 +64,6 @@ export const checkUploadTargetHandler: RequestHandler = async (req, _res, next) 
   next();
 };
 
-function actorOf(req: Request): SweepActor {
-  return { ...currentUser(req), requestId: (req as { id?: unknown }).id as string | undefined };
-}
 
 function uploaded(req: Request): Express.Multer.File {
   if (!req.file) {
