@@ -4,13 +4,14 @@
  * it in a state that still shows them, the lots holding those wafers and the sweeps on them.
  * A hidden record answers 404 like a missing one, so its existence does not leak.
  *
- * Queries take a scope from here (`visibleWafers`, `visibleLots`, `visibleSweeps`, or
- * `visibleWaferSql` inside raw SQL); single reads go through `visibleWafer`, `visibleLot` and
- * `visibleSweep` (or `visibleSweepWithUploader`).
+ * Queries take a scope from here (`visibleWafers`, `visibleLots`, `visibleSweeps`,
+ * `visibleFits`, or `visibleWaferSql` inside raw SQL); single reads go through `visibleWafer`,
+ * `visibleLot` and `visibleSweep` (or `visibleSweepWithUploader`).
  */
 import type { SessionUser } from '@rhotrace/api-types';
 import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import { notFound } from '../errors';
+import { Fit } from '../fits/fit.model';
 import { Lot } from '../lots/lot.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
@@ -62,6 +63,15 @@ export function visibleLots(user: SessionUser): WhereOptions<Lot> {
 export function visibleSweeps(user: SessionUser): WhereOptions<Sweep> {
   if (seesAllRecords(user)) return {};
   return { waferId: { [Op.in]: literal(visibleWaferIdsSql(user, 'id')) } };
+}
+
+/** A `where` on fits keeping those on sweeps (not deleted) the user may see. */
+export function visibleFits(user: SessionUser): WhereOptions<Fit> {
+  const onWafer = seesAllRecords(user)
+    ? ''
+    : ` AND s.wafer_id IN ${visibleWaferIdsSql(user, 'id')}`;
+  const sweeps = `(SELECT s.id FROM sweeps AS s WHERE s.deleted_at IS NULL${onWafer})`;
+  return { sweepId: { [Op.in]: literal(sweeps) } };
 }
 
 /** The wafer and its lot when the user may see it; missing, deleted or hidden is 404. */
