@@ -20,7 +20,7 @@ import { devMailRouter } from './mail/dev-mail.router';
  */
 export function apiRoutes(deps: AppDeps): Router {
   const router = Router();
-  router.use(healthRouter(deps.sequelize));
+  router.use(healthRouter(deps));
   router.use(activityRouter(deps));
   router.use(sweepRouter(deps));
   router.use(authRouter(deps));

@@ -11,7 +11,7 @@ import { forbidden, notFound, validationFailed } from '../errors';
 import { Lot } from '../lots/lot.model';
 import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
-import { orderFrom, todayIso } from '../middleware/fields';
+import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';

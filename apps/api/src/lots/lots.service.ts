@@ -9,7 +9,7 @@ import {
 import { Assignment } from '../assignments/assignment.model';
 import { auditChange, recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Lot } from './lot.model';

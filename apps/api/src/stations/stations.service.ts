@@ -2,7 +2,7 @@ import type { Page, StationDto, StationInput, Thermometer } from '@rhotrace/api-
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { Station } from './station.model';
 
 /** The API's view of a probe station. */

@@ -9,7 +9,7 @@ import {
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
 import { recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
 import { User } from './user.model';
 

@@ -5,7 +5,7 @@ import { Assignment } from '../assignments/assignment.model';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { Lot } from '../lots/lot.model';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from './wafer.model';
 
