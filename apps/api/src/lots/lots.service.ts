@@ -7,7 +7,7 @@ import {
   visibleWaferSql,
 } from '../access/visibility.service';
 import { Assignment } from '../assignments/assignment.model';
-import { auditChange, recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
@@ -196,11 +196,7 @@ export async function deleteLot(id: number, actor: Actor): Promise<void> {
       before: unknown,
       after: unknown,
       action = 'delete',
-    ) =>
-      recordAudit(
-        { actorId: actor.id, action, entity, entityId, before, after, requestId: actor.requestId },
-        t,
-      );
+    ) => auditChange(t, actor, action, entity, entityId, { before, after });
     const open = waferIds.length
       ? await Assignment.findAll({
           where: {

@@ -7,7 +7,7 @@ import {
   type UserDto,
 } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
-import { recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, recordAudit, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
@@ -124,18 +124,10 @@ export async function updateUser(id: number, changes: UserChanges, actor: Actor)
       },
       { transaction: t },
     );
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'update',
-        entity: 'user',
-        entityId: user.id,
-        before,
-        after: { ...toUserDto(user), ...(passwordHash ? { passwordChanged: true } : {}) },
-        requestId: actor.requestId ?? null,
-      },
-      t,
-    );
+    await auditChange(t, actor, 'update', 'user', user.id, {
+      before,
+      after: { ...toUserDto(user), ...(passwordHash ? { passwordChanged: true } : {}) },
+    });
     return user;
   });
 }
