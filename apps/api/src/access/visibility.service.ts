@@ -16,6 +16,7 @@ import { Lot } from '../lots/lot.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { assertCan, can } from './policy';
+import { database } from '../db/database';
 
 /** Assignment states that still give a technician sight of the wafer (all but cancelled). */
 const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'] as const;
@@ -31,7 +32,7 @@ export function seesAllRecords(user: SessionUser): boolean {
  */
 export function visibleWaferSql(user: SessionUser, waferColumn: string): string {
   if (seesAllRecords(user)) return 'TRUE';
-  const db = Wafer.sequelize!;
+  const db = database();
   const states = VISIBLE_ASSIGNMENT_STATES.map((v) => db.escape(v)).join(', ');
   return (
     `EXISTS (SELECT 1 FROM assignments AS a WHERE a.wafer_id = ${waferColumn}` +
@@ -111,7 +112,7 @@ export async function visibleSweepWithUploader(
   user: SessionUser,
   sweepId: number,
 ): Promise<{ sweep: Sweep; uploaderName: string | null }> {
-  const rows = await Sweep.sequelize!.query(
+  const rows = await database().query(
     'SELECT s.*, u.name AS uploader_name FROM sweeps AS s' +
       ' JOIN wafers AS w ON w.id = s.wafer_id AND w.deleted_at IS NULL' +
       ' JOIN lots AS l ON l.id = w.lot_id AND l.deleted_at IS NULL' +

@@ -16,6 +16,7 @@ import { User } from '../users/user.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
+import { inTransaction } from '../db/database';
 
 /** States in which an assignment is still open (and can become overdue). */
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
@@ -126,7 +127,7 @@ export async function createAssignment(
   actor: Actor & { name: string },
   mail: { mailer: Mailer; publicUrl: string },
 ): Promise<AssignmentDto> {
-  return Assignment.sequelize!.transaction(async (t) => {
+  return inTransaction(async (t) => {
     const wafer = await Wafer.findByPk(input.waferId, { transaction: t });
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
@@ -214,7 +215,7 @@ export async function updateAssignment(
   actor: Actor,
   mail: { mailer: Mailer; publicUrl: string },
 ): Promise<AssignmentDto> {
-  return Assignment.sequelize!.transaction(async (t) => {
+  return inTransaction(async (t) => {
     const a = await Assignment.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!a || (!seesAllAssignments(user) && a.assigneeId !== user.id)) {
       throw notFound(`Assignment ${id}`);

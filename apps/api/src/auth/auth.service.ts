@@ -18,6 +18,7 @@ import {
   throttleKeys,
 } from './sign-in-throttle.service';
 import { signToken } from './token.service';
+import { inTransaction } from '../db/database';
 
 /** The one message for every failed sign-in, so it never tells which part was wrong. */
 export const SIGN_IN_FAILED = 'The e-mail address or password is not correct';
@@ -86,7 +87,7 @@ export async function requestPasswordReset(
   const user = await User.findOne({ where: { email, active: true } });
   if (!user) return;
   const token = randomBytes(32).toString('base64url');
-  await User.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const reset = await PasswordReset.create(
       {
         userId: user.id,
@@ -138,7 +139,7 @@ export async function confirmPasswordReset(
   requestId: string | null,
 ): Promise<void> {
   const passwordHash = await hashPassword(password);
-  await User.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const reset = await PasswordReset.findOne({
       where: { tokenSha256: sha256(token) },
       transaction: t,

@@ -13,6 +13,7 @@ import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Lot } from './lot.model';
+import { inTransaction } from '../db/database';
 
 /** The API's view of a lot. */
 export function toLotDto(lot: Lot, waferCount?: number): LotDto {
@@ -134,7 +135,7 @@ function duplicateCode(error: unknown, code: string | undefined): never {
 export async function createLot(input: LotInput, actor: Actor): Promise<LotDto> {
   assertSpecOrder(input.specMinOhmCm, input.specMaxOhmCm);
   try {
-    return await Lot.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const lot = await Lot.create({ ...input, createdById: actor.id }, { transaction: t });
       const dto = toLotDto(lot, 0);
       await auditChange(t, actor, 'create', 'lot', lot.id, { after: dto });
@@ -152,7 +153,7 @@ export async function updateLot(
   actor: Actor,
 ): Promise<LotDto> {
   try {
-    return await Lot.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const lot = await Lot.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       if (!lot) throw notFound(`Lot ${id}`);
       const before = toLotDto(lot);
@@ -176,7 +177,7 @@ export async function updateLot(
  * A lot with any measured wafer (a sweep not deleted) is refused with 409.
  */
 export async function deleteLot(id: number, actor: Actor): Promise<void> {
-  await Lot.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const lot = await Lot.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!lot) throw notFound(`Lot ${id}`);
     const wafers = await Wafer.findAll({ where: { lotId: id }, transaction: t, paranoid: false });

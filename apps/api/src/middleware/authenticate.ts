@@ -3,7 +3,7 @@ import type { Role, SessionUser } from '@rhotrace/api-types';
 import { QueryTypes } from 'sequelize';
 import { verifyToken } from '../auth/token.service';
 import { unauthenticated } from '../errors';
-import { User } from '../users/user.model';
+import { database } from '../db/database';
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -25,7 +25,7 @@ interface SessionRow {
  * lookup costs several times the CPU of the query itself.
  */
 async function sessionRow(userId: number): Promise<SessionRow | undefined> {
-  const rows = await User.sequelize!.query<SessionRow>(
+  const rows = await database().query<SessionRow>(
     'SELECT id, email, name, role, active, token_version AS tokenVersion FROM users WHERE id = ?',
     { replacements: [userId], type: QueryTypes.SELECT },
   );

@@ -4,6 +4,7 @@ import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { Station } from './station.model';
+import { inTransaction } from '../db/database';
 
 /** The API's view of a probe station. */
 export function toStationDto(s: Station): StationDto {
@@ -97,7 +98,7 @@ export async function getStation(id: number): Promise<StationDto> {
 export async function createStation(input: StationInput, actor: Actor): Promise<StationDto> {
   assertConsistent(input);
   try {
-    return await Station.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const station = await Station.create(input, { transaction: t });
       const dto = toStationDto(station);
       await auditChange(t, actor, 'create', 'station', station.id, { after: dto });
@@ -115,7 +116,7 @@ export async function updateStation(
   actor: Actor,
 ): Promise<StationDto> {
   try {
-    return await Station.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       if (!station) throw notFound(`Station ${id}`);
       const before = toStationDto(station);
@@ -132,7 +133,7 @@ export async function updateStation(
 
 /** Retires a station (soft delete; sweeps keep pointing at it), with its audit event. */
 export async function deleteStation(id: number, actor: Actor): Promise<void> {
-  await Station.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!station) throw notFound(`Station ${id}`);
     const before = toStationDto(station);

@@ -64,7 +64,6 @@ export const checkUploadTargetHandler: RequestHandler = async (req, _res, next) 
   next();
 };
 
-
 function uploaded(req: Request): Express.Multer.File {
   if (!req.file) {
     throw validationFailed('Attach the sweep file in the form field "file"', [

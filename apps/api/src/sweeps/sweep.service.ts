@@ -33,6 +33,7 @@ export {
   type ImportSweepInput,
   type SweepActor,
 } from './sweep-import.service';
+import { inTransaction } from '../db/database';
 
 function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
   return {
@@ -195,7 +196,7 @@ export async function sweepRawFile(
 export async function deleteSweep(id: number, actor: SweepActor): Promise<void> {
   const { sweep } = await visibleSweepWithUploader(actor, id);
   assertMayDeleteSweep(actor, sweep);
-  await Sweep.sequelize!.transaction(async (transaction) => {
+  await inTransaction(async (transaction) => {
     await sweep.update({ deletedById: actor.id }, { transaction });
     await sweep.destroy({ transaction });
     await auditChange(transaction, actor, 'delete', 'sweep', id, {

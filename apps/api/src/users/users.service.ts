@@ -12,6 +12,7 @@ import { conflict, notFound } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
 import { User } from './user.model';
+import { inTransaction } from '../db/database';
 
 /** bcrypt work factor for every stored password. */
 export const BCRYPT_COST = 10;
@@ -80,7 +81,7 @@ export async function createUser(
       throw error;
     }
   };
-  return transaction ? work(transaction) : User.sequelize!.transaction(work);
+  return transaction ? work(transaction) : inTransaction(work);
 }
 
 export interface UserChanges {
@@ -96,7 +97,7 @@ export interface UserChanges {
  */
 export async function updateUser(id: number, changes: UserChanges, actor: Actor): Promise<User> {
   const passwordHash = changes.password ? await hashPassword(changes.password) : undefined;
-  return User.sequelize!.transaction(async (t) => {
+  return inTransaction(async (t) => {
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound(`User ${id}`);
     const before = toUserDto(user);

@@ -8,6 +8,7 @@ import { Lot } from '../lots/lot.model';
 import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from './wafer.model';
+import { inTransaction } from '../db/database';
 
 /** The API's view of a wafer; `lotCode` when the lot is at hand. */
 export function toWaferDto(wafer: Wafer, lotCode?: string): WaferDto {
@@ -111,7 +112,7 @@ export async function createWafer(
   actor: Actor,
 ): Promise<WaferDto> {
   try {
-    return await Wafer.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const lot = await Lot.findByPk(lotId, { transaction: t });
       if (!lot) throw notFound(`Lot ${lotId}`);
       const wafer = await Wafer.create({ ...input, lotId }, { transaction: t });
@@ -131,7 +132,7 @@ export async function updateWafer(
   actor: Actor,
 ): Promise<WaferDto> {
   try {
-    return await Wafer.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const wafer = await Wafer.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
       if (!wafer || !lot) throw notFound(`Wafer ${id}`);
@@ -148,7 +149,7 @@ export async function updateWafer(
 
 /** Soft-deletes a wafer without sweeps (409 otherwise) and cancels its open assignments. */
 export async function deleteWafer(id: number, actor: Actor): Promise<void> {
-  await Wafer.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const wafer = await Wafer.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!wafer) throw notFound(`Wafer ${id}`);
     const sweeps = await Sweep.count({ where: { waferId: id }, transaction: t });
