@@ -75,8 +75,8 @@ const fitSchema = z
   })
   .refine(reversed, reversedIssue);
 
-/** Route handlers for fits. */
-export function fitHandlers(deps: AppDeps) {
+/** Handlers of fits. */
+export function fitsController(deps: AppDeps) {
   return {
     /** `POST /api/sweeps/:id/fits` → 201 with the stored fit. */
     async create(req: Request, res: Response): Promise<void> {

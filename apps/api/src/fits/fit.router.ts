@@ -2,7 +2,7 @@ import { Router } from 'express';
 import type { AppDeps } from '../deps';
 import { requireCapability } from '../access/require-capability';
 import { authenticate } from '../middleware/authenticate';
-import { fitHandlers } from './fit.controller';
+import { fitsController } from './fit.controller';
 
 /**
  * Fits: every role may read fits of sweeps it can see; `fits:run` runs and saves them (403
@@ -11,7 +11,7 @@ import { fitHandlers } from './fit.controller';
 export function fitsRouter(deps: AppDeps): Router {
   const router = Router();
   const auth = authenticate(deps.config.jwtSecret);
-  const h = fitHandlers(deps);
+  const h = fitsController(deps);
   router.post('/sweeps/:id/fits', auth, requireCapability('fits:run'), h.create);
   router.get('/sweeps/:id/fits', auth, h.list);
   router.get('/sweeps/:id/fits.csv', auth, h.csv);

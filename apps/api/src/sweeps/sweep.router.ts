@@ -3,16 +3,7 @@ import multer from 'multer';
 import type { AppDeps } from '../deps';
 import { badRequest } from '../errors';
 import { authenticate } from '../middleware/authenticate';
-import {
-  checkUploadTargetHandler,
-  deleteSweepHandler,
-  getSweepHandler,
-  listSweepsHandler,
-  pointsCsvHandler,
-  previewSweepHandler,
-  rawFileHandler,
-  storeSweepHandler,
-} from './sweep.controller';
+import { sweepsController as c } from './sweep.controller';
 
 /** The upload paths (under /api), the only ones that take multipart/form-data bodies. */
 export const SWEEP_UPLOAD_PATHS = /^\/wafers\/[^/]+\/sweeps(?:\/preview)?\/?$/i;
@@ -40,13 +31,13 @@ export function sweepRouter(deps: AppDeps): Router {
       else next(badRequest(`The upload could not be read: ${(error as Error).message}`));
     });
   // Checked before the body is read, so a hidden wafer costs no upload.
-  const waferVisible = checkUploadTargetHandler;
-  router.post('/wafers/:id/sweeps/preview', auth, waferVisible, upload, previewSweepHandler);
-  router.post('/wafers/:id/sweeps', auth, waferVisible, upload, storeSweepHandler);
-  router.get('/wafers/:id/sweeps', auth, listSweepsHandler);
-  router.get('/sweeps/:id', auth, getSweepHandler);
-  router.get('/sweeps/:id/points.csv', auth, pointsCsvHandler);
-  router.get('/sweeps/:id/raw', auth, rawFileHandler);
-  router.delete('/sweeps/:id', auth, deleteSweepHandler);
+  const waferVisible = c.checkUploadTarget;
+  router.post('/wafers/:id/sweeps/preview', auth, waferVisible, upload, c.preview);
+  router.post('/wafers/:id/sweeps', auth, waferVisible, upload, c.store);
+  router.get('/wafers/:id/sweeps', auth, c.list);
+  router.get('/sweeps/:id', auth, c.get);
+  router.get('/sweeps/:id/points.csv', auth, c.pointsCsv);
+  router.get('/sweeps/:id/raw', auth, c.raw);
+  router.delete('/sweeps/:id', auth, c.remove);
   return router;
 }
