@@ -2,7 +2,7 @@ import type { Request, Response } from 'express';
 import type { FitRequest } from '@rhotrace/api-types';
 import { z } from 'zod';
 import type { AppDeps } from '../deps';
-import { dopingSchema } from '../analysis/analysis.controller';
+import { dopingSchema } from '../analysis/analysis.schemas';
 import { toCsv } from '../analysis/csv';
 import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
