@@ -123,7 +123,7 @@ export default tseslint.config(
     },
   },
   {
-    // The API's layers (STYLE.md): routers wire paths and controllers parse and shape; neither
+    // The API's layers (DEVELOPERS.md): routers wire paths and controllers parse and shape; neither
     // touches Sequelize or a model. Services hold the logic and never see express.
     files: ['apps/api/src/**/*.router.ts', 'apps/api/src/**/*.controller.ts'],
     rules: {
