@@ -2,7 +2,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { comparePassword } from './password-hasher';
 import type { LoginResponse, SessionUser } from '@rhotrace/api-types';
 import { Op } from 'sequelize';
-import { recordAudit } from '../audit/audit.service';
+import { auditChange, recordAudit } from '../audit/audit.service';
 import type { AppConfig } from '../config';
 import { badRequest, unauthenticated } from '../errors';
 import type { Mailer } from '../mail/mailer.service';
@@ -162,16 +162,9 @@ export async function confirmPasswordReset(
       { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction: t },
     );
     await user.update({ passwordHash, tokenVersion: user.tokenVersion + 1 }, { transaction: t });
-    await recordAudit(
-      {
-        actorId: user.id,
-        action: 'password-reset',
-        entity: 'user',
-        entityId: user.id,
-        after: { passwordChanged: true, resetId: reset.id },
-        requestId,
-      },
-      t,
-    );
+    // The user whose password it is makes this change, through the link sent to them.
+    await auditChange(t, { id: user.id, requestId }, 'password-reset', 'user', user.id, {
+      after: { passwordChanged: true, resetId: reset.id },
+    });
   });
 }

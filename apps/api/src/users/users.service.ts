@@ -7,7 +7,7 @@ import {
   type UserDto,
 } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
-import { auditChange, recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
@@ -62,17 +62,7 @@ export async function createUser(
         { email, name: input.name, role: input.role, passwordHash },
         { transaction: t },
       );
-      await recordAudit(
-        {
-          actorId: actor?.id ?? null,
-          action: 'create',
-          entity: 'user',
-          entityId: user.id,
-          after: toUserDto(user),
-          requestId: actor?.requestId ?? null,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'create', 'user', user.id, { after: toUserDto(user) });
       return user;
     } catch (error) {
       if (error instanceof UniqueConstraintError) {
