@@ -3,7 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { assertMayDeleteFit } from '../access/policy';
 import { visibleSweep } from '../access/visibility.service';
 import type { Actor } from '../audit/audit.service';
-import { auditChange } from '../audit/audit.service';
+import { auditChange, recordAudit } from '../audit/audit.service';
 import { asNotFound, badRequest, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
 import { isMetal, isSemiconductor, semiconductorParameterSet } from '../analysis/model.service';
@@ -190,15 +190,23 @@ export async function createFit(
       },
       { transaction },
     );
-    await auditChange(transaction, actor, 'create', 'fit', fit.id, {
-      after: {
-        sweepId,
-        kind: request.kind,
-        inputs,
-        parameters: computed.parameters,
-        converged: computed.converged,
+    await recordAudit(
+      {
+        actorId: actor.id,
+        action: 'create',
+        entity: 'fit',
+        entityId: fit.id,
+        after: {
+          sweepId,
+          kind: request.kind,
+          inputs,
+          parameters: computed.parameters,
+          converged: computed.converged,
+        },
+        requestId: actor.requestId,
       },
-    });
+      transaction,
+    );
     // The answer is made from the values just stored, not read back through the JSON columns
     // (parsing a few thousand residuals again cost more than the fit itself).
     return {
