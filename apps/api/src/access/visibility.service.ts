@@ -16,7 +16,7 @@ import { Lot } from '../lots/lot.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { assertCan, can } from './policy';
-import { database } from '../db/database';
+import { database } from '../db/connection';
 
 /** Assignment states that still give a technician sight of the wafer (all but cancelled). */
 const VISIBLE_ASSIGNMENT_STATES = ['assigned', 'in progress', 'done'] as const;

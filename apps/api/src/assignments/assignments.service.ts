@@ -16,7 +16,7 @@ import { User } from '../users/user.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /** States in which an assignment is still open (and can become overdue). */
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];

@@ -18,7 +18,7 @@ import {
   throttleKeys,
 } from './sign-in-throttle.service';
 import { signToken } from './token.service';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /** The one message for every failed sign-in, so it never tells which part was wrong. */
 export const SIGN_IN_FAILED = 'The e-mail address or password is not correct';

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { HttpError } from '../errors';
 import { SignInThrottle } from '../users/user.model';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /**
  * How failed sign-ins are slowed, then refused. After `slowAfter` failures inside `windowS`

@@ -1,4 +1,4 @@
-import { Sequelize, type Transaction } from 'sequelize';
+import { Sequelize } from 'sequelize';
 import type { DbConfig } from '../config';
 import { initAssignmentModel } from '../assignments/assignment.model';
 import { initAuditEventModel } from '../audit/audit-event.model';
@@ -40,22 +40,7 @@ export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}
   initFitModel(sequelize);
   initAuditEventModel(sequelize);
   initOutgoingEmailModel(sequelize);
-  connected = sequelize;
   return sequelize;
-}
-
-/** The connection the models are bound to: the one `connectDatabase` opened last. */
-let connected: Sequelize | null = null;
-
-/** The database the models use; services reach it only through here (or a model). */
-export function database(): Sequelize {
-  if (!connected) throw new Error('connectDatabase has not run');
-  return connected;
-}
-
-/** Runs `work` in one transaction of `database()`: committed when it resolves, else rolled back. */
-export function inTransaction<T>(work: (transaction: Transaction) => Promise<T>): Promise<T> {
-  return database().transaction(work);
 }
 
 /** True when the database answers a trivial query within the timeout. */

@@ -13,7 +13,7 @@ import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Lot } from './lot.model';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /** The API's view of a lot. */
 export function toLotDto(lot: Lot, waferCount?: number): LotDto {

@@ -1,7 +1,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { Op, type Transaction } from 'sequelize';
 import { OutgoingEmail } from './outgoing-email.model';
-import { database } from '../db/database';
+import { database } from '../db/connection';
 
 export interface MailMessage {
   to: string;

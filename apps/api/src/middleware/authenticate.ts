@@ -3,7 +3,7 @@ import type { Role, SessionUser } from '@rhotrace/api-types';
 import { QueryTypes } from 'sequelize';
 import { verifyToken } from '../auth/token.service';
 import { unauthenticated } from '../errors';
-import { database } from '../db/database';
+import { database } from '../db/connection';
 
 declare module 'express-serve-static-core' {
   interface Request {

@@ -4,7 +4,7 @@ import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { Station } from './station.model';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /** The API's view of a probe station. */
 export function toStationDto(s: Station): StationDto {

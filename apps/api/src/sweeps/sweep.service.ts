@@ -33,7 +33,7 @@ export {
   type ImportSweepInput,
   type SweepActor,
 } from './sweep-import.service';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
   return {

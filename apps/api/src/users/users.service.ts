@@ -12,7 +12,7 @@ import { conflict, notFound } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
 import { User } from './user.model';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /** bcrypt work factor for every stored password. */
 export const BCRYPT_COST = 10;

@@ -8,7 +8,7 @@ import { Lot } from '../lots/lot.model';
 import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from './wafer.model';
-import { inTransaction } from '../db/database';
+import { inTransaction } from '../db/connection';
 
 /** The API's view of a wafer; `lotCode` when the lot is at hand. */
 export function toWaferDto(wafer: Wafer, lotCode?: string): WaferDto {
