@@ -2,10 +2,40 @@
  * The public API of @rhotrace/api-types: request and response types shared by the API and the
  * web app, the error shape, and the role-to-capability table. Named re-exports only.
  */
-export { ERROR_STATUS } from './errors';
-export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
-export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
-export type { Page, HealthResponse } from './common';
+export { MAX_RECENT_LIMIT, DEFAULT_RECENT_LIMIT } from './activity';
+export type {
+  RecentSweepDto,
+  RecentSweepsResponse,
+  RecentFitDto,
+  RecentFitsResponse,
+} from './activity';
+export { FIT_KINDS } from './analysis';
+export type {
+  RegimeName,
+  DopingInput,
+  ModelCurveRequest,
+  SemiconductorCurvePoint,
+  MetalCurvePoint,
+  ModelCurveResponse,
+  SourceDto,
+  SemiconductorMaterialDto,
+  MetalMaterialDto,
+  MaterialsResponse,
+  AnalysisSweepDto,
+  AnalysisStep,
+  ArrheniusPoint,
+  SuggestedWindow,
+  SpecCheckDto,
+  SweepAnalysisResponse,
+  FitKind,
+  FitRequest,
+  FitGoodness,
+  FitDto,
+  DopantDensityResponse,
+  LotSummaryWafer,
+  LotSummaryResponse,
+  CompareResponse,
+} from './analysis';
 export { ROLES, MIN_PASSWORD_LENGTH, USER_SORT_FIELDS } from './auth';
 export type {
   Role,
@@ -23,6 +53,10 @@ export type {
 } from './auth';
 export { CAPABILITIES, ROLE_CAPABILITIES, roleCan, rolesWith } from './capabilities';
 export type { Capability } from './capabilities';
+export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
+export type { Page, HealthResponse } from './common';
+export { ERROR_STATUS } from './errors';
+export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,
@@ -55,33 +89,6 @@ export type {
   UpdateAssignmentRequest,
   AuditListQuery,
 } from './records';
-export { FIT_KINDS } from './analysis';
-export type {
-  RegimeName,
-  DopingInput,
-  ModelCurveRequest,
-  SemiconductorCurvePoint,
-  MetalCurvePoint,
-  ModelCurveResponse,
-  SourceDto,
-  SemiconductorMaterialDto,
-  MetalMaterialDto,
-  MaterialsResponse,
-  AnalysisSweepDto,
-  AnalysisStep,
-  ArrheniusPoint,
-  SuggestedWindow,
-  SpecCheckDto,
-  SweepAnalysisResponse,
-  FitKind,
-  FitRequest,
-  FitGoodness,
-  FitDto,
-  DopantDensityResponse,
-  LotSummaryWafer,
-  LotSummaryResponse,
-  CompareResponse,
-} from './analysis';
 export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
 export type {
   SweepMethod,
@@ -102,10 +109,3 @@ export type {
   SweepPointDto,
   SweepDto,
 } from './sweeps';
-export { MAX_RECENT_LIMIT, DEFAULT_RECENT_LIMIT } from './activity';
-export type {
-  RecentSweepDto,
-  RecentSweepsResponse,
-  RecentFitDto,
-  RecentFitsResponse,
-} from './activity';
