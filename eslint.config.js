@@ -43,6 +43,12 @@ const restrict = (paths, groups = []) => [
   },
 ];
 
+/** What nothing in the API imports: the web app and its libraries. */
+const apiNeverImports = ['@angular/core', '@angular/common', 'plotly.js-dist-min'];
+const apiNeverImportsGroups = [
+  { group: ['@angular/*', '@rhotrace/web'], message: 'the API never imports the web app.' },
+];
+
 export default tseslint.config(
   {
     ignores: [
@@ -113,9 +119,32 @@ export default tseslint.config(
   {
     files: ['apps/api/**/*.ts', 'db/**/*.ts', 'scripts/**/*.ts'],
     rules: {
+      'no-restricted-imports': restrict(apiNeverImports, apiNeverImportsGroups),
+    },
+  },
+  {
+    // The API's layers (DEVELOPERS.md): routers wire paths and controllers parse and shape; neither
+    // touches Sequelize or a model. Services hold the logic and never see express.
+    files: ['apps/api/src/**/*.router.ts', 'apps/api/src/**/*.controller.ts'],
+    rules: {
       'no-restricted-imports': restrict(
-        ['@angular/core', '@angular/common', 'plotly.js-dist-min'],
-        [{ group: ['@angular/*', '@rhotrace/web'], message: 'the API never imports the web app.' }],
+        [...apiNeverImports, 'sequelize', 'mariadb'],
+        [
+          ...apiNeverImportsGroups,
+          {
+            group: ['**/*.model', '*.model'],
+            message: 'Routers and controllers never touch a model; call the resource service.',
+          },
+        ],
+      ),
+    },
+  },
+  {
+    files: ['apps/api/src/**/*.service.ts'],
+    rules: {
+      'no-restricted-imports': restrict(
+        [...apiNeverImports, 'express', 'multer'],
+        apiNeverImportsGroups,
       ),
     },
   },

@@ -192,6 +192,11 @@ async function main(): Promise<void> {
   if (want('lint'))
     await suite('lint', bin('eslint'), ['.', '--max-warnings=0'], { cwd: ROOT, kind: 'exit' });
   if (want('lint'))
+    await suite('api-types-index', bin('tsx'), ['scripts/api-types-index.ts', '--check'], {
+      cwd: ROOT,
+      kind: 'exit',
+    });
+  if (want('lint'))
     await suite('format', bin('prettier'), ['--check', '.', '--log-level=warn'], {
       cwd: ROOT,
       kind: 'exit',

@@ -2,8 +2,7 @@ import { Router } from 'express';
 import type { AppDeps } from './deps';
 import { healthRouter } from './health/health.router';
 import { sweepRouter } from './sweeps/sweep.router';
-import { recentSweepsRouter } from './sweeps/recent-sweeps';
-import { recentFitsRouter } from './fits/recent-fits';
+import { activityRouter } from './activity/activity.router';
 import { analysisRouter } from './analysis/analysis.router';
 import { fitsRouter } from './fits/fit.router';
 import { reportsRouter } from './reports/report.router';
@@ -21,9 +20,8 @@ import { devMailRouter } from './mail/dev-mail.router';
  */
 export function apiRoutes(deps: AppDeps): Router {
   const router = Router();
-  router.use(healthRouter(deps.sequelize));
-  router.use(recentSweepsRouter(deps));
-  router.use(recentFitsRouter(deps));
+  router.use(healthRouter(deps));
+  router.use(activityRouter(deps));
   router.use(sweepRouter(deps));
   router.use(authRouter(deps));
   router.use(usersRouter(deps));

@@ -1,19 +1,126 @@
-export * from './errors';
-export * from './common';
-export * from './auth';
-export * from './records';
-export * from './analysis';
-export { FIT_EXCLUDED_FLAGS, FIT_KINDS } from './fits';
+/**
+ * The public API of @rhotrace/api-types: request and response types shared by the API and the
+ * web app, the error shape, and the role-to-capability table. Named re-exports only.
+ */
+export { MAX_RECENT_LIMIT, DEFAULT_RECENT_LIMIT } from './activity';
 export type {
+  RecentSweepDto,
+  RecentSweepsResponse,
+  RecentFitDto,
+  RecentFitsResponse,
+} from './activity';
+export type {
+  RegimeName,
+  DopingInput,
+  ModelCurveRequest,
+  SemiconductorCurvePoint,
+  MetalCurvePoint,
+  ModelCurveResponse,
+  SourceDto,
+  SemiconductorMaterialDto,
+  MetalMaterialDto,
+  MaterialsResponse,
+  AnalysisSweepDto,
+  AnalysisStep,
+  ArrheniusPoint,
+  SuggestedWindow,
+  SpecCheckDto,
+  SweepAnalysisResponse,
+  DopantDensityResponse,
+  LotSummaryWafer,
+  LotSummaryResponse,
+  CompareResponse,
+} from './analysis';
+export { ROLES, MIN_PASSWORD_LENGTH, USER_SORT_FIELDS } from './auth';
+export type {
+  Role,
+  UserDto,
+  SessionUser,
+  LoginRequest,
+  LoginResponse,
+  PasswordResetRequest,
+  PasswordResetConfirm,
+  CreateUserRequest,
+  UpdateUserRequest,
+  PasswordResetAccepted,
+  UserListQuery,
+  AssigneeDto,
+} from './auth';
+export { CAPABILITIES, ROLE_CAPABILITIES, roleCan, rolesWith } from './capabilities';
+export type { Capability } from './capabilities';
+export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
+export type { Page, HealthResponse } from './common';
+export { ERROR_STATUS } from './errors';
+export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
+export { FIT_KINDS, FIT_EXCLUDED_FLAGS } from './fits';
+export type {
+  FitKind,
+  FitRequestOptions,
+  FitRequest,
   FitCorrelation,
-  FitCurvature,
-  FitDto,
   FitGoodness,
   FitInterpretation,
-  FitKind,
-  FitRequest,
-  FitRequestOptions,
+  FitCurvature,
+  FitDto,
 } from './fits';
-export * from './spec';
-export * from './sweeps';
-export * from './activity';
+export {
+  SEMICONDUCTORS,
+  METAL_FILMS,
+  MATERIALS,
+  WAFER_STATES,
+  ASSIGNMENT_STATES,
+  THERMOMETERS,
+  LOT_SORT_FIELDS,
+  WAFER_SORT_FIELDS,
+  STATION_SORT_FIELDS,
+  ASSIGNMENT_SORT_FIELDS,
+} from './records';
+export type {
+  Material,
+  WaferState,
+  AssignmentState,
+  Thermometer,
+  LotDto,
+  LotInput,
+  WaferDto,
+  StationDto,
+  AssignmentDto,
+  AuditEventDto,
+  LotListQuery,
+  WaferListQuery,
+  AssignmentListQuery,
+  WaferInput,
+  StationInput,
+  CreateAssignmentRequest,
+  UpdateAssignmentRequest,
+  AuditListQuery,
+} from './records';
+export { UNCERTAINTY_SOURCES, SPEC_VERDICT_WORDS, SPEC_VERDICT_MEANINGS } from './spec';
+export type {
+  ValueAt23CMethod,
+  SpecVerdict,
+  UncertaintySource,
+  UncertaintyContribution,
+  ValueUncertainty,
+  LotCapability,
+} from './spec';
+export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
+export type {
+  SweepMethod,
+  ColumnMeaning,
+  PointFlag,
+  SweepColumn,
+  RowProblem,
+  PreviewRow,
+  SweepPreviewResponse,
+  SweepColumnOverride,
+  SweepGeometryInput,
+  GeometrySource,
+  SweepGeometry,
+  SweepCreatedResponse,
+  SweepSummaryDto,
+  SweepParseReport,
+  RawReading,
+  SweepPointDto,
+  SweepDto,
+} from './sweeps';

@@ -1,59 +1,12 @@
 import type { Request, Response } from 'express';
-import { MATERIALS } from '@rhotrace/api-types';
-import { z } from 'zod';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { badRequest } from '../errors';
 import { MAX_COMPARE_SWEEPS, compareSweeps, sweepAnalysis, waferDopant } from './analysis.service';
+import { compareSchema, curveSchema } from './analysis.schemas';
 import { toCsv } from './csv';
 import { lotSummary } from './lot-summary.service';
 import { curveFor, materials } from './model.service';
-
-const positiveDensity = z
-  .number({ invalid_type_error: 'must be a number' })
-  .finite('must be finite')
-  .min(0, 'must be 0 or more')
-  .max(1e22, 'must be at most 1e22 cm^-3');
-const level = z
-  .number({ invalid_type_error: 'must be a number' })
-  .gt(0, 'must be above 0 eV')
-  .max(1, 'must be at most 1 eV');
-
-/** Doping as the request gives it (densities cm^-3, levels eV). */
-export const dopingSchema = z
-  .object({
-    donorDensity: positiveDensity,
-    acceptorDensity: positiveDensity,
-    donorLevel: level.optional(),
-    acceptorLevel: level.optional(),
-    donor: z.string().max(8).optional(),
-    acceptor: z.string().max(8).optional(),
-  })
-  .strict();
-
-const temperature = (name: string) =>
-  z
-    .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
-    .finite('must be finite')
-    .min(1, `${name} must be at least 1 K`)
-    .max(1500, `${name} must be at most 1500 K`);
-
-const curveSchema = z
-  .object({
-    material: z.enum(MATERIALS, {
-      errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }),
-    }),
-    doping: dopingSchema.optional(),
-    fromK: temperature('fromK'),
-    toK: temperature('toK'),
-    steps: z
-      .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
-      .int('must be a whole number')
-      .min(2, 'must be at least 2')
-      .max(2000, 'must be at most 2000'),
-  })
-  .strict()
-  .refine((b) => b.fromK < b.toK, { message: 'must be above fromK', path: ['toK'] });
 
 /** `POST /api/model/curve`. */
 export function postModelCurve(req: Request, res: Response): void {
@@ -125,11 +78,6 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
   );
   res.type('text/csv; charset=utf-8').attachment(`lot-${s.lot.id}-summary.csv`).send(csv);
 }
-
-const compareSchema = z.object({
-  sweeps: z.string({ required_error: 'is required' }).min(1, 'is required'),
-  points: z.coerce.number().int('must be a whole number').min(2).max(2000).default(200),
-});
 
 /** `GET /api/compare?sweeps=1,2,3[&points=200]`. */
 export async function getCompare(req: Request, res: Response): Promise<void> {

@@ -7,13 +7,13 @@ import type {
   SweepAnalysisResponse,
 } from '@rhotrace/api-types';
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
+import { visibleSweep, visibleWafer } from '../access/visibility.service';
 import { notFound, unprocessable } from '../errors';
-import { visibleWafer } from '../wafers/wafer-access.service';
 import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
-import { averageSteps, sweepReadings, sweepSummary, visibleSweep } from './sweep-data.service';
+import { averageSteps, sweepReadings, sweepSummary } from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {

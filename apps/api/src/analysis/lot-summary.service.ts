@@ -7,12 +7,10 @@ import type {
 import { processPerformance } from '@rhotrace/physics';
 import { Op } from 'sequelize';
 import { max, mean, min, sampleStandardDeviation } from 'simple-statistics';
-import { notFound } from '../errors';
+import { visibleLot, visibleWafers } from '../access/visibility.service';
 import { Fit } from '../fits/fit.model';
-import { Lot } from '../lots/lot.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
-import { visibleWaferWhere } from '../wafers/wafer-access.service';
 import { specVerdict } from './spec-check';
 import { waferAssessment } from './spec.service';
 
@@ -42,13 +40,11 @@ export function lotCapability(
 
 /** `GET /api/lots/:id/summary`. Technicians see only their assigned wafers (404 if none). */
 export async function lotSummary(user: SessionUser, lotId: number): Promise<LotSummaryResponse> {
-  const lot = await Lot.findByPk(lotId);
-  if (!lot) throw notFound(`Lot ${lotId}`);
+  const lot = await visibleLot(user, lotId);
   const wafers = await Wafer.findAll({
-    where: { ...(await visibleWaferWhere(user)), lotId } as never,
+    where: { [Op.and]: [visibleWafers(user), { lotId }] },
     order: [['number', 'ASC']],
   });
-  if (user.role === 'technician' && wafers.length === 0) throw notFound(`Lot ${lotId}`);
 
   const sweeps = await Sweep.findAll({
     attributes: ['id', 'waferId'],

@@ -31,7 +31,7 @@ function gapFrom(steps: AnalysisStep[], minK: number, maxK: number): number {
     .map((s) => ({ temperatureK: s.temperatureK, value: s.resistivityOhmCm }));
   const fit = fitArrhenius(window, { quantity: 'resistivity' });
   return interpretArrheniusSlope({
-    activationEnergyEv: fit.activationEnergyEv,
+    activationEnergyEv: fit.parameters.activationEnergyEv,
     regime: 'intrinsic',
     material: 'Si',
   }).impliedEv!;

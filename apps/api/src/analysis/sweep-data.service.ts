@@ -1,12 +1,9 @@
-import type { AnalysisStep, SessionUser, AnalysisSweepDto } from '@rhotrace/api-types';
+import type { AnalysisStep, AnalysisSweepDto } from '@rhotrace/api-types';
 import { FIT_EXCLUDED_FLAGS } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
-import { asNotFound, notFound } from '../errors';
-import type { Lot } from '../lots/lot.model';
+import type { VisibleSweep } from '../access/visibility.service';
 import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
-import { Sweep, SweepPoint } from '../sweeps/sweep.model';
-import type { Wafer } from '../wafers/wafer.model';
-import { visibleWafer } from '../wafers/wafer-access.service';
+import { SweepPoint } from '../sweeps/sweep.model';
 
 /**
  * Readings closer than this to the first reading of a step belong to the same temperature
@@ -14,13 +11,6 @@ import { visibleWafer } from '../wafers/wafer-access.service';
  * gives steps a quarter kelvin wide.
  */
 export const STEP_TOLERANCE_K = 0.25;
-
-/** A sweep with the wafer and lot it belongs to, already checked for visibility. */
-export interface VisibleSweep {
-  sweep: Sweep;
-  wafer: Wafer;
-  lot: Lot;
-}
 
 /** One reading as the analysis uses it. */
 export interface AnalysisPoint {
@@ -33,21 +23,6 @@ export interface SweepReadings {
   points: AnalysisPoint[];
   /** Readings left out: resistivity not finite or not positive. */
   skipped: number;
-}
-
-/**
- * The sweep when the user may see its wafer. A missing sweep, a deleted one and one on a wafer
- * hidden from a technician all answer 404.
- */
-export async function visibleSweep(user: SessionUser, sweepId: number): Promise<VisibleSweep> {
-  const sweep = await Sweep.findByPk(sweepId);
-  if (!sweep) throw notFound(`Sweep ${sweepId}`);
-  try {
-    const { wafer, lot } = await visibleWafer(user, sweep.waferId);
-    return { sweep, wafer, lot };
-  } catch (error) {
-    throw asNotFound(error, `Sweep ${sweepId}`);
-  }
 }
 
 interface CachedReadings {

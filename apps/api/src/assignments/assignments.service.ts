@@ -6,24 +6,22 @@ import {
 } from '@rhotrace/api-types';
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
+import { can, seesAllAssignments } from '../access/policy';
 import { forbidden, notFound, validationFailed } from '../errors';
 import { Lot } from '../lots/lot.model';
 import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
-import { orderFrom, todayIso } from '../middleware/fields';
+import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
+import { inTransaction } from '../db/connection';
 
 /** States in which an assignment is still open (and can become overdue). */
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
 /** The order an assignee may move their own assignment along. */
 const FORWARD: AssignmentState[] = ['assigned', 'in progress', 'done'];
-/** Roles that assign work: admins and managers hand wafers to technicians. */
-export const ASSIGNERS = ['admin', 'manager'] as const;
-
-const isAssigner = (user: SessionUser) => (ASSIGNERS as readonly string[]).includes(user.role);
 
 interface Related {
   wafers: Map<number, Wafer>;
@@ -129,7 +127,7 @@ export async function createAssignment(
   actor: Actor & { name: string },
   mail: { mailer: Mailer; publicUrl: string },
 ): Promise<AssignmentDto> {
-  return Assignment.sequelize!.transaction(async (t) => {
+  return inTransaction(async (t) => {
     const wafer = await Wafer.findByPk(input.waferId, { transaction: t });
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
@@ -157,7 +155,7 @@ export async function listAssignments(
   options: AssignmentListOptions,
 ): Promise<Page<AssignmentDto>> {
   let assigneeId = options.assignee === 'me' ? user.id : options.assignee;
-  if (user.role === 'technician') {
+  if (!seesAllAssignments(user)) {
     if (assigneeId !== undefined && assigneeId !== user.id) {
       throw forbidden('Technicians may list only their own assignments (assignee=me)');
     }
@@ -192,7 +190,7 @@ export async function listAssignments(
 /** One assignment; a technician sees only their own (404 otherwise). */
 export async function getAssignment(user: SessionUser, id: number): Promise<AssignmentDto> {
   const a = await Assignment.findByPk(id);
-  if (!a || (user.role === 'technician' && a.assigneeId !== user.id)) {
+  if (!a || (!seesAllAssignments(user) && a.assigneeId !== user.id)) {
     throw notFound(`Assignment ${id}`);
   }
   return toAssignmentDto(a, await related([a]));
@@ -217,12 +215,12 @@ export async function updateAssignment(
   actor: Actor,
   mail: { mailer: Mailer; publicUrl: string },
 ): Promise<AssignmentDto> {
-  return Assignment.sequelize!.transaction(async (t) => {
+  return inTransaction(async (t) => {
     const a = await Assignment.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
-    if (!a || (user.role === 'technician' && a.assigneeId !== user.id)) {
+    if (!a || (!seesAllAssignments(user) && a.assigneeId !== user.id)) {
       throw notFound(`Assignment ${id}`);
     }
-    if (!isAssigner(user)) {
+    if (!can(user, 'assignments:assign')) {
       if (a.assigneeId !== user.id)
         throw forbidden('Only admins, managers and the assignee may change this');
       const others = Object.keys(changes).filter((k) => k !== 'state');

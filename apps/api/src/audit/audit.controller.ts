@@ -1,23 +1,8 @@
 import type { Request, Response } from 'express';
-import {
-  DEFAULT_PAGE_SIZE,
-  MAX_PAGE_SIZE,
-  type AuditEventDto,
-  type Page,
-} from '@rhotrace/api-types';
-import { z } from 'zod';
-import { idParam, paginationSchema, parseOrThrow } from '../middleware/validate';
+import type { AuditEventDto, Page } from '@rhotrace/api-types';
+import { parseOrThrow } from '../middleware/validate';
 import { listAudit } from './audit.service';
-
-const listQuery = z
-  .object({
-    ...paginationSchema(MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE),
-    entity: z.string().max(32, 'must be at most 32 characters').optional(),
-    id: z.string().max(64, 'must be at most 64 characters').optional(),
-    actorId: idParam.optional(),
-    action: z.string().max(24, 'must be at most 24 characters').optional(),
-  })
-  .strict();
+import { listQuery } from './audit.schemas';
 
 /** Handlers of /api/audit. */
 export const auditController = {

@@ -1,15 +1,16 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { authenticate, requireRole } from '../middleware/authenticate';
+import { requireCapability } from '../access/require-capability';
+import { authenticate } from '../middleware/authenticate';
 import { auditController as c } from './audit.controller';
 
-/** /api/audit: the trail, for admins and managers. */
+/** /api/audit: the trail, for `audit:read`. */
 export function auditRouter(deps: AppDeps): Router {
   const router = Router();
   router.get(
     '/audit',
     authenticate(deps.config.jwtSecret),
-    requireRole('admin', 'manager'),
+    requireCapability('audit:read'),
     c.list,
   );
   return router;

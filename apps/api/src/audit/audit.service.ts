@@ -79,19 +79,27 @@ export async function recordAuditWhen(
 }
 
 /**
- * `recordAudit` for a change made by `actor`: the actor and the request id come from it, the
- * record's states before and after (either left out for a creation or a deletion) from `states`.
+ * `recordAudit` for a change made by `actor` (null for the system, e.g. the demo seeder): the
+ * actor and the request id come from it, the record's states before and after (either left out
+ * for a creation or a deletion) from `states`.
  */
 export function auditChange(
   transaction: Transaction,
-  actor: Actor,
+  actor: Actor | null,
   action: AuditEntry['action'],
   entity: string,
   entityId: number | string,
   states: { before?: unknown; after?: unknown },
 ): Promise<void> {
   return recordAudit(
-    { actorId: actor.id, action, entity, entityId, ...states, requestId: actor.requestId ?? null },
+    {
+      actorId: actor?.id ?? null,
+      action,
+      entity,
+      entityId,
+      ...states,
+      requestId: actor?.requestId ?? null,
+    },
     transaction,
   );
 }

@@ -1,48 +1,11 @@
 import type { Request, Response } from 'express';
-import {
-  MIN_PASSWORD_LENGTH,
-  type LoginResponse,
-  type PasswordResetAccepted,
-  type SessionUser,
-} from '@rhotrace/api-types';
-import { z } from 'zod';
+import type { LoginResponse, PasswordResetAccepted, SessionUser } from '@rhotrace/api-types';
 import type { AppDeps } from '../deps';
 import { requestIdOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseOrThrow } from '../middleware/validate';
 import { confirmPasswordReset, login, refresh, requestPasswordReset } from './auth.service';
-
-const emailField = z
-  .string({ required_error: 'is required', invalid_type_error: 'must be text' })
-  .max(254, 'must be at most 254 characters')
-  .email('must be an e-mail address');
-
-/** A new password: at least MIN_PASSWORD_LENGTH characters, at most 200 (bcrypt reads 72 bytes). */
-export const passwordField = z
-  .string({ required_error: 'is required', invalid_type_error: 'must be text' })
-  .min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`)
-  .max(200, 'must be at most 200 characters')
-  .refine((p) => Buffer.byteLength(p, 'utf8') <= 72, 'must be at most 72 bytes long');
-
-const loginBody = z
-  .object({
-    email: emailField,
-    password: z
-      .string({ required_error: 'is required', invalid_type_error: 'must be text' })
-      .min(1, 'is required')
-      .max(200, 'must be at most 200 characters'),
-  })
-  .strict();
-const resetBody = z.object({ email: emailField }).strict();
-const confirmBody = z
-  .object({
-    token: z
-      .string({ required_error: 'is required', invalid_type_error: 'must be text' })
-      .min(1, 'is required')
-      .max(200, 'must be at most 200 characters'),
-    password: passwordField,
-  })
-  .strict();
+import { loginBody, resetBody, confirmBody } from './auth.schemas';
 
 /** The address failed sign-ins count against (`trust proxy` stays off, so the socket's). */
 export const clientAddress = (req: Request): string => req.ip ?? req.socket.remoteAddress ?? '';

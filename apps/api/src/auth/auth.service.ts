@@ -2,7 +2,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { comparePassword } from './password-hasher';
 import type { LoginResponse, SessionUser } from '@rhotrace/api-types';
 import { Op } from 'sequelize';
-import { recordAudit } from '../audit/audit.service';
+import { auditChange, recordAudit } from '../audit/audit.service';
 import type { AppConfig } from '../config';
 import { badRequest, unauthenticated } from '../errors';
 import type { Mailer } from '../mail/mailer.service';
@@ -18,6 +18,7 @@ import {
   throttleKeys,
 } from './sign-in-throttle.service';
 import { signToken } from './token.service';
+import { inTransaction } from '../db/connection';
 
 /** The one message for every failed sign-in, so it never tells which part was wrong. */
 export const SIGN_IN_FAILED = 'The e-mail address or password is not correct';
@@ -86,7 +87,7 @@ export async function requestPasswordReset(
   const user = await User.findOne({ where: { email, active: true } });
   if (!user) return;
   const token = randomBytes(32).toString('base64url');
-  await User.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const reset = await PasswordReset.create(
       {
         userId: user.id,
@@ -138,7 +139,7 @@ export async function confirmPasswordReset(
   requestId: string | null,
 ): Promise<void> {
   const passwordHash = await hashPassword(password);
-  await User.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const reset = await PasswordReset.findOne({
       where: { tokenSha256: sha256(token) },
       transaction: t,
@@ -161,16 +162,9 @@ export async function confirmPasswordReset(
       { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction: t },
     );
     await user.update({ passwordHash, tokenVersion: user.tokenVersion + 1 }, { transaction: t });
-    await recordAudit(
-      {
-        actorId: user.id,
-        action: 'password-reset',
-        entity: 'user',
-        entityId: user.id,
-        after: { passwordChanged: true, resetId: reset.id },
-        requestId,
-      },
-      t,
-    );
+    // The user whose password it is makes this change, through the link sent to them.
+    await auditChange(t, { id: user.id, requestId }, 'password-reset', 'user', user.id, {
+      after: { passwordChanged: true, resetId: reset.id },
+    });
   });
 }

@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { HttpError } from '../errors';
 import { SignInThrottle } from '../users/user.model';
+import { inTransaction } from '../db/connection';
 
 /**
  * How failed sign-ins are slowed, then refused. After `slowAfter` failures inside `windowS`
@@ -127,7 +128,7 @@ async function withLockedRow<T>(
 ): Promise<T> {
   for (let attempt = 1; ; attempt++) {
     await ensureRow(key);
-    const done = await SignInThrottle.sequelize!.transaction(async (t) => {
+    const done = await inTransaction(async (t) => {
       const row = await SignInThrottle.findByPk(key, { transaction: t, lock: t.LOCK.UPDATE });
       return row ? { value: await work(row, t) } : null;
     });

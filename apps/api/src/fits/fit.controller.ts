@@ -2,6 +2,7 @@ import type { Request, Response } from 'express';
 import type { FitRequest } from '@rhotrace/api-types';
 import type { AppDeps } from '../deps';
 import { toCsv } from '../analysis/csv';
+import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { FIT_KIND_TABLE } from './fit-kinds';
@@ -14,12 +15,8 @@ function parseFitRequest(body: unknown): FitRequest {
   return parseOrThrow(FIT_KIND_TABLE[kind].schema, body, 'body');
 }
 
-/** Route handlers for fits. */
-export function fitHandlers(deps: AppDeps) {
-  const actor = (req: Request) => ({
-    id: currentUser(req).id,
-    requestId: String(req.id ?? '') || null,
-  });
+/** Handlers of fits. */
+export function fitsController(deps: AppDeps) {
   return {
     /** `POST /api/sweeps/:id/fits` → 201 with the stored fit. */
     async create(req: Request, res: Response): Promise<void> {
@@ -27,7 +24,7 @@ export function fitHandlers(deps: AppDeps) {
       const body = parseFitRequest(req.body);
       res
         .status(201)
-        .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actor(req)));
+        .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actorOf(req)));
     },
     /** `GET /api/sweeps/:id/fits`. */
     async list(req: Request, res: Response): Promise<void> {
@@ -39,7 +36,7 @@ export function fitHandlers(deps: AppDeps) {
     },
     /** `DELETE /api/fits/:id` → 204. */
     async remove(req: Request, res: Response): Promise<void> {
-      await deleteFit(deps.sequelize, currentUser(req), parseId(req.params), actor(req));
+      await deleteFit(deps.sequelize, currentUser(req), parseId(req.params), actorOf(req));
       res.status(204).end();
     },
     /** `GET /api/sweeps/:id/fits.csv`: one row per fitted parameter. */

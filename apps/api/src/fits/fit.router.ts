@@ -1,22 +1,18 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { authenticate, requireRole } from '../middleware/authenticate';
-import { fitHandlers } from './fit.controller';
+import { requireCapability } from '../access/require-capability';
+import { authenticate } from '../middleware/authenticate';
+import { fitsController } from './fit.controller';
 
 /**
- * Fits: every role may read fits of sweeps it can see; admins, managers, engineers and
- * physicists run and save them (technicians 403); deleting follows `deleteFit`'s rules.
+ * Fits: every role may read fits of sweeps it can see; `fits:run` runs and saves them (403
+ * otherwise); deleting follows `mayDeleteFit`.
  */
 export function fitsRouter(deps: AppDeps): Router {
   const router = Router();
   const auth = authenticate(deps.config.jwtSecret);
-  const h = fitHandlers(deps);
-  router.post(
-    '/sweeps/:id/fits',
-    auth,
-    requireRole('admin', 'manager', 'engineer', 'physicist'),
-    h.create,
-  );
+  const h = fitsController(deps);
+  router.post('/sweeps/:id/fits', auth, requireCapability('fits:run'), h.create);
   router.get('/sweeps/:id/fits', auth, h.list);
   router.get('/sweeps/:id/fits.csv', auth, h.csv);
   router.get('/fits/:id', auth, h.get);

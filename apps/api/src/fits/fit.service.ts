@@ -1,14 +1,15 @@
 import type { FitDto, FitRequest, SessionUser } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import type { Sequelize } from 'sequelize';
+import { assertMayDeleteFit } from '../access/policy';
+import { visibleSweep } from '../access/visibility.service';
 import type { Actor } from '../audit/audit.service';
 import { auditChange, recordAudit } from '../audit/audit.service';
-import { asNotFound, badRequest, forbidden, notFound } from '../errors';
+import { asNotFound, badRequest, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
 import {
   pointsInWindow,
   sweepFitReadings,
-  visibleSweep,
   type AnalysisPoint,
 } from '../analysis/sweep-data.service';
 import { User } from '../users/user.model';
@@ -217,10 +218,7 @@ export async function getFit(user: SessionUser, fitId: number): Promise<FitDto> 
   return toFitDto(await visibleFit(user, fitId));
 }
 
-/**
- * `DELETE /api/fits/:id`: soft delete with an audit event. Admins and managers may delete any
- * fit, engineers and physicists their own; technicians none.
- */
+/** `DELETE /api/fits/:id`: soft delete with an audit event, when `mayDeleteFit` allows it. */
 export async function deleteFit(
   sequelize: Sequelize,
   user: SessionUser,
@@ -228,17 +226,7 @@ export async function deleteFit(
   actor: Actor,
 ): Promise<void> {
   const fit = await visibleFit(user, fitId);
-  const mayDelete =
-    user.role === 'admin' ||
-    user.role === 'manager' ||
-    ((user.role === 'engineer' || user.role === 'physicist') && fit.createdById === user.id);
-  if (!mayDelete) {
-    throw forbidden(
-      user.role === 'technician'
-        ? 'Your role may not delete fits'
-        : 'You may delete only fits you saved',
-    );
-  }
+  assertMayDeleteFit(user, fit);
   await sequelize.transaction(async (transaction) => {
     const before = await toFitDto(fit);
     await fit.destroy({ transaction });

@@ -1,15 +1,10 @@
 import { Router } from 'express';
-import type { HealthResponse } from '@rhotrace/api-types';
-import type { Sequelize } from 'sequelize';
-import { databaseIsUp } from '../db/database';
+import type { AppDeps } from '../deps';
+import { healthController } from './health.controller';
 
 /** `GET /api/health`: 200 with the database up, 503 with it down. No sign-in needed. */
-export function healthRouter(sequelize: Sequelize): Router {
+export function healthRouter(deps: Pick<AppDeps, 'sequelize'>): Router {
   const router = Router();
-  router.get('/health', async (_req, res) => {
-    const up = await databaseIsUp(sequelize);
-    const body: HealthResponse = { status: up ? 'ok' : 'degraded', db: up ? 'up' : 'down' };
-    res.status(up ? 200 : 503).json(body);
-  });
+  router.get('/health', healthController(deps).health);
   return router;
 }

@@ -28,7 +28,7 @@ describe('GET /api/health', () => {
     const { healthRouter } = await import('./health.router');
     const express = (await import('express')).default;
     const dead = connectDatabase({ ...ctx.config.db, port: 1 }, { poolMax: 1 });
-    const app = express().use('/api', healthRouter(dead));
+    const app = express().use('/api', healthRouter({ sequelize: dead }));
     const res = await request(app).get('/api/health');
     expect(res.status).toBe(503);
     expect(res.body).toEqual({ status: 'degraded', db: 'down' });

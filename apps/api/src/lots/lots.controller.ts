@@ -3,7 +3,7 @@ import type { LotDto, Page } from '@rhotrace/api-types';
 import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
-import { lotCreateBody, lotListQuery, lotUpdateBody } from './lot.schemas';
+import { lotCreateBody, lotListQuery, lotUpdateBody } from './lots.schemas';
 import { createLot, deleteLot, getLot, listLots, updateLot } from './lots.service';
 
 /** Handlers of /api/lots. */

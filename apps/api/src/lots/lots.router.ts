@@ -1,16 +1,14 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { authenticate, requireRole } from '../middleware/authenticate';
+import { requireCapability } from '../access/require-capability';
+import { authenticate } from '../middleware/authenticate';
 import { lotsController as c } from './lots.controller';
 
-/** Roles that create and edit lots, wafers and specs; physicists and technicians only read. */
-export const RECORD_EDITORS = ['admin', 'manager', 'engineer'] as const;
-
-/** /api/lots: everyone reads (technicians only lots holding their wafers); editors write. */
+/** /api/lots: everyone reads the lots they may see; `records:edit` writes. */
 export function lotsRouter(deps: AppDeps): Router {
   const router = Router();
   const signedIn = authenticate(deps.config.jwtSecret);
-  const editors = requireRole(...RECORD_EDITORS);
+  const editors = requireCapability('records:edit');
   router.get('/lots', signedIn, c.list);
   router.post('/lots', signedIn, editors, c.create);
   router.get('/lots/:id', signedIn, c.get);

@@ -1,21 +1,19 @@
 import type { LotDto, LotInput, Material, Page, SessionUser } from '@rhotrace/api-types';
+import { col, fn, literal, Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import {
-  col,
-  fn,
-  literal,
-  Op,
-  UniqueConstraintError,
-  type Transaction,
-  type WhereOptions,
-} from 'sequelize';
+  visibleLot,
+  visibleLots,
+  visibleWafers,
+  visibleWaferSql,
+} from '../access/visibility.service';
 import { Assignment } from '../assignments/assignment.model';
-import { auditChange, recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
-import { assignedWaferIds, assignedWaferSql } from '../wafers/wafer-access.service';
 import { Lot } from './lot.model';
+import { inTransaction } from '../db/connection';
 
 /** The API's view of a lot. */
 export function toLotDto(lot: Lot, waferCount?: number): LotDto {
@@ -40,28 +38,12 @@ export function toLotDto(lot: Lot, waferCount?: number): LotDto {
   };
 }
 
-/** Lot ids a technician may see: those holding a wafer assigned to them. */
-async function technicianLotIds(userId: number, transaction?: Transaction): Promise<number[]> {
-  const waferIds = await assignedWaferIds(userId, transaction);
-  if (!waferIds.length) return [];
-  const rows = await Wafer.findAll({
-    attributes: ['lotId'],
-    where: { id: { [Op.in]: waferIds } },
-    transaction,
-  });
-  return [...new Set(rows.map((w) => w.lotId))];
-}
-
 /** Wafer counts per lot (only wafers the user may see). */
 async function waferCounts(user: SessionUser, lotIds: number[]): Promise<Map<number, number>> {
   if (!lotIds.length) return new Map();
-  const where: WhereOptions<Wafer> = { lotId: { [Op.in]: lotIds } };
-  if (user.role === 'technician') {
-    Object.assign(where, { id: { [Op.in]: await assignedWaferIds(user.id) } });
-  }
   const rows = (await Wafer.findAll({
     attributes: ['lotId', [fn('COUNT', col('id')), 'count']],
-    where,
+    where: { [Op.and]: [{ lotId: { [Op.in]: lotIds } }, visibleWafers(user)] },
     group: ['lotId'],
     raw: true,
   })) as unknown as Array<{ lotId: number; count: number }>;
@@ -70,11 +52,13 @@ async function waferCounts(user: SessionUser, lotIds: number[]): Promise<Map<num
 
 /**
  * SQL for the number of a lot's wafers the user may see (`Lot` is the outer row): wafers not
- * deleted, and for a technician only those assigned to them in a state that still shows them.
+ * deleted and visible to the user.
  */
 function waferCountSql(user: SessionUser): string {
-  const assigned = user.role === 'technician' ? ` AND ${assignedWaferSql('w.id', user.id)}` : '';
-  return `(SELECT COUNT(*) FROM wafers AS w WHERE w.lot_id = \`Lot\`.\`id\` AND w.deleted_at IS NULL${assigned})`;
+  return (
+    '(SELECT COUNT(*) FROM wafers AS w WHERE w.lot_id = `Lot`.`id` AND w.deleted_at IS NULL' +
+    ` AND ${visibleWaferSql(user, 'w.id')})`
+  );
 }
 
 export interface LotListOptions {
@@ -88,8 +72,7 @@ export interface LotListOptions {
 
 /** A page of lots the user may see, with their wafer counts. */
 export async function listLots(user: SessionUser, options: LotListOptions): Promise<Page<LotDto>> {
-  const where: WhereOptions<Lot>[] = [];
-  if (user.role === 'technician') where.push({ id: { [Op.in]: await technicianLotIds(user.id) } });
+  const where: WhereOptions<Lot>[] = [visibleLots(user)];
   if (options.q) {
     const like = likePattern(options.q);
     where.push({
@@ -126,20 +109,6 @@ export async function listLots(user: SessionUser, options: LotListOptions): Prom
   };
 }
 
-/** A lot the user may see (technicians: only lots holding their wafers), else 404. */
-export async function visibleLot(
-  user: SessionUser,
-  id: number,
-  transaction?: Transaction,
-): Promise<Lot> {
-  const lot = await Lot.findByPk(id, { transaction });
-  if (!lot) throw notFound(`Lot ${id}`);
-  if (user.role === 'technician' && !(await technicianLotIds(user.id, transaction)).includes(id)) {
-    throw notFound(`Lot ${id}`);
-  }
-  return lot;
-}
-
 /** One lot with its wafer count. */
 export async function getLot(user: SessionUser, id: number): Promise<LotDto> {
   const lot = await visibleLot(user, id);
@@ -167,7 +136,7 @@ function duplicateCode(error: unknown, code: string | undefined): never {
 export async function createLot(input: LotInput, actor: Actor): Promise<LotDto> {
   assertSpecOrder(input.specMinOhmCm, input.specMaxOhmCm);
   try {
-    return await Lot.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const lot = await Lot.create({ ...input, createdById: actor.id }, { transaction: t });
       const dto = toLotDto(lot, 0);
       await auditChange(t, actor, 'create', 'lot', lot.id, { after: dto });
@@ -185,7 +154,7 @@ export async function updateLot(
   actor: Actor,
 ): Promise<LotDto> {
   try {
-    return await Lot.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const lot = await Lot.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       if (!lot) throw notFound(`Lot ${id}`);
       const before = toLotDto(lot);
@@ -209,7 +178,7 @@ export async function updateLot(
  * A lot with any measured wafer (a sweep not deleted) is refused with 409.
  */
 export async function deleteLot(id: number, actor: Actor): Promise<void> {
-  await Lot.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const lot = await Lot.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!lot) throw notFound(`Lot ${id}`);
     const wafers = await Wafer.findAll({ where: { lotId: id }, transaction: t, paranoid: false });
@@ -229,11 +198,7 @@ export async function deleteLot(id: number, actor: Actor): Promise<void> {
       before: unknown,
       after: unknown,
       action = 'delete',
-    ) =>
-      recordAudit(
-        { actorId: actor.id, action, entity, entityId, before, after, requestId: actor.requestId },
-        t,
-      );
+    ) => auditChange(t, actor, action, entity, entityId, { before, after });
     const open = waferIds.length
       ? await Assignment.findAll({
           where: {

@@ -1,6 +1,7 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { Op, type Transaction } from 'sequelize';
 import { OutgoingEmail } from './outgoing-email.model';
+import { database } from '../db/connection';
 
 export interface MailMessage {
   to: string;
@@ -77,7 +78,7 @@ export class Mailer {
    * database never send the same message twice, and sends them one by one.
    */
   private async deliver(): Promise<number> {
-    const sequelize = OutgoingEmail.sequelize!;
+    const sequelize = database();
     let sent = 0;
     for (let batch = 0; batch < 10; batch += 1) {
       const claimed = await sequelize.transaction(async (transaction) => {

@@ -1,5 +1,4 @@
 import { DEFAULT_PAGE_SIZE, MAX_PAGE_SIZE } from '@rhotrace/api-types';
-import type { Order } from 'sequelize';
 import { z, type ZodRawShape } from 'zod';
 import { paginationSchema } from './validate';
 
@@ -49,9 +48,6 @@ export const isoDate = z
   .string({ required_error: 'is required', invalid_type_error: 'must be a date YYYY-MM-DD' })
   .refine(isIsoDate, 'must be a real date written YYYY-MM-DD');
 
-/** Today's date in UTC as `YYYY-MM-DD`. */
-export const todayIso = (): string => new Date().toISOString().slice(0, 10);
-
 /**
  * The query schema of a list: `page`, `pageSize` (capped), `sort` (`field` ascending, `-field`
  * descending, only the listed fields) plus the list's own filters. Unknown parameters are a 400.
@@ -74,30 +70,11 @@ export function listQuerySchema<F extends string, S extends ZodRawShape>(
     .strict();
 }
 
-/** A `sort` value as a Sequelize order, with `id` as tie-breaker so pages are stable. */
-export function orderFrom(
-  sort: string | undefined,
-  fallback: string,
-  columns: Record<string, string | string[]> = {},
-): Order {
-  const value = sort ?? fallback;
-  const desc = value.startsWith('-');
-  const field = desc ? value.slice(1) : value;
-  const column = columns[field] ?? field;
-  const path = Array.isArray(column) ? column : [column];
-  return [[...path, desc ? 'DESC' : 'ASC'] as never, ['id', desc ? 'DESC' : 'ASC']];
-}
-
 /** A `q` search parameter: short text, matched as a substring (LIKE wildcards escaped). */
 export const searchParam = z
   .string({ invalid_type_error: 'must be text' })
   .max(LIMITS.search, `must be at most ${LIMITS.search} characters`)
   .optional();
-
-/** `%…%` pattern for LIKE with `%`, `_` and `\` in the user's text taken literally. */
-export function likePattern(text: string): string {
-  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-}
 
 /** `true`/`false` in a query string. */
 export const booleanParam = z

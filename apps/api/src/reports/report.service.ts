@@ -1,6 +1,7 @@
 import type { AnalysisStep, FitDto, SessionUser, SpecCheckDto } from '@rhotrace/api-types';
 import { Station } from '../stations/station.model';
-import { averageSteps, sweepReadings, visibleSweep } from '../analysis/sweep-data.service';
+import { visibleSweep } from '../access/visibility.service';
+import { averageSteps, sweepReadings } from '../analysis/sweep-data.service';
 import { specCheck } from '../analysis/spec-check';
 import { assessSweep } from '../analysis/spec.service';
 import { listFitsOfSweep } from '../fits/fit.service';

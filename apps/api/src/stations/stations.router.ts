@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import type { AppDeps } from '../deps';
-import { RECORD_EDITORS } from '../lots/lots.router';
-import { authenticate, requireRole } from '../middleware/authenticate';
+import { requireCapability } from '../access/require-capability';
+import { authenticate } from '../middleware/authenticate';
 import { stationsController as c } from './stations.controller';
 
-/** /api/stations: every role reads; admin, manager and engineer register and edit. */
+/** /api/stations: every role reads; `stations:edit` registers and edits. */
 export function stationsRouter(deps: AppDeps): Router {
   const router = Router();
   const signedIn = authenticate(deps.config.jwtSecret);
-  const editors = requireRole(...RECORD_EDITORS);
+  const editors = requireCapability('stations:edit');
   router.get('/stations', signedIn, c.list);
   router.post('/stations', signedIn, editors, c.create);
   router.get('/stations/:id', signedIn, c.get);

@@ -2,8 +2,9 @@ import type { Page, StationDto, StationInput, Thermometer } from '@rhotrace/api-
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { Station } from './station.model';
+import { inTransaction } from '../db/connection';
 
 /** The API's view of a probe station. */
 export function toStationDto(s: Station): StationDto {
@@ -99,7 +100,7 @@ export async function getStation(id: number): Promise<StationDto> {
 export async function createStation(input: StationInput, actor: Actor): Promise<StationDto> {
   assertConsistent(input);
   try {
-    return await Station.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const station = await Station.create(input, { transaction: t });
       const dto = toStationDto(station);
       await auditChange(t, actor, 'create', 'station', station.id, { after: dto });
@@ -117,7 +118,7 @@ export async function updateStation(
   actor: Actor,
 ): Promise<StationDto> {
   try {
-    return await Station.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       if (!station) throw notFound(`Station ${id}`);
       const before = toStationDto(station);
@@ -134,7 +135,7 @@ export async function updateStation(
 
 /** Retires a station (soft delete; sweeps keep pointing at it), with its audit event. */
 export async function deleteStation(id: number, actor: Actor): Promise<void> {
-  await Station.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!station) throw notFound(`Station ${id}`);
     const before = toStationDto(station);

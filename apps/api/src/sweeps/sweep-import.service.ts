@@ -20,8 +20,8 @@ import { Transaction } from 'sequelize';
 import { retryTransientOnce } from '../db/transient-errors';
 import { conflict, unprocessable } from '../errors';
 import type { RawStorage } from '../storage/raw-storage';
+import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
-import { visibleWafer } from '../wafers/wafer-access.service';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter } from './import/convert-rows';
 import { detectColumns, publicColumns } from './import/detect-columns';
@@ -66,7 +66,7 @@ export async function previewSweep(
   input: { waferId: number; file: Buffer },
   actor: SweepActor,
 ): Promise<SweepPreviewResponse> {
-  await visibleWafer(actor, input.waferId);
+  await mayUploadTo(actor, input.waferId);
   const parsed = readTable(input.file);
   const { layout, table } = parsed;
   const rows = table.records.slice(0, PREVIEW_ROWS).map((cells, i) => ({
@@ -115,7 +115,7 @@ async function importOnce(
   const raw = new RawCopy(storage);
   try {
     return await Sweep.sequelize!.transaction(async (transaction) => {
-      const { wafer, lot } = await visibleWafer(actor, input.waferId, transaction);
+      const { wafer, lot } = await mayUploadTo(actor, input.waferId, transaction);
       // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
       await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
       const earlier = await Sweep.findOne({ where: { waferId: wafer.id, sha256 }, transaction });
@@ -151,7 +151,7 @@ interface StoreContext {
   storage: RawStorage;
   rawKey: Promise<string>;
   wafer: Wafer;
-  lot: Awaited<ReturnType<typeof visibleWafer>>['lot'];
+  lot: Awaited<ReturnType<typeof mayUploadTo>>['lot'];
 }
 
 /**

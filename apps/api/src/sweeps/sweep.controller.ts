@@ -1,13 +1,15 @@
 /**
  * Parses sweep requests (multipart uploads and ids) and shapes the answers.
  */
-import { COLUMN_MEANINGS, SWEEP_METHODS, type SweepColumnOverride } from '@rhotrace/api-types';
-import type { Request, Response } from 'express';
-import { z } from 'zod';
+import type { SweepColumnOverride } from '@rhotrace/api-types';
+import type { NextFunction, Request, Response } from 'express';
+import { mayUploadTo } from '../access/visibility.service';
+import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { validationFailed } from '../errors';
 import { pointsCsv, safeFileName } from './sweep-csv';
+import { columnsSchema, storeSchema } from './sweep.schemas';
 import {
   deleteSweep,
   getSweep,
@@ -16,47 +18,7 @@ import {
   listSweeps,
   previewSweep,
   sweepRawFile,
-  type SweepActor,
 } from './sweep.service';
-
-const length = z.coerce
-  .number({ invalid_type_error: 'must be a number (cm)' })
-  .finite('must be a finite number (cm)')
-  .positive('must be above 0 cm')
-  .max(100, 'must be at most 100 cm')
-  .optional();
-
-const columnsSchema = z.array(
-  z
-    .object({
-      index: z.number().int().min(0),
-      meaning: z.enum(COLUMN_MEANINGS),
-      unit: z.string().max(32).nullable().optional(),
-    })
-    .strict(),
-);
-
-const storeSchema = z
-  .object({
-    method: z.enum(SWEEP_METHODS, {
-      errorMap: () => ({ message: `must be one of ${SWEEP_METHODS.join(', ')}` }),
-    }),
-    stationId: z.preprocess(
-      (v) => (v === '' ? undefined : v),
-      z.coerce.number().int().positive().optional(),
-    ),
-    columns: z.string().max(100_000).optional(),
-    thicknessCm: length,
-    diameterCm: length,
-    spacingCm: length,
-    barLengthCm: length,
-    barWidthCm: length,
-  })
-  .strict();
-
-function actorOf(req: Request): SweepActor {
-  return { ...currentUser(req), requestId: (req as { id?: unknown }).id as string | undefined };
-}
 
 function uploaded(req: Request): Express.Multer.File {
   if (!req.file) {
@@ -101,72 +63,78 @@ function parseColumns(text: string | undefined): SweepColumnOverride[] | undefin
   return parseOrThrow(columnsSchema, json, 'body.columns');
 }
 
-/** `POST /api/wafers/:id/sweeps/preview` */
-export async function previewSweepHandler(req: Request, res: Response): Promise<void> {
-  const waferId = parseId(req.params);
-  res.json(await previewSweep({ waferId, file: uploaded(req).buffer }, actorOf(req)));
-}
-
-/** `POST /api/wafers/:id/sweeps` */
-export async function storeSweepHandler(req: Request, res: Response): Promise<void> {
-  const waferId = parseId(req.params);
-  const file = uploaded(req);
-  const body = parseOrThrow(storeSchema, req.body, 'body');
-  const { method, stationId, columns, ...geometry } = body;
-  const result = await importSweep(
-    {
-      waferId,
-      file: file.buffer,
-      originalName: storedFileName(file.originalname),
-      method,
-      stationId: stationId ?? null,
-      columns: parseColumns(columns),
-      geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
-    },
-    actorOf(req),
-    {
-      onRetry: (err) => req.log?.warn({ err }, 'upload retried after a transient database failure'),
-    },
-  );
-  res.status(201).json(result);
-}
-
-/** `GET /api/wafers/:id/sweeps` */
-export async function listSweepsHandler(req: Request, res: Response): Promise<void> {
-  res.json(await listSweeps(parseId(req.params), actorOf(req)));
-}
-
-/** `GET /api/sweeps/:id` */
-export async function getSweepHandler(req: Request, res: Response): Promise<void> {
-  const gzip = req.acceptsEncodings('gzip') === 'gzip';
-  const { body, gzipped, etag } = await getSweepBody(parseId(req.params), actorOf(req), gzip);
-  // the compression middleware leaves a body that already has its Content-Encoding alone
-  res.vary('Accept-Encoding');
-  res.set('ETag', etag);
-  if (gzipped) res.set('Content-Encoding', 'gzip');
-  res.type('application/json').send(body);
-}
-
-/** `GET /api/sweeps/:id/points.csv` */
-export async function pointsCsvHandler(req: Request, res: Response): Promise<void> {
-  const id = parseId(req.params);
-  const sweep = await getSweep(id, actorOf(req));
-  res.type('text/csv; charset=utf-8');
-  res.attachment(`sweep-${id}-points.csv`);
-  res.send(pointsCsv(sweep.columns, sweep.points));
-}
-
-/** `GET /api/sweeps/:id/raw` */
-export async function rawFileHandler(req: Request, res: Response): Promise<void> {
-  const id = parseId(req.params);
-  const raw = await sweepRawFile(id, actorOf(req));
-  res.type('application/octet-stream');
-  res.attachment(safeFileName(raw.originalName, `sweep-${id}.csv`));
-  res.send(raw.content);
-}
-
-/** `DELETE /api/sweeps/:id` */
-export async function deleteSweepHandler(req: Request, res: Response): Promise<void> {
-  await deleteSweep(parseId(req.params), actorOf(req));
-  res.status(204).end();
-}
+/** Handlers of sweep uploads and reads. */
+export const sweepsController = {
+  /**
+   * Middleware before an upload's body is read: 403 for a role that may not upload, 404 for a
+   * wafer the user may not see, so neither costs an upload.
+   */
+  async checkUploadTarget(req: Request, _res: Response, next: NextFunction): Promise<void> {
+    await mayUploadTo(currentUser(req), parseId(req.params));
+    next();
+  },
+  /** `POST /api/wafers/:id/sweeps/preview` */
+  async preview(req: Request, res: Response): Promise<void> {
+    const waferId = parseId(req.params);
+    res.json(await previewSweep({ waferId, file: uploaded(req).buffer }, actorOf(req)));
+  },
+  /** `POST /api/wafers/:id/sweeps` */
+  async store(req: Request, res: Response): Promise<void> {
+    const waferId = parseId(req.params);
+    const file = uploaded(req);
+    const body = parseOrThrow(storeSchema, req.body, 'body');
+    const { method, stationId, columns, ...geometry } = body;
+    const result = await importSweep(
+      {
+        waferId,
+        file: file.buffer,
+        originalName: storedFileName(file.originalname),
+        method,
+        stationId: stationId ?? null,
+        columns: parseColumns(columns),
+        geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
+      },
+      actorOf(req),
+      {
+        onRetry: (err) =>
+          req.log?.warn({ err }, 'upload retried after a transient database failure'),
+      },
+    );
+    res.status(201).json(result);
+  },
+  /** `GET /api/wafers/:id/sweeps` */
+  async list(req: Request, res: Response): Promise<void> {
+    res.json(await listSweeps(parseId(req.params), actorOf(req)));
+  },
+  /** `GET /api/sweeps/:id` */
+  async get(req: Request, res: Response): Promise<void> {
+    const gzip = req.acceptsEncodings('gzip') === 'gzip';
+    const { body, gzipped, etag } = await getSweepBody(parseId(req.params), actorOf(req), gzip);
+    // the compression middleware leaves a body that already has its Content-Encoding alone
+    res.vary('Accept-Encoding');
+    res.set('ETag', etag);
+    if (gzipped) res.set('Content-Encoding', 'gzip');
+    res.type('application/json').send(body);
+  },
+  /** `GET /api/sweeps/:id/points.csv` */
+  async pointsCsv(req: Request, res: Response): Promise<void> {
+    const id = parseId(req.params);
+    const sweep = await getSweep(id, actorOf(req));
+    res.type('text/csv; charset=utf-8');
+    res.attachment(`sweep-${id}-points.csv`);
+    res.send(pointsCsv(sweep.columns, sweep.points));
+  },
+  /** `GET /api/sweeps/:id/raw` */
+  async raw(req: Request, res: Response): Promise<void> {
+    const id = parseId(req.params);
+    const raw = await sweepRawFile(id, actorOf(req));
+    res.type('application/octet-stream');
+    res.attachment(safeFileName(raw.originalName, `sweep-${id}.csv`));
+    res.send(raw.content);
+  },
+  /** `DELETE /api/sweeps/:id` */
+  async remove(req: Request, res: Response): Promise<void> {
+    await deleteSweep(parseId(req.params), actorOf(req));
+    res.status(204).end();
+  },
+};

@@ -2,18 +2,8 @@ import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import type { AppDeps } from '../deps';
 import { badRequest } from '../errors';
-import { authenticate, currentUser } from '../middleware/authenticate';
-import { parseId } from '../middleware/validate';
-import { visibleWafer } from '../wafers/wafer-access.service';
-import {
-  deleteSweepHandler,
-  getSweepHandler,
-  listSweepsHandler,
-  pointsCsvHandler,
-  previewSweepHandler,
-  rawFileHandler,
-  storeSweepHandler,
-} from './sweep.controller';
+import { authenticate } from '../middleware/authenticate';
+import { sweepsController as c } from './sweep.controller';
 
 /** The upload paths (under /api), the only ones that take multipart/form-data bodies. */
 export const SWEEP_UPLOAD_PATHS = /^\/wafers\/[^/]+\/sweeps(?:\/preview)?\/?$/i;
@@ -40,17 +30,14 @@ export function sweepRouter(deps: AppDeps): Router {
       if (!error || error instanceof multer.MulterError) next(error);
       else next(badRequest(`The upload could not be read: ${(error as Error).message}`));
     });
-  // 404 before the body is read, so a hidden wafer costs no upload.
-  const waferVisible: RequestHandler = async (req, _res, next) => {
-    await visibleWafer(currentUser(req), parseId(req.params));
-    next();
-  };
-  router.post('/wafers/:id/sweeps/preview', auth, waferVisible, upload, previewSweepHandler);
-  router.post('/wafers/:id/sweeps', auth, waferVisible, upload, storeSweepHandler);
-  router.get('/wafers/:id/sweeps', auth, listSweepsHandler);
-  router.get('/sweeps/:id', auth, getSweepHandler);
-  router.get('/sweeps/:id/points.csv', auth, pointsCsvHandler);
-  router.get('/sweeps/:id/raw', auth, rawFileHandler);
-  router.delete('/sweeps/:id', auth, deleteSweepHandler);
+  // Checked before the body is read, so a hidden wafer costs no upload.
+  const waferVisible = c.checkUploadTarget;
+  router.post('/wafers/:id/sweeps/preview', auth, waferVisible, upload, c.preview);
+  router.post('/wafers/:id/sweeps', auth, waferVisible, upload, c.store);
+  router.get('/wafers/:id/sweeps', auth, c.list);
+  router.get('/sweeps/:id', auth, c.get);
+  router.get('/sweeps/:id/points.csv', auth, c.pointsCsv);
+  router.get('/sweeps/:id/raw', auth, c.raw);
+  router.delete('/sweeps/:id', auth, c.remove);
   return router;
 }

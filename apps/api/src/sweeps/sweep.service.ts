@@ -14,12 +14,13 @@ import type {
   SweepPointDto,
   SweepSummaryDto,
 } from '@rhotrace/api-types';
-import { recordAudit } from '../audit/audit.service';
-import { forbidden, notFound } from '../errors';
+import { assertMayDeleteSweep } from '../access/policy';
+import { visibleSweepWithUploader, visibleWafer } from '../access/visibility.service';
+import { auditChange } from '../audit/audit.service';
+import { notFound } from '../errors';
 import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
-import { assignedWaferSql, visibleWafer } from '../wafers/wafer-access.service';
 import type { SweepActor } from './sweep-import.service';
 import { SweepCache } from './sweep-cache';
 import { Sweep, SweepPoint } from './sweep.model';
@@ -32,35 +33,7 @@ export {
   type ImportSweepInput,
   type SweepActor,
 } from './sweep-import.service';
-
-/**
- * The sweep with its uploader's name, when the actor may see it: one query joining the wafer
- * and lot (neither deleted) and, for a technician, their assignment. Hidden or missing is 404.
- */
-async function visibleSweep(
-  id: number,
-  actor: SweepActor,
-): Promise<{ sweep: Sweep; uploaderName: string | null }> {
-  const assigned = actor.role === 'technician' ? ` AND ${assignedWaferSql('w.id', actor.id)}` : '';
-  const rows = (await Sweep.sequelize!.query(
-    'SELECT s.*, u.name AS uploader_name FROM sweeps AS s' +
-      ' JOIN wafers AS w ON w.id = s.wafer_id AND w.deleted_at IS NULL' +
-      ' JOIN lots AS l ON l.id = w.lot_id AND l.deleted_at IS NULL' +
-      ' LEFT JOIN users AS u ON u.id = s.uploaded_by_id' +
-      ` WHERE s.id = :id AND s.deleted_at IS NULL${assigned}`,
-    {
-      replacements: { id },
-      model: Sweep,
-      mapToModel: true,
-    },
-  )) as Sweep[];
-  const sweep = rows[0];
-  if (!sweep) throw notFound(`Sweep ${id}`);
-  return {
-    sweep,
-    uploaderName: (sweep.get('uploader_name' as never) as unknown as string | null) ?? null,
-  };
-}
+import { inTransaction } from '../db/connection';
 
 function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
   return {
@@ -129,7 +102,7 @@ interface SweepParts {
 
 /** The sweep's response without points, and its points from the cache or the table. */
 async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
-  const { sweep, uploaderName } = await visibleSweep(id, actor);
+  const { sweep, uploaderName } = await visibleSweepWithUploader(actor, id);
   const columns = sweep.columnMapping as SweepColumn[];
   const head = {
     ...summary(sweep, uploaderName),
@@ -213,47 +186,26 @@ export async function sweepRawFile(
   id: number,
   actor: SweepActor,
 ): Promise<{ originalName: string; content: Buffer }> {
-  const { sweep } = await visibleSweep(id, actor);
+  const { sweep } = await visibleSweepWithUploader(actor, id);
   const content = await rawStorageFor(sweep.storageKind as StorageKind).get(sweep.storageKey);
   if (!content) throw notFound(`The raw file of sweep ${id}`);
   return { originalName: sweep.originalName, content };
 }
 
-/**
- * Soft-deletes a sweep (kept in the trail): admins and managers any, engineers and physicists
- * their own uploads, technicians none.
- */
+/** Soft-deletes a sweep (kept in the trail) when `mayDeleteSweep` allows it. */
 export async function deleteSweep(id: number, actor: SweepActor): Promise<void> {
-  const { sweep } = await visibleSweep(id, actor);
-  const mayDelete =
-    actor.role === 'admin' ||
-    actor.role === 'manager' ||
-    ((actor.role === 'engineer' || actor.role === 'physicist') && sweep.uploadedById === actor.id);
-  if (!mayDelete) {
-    throw forbidden(
-      actor.role === 'technician'
-        ? 'Technicians may not delete sweeps'
-        : 'You may delete only sweeps you uploaded',
-    );
-  }
-  await Sweep.sequelize!.transaction(async (transaction) => {
+  const { sweep } = await visibleSweepWithUploader(actor, id);
+  assertMayDeleteSweep(actor, sweep);
+  await inTransaction(async (transaction) => {
     await sweep.update({ deletedById: actor.id }, { transaction });
     await sweep.destroy({ transaction });
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'delete',
-        entity: 'sweep',
-        entityId: id,
-        before: {
-          waferId: sweep.waferId,
-          originalName: sweep.originalName,
-          pointCount: sweep.pointCount,
-        },
-        requestId: actor.requestId ?? null,
+    await auditChange(transaction, actor, 'delete', 'sweep', id, {
+      before: {
+        waferId: sweep.waferId,
+        originalName: sweep.originalName,
+        pointCount: sweep.pointCount,
       },
-      transaction,
-    );
+    });
   });
   pointCache.forget(id);
 }

@@ -1,10 +1,18 @@
-import type { AssigneeDto, Page, Role, UserDto } from '@rhotrace/api-types';
+import {
+  roleCan,
+  rolesWith,
+  type AssigneeDto,
+  type Page,
+  type Role,
+  type UserDto,
+} from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions } from 'sequelize';
-import { recordAudit, type Actor } from '../audit/audit.service';
+import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
 import { User } from './user.model';
+import { inTransaction } from '../db/connection';
 
 /** bcrypt work factor for every stored password. */
 export const BCRYPT_COST = 10;
@@ -54,17 +62,7 @@ export async function createUser(
         { email, name: input.name, role: input.role, passwordHash },
         { transaction: t },
       );
-      await recordAudit(
-        {
-          actorId: actor?.id ?? null,
-          action: 'create',
-          entity: 'user',
-          entityId: user.id,
-          after: toUserDto(user),
-          requestId: actor?.requestId ?? null,
-        },
-        t,
-      );
+      await auditChange(t, actor, 'create', 'user', user.id, { after: toUserDto(user) });
       return user;
     } catch (error) {
       if (error instanceof UniqueConstraintError) {
@@ -73,7 +71,7 @@ export async function createUser(
       throw error;
     }
   };
-  return transaction ? work(transaction) : User.sequelize!.transaction(work);
+  return transaction ? work(transaction) : inTransaction(work);
 }
 
 export interface UserChanges {
@@ -89,17 +87,19 @@ export interface UserChanges {
  */
 export async function updateUser(id: number, changes: UserChanges, actor: Actor): Promise<User> {
   const passwordHash = changes.password ? await hashPassword(changes.password) : undefined;
-  return User.sequelize!.transaction(async (t) => {
+  return inTransaction(async (t) => {
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound(`User ${id}`);
     const before = toUserDto(user);
+    // The last active account that manages accounts (the admin) must stay one.
     const losesAdmin =
-      user.role === 'admin' &&
+      roleCan(user.role, 'users:manage') &&
       user.active &&
-      ((changes.role !== undefined && changes.role !== 'admin') || changes.active === false);
+      ((changes.role !== undefined && !roleCan(changes.role, 'users:manage')) ||
+        changes.active === false);
     if (losesAdmin) {
       const admins = await User.count({
-        where: { role: 'admin', active: true },
+        where: { role: { [Op.in]: rolesWith('users:manage') }, active: true },
         transaction: t,
       });
       if (admins <= 1) throw conflict('This is the last active admin; appoint another one first');
@@ -115,18 +115,10 @@ export async function updateUser(id: number, changes: UserChanges, actor: Actor)
       },
       { transaction: t },
     );
-    await recordAudit(
-      {
-        actorId: actor.id,
-        action: 'update',
-        entity: 'user',
-        entityId: user.id,
-        before,
-        after: { ...toUserDto(user), ...(passwordHash ? { passwordChanged: true } : {}) },
-        requestId: actor.requestId ?? null,
-      },
-      t,
-    );
+    await auditChange(t, actor, 'update', 'user', user.id, {
+      before,
+      after: { ...toUserDto(user), ...(passwordHash ? { passwordChanged: true } : {}) },
+    });
     return user;
   });
 }

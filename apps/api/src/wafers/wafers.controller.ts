@@ -1,22 +1,8 @@
 import type { Request, Response } from 'express';
-import {
-  MATERIALS,
-  WAFER_SORT_FIELDS,
-  WAFER_STATES,
-  type Page,
-  type WaferDto,
-} from '@rhotrace/api-types';
-import { z } from 'zod';
+import type { Page, WaferDto } from '@rhotrace/api-types';
 import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
-import {
-  boundedNumber,
-  LIMITS,
-  listQuerySchema,
-  optionalText,
-  searchParam,
-} from '../middleware/fields';
-import { idParam, parseId, parseOrThrow } from '../middleware/validate';
+import { parseId, parseOrThrow } from '../middleware/validate';
 import {
   createWafer,
   deleteWafer,
@@ -25,54 +11,7 @@ import {
   listWafers,
   updateWafer,
 } from './wafers.service';
-
-const state = z.enum(WAFER_STATES, {
-  errorMap: () => ({ message: `must be one of ${WAFER_STATES.join(', ')}` }),
-});
-/** A wafer's number in its lot: text up to 32 characters (a whole number is taken as text). */
-const waferNumber = z
-  .union(
-    [
-      z.string().max(32, 'must be at most 32 characters'),
-      z.number().int().positive().max(1e9).transform(String),
-    ],
-    {
-      errorMap: (_issue, ctx) => ({
-        message:
-          ctx.data === undefined
-            ? 'is required'
-            : 'must be text of at most 32 characters or a whole number',
-      }),
-    },
-  )
-  .refine((v) => v.trim().length > 0, 'must not be blank');
-
-const fields = {
-  number: waferNumber,
-  thicknessCm: boundedNumber(1e-7, 1, 'cm').nullable(),
-  state,
-  notes: optionalText(LIMITS.notes),
-};
-
-const createBody = z
-  .object({
-    number: fields.number,
-    thicknessCm: fields.thicknessCm.optional().default(null),
-    state: fields.state.optional(),
-    notes: fields.notes.transform((v) => v ?? null),
-  })
-  .strict();
-const updateBody = z.object(fields).partial().strict();
-
-const filters = { q: searchParam, state: state.optional() };
-const listQuery = listQuerySchema(WAFER_SORT_FIELDS, {
-  ...filters,
-  lotId: idParam.optional(),
-  material: z
-    .enum(MATERIALS, { errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }) })
-    .optional(),
-});
-const lotListQuery = listQuerySchema(WAFER_SORT_FIELDS, filters);
+import { createBody, updateBody, listQuery, lotListQuery } from './wafers.schemas';
 
 /** Handlers of /api/wafers and /api/lots/:id/wafers. */
 export const wafersController = {

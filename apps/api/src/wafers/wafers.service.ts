@@ -1,14 +1,14 @@
 import type { Page, SessionUser, WaferDto, WaferState } from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
+import { visibleLot, visibleWafer, visibleWafers } from '../access/visibility.service';
 import { Assignment } from '../assignments/assignment.model';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound } from '../errors';
 import { Lot } from '../lots/lot.model';
-import { visibleLot } from '../lots/lots.service';
-import { likePattern, orderFrom } from '../middleware/fields';
+import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from './wafer.model';
-import { visibleWafer, visibleWaferWhere } from './wafer-access.service';
+import { inTransaction } from '../db/connection';
 
 /** The API's view of a wafer; `lotCode` when the lot is at hand. */
 export function toWaferDto(wafer: Wafer, lotCode?: string): WaferDto {
@@ -47,7 +47,7 @@ export async function listWafers(
   user: SessionUser,
   options: WaferListOptions,
 ): Promise<Page<WaferDto>> {
-  const where: WhereOptions<Wafer>[] = [await visibleWaferWhere(user)];
+  const where: WhereOptions<Wafer>[] = [visibleWafers(user)];
   if (options.lotId !== undefined) where.push({ lotId: options.lotId });
   if (options.state) where.push({ state: options.state });
   if (options.material) {
@@ -112,7 +112,7 @@ export async function createWafer(
   actor: Actor,
 ): Promise<WaferDto> {
   try {
-    return await Wafer.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const lot = await Lot.findByPk(lotId, { transaction: t });
       if (!lot) throw notFound(`Lot ${lotId}`);
       const wafer = await Wafer.create({ ...input, lotId }, { transaction: t });
@@ -132,7 +132,7 @@ export async function updateWafer(
   actor: Actor,
 ): Promise<WaferDto> {
   try {
-    return await Wafer.sequelize!.transaction(async (t) => {
+    return await inTransaction(async (t) => {
       const wafer = await Wafer.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
       if (!wafer || !lot) throw notFound(`Wafer ${id}`);
@@ -149,7 +149,7 @@ export async function updateWafer(
 
 /** Soft-deletes a wafer without sweeps (409 otherwise) and cancels its open assignments. */
 export async function deleteWafer(id: number, actor: Actor): Promise<void> {
-  await Wafer.sequelize!.transaction(async (t) => {
+  await inTransaction(async (t) => {
     const wafer = await Wafer.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!wafer) throw notFound(`Wafer ${id}`);
     const sweeps = await Sweep.count({ where: { waferId: id }, transaction: t });

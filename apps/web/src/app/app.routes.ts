@@ -1,6 +1,5 @@
 import type { Routes } from '@angular/router';
-import { rolesGuard, signedInGuard } from './core/auth/guards';
-import { PERMISSIONS } from './core/auth/permissions';
+import { capabilityGuard, signedInGuard } from './core/auth/guards';
 import { Shell } from './core/layout/shell';
 
 export const routes: Routes = [
@@ -28,7 +27,7 @@ export const routes: Routes = [
       },
       {
         path: 'lots',
-        canMatch: [rolesGuard(...PERMISSIONS.seeAllLots)],
+        canMatch: [capabilityGuard('records:see-all')],
         loadChildren: () => import('./features/lots/lots.routes').then((m) => m.LOTS_ROUTES),
       },
       {
@@ -37,36 +36,36 @@ export const routes: Routes = [
       },
       {
         path: 'sweeps',
-        canMatch: [rolesGuard(...PERMISSIONS.analyse)],
+        canMatch: [capabilityGuard('fits:run')],
         loadChildren: () =>
           import('./features/analysis/analysis.routes').then((m) => m.ANALYSIS_ROUTES),
       },
       {
         path: 'overlay',
-        canMatch: [rolesGuard(...PERMISSIONS.analyse)],
+        canMatch: [capabilityGuard('fits:run')],
         loadChildren: () =>
           import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES),
       },
       {
         path: 'worklist',
-        canMatch: [rolesGuard(...PERMISSIONS.assign)],
+        canMatch: [capabilityGuard('assignments:assign')],
         loadChildren: () =>
           import('./features/assignments/assignments.routes').then((m) => m.ASSIGNMENTS_ROUTES),
       },
       {
         path: 'stations',
-        canMatch: [rolesGuard(...PERMISSIONS.seeAllLots)],
+        canMatch: [capabilityGuard('records:see-all')],
         loadChildren: () =>
           import('./features/stations/stations.routes').then((m) => m.STATIONS_ROUTES),
       },
       {
         path: 'people',
-        canMatch: [rolesGuard(...PERMISSIONS.manageUsers)],
+        canMatch: [capabilityGuard('users:manage')],
         loadChildren: () => import('./features/people/people.routes').then((m) => m.PEOPLE_ROUTES),
       },
       {
         path: 'trail',
-        canMatch: [rolesGuard(...PERMISSIONS.readAudit)],
+        canMatch: [capabilityGuard('audit:read')],
         loadChildren: () => import('./features/audit/audit.routes').then((m) => m.AUDIT_ROUTES),
       },
     ],

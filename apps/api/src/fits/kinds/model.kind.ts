@@ -8,7 +8,7 @@ import {
   type SemiconductorId,
 } from '@rhotrace/physics';
 import { z } from 'zod';
-import { dopingSchema } from '../../analysis/analysis.controller';
+import { dopingSchema } from '../../analysis/analysis.schemas';
 import { isSemiconductor, semiconductorParameterSet } from '../../analysis/model.service';
 import { withPhysicsOnData } from '../../analysis/physics-errors';
 import { badRequest } from '../../errors';

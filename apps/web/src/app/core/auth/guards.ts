@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { type CanActivateFn, type CanMatchFn, Router } from '@angular/router';
-import type { Role } from '@rhotrace/api-types';
+import type { Capability } from '@rhotrace/api-types';
 import { Session } from './session';
 
 /** Lets signed-in users through; others go to sign-in and come back to where they were going. */
@@ -10,12 +10,15 @@ export const signedInGuard: CanActivateFn = (_route, state) => {
   return inject(Router).createUrlTree(['/sign-in'], { queryParams: { next: state.url } });
 };
 
-/** Matches a lazy route only for the given roles; others land on their home. */
-export function rolesGuard(...roles: readonly Role[]): CanMatchFn {
+/**
+ * Matches a lazy route only for roles with `capability` (the role-to-capability table in
+ * `@rhotrace/api-types`, which the API enforces too); others land on their home.
+ */
+export function capabilityGuard(capability: Capability): CanMatchFn {
   return () => {
     const session = inject(Session);
     const router = inject(Router);
-    if (session.hasRole(...roles)) return true;
+    if (session.can(capability)) return true;
     if (!session.signedIn()) {
       // Matching runs before the shell's guard: remember the whole address for after sign-in.
       const next = router.getCurrentNavigation()?.extractedUrl.toString() ?? '/';

@@ -1,5 +1,11 @@
 import { Injectable, computed, signal } from '@angular/core';
-import type { LoginResponse, Role, SessionUser } from '@rhotrace/api-types';
+import {
+  roleCan,
+  type Capability,
+  type LoginResponse,
+  type Role,
+  type SessionUser,
+} from '@rhotrace/api-types';
 
 const STORAGE_KEY = 'rhotrace.session';
 
@@ -46,10 +52,9 @@ export class Session {
     globalThis.sessionStorage?.removeItem(STORAGE_KEY);
   }
 
-  /** True when the signed-in user has one of `roles`. */
-  hasRole(...roles: readonly Role[]): boolean {
-    const role = this.role();
-    return role !== null && roles.includes(role);
+  /** True when the signed-in user's role has `capability` in the role-to-capability table. */
+  can(capability: Capability): boolean {
+    return roleCan(this.role(), capability);
   }
 
   /** Milliseconds until the token expires (negative when expired). */

@@ -1,39 +1,43 @@
-import type { Role } from '@rhotrace/api-types';
-import { PERMISSIONS } from '../auth/permissions';
+import { roleCan, type Capability, type Role } from '@rhotrace/api-types';
 
 /** One entry of the side navigation. */
 export interface NavItem {
   path: string;
   label: string;
   hint: string;
-  roles: readonly Role[];
+  /** The capability the entry needs; absent for entries every signed-in role uses. */
+  capability?: Capability;
   exact?: boolean;
 }
 
-const EVERYONE = PERMISSIONS.upload;
-
 /** The navigation, in order; each role sees only the entries it may use. */
 export const NAV_ITEMS: readonly NavItem[] = [
-  { path: '/', label: 'Bench', hint: 'Your work today', roles: EVERYONE, exact: true },
+  { path: '/', label: 'Bench', hint: 'Your work today', exact: true },
   {
     path: '/lots',
     label: 'Lots & wafers',
     hint: 'Registered material',
-    roles: PERMISSIONS.seeAllLots,
+    capability: 'records:see-all',
   },
-  { path: '/overlay', label: 'Overlay', hint: 'Curves side by side', roles: PERMISSIONS.analyse },
-  { path: '/worklist', label: 'Worklist', hint: 'Who measures what', roles: PERMISSIONS.assign },
+  { path: '/overlay', label: 'Overlay', hint: 'Curves side by side', capability: 'fits:run' },
+  {
+    path: '/worklist',
+    label: 'Worklist',
+    hint: 'Who measures what',
+    capability: 'assignments:assign',
+  },
   {
     path: '/stations',
     label: 'Probe stations',
     hint: 'Benches and sensors',
-    roles: PERMISSIONS.seeAllLots,
+    capability: 'records:see-all',
   },
-  { path: '/people', label: 'People', hint: 'Accounts and roles', roles: PERMISSIONS.manageUsers },
-  { path: '/trail', label: 'Change trail', hint: 'Who changed what', roles: PERMISSIONS.readAudit },
+  { path: '/people', label: 'People', hint: 'Accounts and roles', capability: 'users:manage' },
+  { path: '/trail', label: 'Change trail', hint: 'Who changed what', capability: 'audit:read' },
 ];
 
-/** The navigation entries a role may see. */
+/** The navigation entries a role may see (none when signed out). */
 export function navFor(role: Role | null): NavItem[] {
-  return role === null ? [] : NAV_ITEMS.filter((item) => item.roles.includes(role));
+  if (role === null) return [];
+  return NAV_ITEMS.filter((item) => !item.capability || roleCan(role, item.capability));
 }

@@ -1,6 +1,5 @@
 import type { Routes } from '@angular/router';
-import { rolesGuard } from '../../core/auth/guards';
-import { PERMISSIONS } from '../../core/auth/permissions';
+import { capabilityGuard } from '../../core/auth/guards';
 
 export const LOTS_ROUTES: Routes = [
   {
@@ -11,13 +10,13 @@ export const LOTS_ROUTES: Routes = [
   {
     path: 'new',
     title: 'Register a lot · Rhotrace',
-    canMatch: [rolesGuard(...PERMISSIONS.editRecords)],
+    canMatch: [capabilityGuard('records:edit')],
     loadComponent: () => import('./lot-form/lot-form').then((m) => m.LotForm),
   },
   {
     path: ':id/edit',
     title: 'Edit lot · Rhotrace',
-    canMatch: [rolesGuard(...PERMISSIONS.editRecords)],
+    canMatch: [capabilityGuard('records:edit')],
     loadComponent: () => import('./lot-form/lot-form').then((m) => m.LotForm),
   },
   {

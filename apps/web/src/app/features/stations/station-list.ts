@@ -8,7 +8,6 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { type StationDto, THERMOMETERS, type Thermometer } from '@rhotrace/api-types';
 import { Session } from '../../core/auth/session';
-import { PERMISSIONS } from '../../core/auth/permissions';
 import { ApiError, applyServerErrors } from '../../core/http/api-error';
 import { above, fieldError } from '../../shared/field-error';
 import { formatDay } from '../../shared/format';
@@ -48,7 +47,7 @@ import { StationsApi } from './stations-api';
 export class StationList {
   private readonly api = inject(StationsApi);
   private readonly fb = inject(NonNullableFormBuilder);
-  protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editStations);
+  protected readonly canEdit = inject(Session).can('stations:edit');
   protected readonly thermometers = THERMOMETERS;
   protected readonly error = fieldError;
   protected readonly day = formatDay;

@@ -12,6 +12,7 @@ const curve: ModelCurveResponse = {
   points: [],
   boundaries: { freezeOutBelowK: null, intrinsicAboveK: null },
   modelVersion: 't',
+  warnings: [],
 };
 
 describe('modelCurveStream', () => {

@@ -23,7 +23,6 @@ import { Router, RouterLink } from '@angular/router';
 import type { LotSummaryWafer, WaferDto } from '@rhotrace/api-types';
 import { of } from 'rxjs';
 import { Session } from '../../../core/auth/session';
-import { PERMISSIONS } from '../../../core/auth/permissions';
 import { ApiError, applyServerErrors } from '../../../core/http/api-error';
 import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
@@ -71,7 +70,7 @@ export class LotDetail {
   private readonly downloader = inject(Downloader);
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly waferFormDirective = viewChild(FormGroupDirective);
-  protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editRecords);
+  protected readonly canEdit = inject(Session).can('records:edit');
 
   readonly id = input.required<string>();
   protected readonly lotId = computed(() => Number(this.id()));

@@ -12,7 +12,6 @@ import { RouterLink } from '@angular/router';
 import { DEFAULT_PAGE_SIZE, type LotDto, MATERIALS, type Page } from '@rhotrace/api-types';
 import { catchError, debounceTime, distinctUntilChanged, of, switchMap, tap } from 'rxjs';
 import { Session } from '../../../core/auth/session';
-import { PERMISSIONS } from '../../../core/auth/permissions';
 import { FormatValuePipe } from '../../../shared/format-value';
 import { formatDay } from '../../../shared/format';
 import { sortParam } from '../../../shared/list-query';
@@ -50,7 +49,7 @@ const EMPTY_PAGE: Page<LotDto> = { items: [], total: 0, page: 1, pageSize: DEFAU
 })
 export class LotList {
   private readonly api = inject(LotsApi);
-  protected readonly canEdit = inject(Session).hasRole(...PERMISSIONS.editRecords);
+  protected readonly canEdit = inject(Session).can('records:edit');
   protected readonly materials = MATERIALS;
   protected readonly columns = [
     'code',

@@ -14,7 +14,6 @@ import {
 } from '@rhotrace/api-types';
 import { catchError, of } from 'rxjs';
 import { Session } from '../../../core/auth/session';
-import { PERMISSIONS } from '../../../core/auth/permissions';
 import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
@@ -66,10 +65,13 @@ export class WaferPage {
   readonly id = input.required<string>();
   protected readonly waferId = computed(() => Number(this.id()));
 
-  protected readonly canEdit = this.session.hasRole(...PERMISSIONS.editRecords);
-  protected readonly canAnalyse = this.session.hasRole(...PERMISSIONS.analyse);
-  protected readonly canUpload = this.session.hasRole(...PERMISSIONS.upload);
-  protected readonly isTechnician = this.session.hasRole('technician');
+  protected readonly canEdit = this.session.can('records:edit');
+  protected readonly canAnalyse = this.session.can('fits:run');
+  protected readonly canUpload = this.session.can('sweeps:upload');
+  /** Lots list and breadcrumb are for roles that see every lot. */
+  protected readonly seesAllLots = this.session.can('records:see-all');
+  /** Roles that see every assignment (others list and move only their own). */
+  protected readonly seesAllAssignments = this.session.can('assignments:see-all');
   protected readonly userId = computed(() => this.session.user()?.id ?? null);
   protected readonly states = WAFER_STATES;
   protected readonly day = formatDay;
@@ -96,7 +98,7 @@ export class WaferPage {
     params: () => this.waferId(),
     stream: ({ params }) =>
       this.api.assignments(
-        this.isTechnician ? { assignee: 'me', waferId: params } : { waferId: params },
+        this.seesAllAssignments ? { waferId: params } : { assignee: 'me', waferId: params },
       ),
   });
   protected readonly stations = rxResource({

@@ -3,7 +3,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assign, makeLot, makeSweep, range, synthesize } from '../analysis/testing/fixtures';
 import { createTestContext, type TestContext } from '../testing/test-context';
-import type { Sweep } from './sweep.model';
+import type { Sweep } from '../sweeps/sweep.model';
 
 let ctx: TestContext;
 let lotCodes: string[];

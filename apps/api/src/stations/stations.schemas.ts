@@ -1,0 +1,51 @@
+import { STATION_SORT_FIELDS, THERMOMETERS } from '@rhotrace/api-types';
+import { z } from 'zod';
+import {
+  boundedNumber,
+  isoDate,
+  LIMITS,
+  listQuerySchema,
+  optionalText,
+  requiredText,
+  searchParam,
+} from '../middleware/fields';
+
+export const thermometer = z.enum(THERMOMETERS, {
+  errorMap: () => ({ message: `must be one of ${THERMOMETERS.join(', ')}` }),
+});
+
+export const fields = {
+  name: requiredText(100),
+  /** Four-point probe spacing: 10 µm to 1 cm. */
+  probeSpacingCm: boundedNumber(0.001, 1, 'cm'),
+  tipRadiusCm: boundedNumber(1e-6, 0.1, 'cm').nullable(),
+  thermometer,
+  /** A platinum RTD's resistance at 0 °C (Pt100: 100 Ω, Pt1000: 1000 Ω). */
+  rtdR0Ohm: boundedNumber(1, 100_000, 'Ω').nullable(),
+  minTemperatureK: boundedNumber(0.01, 2000, 'K'),
+  maxTemperatureK: boundedNumber(0.01, 2000, 'K'),
+  calibratedOn: isoDate.nullable(),
+  /** +/- half-widths read by the uncertainty budget of 23 °C values. */
+  probeSpacingToleranceCm: boundedNumber(0, 0.1, 'cm').nullable(),
+  temperatureToleranceK: boundedNumber(0, 50, 'K').nullable(),
+  notes: optionalText(LIMITS.notes),
+};
+
+export const createBody = z
+  .object({
+    ...fields,
+    tipRadiusCm: fields.tipRadiusCm.optional().default(null),
+    rtdR0Ohm: fields.rtdR0Ohm.optional().default(null),
+    calibratedOn: fields.calibratedOn.optional().default(null),
+    probeSpacingToleranceCm: fields.probeSpacingToleranceCm.optional().default(null),
+    temperatureToleranceK: fields.temperatureToleranceK.optional().default(null),
+    notes: fields.notes.transform((v) => v ?? null),
+  })
+  .strict();
+
+export const updateBody = z.object(fields).partial().strict();
+
+export const listQuery = listQuerySchema(STATION_SORT_FIELDS, {
+  q: searchParam,
+  thermometer: thermometer.optional(),
+});

@@ -1,0 +1,40 @@
+import { COLUMN_MEANINGS, SWEEP_METHODS } from '@rhotrace/api-types';
+import { z } from 'zod';
+
+/** A length in cm, as a form field. */
+const length = z.coerce
+  .number({ invalid_type_error: 'must be a number (cm)' })
+  .finite('must be a finite number (cm)')
+  .positive('must be above 0 cm')
+  .max(100, 'must be at most 100 cm')
+  .optional();
+
+/** The column mapping an upload may send as JSON in its `columns` field. */
+export const columnsSchema = z.array(
+  z
+    .object({
+      index: z.number().int().min(0),
+      meaning: z.enum(COLUMN_MEANINGS),
+      unit: z.string().max(32).nullable().optional(),
+    })
+    .strict(),
+);
+
+/** The text fields of an upload (besides the file). */
+export const storeSchema = z
+  .object({
+    method: z.enum(SWEEP_METHODS, {
+      errorMap: () => ({ message: `must be one of ${SWEEP_METHODS.join(', ')}` }),
+    }),
+    stationId: z.preprocess(
+      (v) => (v === '' ? undefined : v),
+      z.coerce.number().int().positive().optional(),
+    ),
+    columns: z.string().max(100_000).optional(),
+    thicknessCm: length,
+    diameterCm: length,
+    spacingCm: length,
+    barLengthCm: length,
+    barWidthCm: length,
+  })
+  .strict();
