@@ -188,7 +188,7 @@ export const FIT_KINDS = ['arrhenius', 'model', 'tcr', 'bloch-gruneisen'] as con
 export type FitKind = (typeof FIT_KINDS)[number];
 
 /** `POST /api/sweeps/:id/fits` body, by kind. */
-export type FitRequest =
+export type FitRequest = (
   | {
       kind: 'arrhenius';
       minK: number;
@@ -211,7 +211,15 @@ export type FitRequest =
       maxK?: number;
     }
   | { kind: 'tcr'; referenceK?: number; minK?: number; maxK?: number }
-  | { kind: 'bloch-gruneisen'; minK?: number; maxK?: number };
+  | { kind: 'bloch-gruneisen'; minK?: number; maxK?: number }
+) & {
+  /** Fit readings flagged at import too (default false: flagged points are left out). */
+  includeFlagged?: boolean;
+  /** Readings within this many kelvin of each other form one dwell step (default 0.5). */
+  stepToleranceK?: number;
+  /** Standard uncertainty of each temperature reading, K (default 0). */
+  temperatureUncertaintyK?: number;
+};
 
 /** Goodness of fit; every kind has rSquared (null where not defined), count and residualRms. */
 export interface FitGoodness {
@@ -221,6 +229,30 @@ export interface FitGoodness {
   residualRms: number;
   residualUnit: string;
   [extra: string]: unknown;
+}
+
+/** What a fit's parameters say about the material, and the assumptions of that reading. */
+export interface FitInterpretation {
+  /** Regime the reading assumes. */
+  regime: RegimeName | null;
+  property: 'band-gap-0K' | 'dopant-level' | null;
+  /** The property's value, eV. */
+  valueEv: number | null;
+  standardErrorEv: number | null;
+  compensation: 'compensated' | 'uncompensated' | 'unknown';
+  compensationSource: 'request' | 'inferred' | 'not-applicable';
+  /** The T^m prefactor exponent the reading assumes. */
+  prefactorExponent: number;
+  /** One sentence: method and assumption. */
+  note: string;
+}
+
+/** Curvature of an Arrhenius window (a straight line is the assumption being tested). */
+export interface FitCurvature {
+  value: number;
+  standardError: number;
+  t: number;
+  significant: boolean;
 }
 
 /** A stored fit. */
@@ -244,7 +276,19 @@ export interface FitDto {
   modelVersion: string;
   createdBy: { id: number; name: string | null };
   createdAt: string;
+  /** Dwell steps fitted (`goodness.count` stays the number of readings). */
+  stepCount: number | null;
+  /** Flagged points left out (sequence numbers). */
+  excludedSequences: number[];
+  interpretation: FitInterpretation | null;
+  /** Arrhenius only. */
+  curvature: FitCurvature | null;
+  /** E.g. window spans two regimes, parameter at bound, RSE > 50 %. */
+  warnings: string[];
 }
+
+/** `POST /api/sweeps/:id/fits/preview` answer: the fit as it would be saved, not stored. */
+export type FitPreviewDto = Omit<FitDto, 'id' | 'createdAt' | 'createdBy'>;
 
 /** `GET /api/wafers/:id/dopant` answer. */
 export interface DopantDensityResponse {

@@ -7,7 +7,7 @@ import { toCsv } from '../analysis/csv';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { MODEL_FREE_PARAMETERS } from './fit-kinds';
-import { createFit, deleteFit, getFit, sweepFits } from './fit.service';
+import { createFit, deleteFit, getFit, previewFit, sweepFits } from './fit.service';
 
 const kelvin = z
   .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
@@ -88,6 +88,12 @@ export function fitHandlers(deps: AppDeps) {
       res
         .status(201)
         .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actor(req)));
+    },
+    /** `POST /api/sweeps/:id/fits/preview` → 200 with the fit as it would be saved; stores nothing. */
+    async preview(req: Request, res: Response): Promise<void> {
+      const sweepId = parseId(req.params);
+      const body = parseOrThrow(fitSchema, req.body, 'body') as FitRequest;
+      res.json(await previewFit(currentUser(req), sweepId, body));
     },
     /** `GET /api/sweeps/:id/fits`. */
     async list(req: Request, res: Response): Promise<void> {

@@ -5,7 +5,8 @@ import { fitHandlers } from './fit.controller';
 
 /**
  * Fits: every role may read fits of sweeps it can see; admins, managers, engineers and
- * physicists run and save them (technicians 403); deleting follows `deleteFit`'s rules.
+ * physicists preview (nothing stored) and save them (technicians 403); deleting follows
+ * `deleteFit`'s rules.
  */
 export function fitsRouter(deps: AppDeps): Router {
   const router = Router();
@@ -16,6 +17,12 @@ export function fitsRouter(deps: AppDeps): Router {
     auth,
     requireRole('admin', 'manager', 'engineer', 'physicist'),
     h.create,
+  );
+  router.post(
+    '/sweeps/:id/fits/preview',
+    auth,
+    requireRole('admin', 'manager', 'engineer', 'physicist'),
+    h.preview,
   );
   router.get('/sweeps/:id/fits', auth, h.list);
   router.get('/sweeps/:id/fits.csv', auth, h.csv);

@@ -1,9 +1,8 @@
-import type { FitDto, FitKind, FitRequest, SessionUser } from '@rhotrace/api-types';
+import type { FitDto, FitPreviewDto, FitRequest, SessionUser } from '@rhotrace/api-types';
 import type { Sequelize } from 'sequelize';
 import type { Actor } from '../audit/audit.service';
 import { auditChange, recordAudit } from '../audit/audit.service';
 import { asNotFound, badRequest, forbidden, notFound } from '../errors';
-import { modelVersion } from '../analysis/model-version';
 import { isMetal, isSemiconductor, semiconductorParameterSet } from '../analysis/model.service';
 import { withPhysicsOnData } from '../analysis/physics-errors';
 import { regimeOfWindow, suggestWindows } from '../analysis/suggested-windows';
@@ -15,6 +14,7 @@ import {
   type AnalysisPoint,
 } from '../analysis/sweep-data.service';
 import { User } from '../users/user.model';
+import { type ComputedFit, previewOf, toFitDto } from './fit-dto';
 import {
   DEFAULT_TCR_REFERENCE_K,
   arrheniusFit,
@@ -27,30 +27,6 @@ import { Fit } from './fit.model';
 
 /** Fewest points any fit takes. */
 export const MIN_FIT_POINTS = 3;
-
-/** Shapes a stored fit for the API. */
-export async function toFitDto(fit: Fit, names?: Map<number, string>): Promise<FitDto> {
-  const name = names?.get(fit.createdById) ?? (await User.findByPk(fit.createdById))?.name ?? null;
-  return {
-    id: fit.id,
-    sweepId: fit.sweepId,
-    kind: fit.kind as FitKind,
-    inputs: fit.inputs as Record<string, unknown>,
-    windowMinK: fit.windowMinK,
-    windowMaxK: fit.windowMaxK,
-    parameters: fit.parameters as FitDto['parameters'],
-    standardErrors: fit.standardErrors as FitDto['standardErrors'],
-    confidenceIntervals: fit.confidenceIntervals as FitDto['confidenceIntervals'],
-    goodness: fit.goodness as FitDto['goodness'],
-    residuals: fit.residuals as FitDto['residuals'],
-    converged: fit.converged,
-    reason: fit.reason,
-    reading: fit.reading,
-    modelVersion: fit.modelVersion,
-    createdBy: { id: fit.createdById, name },
-    createdAt: fit.createdAt.toISOString(),
-  };
-}
 
 /** Points of the request's window (the whole sweep when no window is given), at least 3. */
 function windowPoints(
@@ -88,14 +64,12 @@ function windowPoints(
   return { points, minK: minK ?? null, maxK: maxK ?? null };
 }
 
-/** Runs the requested fit over the sweep and stores it with an audit event. */
-export async function createFit(
-  sequelize: Sequelize,
+/** Runs the requested fit over the sweep the user can see; stores nothing. */
+async function computeFit(
   user: SessionUser,
   sweepId: number,
   request: FitRequest,
-  actor: Actor,
-): Promise<FitDto> {
+): Promise<ComputedFit> {
   const v = await visibleSweep(user, sweepId);
   // An Arrhenius fit with its regime given needs only the window's points from the database.
   const windowOnly = request.kind === 'arrhenius' && request.regime !== undefined;
@@ -175,6 +149,29 @@ export async function createFit(
   if (request.kind === 'bloch-gruneisen' && !isMetal(v.lot.material)) {
     computed.reading = `Bloch–Grüneisen describes metals; this lot is ${v.lot.material}. ${computed.reading ?? ''}`;
   }
+  return { inputs, window: { minK: window.minK, maxK: window.maxK }, computed, parameterSet };
+}
+
+/** `POST /api/sweeps/:id/fits/preview`: runs the fit and answers it; stores and audits nothing. */
+export async function previewFit(
+  user: SessionUser,
+  sweepId: number,
+  request: FitRequest,
+): Promise<FitPreviewDto> {
+  return previewOf(sweepId, request, await computeFit(user, sweepId, request));
+}
+
+/** Runs the requested fit over the sweep and stores it with an audit event. */
+export async function createFit(
+  sequelize: Sequelize,
+  user: SessionUser,
+  sweepId: number,
+  request: FitRequest,
+  actor: Actor,
+): Promise<FitDto> {
+  const fitted = await computeFit(user, sweepId, request);
+  const { inputs, window, computed } = fitted;
+  const preview = previewOf(sweepId, request, fitted);
   return sequelize.transaction(async (transaction) => {
     const fit = await Fit.create(
       {
@@ -184,7 +181,7 @@ export async function createFit(
         windowMinK: window.minK,
         windowMaxK: window.maxK,
         ...computed,
-        modelVersion: modelVersion(parameterSet),
+        modelVersion: preview.modelVersion,
         createdById: user.id,
       },
       { transaction },
@@ -209,21 +206,8 @@ export async function createFit(
     // The answer is made from the values just stored, not read back through the JSON columns
     // (parsing a few thousand residuals again cost more than the fit itself).
     return {
+      ...preview,
       id: fit.id,
-      sweepId,
-      kind: request.kind,
-      inputs,
-      windowMinK: window.minK,
-      windowMaxK: window.maxK,
-      parameters: computed.parameters as FitDto['parameters'],
-      standardErrors: computed.standardErrors as FitDto['standardErrors'],
-      confidenceIntervals: computed.confidenceIntervals as FitDto['confidenceIntervals'],
-      goodness: computed.goodness as FitDto['goodness'],
-      residuals: computed.residuals,
-      converged: computed.converged,
-      reason: computed.reason,
-      reading: computed.reading,
-      modelVersion: fit.modelVersion,
       createdBy: { id: user.id, name: user.name },
       createdAt: fit.createdAt.toISOString(),
     } satisfies FitDto;
