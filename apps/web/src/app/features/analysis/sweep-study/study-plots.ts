@@ -1,4 +1,10 @@
-import type { AnalysisStep, ArrheniusPoint, FitDto, ModelCurveResponse } from '@rhotrace/api-types';
+import type {
+  AnalysisStep,
+  ArrheniusPoint,
+  FitPreviewDto,
+  ModelCurveResponse,
+} from '@rhotrace/api-types';
+import { BOLTZMANN_EV_PER_K, ZERO_CELSIUS_K } from '@rhotrace/physics';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { thinForDisplay } from '../../../shared/plot/thin';
 
@@ -11,7 +17,7 @@ export interface Figure {
   layout: Record<string, unknown>;
 }
 
-const toAxis = (unit: TemperatureUnit) => (k: number) => (unit === 'K' ? k : k - 273.15);
+const toAxis = (unit: TemperatureUnit) => (k: number) => (unit === 'K' ? k : k - ZERO_CELSIUS_K);
 const axisTitle = (unit: TemperatureUnit) =>
   unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)';
 
@@ -205,7 +211,7 @@ export function arrheniusFigure(
   points: ArrheniusPoint[],
   quantity: 'resistivity' | 'conductivity',
   window: { minK: number; maxK: number } | null,
-  fit: FitDto | null,
+  fit: FitPreviewDto | null,
 ): Figure {
   const y = (p: ArrheniusPoint) =>
     quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity;
@@ -263,7 +269,7 @@ export function arrheniusFigure(
 function fitLine(
   points: ArrheniusPoint[],
   quantity: 'resistivity' | 'conductivity',
-  fit: FitDto,
+  fit: FitPreviewDto,
 ): { x: number[]; y: number[] } | null {
   if (fit.kind !== 'arrhenius' || fit.windowMinK === null || fit.windowMaxK === null) return null;
   const slope = slopeOf(fit);
@@ -281,14 +287,11 @@ function fitLine(
   return { x: [lo, hi], y: [my + slope * (lo - mx), my + slope * (hi - mx)] };
 }
 
-/** Boltzmann constant in eV/K (CODATA 2018, exact). */
-const BOLTZMANN_EV_PER_K = 8.617333262e-5;
-
 /**
  * Slope of ln ρ against 1000/T implied by an Arrhenius fit, for drawing only: an explicit
  * slope parameter when the fit gives one, else ±Ea / (1000 k_B).
  */
-function slopeOf(fit: FitDto): number | null {
+function slopeOf(fit: FitPreviewDto): number | null {
   const p = fit.parameters;
   const explicit = p['slope'] ?? p['slopePerKK'];
   if (typeof explicit === 'number') return explicit;
