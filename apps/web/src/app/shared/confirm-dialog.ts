@@ -22,7 +22,7 @@ export interface ConfirmQuestion {
       <p>{{ question.message }}</p>
     </mat-dialog-content>
     <mat-dialog-actions align="end">
-      <button mat-button type="button" [mat-dialog-close]="false" cdkFocusInitial>Keep it</button>
+      <button mat-button type="button" [mat-dialog-close]="false">Keep it</button>
       <button mat-flat-button class="danger" type="button" [mat-dialog-close]="true">
         {{ question.confirmWords }}
       </button>
