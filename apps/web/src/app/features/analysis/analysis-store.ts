@@ -220,6 +220,13 @@ export class AnalysisStore {
     if (w) this.previewWindow(w.minK, w.maxK);
   }
 
+  /** Fits flagged readings too (or not); a window already chosen is previewed again. */
+  setIncludeFlagged(on: boolean): void {
+    this.includeFlagged.set(on);
+    const w = this.window();
+    if (w) this.previewWindow(w.minK, w.maxK);
+  }
+
   /** Previews a full-model fit from the parameters drawn (or the starting point). */
   previewModel(free: FreeParameter[]): void {
     const doping = this.doping() ?? this.initial();

@@ -78,6 +78,16 @@ describe('ArrheniusWindow', () => {
     expect(api.previews[2]!.body).not.toHaveProperty('compensated');
   });
 
+  it('asks again with flagged readings included when that is ticked, and leaves it out otherwise', async () => {
+    const { api, store, drag, fixture } = await mount();
+    await drag(2.5, 1000 / 350);
+    expect(api.previews[0]!.body).not.toHaveProperty('includeFlagged');
+    answer(api.previews[0], previewOf(api.previews[0]!.body));
+    store.setIncludeFlagged(true);
+    await fixture.whenStable();
+    expect(api.previews[1]!.body).toMatchObject({ minK: 350, maxK: 400, includeFlagged: true });
+  });
+
   it('previews typed bounds and explains a missing one', async () => {
     const { api, loader, text, fixture } = await mount();
     const preview = await loader.getHarness(MatButtonHarness.with({ text: 'Preview this window' }));
