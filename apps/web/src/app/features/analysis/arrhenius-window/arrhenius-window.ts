@@ -25,7 +25,7 @@ import {
 import { AnalysisStore } from '../analysis-store';
 import { FitCard } from '../fit-card/fit-card';
 import { KeepActions } from '../fit-card/keep-actions';
-import { arrheniusFigure } from '../sweep-study/study-plots';
+import { arrheniusFigure } from './arrhenius-figure';
 
 /**
  * The Arrhenius window: ln ρ (or ln σ) against 1000/T. Dragging across the plot, a suggested
