@@ -74,6 +74,14 @@ export const COMPENSATION_SOURCE_WORDS: Readonly<
   'not-applicable': 'not applicable',
 };
 
+/** The quantity an Arrhenius plot shows: its toggle, legend and axis words. */
+export const QUANTITY_WORDS: Readonly<
+  Record<'resistivity' | 'conductivity', { toggle: string; legend: string; axis: string }>
+> = {
+  resistivity: { toggle: 'ln ρ', legend: 'measured ln ρ', axis: 'ln(ρ / Ω·cm)' },
+  conductivity: { toggle: 'ln σ', legend: 'measured ln σ', axis: 'ln(σ · Ω·cm)' },
+};
+
 /** The T^m prefactor exponents offered for an Arrhenius window, with their words. */
 export const PREFACTOR_CHOICES: ReadonlyArray<{ value: number; words: string }> = [
   { value: 0, words: 'm = 0' },

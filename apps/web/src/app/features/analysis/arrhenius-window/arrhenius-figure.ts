@@ -2,6 +2,7 @@ import type { ArrheniusPoint, FitPreviewDto } from '@rhotrace/api-types';
 import { BOLTZMANN_EV_PER_K } from '@rhotrace/physics';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { thinForDisplay } from '../../../shared/plot/thin';
+import { QUANTITY_WORDS } from '../analysis-labels';
 import type { Figure } from '../sweep-study/study-plots';
 
 /** Arrhenius plot: ln ρ (or ln σ) against 1000/T, the chosen window shaded, the fit line drawn. */
@@ -18,7 +19,7 @@ export function arrheniusFigure(
     {
       type: 'scatter',
       mode: 'markers',
-      name: quantity === 'resistivity' ? 'measured ln ρ' : 'measured ln σ',
+      name: QUANTITY_WORDS[quantity].legend,
       x: shown.map((p) => p.inverseTemperaturePerKK),
       y: shown.map(y),
       customdata: shown.map((p) => 1000 / p.inverseTemperaturePerKK),
@@ -58,7 +59,7 @@ export function arrheniusFigure(
       shapes,
       showlegend: true,
       xaxis: { title: { text: '1000 / T (1/K)' } },
-      yaxis: { title: { text: quantity === 'resistivity' ? 'ln(ρ / Ω·cm)' : 'ln(σ · Ω·cm)' } },
+      yaxis: { title: { text: QUANTITY_WORDS[quantity].axis } },
     },
   };
 }

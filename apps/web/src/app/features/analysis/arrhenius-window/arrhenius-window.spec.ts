@@ -1,5 +1,6 @@
 import { By } from '@angular/platform-browser';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { Plot } from '../../../shared/plot/plot';
@@ -86,6 +87,19 @@ describe('ArrheniusWindow', () => {
     store.setIncludeFlagged(true);
     await fixture.whenStable();
     expect(api.previews[1]!.body).toMatchObject({ minK: 350, maxK: 400, includeFlagged: true });
+  });
+
+  it('fits ln σ once the plot shows it, over the window already chosen', async () => {
+    const { api, loader, drag, fixture } = await mount();
+    await drag(2.5, 1000 / 350);
+    answer(api.previews[0], previewOf(api.previews[0]!.body));
+    await fixture.whenStable();
+    await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'ln σ' }))).check();
+    expect(api.previews[1]!.body).toMatchObject({
+      minK: 350,
+      maxK: 400,
+      quantity: 'conductivity',
+    });
   });
 
   it('previews typed bounds and explains a missing one', async () => {

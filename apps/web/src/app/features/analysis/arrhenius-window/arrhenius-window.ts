@@ -20,6 +20,7 @@ import {
   COMPENSATION_CHOICE_WORDS,
   type CompensationChoice,
   PREFACTOR_CHOICES,
+  QUANTITY_WORDS,
   REGIME_WORDS,
 } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
@@ -57,6 +58,8 @@ export class ArrheniusWindow {
   protected readonly format = formatValue;
   protected readonly regimeWords = REGIME_WORDS;
   protected readonly prefactorChoices = PREFACTOR_CHOICES;
+  protected readonly quantityWords = QUANTITY_WORDS;
+  protected readonly quantities = ['resistivity', 'conductivity'] as const;
   protected readonly compensationWords = COMPENSATION_CHOICE_WORDS;
   protected readonly compensationChoices = Object.keys(
     COMPENSATION_CHOICE_WORDS,
