@@ -9,7 +9,7 @@ describe('SavedFits', () => {
     const api = new FakeAnalysisApi();
     const body = { kind: 'arrhenius', minK: 350, maxK: 400 } as const;
     api.saved = [
-      savedOf(previewOf(body, { warnings: ['The window spans two regimes.'] }), 5),
+      savedOf(previewOf(body, { warnings: ['The window spans two regimes.'], stepCount: 3 }), 5),
       savedOf(previewOf({ kind: 'bloch-gruneisen' }), 6),
     ];
     return api;
@@ -42,6 +42,7 @@ describe('SavedFits', () => {
     expect(text()).toContain('(1 warning)');
     expect(text()).toContain('Bloch–Grüneisen #6');
     expect(text()).toContain('350–400');
+    expect(text()).toContain('9 (3)'); // 9 readings in 3 dwell steps
     const [, second] = await loader.getAllHarnesses(MatCheckboxHarness);
     await second!.check();
     expect(text()).toContain('Bloch–Grüneisen (fit 6)');
