@@ -68,7 +68,7 @@ describe('a physicist studies a sweep', () => {
     await browser.close();
   });
 
-  it('drags an Arrhenius window and the fit is saved', async () => {
+  it('drags an Arrhenius window, previews the fit and keeps it', async () => {
     const { page } = browser;
     await signIn(page, 'physicist');
     const started = Date.now();
@@ -95,19 +95,30 @@ describe('a physicist studies a sweep', () => {
     await page.mouse.move(box.x + box.width * 0.75, y, { steps: 8 });
     await page.mouse.up();
 
-    const card = page.getByRole('article', { name: /Arrhenius window .* \(fit \d+\)/ });
+    // A drag previews the fit; nothing is saved until Keep.
+    const preview = page.getByRole('article', { name: /Arrhenius window .* \(preview\)/ });
+    await preview.waitFor({ timeout: 30_000 });
+    await expect(preview.getByText('Activation energy (eV)').isVisible()).resolves.toBe(true);
+    await screenshot(page, 'sweep-study-preview');
+    const token = await apiToken('physicist');
+    const listFits = async () => {
+      const body = await apiGet<
+        Page<{ id: number; kind: string }> | Array<{ id: number; kind: string }>
+      >(token, `/api/sweeps/${sweep.id}/fits`);
+      return Array.isArray(body) ? body : body.items;
+    };
+    const before = (await listFits()).length;
+
+    await page.getByRole('button', { name: 'Keep this fit' }).click();
+    const card = page.getByRole('article', { name: /Arrhenius window .* \(fit \d+\)/ }).first();
     await card.waitFor({ timeout: 30_000 });
     const title = (await card.getAttribute('aria-label')) ?? '';
     const fitId = Number(/fit (\d+)/.exec(title)?.[1]);
-    await expect(card.getByText('Activation energy (eV)').isVisible()).resolves.toBe(true);
     const saved = page.getByRole('table', { name: 'Saved fits' });
     await saved.getByText(`#${fitId}`).waitFor();
 
-    const token = await apiToken('physicist');
-    const fits = await apiGet<
-      Page<{ id: number; kind: string }> | Array<{ id: number; kind: string }>
-    >(token, `/api/sweeps/${sweep.id}/fits`);
-    const list = Array.isArray(fits) ? fits : fits.items;
+    const list = await listFits();
+    expect(list).toHaveLength(before + 1); // Keep saved exactly one fit
     expect(list.find((f) => f.id === fitId)?.kind).toBe('arrhenius');
 
     expect(await seriousViolations(page)).toEqual([]);

@@ -22,15 +22,15 @@ describe('an engineer removes records registered by mistake', () => {
     await table.getByText(name).waitFor();
 
     // declining the question keeps it
-    page.once('dialog', (d) => void d.dismiss());
+    const question = page.getByRole('alertdialog');
     await page.getByRole('button', { name: `Delete ${name}` }).click();
+    await question.getByRole('button', { name: 'Keep it' }).click();
+    await question.waitFor({ state: 'detached' });
     await expect(table.getByText(name).isVisible()).resolves.toBe(true);
 
-    page.once('dialog', (d) => {
-      expect(d.message()).toMatch(/Delete station .*change trail/);
-      void d.accept();
-    });
     await page.getByRole('button', { name: `Delete ${name}` }).click();
+    await expect(question.textContent()).resolves.toMatch(/Delete station .*change trail/);
+    await question.getByRole('button', { name: 'Delete the station' }).click();
     await table.getByText(name).waitFor({ state: 'detached' });
     expect(await seriousViolations(page)).toEqual([]);
   });

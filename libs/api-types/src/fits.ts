@@ -134,3 +134,6 @@ export interface FitDto {
   createdBy: { id: number; name: string | null };
   createdAt: string;
 }
+
+/** `POST /api/sweeps/:id/fits/preview` answer: the fit as it would be saved, not stored. */
+export type FitPreviewDto = Omit<FitDto, 'id' | 'createdAt' | 'createdBy'>;

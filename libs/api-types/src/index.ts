@@ -62,6 +62,7 @@ export type {
   FitInterpretation,
   FitCurvature,
   FitDto,
+  FitPreviewDto,
 } from './fits';
 export {
   SEMICONDUCTORS,

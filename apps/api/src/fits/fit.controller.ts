@@ -7,7 +7,7 @@ import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { FIT_KIND_TABLE } from './fit-kinds';
 import { fitKindSchema } from './fit-schemas';
-import { createFit, deleteFit, getFit, sweepFits } from './fit.service';
+import { createFit, deleteFit, getFit, previewFit, sweepFits } from './fit.service';
 
 /** The body checked first for its kind, then by that kind's schema in `FIT_KIND_TABLE`. */
 function parseFitRequest(body: unknown): FitRequest {
@@ -25,6 +25,11 @@ export function fitsController(deps: AppDeps) {
       res
         .status(201)
         .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actorOf(req)));
+    },
+    /** `POST /api/sweeps/:id/fits/preview` → 200 with the fit as it would be saved (not stored). */
+    async preview(req: Request, res: Response): Promise<void> {
+      const sweepId = parseId(req.params);
+      res.json(await previewFit(currentUser(req), sweepId, parseFitRequest(req.body)));
     },
     /** `GET /api/sweeps/:id/fits`. */
     async list(req: Request, res: Response): Promise<void> {

@@ -1,4 +1,4 @@
-import type { FitDto, FitRequest, SessionUser } from '@rhotrace/api-types';
+import type { FitDto, FitPreviewDto, FitRequest, SessionUser } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import type { Sequelize } from 'sequelize';
 import { assertMayDeleteFit } from '../access/policy';
@@ -102,17 +102,15 @@ function windowPoints(
 }
 
 /**
- * Runs the requested fit over the sweep (its kind's entry in `FIT_KIND_TABLE`) and stores it
- * with an audit event. Flagged readings are left out unless `includeFlagged`; their sequence
- * numbers inside the window are stored with the fit.
+ * Runs the requested fit over the sweep the user can see (its kind's entry in `FIT_KIND_TABLE`)
+ * and shapes it as it would be saved; stores nothing. Flagged readings are left out unless
+ * `includeFlagged`; their sequence numbers inside the window go with the fit.
  */
-export async function createFit(
-  sequelize: Sequelize,
+export async function previewFit(
   user: SessionUser,
   sweepId: number,
   request: FitRequest,
-  actor: Actor,
-): Promise<FitDto> {
+): Promise<FitPreviewDto> {
   const v = await visibleSweep(user, sweepId);
   const includeFlagged = request.includeFlagged ?? false;
   const stepToleranceK = request.stepToleranceK ?? PHYSICS_DEFAULTS.fitStepToleranceK;
@@ -134,15 +132,6 @@ export async function createFit(
     .filter((e) => e.temperatureK >= lo && e.temperatureK <= hi)
     .map((e) => e.sequence)
     .sort((a, b) => a - b);
-  /** The request's own bounds and the step options, so stored inputs can be posted again. */
-  const inputs = {
-    ...run.inputs,
-    ...(request.minK !== undefined ? { minK: request.minK } : {}),
-    ...(request.maxK !== undefined ? { maxK: request.maxK } : {}),
-    includeFlagged,
-    stepToleranceK,
-    temperatureUncertaintyK,
-  };
   const computed = run.computation;
   if (excludedSequences.length) {
     computed.warnings.push(
@@ -150,21 +139,37 @@ export async function createFit(
         '(includeFlagged: true keeps them).',
     );
   }
+  return {
+    sweepId,
+    kind: request.kind,
+    // the request's own bounds and the step options, so stored inputs can be posted again
+    inputs: {
+      ...run.inputs,
+      ...(request.minK !== undefined ? { minK: request.minK } : {}),
+      ...(request.maxK !== undefined ? { maxK: request.maxK } : {}),
+      includeFlagged,
+      stepToleranceK,
+      temperatureUncertaintyK,
+    },
+    windowMinK: window.minK,
+    windowMaxK: window.maxK,
+    ...computed,
+    excludedSequences,
+    modelVersion: modelVersion(run.parameterSet),
+  };
+}
+
+/** Runs the requested fit as `previewFit` does and stores it with an audit event. */
+export async function createFit(
+  sequelize: Sequelize,
+  user: SessionUser,
+  sweepId: number,
+  request: FitRequest,
+  actor: Actor,
+): Promise<FitDto> {
+  const preview = await previewFit(user, sweepId, request);
   return sequelize.transaction(async (transaction) => {
-    const fit = await Fit.create(
-      {
-        sweepId,
-        kind: request.kind,
-        inputs,
-        windowMinK: window.minK,
-        windowMaxK: window.maxK,
-        ...computed,
-        excludedSequences,
-        modelVersion: modelVersion(run.parameterSet),
-        createdById: user.id,
-      },
-      { transaction },
-    );
+    const fit = await Fit.create({ ...preview, createdById: user.id }, { transaction });
     await recordAudit(
       {
         actorId: actor.id,
@@ -174,9 +179,9 @@ export async function createFit(
         after: {
           sweepId,
           kind: request.kind,
-          inputs,
-          parameters: computed.parameters,
-          converged: computed.converged,
+          inputs: preview.inputs,
+          parameters: preview.parameters,
+          converged: preview.converged,
         },
         requestId: actor.requestId,
       },

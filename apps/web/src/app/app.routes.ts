@@ -2,6 +2,15 @@ import type { Routes } from '@angular/router';
 import { capabilityGuard, signedInGuard } from './core/auth/guards';
 import { Shell } from './core/layout/shell';
 
+/**
+ * URLs and feature folders use different words on purpose. A URL names what a person sees and
+ * shares (the navigation's words: a sweep, the overlay, the worklist, the change trail) and stays
+ * put when code moves; a feature folder is named after the API resource its `*-api.ts` talks to
+ * (`analysis`, `compare`, `assignments`, `audit`), as the API's own folders are. The pairs:
+ *   /sweeps/:id -> features/analysis     /overlay -> features/compare
+ *   /worklist   -> features/assignments  /trail   -> features/audit
+ * Every other URL and folder share their word.
+ */
 export const routes: Routes = [
   {
     path: 'sign-in',

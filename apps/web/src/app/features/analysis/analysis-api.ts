@@ -2,6 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type {
   FitDto,
+  FitPreviewDto,
   FitRequest,
   MaterialsResponse,
   ModelCurveRequest,
@@ -11,11 +12,13 @@ import type {
 } from '@rhotrace/api-types';
 import { type Observable, map, shareReplay } from 'rxjs';
 import { quietRequest } from '../../core/http/api-error';
+import { Downloader } from '../../shared/download';
 
-/** Model curves, a sweep's analysis view, and its fits. */
+/** Model curves, a sweep's analysis view, its fits and its downloads. */
 @Injectable({ providedIn: 'root' })
 export class AnalysisApi {
   private readonly http = inject(HttpClient);
+  private readonly downloader = inject(Downloader);
   private materialsCache: Observable<MaterialsResponse> | null = null;
 
   analysis(sweepId: number): Observable<SweepAnalysisResponse> {
@@ -45,7 +48,24 @@ export class AnalysisApi {
     return this.http.post<FitDto>(`/api/sweeps/${sweepId}/fits`, body, { context: quietRequest() });
   }
 
+  /** Quiet, like `createFit`: runs the fit and answers it; nothing is stored. */
+  previewFit(sweepId: number, body: FitRequest): Observable<FitPreviewDto> {
+    return this.http.post<FitPreviewDto>(`/api/sweeps/${sweepId}/fits/preview`, body, {
+      context: quietRequest(),
+    });
+  }
+
   deleteFit(id: number): Observable<unknown> {
     return this.http.delete(`/api/fits/${id}`);
+  }
+
+  /** Saves the sweep's fits as CSV, one row per fitted parameter. */
+  saveFitsCsv(sweepId: number): Promise<void> {
+    return this.downloader.save(`/api/sweeps/${sweepId}/fits.csv`, `sweep-${sweepId}-fits.csv`);
+  }
+
+  /** Saves the sweep's printable report. */
+  saveReport(sweepId: number): Promise<void> {
+    return this.downloader.save(`/api/sweeps/${sweepId}/report`, `sweep-${sweepId}-report.pdf`);
   }
 }

@@ -5,7 +5,7 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { RouterLink } from '@angular/router';
 import type { RecentFitDto } from '@rhotrace/api-types';
 import { formatDay, formatValue } from '../../shared/format';
-import { KIND_WORDS, PARAMETER_WORDS } from '../analysis/sweep-study/fit-card';
+import { KIND_WORDS, PARAMETER_WORDS } from '../analysis/analysis-labels';
 import { HomeApi } from './home-api';
 
 /** A physicist's desk: the latest fits and the sweeps waiting to be studied. */

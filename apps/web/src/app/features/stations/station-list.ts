@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -7,11 +7,14 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { type StationDto, THERMOMETERS, type Thermometer } from '@rhotrace/api-types';
+import { filter, switchMap } from 'rxjs';
 import { Session } from '../../core/auth/session';
-import { ApiError, applyServerErrors } from '../../core/http/api-error';
+import { Confirmer } from '../../shared/confirm-dialog';
 import { above, fieldError } from '../../shared/field-error';
 import { formatDay } from '../../shared/format';
 import { FormatValuePipe } from '../../shared/format-value';
+import { EditSession } from '../../shared/list-editor/edit-session';
+import { ListEditor } from '../../shared/list-editor/list-editor';
 import { StationsApi } from './stations-api';
 
 /** Probe stations: list, register, edit. */
@@ -25,19 +28,10 @@ import { StationsApi } from './stations-api';
     MatSelectModule,
     ReactiveFormsModule,
     FormatValuePipe,
+    ListEditor,
   ],
   templateUrl: './station-list.html',
   styles: `
-    table {
-      width: 100%;
-    }
-    form {
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 16px;
-      padding: 12px 16px;
-      margin-bottom: 16px;
-    }
-    .problem,
     .danger {
       color: var(--mat-sys-error);
     }
@@ -47,6 +41,7 @@ import { StationsApi } from './stations-api';
 export class StationList {
   private readonly api = inject(StationsApi);
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly confirmer = inject(Confirmer);
   protected readonly canEdit = inject(Session).can('stations:edit');
   protected readonly thermometers = THERMOMETERS;
   protected readonly error = fieldError;
@@ -63,8 +58,6 @@ export class StationList {
   protected readonly stations = rxResource({
     stream: () => this.api.list({ pageSize: 200, sort: 'name' }),
   });
-  protected readonly editing = signal<number | 'new' | null>(null);
-  protected readonly problem = signal<string | null>(null);
 
   protected readonly form = this.fb.group({
     name: ['', [Validators.required, Validators.maxLength(200)]],
@@ -77,36 +70,37 @@ export class StationList {
     calibratedOn: this.fb.control<string | null>(null),
     notes: this.fb.control<string | null>(null),
   });
+  protected readonly session = new EditSession<number>(this.form);
 
   protected remove(s: StationDto): void {
-    const question =
-      `Delete station ${s.name}? Sweeps measured on it keep their record of it, ` +
-      'and it stays in the change trail.';
-    if (!globalThis.confirm(question)) return;
-    this.api.remove(s.id).subscribe(() => {
-      if (this.editing() === s.id) this.editing.set(null);
-      this.stations.reload();
-    });
+    this.confirmer
+      .ask({
+        title: `Delete station ${s.name}?`,
+        message: 'Sweeps measured on it keep their record of it, and it stays in the change trail.',
+        confirmWords: 'Delete the station',
+      })
+      .pipe(
+        filter((yes) => yes),
+        switchMap(() => this.api.remove(s.id)),
+      )
+      .subscribe(() => {
+        if (this.session.editing() === s.id) this.session.close();
+        this.stations.reload();
+      });
   }
 
   protected startNew(): void {
     this.form.reset();
-    this.problem.set(null);
-    this.editing.set('new');
+    this.session.start('new');
   }
 
   protected edit(s: StationDto): void {
     const { id: _i, createdAt: _c, updatedAt: _u, ...values } = s;
     this.form.setValue({ ...values, calibratedOn: values.calibratedOn?.slice(0, 10) ?? null });
-    this.problem.set(null);
-    this.editing.set(s.id);
+    this.session.start(s.id);
   }
 
   protected save(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
     const v = this.form.getRawValue();
     const body = {
       ...v,
@@ -117,20 +111,10 @@ export class StationList {
       calibratedOn: v.calibratedOn || null,
       notes: v.notes || null,
     };
-    const target = this.editing();
-    const request =
-      target === 'new' ? this.api.create(body) : this.api.update(Number(target), body);
-    request.subscribe({
-      next: () => {
-        this.editing.set(null);
-        this.stations.reload();
-      },
-      error: (err: unknown) => {
-        if (err instanceof ApiError) {
-          applyServerErrors(this.form, err);
-          this.problem.set(err.message);
-        }
-      },
-    });
+    const target = this.session.editing();
+    this.session.submit(
+      () => (target === 'new' ? this.api.create(body) : this.api.update(Number(target), body)),
+      () => this.stations.reload(),
+    );
   }
 }

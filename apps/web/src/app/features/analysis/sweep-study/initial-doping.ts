@@ -4,6 +4,7 @@ import type {
   LotDto,
   SemiconductorMaterialDto,
 } from '@rhotrace/api-types';
+import { type Observable, catchError, map, of, switchMap } from 'rxjs';
 import { formatExponent } from '../../../shared/engineering';
 
 /** Density the model starts from when the wafer has no measured dopant density, cm^-3. */
@@ -82,4 +83,30 @@ export function startingDoping(
 /** Majority density of a doping, cm^-3. */
 export function majorityDensity(start: StartingDoping): number {
   return start.majority === 'acceptor' ? start.doping.acceptorDensity : start.doping.donorDensity;
+}
+
+/**
+ * With no measured density, scales the majority density until the model meets the measured
+ * 23 °C resistivity (ρ ∝ 1/N in the extrinsic range; two steps absorb the mobility's change).
+ * `modelAt23` answers the model's resistivity at the ASTM F723 reference temperature.
+ */
+export function scaleToMeasured(
+  base: StartingDoping,
+  rho23OhmCm: number,
+  modelAt23: (doping: DopingInput) => Observable<number | null>,
+  make: (override: { densityCm3: number; basis: 'scaled' }) => StartingDoping,
+): Observable<StartingDoping> {
+  const step = (from: StartingDoping, rho: number | null): StartingDoping | null => {
+    if (rho === null || !(rho > 0)) return null;
+    const scaled = Math.min(1e21, Math.max(1e10, (majorityDensity(from) * rho) / rho23OhmCm));
+    return make({ densityCm3: Number(scaled.toPrecision(3)), basis: 'scaled' });
+  };
+  return modelAt23(base.doping).pipe(
+    switchMap((rho) => {
+      const first = step(base, rho);
+      if (!first) return of(base);
+      return modelAt23(first.doping).pipe(map((rho2) => step(first, rho2) ?? first));
+    }),
+    catchError(() => of(base)),
+  );
 }

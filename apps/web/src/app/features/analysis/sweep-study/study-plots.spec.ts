@@ -1,6 +1,7 @@
 import type { AnalysisStep, ModelCurveResponse } from '@rhotrace/api-types';
 import { thinForDisplay } from '../../../shared/plot/thin';
-import { arrheniusFigure, curveFigure, plotRangeK, residualFigure } from './study-plots';
+import { arrheniusFigure } from '../arrhenius-window/arrhenius-figure';
+import { curveFigure, plotRangeK, residualFigure } from './study-plots';
 
 const steps = (fromK: number, toK: number, n: number): AnalysisStep[] =>
   Array.from({ length: n }, (_, i) => {

@@ -1,0 +1,95 @@
+/** Every word the study page and the desks show for fits, regimes and parameters. */
+import type { FitInterpretation, FitKind, FitRequest, RegimeName } from '@rhotrace/api-types';
+
+/** A parameter a full-model fit may free. */
+export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][number];
+
+/**
+ * The compensation a person states for a freeze-out reading: `inferred` leaves `compensated` out
+ * of the request (the API works it out), the others send true or false.
+ */
+export type CompensationChoice = 'inferred' | 'compensated' | 'uncompensated';
+
+/** Words and units for the parameters fits report. */
+export const PARAMETER_WORDS: Readonly<Record<string, string>> = {
+  activationEnergyEv: 'Activation energy (eV)',
+  intercept: 'Intercept (ln)',
+  impliedEv: 'Implied level or gap (eV)',
+  donorDensity: 'Donor density (cm⁻³)',
+  acceptorDensity: 'Acceptor density (cm⁻³)',
+  donorLevel: 'Donor ionization energy (eV)',
+  acceptorLevel: 'Acceptor ionization energy (eV)',
+  mobilityScale: 'Mobility scale',
+  referenceResistivityOhmCm: 'ρ at reference (Ω·cm)',
+  alphaPerK: 'Temperature coefficient (1/K)',
+  residualOhmCm: 'Residual resistivity (Ω·cm)',
+  couplingOhmCm: 'Phonon coupling (Ω·cm)',
+  debyeK: 'Debye temperature (K)',
+};
+
+export const KIND_WORDS: Readonly<Record<FitKind, string>> = {
+  arrhenius: 'Arrhenius window',
+  model: 'Full model',
+  tcr: 'Linear TCR',
+  'bloch-gruneisen': 'Bloch–Grüneisen',
+};
+
+export const FREE_WORDS: Readonly<Record<FreeParameter, string>> = {
+  donorDensity: 'Donor density',
+  acceptorDensity: 'Acceptor density',
+  donorLevel: 'Donor level',
+  acceptorLevel: 'Acceptor level',
+  mobilityScale: 'Mobility scale',
+};
+
+export const REGIME_WORDS: Readonly<Record<RegimeName, string>> = {
+  'freeze-out': 'Freeze-out',
+  extrinsic: 'Extrinsic',
+  intrinsic: 'Intrinsic',
+};
+
+export const PROPERTY_WORDS: Readonly<Record<NonNullable<FitInterpretation['property']>, string>> =
+  {
+    'band-gap-0K': 'Band gap extrapolated to 0 K',
+    'dopant-level': 'Dopant ionization energy',
+  };
+
+export const COMPENSATION_CHOICE_WORDS: Readonly<Record<CompensationChoice, string>> = {
+  inferred: 'Infer from the data',
+  compensated: 'Compensated',
+  uncompensated: 'Uncompensated',
+};
+
+export const COMPENSATION_WORDS: Readonly<Record<FitInterpretation['compensation'], string>> = {
+  compensated: 'compensated',
+  uncompensated: 'uncompensated',
+  unknown: 'compensation unknown',
+};
+
+export const COMPENSATION_SOURCE_WORDS: Readonly<
+  Record<FitInterpretation['compensationSource'], string>
+> = {
+  request: 'as stated',
+  inferred: 'inferred from the data',
+  'not-applicable': 'not applicable',
+};
+
+/** The quantity an Arrhenius plot shows: its toggle, legend and axis words. */
+export const QUANTITY_WORDS: Readonly<
+  Record<'resistivity' | 'conductivity', { toggle: string; legend: string; axis: string }>
+> = {
+  resistivity: { toggle: 'ln ρ', legend: 'measured ln ρ', axis: 'ln(ρ / Ω·cm)' },
+  conductivity: { toggle: 'ln σ', legend: 'measured ln σ', axis: 'ln(σ · Ω·cm)' },
+};
+
+/** The T^m prefactor exponents offered for an Arrhenius window, with their words. */
+export const PREFACTOR_CHOICES: ReadonlyArray<{ value: number; words: string }> = [
+  { value: 0, words: 'm = 0' },
+  { value: 1.5, words: 'm = 3/2' },
+  { value: -1.5, words: 'm = −3/2' },
+];
+
+/** Words for a parameter, a kind or a regime not in the maps: the key itself. */
+export function wordsFor(map: Readonly<Record<string, string>>, key: string): string {
+  return map[key] ?? key;
+}

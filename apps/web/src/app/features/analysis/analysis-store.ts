@@ -1,0 +1,291 @@
+import { Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
+import { rxResource, takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { type DopingInput, type FitRequest, METAL_FILMS } from '@rhotrace/api-types';
+import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
+import { ReplaySubject, Subject, catchError, exhaustMap, filter, map, of, switchMap } from 'rxjs';
+import { ApiError } from '../../core/http/api-error';
+import { LotsApi } from '../lots/lots-api';
+import { WafersApi } from '../wafers/wafers-api';
+import { AnalysisApi } from './analysis-api';
+import type { CompensationChoice, FreeParameter } from './analysis-labels';
+import {
+  EMPTY_SLOT,
+  type FitJob,
+  type FitSlot,
+  type SlotState,
+  isSaved,
+  queuedFits,
+} from './fit-queue';
+import { scaleToMeasured, startingDoping } from './sweep-study/initial-doping';
+import { type CurveState, modelCurveStream } from './sweep-study/model-curve-stream';
+import { type TemperatureUnit, plotRangeK } from './sweep-study/study-plots';
+
+/** Options of the Arrhenius window fit. */
+export interface ArrheniusOptions {
+  quantity: 'resistivity' | 'conductivity';
+  prefactorExponent: number;
+  compensation: CompensationChoice;
+}
+
+/**
+ * The study of one sweep: its data, the model curve, fit previews and saved fits. Provided by the
+ * study page; its parts read the signals and call the methods. Previews queue (a second drag waits
+ * for the first, see `queuedFits`), a save ignores repeats while one runs (`exhaustMap`), and the
+ * model curve follows the newest parameters (`switchMap`).
+ */
+@Injectable()
+export class AnalysisStore {
+  private readonly api = inject(AnalysisApi);
+  private readonly lots = inject(LotsApi);
+  private readonly wafers = inject(WafersApi);
+
+  readonly sweepId = signal<number | null>(null);
+  readonly analysis = rxResource({
+    params: () => this.sweepId() ?? undefined,
+    stream: ({ params }) => this.api.analysis(params),
+  });
+  readonly fits = rxResource({
+    params: () => this.sweepId() ?? undefined,
+    stream: ({ params }) => this.api.fits(params),
+  });
+  private readonly materials = rxResource({
+    stream: () => this.api.materials().pipe(catchError(() => of(null))),
+  });
+  private readonly lot = rxResource({
+    params: () => this.analysis.value()?.sweep.lotId,
+    stream: ({ params }) => this.lots.get(params),
+  });
+  private readonly dopant = rxResource({
+    params: () => this.analysis.value()?.sweep.waferId,
+    stream: ({ params }) => this.wafers.dopant(params).pipe(catchError(() => of(null))),
+  });
+
+  readonly isMetal = computed(() =>
+    (METAL_FILMS as readonly string[]).includes(this.analysis.value()?.sweep.material ?? ''),
+  );
+  /** The temperature range every ρ(T) plot and the model curve cover: the sweep's, plus a margin. */
+  readonly rangeK = computed(() => {
+    const s = this.analysis.value()?.sweep;
+    return plotRangeK(s?.minTemperatureK ?? null, s?.maxTemperatureK ?? null);
+  });
+  /** Where the model starts, and why (semiconductors only). */
+  readonly start = rxResource({
+    params: () => {
+      const a = this.analysis.value();
+      const waiting = this.lot.isLoading() || this.dopant.isLoading() || this.materials.isLoading();
+      if (!a || this.isMetal() || waiting) return undefined;
+      const material = this.materials
+        .value()
+        ?.semiconductors.find((m) => m.id === a.sweep.material);
+      return { a, lot: this.lot.value(), material, dopant: this.dopant.value() };
+    },
+    stream: ({ params: { a, lot, material, dopant } }) => {
+      const base = startingDoping(lot, material, dopant);
+      const rho23 = a.spec.resistivityAt23COhmCm ?? dopant?.resistivityAt23COhmCm ?? null;
+      if (base.basis !== 'fallback' || rho23 === null || rho23 <= 0 || !material) return of(base);
+      const atK = PHYSICS_DEFAULTS.astmF723TemperatureK;
+      const modelAt23 = (doping: DopingInput) =>
+        this.api
+          .modelCurve({ material: a.sweep.material, doping, fromK: atK, toK: atK + 0.5, steps: 2 })
+          .pipe(map((c) => c.points[0]?.resistivityOhmCm ?? null));
+      return scaleToMeasured(base, rho23, modelAt23, (d) =>
+        startingDoping(lot, material, dopant, d),
+      );
+    },
+  });
+  readonly initial = computed<DopingInput | null>(() => this.start.value()?.doping ?? null);
+
+  // The model curve, redrawn as parameters are typed.
+  readonly unit = signal<TemperatureUnit>('K');
+  readonly doping = signal<DopingInput | null>(null);
+  readonly curveState = signal<CurveState>({ curve: null, problem: null, loading: false });
+  private readonly doping$ = new ReplaySubject<DopingInput | null>(1);
+
+  // Fits: the options, the chosen window, one slot per panel, the saves.
+  readonly arrheniusOptions = signal<ArrheniusOptions>({
+    quantity: PHYSICS_DEFAULTS.arrheniusQuantity,
+    prefactorExponent: PHYSICS_DEFAULTS.arrheniusPrefactorExponent,
+    compensation: 'inferred',
+  });
+  readonly includeFlagged = signal(false);
+  readonly window = signal<{ minK: number; maxK: number } | null>(null);
+  readonly slots = { window: signal<SlotState>(EMPTY_SLOT), model: signal<SlotState>(EMPTY_SLOT) };
+  readonly saving = signal(false);
+  /** Saved fits chosen for side-by-side comparison. */
+  readonly compared = signal<number[]>([]);
+  readonly comparedFits = computed(() =>
+    (this.fits.value() ?? []).filter((f) => this.compared().includes(f.id)),
+  );
+  private readonly previews$ = new Subject<FitJob<FitSlot>>();
+  private readonly keeps$ = new Subject<FitSlot>();
+
+  constructor() {
+    toObservable(this.analysis.value)
+      .pipe(
+        filter((a) => a !== undefined),
+        switchMap((a) => {
+          const { fromK, toK } = untracked(() => this.rangeK());
+          const base = {
+            material: a.sweep.material,
+            fromK: Number(fromK.toFixed(2)),
+            toK: Number(toK.toFixed(2)),
+            steps: 400,
+          };
+          return modelCurveStream(this.doping$, base, (body) => this.api.modelCurve(body));
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((state) => this.curveState.set(state));
+    // Metal films have no doping to edit: draw their reference curve once.
+    effect(() => {
+      if (this.isMetal()) untracked(() => this.setDoping({ donorDensity: 0, acceptorDensity: 0 }));
+    });
+    this.previews$
+      .pipe(
+        queuedFits<FitSlot>((body) => this.api.previewFit(this.requireSweepId(), body)),
+        takeUntilDestroyed(),
+      )
+      .subscribe(({ slot, body, fit, problem, current }) => {
+        // An answer to a request since discarded or replaced is not shown.
+        if (!current || this.slots[slot]().request !== body) return;
+        this.slots[slot].update((s) => ({ ...s, fit, problem, busy: false }));
+      });
+    this.keeps$
+      .pipe(
+        exhaustMap((slot) => {
+          const { request, busy } = this.slots[slot]();
+          if (!request || busy) return of(null);
+          this.saving.set(true);
+          return this.api.createFit(this.requireSweepId(), request).pipe(
+            map((fit) => ({ slot, request, fit, problem: null })),
+            catchError((err: unknown) =>
+              of({
+                slot,
+                request,
+                fit: null,
+                problem: problemOf(err, 'The fit could not be saved.'),
+              }),
+            ),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((answer) => {
+        this.saving.set(false);
+        if (!answer) return;
+        if (answer.fit) this.fits.reload();
+        // The slot shows the saved fit unless another preview has replaced the one kept.
+        if (this.slots[answer.slot]().request !== answer.request) return;
+        this.slots[answer.slot].update((s) =>
+          answer.fit ? { ...s, fit: answer.fit, problem: null } : { ...s, problem: answer.problem },
+        );
+      });
+  }
+
+  /** Studies another sweep: everything shown before is forgotten. */
+  load(sweepId: number): void {
+    if (this.sweepId() === sweepId) return;
+    this.sweepId.set(sweepId);
+    this.window.set(null);
+    this.compared.set([]);
+    this.slots.window.set(EMPTY_SLOT);
+    this.slots.model.set(EMPTY_SLOT);
+  }
+
+  setDoping(doping: DopingInput | null): void {
+    this.doping.set(doping);
+    this.doping$.next(doping);
+  }
+
+  /** Previews an Arrhenius fit over [minK, maxK] (either order), rounded to 0.01 K. */
+  previewWindow(minK: number, maxK: number): void {
+    const lo = Number(Math.min(minK, maxK).toFixed(2));
+    const hi = Number(Math.max(minK, maxK).toFixed(2));
+    this.window.set({ minK: lo, maxK: hi });
+    const o = this.arrheniusOptions();
+    this.preview('window', {
+      kind: 'arrhenius',
+      minK: lo,
+      maxK: hi,
+      quantity: o.quantity,
+      prefactorExponent: o.prefactorExponent,
+      ...(o.compensation === 'inferred' ? {} : { compensated: o.compensation === 'compensated' }),
+    });
+  }
+
+  /** Changes an Arrhenius option; a window already chosen is previewed again with it. */
+  setArrheniusOptions(change: Partial<ArrheniusOptions>): void {
+    this.arrheniusOptions.update((o) => ({ ...o, ...change }));
+    const w = this.window();
+    if (w) this.previewWindow(w.minK, w.maxK);
+  }
+
+  /** Fits flagged readings too (or not); a window already chosen is previewed again. */
+  setIncludeFlagged(on: boolean): void {
+    this.includeFlagged.set(on);
+    const w = this.window();
+    if (w) this.previewWindow(w.minK, w.maxK);
+  }
+
+  /** Previews a full-model fit from the parameters drawn (or the starting point). */
+  previewModel(free: FreeParameter[]): void {
+    const doping = this.doping() ?? this.initial();
+    if (!doping) return;
+    this.preview('model', { kind: 'model', initial: { ...doping, mobilityScale: 1 }, free });
+  }
+
+  /** Previews a metal-film fit: linear TCR about `referenceK`, or Bloch–Grüneisen. */
+  previewMetal(kind: 'tcr' | 'bloch-gruneisen', referenceK: number): void {
+    this.preview('model', kind === 'tcr' ? { kind, referenceK } : { kind });
+  }
+
+  /** Saves the previewed fit of a slot; a second click while saving is ignored. */
+  keep(slot: FitSlot): void {
+    this.keeps$.next(slot);
+  }
+
+  /** Forgets a slot's preview (a saved fit is deleted from the saved list instead). */
+  discard(slot: FitSlot): void {
+    this.slots[slot].set(EMPTY_SLOT);
+    if (slot === 'window') this.window.set(null);
+  }
+
+  deleteFit(id: number): void {
+    this.api.deleteFit(id).subscribe(() => {
+      this.compared.update((list) => list.filter((x) => x !== id));
+      for (const slot of Object.values(this.slots)) {
+        const fit = slot().fit;
+        if (fit && isSaved(fit) && fit.id === id) slot.set(EMPTY_SLOT);
+      }
+      this.fits.reload();
+    });
+  }
+
+  toggleCompared(id: number, on: boolean): void {
+    this.compared.update((list) => (on ? [...list, id] : list.filter((x) => x !== id)));
+  }
+
+  saveFitsCsv(): Promise<void> {
+    return this.api.saveFitsCsv(this.requireSweepId());
+  }
+
+  saveReport(): Promise<void> {
+    return this.api.saveReport(this.requireSweepId());
+  }
+
+  private preview(slot: FitSlot, request: FitRequest): void {
+    const body: FitRequest = this.includeFlagged() ? { ...request, includeFlagged: true } : request;
+    this.slots[slot].update((s) => ({ ...s, request: body, problem: null, busy: true }));
+    this.previews$.next({ slot, body });
+  }
+
+  private requireSweepId(): number {
+    const id = this.sweepId();
+    if (id === null) throw new Error('AnalysisStore: load a sweep first');
+    return id;
+  }
+}
+
+function problemOf(err: unknown, fallback: string): string {
+  return err instanceof ApiError ? err.message : fallback;
+}

@@ -1,0 +1,77 @@
+import type { FitDto, FitPreviewDto, FitRequest } from '@rhotrace/api-types';
+import { EMPTY, type Observable, catchError, concatMap, defer, map, of } from 'rxjs';
+import { ApiError } from '../../core/http/api-error';
+
+/** A fit on the page: a preview (nothing stored) or, once kept, the saved fit. */
+export type ShownFit = FitPreviewDto | FitDto;
+
+/** True when the fit has been saved. */
+export function isSaved(fit: ShownFit): fit is FitDto {
+  return 'id' in fit;
+}
+
+/** Where on the page a fit is asked for and shown. */
+export type FitSlot = 'window' | 'model';
+
+/** One slot's fit: the request behind it, the answer, and whether an answer is on its way. */
+export interface SlotState {
+  request: FitRequest | null;
+  fit: ShownFit | null;
+  problem: string | null;
+  busy: boolean;
+}
+
+/** A slot with nothing asked for. */
+export const EMPTY_SLOT: SlotState = { request: null, fit: null, problem: null, busy: false };
+
+/** A fit asked for in one place of the page (the Arrhenius window, the full model, ...). */
+export interface FitJob<S extends string> {
+  slot: S;
+  body: FitRequest;
+}
+
+/** The answer to a job: the fit, or why there is none; `current` is false once overtaken. */
+export interface FitAnswer<S extends string> extends FitJob<S> {
+  fit: FitPreviewDto | null;
+  problem: string | null;
+  /** No newer job for the same slot was asked for while this one ran. */
+  current: boolean;
+}
+
+/**
+ * Runs fit previews one at a time, in the order asked (`concatMap`): a second drag waits for the
+ * first instead of racing it, so an older answer can never replace a newer one. A job overtaken by
+ * a newer one for the same slot while it waited is skipped, not run.
+ */
+export function queuedFits<S extends string>(
+  run: (body: FitRequest) => Observable<FitPreviewDto>,
+): (jobs$: Observable<FitJob<S>>) => Observable<FitAnswer<S>> {
+  return (jobs$) =>
+    defer(() => {
+      // Per subscription: the number of the newest job of each slot.
+      const newest = new Map<S, number>();
+      let asked = 0;
+      return jobs$.pipe(
+        map((job) => {
+          asked += 1;
+          newest.set(job.slot, asked);
+          return { job, number: asked };
+        }),
+        concatMap(({ job, number }) => {
+          if (newest.get(job.slot) !== number) return EMPTY;
+          const current = () => newest.get(job.slot) === number;
+          return run(job.body).pipe(
+            map((fit): FitAnswer<S> => ({ ...job, fit, problem: null, current: current() })),
+            catchError((err: unknown) =>
+              of<FitAnswer<S>>({
+                ...job,
+                fit: null,
+                problem: err instanceof ApiError ? err.message : 'The fit could not be computed.',
+                current: current(),
+              }),
+            ),
+          );
+        }),
+      );
+    });
+}

@@ -1,0 +1,70 @@
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
+import { AnalysisStore } from '../analysis-store';
+import { FitCard } from '../fit-card/fit-card';
+import { KeepActions } from '../fit-card/keep-actions';
+
+/** Metal-film fits: a linear TCR about a reference temperature, or Bloch–Grüneisen; Keep saves. */
+@Component({
+  selector: 'rt-metal-fits',
+  imports: [
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    FitCard,
+    KeepActions,
+  ],
+  template: `
+    <section class="panel" aria-labelledby="metal-title">
+      <h2 id="metal-title" class="rt-section-title">Metal film fits</h2>
+      <div class="rt-row">
+        <mat-form-field>
+          <mat-label>Reference temperature</mat-label>
+          <input matInput type="number" step="any" name="referenceK" [(ngModel)]="referenceK" />
+          <span matTextSuffix>K</span>
+        </mat-form-field>
+        <button
+          mat-flat-button
+          type="button"
+          (click)="store.previewMetal('tcr', referenceK())"
+          [disabled]="slot().busy"
+        >
+          Fit linear TCR
+        </button>
+        <button
+          mat-stroked-button
+          type="button"
+          (click)="store.previewMetal('bloch-gruneisen', referenceK())"
+          [disabled]="slot().busy"
+        >
+          Fit Bloch–Grüneisen
+        </button>
+      </div>
+      @if (slot().busy) {
+        <mat-progress-bar mode="indeterminate" aria-label="Fitting" />
+      }
+      @if (slot().problem; as p) {
+        <p class="problem" role="alert">{{ p }}</p>
+      }
+      @if (slot().fit; as f) {
+        <rt-fit-card [fit]="f" />
+        <rt-keep-actions slot="model" [fit]="f" />
+      }
+    </section>
+  `,
+  styleUrl: '../study-panel.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class MetalFits {
+  protected readonly store = inject(AnalysisStore);
+  protected readonly slot = this.store.slots.model;
+  /** The TCR reference the physics library defaults to (20 °C). */
+  protected readonly referenceK = signal<number>(PHYSICS_DEFAULTS.tcrReferenceK);
+}

@@ -1,0 +1,47 @@
+import { ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { formatExponent } from '../../../shared/engineering';
+import { Plot } from '../../../shared/plot/plot';
+import { AnalysisStore } from '../analysis-store';
+import { ModelControls } from '../sweep-study/model-controls';
+import { type CurveOptions, curveFigure, residualFigure } from '../sweep-study/study-plots';
+
+/**
+ * The measured ρ(T) over the model curve, with its residuals: the doping typed above the plot
+ * redraws the model (the store asks for the newest parameters only).
+ */
+@Component({
+  selector: 'rt-model-overlay',
+  imports: [MatButtonModule, MatButtonToggleModule, MatProgressBarModule, Plot, ModelControls],
+  templateUrl: './model-overlay.html',
+  styleUrl: '../study-panel.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ModelOverlay {
+  protected readonly store = inject(AnalysisStore);
+  private readonly plot = viewChild<Plot>('curvePlot');
+
+  protected readonly material = computed(() => this.store.analysis.value()?.sweep.material ?? '');
+  private readonly options = computed<CurveOptions>(() => {
+    const d = this.store.doping();
+    const modelName = this.store.isMetal()
+      ? `bulk ${this.material()} reference (films read higher)`
+      : d
+        ? `model: donors ${formatExponent(d.donorDensity)}, acceptors ${formatExponent(d.acceptorDensity)} cm⁻³`
+        : 'model';
+    return { unit: this.store.unit(), rangeK: this.store.rangeK(), modelName };
+  });
+  private readonly steps = computed(() => this.store.analysis.value()?.steps ?? []);
+  protected readonly curveFig = computed(() =>
+    curveFigure(this.steps(), this.store.curveState().curve, this.options()),
+  );
+  protected readonly residualFig = computed(() =>
+    residualFigure(this.steps(), this.store.curveState().curve, this.options()),
+  );
+
+  protected exportPng(): void {
+    void this.plot()?.downloadPng(`sweep-${this.store.sweepId()}-curve`);
+  }
+}

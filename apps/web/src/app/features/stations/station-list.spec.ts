@@ -1,0 +1,119 @@
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { TestBed } from '@angular/core/testing';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { MatDialogHarness } from '@angular/material/dialog/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import type { StationDto, StationInput } from '@rhotrace/api-types';
+import { of, throwError } from 'rxjs';
+import { Session } from '../../core/auth/session';
+import { ApiError } from '../../core/http/api-error';
+import { StationList } from './station-list';
+import { StationsApi } from './stations-api';
+
+const BENCH: StationDto = {
+  id: 4,
+  name: 'Cold bench',
+  probeSpacingCm: 0.1,
+  tipRadiusCm: null,
+  thermometer: 'thermocouple',
+  rtdR0Ohm: null,
+  minTemperatureK: 77,
+  maxTemperatureK: 500,
+  calibratedOn: null,
+  notes: null,
+  createdAt: '2026-01-01T00:00:00.000Z',
+  updatedAt: '2026-01-01T00:00:00.000Z',
+};
+
+/** A StationsApi that records what is sent; `refuse` makes the next update fail with it. */
+class FakeStationsApi {
+  lists = 0;
+  readonly removed: number[] = [];
+  readonly updates: Array<{ id: number; body: Partial<StationInput> }> = [];
+  refuse: ApiError | null = null;
+  list() {
+    this.lists += 1;
+    return of({ items: [BENCH], total: 1, page: 1, pageSize: 200 });
+  }
+  remove(id: number) {
+    this.removed.push(id);
+    return of(null);
+  }
+  update(id: number, body: Partial<StationInput>) {
+    this.updates.push({ id, body });
+    return this.refuse ? throwError(() => this.refuse) : of({ ...BENCH, ...body });
+  }
+}
+
+async function setup() {
+  const api = new FakeStationsApi();
+  TestBed.configureTestingModule({
+    imports: [StationList],
+    providers: [
+      { provide: StationsApi, useValue: api },
+      { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      { provide: Session, useValue: { can: () => true } },
+    ],
+  });
+  const fixture = TestBed.createComponent(StationList);
+  await fixture.whenStable();
+  const loader = TestbedHarnessEnvironment.loader(fixture);
+  const root = TestbedHarnessEnvironment.documentRootLoader(fixture);
+  return { fixture, api, loader, root };
+}
+
+describe('StationList', () => {
+  it('deletes a station only after the confirmation dialog says so', async () => {
+    const { api, loader, root } = await setup();
+    const remove = await loader.getHarness(
+      MatButtonHarness.with({ selector: '[aria-label="Delete Cold bench"]' }),
+    );
+    await remove.click();
+    let dialog = await root.getHarness(MatDialogHarness);
+    expect(await dialog.getTitleText()).toBe('Delete station Cold bench?');
+    expect(await dialog.getContentText()).toMatch(/change trail/);
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Keep it' }))).click();
+    expect(api.removed).toEqual([]);
+
+    await remove.click();
+    dialog = await root.getHarness(MatDialogHarness);
+    await (await dialog.getHarness(MatButtonHarness.with({ text: 'Delete the station' }))).click();
+    expect(api.removed).toEqual([4]);
+    expect(api.lists).toBe(2); // the list is read again
+  });
+
+  it('edits in the form above the table and shows the server refusal on its field', async () => {
+    const { api, loader, fixture } = await setup();
+    api.refuse = new ApiError(400, 'validation', 'The station could not be saved', [
+      { field: 'body.name', problem: 'is already used by another station' },
+    ]);
+    await (
+      await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit Cold bench"]' }))
+    ).click();
+    const name = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName=name]' }),
+    );
+    expect(await name.getValue()).toBe('Cold bench');
+    await name.setValue('Hot bench');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    expect(api.updates).toHaveLength(1);
+    expect(api.updates[0]).toMatchObject({
+      id: 4,
+      body: { name: 'Hot bench', probeSpacingCm: 0.1 },
+    });
+    await fixture.whenStable();
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'The station could not be saved',
+    );
+    const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Name' }));
+    expect(await field.isControlValid()).toBe(false);
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Cancel' }))).click();
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Save' }))).toHaveLength(0);
+    expect(
+      await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Register a station' })),
+    ).toHaveLength(1);
+  });
+});
