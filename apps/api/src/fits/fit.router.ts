@@ -5,8 +5,8 @@ import { authenticate } from '../middleware/authenticate';
 import { fitsController } from './fit.controller';
 
 /**
- * Fits: every role may read fits of sweeps it can see; `fits:run` previews (nothing stored) and saves them (403
- * otherwise); deleting follows `mayDeleteFit`.
+ * Fits: every role may read fits of sweeps it can see; `fits:run` previews (nothing stored) and
+ * saves them (403 otherwise); deleting follows `mayDeleteFit`.
  */
 export function fitsRouter(deps: AppDeps): Router {
   const router = Router();
