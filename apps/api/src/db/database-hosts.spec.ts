@@ -107,7 +107,7 @@ describe('DatabaseHosts', () => {
     expect((await hosts.pick()).port).toBe(dead);
   });
 
-  it('when every host is down, names the one whose back-off ends first', async () => {
+  it('when every host is down, names the first so the connection reports the real error', async () => {
     const d1 = await closedPort();
     const d2 = await closedPort();
     const hosts = new DatabaseHosts([
@@ -115,5 +115,38 @@ describe('DatabaseHosts', () => {
       { host: '127.0.0.1', port: d2 },
     ]);
     expect((await hosts.pick()).port).toBe(d1);
+  });
+
+  it('tries a host still backing off when none of the others answers', async () => {
+    const answering = new Set<string>(['b']);
+    const hosts = new DatabaseHosts(
+      [
+        { host: 'a', port: 1 },
+        { host: 'b', port: 2 },
+      ],
+      { backoffMs: 60_000, probe: async (h) => answering.has(h.host), now: () => 0 },
+    );
+    expect((await hosts.pick()).host).toBe('b'); // a fails and backs off for a minute
+    answering.clear();
+    answering.add('a'); // b goes away, a is back long before its back-off ends
+    expect((await hosts.pick()).host).toBe('a');
+  });
+
+  it('uses a custom probe, e.g. a Galera node that answers TCP but is not ready', async () => {
+    const probed: string[] = [];
+    const hosts = new DatabaseHosts(
+      [
+        { host: 'joining', port: 1 },
+        { host: 'synced', port: 2 },
+      ],
+      {
+        probe: async (h) => {
+          probed.push(h.host);
+          return h.host === 'synced';
+        },
+      },
+    );
+    expect((await hosts.pick()).host).toBe('synced');
+    expect(probed).toEqual(['joining', 'synced']);
   });
 });

@@ -38,19 +38,27 @@ interface HostState {
   host: DatabaseHost;
   failures: number;
   retryAt: number;
+  /** When the host last passed a probe. */
+  goodAt: number;
 }
 
 export interface DatabaseHostsOptions {
   /** First back-off after a failure, ms; doubles per consecutive failure. */
   backoffMs?: number;
   maxBackoffMs?: number;
-  /** How long a TCP probe may take before the host counts as down, ms. */
+  /** How long a probe may take before the host counts as down, ms. */
   probeTimeoutMs?: number;
+  /** Whether a host can take a connection now; by default, whether it accepts TCP. */
+  probe?: (host: DatabaseHost, timeoutMs: number) => Promise<boolean>;
+  /** A host that passed a probe this recently is not probed again, ms. */
+  trustMs?: number;
+  /** How long `pick` keeps probing when no host answers (a cluster changing its view), ms. */
+  waitMs?: number;
   now?: () => number;
 }
 
 /** TCP reachability of `h` within `timeoutMs`. */
-function probe(h: DatabaseHost, timeoutMs: number): Promise<boolean> {
+export function tcpProbe(h: DatabaseHost, timeoutMs: number): Promise<boolean> {
   return new Promise((resolve) => {
     const socket = connect({ host: h.host, port: h.port });
     const done = (ok: boolean) => {
@@ -69,14 +77,20 @@ export class DatabaseHosts {
   private readonly backoffMs: number;
   private readonly maxBackoffMs: number;
   private readonly probeTimeoutMs: number;
+  private readonly probe: (host: DatabaseHost, timeoutMs: number) => Promise<boolean>;
+  private readonly trustMs: number;
+  private readonly waitMs: number;
   private readonly now: () => number;
 
   constructor(hosts: DatabaseHost[], options: DatabaseHostsOptions = {}) {
     if (hosts.length === 0) throw new Error('DatabaseHosts needs at least one host');
-    this.states = hosts.map((host) => ({ host, failures: 0, retryAt: 0 }));
+    this.states = hosts.map((host) => ({ host, failures: 0, retryAt: 0, goodAt: -Infinity }));
     this.backoffMs = options.backoffMs ?? 1_000;
     this.maxBackoffMs = options.maxBackoffMs ?? 15_000;
     this.probeTimeoutMs = options.probeTimeoutMs ?? 500;
+    this.probe = options.probe ?? tcpProbe;
+    this.trustMs = options.trustMs ?? 0;
+    this.waitMs = options.waitMs ?? 0;
     this.now = options.now ?? Date.now;
   }
 
@@ -91,20 +105,41 @@ export class DatabaseHosts {
   }
 
   /**
-   * The host for a new connection: the first one not backing off that accepts a TCP connection.
-   * When every host is backing off or refuses, the one whose back-off ends first is returned, so
-   * the caller's connection attempt reports the real error.
+   * The host for a new connection: the first one not backing off that passes the probe. When
+   * none does, the hosts backing off are probed too, soonest back-off end first (a node may come
+   * back early). When still none answers, the round is repeated every 250 ms for up to `waitMs`
+   * (a Galera cluster stalls for a few seconds while it drops a dead node), and then the first host
+   * is returned, so the caller's connection attempt reports the real error.
    */
   async pick(): Promise<DatabaseHost> {
     if (this.states.length === 1) return (this.lastUsed = this.states[0]!.host);
+    const giveUpAt = this.now() + this.waitMs;
+    for (;;) {
+      const found = await this.round();
+      if (found) return (this.lastUsed = found);
+      if (this.now() >= giveUpAt) return (this.lastUsed = this.states[0]!.host);
+      await new Promise((resolve) => setTimeout(resolve, 250));
+    }
+  }
+
+  /** One pass over the hosts; the first that is trusted or passes its probe. */
+  private async round(): Promise<DatabaseHost | null> {
     const now = this.now();
-    for (const state of this.states) {
-      if (state.retryAt > now) continue;
-      if (await probe(state.host, this.probeTimeoutMs)) return (this.lastUsed = state.host);
+    const ready = this.states.filter((s) => s.retryAt <= now);
+    const waiting = this.states
+      .filter((s) => s.retryAt > now)
+      .sort((a, b) => a.retryAt - b.retryAt);
+    for (const state of [...ready, ...waiting]) {
+      if (now - state.goodAt < this.trustMs && state.retryAt <= now) return state.host;
+      if (await this.probe(state.host, this.probeTimeoutMs)) {
+        state.goodAt = this.now();
+        state.failures = 0;
+        state.retryAt = 0;
+        return state.host;
+      }
       this.markDown(state.host);
     }
-    const soonest = [...this.states].sort((a, b) => a.retryAt - b.retryAt)[0]!;
-    return (this.lastUsed = soonest.host);
+    return null;
   }
 
   /** Records a failure of `host`: it is skipped until its back-off ends. */
@@ -112,6 +147,7 @@ export class DatabaseHosts {
     const state = this.find(host);
     if (!state) return;
     state.failures += 1;
+    state.goodAt = -Infinity;
     const delay = Math.min(this.maxBackoffMs, this.backoffMs * 2 ** (state.failures - 1));
     state.retryAt = this.now() + delay;
   }

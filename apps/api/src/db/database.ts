@@ -1,3 +1,4 @@
+import mariadb from 'mariadb';
 import { Sequelize } from 'sequelize';
 import { DatabaseHosts, hostLabel, type DatabaseHost } from './database-hosts';
 import type { DbConfig } from '../config';
@@ -16,7 +17,11 @@ import { initWaferModel } from '../wafers/wafer.model';
  * only ever changed by the migrations in db/migrations; `sync()` is never called.
  */
 export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}): Sequelize {
-  const hosts = new DatabaseHosts(db.hosts ?? [{ host: db.host, port: db.port }]);
+  const hosts = new DatabaseHosts(db.hosts ?? [{ host: db.host, port: db.port }], {
+    probe: (host, timeoutMs) => nodeIsReady(db, host, timeoutMs),
+    trustMs: 1_000,
+    waitMs: 8_000,
+  });
   const sequelize = new Sequelize(db.name, db.user, db.password, {
     host: db.host,
     port: db.port,
@@ -55,6 +60,35 @@ export class NodeNotReadyError extends Error {
   }
 }
 
+/**
+ * Whether `host` takes queries now: it accepts a sign-in and, when it is a Galera node, reports
+ * `wsrep_ready` ON (a node that is joining or has lost the primary component answers TCP but
+ * refuses statements with error 1047).
+ */
+async function nodeIsReady(db: DbConfig, host: DatabaseHost, timeoutMs: number): Promise<boolean> {
+  let connection: mariadb.Connection | null = null;
+  try {
+    connection = await mariadb.createConnection({
+      host: host.host,
+      port: host.port,
+      user: db.user,
+      password: db.password,
+      connectTimeout: timeoutMs,
+    });
+    const [row] = (await connection.query(READINESS_SQL)) as Array<Record<string, unknown>>;
+    return String(row?.wsrepOn).toUpperCase() !== 'ON' || String(row?.ready).toUpperCase() === 'ON';
+  } catch {
+    return false;
+  } finally {
+    await connection?.end().catch(() => undefined);
+  }
+}
+
+// both are null on a server built without Galera
+const READINESS_SQL =
+  "SELECT (SELECT VARIABLE_VALUE FROM information_schema.GLOBAL_VARIABLES WHERE VARIABLE_NAME = 'WSREP_ON') AS wsrepOn, " +
+  "(SELECT VARIABLE_VALUE FROM information_schema.GLOBAL_STATUS WHERE VARIABLE_NAME = 'WSREP_READY') AS ready";
+
 interface DriverConnection {
   query(sql: string): Promise<Array<Record<string, unknown>>>;
   end(): Promise<void>;
@@ -75,20 +109,17 @@ export function databaseHostsOf(sequelize: Sequelize): DatabaseHosts | undefined
  */
 function watchHosts(sequelize: Sequelize, hosts: DatabaseHosts): void {
   hostsOf.set(sequelize, hosts);
-  let chosen: DatabaseHost = hosts.current;
+  // Sequelize hands every new connection the same config object: set on it just before connecting
   sequelize.addHook('beforeConnect', async (config) => {
-    chosen = await hosts.pick();
+    const chosen = await hosts.pick();
     config.host = chosen.host;
-    config.port = chosen.port;
+    config.port = String(chosen.port);
   });
-  sequelize.addHook('afterConnect', async (raw) => {
+  sequelize.addHook('afterConnect', async (raw, config) => {
     const connection = raw as DriverConnection;
-    const host = chosen;
-    // both are empty on a server built without Galera
-    const [row] = await connection.query(
-      "SELECT (SELECT VARIABLE_VALUE FROM information_schema.GLOBAL_VARIABLES WHERE VARIABLE_NAME = 'WSREP_ON') AS wsrepOn, " +
-        "(SELECT VARIABLE_VALUE FROM information_schema.GLOBAL_STATUS WHERE VARIABLE_NAME = 'WSREP_READY') AS ready",
-    );
+    const { host: name, port } = config as { host?: string; port?: string | number };
+    const host: DatabaseHost = { host: name ?? '', port: Number(port) };
+    const [row] = await connection.query(READINESS_SQL);
     if (String(row?.wsrepOn).toUpperCase() === 'ON') {
       if (String(row?.ready).toUpperCase() !== 'ON') {
         hosts.markDown(host);
