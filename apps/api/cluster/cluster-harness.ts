@@ -118,7 +118,7 @@ export class GaleraCluster {
 }
 
 export class S3StandIn {
-  private readonly dir = mkdtempSync(join(tmpdir(), 'rhotrace-cluster-s3-'));
+  private readonly dir = mkdtempSync(join(tmpdir(), 'rhotrace-clusters3-'));
   private server: { run: () => Promise<unknown>; close: () => Promise<void> } | null = null;
   env: Record<string, string> = {};
 
@@ -161,7 +161,7 @@ export class ApiInstance {
     private readonly env: Record<string, string>,
   ) {
     this.url = `http://127.0.0.1:${port}`;
-    this.dataDir = mkdtempSync(join(tmpdir(), `rhotrace-cluster-${name}-`));
+    this.dataDir = mkdtempSync(join(tmpdir(), `rhotrace-clusterapi-${name}-`));
     mkdirSync(join(this.dataDir, 'mail'), { recursive: true });
   }
 
@@ -178,7 +178,7 @@ export class ApiInstance {
         NODE_ENV: 'production',
         LOG_LEVEL: 'error',
       },
-      stdio: ['ignore', 'ignore', 'inherit'],
+      stdio: ['ignore', 'inherit', 'inherit'],
       // its own process group: tsx runs the server in a child, and a kill must reach both
       detached: true,
     });
