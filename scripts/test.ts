@@ -4,7 +4,8 @@
  * `summary: N passed, M failed` and a non-zero exit when anything failed.
  *
  *   npm test                 all suites
- *   npm test -- physics api  only the named suites (lint, typecheck, physics, api, web, e2e)
+ *   npm test -- physics api  only the named suites (lint, typecheck, physics, api, web, e2e,
+ *                            cluster)
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -16,6 +17,8 @@ import { ensureDebianPackage } from './system-packages';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const TMP_PREFIX = 'rhotrace-test-';
+/** The cluster suite's folders (apps/api/cluster): a Galera cluster to stop when left behind. */
+const CLUSTER_PREFIX = 'rhotrace-cluster-';
 const bin = (name: string) => join(ROOT, 'node_modules/.bin', name);
 
 interface Result {
@@ -83,17 +86,24 @@ async function suite(
 /** Stops databases and removes folders left by earlier runs that were killed half-way. */
 function cleanStaleRuns(): void {
   for (const entry of readdirSync(tmpdir())) {
-    if (!entry.startsWith(TMP_PREFIX)) continue;
+    const cluster = entry.startsWith(CLUSTER_PREFIX);
+    if (!entry.startsWith(TMP_PREFIX) && !cluster) continue;
     const dir = join(tmpdir(), entry);
     const owner = Number(
       existsSync(join(dir, 'runner.pid')) ? readFileSync(join(dir, 'runner.pid'), 'utf8') : 0,
     );
     if (owner && alive(owner)) continue;
     try {
-      execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], {
-        env: { ...process.env, DATA_DIR: dir },
-        stdio: 'ignore',
-      });
+      if (cluster && existsSync(join(dir, 'node1')))
+        execFileSync('bash', [join(ROOT, 'db/cluster.sh'), 'stop'], {
+          env: { ...process.env, CLUSTER_DIR: dir },
+          stdio: 'ignore',
+        });
+      else if (!cluster)
+        execFileSync('bash', [join(ROOT, 'db/db.sh'), 'stop'], {
+          env: { ...process.env, DATA_DIR: dir },
+          stdio: 'ignore',
+        });
     } catch {
       /* nothing running */
     }
@@ -233,6 +243,12 @@ async function main(): Promise<void> {
       }
     }
   }
+  if (want('cluster'))
+    await suite('cluster', bin('vitest'), ['run', '--config', 'cluster/vitest.config.ts'], {
+      cwd: join(ROOT, 'apps/api'),
+      env: { ...baseEnv, LOG_LEVEL: 'error' },
+      kind: 'vitest',
+    });
 }
 
 main()

@@ -2,13 +2,17 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { parseDatabaseHosts, type DatabaseHost } from './db/database-hosts';
 
 /** The repository root, found from this file so scripts work from any working directory. */
 export const REPO_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
 
 export interface DbConfig {
+  /** The first (or only) database host; with `hosts`, the first of them. */
   host: string;
   port: number;
+  /** `DB_HOSTS`: every host of a cluster in order of preference (see db/database-hosts.ts). */
+  hosts?: DatabaseHost[];
   name: string;
   user: string;
   password: string;
@@ -67,6 +71,17 @@ function jwtSecretFrom(env: Env, dataDir: string): string {
   return readFileSync(file, 'utf8').trim();
 }
 
+/** `DB_HOSTS`, when set, replaces `DB_HOST` and `DB_PORT`. */
+function dbHosts(
+  list: string,
+  host: string,
+  port: number,
+): Pick<DbConfig, 'host' | 'port' | 'hosts'> {
+  if (!list) return { host, port };
+  const hosts = parseDatabaseHosts(list);
+  return { host: hosts[0]!.host, port: hosts[0]!.port, hosts };
+}
+
 /** Builds the configuration from environment variables and the data directory's files. */
 export function loadConfig(env: Env = process.env): AppConfig {
   const dataDirRaw = env.DATA_DIR ?? join(REPO_ROOT, 'db/.data');
@@ -83,8 +98,11 @@ export function loadConfig(env: Env = process.env): AppConfig {
     dataDir,
     publicUrl: env.PUBLIC_URL ?? `http://127.0.0.1:${port}`,
     db: {
-      host: pick('DB_HOST', '127.0.0.1'),
-      port: Number(pick('DB_PORT', '3307')),
+      ...dbHosts(
+        pick('DB_HOSTS', ''),
+        pick('DB_HOST', '127.0.0.1'),
+        Number(pick('DB_PORT', '3307')),
+      ),
       name: pick('DB_NAME', 'rhotrace'),
       user: pick('DB_USER', 'rhotrace'),
       password: pick('DB_PASSWORD', ''),

@@ -15,4 +15,8 @@ export const DEFAULT_PAGE_SIZE = 25;
 export interface HealthResponse {
   status: 'ok' | 'degraded';
   db: 'up' | 'down';
+  /** `host:port` of the database server new connections go to. */
+  dbHost: string;
+  /** Nodes in the Galera cluster that server belongs to; null for a single server or when down. */
+  clusterSize: number | null;
 }

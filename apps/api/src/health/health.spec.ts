@@ -14,7 +14,12 @@ describe('GET /api/health', () => {
   it('reports the database up without sign-in', async () => {
     const res = await request(ctx.app).get('/api/health');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ status: 'ok', db: 'up' });
+    expect(res.body).toEqual({
+      status: 'ok',
+      db: 'up',
+      dbHost: `${ctx.config.db.host}:${ctx.config.db.port}`,
+      clusterSize: null,
+    });
   });
 
   it('answers unknown API paths with the JSON error shape', async () => {
@@ -31,7 +36,12 @@ describe('GET /api/health', () => {
     const app = express().use('/api', healthRouter({ sequelize: dead }));
     const res = await request(app).get('/api/health');
     expect(res.status).toBe(503);
-    expect(res.body).toEqual({ status: 'degraded', db: 'down' });
+    expect(res.body).toEqual({
+      status: 'degraded',
+      db: 'down',
+      dbHost: `${ctx.config.db.host}:1`,
+      clusterSize: null,
+    });
     await dead.close();
   });
 });
