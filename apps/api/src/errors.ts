@@ -27,6 +27,9 @@ export const unauthenticated = (message = 'Sign in to continue') =>
   new HttpError('unauthenticated', message);
 export const unprocessable = (message: string, details?: FieldProblem[]) =>
   new HttpError('unprocessable', message, details);
+/** 503 with `Retry-After`: a service the request needs does not answer right now. */
+export const serviceUnavailable = (message: string, retryAfterS = 5) =>
+  new HttpError('unavailable', message, undefined, { 'Retry-After': String(retryAfterS) });
 
 /**
  * Re-labels a 404 so it names the record the caller asked for (a hidden wafer answers as the

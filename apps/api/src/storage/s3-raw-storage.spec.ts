@@ -6,6 +6,7 @@ import { join } from 'node:path';
 // @ts-expect-error no type declarations
 import S3rver from 's3rver';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { HttpError } from '../errors';
 import { freePortForTest } from '../testing/free-port';
 import { S3RawStorage, s3SettingsFromEnv } from './s3-raw-storage';
 
@@ -58,5 +59,24 @@ describe('S3RawStorage against a local S3 stand-in (s3rver)', () => {
 
   it('names the missing variable when configured incompletely', () => {
     expect(() => s3SettingsFromEnv({ S3_BUCKET: 'b' })).toThrow(/S3_ACCESS_KEY_ID/);
+  });
+});
+
+describe('S3RawStorage when the store does not answer', () => {
+  it('refuses a put with a 503 and Retry-After, not a server fault', async () => {
+    const port = await freePortForTest(); // nothing listens there
+    const storage = new S3RawStorage({
+      endpoint: `http://127.0.0.1:${port}`,
+      region: 'us-east-1',
+      bucket: 'rhotrace-unreachable',
+      accessKeyId: 'S3RVER',
+      secretAccessKey: 'S3RVER',
+      forcePathStyle: true,
+    });
+    const error = await storage.put(Buffer.from('T (K),R (ohm)\n300,1\n')).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(HttpError);
+    expect((error as HttpError).status).toBe(503);
+    expect((error as HttpError).headers).toEqual({ 'Retry-After': '5' });
+    expect((error as HttpError).message).toMatch(/raw-file store does not answer/);
   });
 });

@@ -8,6 +8,7 @@ import {
   PutObjectCommand,
   S3Client,
 } from '@aws-sdk/client-s3';
+import { serviceUnavailable } from '../errors';
 import { newStorageKey, STORAGE_KEY_PREFIX, type RawStorage } from './raw-storage';
 
 /** Settings of an S3-compatible object store, read from `S3_*` variables. */
@@ -73,18 +74,29 @@ export class S3RawStorage implements RawStorage {
     this.bucketChecked = true;
   }
 
+  /**
+   * Writes `content` under a new key. An unreachable or failing store is a 503 (the upload
+   * stores nothing and may be sent again), not a server fault.
+   */
   async put(content: Buffer): Promise<string> {
-    await this.ensureBucket();
     const key = newStorageKey();
-    await this.client.send(
-      new PutObjectCommand({
-        Bucket: this.settings.bucket,
-        Key: key,
-        Body: content,
-        ContentLength: content.length,
-        ContentType: 'application/octet-stream',
-      }),
-    );
+    try {
+      await this.ensureBucket();
+      await this.client.send(
+        new PutObjectCommand({
+          Bucket: this.settings.bucket,
+          Key: key,
+          Body: content,
+          ContentLength: content.length,
+          ContentType: 'application/octet-stream',
+        }),
+      );
+    } catch (error) {
+      throw serviceUnavailable(
+        `The raw-file store does not answer right now (${(error as Error).name || 'error'}); ` +
+          'nothing was stored. Retry in a few seconds',
+      );
+    }
     return key;
   }
 

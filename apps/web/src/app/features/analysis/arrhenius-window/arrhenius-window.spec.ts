@@ -4,7 +4,14 @@ import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing'
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { Plot } from '../../../shared/plot/plot';
-import { answer, mountPart, previewOf, savedOf } from '../testing/study-fakes';
+import {
+  FakeAnalysisApi,
+  analysisOf,
+  answer,
+  mountPart,
+  previewOf,
+  savedOf,
+} from '../testing/study-fakes';
 import { ArrheniusWindow } from './arrhenius-window';
 
 async function mount() {
@@ -115,5 +122,26 @@ describe('ArrheniusWindow', () => {
     await preview.click();
     await fixture.whenStable();
     expect(api.previews[0]!.body).toMatchObject({ minK: 330, maxK: 420 });
+  });
+
+  it('shows the caution that comes with a suggested window', async () => {
+    const api = new FakeAnalysisApi();
+    api.analysisAnswer = {
+      ...analysisOf(),
+      suggestedWindows: [
+        {
+          regime: 'intrinsic',
+          minK: 350,
+          maxK: 450,
+          pointCount: 9,
+          warnings: ['only 4 steps: too few for a trustworthy slope'],
+        },
+      ],
+    };
+    const { fixture } = await mountPart(ArrheniusWindow, api);
+    const note = (fixture.nativeElement as HTMLElement).querySelector(
+      '[data-testid="window-warning"]',
+    );
+    expect(note?.textContent).toContain('only 4 steps');
   });
 });

@@ -21,4 +21,26 @@ describe('ModelOverlay', () => {
     expect(text).toContain('Metal film: the bulk reference curve of W');
     expect(text).not.toContain('Starting point');
   });
+
+  it('states where the model is stretched, as the API says it', async () => {
+    const { store, fixture } = await mountPart(ModelOverlay);
+    store.curveState.set({
+      curve: {
+        kind: 'semiconductor',
+        material: 'Si',
+        points: [],
+        boundaries: { freezeOutBelowK: null, intrinsicAboveK: null },
+        modelVersion: 't',
+        warnings: ['the mobility model was fitted over 200-500 K; below that it is extrapolated'],
+      },
+      problem: null,
+      loading: false,
+    });
+    fixture.detectChanges();
+    await fixture.whenStable();
+    const list = (fixture.nativeElement as HTMLElement).querySelector(
+      '[data-testid="model-warnings"]',
+    );
+    expect(list?.textContent).toContain('fitted over 200-500 K');
+  });
 });
