@@ -57,7 +57,7 @@ export async function recordAuditWhen(
   const json = (value: unknown) =>
     value === undefined || value === null ? null : JSON.stringify(value);
   const [, affectedRows] = await AuditEvent.sequelize!.query(
-    'INSERT INTO audit_events (actor_id, action, entity, entity_id, `before`, `after`, request_id, ' +
+    'INSERT INTO `audit_events` (actor_id, action, entity, entity_id, `before`, `after`, request_id, ' +
       `created_at) SELECT ?, ?, ?, ?, ?, ?, ?, ? FROM DUAL WHERE ${condition.sql}`,
     {
       replacements: [
