@@ -47,8 +47,9 @@ function dirtyCount(ctx: TestContext, table: string): Promise<number> {
 /** Statements of the application's user now running an INSERT into `table` (waiting included). */
 async function waitingInserts(ctx: TestContext, table: string): Promise<number> {
   const [rows] = (await ctx.sequelize.query(
-    'SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE INFO LIKE ?',
-    { replacements: [`INSERT INTO \`${table}\`%`] },
+    // Sequelize quotes the table name; the import's own statements do not
+    'SELECT COUNT(*) AS n FROM information_schema.PROCESSLIST WHERE INFO LIKE ? OR INFO LIKE ?',
+    { replacements: [`INSERT INTO \`${table}\`%`, `INSERT INTO ${table} %`] },
   )) as [Array<{ n: number }>, unknown];
   return Number(rows[0]!.n);
 }
