@@ -149,6 +149,9 @@ export class AnalysisStore {
         // An answer to a request since discarded or replaced is not shown.
         if (!current || this.slots[slot]().request !== body) return;
         this.slots[slot].update((s) => ({ ...s, fit, problem, busy: false }));
+        // The API clips a window reaching past the data; shade and type what was fitted.
+        if (slot === 'window' && fit?.windowMinK != null && fit.windowMaxK != null)
+          this.window.set({ minK: fit.windowMinK, maxK: fit.windowMaxK });
       });
     this.keeps$
       .pipe(

@@ -109,6 +109,17 @@ describe('ArrheniusWindow', () => {
     });
   });
 
+  it('shades and types the window the API fitted when it clips one reaching past the data', async () => {
+    const { api, loader, drag, fixture } = await mount();
+    await drag(2.5, 1000 / 280);
+    const body = api.previews[0]!.body;
+    answer(api.previews[0], previewOf(body, { windowMinK: 300, windowMaxK: 400 }));
+    await fixture.whenStable();
+    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=minK]' }));
+    expect(await from.getValue()).toBe('300');
+    expect(api.previews).toHaveLength(1); // showing the clipped window asks for nothing more
+  });
+
   it('previews typed bounds and explains a missing one', async () => {
     const { api, loader, text, fixture } = await mount();
     const preview = await loader.getHarness(MatButtonHarness.with({ text: 'Preview this window' }));
