@@ -17,7 +17,7 @@ import type {
   SweepPreviewResponse,
 } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
-import { retryTransientOnce } from '../db/transient-errors';
+import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
 import { conflict, unprocessable } from '../errors';
 import type { RawStorage } from '../storage/raw-storage';
 import { mayUploadTo } from '../access/visibility.service';
@@ -99,7 +99,23 @@ export async function importSweep(
   options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
-  return retryTransientOnce('upload', () => importOnce(input, actor, storage), options.onRetry);
+  return retryTransientOnce(
+    'upload',
+    () => importOnce(input, actor, storage).catch(lostSweepRow),
+    options.onRetry,
+  );
+}
+
+/**
+ * A point batch refused for a missing parent (1452) can only mean the transaction lost the sweep
+ * row it inserted itself: a Galera brute-force abort rolled it back and the batch ran outside it.
+ * That is a lost transaction (retried, then 503), not a fault of the server.
+ */
+function lostSweepRow(error: unknown): never {
+  const e = error as { errno?: number; original?: { errno?: number } } | null;
+  if (e?.errno === 1452 || e?.original?.errno === 1452)
+    throw new TransactionLostError('a point batch found no sweep row');
+  throw error;
 }
 
 /** One attempt: the file is read again, so a retry starts from the same bytes. */
