@@ -72,7 +72,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
       skippedNoTemperature += 1;
     }
   }
-  // Stable sort by temperature, then recording order, so a dwell step keeps its readings' order.
+  // Stable sort by temperature, then recording order, so readings held at one temperature keep their order.
   usable.sort((a, b) => a.point.temperatureK - b.point.temperatureK || a.sequence - b.sequence);
   skippedK.sort((a, b) => a - b);
   return readingsCache.remember(sweep, {
