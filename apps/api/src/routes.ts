@@ -14,6 +14,7 @@ import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
+import { openApiRouter } from './openapi/openapi.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -21,6 +22,7 @@ import { devMailRouter } from './mail/dev-mail.router';
 export function apiRoutes(deps: AppDeps): Router {
   const router = Router();
   router.use(healthRouter(deps));
+  router.use(openApiRouter());
   router.use(activityRouter(deps));
   router.use(sweepRouter(deps));
   router.use(authRouter(deps));

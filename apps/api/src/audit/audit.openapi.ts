@@ -1,0 +1,32 @@
+import type { AuditEventDto } from '@rhotrace/api-types';
+import { z } from 'zod';
+import { routesOf } from '../openapi/registry';
+import { dateTime, jsonValue, pageOf } from '../openapi/shapes';
+import { listQuery } from './audit.schemas';
+
+const auditEventSchema = z
+  .object({
+    id: z.number().int(),
+    actorId: z.number().int().nullable(),
+    actorEmail: z.string().nullable().optional(),
+    action: z.string(),
+    entity: z.string(),
+    entityId: z.string(),
+    before: jsonValue,
+    after: jsonValue,
+    requestId: z.string().nullable(),
+    createdAt: dateTime,
+  })
+  .strict() satisfies z.ZodType<AuditEventDto>;
+
+/** /api/audit */
+export function registerAuditApi(): void {
+  routesOf('Audit trail')({
+    method: 'get',
+    path: '/audit',
+    summary: 'The audit trail, newest first',
+    query: listQuery,
+    ok: { status: 200, description: 'A page of events', schema: pageOf(auditEventSchema) },
+    errors: [403],
+  });
+}
