@@ -87,6 +87,7 @@ export type {
   WaferDto,
   StationDto,
   AssignmentDto,
+  AuditChangeDto,
   AuditEventDto,
   LotListQuery,
   WaferListQuery,

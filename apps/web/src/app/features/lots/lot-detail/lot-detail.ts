@@ -35,6 +35,7 @@ import { SpecVerdictBadge } from '../../../shared/spec-verdict';
 import { methodWords, ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
 import { LotsApi } from '../lots-api';
 import { lotChart } from './lot-chart';
+import { RecordHistory } from '../../../shared/record-history/record-history';
 
 interface WaferRow {
   wafer: WaferDto;
@@ -48,6 +49,7 @@ interface WaferRow {
 @Component({
   selector: 'rt-lot-detail',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatFormFieldModule,

@@ -26,6 +26,7 @@ import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
 import { WafersApi } from '../wafers-api';
+import { RecordHistory } from '../../../shared/record-history/record-history';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
@@ -39,6 +40,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
 @Component({
   selector: 'rt-wafer-page',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatSelectModule,
