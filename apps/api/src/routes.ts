@@ -15,6 +15,7 @@ import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { openApiRouter } from './openapi/openapi.router';
+import { searchRouter } from './search/search.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -32,6 +33,7 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(stationsRouter(deps));
   router.use(auditRouter(deps));
   router.use(assignmentsRouter(deps));
+  router.use(searchRouter(deps));
   router.use(devMailRouter(deps));
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));

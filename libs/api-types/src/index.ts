@@ -98,6 +98,8 @@ export type {
   UpdateAssignmentRequest,
   AuditListQuery,
 } from './records';
+export { SEARCH_KINDS } from './search';
+export type { SearchKind, SearchHit, SearchGroup, SearchResponse } from './search';
 export { UNCERTAINTY_SOURCES, SPEC_VERDICT_WORDS, SPEC_VERDICT_MEANINGS } from './spec';
 export type {
   ValueAt23CMethod,

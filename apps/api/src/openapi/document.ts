@@ -15,6 +15,7 @@ import { registerLotsApi } from '../lots/lots.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
 import { registerStationsApi } from '../stations/stations.openapi';
+import { registerSearchApi } from '../search/search.openapi';
 import { registerSweepsApi } from '../sweeps/sweep.openapi';
 import { registerUsersApi } from '../users/users.openapi';
 import { registerWafersApi } from '../wafers/wafers.openapi';
@@ -38,6 +39,7 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerFitsApi,
   registerReportsApi,
   registerDevMailApi,
+  registerSearchApi,
 ];
 
 /** The generated document (OpenAPI 3.1). */
