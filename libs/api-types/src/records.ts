@@ -91,6 +91,8 @@ export interface AssignmentDto {
   overdue: boolean;
   /** Safety notes for this task and wafer material (they defer to the lab's own rules). */
   safetyCautions?: string[];
+  /** The probe station the wafer is to be measured on; its token may post the sweep. */
+  stationId?: number | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -166,6 +168,7 @@ export interface CreateAssignmentRequest {
   task: string;
   dueDate: string;
   notes?: string | null;
+  stationId?: number | null;
 }
 
 export interface UpdateAssignmentRequest {
@@ -174,6 +177,7 @@ export interface UpdateAssignmentRequest {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
 }
 
 /** `GET /api/audit` filters: `entity` (lot, wafer, station, assignment, user), `id`, `actorId`. */

@@ -23,6 +23,7 @@ export const assignmentDtoSchema = registry.register(
       notes: z.string().nullable(),
       overdue: z.boolean(),
       safetyCautions: z.array(z.string()).optional(),
+      stationId: z.number().int().nullable().optional(),
       ...timestamps,
     })
     .strict(),

@@ -13,6 +13,7 @@ import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
 import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
+import { Station } from '../stations/station.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
@@ -67,6 +68,7 @@ export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
     notes: a.notes,
     overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
     ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
+    stationId: a.stationId ?? null,
     createdAt: a.createdAt.toISOString(),
     updatedAt: a.updatedAt.toISOString(),
   };
@@ -116,6 +118,17 @@ export interface NewAssignment {
   task: string;
   dueDate: string;
   notes: string | null;
+  stationId: number | null;
+}
+
+/** 400 unless `stationId` is null or a station that exists (not deleted). */
+async function knownStation(stationId: number | null | undefined, t: Transaction): Promise<void> {
+  if (stationId == null) return;
+  if (!(await Station.findByPk(stationId, { transaction: t }))) {
+    throw validationFailed('The station does not exist', [
+      { field: 'body.stationId', problem: 'is not a probe station' },
+    ]);
+  }
 }
 
 /**
@@ -132,6 +145,7 @@ export async function createAssignment(
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
     const assignee = await activeAssignee(input.assigneeId, t);
+    await knownStation(input.stationId, t);
     const a = await Assignment.create({ ...input, assignedById: actor.id }, { transaction: t });
     await auditChange(t, actor, 'create', 'assignment', a.id, { after: snapshot(a) });
     await queueMail(a, { wafer, lot, assignee, assignerName: actor.name }, mail, t);
@@ -202,6 +216,7 @@ export interface AssignmentChanges {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
 }
 
 /**
@@ -237,6 +252,7 @@ export async function updateAssignment(
         }
       }
     }
+    await knownStation(changes.stationId, t);
     const before = snapshot(a);
     const newAssignee =
       changes.assigneeId !== undefined && changes.assigneeId !== a.assigneeId
