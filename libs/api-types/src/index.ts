@@ -86,6 +86,7 @@ export type {
   WaferDto,
   StationDto,
   AssignmentDto,
+  AssignmentStationUpload,
   AuditEventDto,
   LotListQuery,
   WaferListQuery,

@@ -93,8 +93,18 @@ export interface AssignmentDto {
   safetyCautions?: string[];
   /** The probe station the wafer is to be measured on; its token may post the sweep. */
   stationId?: number | null;
+  /** The sweep the station posted for this assignment, when one did. */
+  stationUpload?: AssignmentStationUpload | null;
   createdAt: string;
   updatedAt: string;
+}
+
+/** A station's post that fulfilled an assignment. */
+export interface AssignmentStationUpload {
+  sweepId: number;
+  stationName: string;
+  tokenLabel: string;
+  postedAt: string;
 }
 
 export interface AuditEventDto {

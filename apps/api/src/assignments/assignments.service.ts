@@ -1,5 +1,6 @@
 import {
   type AssignmentDto,
+  type AssignmentStationUpload,
   type AssignmentState,
   type Page,
   type SessionUser,
@@ -13,6 +14,7 @@ import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
 import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
+import { stationUploadsByAssignment } from '../station-posts/station-uploads';
 import { Station } from '../stations/station.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
@@ -28,6 +30,7 @@ interface Related {
   wafers: Map<number, Wafer>;
   lots: Map<number, Lot>;
   users: Map<number, User>;
+  stationUploads: Map<number, AssignmentStationUpload>;
 }
 
 async function related(rows: Assignment[], transaction?: Transaction): Promise<Related> {
@@ -43,10 +46,12 @@ async function related(rows: Assignment[], transaction?: Transaction): Promise<R
   const users = userIds.length
     ? await User.findAll({ where: { id: { [Op.in]: userIds } }, transaction })
     : [];
+  const stationed = rows.filter((a) => a.stationId != null).map((a) => a.id);
   return {
     wafers: new Map(wafers.map((w) => [w.id, w])),
     lots: new Map(lots.map((l) => [l.id, l])),
     users: new Map(users.map((u) => [u.id, u])),
+    stationUploads: await stationUploadsByAssignment(stationed, transaction),
   };
 }
 
@@ -69,6 +74,7 @@ export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
     overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
     ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
     stationId: a.stationId ?? null,
+    ...(r ? { stationUpload: r.stationUploads.get(a.id) ?? null } : {}),
     createdAt: a.createdAt.toISOString(),
     updatedAt: a.updatedAt.toISOString(),
   };

@@ -177,7 +177,15 @@ describe('POST /api/station/sweeps', () => {
     });
     expect(sweep.body.stationId).toBe(stationId);
     expect(documentProblems('GET', '/sweeps/{id}', 200, sweep.body)).toEqual([]);
-    expect((await Assignment.findByPk(assignment.id))!.state).toBe('done');
+    const closed = await request(ctx.app)
+      .get(`/api/assignments/${assignment.id}`)
+      .set(ctx.auth('manager'));
+    expect(closed.body).toMatchObject({ state: 'done', stationId });
+    expect(closed.body.stationUpload).toMatchObject({
+      sweepId: res.body.id,
+      stationName: 'Bench A',
+    });
+    expect(documentProblems('GET', '/assignments/{id}', 200, closed.body)).toEqual([]);
     expect((await Wafer.findByPk(wafer.id))!.state).toBe('measured');
     const [mail] = await ctx.sequelize.query<{ toAddress: string; subject: string }>(
       'SELECT to_address AS toAddress, subject FROM outgoing_emails WHERE related_id = ? ' +
