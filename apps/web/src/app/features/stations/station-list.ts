@@ -15,6 +15,7 @@ import { formatDay } from '../../shared/format';
 import { FormatValuePipe } from '../../shared/format-value';
 import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
+import { StationTokens } from './station-tokens/station-tokens';
 import { StationsApi } from './stations-api';
 
 /** Probe stations: list, register, edit. */
@@ -29,6 +30,7 @@ import { StationsApi } from './stations-api';
     ReactiveFormsModule,
     FormatValuePipe,
     ListEditor,
+    StationTokens,
   ],
   templateUrl: './station-list.html',
   styles: `
