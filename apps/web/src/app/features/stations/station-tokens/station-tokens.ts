@@ -1,8 +1,20 @@
 import { Clipboard } from '@angular/cdk/clipboard';
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  inject,
+  input,
+  signal,
+  viewChild,
+} from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import {
+  FormGroupDirective,
+  NonNullableFormBuilder,
+  ReactiveFormsModule,
+  Validators,
+} from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -36,7 +48,6 @@ import { StationsApi } from '../stations-api';
       border: 1px solid var(--mat-sys-outline-variant);
       border-radius: 16px;
       padding: 4px 16px 12px;
-      margin-top: 24px;
     }
     .secret {
       background: var(--mat-sys-surface-container-high);
@@ -63,6 +74,7 @@ export class StationTokens {
   private readonly confirmer = inject(Confirmer);
   private readonly clipboard = inject(Clipboard);
   private readonly fb = inject(NonNullableFormBuilder);
+  private readonly formDirective = viewChild(FormGroupDirective);
 
   readonly stations = input.required<StationDto[]>();
 
@@ -98,7 +110,8 @@ export class StationTokens {
       next: (made) => {
         this.made.set(made);
         this.copied.set(false);
-        this.form.reset();
+        // resetForm also clears the submitted state, so the empty field shows no error
+        this.formDirective()?.resetForm();
         this.tokens.reload();
       },
       error: (err: unknown) => {
