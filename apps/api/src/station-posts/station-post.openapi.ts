@@ -40,6 +40,12 @@ export function registerStationPostApi(): void {
       status: 201,
       description: 'The stored sweep (or, for a repeated key, the first answer again)',
       schema: createdSchema,
+      headers: z.object({
+        'Idempotent-Replayed': z
+          .literal('true')
+          .optional()
+          .describe('Present when this is the first answer given again for a repeated key'),
+      }),
     },
     errors: [403, 409, 413, 415, 422, 429, 503],
   });
