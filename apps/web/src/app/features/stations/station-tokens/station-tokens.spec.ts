@@ -71,6 +71,7 @@ describe('StationTokens', () => {
     await fixture.whenStable();
     expect(text()).toContain(SECRET);
     expect(text()).toContain('cannot show it again');
+    expect(text()).not.toContain('This is needed'); // the emptied label field is not in error
     expect(text()).toContain('rts_01234567…');
 
     await (await loader.getHarness(MatButtonHarness.with({ text: 'I have stored it' }))).click();
