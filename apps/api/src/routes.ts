@@ -10,6 +10,8 @@ import { authRouter } from './auth/auth.router';
 import { usersRouter } from './users/users.router';
 import { lotsRouter } from './lots/lots.router';
 import { wafersRouter } from './wafers/wafers.router';
+import { stationPostRouter } from './station-posts/station-post.router';
+import { stationTokensRouter } from './station-tokens/station-tokens.router';
 import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
@@ -31,6 +33,8 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(lotsRouter(deps));
   router.use(wafersRouter(deps));
   router.use(stationsRouter(deps));
+  router.use(stationTokensRouter(deps));
+  router.use(stationPostRouter(deps));
   router.use(auditRouter(deps));
   router.use(assignmentsRouter(deps));
   router.use(searchRouter(deps));

@@ -88,6 +88,7 @@ export type {
   StationDto,
   AssignmentDto,
   AuditChangeDto,
+  AssignmentStationUpload,
   AuditEventDto,
   LotListQuery,
   WaferListQuery,
@@ -109,6 +110,14 @@ export type {
   ValueUncertainty,
   LotCapability,
 } from './spec';
+export { STATION_TOKEN_PREFIX } from './station-tokens';
+export type {
+  CreateStationTokenRequest,
+  StationTokenDto,
+  StationTokenCreatedResponse,
+  StationUploadDto,
+  StationSweepCreatedResponse,
+} from './station-tokens';
 export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
 export type {
   SweepMethod,

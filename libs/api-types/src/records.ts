@@ -91,6 +91,10 @@ export interface AssignmentDto {
   overdue: boolean;
   /** Safety notes for this task and wafer material (they defer to the lab's own rules). */
   safetyCautions?: string[];
+  /** The probe station the wafer is to be measured on; its token may post the sweep. */
+  stationId?: number | null;
+  /** The sweep the station posted for this assignment, when one did. */
+  stationUpload?: AssignmentStationUpload | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -103,6 +107,14 @@ export interface AuditChangeDto {
   /** null when the record did not exist before (created) or after (deleted). */
   before: string | null;
   after: string | null;
+}
+
+/** A station's post that fulfilled an assignment. */
+export interface AssignmentStationUpload {
+  sweepId: number;
+  stationName: string;
+  tokenLabel: string;
+  postedAt: string;
 }
 
 export interface AuditEventDto {
@@ -180,6 +192,7 @@ export interface CreateAssignmentRequest {
   task: string;
   dueDate: string;
   notes?: string | null;
+  stationId?: number | null;
 }
 
 export interface UpdateAssignmentRequest {
@@ -188,6 +201,7 @@ export interface UpdateAssignmentRequest {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
 }
 
 /** `GET /api/audit` filters: `entity` (lot, wafer, station, assignment, user), `id`, `actorId`. */

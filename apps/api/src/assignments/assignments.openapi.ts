@@ -2,7 +2,7 @@ import type { AssignmentDto } from '@rhotrace/api-types';
 import { ASSIGNMENT_STATES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
-import { pageOf, timestamps } from '../openapi/shapes';
+import { dateTime, pageOf, timestamps } from '../openapi/shapes';
 import { createBody, listQuery, overdueQuery, updateBody } from './assignments.schemas';
 
 /** An assignment as the API answers it. */
@@ -23,6 +23,17 @@ export const assignmentDtoSchema = registry.register(
       notes: z.string().nullable(),
       overdue: z.boolean(),
       safetyCautions: z.array(z.string()).optional(),
+      stationId: z.number().int().nullable().optional(),
+      stationUpload: z
+        .object({
+          sweepId: z.number().int(),
+          stationName: z.string(),
+          tokenLabel: z.string(),
+          postedAt: dateTime,
+        })
+        .strict()
+        .nullable()
+        .optional(),
       ...timestamps,
     })
     .strict(),

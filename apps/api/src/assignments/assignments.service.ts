@@ -1,5 +1,6 @@
 import {
   type AssignmentDto,
+  type AssignmentStationUpload,
   type AssignmentState,
   type Page,
   type SessionUser,
@@ -13,6 +14,8 @@ import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
 import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
+import { stationUploadsByAssignment } from '../station-posts/station-uploads';
+import { Station } from '../stations/station.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
@@ -27,6 +30,7 @@ interface Related {
   wafers: Map<number, Wafer>;
   lots: Map<number, Lot>;
   users: Map<number, User>;
+  stationUploads: Map<number, AssignmentStationUpload>;
 }
 
 async function related(rows: Assignment[], transaction?: Transaction): Promise<Related> {
@@ -42,10 +46,12 @@ async function related(rows: Assignment[], transaction?: Transaction): Promise<R
   const users = userIds.length
     ? await User.findAll({ where: { id: { [Op.in]: userIds } }, transaction })
     : [];
+  const stationed = rows.filter((a) => a.stationId != null).map((a) => a.id);
   return {
     wafers: new Map(wafers.map((w) => [w.id, w])),
     lots: new Map(lots.map((l) => [l.id, l])),
     users: new Map(users.map((u) => [u.id, u])),
+    stationUploads: await stationUploadsByAssignment(stationed, transaction),
   };
 }
 
@@ -67,6 +73,8 @@ export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
     notes: a.notes,
     overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
     ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
+    stationId: a.stationId ?? null,
+    ...(r ? { stationUpload: r.stationUploads.get(a.id) ?? null } : {}),
     createdAt: a.createdAt.toISOString(),
     updatedAt: a.updatedAt.toISOString(),
   };
@@ -116,6 +124,17 @@ export interface NewAssignment {
   task: string;
   dueDate: string;
   notes: string | null;
+  stationId: number | null;
+}
+
+/** 400 unless `stationId` is null or a station that exists (not deleted). */
+async function knownStation(stationId: number | null | undefined, t: Transaction): Promise<void> {
+  if (stationId == null) return;
+  if (!(await Station.findByPk(stationId, { transaction: t }))) {
+    throw validationFailed('The station does not exist', [
+      { field: 'body.stationId', problem: 'is not a probe station' },
+    ]);
+  }
 }
 
 /**
@@ -132,6 +151,7 @@ export async function createAssignment(
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
     const assignee = await activeAssignee(input.assigneeId, t);
+    await knownStation(input.stationId, t);
     const a = await Assignment.create({ ...input, assignedById: actor.id }, { transaction: t });
     await auditChange(t, actor, 'create', 'assignment', a.id, { after: snapshot(a) });
     await queueMail(a, { wafer, lot, assignee, assignerName: actor.name }, mail, t);
@@ -206,6 +226,7 @@ export interface AssignmentChanges {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
 }
 
 /**
@@ -241,6 +262,7 @@ export async function updateAssignment(
         }
       }
     }
+    await knownStation(changes.stationId, t);
     const before = snapshot(a);
     const newAssignee =
       changes.assigneeId !== undefined && changes.assigneeId !== a.assigneeId

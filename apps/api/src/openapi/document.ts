@@ -14,6 +14,8 @@ import { registerHealthApi } from '../health/health.openapi';
 import { registerLotsApi } from '../lots/lots.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
+import { registerStationPostApi } from '../station-posts/station-post.openapi';
+import { registerStationTokensApi } from '../station-tokens/station-tokens.openapi';
 import { registerStationsApi } from '../stations/stations.openapi';
 import { registerSearchApi } from '../search/search.openapi';
 import { registerSweepsApi } from '../sweeps/sweep.openapi';
@@ -31,6 +33,8 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerLotsApi,
   registerWafersApi,
   registerStationsApi,
+  registerStationTokensApi,
+  registerStationPostApi,
   registerAssignmentsApi,
   registerAuditApi,
   registerActivityApi,

@@ -6,6 +6,7 @@ import { promisify } from 'node:util';
 import { gzip as gzipCallback } from 'node:zlib';
 import type {
   PointFlag,
+  StationUploadDto,
   SweepColumn,
   SweepDto,
   SweepGeometry,
@@ -22,6 +23,7 @@ import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
 import type { SweepActor } from './sweep-import.service';
+import { stationUploadsOf } from '../station-tokens/station-tokens.service';
 import { SweepCache } from './sweep-cache';
 import { Sweep, SweepPoint } from './sweep.model';
 
@@ -35,7 +37,11 @@ export {
 } from './sweep-import.service';
 import { inTransaction } from '../db/connection';
 
-function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
+function summary(
+  sweep: Sweep,
+  uploaderName: string | null,
+  via: Map<number, StationUploadDto>,
+): SweepSummaryDto {
   return {
     id: sweep.id,
     waferId: sweep.waferId,
@@ -51,6 +57,7 @@ function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
     minTemperatureK: sweep.minTemperatureK,
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
+    uploadedVia: sweep.stationTokenId ? (via.get(sweep.stationTokenId) ?? null) : null,
   };
 }
 
@@ -73,7 +80,8 @@ export async function listSweeps(waferId: number, actor: SweepActor): Promise<Sw
     ],
   });
   const names = await uploaderNames(sweeps);
-  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null));
+  const via = await stationUploadsOf(sweeps.map((s) => s.stationTokenId));
+  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null, via));
 }
 
 interface StoredRaw {
@@ -105,7 +113,7 @@ async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
   const { sweep, uploaderName } = await visibleSweepWithUploader(actor, id);
   const columns = sweep.columnMapping as SweepColumn[];
   const head = {
-    ...summary(sweep, uploaderName),
+    ...summary(sweep, uploaderName, await stationUploadsOf([sweep.stationTokenId])),
     columns,
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,

@@ -85,6 +85,7 @@ export class AssignForm {
   protected readonly problem = signal<string | null>(null);
   protected readonly unmatched = signal<FieldProblem[]>([]);
   protected readonly assignees = rxResource({ stream: () => this.api.assignees() });
+  protected readonly stations = rxResource({ stream: () => this.api.stations() });
 
   protected readonly form = this.fb.group({
     waferId: this.fb.control<number | null>(null, Validators.required),
@@ -92,6 +93,7 @@ export class AssignForm {
     task: ['', [Validators.required, Validators.maxLength(200)]],
     dueDate: ['', Validators.required],
     notes: this.fb.control<string | null>(null),
+    stationId: this.fb.control<number | null>(null),
   });
 
   protected readonly waferSearch = signal('');
@@ -129,6 +131,7 @@ export class AssignForm {
         task: v.task,
         dueDate: v.dueDate,
         notes: v.notes || null,
+        stationId: v.stationId,
       })
       .subscribe({
         next: (a) => {
