@@ -1,3 +1,4 @@
+import type { AssignmentPlanDto } from './planner';
 /** Semiconductor wafer materials Rhotrace models. */
 export const SEMICONDUCTORS = ['Si', 'Ge', 'GaAs', '4H-SiC'] as const;
 /** Metal-film test wafers Rhotrace knows reference data for. */
@@ -91,6 +92,8 @@ export interface AssignmentDto {
   overdue: boolean;
   /** Safety notes for this task and wafer material (they defer to the lab's own rules). */
   safetyCautions?: string[];
+  /** The measurement plan attached to the assignment, when one is. */
+  plan?: AssignmentPlanDto | null;
   createdAt: string;
   updatedAt: string;
 }
