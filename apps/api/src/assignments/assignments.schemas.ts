@@ -9,6 +9,7 @@ import {
   requiredText,
 } from '../middleware/fields';
 import { idParam } from '../middleware/validate';
+import { plannerSchema } from '../planner/planner.schemas';
 
 export const state = z.enum(ASSIGNMENT_STATES, {
   errorMap: () => ({ message: `must be one of ${ASSIGNMENT_STATES.join(', ')}` }),
@@ -29,7 +30,11 @@ export const fields = {
 };
 
 export const createBody = z
-  .object({ ...fields, notes: fields.notes.transform((v) => v ?? null) })
+  .object({
+    ...fields,
+    notes: fields.notes.transform((v) => v ?? null),
+    plan: plannerSchema.optional(),
+  })
   .strict();
 
 export const updateBody = z
@@ -39,6 +44,7 @@ export const updateBody = z
     dueDate: fields.dueDate.optional(),
     notes: fields.notes,
     assigneeId: fields.assigneeId.optional(),
+    plan: plannerSchema.nullable().optional(),
   })
   .strict();
 

@@ -17,6 +17,9 @@ import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
 import { inTransaction } from '../db/connection';
+import type { AssignmentPlan } from './assignment-plan.model';
+import { plansOf, setAssignmentPlan, toPlanDto } from './assignment-plan.service';
+import type { PlannerInput } from '../planner/planner.schemas';
 
 /** States in which an assignment is still open (and can become overdue). */
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
@@ -27,6 +30,7 @@ interface Related {
   wafers: Map<number, Wafer>;
   lots: Map<number, Lot>;
   users: Map<number, User>;
+  plans: Map<number, AssignmentPlan>;
 }
 
 async function related(rows: Assignment[], transaction?: Transaction): Promise<Related> {
@@ -46,6 +50,10 @@ async function related(rows: Assignment[], transaction?: Transaction): Promise<R
     wafers: new Map(wafers.map((w) => [w.id, w])),
     lots: new Map(lots.map((l) => [l.id, l])),
     users: new Map(users.map((u) => [u.id, u])),
+    plans: await plansOf(
+      rows.map((a) => a.id),
+      transaction,
+    ),
   };
 }
 
@@ -67,6 +75,7 @@ export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
     notes: a.notes,
     overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
     ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
+    ...(r ? { plan: r.plans.has(a.id) ? toPlanDto(r.plans.get(a.id)!) : null } : {}),
     createdAt: a.createdAt.toISOString(),
     updatedAt: a.updatedAt.toISOString(),
   };
@@ -87,7 +96,13 @@ async function activeAssignee(id: number, transaction: Transaction): Promise<Use
 
 async function queueMail(
   a: Assignment,
-  context: { wafer: Wafer; lot: Lot; assignee: User; assignerName: string },
+  context: {
+    wafer: Wafer;
+    lot: Lot;
+    assignee: User;
+    assignerName: string;
+    plan: AssignmentPlan | null;
+  },
   mail: { mailer: Mailer; publicUrl: string },
   transaction: Transaction,
 ): Promise<void> {
@@ -105,6 +120,7 @@ async function queueMail(
       material: context.lot.material,
       link: `${mail.publicUrl}/wafers/${context.wafer.id}`,
       cautions: safetyCautionsFor(context.lot.material, a.task),
+      plan: context.plan?.plan ?? null,
     }),
     transaction,
   );
@@ -116,6 +132,8 @@ export interface NewAssignment {
   task: string;
   dueDate: string;
   notes: string | null;
+  /** A planner request for the assignment's wafer: the plan computed from it is attached. */
+  plan?: PlannerInput;
 }
 
 /**
@@ -124,7 +142,7 @@ export interface NewAssignment {
  */
 export async function createAssignment(
   input: NewAssignment,
-  actor: Actor & { name: string },
+  actor: Actor & SessionUser,
   mail: { mailer: Mailer; publicUrl: string },
 ): Promise<AssignmentDto> {
   return inTransaction(async (t) => {
@@ -132,9 +150,11 @@ export async function createAssignment(
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
     const assignee = await activeAssignee(input.assigneeId, t);
-    const a = await Assignment.create({ ...input, assignedById: actor.id }, { transaction: t });
+    const { plan: planRequest, ...fields } = input;
+    const a = await Assignment.create({ ...fields, assignedById: actor.id }, { transaction: t });
     await auditChange(t, actor, 'create', 'assignment', a.id, { after: snapshot(a) });
-    await queueMail(a, { wafer, lot, assignee, assignerName: actor.name }, mail, t);
+    const plan = planRequest ? await setAssignmentPlan(t, a, planRequest, actor) : null;
+    await queueMail(a, { wafer, lot, assignee, assignerName: actor.name, plan }, mail, t);
     return toAssignmentDto(a, await related([a], t));
   });
 }
@@ -202,6 +222,8 @@ export interface AssignmentChanges {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  /** A new plan for the assignment's wafer, or null to detach the plan. */
+  plan?: PlannerInput | null;
 }
 
 /**
@@ -242,13 +264,23 @@ export async function updateAssignment(
       changes.assigneeId !== undefined && changes.assigneeId !== a.assigneeId
         ? await activeAssignee(changes.assigneeId, t)
         : null;
-    await a.update(changes, { transaction: t });
+    const { plan: planRequest, ...fields } = changes;
+    await a.update(fields, { transaction: t });
     await auditChange(t, actor, 'update', 'assignment', id, { before, after: snapshot(a) });
+    if (planRequest !== undefined) {
+      await setAssignmentPlan(t, a, planRequest, { ...user, requestId: actor.requestId ?? null });
+    }
     const r = await related([a], t);
     const wafer = r.wafers.get(a.waferId);
     const lot = wafer ? r.lots.get(wafer.lotId) : undefined;
     if (newAssignee && wafer && lot) {
-      await queueMail(a, { wafer, lot, assignee: newAssignee, assignerName: user.name }, mail, t);
+      const plan = r.plans.get(a.id) ?? null;
+      await queueMail(
+        a,
+        { wafer, lot, assignee: newAssignee, assignerName: user.name, plan },
+        mail,
+        t,
+      );
     }
     return toAssignmentDto(a, r);
   });

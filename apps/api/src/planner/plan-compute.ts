@@ -44,8 +44,13 @@ interface ModelAlongSteps {
   parameterSet: string;
 }
 
-function semiconductorModel(material: SemiconductorId, doping: Doping, stepsK: number[]) {
-  return withPhysics('body.doping', () => {
+function semiconductorModel(
+  material: SemiconductorId,
+  doping: Doping,
+  stepsK: number[],
+  prefix: string,
+) {
+  return withPhysics(`${prefix}.doping`, () => {
     const points = modelCurve(material, doping, stepsK);
     return {
       resistivityOhmCm: points.map((p) => p.resistivityOhmCm),
@@ -56,11 +61,11 @@ function semiconductorModel(material: SemiconductorId, doping: Doping, stepsK: n
   });
 }
 
-function metalModel(material: string, stepsK: number[]): ModelAlongSteps {
+function metalModel(material: string, stepsK: number[], prefix: string): ModelAlongSteps {
   const [lo, hi] = METAL_MODEL_RANGE_K;
   const outside = stepsK.find((t) => t < lo || t > hi);
   if (outside !== undefined) {
-    const field = outside < lo ? 'body.minK' : 'body.maxK';
+    const field = `${prefix}.${outside < lo ? 'minK' : 'maxK'}`;
     const problem = `must lie within the ${material} model's range, ${lo}–${hi} K`;
     throw badRequest(`${field} ${problem}`, [{ field, problem }]);
   }
@@ -86,23 +91,27 @@ function temperatures(input: PlannerInput, boundaries: PlannerResponse['regimeBo
  * probe currents held over as few ranges as keep every voltage readable, the duration, and the
  * cautions and warnings.
  */
-export function computePlan(input: PlannerInput, facts: PlanFacts): PlannerResponse {
+export function computePlan(
+  input: PlannerInput,
+  facts: PlanFacts,
+  prefix = 'body',
+): PlannerResponse {
   const material = facts.material;
   const doping = facts.doping as Doping | null;
   const semiconductor = doping !== null && isSemiconductor(material) ? material : null;
   const boundaries =
     semiconductor && doping
-      ? withPhysics('body.doping', () => regimeBoundaries(semiconductor, doping))
+      ? withPhysics(`${prefix}.doping`, () => regimeBoundaries(semiconductor, doping))
       : null;
   const stepsK = temperatures(input, boundaries);
   const model: ModelAlongSteps =
     semiconductor && doping
-      ? { ...semiconductorModel(semiconductor, doping, stepsK), boundaries }
-      : metalModel(material, stepsK);
+      ? { ...semiconductorModel(semiconductor, doping, stepsK, prefix), boundaries }
+      : metalModel(material, stepsK, prefix);
   const badIndex = model.resistivityOhmCm.findIndex((r) => !(r > 0) || !Number.isFinite(r));
   if (badIndex >= 0) {
     const problem = `the model gives no finite resistivity at ${stepsK[badIndex]!.toFixed(2)} K`;
-    throw badRequest(`body.minK: ${problem}`, [{ field: 'body.minK', problem }]);
+    throw badRequest(`${prefix}.minK: ${problem}`, [{ field: `${prefix}.minK`, problem }]);
   }
   const sheet = model.resistivityOhmCm.map((r) => r / facts.thicknessCm);
   const limits = {
@@ -120,7 +129,7 @@ export function computePlan(input: PlannerInput, facts: PlanFacts): PlannerRespo
         }
       : {}),
   };
-  const currents = withPhysics('body.diameterCm', () => planCurrentRanges(sheet, limits));
+  const currents = withPhysics(`${prefix}.diameterCm`, () => planCurrentRanges(sheet, limits));
   const steps: PlanStepDto[] = stepsK.map((temperatureK, i) => ({
     temperatureK,
     expectedResistivityOhmCm: model.resistivityOhmCm[i]!,

@@ -11,8 +11,15 @@ import type { Wafer } from '../wafers/wafer.model';
 import { computePlan, type PlanFacts } from './plan-compute';
 import type { PlannerInput } from './planner.schemas';
 
-const refuse = (field: string, problem: string) =>
-  validationFailed(`${field} ${problem}`, [{ field, problem }]);
+/** Where a plan is computed: inside a transaction, and under which field its errors name. */
+export interface PlanOptions {
+  transaction?: Transaction;
+  /** Prefix of the fields named in errors: `body`, or `body.plan` inside an assignment. */
+  prefix?: string;
+}
+
+const refuser = (prefix: string) => (name: string, problem: string) =>
+  validationFailed(`${prefix}.${name} ${problem}`, [{ field: `${prefix}.${name}`, problem }]);
 
 /**
  * The doping a plan uses: the request's when given; otherwise, for boron- or phosphorus-doped
@@ -23,26 +30,28 @@ export function lotDoping(
   material: string,
   given: DopingInput | undefined,
   lot: Lot | null,
+  prefix = 'body',
 ): { doping: DopingInput | null; source: string } {
+  const refuse = refuser(prefix);
   if (isMetal(material)) return { doping: null, source: 'none: a metal film' };
   if (given) return { doping: given, source: 'given with the plan' };
-  if (!lot) throw refuse('body.doping', 'is required for a semiconductor');
+  if (!lot) throw refuse('doping', 'is required for a semiconductor');
   const what = `is required: lot ${lot.code}`;
   if (lot.material !== 'Si') {
-    throw refuse('body.doping', `${what} is ${lot.material}, and ASTM F723 covers silicon only`);
+    throw refuse('doping', `${what} is ${lot.material}, and ASTM F723 covers silicon only`);
   }
   const dopant = f723Dopant(lot.dopant);
   if (!dopant) {
-    throw refuse('body.doping', `${what} has dopant ${lot.dopant ?? '(not set)'}, not B or P`);
+    throw refuse('doping', `${what} has dopant ${lot.dopant ?? '(not set)'}, not B or P`);
   }
   const bounds = [lot.specMinOhmCm, lot.specMaxOhmCm].filter((v): v is number => v !== null);
-  if (!bounds.length) throw refuse('body.doping', `${what} has no resistivity spec`);
+  if (!bounds.length) throw refuse('doping', `${what} has no resistivity spec`);
   const nominalOhmCm = bounds.reduce((a, b) => a + b, 0) / bounds.length;
   let density: number;
   try {
     density = siliconDopantFromResistivity(dopant, nominalOhmCm);
   } catch (error) {
-    if (error instanceof RangeError) throw refuse('body.doping', `${what}: ${error.message}`);
+    if (error instanceof RangeError) throw refuse('doping', `${what}: ${error.message}`);
     throw error;
   }
   const doping =
@@ -60,13 +69,13 @@ export function lotDoping(
 async function sampleOf(
   user: SessionUser,
   waferId: number,
-  transaction?: Transaction,
+  options: PlanOptions,
 ): Promise<{ wafer: Wafer; lot: Lot }> {
   try {
-    return await visibleWafer(user, waferId, transaction);
+    return await visibleWafer(user, waferId, options.transaction);
   } catch (error) {
     if (error instanceof HttpError && error.code === 'not_found') {
-      throw refuse('body.waferId', 'is not a wafer you can see');
+      throw refuser(options.prefix ?? 'body')('waferId', 'is not a wafer you can see');
     }
     throw error;
   }
@@ -76,25 +85,25 @@ async function sampleOf(
 export async function planFacts(
   user: SessionUser,
   input: PlannerInput,
-  transaction?: Transaction,
+  options: PlanOptions = {},
 ): Promise<PlanFacts> {
-  const station = await Station.findByPk(input.stationId, { transaction });
-  if (!station) throw refuse('body.stationId', 'is not a probe station');
+  const refuse = refuser(options.prefix ?? 'body');
+  const station = await Station.findByPk(input.stationId, { transaction: options.transaction });
+  if (!station) throw refuse('stationId', 'is not a probe station');
   const range = `${station.name}'s range (${station.minTemperatureK}–${station.maxTemperatureK} K)`;
-  if (input.minK < station.minTemperatureK) throw refuse('body.minK', `is below ${range}`);
-  if (input.maxK > station.maxTemperatureK) throw refuse('body.maxK', `is above ${range}`);
-  const sample =
-    input.waferId === undefined ? null : await sampleOf(user, input.waferId, transaction);
+  if (input.minK < station.minTemperatureK) throw refuse('minK', `is below ${range}`);
+  if (input.maxK > station.maxTemperatureK) throw refuse('maxK', `is above ${range}`);
+  const sample = input.waferId === undefined ? null : await sampleOf(user, input.waferId, options);
   const material = sample?.lot.material ?? input.material!;
   const thicknessCm =
     input.thicknessCm ?? sample?.wafer.thicknessCm ?? sample?.lot.thicknessCm ?? null;
   if (thicknessCm === null) {
     throw refuse(
-      'body.thicknessCm',
+      'thicknessCm',
       sample ? `is required: wafer ${sample.wafer.number} and its lot have none` : 'is required',
     );
   }
-  const { doping, source } = lotDoping(material, input.doping, sample?.lot ?? null);
+  const { doping, source } = lotDoping(material, input.doping, sample?.lot ?? null, options.prefix);
   return {
     material,
     doping,
@@ -115,7 +124,7 @@ export async function planFacts(
 export async function planMeasurement(
   user: SessionUser,
   input: PlannerInput,
-  transaction?: Transaction,
+  options: PlanOptions = {},
 ): Promise<PlannerResponse> {
-  return computePlan(input, await planFacts(user, input, transaction));
+  return computePlan(input, await planFacts(user, input, options), options.prefix);
 }
