@@ -1,0 +1,42 @@
+import type { PlannerResponse } from '@rhotrace/api-types';
+
+/** Header of the plan CSV a station loads: one row per step, SI units named in each column. */
+export const PLAN_CSV_COLUMNS = [
+  'step',
+  'temperature_K',
+  'current_A',
+  'expected_voltage_V',
+  'expected_power_W',
+  'expected_resistivity_ohm_cm',
+  'expected_sheet_resistance_ohm_sq',
+  'regime',
+  'current_limited_by',
+] as const;
+
+/**
+ * The plan as CSV for a station: a header line, one line per step in the order to visit, full
+ * precision (the station rounds to what its source can set). Comment lines starting with `#`
+ * carry the station, dwell and ramp so the file explains itself.
+ */
+export function planCsv(plan: PlannerResponse): string {
+  const b = plan.basis;
+  const lines = [
+    `# Rhotrace measurement plan for ${b.material} on ${b.stationName}`,
+    `# dwell ${b.dwellS} s per step, ramp ${b.rampKPerMin} K/min, method ${b.method}`,
+    PLAN_CSV_COLUMNS.join(','),
+    ...plan.steps.map((s, i) =>
+      [
+        i + 1,
+        s.temperatureK,
+        s.currentA,
+        s.voltageV,
+        s.powerW,
+        s.expectedResistivityOhmCm,
+        s.expectedSheetResistanceOhmSq,
+        s.regime ?? '',
+        s.limitedBy,
+      ].join(','),
+    ),
+  ];
+  return `${lines.join('\r\n')}\r\n`;
+}
