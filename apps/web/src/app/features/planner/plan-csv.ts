@@ -14,15 +14,12 @@ export const PLAN_CSV_COLUMNS = [
 ] as const;
 
 /**
- * The plan as CSV for a station: a header line, one line per step in the order to visit, full
- * precision (the station rounds to what its source can set). Comment lines starting with `#`
- * carry the station, dwell and ramp so the file explains itself.
+ * The plan as CSV for a station: a header line, then one line per step in the order to visit,
+ * at full precision (the station rounds to what its source can set). Numbers and fixed words
+ * only, so no field needs quoting.
  */
-export function planCsv(plan: PlannerResponse): string {
-  const b = plan.basis;
+export function planCsv(plan: Pick<PlannerResponse, 'steps'>): string {
   const lines = [
-    `# Rhotrace measurement plan for ${b.material} on ${b.stationName}`,
-    `# dwell ${b.dwellS} s per step, ramp ${b.rampKPerMin} K/min, method ${b.method}`,
     PLAN_CSV_COLUMNS.join(','),
     ...plan.steps.map((s, i) =>
       [

@@ -7,7 +7,7 @@ import { FormatValuePipe } from '../../../shared/format-value';
 import { Plot } from '../../../shared/plot/plot';
 import { planCsv } from '../plan-csv';
 import { planFigure } from './plan-figure';
-import { siValue } from './si-value';
+import { siValue } from '../../../shared/si-value';
 
 /**
  * A measurement plan: the summary (duration, current ranges), its cautions and warnings, the
