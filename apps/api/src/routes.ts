@@ -18,6 +18,7 @@ import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { openApiRouter } from './openapi/openapi.router';
 import { searchRouter } from './search/search.router';
+import { plannerRouter } from './planner/planner.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -42,5 +43,6 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));
   router.use(reportsRouter(deps));
+  router.use(plannerRouter(deps));
   return router;
 }

@@ -65,6 +65,18 @@ export type {
   FitDto,
   FitPreviewDto,
 } from './fits';
+export { PLAN_SPACINGS, PLAN_METHODS, CURRENT_LIMITS } from './planner';
+export type {
+  PlanSpacing,
+  PlanMethodName,
+  CurrentLimitName,
+  PlannerRequest,
+  PlanStepDto,
+  PlanCurrentRangeDto,
+  PlanBasisDto,
+  PlannerResponse,
+  AssignmentPlanDto,
+} from './planner';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,

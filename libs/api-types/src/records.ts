@@ -1,3 +1,4 @@
+import type { AssignmentPlanDto } from './planner';
 /** Semiconductor wafer materials Rhotrace models. */
 export const SEMICONDUCTORS = ['Si', 'Ge', 'GaAs', '4H-SiC'] as const;
 /** Metal-film test wafers Rhotrace knows reference data for. */
@@ -95,6 +96,8 @@ export interface AssignmentDto {
   stationId?: number | null;
   /** The sweep the station posted for this assignment, when one did. */
   stationUpload?: AssignmentStationUpload | null;
+  /** The measurement plan attached to the assignment, when one is. */
+  plan?: AssignmentPlanDto | null;
   createdAt: string;
   updatedAt: string;
 }
