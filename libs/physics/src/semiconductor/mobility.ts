@@ -125,6 +125,46 @@ export function resolveMobilityModel(
   return id;
 }
 
+/**
+ * @internal A mobility model's temperature-only factors at one temperature, in the common form
+ * mu = base + scale / (1 + (N / densityRef)^exponent), so a curve or a fit computes them once.
+ */
+export interface MobilityTerms {
+  base: number;
+  scale: number;
+  densityRef: number;
+  exponent: number;
+}
+
+/** @internal The temperature-only factors of `mobilityUnchecked`. */
+export function mobilityTerms(
+  material: SemiconductorId,
+  carrier: Carrier,
+  temperatureK: number,
+  model: MobilityModelId,
+): MobilityTerms {
+  const tn = temperatureK / 300;
+  if (model === 'arora-1982') {
+    const p = ARORA_1982_SILICON[carrier];
+    return {
+      base: p.muMin * Math.pow(tn, p.b1),
+      scale: p.mu0 * Math.pow(tn, p.b2),
+      densityRef: p.nRef * Math.pow(tn, p.b3),
+      exponent: p.alpha * Math.pow(tn, p.b4),
+    };
+  }
+  const p = CAUGHEY_THOMAS_SETS[material][carrier];
+  const lattice = p.muMax * Math.pow(tn, -IDEAL_LATTICE_EXPONENT);
+  return { base: p.muMin, scale: lattice - p.muMin, densityRef: p.nRef, exponent: p.alpha };
+}
+
+/** @internal Mobility from its temperature terms at a total impurity density. */
+export function mobilityAt(terms: MobilityTerms, impurityDensity: number): number {
+  return (
+    terms.base + terms.scale / (1 + Math.pow(impurityDensity / terms.densityRef, terms.exponent))
+  );
+}
+
 /** @internal Mobility without input checks. */
 export function mobilityUnchecked(
   material: SemiconductorId,
@@ -133,16 +173,7 @@ export function mobilityUnchecked(
   impurityDensity: number,
   model: MobilityModelId,
 ): number {
-  const tn = temperatureK / 300;
-  if (model === 'arora-1982') {
-    const p = ARORA_1982_SILICON[carrier];
-    const ratio = impurityDensity / (p.nRef * Math.pow(tn, p.b3));
-    const denom = 1 + Math.pow(ratio, p.alpha * Math.pow(tn, p.b4));
-    return p.muMin * Math.pow(tn, p.b1) + (p.mu0 * Math.pow(tn, p.b2)) / denom;
-  }
-  const p = CAUGHEY_THOMAS_SETS[material][carrier];
-  const lattice = p.muMax * Math.pow(tn, -IDEAL_LATTICE_EXPONENT);
-  return p.muMin + (lattice - p.muMin) / (1 + Math.pow(impurityDensity / p.nRef, p.alpha));
+  return mobilityAt(mobilityTerms(material, carrier, temperatureK, model), impurityDensity);
 }
 
 /**
