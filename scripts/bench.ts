@@ -26,6 +26,8 @@ interface Figure {
   value: number;
   unit: string;
   target: string;
+  /** What the figure is measured against in the same run, with its value. */
+  reference?: string;
   pass: boolean;
 }
 
@@ -81,8 +83,8 @@ async function main(): Promise<void> {
     `Run ${new Date().toISOString()} on ${cpus().length} × ${cpus()[0]?.model ?? 'unknown CPU'}, ` +
       `${(totalmem() / 2 ** 30).toFixed(0)} GiB, Node ${process.version}. Shared machines are noisy: read ratios and medians.`,
     '',
-    '| benchmark | figure | value | unit | target | met |',
-    '|---|---|---|---|---|---|',
+    '| benchmark | figure | value | unit | target | reference in the same run | met |',
+    '|---|---|---|---|---|---|---|',
   ];
   for (const file of readdirSync(OUT)
     .filter((f) => f.endsWith('.json'))
@@ -90,7 +92,7 @@ async function main(): Promise<void> {
     const figures = JSON.parse(readFileSync(join(OUT, file), 'utf8')) as Figure[];
     for (const f of figures) {
       lines.push(
-        `| ${file.replace('.json', '')} | ${f.name} | ${Number(f.value.toPrecision(4))} | ${f.unit} | ${f.target} | ${f.pass ? 'yes' : 'no'} |`,
+        `| ${file.replace('.json', '')} | ${f.name} | ${Number(f.value.toPrecision(4))} | ${f.unit} | ${f.target} | ${f.reference ?? ''} | ${f.pass ? 'yes' : 'no'} |`,
       );
     }
   }

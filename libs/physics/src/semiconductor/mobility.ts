@@ -127,12 +127,14 @@ export function resolveMobilityModel(
 
 /**
  * @internal A mobility model's temperature-only factors at one temperature, in the common form
- * mu = base + scale / (1 + (N / densityRef)^exponent), so a curve or a fit computes them once.
+ * mu = base + scale / (1 + exp(exponent (ln N - lnDensityRef))), so a curve or a fit computes
+ * them once. Powers are taken as exp(b ln x), which V8 evaluates several times faster than
+ * Math.pow (equal within a few ulps).
  */
 export interface MobilityTerms {
   base: number;
   scale: number;
-  densityRef: number;
+  lnDensityRef: number;
   exponent: number;
 }
 
@@ -143,25 +145,34 @@ export function mobilityTerms(
   temperatureK: number,
   model: MobilityModelId,
 ): MobilityTerms {
-  const tn = temperatureK / 300;
+  const lnTn = Math.log(temperatureK / 300);
   if (model === 'arora-1982') {
     const p = ARORA_1982_SILICON[carrier];
     return {
-      base: p.muMin * Math.pow(tn, p.b1),
-      scale: p.mu0 * Math.pow(tn, p.b2),
-      densityRef: p.nRef * Math.pow(tn, p.b3),
-      exponent: p.alpha * Math.pow(tn, p.b4),
+      base: p.muMin * Math.exp(p.b1 * lnTn),
+      scale: p.mu0 * Math.exp(p.b2 * lnTn),
+      lnDensityRef: Math.log(p.nRef) + p.b3 * lnTn,
+      exponent: p.alpha * Math.exp(p.b4 * lnTn),
     };
   }
   const p = CAUGHEY_THOMAS_SETS[material][carrier];
-  const lattice = p.muMax * Math.pow(tn, -IDEAL_LATTICE_EXPONENT);
-  return { base: p.muMin, scale: lattice - p.muMin, densityRef: p.nRef, exponent: p.alpha };
+  const lattice = p.muMax * Math.exp(-IDEAL_LATTICE_EXPONENT * lnTn);
+  return {
+    base: p.muMin,
+    scale: lattice - p.muMin,
+    lnDensityRef: Math.log(p.nRef),
+    exponent: p.alpha,
+  };
 }
 
-/** @internal Mobility from its temperature terms at a total impurity density. */
-export function mobilityAt(terms: MobilityTerms, impurityDensity: number): number {
+/**
+ * @internal Mobility from its temperature terms at a total impurity density, given as its
+ * logarithm (-Infinity for none) so a curve takes it once.
+ */
+export function mobilityAt(terms: MobilityTerms, lnImpurityDensity: number): number {
   return (
-    terms.base + terms.scale / (1 + Math.pow(impurityDensity / terms.densityRef, terms.exponent))
+    terms.base +
+    terms.scale / (1 + Math.exp(terms.exponent * (lnImpurityDensity - terms.lnDensityRef)))
   );
 }
 
@@ -173,7 +184,10 @@ export function mobilityUnchecked(
   impurityDensity: number,
   model: MobilityModelId,
 ): number {
-  return mobilityAt(mobilityTerms(material, carrier, temperatureK, model), impurityDensity);
+  return mobilityAt(
+    mobilityTerms(material, carrier, temperatureK, model),
+    Math.log(impurityDensity),
+  );
 }
 
 /**

@@ -95,9 +95,9 @@ export function modelPointAt(
   guessEta = Number.NaN,
 ): SolvedModelPoint {
   const s = solveNeutralityAt(terms.neutral, doping, guessEta);
-  const total = doping.donorDensity + doping.acceptorDensity;
-  const muN = model.mobilityScale * mobilityAt(terms.electron, total);
-  const muP = model.mobilityScale * mobilityAt(terms.hole, total);
+  const lnTotal = Math.log(doping.donorDensity + doping.acceptorDensity);
+  const muN = model.mobilityScale * mobilityAt(terms.electron, lnTotal);
+  const muP = model.mobilityScale * mobilityAt(terms.hole, lnTotal);
   const lnSigma = LN_Q + logAddExp(s.lnElectrons + Math.log(muN), s.lnHoles + Math.log(muP));
   const lnRho = -lnSigma;
   return {
