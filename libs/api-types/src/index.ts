@@ -60,6 +60,7 @@ export type {
   FitCorrelation,
   FitGoodness,
   FitInterpretation,
+  HallScattering,
   FitCurvature,
   FitDto,
   FitPreviewDto,
@@ -105,7 +106,13 @@ export type {
   ValueUncertainty,
   LotCapability,
 } from './spec';
-export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
+export {
+  SWEEP_METHODS,
+  COLUMN_MEANINGS,
+  POINT_FLAGS,
+  JUMP_FACTOR,
+  HALL_FACTOR_NAMES,
+} from './sweeps';
 export type {
   SweepMethod,
   ColumnMeaning,
@@ -123,5 +130,8 @@ export type {
   SweepParseReport,
   RawReading,
   SweepPointDto,
+  PointQuantities,
+  HallFactorName,
+  HallImportReport,
   SweepDto,
 } from './sweeps';
