@@ -195,6 +195,38 @@ export interface SweepAnalysisResponse {
   arrhenius: ArrheniusPoint[];
   suggestedWindows: SuggestedWindow[];
   spec: SpecCheckDto;
+  /** Hall sweeps only: n(T) and mu_H(T) by step, the carrier type and the freeze-out window. */
+  hall?: HallAnalysis;
+}
+
+/** One temperature step of a Hall sweep (means of the step's readings). */
+export interface HallAnalysisStep {
+  temperatureK: number;
+  carrierDensityCm3: number;
+  /** Sample standard deviation of the step's densities (0 for one reading). */
+  carrierDensitySpreadCm3: number;
+  hallMobilityCm2PerVs: number;
+  hallCoefficientCm3PerC: number;
+  /** The sign of the step's mean Hall coefficient. */
+  carrierType: 'n' | 'p';
+  count: number;
+}
+
+/** The Hall part of a sweep analysis. */
+export interface HallAnalysis {
+  steps: HallAnalysisStep[];
+  /** 'mixed' when the sign changes within the sweep. */
+  carrierType: 'n' | 'p' | 'mixed';
+  /** r_H the densities were computed with at import. */
+  hallFactor: number;
+  /** Carrier density and Hall mobility at 300 K (interpolated within 15 K), null if none. */
+  carrierDensityAt300KCm3: number | null;
+  hallMobilityAt300KCm2PerVs: number | null;
+  /**
+   * Where n(T) is frozen out (below half its plateau value), the range that fixes the dopant
+   * level in a carrier-density fit; null when the sweep shows no plateau or no freeze-out.
+   */
+  freezeOutWindow: SuggestedWindow | null;
 }
 
 /** `GET /api/wafers/:id/dopant` answer. */

@@ -26,6 +26,8 @@ export type {
   SuggestedWindow,
   SpecCheckDto,
   SweepAnalysisResponse,
+  HallAnalysisStep,
+  HallAnalysis,
   DopantDensityResponse,
   LotSummaryWafer,
   LotSummaryResponse,

@@ -9,6 +9,7 @@ import type {
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
 import { visibleSweep, visibleWafer } from '../access/visibility.service';
 import { notFound, unprocessable } from '../errors';
+import { hallAnalysis } from './hall-analysis';
 import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
@@ -33,6 +34,8 @@ export async function sweepAnalysis(
   const { points, skipped } = await sweepReadings(v.sweep);
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
+  const report = v.sweep.parseReport as { hall?: { hallFactor: number } } | null;
+  const hall = report?.hall ? hallAnalysis(points, report.hall.hallFactor) : null;
   return {
     sweep: sweepSummary(v, skipped),
     steps,
@@ -45,6 +48,7 @@ export async function sweepAnalysis(
           dopantType: v.lot.dopantType,
         }),
     spec: specCheck(assessed.value, assessed.uncertainty, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
+    ...(hall ? { hall } : {}),
   };
 }
 

@@ -1,4 +1,9 @@
-import type { FitDto, SweepDto, SweepPreviewResponse } from '@rhotrace/api-types';
+import type {
+  FitDto,
+  SweepAnalysisResponse,
+  SweepDto,
+  SweepPreviewResponse,
+} from '@rhotrace/api-types';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { HALL_TRUTH, hallSweepCsv, truthElectronsCm3 } from '../testing/hall-sweep-file';
@@ -242,6 +247,25 @@ describe('Hall fits', () => {
     });
     // Readings flagged as a resistivity jump (deep freeze-out steps) are left out and listed.
     expect(f.residuals).toHaveLength(78 - f.excludedSequences.length);
+  });
+
+  it('adds n(T), mu_H(T), the carrier type and the freeze-out window to the analysis', async () => {
+    const res = await request(ctx.app)
+      .get(`/api/sweeps/${sweepId}/analysis`)
+      .set(ctx.auth('physicist'));
+    expect(res.status).toBe(200);
+    const hall = (res.body as SweepAnalysisResponse).hall!;
+    expect(hall.steps).toHaveLength(39);
+    expect(hall.carrierType).toBe('n');
+    expect(hall.hallFactor).toBe(1);
+    expect(hall.carrierDensityAt300KCm3! / truthElectronsCm3(300)).toBeCloseTo(1, 1);
+    // Freeze-out ends where the neutrality n (computed in the file) falls below half of
+    // N_D - N_A; one 10 K step either way for the noise.
+    const grid = Array.from({ length: 39 }, (_, k) => 20 + 10 * k);
+    const half = 0.5 * (HALL_TRUTH.donorDensityCm3 - HALL_TRUTH.acceptorDensityCm3);
+    const lastFrozen = grid.filter((t) => truthElectronsCm3(t) < half).pop()!;
+    expect(hall.freezeOutWindow!.minK).toBeCloseTo(20, 1);
+    expect(Math.abs(hall.freezeOutWindow!.maxK - lastFrozen)).toBeLessThanOrEqual(10.1);
   });
 
   it('fits the mobility exponent in the lattice range within 0.05 of the truth', async () => {
