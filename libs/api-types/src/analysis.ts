@@ -270,6 +270,18 @@ export interface LotSummaryWafer extends ValueUncertainty {
     maxK: number | null;
     quantity: string;
   }>;
+  /** The wafer's latest Hall sweep at 300 K, null when it has none. */
+  hall?: HallAt300K | null;
+}
+
+/** Carrier density and Hall mobility of a Hall sweep at 300 K (interpolated within 15 K). */
+export interface HallAt300K {
+  sweepId: number;
+  carrierType: 'n' | 'p' | 'mixed';
+  carrierDensityAt300KCm3: number | null;
+  hallMobilityAt300KCm2PerVs: number | null;
+  /** r_H the density was computed with. */
+  hallFactor: number;
 }
 
 /** `GET /api/lots/:id/summary` answer. */
@@ -311,5 +323,7 @@ export interface CompareResponse {
     maxTemperatureK: number;
     /** Aligned with temperaturesK; null outside the sweep's own temperature range. */
     resistivityOhmCm: Array<number | null>;
+    /** Hall sweeps only: the sweep at 300 K. */
+    hall?: HallAt300K;
   }>;
 }

@@ -30,6 +30,7 @@ export type {
   HallAnalysis,
   DopantDensityResponse,
   LotSummaryWafer,
+  HallAt300K,
   LotSummaryResponse,
   CompareResponse,
 } from './analysis';

@@ -2,10 +2,16 @@
  * The Hall part of a sweep analysis: carrier density and Hall mobility by temperature step,
  * the carrier type, the values at 300 K and the freeze-out window for the n(T) fit.
  */
-import type { HallAnalysis, HallAnalysisStep, SuggestedWindow } from '@rhotrace/api-types';
+import type {
+  HallAnalysis,
+  HallAnalysisStep,
+  HallAt300K,
+  SuggestedWindow,
+} from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import { mean, median, sampleStandardDeviation } from 'simple-statistics';
-import { STEP_TOLERANCE_K, type AnalysisPoint } from './sweep-data.service';
+import type { SweepIdentity } from '../sweeps/sweep-cache';
+import { STEP_TOLERANCE_K, sweepReadings, type AnalysisPoint } from './sweep-data.service';
 
 /** A value at 300 K is interpolated between steps no farther than this from 300 K, K. */
 export const HALL_300K_REACH_K = 15;
@@ -116,5 +122,28 @@ export function hallAnalysis(
     carrierDensityAt300KCm3: hallValueAt(steps, 'carrierDensityCm3', 300),
     hallMobilityAt300KCm2PerVs: hallValueAt(steps, 'hallMobilityCm2PerVs', 300),
     freezeOutWindow: freezeOutWindow(steps, points),
+  };
+}
+
+/** The Hall factor a sweep's parse report records, or null for a sweep that is not Hall. */
+export function hallFactorOf(parseReport: unknown): number | null {
+  const hall = (parseReport as { hall?: { hallFactor?: unknown } } | null)?.hall;
+  return typeof hall?.hallFactor === 'number' ? hall.hallFactor : null;
+}
+
+/** A Hall sweep at 300 K for the compare and lot summaries; null for other sweeps. */
+export async function hallAt300K(
+  sweep: SweepIdentity & { parseReport: unknown },
+): Promise<HallAt300K | null> {
+  const factor = hallFactorOf(sweep.parseReport);
+  if (factor === null) return null;
+  const h = hallAnalysis((await sweepReadings(sweep)).points, factor);
+  if (!h) return null;
+  return {
+    sweepId: sweep.id,
+    carrierType: h.carrierType,
+    carrierDensityAt300KCm3: h.carrierDensityAt300KCm3,
+    hallMobilityAt300KCm2PerVs: h.hallMobilityAt300KCm2PerVs,
+    hallFactor: factor,
   };
 }

@@ -1,12 +1,20 @@
 import type {
+  CompareResponse,
   FitDto,
+  LotSummaryResponse,
   SweepAnalysisResponse,
   SweepDto,
   SweepPreviewResponse,
 } from '@rhotrace/api-types';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { HALL_TRUTH, hallSweepCsv, truthElectronsCm3 } from '../testing/hall-sweep-file';
+import {
+  HALL_TRUTH,
+  hallSweepCsv,
+  truthElectronsCm3,
+  truthMobility,
+} from '../testing/hall-sweep-file';
+import { Wafer } from '../wafers/wafer.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { Sweep } from './sweep.model';
 import { makeWafer } from './sweep-test-helpers';
@@ -266,6 +274,28 @@ describe('Hall fits', () => {
     const lastFrozen = grid.filter((t) => truthElectronsCm3(t) < half).pop()!;
     expect(hall.freezeOutWindow!.minK).toBeCloseTo(20, 1);
     expect(Math.abs(hall.freezeOutWindow!.maxK - lastFrozen)).toBeLessThanOrEqual(10.1);
+  });
+
+  it('carries n and mu_H at 300 K into compare, the lot summary and the CSV exports', async () => {
+    const get = (url: string) => request(ctx.app).get(url).set(ctx.auth('physicist'));
+    const compare = (await get(`/api/compare?sweeps=${sweepId}`)).body as CompareResponse;
+    const h = compare.curves[0]!.hall!;
+    expect(h.carrierType).toBe('n');
+    expect(h.carrierDensityAt300KCm3! / truthElectronsCm3(300)).toBeCloseTo(1, 1);
+    expect(h.hallMobilityAt300KCm2PerVs! / truthMobility(300)).toBeCloseTo(1, 1);
+    const wafer = await Wafer.findByPk((await Sweep.findByPk(sweepId))!.waferId);
+    const summary = (await get(`/api/lots/${wafer!.lotId}/summary`)).body as LotSummaryResponse;
+    expect(summary.wafers[0]!.hall!.sweepId).toBe(sweepId);
+    expect(summary.wafers[0]!.hall!.carrierDensityAt300KCm3).toBe(h.carrierDensityAt300KCm3);
+    const lotCsv = (await get(`/api/lots/${wafer!.lotId}/summary.csv`)).text;
+    expect(lotCsv.split('\r\n')[0]).toMatch(/hall_carrier_density_300k_cm3,hall_mobility_300k/);
+    expect(lotCsv.split('\r\n')[1]).toContain(String(h.carrierDensityAt300KCm3));
+    const pointsCsv = (await get(`/api/sweeps/${sweepId}/points.csv`)).text.split('\r\n');
+    expect(pointsCsv[0]).toContain(
+      'flags,hall_coefficient_cm3_per_c,carrier_density_cm3,sheet_carrier_density_cm2,' +
+        'hall_mobility_cm2_per_vs,carrier_type,magnetic_field_t,hall_voltage_v,raw T (K)',
+    );
+    expect(pointsCsv[1]!.split(',')[13]).toBe('n');
   });
 
   it('fits the mobility exponent in the lattice range within 0.05 of the truth', async () => {
