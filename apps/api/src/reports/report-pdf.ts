@@ -2,6 +2,7 @@ import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import type { AnalysisStep, FitDto } from '@rhotrace/api-types';
 import type { ReportData } from './report.service';
+import { drawHallSection } from './report-hall';
 import { specLines } from './report-spec';
 
 const require = createRequire(import.meta.url);
@@ -206,6 +207,7 @@ export function renderReportPdf(
     doc.moveDown(0.3);
   }
 
+  if (d.hall) drawHallSection(doc, d.hall, d.fits, d.material);
   doc.moveDown(0.8);
   doc.font('plex-bold').fontSize(11).fillColor(INK).text('Cautions');
   doc.font('plex').fontSize(8.5);

@@ -14,6 +14,8 @@ import {
   truthElectronsCm3,
   truthMobility,
 } from '../testing/hall-sweep-file';
+import { renderReportPdf } from '../reports/report-pdf';
+import { reportData } from '../reports/report.service';
 import { Wafer } from '../wafers/wafer.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { Sweep } from './sweep.model';
@@ -296,6 +298,20 @@ describe('Hall fits', () => {
         'hall_mobility_cm2_per_vs,carrier_type,magnetic_field_t,hall_voltage_v,raw T (K)',
     );
     expect(pointsCsv[1]!.split(',')[13]).toBe('n');
+  });
+
+  it('prints the Hall plots, fits and the magnet caution in the PDF report', async () => {
+    const u = ctx.users.physicist;
+    const data = await reportData(
+      { id: u.id, email: u.email, name: u.name, role: u.role },
+      sweepId,
+    );
+    expect(data.hall!.steps).toHaveLength(39);
+    expect(data.cautions[0]).toMatch(/Strong magnet.*pacemakers.*steel.*cards/);
+    const pages = (pdf: Buffer) => pdf.toString('latin1').match(/\/Type \/Page[^s]/g)?.length ?? 0;
+    const withHall = await renderReportPdf(data);
+    const without = await renderReportPdf({ ...data, hall: null });
+    expect(pages(withHall)).toBe(pages(without) + 1);
   });
 
   it('fits the mobility exponent in the lattice range within 0.05 of the truth', async () => {
