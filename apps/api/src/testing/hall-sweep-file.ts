@@ -18,6 +18,7 @@ export const HALL_TRUTH = {
   donorLevelEv: 0.045,
   latticeExponent: -2.6,
   thicknessCm: 0.05,
+  /** Largest current; colder (more resistive) rows use less, as a source keeping ~10 mV would. */
   currentA: 1e-5,
   magneticFieldT: 0.5,
 } as const;
@@ -83,7 +84,9 @@ export function hallSweepCsv(options: HallFileOptions = {}): string {
       const mu = truthMobility(temperature) * (1 + rel * gauss());
       const rho = 1 / (Q * n * mu);
       const r = ((Math.LN2 / Math.PI) * rho) / t;
-      const vh = ((-1 / (Q * n)) * i * b * 1e-4) / t;
+      // The current a source would pick to keep about 10 mV across the sample (1 nA to i).
+      const current = Math.min(i, Math.max(1e-9, 10 ** Math.floor(Math.log10(0.01 / r))));
+      const vh = ((-1 / (Q * n)) * current * b * 1e-4) / t;
       const offset = 0.3 * vh;
       const thermal = 2e-6;
       const mV = (v: number) => fmt(v * 1e3);
@@ -100,7 +103,7 @@ export function hallSweepCsv(options: HallFileOptions = {}): string {
           fmt(temperature + 0.02 * k),
           fmt(r),
           fmt(r),
-          fmt(i * 1e6),
+          fmt(current * 1e6),
           fmt(b * 1e3),
           ...hall.map(mV),
         ].join(','),
