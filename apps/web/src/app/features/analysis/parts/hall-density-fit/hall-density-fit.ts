@@ -67,7 +67,7 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
             matInput
             type="number"
             step="any"
-            [ngModel]="doping().donorDensity"
+            [ngModel]="doping()?.donorDensity"
             (ngModelChange)="set('donorDensity', $event)"
           />
           <span matTextSuffix>cm⁻³</span>
@@ -78,7 +78,7 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
             matInput
             type="number"
             step="any"
-            [ngModel]="doping().acceptorDensity"
+            [ngModel]="doping()?.acceptorDensity"
             (ngModelChange)="set('acceptorDensity', $event)"
           />
           <span matTextSuffix>cm⁻³</span>
