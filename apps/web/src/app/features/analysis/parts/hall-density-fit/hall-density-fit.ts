@@ -15,9 +15,9 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { HallAnalysis } from '@rhotrace/api-types';
-import { DOPANTS, SEMICONDUCTORS } from '@rhotrace/physics';
+import { DOPANTS } from '@rhotrace/physics';
 import { FitCard } from '../../fit-card/fit-card';
-import type { HallDoping } from '../hall-study/hall-models';
+import { type HallDoping, isSemiconductor } from '../hall-study/hall-models';
 import { HallFitsStore } from '../hall-study/hall-fits-store';
 
 type Free = 'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel';
@@ -26,9 +26,7 @@ type Free = 'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel';
 export function startingHallDoping(material: string, hall: HallAnalysis): HallDoping {
   const plateau =
     hall.carrierDensityAt300KCm3 ?? hall.steps[hall.steps.length - 1]?.carrierDensityCm3 ?? 1e15;
-  const table = Object.hasOwn(SEMICONDUCTORS, material)
-    ? DOPANTS[material as keyof typeof DOPANTS]
-    : DOPANTS.Si;
+  const table = isSemiconductor(material) ? DOPANTS[material] : DOPANTS.Si;
   const majority = Number((1.1 * plateau).toPrecision(2));
   const minority = Number((0.05 * majority).toPrecision(2));
   const p = hall.carrierType === 'p';

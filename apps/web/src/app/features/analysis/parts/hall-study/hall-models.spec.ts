@@ -1,4 +1,5 @@
 import type { HallAnalysis } from '@rhotrace/api-types';
+import { startingHallDoping } from '../hall-density-fit/hall-density-fit';
 import { hallModels } from './hall-models';
 
 const hall: HallAnalysis = {
@@ -51,5 +52,18 @@ describe('hallModels', () => {
 
   it('draws no model for a material the physics does not know', () => {
     expect(hallModels('Cu', hall, doping, null).density).toBeNull();
+  });
+});
+
+describe('startingHallDoping', () => {
+  it('starts near the 300 K density with the material’s own default levels', () => {
+    // Sze 1981: P 45 meV in Si; As 12.7 meV in Ge (the tables' defaults).
+    const si = startingHallDoping('Si', hall);
+    expect(si.donorDensity).toBeCloseTo(1.1e15, -10);
+    expect(si.acceptorDensity).toBeCloseTo(5.5e13, -8);
+    expect(si.donorLevel).toBe(0.045);
+    expect(startingHallDoping('Ge', hall).donorLevel).toBe(0.0127);
+    const p = startingHallDoping('Si', { ...hall, carrierType: 'p' });
+    expect(p.acceptorDensity).toBeGreaterThan(p.donorDensity);
   });
 });

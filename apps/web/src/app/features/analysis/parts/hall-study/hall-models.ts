@@ -22,7 +22,9 @@ export interface HallDoping {
 
 const GRID_POINTS = 80;
 
-const isSemiconductor = (m: string): m is SemiconductorId => Object.hasOwn(SEMICONDUCTORS, m);
+/** True for a material the physics library models (not a metal film). */
+export const isSemiconductor = (m: string): m is SemiconductorId =>
+  (SEMICONDUCTORS as readonly string[]).includes(m);
 
 /** Temperatures from the first to the last step, evenly in 1/T (where freeze-out bends). */
 function grid(hall: HallAnalysis): number[] {
