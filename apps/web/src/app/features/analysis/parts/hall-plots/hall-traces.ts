@@ -5,6 +5,9 @@
 import type { AnalysisStep, HallAnalysisStep } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../../shared/plot/palette';
 
+/** Temperatures labelled on the log axis, K (plotly's minor labels crowd a narrow plot). */
+const LOG_TICKS_K = [2, 5, 10, 20, 50, 100, 200, 500, 1000, 2000];
+
 /** A curve as (x, y) columns. */
 export interface Curve {
   x: number[];
@@ -105,6 +108,7 @@ export function densityPlot(
     data,
     layout: {
       xaxis: { title: { text: '1000 / T (1/K)' } },
+      legend: { orientation: 'h', y: -0.28 },
       yaxis: { title: { text: 'Carrier density (cm⁻³)' }, type: 'log', exponentformat: 'power' },
       shapes: windowShape(window, inv),
     },
@@ -134,7 +138,8 @@ export function mobilityPlot(
   return {
     data,
     layout: {
-      xaxis: { title: { text: 'Temperature (K)' }, type: 'log' },
+      xaxis: { title: { text: 'Temperature (K)' }, type: 'log', tickvals: LOG_TICKS_K },
+      legend: { orientation: 'h', y: -0.32 },
       yaxis: { title: { text: 'Hall mobility (cm²/(V s))' }, type: 'log', exponentformat: 'power' },
       // On a log axis plotly takes the shape's x in log10 units.
       shapes: windowShape(window, (t) => Math.log10(t)),
