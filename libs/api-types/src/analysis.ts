@@ -2,6 +2,7 @@
  * Analysis API shapes: model curves, materials, sweep analysis, fits, dopant density, lot
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
+import type { HallAnalysis, HallAt300K } from './hall';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
@@ -199,36 +200,6 @@ export interface SweepAnalysisResponse {
   hall?: HallAnalysis;
 }
 
-/** One temperature step of a Hall sweep (means of the step's readings). */
-export interface HallAnalysisStep {
-  temperatureK: number;
-  carrierDensityCm3: number;
-  /** Sample standard deviation of the step's densities (0 for one reading). */
-  carrierDensitySpreadCm3: number;
-  hallMobilityCm2PerVs: number;
-  hallCoefficientCm3PerC: number;
-  /** The sign of the step's mean Hall coefficient. */
-  carrierType: 'n' | 'p';
-  count: number;
-}
-
-/** The Hall part of a sweep analysis. */
-export interface HallAnalysis {
-  steps: HallAnalysisStep[];
-  /** 'mixed' when the sign changes within the sweep. */
-  carrierType: 'n' | 'p' | 'mixed';
-  /** r_H the densities were computed with at import. */
-  hallFactor: number;
-  /** Carrier density and Hall mobility at 300 K (interpolated within 15 K), null if none. */
-  carrierDensityAt300KCm3: number | null;
-  hallMobilityAt300KCm2PerVs: number | null;
-  /**
-   * Where n(T) is frozen out (below half its plateau value), the range that fixes the dopant
-   * level in a carrier-density fit; null when the sweep shows no plateau or no freeze-out.
-   */
-  freezeOutWindow: SuggestedWindow | null;
-}
-
 /** `GET /api/wafers/:id/dopant` answer. */
 export interface DopantDensityResponse extends ValueUncertainty {
   waferId: number;
@@ -272,16 +243,6 @@ export interface LotSummaryWafer extends ValueUncertainty {
   }>;
   /** The wafer's latest Hall sweep at 300 K, null when it has none. */
   hall?: HallAt300K | null;
-}
-
-/** Carrier density and Hall mobility of a Hall sweep at 300 K (interpolated within 15 K). */
-export interface HallAt300K {
-  sweepId: number;
-  carrierType: 'n' | 'p' | 'mixed';
-  carrierDensityAt300KCm3: number | null;
-  hallMobilityAt300KCm2PerVs: number | null;
-  /** r_H the density was computed with. */
-  hallFactor: number;
 }
 
 /** `GET /api/lots/:id/summary` answer. */

@@ -26,11 +26,8 @@ export type {
   SuggestedWindow,
   SpecCheckDto,
   SweepAnalysisResponse,
-  HallAnalysisStep,
-  HallAnalysis,
   DopantDensityResponse,
   LotSummaryWafer,
-  HallAt300K,
   LotSummaryResponse,
   CompareResponse,
 } from './analysis';
@@ -68,6 +65,7 @@ export type {
   FitDto,
   FitPreviewDto,
 } from './fits';
+export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,
