@@ -150,3 +150,29 @@ export {
 export type { MetalBlochGruneisen, MetalId, MetalReference } from './metal/metals';
 export { listMaterials } from './materials';
 export type { MaterialCatalogue, SemiconductorCatalogueEntry } from './materials';
+
+export {
+  HALL_SCATTERING_FACTORS,
+  hallCoefficient,
+  hallMobility,
+  hallVoltageFromReversals,
+  twoCarrierHallCoefficient,
+} from './hall/hall-effect';
+export type {
+  HallCoefficientInput,
+  HallCoefficientResult,
+  HallReversals,
+  TwoCarrierInput,
+} from './hall/hall-effect';
+export { fitCarrierDensity } from './hall/carrier-density-fit';
+export type {
+  CarrierDensityFit,
+  CarrierDensityFitOptions,
+  CarrierDensityParameter,
+} from './hall/carrier-density-fit';
+export { fitMobilityPowerLaw } from './hall/mobility-power-law';
+export type {
+  MobilityPowerLawFit,
+  MobilityPowerLawOptions,
+  MobilityPowerLawParameter,
+} from './hall/mobility-power-law';

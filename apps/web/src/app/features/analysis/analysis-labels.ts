@@ -1,5 +1,10 @@
 /** Every word the study page and the desks show for fits, regimes and parameters. */
-import type { FitInterpretation, FitRequest, RegimeName } from '@rhotrace/api-types';
+import type {
+  FitInterpretation,
+  FitRequest,
+  HallScattering,
+  RegimeName,
+} from '@rhotrace/api-types';
 
 /** A parameter a full-model fit may free. */
 export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][number];
@@ -72,3 +77,11 @@ export const PREFACTOR_CHOICES: ReadonlyArray<{ value: number; words: string }> 
 export function wordsFor(map: Readonly<Record<string, string>>, key: string): string {
   return map[key] ?? key;
 }
+
+/** The scattering mechanism a Hall-mobility exponent suggests. */
+export const SCATTERING_WORDS: Readonly<Record<HallScattering, string>> = {
+  'acoustic-phonon': 'acoustic phonons',
+  'acoustic-and-optical-phonon': 'acoustic and optical phonons (lattice)',
+  'ionized-impurity': 'ionized impurities',
+  mixed: 'a mixture of lattice and impurity scattering',
+};
