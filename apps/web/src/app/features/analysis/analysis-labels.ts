@@ -34,6 +34,14 @@ export const KIND_WORDS: Readonly<Record<FitKind, string>> = {
   'bloch-gruneisen': 'Bloch–Grüneisen',
 };
 
+/** A fit's name in a plot legend (the window and which fit follow it). */
+export const FIT_TRACE_WORDS: Readonly<Record<string, string>> = {
+  arrhenius: 'Arrhenius fit',
+  model: 'Full-model fit',
+  tcr: 'Linear TCR fit',
+  'bloch-gruneisen': 'Bloch–Grüneisen fit',
+};
+
 export const FREE_WORDS: Readonly<Record<FreeParameter, string>> = {
   donorDensity: 'Donor density',
   acceptorDensity: 'Acceptor density',

@@ -12,13 +12,15 @@ import {
   EMPTY_SLOT,
   type FitJob,
   type FitSlot,
+  type ShownFit,
   type SlotState,
   isSaved,
   queuedFits,
 } from './fit-queue';
 import { scaleToMeasured, startingDoping } from './sweep-study/initial-doping';
 import { type CurveState, modelCurveStream } from './sweep-study/model-curve-stream';
-import { type TemperatureUnit, plotRangeK } from './sweep-study/study-plots';
+import { type TemperatureUnit, TemperatureUnitSetting } from '../../shared/temperature-unit';
+import { plotRangeK } from './sweep-study/study-plots';
 
 /** Options of the Arrhenius window fit. */
 export interface ArrheniusOptions {
@@ -38,6 +40,7 @@ export class AnalysisStore {
   private readonly api = inject(AnalysisApi);
   private readonly lots = inject(LotsApi);
   private readonly wafers = inject(WafersApi);
+  private readonly unitSetting = inject(TemperatureUnitSetting);
 
   readonly sweepId = signal<number | null>(null);
   readonly analysis = rxResource({
@@ -96,7 +99,8 @@ export class AnalysisStore {
   readonly initial = computed<DopingInput | null>(() => this.start.value()?.doping ?? null);
 
   // The model curve, redrawn as parameters are typed.
-  readonly unit = signal<TemperatureUnit>('K');
+  /** The unit of every temperature the page shows or takes (the user's setting). */
+  readonly unit = this.unitSetting.unit;
   readonly doping = signal<DopingInput | null>(null);
   readonly curveState = signal<CurveState>({ curve: null, problem: null, loading: false });
   private readonly doping$ = new ReplaySubject<DopingInput | null>(1);
@@ -116,6 +120,14 @@ export class AnalysisStore {
   readonly comparedFits = computed(() =>
     (this.fits.value() ?? []).filter((f) => this.compared().includes(f.id)),
   );
+  /** The fits drawn on the ρ(T) plot: the two panels' fits, then the saved ones compared. */
+  readonly drawnFits = computed<ShownFit[]>(() => {
+    const shown = [this.slots.window().fit, this.slots.model().fit].filter(
+      (f): f is ShownFit => f !== null,
+    );
+    const ids = new Set(shown.filter(isSaved).map((f) => f.id));
+    return [...shown, ...this.comparedFits().filter((f) => !ids.has(f.id))];
+  });
   private readonly previews$ = new Subject<FitJob<FitSlot>>();
   private readonly keeps$ = new Subject<FitSlot>();
 
@@ -193,6 +205,11 @@ export class AnalysisStore {
     this.compared.set([]);
     this.slots.window.set(EMPTY_SLOT);
     this.slots.model.set(EMPTY_SLOT);
+  }
+
+  /** Shows and takes every temperature in `unit` (remembered for the user). */
+  setUnit(unit: TemperatureUnit): void {
+    this.unitSetting.set(unit);
   }
 
   setDoping(doping: DopingInput | null): void {

@@ -81,6 +81,7 @@ export class ArrheniusWindow {
       this.options().quantity,
       this.store.window(),
       this.slot().fit,
+      this.store.unit(),
     ),
   );
 
