@@ -7,6 +7,7 @@ import { EstimateNote } from '../../../shared/estimate-note';
 import { formatValue } from '../../../shared/format';
 import { KIND_WORDS } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
+import { mainResult } from '../main-result';
 import { FitCard } from '../fit-card/fit-card';
 
 /** The sweep's saved fits: compare side by side, export as CSV, delete (after a confirmation). */
@@ -29,13 +30,7 @@ export class SavedFits {
       : 'all';
   }
 
-  /** The first parameter with its standard error, e.g. "0.2512 ± 0.0031". */
-  protected mainValue(f: FitDto): string {
-    const [key, value] = Object.entries(f.parameters)[0] ?? [];
-    if (key === undefined || value === undefined) return '–';
-    const se = f.standardErrors[key];
-    return `${formatValue(value)}${se ? ' ± ' + formatValue(se, 2) : ''}`;
-  }
+  protected readonly mainResult = mainResult;
 
   protected remove(f: FitDto): void {
     this.confirmer
