@@ -21,7 +21,7 @@ describe('the main result of a fit', () => {
         standardErrors: { referenceResistivityOhmCm: 1e-9, alphaPerK: 2.1e-5 },
       },
     );
-    expect(mainResult(f)).toBe('Temperature coefficient (1/K): 3.900 × 10⁻³ ± 2.1 × 10⁻⁵');
+    expect(mainResult(f)).toBe('Temperature coefficient (1/K): 0.0039 ± 2.1 × 10⁻⁵');
   });
 
   it('is a parameter the full model freed, never one held fixed', () => {

@@ -30,7 +30,7 @@ export function mainParameter(fit: ShownFit | FitDto): string | null {
   return fitted.find((p) => p in fit.parameters) ?? null;
 }
 
-/** The main result in words: "Temperature coefficient (1/K): 3.900 × 10⁻³ ± 2.1 × 10⁻⁵". */
+/** The main result in words: "Temperature coefficient (1/K): 0.0039 ± 2.1 × 10⁻⁵". */
 export function mainResult(fit: ShownFit | FitDto): string {
   const key = mainParameter(fit);
   const value = key === null ? undefined : fit.parameters[key];

@@ -34,7 +34,7 @@ describe('FitCard', () => {
         excludedSequences: [4, 9],
       }),
     );
-    expect(text).toContain('Arrhenius window 120–200 K (preview)');
+    expect(text).toContain('Arrhenius window 120.0–200.0 K (preview)');
     expect(text).toContain('9 temperature steps');
     expect(text).toContain('Dopant ionization energy: 0.0452 eV ± 0.0011 eV');
     expect(text).toContain('Assumes the Freeze-out regime, uncompensated (inferred from the data)');

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { formatValue } from '../../../shared/format';
+import { type TemperatureUnit, formatTemperatureRange } from '../../../shared/temperature-unit';
 import {
   COMPENSATION_SOURCE_WORDS,
   COMPENSATION_WORDS,
@@ -35,6 +36,8 @@ const EXCLUDED_LISTED = 8;
 })
 export class FitCard {
   readonly fit = input.required<ShownFit>();
+  /** The unit the fit's window is shown in. */
+  readonly unit = input<TemperatureUnit>('K');
 
   protected readonly format = formatValue;
   protected readonly propertyWords = PROPERTY_WORDS;
@@ -47,7 +50,7 @@ export class FitCard {
     const f = this.fit();
     const window =
       f.windowMinK !== null && f.windowMaxK !== null
-        ? ` ${formatValue(f.windowMinK)}–${formatValue(f.windowMaxK)} K`
+        ? ` ${formatTemperatureRange(f.windowMinK, f.windowMaxK, this.unit())}`
         : '';
     return `${wordsFor(KIND_WORDS, f.kind)}${window} (${isSaved(f) ? `fit ${f.id}` : 'preview'})`;
   });

@@ -40,7 +40,7 @@ import { KeepActions } from '../fit-card/keep-actions';
         <p class="problem" role="alert">{{ p }}</p>
       }
       @if (slot().fit; as f) {
-        <rt-fit-card [fit]="f" />
+        <rt-fit-card [fit]="f" [unit]="store.unit()" />
         <rt-keep-actions slot="model" [fit]="f" />
       }
     </section>

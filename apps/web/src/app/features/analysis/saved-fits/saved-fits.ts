@@ -4,7 +4,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import type { FitDto } from '@rhotrace/api-types';
 import { Confirmer } from '../../../shared/confirm-dialog';
 import { EstimateNote } from '../../../shared/estimate-note';
-import { formatValue } from '../../../shared/format';
+import { formatTemperatureRange } from '../../../shared/temperature-unit';
 import { KIND_WORDS } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
 import { mainResult } from '../main-result';
@@ -26,8 +26,8 @@ export class SavedFits {
 
   protected windowOf(f: FitDto): string {
     return f.windowMinK !== null && f.windowMaxK !== null
-      ? `${formatValue(f.windowMinK)}–${formatValue(f.windowMaxK)}`
-      : 'all';
+      ? formatTemperatureRange(f.windowMinK, f.windowMaxK, this.store.unit())
+      : 'all readings';
   }
 
   protected readonly mainResult = mainResult;
