@@ -12,7 +12,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { formatValue } from '../../../shared/format';
 import {
@@ -31,6 +30,7 @@ import {
 } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
 import { FitCard } from '../fit-card/fit-card';
+import { FitProgress } from '../fit-card/fit-progress';
 import { KeepActions } from '../fit-card/keep-actions';
 import { arrheniusFigure } from './arrhenius-figure';
 
@@ -47,7 +47,7 @@ import { arrheniusFigure } from './arrhenius-figure';
     MatButtonToggleModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    FitProgress,
     MatSelectModule,
     Plot,
     FitCard,

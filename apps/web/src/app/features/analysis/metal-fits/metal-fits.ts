@@ -3,11 +3,11 @@ import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import { UNIT_SYMBOL, toKelvin, toUnit } from '../../../shared/temperature-unit';
 import { AnalysisStore } from '../analysis-store';
 import { FitCard } from '../fit-card/fit-card';
+import { FitProgress } from '../fit-card/fit-progress';
 import { KeepActions } from '../fit-card/keep-actions';
 
 /** Metal-film fits: a linear TCR about a reference temperature, or Bloch–Grüneisen; Keep saves. */
@@ -18,7 +18,7 @@ import { KeepActions } from '../fit-card/keep-actions';
     MatButtonModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    FitProgress,
     FitCard,
     KeepActions,
   ],
@@ -55,8 +55,8 @@ import { KeepActions } from '../fit-card/keep-actions';
           Fit Bloch–Grüneisen
         </button>
       </div>
-      @if (slot().busy) {
-        <mat-progress-bar mode="indeterminate" aria-label="Fitting" />
+      @if (slot().busy && slot().startedAt; as started) {
+        <rt-fit-progress what="Fitting" [startedAt]="started" (cancelled)="store.cancel('model')" />
       }
       @if (slot().problem; as p) {
         <p class="problem" role="alert">{{ p }}</p>
