@@ -1,3 +1,5 @@
+import type { StationUploadDto } from './station-tokens';
+
 /** How a sweep's readings become resistivity. */
 export const SWEEP_METHODS = [
   'four-point',
@@ -142,6 +144,8 @@ export interface SweepSummaryDto {
   minTemperatureK: number | null;
   maxTemperatureK: number | null;
   createdAt: string;
+  /** Set when a probe station posted the sweep with its token. */
+  uploadedVia?: StationUploadDto | null;
 }
 
 /** What the import found and decided, kept with the sweep. */

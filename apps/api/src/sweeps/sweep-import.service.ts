@@ -66,6 +66,16 @@ export interface ImportSweepInput {
 /** The signed-in user, with the request id the audit event records. */
 export type SweepActor = SessionUser & { requestId?: string | null };
 
+/**
+ * Work a caller adds to the upload's own transaction (a station post records its key and
+ * closes its assignment there), so it commits or rolls back with the sweep: `begin` runs
+ * first, `commit` once the sweep is stored. Both run again if the upload is retried.
+ */
+export interface ImportHooks {
+  begin?: (transaction: Transaction) => Promise<void>;
+  commit?: (result: SweepCreatedResponse, transaction: Transaction) => Promise<void>;
+}
+
 /** Parses without storing: layout, guessed columns, the first rows and the problems found. */
 export async function previewSweep(
   input: { waferId: number; file: Buffer },
@@ -101,12 +111,12 @@ export async function previewSweep(
 export async function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
-  options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
+  options: { storage?: RawStorage; onRetry?: (error: unknown) => void; hooks?: ImportHooks } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
   return retryTransientOnce(
     'upload',
-    () => importOnce(input, actor, storage).catch(lostSweepRow),
+    () => importOnce(input, actor, storage, options.hooks ?? {}).catch(lostSweepRow),
     options.onRetry,
   );
 }
@@ -128,6 +138,7 @@ async function importOnce(
   input: ImportSweepInput,
   actor: SweepActor,
   storage: RawStorage,
+  hooks: ImportHooks,
 ): Promise<SweepCreatedResponse> {
   const file = openTable(input.file, IMPORT_SLICE_ROWS);
   const columns = detectColumns(file.parsed, input.columns ?? [], input.method);
@@ -136,6 +147,7 @@ async function importOnce(
   const raw = new RawCopy(storage);
   try {
     return await Sweep.sequelize!.transaction(async (transaction) => {
+      await hooks.begin?.(transaction);
       const { wafer, lot } = await mayUploadTo(actor, input.waferId, transaction);
       // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
       await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
@@ -147,10 +159,12 @@ async function importOnce(
       }
       const rawKey = raw.put(input.file, transaction);
       try {
-        return await storeSweep(
+        const result = await storeSweep(
           { input, actor, file, columns, sha256, storage, rawKey, wafer, lot },
           transaction,
         );
+        await hooks.commit?.(result, transaction);
+        return result;
       } catch (error) {
         await raw.settle();
         throw error;

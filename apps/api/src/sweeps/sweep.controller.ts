@@ -50,7 +50,8 @@ export function storedFileName(multerName: string): string {
   return kept || 'sweep.csv';
 }
 
-function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
+/** The `columns` field of an upload: JSON text of `{ index, meaning, unit }` entries. */
+export function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
   if (text === undefined || text.trim() === '') return undefined;
   let json: unknown;
   try {

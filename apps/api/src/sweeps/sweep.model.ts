@@ -28,6 +28,8 @@ export class Sweep extends Model<InferAttributes<Sweep>, InferCreationAttributes
   declare maxTemperatureK: number | null;
   declare deletedAt: CreationOptional<Date | null>;
   declare deletedById: number | null;
+  /** The station token a station post came with; null for an ordinary upload. */
+  declare stationTokenId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -79,6 +81,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       metadata: jsonColumn('metadata'),
       parseReport: jsonColumn('parseReport', false),
       pointCount: { type: DataTypes.INTEGER, allowNull: false },
+      stationTokenId: DataTypes.INTEGER,
       minTemperatureK: DataTypes.DOUBLE,
       maxTemperatureK: DataTypes.DOUBLE,
       deletedAt: DataTypes.DATE(3),

@@ -6,6 +6,7 @@ import { promisify } from 'node:util';
 import { gzip as gzipCallback } from 'node:zlib';
 import type {
   PointFlag,
+  StationUploadDto,
   PointQuantities,
   SweepColumn,
   SweepDto,
@@ -23,6 +24,7 @@ import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
 import type { SweepActor } from './sweep-import.service';
+import { stationUploadsOf } from '../station-tokens/station-tokens.service';
 import { SweepCache } from './sweep-cache';
 import { Sweep, SweepPoint } from './sweep.model';
 
@@ -36,7 +38,11 @@ export {
 } from './sweep-import.service';
 import { inTransaction } from '../db/connection';
 
-function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
+function summary(
+  sweep: Sweep,
+  uploaderName: string | null,
+  via: Map<number, StationUploadDto>,
+): SweepSummaryDto {
   return {
     id: sweep.id,
     waferId: sweep.waferId,
@@ -52,6 +58,7 @@ function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
     minTemperatureK: sweep.minTemperatureK,
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
+    uploadedVia: sweep.stationTokenId ? (via.get(sweep.stationTokenId) ?? null) : null,
   };
 }
 
@@ -74,7 +81,8 @@ export async function listSweeps(waferId: number, actor: SweepActor): Promise<Sw
     ],
   });
   const names = await uploaderNames(sweeps);
-  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null));
+  const via = await stationUploadsOf(sweeps.map((s) => s.stationTokenId));
+  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null, via));
 }
 
 interface StoredRaw {
@@ -106,7 +114,7 @@ async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
   const { sweep, uploaderName } = await visibleSweepWithUploader(actor, id);
   const columns = sweep.columnMapping as SweepColumn[];
   const head = {
-    ...summary(sweep, uploaderName),
+    ...summary(sweep, uploaderName, await stationUploadsOf([sweep.stationTokenId])),
     columns,
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,

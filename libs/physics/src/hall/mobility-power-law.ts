@@ -6,7 +6,7 @@ import type { FitResult } from '../fit/fit-result';
 import { standardWarnings, uncertaintiesOf, weightedRSquared } from '../fit/fit-result';
 import { readPoints } from '../fit/points';
 import type { StepOptions } from '../fit/steps';
-import { dwellSteps, readStepOptions } from '../fit/steps';
+import { dwellStepColumns, readStepOptions } from '../fit/steps';
 import { requireObject } from '../validate';
 import { temperatureWindow } from './window';
 
@@ -65,7 +65,7 @@ export function fitMobilityPowerLaw(
   const temps = keep.map((i) => allT[i]!);
   const mus = keep.map((i) => allMu[i]!);
   const lnMu = mus.map(Math.log);
-  const steps = dwellSteps(temps, lnMu, stepOptions.toleranceK);
+  const steps = dwellStepColumns(temps, lnMu, temps.length, stepOptions.toleranceK);
   if (steps.length < 3) {
     throw new RangeError(
       `\`${fn}\` requires at least 3 temperature steps in the window (readings within ` +
@@ -74,7 +74,7 @@ export function fitMobilityPowerLaw(
   }
   const line = effectiveVarianceLine(
     steps,
-    steps.map((s) => Math.log(s.temperatureK / 300)),
+    steps.temperatureK.map((t) => Math.log(t / 300)),
     (b, t) => -b / t,
     stepOptions.temperatureUncertaintyK,
   );
@@ -98,7 +98,7 @@ export function fitMobilityPowerLaw(
   );
   const mu300 = Math.exp(line.intercept);
   const rSquared = weightedRSquared(
-    steps.map((s) => s.mean),
+    steps.mean,
     line.weights,
     line.chiSquare,
   );
