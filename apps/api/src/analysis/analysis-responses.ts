@@ -8,6 +8,7 @@ import type {
 import { UNCERTAINTY_SOURCES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { dateTime } from '../openapi/shapes';
+import { hallAnalysisSchema, hallAt300KSchema } from './hall-responses';
 
 const regime = z.enum(['freeze-out', 'extrinsic', 'intrinsic']);
 const verdict = z.enum(['pass', 'fail', 'indeterminate']);
@@ -94,6 +95,7 @@ export const sweepAnalysisResponse = z
         reason: z.string().nullable(),
       })
       .strict(),
+    hall: hallAnalysisSchema.optional(),
   })
   .strict() satisfies z.ZodType<SweepAnalysisResponse>;
 
@@ -154,6 +156,7 @@ export const lotSummaryResponse = z
               })
               .strict(),
           ),
+          hall: hallAt300KSchema.nullable().optional(),
         })
         .strict(),
     ),
@@ -193,6 +196,7 @@ export const compareResponse = z
           minTemperatureK: z.number(),
           maxTemperatureK: z.number(),
           resistivityOhmCm: z.array(nullableNumber),
+          hall: hallAt300KSchema.optional(),
         })
         .strict(),
     ),

@@ -9,6 +9,7 @@ import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { dateTime, fileBody } from '../openapi/shapes';
 import { storeSchema } from './sweep.schemas';
+import { hallImportReportSchema, pointQuantitiesSchema } from '../analysis/hall-responses';
 
 const GEOMETRY_KEYS = ['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'];
 const geometrySource = z.enum(['request', 'wafer', 'lot', 'station', 'file']);
@@ -84,6 +85,7 @@ const point = z
     sheetResistanceOhmSq: z.number().nullable(),
     resistivityOhmCm: z.number(),
     flags: z.array(z.enum(POINT_FLAGS)),
+    quantities: pointQuantitiesSchema.nullable().optional(),
   })
   .strict();
 
@@ -102,6 +104,7 @@ const sweepSchema = registry.register(
           rowCount: z.number().int(),
           warnings: z.array(z.string()),
           flaggedPoints: z.number().int(),
+          hall: hallImportReportSchema.optional(),
         })
         .strict(),
       points: z.array(point),
