@@ -64,6 +64,19 @@ export type {
   FitDto,
   FitPreviewDto,
 } from './fits';
+export { MAP_CORRECTIONS, DEFAULT_EDGE_EXCLUSION_MM } from './maps';
+export type {
+  MapCorrection,
+  SweepMapInput,
+  SweepMapInfo,
+  MapSiteDto,
+  MapStatisticsDto,
+  MapAtTemperatureDto,
+  PatternSiteDto,
+  SweepMapResponse,
+  LotWaferMapDto,
+  LotMapsResponse,
+} from './maps';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,
@@ -123,5 +136,6 @@ export type {
   SweepParseReport,
   RawReading,
   SweepPointDto,
+  SweepSite,
   SweepDto,
 } from './sweeps';

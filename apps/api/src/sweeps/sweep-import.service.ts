@@ -9,10 +9,12 @@
  */
 import { createHash } from 'node:crypto';
 import type {
+  RowProblem,
   SessionUser,
   SweepColumnOverride,
   SweepCreatedResponse,
   SweepGeometryInput,
+  SweepMapInput,
   SweepMethod,
   SweepPreviewResponse,
 } from '@rhotrace/api-types';
@@ -24,6 +26,7 @@ import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter } from './import/convert-rows';
+import { listRows } from './import/import-types';
 import { detectColumns, publicColumns } from './import/detect-columns';
 import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
@@ -39,6 +42,7 @@ import {
   type ResolvedColumn,
 } from './parse';
 import { resolveGeometry } from './import/resolve-geometry';
+import { hasSites, SitePlacer } from './import/sites';
 import { Sweep } from './sweep.model';
 
 /** Rows the preview shows. */
@@ -56,6 +60,8 @@ export interface ImportSweepInput {
   stationId?: number | null;
   columns?: SweepColumnOverride[];
   geometry?: SweepGeometryInput;
+  /** Map fields (site pattern, edge exclusion); used when the columns place readings at sites. */
+  map?: SweepMapInput;
 }
 
 /** The signed-in user, with the request id the audit event records. */
@@ -116,6 +122,16 @@ function lostSweepRow(error: unknown): never {
   if (e?.errno === 1452 || e?.original?.errno === 1452)
     throw new TransactionLostError('a point batch found no sweep row');
   throw error;
+}
+
+/** What the map stage noticed without refusing it. */
+function mapWarnings(converter: RowConverter): string[] {
+  const rows = converter.placer?.tipOffWafer ?? [];
+  if (!rows.length) return [];
+  return [
+    `${rows.length} site(s) lie so near the edge that the probe's outer tip is off the wafer; ` +
+      `they are kept but excluded, with the edge factor of a tip on the edge (rows ${listRows(rows)})`,
+  ];
 }
 
 /** One attempt: the file is read again, so a retry starts from the same bytes. */
@@ -195,8 +211,13 @@ async function storeSweep(
     station,
     file: parsed.recognised,
     needsRtd: columns.find((c) => c.meaning === 'temperature')?.unitInfo?.kind === 'resistance',
+    isMap: hasSites(columns),
   });
-  const converter = new RowConverter(parsed, columns, input.method, geometry);
+  const placer = hasSites(columns)
+    ? (problems: RowProblem[]) =>
+        new SitePlacer(input.map ?? {}, input.method, columns, geometry, problems)
+    : null;
+  const converter = new RowConverter(parsed, columns, input.method, geometry, placer);
   const finder = new SuspiciousPointFinder();
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
   const store = new SweepStore(
@@ -213,6 +234,7 @@ async function storeSweep(
       storageKey: rawKey,
       columnMapping: publicColumns(columns),
       metadata: parsed.layout.metadata,
+      mapInfo: converter.placer?.info ?? null,
     },
     rawJson(parsed),
     transaction,
@@ -234,7 +256,7 @@ async function storeSweep(
     throw error;
   }
   const flags = finder.finish();
-  warnings.push(...converter.warnings, ...flags.warnings);
+  warnings.push(...converter.warnings, ...flags.warnings, ...mapWarnings(converter));
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,

@@ -83,7 +83,7 @@ export const sweepsController = {
     const waferId = parseId(req.params);
     const file = uploaded(req);
     const body = parseOrThrow(storeSchema, req.body, 'body');
-    const { method, stationId, columns, ...geometry } = body;
+    const { method, stationId, columns, sitePattern, edgeExclusionMm, ...geometry } = body;
     const result = await importSweep(
       {
         waferId,
@@ -93,6 +93,10 @@ export const sweepsController = {
         stationId: stationId ?? null,
         columns: parseColumns(columns),
         geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
+        map: {
+          ...(sitePattern !== undefined && { sitePattern }),
+          ...(edgeExclusionMm !== undefined && { edgeExclusionMm }),
+        },
       },
       actorOf(req),
       {

@@ -26,6 +26,8 @@ export class Sweep extends Model<InferAttributes<Sweep>, InferCreationAttributes
   declare pointCount: number;
   declare minTemperatureK: number | null;
   declare maxTemperatureK: number | null;
+  /** Non-null exactly when the sweep is a wafer map (`SweepMapInfo`). */
+  declare mapInfo: unknown;
   declare deletedAt: CreationOptional<Date | null>;
   declare deletedById: number | null;
   declare createdAt: CreationOptional<Date>;
@@ -49,6 +51,10 @@ export class SweepPoint extends Model<
   declare resistivityOhmCm: number;
   declare raw: unknown;
   declare flags: string;
+  declare siteXMm: CreationOptional<number | null>;
+  declare siteYMm: CreationOptional<number | null>;
+  declare siteLabel: CreationOptional<string | null>;
+  declare edgeFactor: CreationOptional<number | null>;
 }
 
 /** Raw upload bytes, kept byte for byte (the database storage implementation). */
@@ -79,6 +85,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       pointCount: { type: DataTypes.INTEGER, allowNull: false },
       minTemperatureK: DataTypes.DOUBLE,
       maxTemperatureK: DataTypes.DOUBLE,
+      mapInfo: jsonColumn('mapInfo'),
       deletedAt: DataTypes.DATE(3),
       deletedById: DataTypes.INTEGER,
       createdAt: DataTypes.DATE(3),
@@ -100,6 +107,10 @@ export function initSweepModels(sequelize: Sequelize): void {
       resistivityOhmCm: { type: DataTypes.DOUBLE, allowNull: false },
       raw: jsonColumn('raw', false),
       flags: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '' },
+      siteXMm: { type: DataTypes.DOUBLE, field: 'site_x_mm' },
+      siteYMm: { type: DataTypes.DOUBLE, field: 'site_y_mm' },
+      siteLabel: DataTypes.STRING(64),
+      edgeFactor: DataTypes.DOUBLE,
     },
     { sequelize, tableName: 'sweep_points', underscored: true, timestamps: false },
   );

@@ -9,6 +9,7 @@ import type {
   SweepColumn,
   SweepDto,
   SweepGeometry,
+  SweepMapInfo,
   SweepMethod,
   SweepParseReport,
   SweepPointDto,
@@ -51,6 +52,7 @@ function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
     minTemperatureK: sweep.minTemperatureK,
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
+    map: (sweep.mapInfo as SweepMapInfo | null) ?? null,
   };
 }
 
@@ -139,6 +141,10 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
       sheetResistanceOhmSq: p.sheetResistanceOhmSq,
       resistivityOhmCm: p.resistivityOhmCm,
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
+      site:
+        p.siteXMm === null || p.siteYMm === null
+          ? null
+          : { xMm: Number(p.siteXMm), yMm: Number(p.siteYMm), label: p.siteLabel },
     };
   });
 }

@@ -9,6 +9,7 @@ import type { ConvertedPoint, Reading } from './import-types';
 import { PolarityPairer, type ReadingGroup } from './pair-polarities';
 import { RowReader } from './read-row';
 import type { Slice } from './read-table';
+import type { SitePlacer } from './sites';
 import { pointMaker } from './to-point';
 
 /** Converts a file's records to points a slice at a time. */
@@ -19,17 +20,21 @@ export class RowConverter {
   private readonly pairer = new PolarityPairer();
   private readonly toPoint: (group: ReadingGroup) => ConvertedPoint | null;
   private emitted = 0;
+  /** Places map readings on the wafer (null for a sweep without sites). */
+  readonly placer: SitePlacer | null;
 
   constructor(
     parsed: ParsedSweepFile,
     columns: ResolvedColumn[],
     method: SweepMethod,
     geometry: SweepGeometry,
+    placer: ((problems: RowProblem[]) => SitePlacer) | null = null,
   ) {
     this.problems = [...parsed.problems];
     const currentA = parsed.recognised.currentA;
     this.rows = new RowReader(parsed, columns, method, geometry, currentA, this.problems);
-    this.toPoint = pointMaker(method, geometry, columns, this.problems);
+    this.placer = placer ? placer(this.problems) : null;
+    this.toPoint = pointMaker(method, geometry, columns, this.problems, this.placer);
   }
 
   /** True while more problems may still be collected. */

@@ -2,7 +2,12 @@
  * What the import stages hand each other: a row read in stored units (`Reading`), and the point
  * made from one reading or a forward/reverse pair (`ConvertedPoint`).
  */
-import type { PointFlag } from '@rhotrace/api-types';
+import type { PointFlag, SweepSite } from '@rhotrace/api-types';
+
+/** Where a row says it was measured: coordinates in mm, or a pattern's site number. */
+export type RowSite =
+  | { kind: 'xy'; xMm: number; yMm: number; label: string | null }
+  | { kind: 'number'; number: number; label: string | null };
 
 /** One data row read in stored units (SI, kelvin, ohm cm); null where the file has no value. */
 export interface Reading {
@@ -19,6 +24,8 @@ export interface Reading {
   resistanceBOhm: number | null;
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number | null;
+  /** The row's site (map files), else null or absent. */
+  site?: RowSite | null;
 }
 
 /** A converted point, ready to store. */
@@ -33,6 +40,10 @@ export interface ConvertedPoint {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
   flags: PointFlag[];
+  /** Where on the wafer (map sweeps); absent or null otherwise. */
+  site?: SweepSite | null;
+  /** The edge factor the reading was divided by (map sweeps with a collinear probe). */
+  edgeFactor?: number | null;
 }
 
 /** Row numbers for a warning, the first ten and a count of the rest. */

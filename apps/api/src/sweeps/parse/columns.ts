@@ -11,6 +11,10 @@ export interface ResolvedColumn extends SweepColumn {
 
 /** Name patterns per meaning, tried in order (more specific first). */
 const NAME_RULES: Array<[ColumnMeaning, RegExp]> = [
+  ['site-label', /^(site ?(label|name|id)|label|die ?name)$/i],
+  ['site-x', /^(x|site ?x|x ?pos(ition)?|pos(ition)? ?x|x ?coord(inate)?)$/i],
+  ['site-y', /^(y|site ?y|y ?pos(ition)?|pos(ition)? ?y|y ?coord(inate)?)$/i],
+  ['site', /^(site|site ?(no\.?|nr\.?|number|#)|die|die ?(no\.?|number))$/i],
   ['index', /^(#|no\.?|nr\.?|n|idx|index|point|pt|row|step|reading|sample no\.?|seq(uence)?)$/i],
   ['time', /^(time|t_?s|elapsed|timestamp|date|clock|datetime|zeit|hora|t ?elapsed)\b/i],
   ['polarity', /^(polarity|pol|direction|dir|sign|current direction|i ?dir|i ?sign)$/i],
@@ -35,6 +39,7 @@ const UNIT_MEANING: Record<UnitKind, ColumnMeaning> = {
   'sheet-resistance': 'sheet-resistance',
   resistivity: 'resistivity',
   time: 'time',
+  length: 'other',
 };
 
 /** Meanings that read as numbers; the rest may hold text. */
@@ -47,6 +52,9 @@ export const NUMERIC_MEANINGS: ReadonlySet<ColumnMeaning> = new Set([
   'sheet-resistance',
   'resistivity',
   'current-level',
+  'site-x',
+  'site-y',
+  'site',
 ]);
 
 /** Units a meaning may carry (a temperature in ohms is an RTD reading). */
@@ -59,6 +67,9 @@ export function unitFitsMeaning(meaning: ColumnMeaning, unit: Unit): boolean {
       return unit.kind === 'resistance';
     case 'current-level':
       return unit.kind === 'current';
+    case 'site-x':
+    case 'site-y':
+      return unit.kind === 'length';
     case 'voltage':
     case 'current':
     case 'sheet-resistance':
@@ -82,6 +93,8 @@ function defaultUnit(meaning: ColumnMeaning): Unit | null {
     resistivity: 'ohm_cm',
     'current-level': 'A',
     time: 's',
+    'site-x': 'mm',
+    'site-y': 'mm',
   };
   const l = label[meaning];
   return l ? parseUnit(l) : null;

@@ -1,6 +1,6 @@
 /**
  * Units found in sweep file headers: how they are spelled and the factor to the SI-like unit
- * Rhotrace stores (K, V, A, ohm, ohm/sq, ohm cm, s). Temperatures in °C and RTD ohms are not
+ * Rhotrace stores (K, V, A, ohm, ohm/sq, ohm cm, s, and mm for map site coordinates). Temperatures in °C and RTD ohms are not
  * scaled here: they are converted by `@rhotrace/physics`.
  */
 
@@ -12,7 +12,8 @@ export type UnitKind =
   | 'resistance'
   | 'sheet-resistance'
   | 'resistivity'
-  | 'time';
+  | 'time'
+  | 'length';
 
 /** A recognised unit: canonical label, kind and the factor to the stored unit. */
 export interface Unit {
@@ -66,6 +67,9 @@ function build(): Map<string, Unit> {
     add([`${p}ohm_cm`, `${p}ohmcm`], { label: `${p}ohm_cm`, kind: 'resistivity', factor: f });
     add([`${p}ohm_m`, `${p}ohmm`], { label: `${p}ohm_m`, kind: 'resistivity', factor: f * 100 });
   }
+  add(['mm'], { label: 'mm', kind: 'length', factor: 1 });
+  add(['cm'], { label: 'cm', kind: 'length', factor: 10 });
+  add(['um'], { label: 'um', kind: 'length', factor: 1e-3 });
   add(['s', 'sec', 'seconds'], { label: 's', kind: 'time', factor: 1 });
   add(['ms'], { label: 'ms', kind: 'time', factor: 1e-3 });
   add(['min'], { label: 'min', kind: 'time', factor: 60 });

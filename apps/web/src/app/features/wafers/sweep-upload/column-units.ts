@@ -14,6 +14,10 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   time: ['s', 'ms', 'min', 'h'],
   index: [],
   other: [],
+  'site-x': ['mm', 'cm', 'um'],
+  'site-y': ['mm', 'cm', 'um'],
+  site: [],
+  'site-label': [],
 };
 
 /** Words shown for each column meaning. */
@@ -30,6 +34,10 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   time: 'Time',
   index: 'Row number',
   other: 'Keep as raw text',
+  'site-x': 'Map site x (from the wafer centre)',
+  'site-y': 'Map site y (away from the flat or notch)',
+  site: 'Map site number (of the chosen pattern)',
+  'site-label': 'Map site name',
 };
 
 /** Words shown for each measurement method. */
