@@ -238,6 +238,32 @@ export interface LotSummaryWafer extends ValueUncertainty {
     maxK: number | null;
     quantity: string;
   }>;
+  /**
+   * When the sweep behind the 23 °C value is a wafer map: its uniformity at the step nearest
+   * 23 °C (over the sites not excluded); null otherwise.
+   */
+  uniformity?: WaferUniformity | null;
+}
+
+/** A map wafer's uniformity at the step nearest 23 °C. */
+export interface WaferUniformity {
+  temperatureK: number;
+  siteCount: number;
+  /** Sample standard deviation over the sites in per cent of their mean; null for one site. */
+  stdDevPercent: number | null;
+  /** (max - min) / (max + min) * 100. */
+  rangePercent: number;
+}
+
+/** The spread of the map wafers' uniformities across a lot. */
+export interface LotUniformitySpread {
+  /** Map wafers with a standard deviation (two sites or more). */
+  count: number;
+  meanStdDevPercent: number;
+  minStdDevPercent: number;
+  maxStdDevPercent: number;
+  /** Sample standard deviation of the wafers' stdDevPercent; null for one wafer. */
+  stdDevOfStdDevPercent: number | null;
 }
 
 /** `GET /api/lots/:id/summary` answer. */
@@ -262,6 +288,8 @@ export interface LotSummaryResponse {
     /** Always null: within-wafer repeatability is not measured (see `cpkReason`); use `ppk`. */
     cpk: number | null;
     cpkReason: string | null;
+    /** The spread of the map wafers' uniformities; null without two-site maps. */
+    uniformity?: LotUniformitySpread | null;
   };
 }
 

@@ -28,6 +28,8 @@ export type {
   SweepAnalysisResponse,
   DopantDensityResponse,
   LotSummaryWafer,
+  WaferUniformity,
+  LotUniformitySpread,
   LotSummaryResponse,
   CompareResponse,
 } from './analysis';

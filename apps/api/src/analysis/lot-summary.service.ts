@@ -13,6 +13,7 @@ import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
 import { specVerdict } from './spec-check';
 import { waferAssessment } from './spec.service';
+import { lotUniformitySpread, waferUniformity } from '../maps/maps.service';
 
 /** Why `cpk` is null: Cpk needs the within-wafer (short-term) spread, which is not measured. */
 export const CPK_REASON =
@@ -47,7 +48,7 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
   });
 
   const sweeps = await Sweep.findAll({
-    attributes: ['id', 'waferId'],
+    attributes: ['id', 'waferId', 'sha256', 'createdAt', 'pointCount', 'mapInfo'],
     where: { waferId: { [Op.in]: wafers.map((w) => w.id) } },
   });
   const fits = await Fit.findAll({
@@ -66,7 +67,9 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
       lot.specMinOhmCm,
       lot.specMaxOhmCm,
     );
+    const sweep = found.sweepId === null ? null : sweeps.find((s) => s.id === found.sweepId);
     rows.push({
+      uniformity: sweep ? await waferUniformity(sweep) : null,
       waferId: wafer.id,
       number: wafer.number,
       sweepId: found.sweepId,
@@ -119,6 +122,7 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
       ...lotCapability(rows, lot.specMinOhmCm, lot.specMaxOhmCm),
       cpk: null,
       cpkReason: CPK_REASON,
+      uniformity: lotUniformitySpread(rows),
     },
   };
 }

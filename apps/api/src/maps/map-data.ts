@@ -104,6 +104,20 @@ export function mapsOf(rows: readonly MapPointRow[]): MapAtTemperatureDto[] {
 }
 
 /**
+ * The readings a map gives the temperature analyses: per step, one per site not excluded, at
+ * the step's mean temperature (so a step's mean is the map mean), sorted by temperature.
+ */
+export function mapReadings(
+  maps: readonly MapAtTemperatureDto[],
+): Array<{ temperatureK: number; resistivityOhmCm: number }> {
+  return maps.flatMap((m) =>
+    m.sites
+      .filter((s) => !s.excluded)
+      .map((s) => ({ temperatureK: m.temperatureK, resistivityOhmCm: s.resistivityOhmCm })),
+  );
+}
+
+/**
  * One reading per step for the temperature analyses: the map mean (the mean over the sites not
  * excluded) or, with `site`, that site's averaged value. Steps where the site is missing or
  * every site is excluded give no reading.

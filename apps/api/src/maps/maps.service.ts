@@ -3,6 +3,8 @@
  * wafers side by side on one colour scale.
  */
 import type {
+  LotUniformitySpread,
+  WaferUniformity,
   LotMapsResponse,
   LotWaferMapDto,
   MapAtTemperatureDto,
@@ -44,6 +46,11 @@ export function mapInfoOf(sweep: Pick<Sweep, 'mapInfo'>): SweepMapInfo | null {
 export async function mapsOfSweep(sweep: SweepIdentity): Promise<MapAtTemperatureDto[]> {
   const hit = mapsCache.get(sweep);
   if (hit) return hit;
+  return mapsCache.remember(sweep, mapsOf(await loadMapPointRows(sweep.id)));
+}
+
+/** The stored points of a sweep that carry a site, as the map grouping reads them. */
+export async function loadMapPointRows(sweepId: number): Promise<MapPointRow[]> {
   const rows = await SweepPoint.findAll({
     attributes: [
       'temperatureK',
@@ -55,7 +62,7 @@ export async function mapsOfSweep(sweep: SweepIdentity): Promise<MapAtTemperatur
       'edgeFactor',
       'flags',
     ],
-    where: { sweepId: sweep.id },
+    where: { sweepId },
     raw: true,
   });
   const points: MapPointRow[] = [];
@@ -72,7 +79,7 @@ export async function mapsOfSweep(sweep: SweepIdentity): Promise<MapAtTemperatur
       flags: r.flags ? r.flags.split(',') : [],
     });
   }
-  return mapsCache.remember(sweep, mapsOf(points));
+  return points;
 }
 
 /** `GET /api/sweeps/:id/map`: 404 for a hidden sweep or one that is not a map. */
@@ -119,6 +126,44 @@ export function nearestMap(
       best = m;
   }
   return best;
+}
+
+/** A map sweep's uniformity at the step nearest 23 °C; null for a sweep that is no map. */
+export async function waferUniformity(
+  sweep: SweepIdentity & Pick<Sweep, 'mapInfo'>,
+): Promise<WaferUniformity | null> {
+  if (!mapInfoOf(sweep)) return null;
+  const at = nearestMap(await mapsOfSweep(sweep), REFERENCE_K);
+  if (!at?.statistics) return null;
+  return {
+    temperatureK: at.temperatureK,
+    siteCount: at.statistics.count,
+    stdDevPercent: at.statistics.stdDevPercent,
+    rangePercent: at.statistics.rangePercent,
+  };
+}
+
+/**
+ * The spread of the map wafers' uniformities over a lot: mean, extremes and sample standard
+ * deviation of their stdDevPercent; null when no wafer has one.
+ */
+export function lotUniformitySpread(
+  rows: ReadonlyArray<{ uniformity?: WaferUniformity | null }>,
+): LotUniformitySpread | null {
+  const values = rows.flatMap((r) =>
+    r.uniformity?.stdDevPercent == null ? [] : [r.uniformity.stdDevPercent],
+  );
+  if (!values.length) return null;
+  const n = values.length;
+  const mean = values.reduce((a, b) => a + b, 0) / n;
+  const ss = values.reduce((a, v) => a + (v - mean) ** 2, 0);
+  return {
+    count: n,
+    meanStdDevPercent: mean,
+    minStdDevPercent: Math.min(...values),
+    maxStdDevPercent: Math.max(...values),
+    stdDevOfStdDevPercent: n > 1 ? Math.sqrt(ss / (n - 1)) : null,
+  };
 }
 
 /**
