@@ -1,5 +1,5 @@
 /**
- * A demo wafer map: a ring-25 map of a boron-doped silicon wafer at five chuck temperatures,
+ * A demo wafer map: a ring-25 map of a boron-doped silicon wafer at three chuck temperatures,
  * with a resistivity that rises a few per cent toward the edge. Invented data for the demo only:
  * never a reference for tests of the physics.
  */
@@ -44,7 +44,7 @@ export function demoMap(): DemoMap {
     '# station: Hot chuck South',
     'T (K),Site,V (mV),I (mA)',
   ];
-  for (const setK of [280, 296.15, 320, 350, 380]) {
+  for (const setK of [280, 296.15, 330]) {
     const bulk = resistivity('Si', { donorDensity: 0, acceptorDensity: 1.1e15, acceptor: 'B' }, setK);
     for (const site of SITE_PATTERNS['ring-25']) {
       const { xMm, yMm } = patternSiteMm('ring-25', site.number, usableMm);
@@ -64,7 +64,7 @@ export function demoMap(): DemoMap {
     lotCode: 'LV-26-B014',
     waferNumber: '03',
     station: 'Hot chuck South',
-    fileName: 'B014-03_map_ring25_280-380K.csv',
+    fileName: 'B014-03_map_ring25_280-330K.csv',
     spacingCm,
     thicknessCm,
     diameterCm,

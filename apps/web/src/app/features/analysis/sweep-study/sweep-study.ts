@@ -12,6 +12,7 @@ import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
 import { SavedFits } from '../saved-fits/saved-fits';
 
+import { MapView } from '../../maps/map-view/map-view';
 /**
  * Studying one sweep: the page around its parts (model overlay, Arrhenius window, full-model or
  * metal fits, saved fits). The parts share one `AnalysisStore`, provided here.
@@ -28,6 +29,7 @@ import { SavedFits } from '../saved-fits/saved-fits';
     ModelFit,
     MetalFits,
     SavedFits,
+    MapView,
   ],
   providers: [AnalysisStore],
   templateUrl: './sweep-study.html',
