@@ -47,7 +47,7 @@ function sitesOf(rows: readonly MapPointRow[]): MapSiteDto[] {
     if (list) list.push(r);
     else groups.set(key, [r]);
   }
-  return [...groups.values()].map((g) => {
+  const sites = [...groups.values()].map((g) => {
     const first = g[0]!;
     const sheets = g.map((r) => r.sheetResistanceOhmSq);
     return {
@@ -61,6 +61,23 @@ function sitesOf(rows: readonly MapPointRow[]): MapSiteDto[] {
       readingCount: g.length,
     };
   });
+  return sites.sort(bySiteOrder);
+}
+
+/** A whole-number label, or null. */
+function labelNumber(label: string | null): number | null {
+  return label !== null && /^\d+$/.test(label) ? Number(label) : null;
+}
+
+/**
+ * Sites in reading order: numbered labels (pattern sites) by number first, the rest by rows
+ * from +y down, each row from -x, as a map is read.
+ */
+function bySiteOrder(a: MapSiteDto, b: MapSiteDto): number {
+  const na = labelNumber(a.label);
+  const nb = labelNumber(b.label);
+  if (na !== null || nb !== null) return (na ?? Infinity) - (nb ?? Infinity);
+  return b.yMm - a.yMm || a.xMm - b.xMm;
 }
 
 /** Uniformity of the sites not excluded; null when every site is excluded. */
