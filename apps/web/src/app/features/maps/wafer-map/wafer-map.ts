@@ -57,9 +57,10 @@ export class WaferMap {
   private readonly svg = viewChild<ElementRef<SVGSVGElement>>('svg');
   protected readonly active = signal(0);
   protected readonly hovered = signal<number | null>(null);
-  protected readonly stops = VIRIDIS_STOPS.map((c, i) => ({
+  /** The bar's gradient from the top (highest value) down; SVG wants offsets increasing. */
+  protected readonly stops = [...VIRIDIS_STOPS].reverse().map((c, i) => ({
     colour: c,
-    offset: `${(100 * (VIRIDIS_STOPS.length - 1 - i)) / (VIRIDIS_STOPS.length - 1)}%`,
+    offset: `${(100 * i) / (VIRIDIS_STOPS.length - 1)}%`,
   }));
 
   protected readonly radius = computed(() => this.info().diameterMm / 2);
