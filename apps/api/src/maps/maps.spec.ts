@@ -151,6 +151,27 @@ describe('sites near and beyond the edge', () => {
     expect(map.maps[0]!.statistics!.count).toBe(2);
   });
 
+  it('converts a dual-configuration file by the SEMI MF1529 relation', async () => {
+    // Rymaszewski 1969; SEMI MF1529: R_s = (-14.696 + 25.173 r - 7.872 r^2) R_a, r = R_a / R_b.
+    const wafer = await makeWafer({ thicknessCm: 0.0005, diameterCm: 10 });
+    const station = await makeStation({ probeSpacingCm: 0.1 });
+    const csv = ['x (mm),y (mm),T (K),R_A (ohm),R_B (ohm)', '0,0,300,10,7.9', '0,40,300,11,8.9'];
+    const res = await upload(wafer.id, csv.join('\n'), {
+      method: 'four-point',
+      stationId: String(station.id),
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const map = await readMap(res.body.id);
+    expect(map.map.correction).toBe('dual-configuration');
+    const relation = (ra: number, rb: number) =>
+      (-14.696 + 25.173 * (ra / rb) - 7.872 * (ra / rb) ** 2) * ra;
+    const [top, centre] = map.maps[0]!.sites;
+    expect(centre!.sheetResistanceOhmSq).toBeCloseTo(relation(10, 7.9), 9);
+    expect(top!.sheetResistanceOhmSq).toBeCloseTo(relation(11, 8.9), 9);
+    // The edge factor shown is the single-configuration reading over the corrected one.
+    expect(centre!.edgeFactor).toBeCloseTo(((Math.PI / Math.LN2) * 10) / relation(10, 7.9), 9);
+  });
+
   it('stores and marks a site inside the edge exclusion, and leaves it out of the statistics', async () => {
     const wafer = await makeWafer({ thicknessCm: 0.05, diameterCm: 15 });
     const csv = [
