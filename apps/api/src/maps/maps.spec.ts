@@ -190,6 +190,12 @@ describe('sites near and beyond the edge', () => {
       await request(ctx.app).get(`/api/sweeps/${res.body.id}`).set(ctx.auth('engineer'))
     ).body as SweepDto;
     expect(sweep.points[2]!.flags).toContain('edge-exclusion');
+    const exported = await request(ctx.app)
+      .get(`/api/sweeps/${res.body.id}/points.csv`)
+      .set(ctx.auth('engineer'));
+    const [header, , , last] = exported.text.split('\r\n');
+    expect(header).toContain('flags,site_x_mm,site_y_mm,site_label');
+    expect(last).toContain('edge-exclusion,73,0,');
   });
 
   it('refuses a site outside the wafer, naming row and column, and stores nothing', async () => {

@@ -29,9 +29,17 @@ const FIXED = [
   'flags',
 ];
 
-/** The points as CSV: stored values first, then the file's own columns as read. */
+/** Columns a map sweep's points add after the fixed ones. */
+const SITE = ['site_x_mm', 'site_y_mm', 'site_label'];
+
+/**
+ * The points as CSV: stored values first (with the site of a map sweep's points), then the
+ * file's own columns as read.
+ */
 export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): string {
-  const header = [...FIXED, ...columns.map((c) => `raw ${c.header}`)].map(csvCell).join(',');
+  const isMap = points.some((p) => p.site);
+  const fixed = isMap ? [...FIXED, ...SITE] : FIXED;
+  const header = [...fixed, ...columns.map((c) => `raw ${c.header}`)].map(csvCell).join(',');
   const lines = [header];
   for (const p of points) {
     const raw = columns.map((c) => p.raw.map((r) => r.values[c.header] ?? '').join(' | '));
@@ -46,6 +54,7 @@ export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): stri
         p.sheetResistanceOhmSq,
         p.resistivityOhmCm,
         p.flags.join(' '),
+        ...(isMap ? [p.site?.xMm ?? null, p.site?.yMm ?? null, p.site?.label ?? null] : []),
         ...raw,
       ]
         .map((v) => csvCell(v))
