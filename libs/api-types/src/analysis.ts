@@ -2,6 +2,7 @@
  * Analysis API shapes: model curves, materials, sweep analysis, fits, dopant density, lot
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
+import type { LotUniformitySpread, WaferUniformity } from './maps';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
@@ -243,27 +244,6 @@ export interface LotSummaryWafer extends ValueUncertainty {
    * 23 °C (over the sites not excluded); null otherwise.
    */
   uniformity?: WaferUniformity | null;
-}
-
-/** A map wafer's uniformity at the step nearest 23 °C. */
-export interface WaferUniformity {
-  temperatureK: number;
-  siteCount: number;
-  /** Sample standard deviation over the sites in per cent of their mean; null for one site. */
-  stdDevPercent: number | null;
-  /** (max - min) / (max + min) * 100. */
-  rangePercent: number;
-}
-
-/** The spread of the map wafers' uniformities across a lot. */
-export interface LotUniformitySpread {
-  /** Map wafers with a standard deviation (two sites or more). */
-  count: number;
-  meanStdDevPercent: number;
-  minStdDevPercent: number;
-  maxStdDevPercent: number;
-  /** Sample standard deviation of the wafers' stdDevPercent; null for one wafer. */
-  stdDevOfStdDevPercent: number | null;
 }
 
 /** `GET /api/lots/:id/summary` answer. */

@@ -28,8 +28,6 @@ export type {
   SweepAnalysisResponse,
   DopantDensityResponse,
   LotSummaryWafer,
-  WaferUniformity,
-  LotUniformitySpread,
   LotSummaryResponse,
   CompareResponse,
 } from './analysis';
@@ -78,6 +76,8 @@ export type {
   SweepMapResponse,
   LotWaferMapDto,
   LotMapsResponse,
+  WaferUniformity,
+  LotUniformitySpread,
 } from './maps';
 export {
   SEMICONDUCTORS,

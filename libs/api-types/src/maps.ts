@@ -113,3 +113,24 @@ export interface LotMapsResponse {
   scale: { minOhmCm: number; maxOhmCm: number } | null;
   wafers: LotWaferMapDto[];
 }
+
+/** A map wafer's uniformity at the step nearest 23 °C. */
+export interface WaferUniformity {
+  temperatureK: number;
+  siteCount: number;
+  /** Sample standard deviation over the sites in per cent of their mean; null for one site. */
+  stdDevPercent: number | null;
+  /** (max - min) / (max + min) * 100. */
+  rangePercent: number;
+}
+
+/** The spread of the map wafers' uniformities across a lot. */
+export interface LotUniformitySpread {
+  /** Map wafers with a standard deviation (two sites or more). */
+  count: number;
+  meanStdDevPercent: number;
+  minStdDevPercent: number;
+  maxStdDevPercent: number;
+  /** Sample standard deviation of the wafers' stdDevPercent; null for one wafer. */
+  stdDevOfStdDevPercent: number | null;
+}
