@@ -124,7 +124,7 @@ describe('the wafer map view', () => {
     await page.goto(`${BASE_URL}/lots/${target.wafer.lotId}`);
     await page.getByRole('heading', { name: 'Wafer maps' }).waitFor({ timeout: 30_000 });
     await expect(
-      page.getByRole('group', { name: new RegExp(`^W${target.wafer.number} · `) }).count(),
+      page.getByRole('group', { name: new RegExp(`^${target.wafer.number} · `) }).count(),
     ).resolves.toBe(1);
     await screenshot(page, 'lot-maps');
   });

@@ -62,7 +62,7 @@ export function demoMap(): DemoMap {
   }
   return {
     lotCode: 'LV-26-B014',
-    waferNumber: '03',
+    waferNumber: 'W03',
     station: 'Hot chuck South',
     fileName: 'B014-03_map_ring25_280-330K.csv',
     spacingCm,

@@ -3,6 +3,7 @@
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
 import type { LotUniformitySpread, WaferUniformity } from './maps';
+import type { HallAnalysis, HallAt300K } from './hall';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
@@ -196,6 +197,8 @@ export interface SweepAnalysisResponse {
   arrhenius: ArrheniusPoint[];
   suggestedWindows: SuggestedWindow[];
   spec: SpecCheckDto;
+  /** Hall sweeps only: n(T) and mu_H(T) by step, the carrier type and the freeze-out window. */
+  hall?: HallAnalysis;
 }
 
 /** `GET /api/wafers/:id/dopant` answer. */
@@ -244,6 +247,8 @@ export interface LotSummaryWafer extends ValueUncertainty {
    * 23 °C (over the sites not excluded); null otherwise.
    */
   uniformity?: WaferUniformity | null;
+  /** The wafer's latest Hall sweep at 300 K, null when it has none. */
+  hall?: HallAt300K | null;
 }
 
 /** `GET /api/lots/:id/summary` answer. */
@@ -287,5 +292,7 @@ export interface CompareResponse {
     maxTemperatureK: number;
     /** Aligned with temperaturesK; null outside the sweep's own temperature range. */
     resistivityOhmCm: Array<number | null>;
+    /** Hall sweeps only: the sweep at 300 K. */
+    hall?: HallAt300K;
   }>;
 }

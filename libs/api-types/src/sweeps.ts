@@ -1,4 +1,5 @@
 import type { SweepMapInfo } from './maps';
+import type { StationUploadDto } from './station-tokens';
 
 /** How a sweep's readings become resistivity. */
 export const SWEEP_METHODS = [
@@ -7,6 +8,7 @@ export const SWEEP_METHODS = [
   'bar',
   'resistivity',
   'sheet-resistance',
+  'hall',
 ] as const;
 export type SweepMethod = (typeof SWEEP_METHODS)[number];
 
@@ -16,6 +18,9 @@ export type SweepMethod = (typeof SWEEP_METHODS)[number];
  * configuration of a dual-configuration reading); `other` is kept raw only. A map file places
  * each reading at a site: `site-x` and `site-y` in mm from the wafer centre, or `site`, a site
  * number of the pattern named in the upload (`sitePattern`); `site-label` names the site.
+ * `resistance-b` the second van der Pauw configuration (R_B); `other` is kept raw only.
+ * Hall sweeps add `magnetic-field` and either `hall-voltage` (already corrected for offsets) or
+ * the four reversals `hall-voltage-xy` (x the field sign, y the current sign; p = +, n = -).
  */
 export const COLUMN_MEANINGS = [
   'temperature',
@@ -34,6 +39,12 @@ export const COLUMN_MEANINGS = [
   'site-y',
   'site',
   'site-label',
+  'magnetic-field',
+  'hall-voltage',
+  'hall-voltage-pp',
+  'hall-voltage-pn',
+  'hall-voltage-np',
+  'hall-voltage-nn',
 ] as const;
 export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
 
@@ -147,6 +158,8 @@ export interface SweepSummaryDto {
   createdAt: string;
   /** Set when the sweep is a wafer map (its points carry sites). */
   map?: SweepMapInfo | null;
+  /** Set when a probe station posted the sweep with its token. */
+  uploadedVia?: StationUploadDto | null;
 }
 
 /** What the import found and decided, kept with the sweep. */
@@ -157,6 +170,8 @@ export interface SweepParseReport {
   rowCount: number;
   warnings: string[];
   flaggedPoints: number;
+  /** Hall sweeps only: the Hall factor used and what the import found. */
+  hall?: HallImportReport;
 }
 
 /** The file row (1-based line number) a point was read from, cell text keyed by header. */
@@ -182,6 +197,46 @@ export interface SweepPointDto {
   flags: PointFlag[];
   /** Where on the wafer the point was measured (map sweeps), else null or absent. */
   site?: SweepSite | null;
+  /** Measured or derived quantities beyond resistivity (Hall sweeps), null when none. */
+  quantities?: PointQuantities | null;
+}
+
+/**
+ * Quantities a point carries beyond the fixed columns, stored as one JSON document per point
+ * (`sweep_points.quantities`). Keys are camelCase with their unit in the name; a new measured
+ * quantity is a new key, not a new column.
+ */
+export interface PointQuantities {
+  /** Signed Hall coefficient R_H, cm^3/C (negative for electrons). */
+  hallCoefficientCm3PerC?: number;
+  /** Hall carrier density r_H / (q |R_H|), cm^-3. */
+  carrierDensityCm3?: number;
+  /** Sheet carrier density, cm^-2. */
+  sheetCarrierDensityCm2?: number;
+  /** Hall mobility |R_H| / rho, cm^2/(V s). */
+  hallMobilityCm2PerVs?: number;
+  carrierType?: 'n' | 'p';
+  /** Field the Hall voltage was measured at, T. */
+  magneticFieldT?: number;
+  /** Hall voltage at +B, +I with offsets removed, V. */
+  hallVoltageV?: number;
+  [key: string]: number | string | undefined;
+}
+
+/** Named Hall scattering factors the store request accepts for `hallFactor`. */
+export const HALL_FACTOR_NAMES = ['acoustic-phonon', 'ionized-impurity', 'degenerate'] as const;
+export type HallFactorName = (typeof HALL_FACTOR_NAMES)[number];
+
+/** How a Hall sweep's densities were computed (in its parse report). */
+export interface HallImportReport {
+  /** r_H the densities were divided by (n = r_H / (q |R_H|)). */
+  hallFactor: number;
+  /** The named factor, or null when a number was given. */
+  hallFactorName: HallFactorName | null;
+  /** True when the carrier type changes sign within the sweep (mixed conduction). */
+  mixedConduction: boolean;
+  /** Whether the Hall voltage came from the four reversals or one corrected column. */
+  hallVoltageFrom: 'reversals' | 'corrected-column';
 }
 
 /** A map point's site: mm from the wafer centre (y away from the flat or notch). */

@@ -32,14 +32,39 @@ const FIXED = [
 /** Columns a map sweep's points add after the fixed ones. */
 const SITE = ['site_x_mm', 'site_y_mm', 'site_label'];
 
+/** Quantity keys in the order a Hall export lists them; other keys follow in first-seen order. */
+const QUANTITY_ORDER = [
+  'hallCoefficientCm3PerC',
+  'carrierDensityCm3',
+  'sheetCarrierDensityCm2',
+  'hallMobilityCm2PerVs',
+  'carrierType',
+  'magneticFieldT',
+  'hallVoltageV',
+];
+
+/** The quantity keys the points carry (none for most sweeps), in export order. */
+function quantityKeys(points: SweepPointDto[]): string[] {
+  const seen = new Set<string>();
+  for (const p of points) for (const k of Object.keys(p.quantities ?? {})) seen.add(k);
+  const known = QUANTITY_ORDER.filter((k) => seen.has(k));
+  return [...known, ...[...seen].filter((k) => !QUANTITY_ORDER.includes(k))];
+}
+
+/** camelCase with units to the export's snake_case: `carrierDensityCm3` → `carrier_density_cm3`. */
+const snake = (key: string) => key.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
+
 /**
  * The points as CSV: stored values first (with the site of a map sweep's points), then the
- * file's own columns as read.
+ * quantities beyond resistivity (Hall sweeps), then the file's own columns as read.
  */
 export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): string {
+  const keys = quantityKeys(points);
   const isMap = points.some((p) => p.site);
   const fixed = isMap ? [...FIXED, ...SITE] : FIXED;
-  const header = [...fixed, ...columns.map((c) => `raw ${c.header}`)].map(csvCell).join(',');
+  const header = [...fixed, ...keys.map(snake), ...columns.map((c) => `raw ${c.header}`)]
+    .map(csvCell)
+    .join(',');
   const lines = [header];
   for (const p of points) {
     const raw = columns.map((c) => p.raw.map((r) => r.values[c.header] ?? '').join(' | '));
@@ -55,6 +80,7 @@ export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): stri
         p.resistivityOhmCm,
         p.flags.join(' '),
         ...(isMap ? [p.site?.xMm ?? null, p.site?.yMm ?? null, p.site?.label ?? null] : []),
+        ...keys.map((k) => p.quantities?.[k] ?? null),
         ...raw,
       ]
         .map((v) => csvCell(v))

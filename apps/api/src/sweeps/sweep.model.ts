@@ -30,6 +30,8 @@ export class Sweep extends Model<InferAttributes<Sweep>, InferCreationAttributes
   declare mapInfo: unknown;
   declare deletedAt: CreationOptional<Date | null>;
   declare deletedById: number | null;
+  /** The station token a station post came with; null for an ordinary upload. */
+  declare stationTokenId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -55,6 +57,8 @@ export class SweepPoint extends Model<
   declare siteYMm: CreationOptional<number | null>;
   declare siteLabel: CreationOptional<string | null>;
   declare edgeFactor: CreationOptional<number | null>;
+  /** Quantities beyond resistivity (`PointQuantities`), null for most sweeps. */
+  declare quantities: CreationOptional<unknown>;
 }
 
 /** Raw upload bytes, kept byte for byte (the database storage implementation). */
@@ -83,6 +87,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       metadata: jsonColumn('metadata'),
       parseReport: jsonColumn('parseReport', false),
       pointCount: { type: DataTypes.INTEGER, allowNull: false },
+      stationTokenId: DataTypes.INTEGER,
       minTemperatureK: DataTypes.DOUBLE,
       maxTemperatureK: DataTypes.DOUBLE,
       mapInfo: jsonColumn('mapInfo'),
@@ -111,6 +116,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       siteYMm: { type: DataTypes.DOUBLE, field: 'site_y_mm' },
       siteLabel: DataTypes.STRING(64),
       edgeFactor: DataTypes.DOUBLE,
+      quantities: jsonColumn('quantities'),
     },
     { sequelize, tableName: 'sweep_points', underscored: true, timestamps: false },
   );

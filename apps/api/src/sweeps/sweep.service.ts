@@ -6,6 +6,8 @@ import { promisify } from 'node:util';
 import { gzip as gzipCallback } from 'node:zlib';
 import type {
   PointFlag,
+  StationUploadDto,
+  PointQuantities,
   SweepColumn,
   SweepDto,
   SweepGeometry,
@@ -23,6 +25,7 @@ import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
 import type { SweepActor } from './sweep-import.service';
+import { stationUploadsOf } from '../station-tokens/station-tokens.service';
 import { SweepCache } from './sweep-cache';
 import { Sweep, SweepPoint } from './sweep.model';
 
@@ -36,7 +39,11 @@ export {
 } from './sweep-import.service';
 import { inTransaction } from '../db/connection';
 
-function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
+function summary(
+  sweep: Sweep,
+  uploaderName: string | null,
+  via: Map<number, StationUploadDto>,
+): SweepSummaryDto {
   return {
     id: sweep.id,
     waferId: sweep.waferId,
@@ -53,6 +60,7 @@ function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
     map: (sweep.mapInfo as SweepMapInfo | null) ?? null,
+    uploadedVia: sweep.stationTokenId ? (via.get(sweep.stationTokenId) ?? null) : null,
   };
 }
 
@@ -75,7 +83,8 @@ export async function listSweeps(waferId: number, actor: SweepActor): Promise<Sw
     ],
   });
   const names = await uploaderNames(sweeps);
-  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null));
+  const via = await stationUploadsOf(sweeps.map((s) => s.stationTokenId));
+  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null, via));
 }
 
 interface StoredRaw {
@@ -107,7 +116,7 @@ async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
   const { sweep, uploaderName } = await visibleSweepWithUploader(actor, id);
   const columns = sweep.columnMapping as SweepColumn[];
   const head = {
-    ...summary(sweep, uploaderName),
+    ...summary(sweep, uploaderName, await stationUploadsOf([sweep.stationTokenId])),
     columns,
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,
@@ -145,8 +154,15 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
         p.siteXMm === null || p.siteYMm === null
           ? null
           : { xMm: Number(p.siteXMm), yMm: Number(p.siteYMm), label: p.siteLabel },
+      // Only sweeps that have quantities carry the key: most points stay as small as before.
+      ...(p.quantities ? { quantities: quantitiesOf(p.quantities) } : {}),
     };
   });
+}
+
+/** A stored quantities document (text from a raw read). */
+function quantitiesOf(stored: unknown): PointQuantities {
+  return (typeof stored === 'string' ? JSON.parse(stored) : stored) as PointQuantities;
 }
 
 /** The sweep with its columns, metadata, report and every point in sequence. */

@@ -10,6 +10,7 @@ import { PolarityPairer, type ReadingGroup } from './pair-polarities';
 import { RowReader } from './read-row';
 import type { Slice } from './read-table';
 import type { SitePlacer } from './sites';
+import type { MethodSettings } from './methods';
 import { pointMaker } from './to-point';
 
 /** Converts a file's records to points a slice at a time. */
@@ -28,13 +29,14 @@ export class RowConverter {
     columns: ResolvedColumn[],
     method: SweepMethod,
     geometry: SweepGeometry,
+    settings?: MethodSettings,
     placer: ((problems: RowProblem[]) => SitePlacer) | null = null,
   ) {
     this.problems = [...parsed.problems];
     const currentA = parsed.recognised.currentA;
     this.rows = new RowReader(parsed, columns, method, geometry, currentA, this.problems);
     this.placer = placer ? placer(this.problems) : null;
-    this.toPoint = pointMaker(method, geometry, columns, this.problems, this.placer);
+    this.toPoint = pointMaker(method, geometry, columns, this.problems, settings, this.placer);
   }
 
   /** True while more problems may still be collected. */

@@ -60,6 +60,9 @@ export function requireColumns(
       problem: 'a map needs both site coordinates: map a site-x and a site-y column (mm)',
     });
   }
+  for (const problem of entry.columnProblems?.(has, constantCurrentA) ?? []) {
+    problems.push({ field: 'columns', problem });
+  }
   for (const c of columns) {
     if (!UNITLESS.has(c.meaning) && !c.unitInfo) {
       problems.push({

@@ -2,7 +2,7 @@
  * What the import stages hand each other: a row read in stored units (`Reading`), and the point
  * made from one reading or a forward/reverse pair (`ConvertedPoint`).
  */
-import type { PointFlag, SweepSite } from '@rhotrace/api-types';
+import type { PointFlag, PointQuantities, SweepSite } from '@rhotrace/api-types';
 
 /** Where a row says it was measured: coordinates in mm, or a pattern's site number. */
 export type RowSite =
@@ -26,6 +26,12 @@ export interface Reading {
   resistivityOhmCm: number | null;
   /** The row's site (map files), else null or absent. */
   site?: RowSite | null;
+  /** Hall sweeps: the field's magnitude, T. */
+  magneticFieldT?: number | null;
+  /** Hall sweeps: one Hall voltage already corrected for offsets, V. */
+  hallVoltageV?: number | null;
+  /** Hall sweeps: the four field and current reversals (xy = field sign, current sign), V. */
+  hallReversalsV?: { pp: number; pn: number; np: number; nn: number } | null;
 }
 
 /** A converted point, ready to store. */
@@ -44,6 +50,8 @@ export interface ConvertedPoint {
   site?: SweepSite | null;
   /** The edge factor the reading was divided by (map sweeps with a collinear probe). */
   edgeFactor?: number | null;
+  /** Quantities beyond resistivity (Hall sweeps), stored as `sweep_points.quantities`. */
+  quantities?: PointQuantities | null;
 }
 
 /** Row numbers for a warning, the first ten and a count of the rest. */

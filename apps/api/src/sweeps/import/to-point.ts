@@ -6,12 +6,18 @@
  * `SitePlacer`) is placed on the wafer and divided by its edge factor; a map converts without
  * the centred-slice diameter correction, which the edge factor replaces.
  */
-import type { PointFlag, RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
+import type {
+  ColumnMeaning,
+  PointFlag,
+  RowProblem,
+  SweepGeometry,
+  SweepMethod,
+} from '@rhotrace/api-types';
 import { PhysicsInputError } from '@rhotrace/physics';
 import { validationFailed } from '../../errors';
 import { rowProblem, type ResolvedColumn } from '../parse';
 import type { ConvertedPoint, Reading } from './import-types';
-import { POINT_METHODS, type PointInput, type PointValues } from './methods';
+import { POINT_METHODS, type MethodSettings, type PointInput, type PointValues } from './methods';
 import type { ReadingGroup } from './pair-polarities';
 import { dualConfigurationConverter, type SitePlacer } from './sites';
 
@@ -23,6 +29,13 @@ const GEOMETRY_ARGUMENTS: ReadonlySet<string> = new Set([
   'lengthCm',
   'widthCm',
 ]);
+
+/** The column a refused Hall argument comes from (the first of the alternatives mapped). */
+const HALL_ARGUMENT_COLUMNS: Readonly<Record<string, ColumnMeaning[]>> = {
+  'input.hallVoltageV': ['hall-voltage', 'hall-voltage-pp'],
+  'input.magneticFieldT': ['magnetic-field'],
+  'input.currentA': ['current'],
+};
 
 /** Refused together when V/I is zero or negative. */
 const VOLTAGE_OVER_CURRENT = 'voltageV and currentA';
@@ -45,6 +58,10 @@ function pointInput(f: Reading, r: Reading | undefined): PointInput {
     resistanceBOhm: pairMean(f.resistanceBOhm, r.resistanceBOhm),
     sheetResistanceOhmSq: pairMean(f.sheetResistanceOhmSq, r.sheetResistanceOhmSq),
     resistivityOhmCm: pairMean(f.resistivityOhmCm, r.resistivityOhmCm),
+    // Hall readings reverse their current within a row; a pair keeps the forward one's.
+    magneticFieldT: f.magneticFieldT ?? null,
+    hallVoltageV: f.hallVoltageV ?? null,
+    hallReversalsV: f.hallReversalsV ?? null,
   };
 }
 
@@ -58,15 +75,21 @@ export function pointMaker(
   geometry: SweepGeometry,
   columns: ResolvedColumn[],
   problems: RowProblem[],
+  settings: MethodSettings = { hallFactor: 1 },
   placer: SitePlacer | null = null,
 ): (group: ReadingGroup) => ConvertedPoint | null {
   const correction = placer?.info.correction ?? 'none';
   const compute: (input: PointInput) => PointValues & { edgeFactor?: number } =
     correction === 'dual-configuration'
       ? dualConfigurationConverter(geometry)
-      : POINT_METHODS[method].converter(placer ? withoutDiameter(geometry) : geometry);
+      : POINT_METHODS[method].converter(placer ? withoutDiameter(geometry) : geometry, settings);
   const valueColumn =
     columns.find((c) => c.meaning === 'voltage' || c.meaning === 'resistance')?.header ?? null;
+  const columnOf = (argument: string): string | null => {
+    const meanings = HALL_ARGUMENT_COLUMNS[argument];
+    if (!meanings) return valueColumn;
+    return columns.find((c) => meanings.includes(c.meaning))?.header ?? valueColumn;
+  };
   return ({ forward: f, reverse: r, flag }) => {
     const input = pointInput(f, r);
     const placement = placer ? placer.place(f) : null;
@@ -94,10 +117,12 @@ export function pointMaker(
       problems.push(
         rowProblem(
           f.row,
-          valueColumn,
+          columnOf(error.argument),
           error.argument === VOLTAGE_OVER_CURRENT
             ? 'voltage and current have opposite signs (a negative resistance); check the wiring or the polarity column'
-            : `the resistivity cannot be computed: ${error.requirement}`,
+            : HALL_ARGUMENT_COLUMNS[error.argument]
+              ? `the Hall coefficient cannot be computed: ${error.requirement}`
+              : `the resistivity cannot be computed: ${error.requirement}`,
         ),
       );
       return null;
@@ -127,6 +152,7 @@ export function pointMaker(
       flags,
       site: placement?.site ?? null,
       edgeFactor,
+      ...(values.quantities ? { quantities: values.quantities } : {}),
     };
   };
 }

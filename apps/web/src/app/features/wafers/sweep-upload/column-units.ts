@@ -18,6 +18,12 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   'site-y': ['mm', 'cm', 'um'],
   site: [],
   'site-label': [],
+  'magnetic-field': ['T', 'mT', 'G', 'kG'],
+  'hall-voltage': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-pp': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-pn': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-np': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-nn': ['V', 'mV', 'uV', 'nV'],
 };
 
 /** Words shown for each column meaning. */
@@ -38,6 +44,12 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   'site-y': 'Map site y (away from the flat or notch)',
   site: 'Map site number (of the chosen pattern)',
   'site-label': 'Map site name',
+  'magnetic-field': 'Magnetic field',
+  'hall-voltage': 'Hall voltage (offsets removed)',
+  'hall-voltage-pp': 'Hall voltage at +B, +I',
+  'hall-voltage-pn': 'Hall voltage at +B, −I',
+  'hall-voltage-np': 'Hall voltage at −B, +I',
+  'hall-voltage-nn': 'Hall voltage at −B, −I',
 };
 
 /** Words shown for each measurement method. */
@@ -47,6 +59,7 @@ export const METHOD_WORDS: Record<SweepMethod, string> = {
   bar: 'Bar with contacts',
   resistivity: 'Resistivity already computed',
   'sheet-resistance': 'Sheet resistance already computed',
+  hall: 'Hall effect (van der Pauw with a field)',
 };
 
 /** A unit label as a person writes it: degC → °C, ohm → Ω, u → µ. */
