@@ -4,19 +4,19 @@ import { MAP_CORRECTIONS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 
-/** What a map sweep records about its wafer and conversion. */
-export const sweepMapInfoSchema = registry.register(
-  'SweepMapInfo',
-  z
-    .object({
-      diameterMm: z.number(),
-      edgeExclusionMm: z.number(),
-      pattern: z.string().nullable(),
-      correction: z.enum(MAP_CORRECTIONS),
-      probeSpacingMm: z.number().nullable(),
-    })
-    .strict(),
-) satisfies z.ZodType<SweepMapInfo>;
+/**
+ * What a map sweep records about its wafer and conversion. Not a named component: a nullable
+ * reference to one comes out of the generator without `null` (OpenAPI 3.1), so it is inlined.
+ */
+export const sweepMapInfoSchema = z
+  .object({
+    diameterMm: z.number(),
+    edgeExclusionMm: z.number(),
+    pattern: z.string().nullable(),
+    correction: z.enum(MAP_CORRECTIONS),
+    probeSpacingMm: z.number().nullable(),
+  })
+  .strict() satisfies z.ZodType<SweepMapInfo>;
 
 const site = z
   .object({

@@ -29,9 +29,7 @@ import { WaferMap } from '../wafer-map/wafer-map';
                 [outline]="w.outline"
                 [range]="range()"
                 [cells]="28"
-                [caption]="
-                  'W' + w.waferNumber + ' · ' + w.atTemperature.temperatureK.toFixed(1) + ' K'
-                "
+                [caption]="w.waferNumber + ' · ' + w.atTemperature.temperatureK.toFixed(1) + ' K'"
               />
             }
           </div>
