@@ -157,6 +157,17 @@ export const lotSummaryResponse = z
               .strict(),
           ),
           hall: hallAt300KSchema.nullable().optional(),
+          uniformity: z
+            .object({
+              temperatureK: z.number(),
+              siteCount: z.number().int(),
+              stdDevPercent: nullableNumber,
+              rangePercent: z.number(),
+            })
+            .strict()
+            .nullable()
+            .optional()
+            .describe("A map wafer's uniformity at the step nearest 23 °C"),
         })
         .strict(),
     ),
@@ -176,6 +187,18 @@ export const lotSummaryResponse = z
         maxOhmCm: nullableNumber,
         cpk: nullableNumber,
         cpkReason: z.string().nullable(),
+        uniformity: z
+          .object({
+            count: z.number().int(),
+            meanStdDevPercent: z.number(),
+            minStdDevPercent: z.number(),
+            maxStdDevPercent: z.number(),
+            stdDevOfStdDevPercent: nullableNumber,
+          })
+          .strict()
+          .nullable()
+          .optional()
+          .describe("The spread of the map wafers' uniformities"),
       })
       .strict(),
   })

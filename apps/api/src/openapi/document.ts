@@ -12,6 +12,7 @@ import { registerAuthApi } from '../auth/auth.openapi';
 import { registerFitsApi } from '../fits/fit.openapi';
 import { registerHealthApi } from '../health/health.openapi';
 import { registerLotsApi } from '../lots/lots.openapi';
+import { registerMapsApi } from '../maps/maps.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
 import { registerStationPostApi } from '../station-posts/station-post.openapi';
@@ -44,6 +45,7 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerReportsApi,
   registerDevMailApi,
   registerSearchApi,
+  registerMapsApi,
 ];
 
 /** The generated document (OpenAPI 3.1). */

@@ -10,10 +10,12 @@
 import { createHash } from 'node:crypto';
 import type {
   HallFactorName,
+  RowProblem,
   SessionUser,
   SweepColumnOverride,
   SweepCreatedResponse,
   SweepGeometryInput,
+  SweepMapInput,
   SweepMethod,
   SweepPreviewResponse,
 } from '@rhotrace/api-types';
@@ -25,7 +27,7 @@ import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter } from './import/convert-rows';
-import type { ConvertedPoint } from './import/import-types';
+import { listRows, type ConvertedPoint } from './import/import-types';
 import { detectColumns, publicColumns } from './import/detect-columns';
 import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
@@ -42,6 +44,7 @@ import {
   type ResolvedColumn,
 } from './parse';
 import { resolveGeometry } from './import/resolve-geometry';
+import { hasSites, SitePlacer } from './import/sites';
 import { Sweep } from './sweep.model';
 
 /** Rows the preview shows. */
@@ -59,6 +62,8 @@ export interface ImportSweepInput {
   stationId?: number | null;
   columns?: SweepColumnOverride[];
   geometry?: SweepGeometryInput;
+  /** Map fields (site pattern, edge exclusion); used when the columns place readings at sites. */
+  map?: SweepMapInput;
   /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
   hallFactor?: number | HallFactorName;
 }
@@ -131,6 +136,16 @@ function lostSweepRow(error: unknown): never {
   if (e?.errno === 1452 || e?.original?.errno === 1452)
     throw new TransactionLostError('a point batch found no sweep row');
   throw error;
+}
+
+/** What the map stage noticed without refusing it. */
+function mapWarnings(converter: RowConverter): string[] {
+  const rows = converter.placer?.tipOffWafer ?? [];
+  if (!rows.length) return [];
+  return [
+    `${rows.length} site(s) lie so near the edge that the probe's outer tip is off the wafer; ` +
+      `they are kept but excluded, with the edge factor of a tip on the edge (rows ${listRows(rows)})`,
+  ];
 }
 
 /** One attempt: the file is read again, so a retry starts from the same bytes. */
@@ -214,9 +229,14 @@ async function storeSweep(
     station,
     file: parsed.recognised,
     needsRtd: columns.find((c) => c.meaning === 'temperature')?.unitInfo?.kind === 'resistance',
+    isMap: hasSites(columns),
   });
+  const placer = hasSites(columns)
+    ? (problems: RowProblem[]) =>
+        new SitePlacer(input.map ?? {}, input.method, columns, geometry, problems)
+    : null;
   const settings = hallSettings(input.method, input.hallFactor);
-  const converter = new RowConverter(parsed, columns, input.method, geometry, settings);
+  const converter = new RowConverter(parsed, columns, input.method, geometry, settings, placer);
   const finder = new SuspiciousPointFinder();
   const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
   const hall = input.method === 'hall' ? new HallSummary(settings, reversals) : null;
@@ -236,6 +256,7 @@ async function storeSweep(
       storageKey: rawKey,
       columnMapping: publicColumns(columns),
       metadata: parsed.layout.metadata,
+      mapInfo: converter.placer?.info ?? null,
     },
     rawJson(parsed),
     transaction,
@@ -257,7 +278,12 @@ async function storeSweep(
     throw error;
   }
   const flags = finder.finish();
-  warnings.push(...converter.warnings, ...flags.warnings, ...(hall?.warnings ?? []));
+  warnings.push(
+    ...converter.warnings,
+    ...flags.warnings,
+    ...(hall?.warnings ?? []),
+    ...mapWarnings(converter),
+  );
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,

@@ -8,6 +8,7 @@ import { COLUMN_MEANINGS, POINT_FLAGS, SWEEP_METHODS } from '@rhotrace/api-types
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { dateTime, fileBody } from '../openapi/shapes';
+import { sweepMapInfoSchema } from '../maps/maps.openapi';
 import { storeSchema } from './sweep.schemas';
 import { hallImportReportSchema, pointQuantitiesSchema } from '../analysis/hall-responses';
 
@@ -65,6 +66,10 @@ const summaryShape = {
     .nullable()
     .optional()
     .describe('Set when a probe station posted the sweep with its token'),
+  map: sweepMapInfoSchema
+    .nullable()
+    .optional()
+    .describe('Set when the sweep is a wafer map (its points carry sites)'),
 };
 
 /** A sweep without its points. */
@@ -86,6 +91,12 @@ const point = z
     resistivityOhmCm: z.number(),
     flags: z.array(z.enum(POINT_FLAGS)),
     quantities: pointQuantitiesSchema.nullable().optional(),
+    site: z
+      .object({ xMm: z.number(), yMm: z.number(), label: z.string().nullable() })
+      .strict()
+      .nullable()
+      .optional()
+      .describe('Where on the wafer (map sweeps), mm from the centre'),
   })
   .strict();
 

@@ -1,4 +1,5 @@
 import { HttpEventType } from '@angular/common/http';
+import { SITE_PATTERN_IDS } from '@rhotrace/physics';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -83,6 +84,14 @@ export class SweepUpload {
   protected readonly method = signal<SweepMethod | null>(null);
   protected readonly stationId = signal<number | null>(null);
   protected readonly geometry = signal<SweepGeometryInput>({});
+  /** Map fields: the pattern a `site` column numbers, and the edge exclusion (mm). */
+  protected readonly sitePatterns = SITE_PATTERN_IDS;
+  protected readonly sitePattern = signal<string>('');
+  protected readonly edgeExclusionMm = signal<number | undefined>(undefined);
+  /** True when a file's columns place readings at sites. */
+  protected readonly hasSites = computed(() =>
+    this.items().some((i) => i.columns.some((c) => c.meaning === 'site' || c.meaning === 'site-x')),
+  );
   protected readonly ready = computed(() => this.items().filter((i) => i.status === 'ready'));
   protected readonly busy = computed(() =>
     this.items().some((i) => i.status === 'uploading' || i.status === 'reading'),
@@ -130,6 +139,10 @@ export class SweepUpload {
     this.patchColumn(key, index, (c) => ({ ...c, unit, confidence: 1 }));
   }
 
+  protected setEdgeExclusion(raw: string): void {
+    this.edgeExclusionMm.set(raw === '' ? undefined : Number(raw));
+  }
+
   protected setGeometry(key: keyof SweepGeometryInput, raw: string): void {
     const value = raw === '' ? undefined : Number(raw);
     this.geometry.update((g) => ({ ...g, [key]: value }));
@@ -159,6 +172,12 @@ export class SweepUpload {
         stationId: this.stationId(),
         columns,
         geometry: this.geometry(),
+        map: {
+          ...(this.sitePattern() ? { sitePattern: this.sitePattern() } : {}),
+          ...(this.edgeExclusionMm() !== undefined
+            ? { edgeExclusionMm: this.edgeExclusionMm() }
+            : {}),
+        },
       })
       .subscribe({
         next: (event) => {
