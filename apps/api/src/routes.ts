@@ -15,6 +15,7 @@ import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { plannerRouter } from './planner/planner.router';
+import { openApiRouter } from './openapi/openapi.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -22,6 +23,7 @@ import { plannerRouter } from './planner/planner.router';
 export function apiRoutes(deps: AppDeps): Router {
   const router = Router();
   router.use(healthRouter(deps));
+  router.use(openApiRouter());
   router.use(activityRouter(deps));
   router.use(sweepRouter(deps));
   router.use(authRouter(deps));

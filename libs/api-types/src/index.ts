@@ -52,6 +52,7 @@ export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
 export type { Page, HealthResponse } from './common';
 export { ERROR_STATUS } from './errors';
 export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
+export { PARAMETER_WORDS, KIND_WORDS } from './fit-words';
 export { FIT_KINDS, FIT_EXCLUDED_FLAGS } from './fits';
 export type {
   FitKind,
@@ -98,6 +99,7 @@ export type {
   WaferDto,
   StationDto,
   AssignmentDto,
+  AuditChangeDto,
   AuditEventDto,
   LotListQuery,
   WaferListQuery,

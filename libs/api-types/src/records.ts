@@ -98,6 +98,16 @@ export interface AssignmentDto {
   updatedAt: string;
 }
 
+/** One changed field of an audit event, in words: values with units, ids as names. */
+export interface AuditChangeDto {
+  /** The stored field name (for scripts); `label` is what people read. */
+  field: string;
+  label: string;
+  /** null when the record did not exist before (created) or after (deleted). */
+  before: string | null;
+  after: string | null;
+}
+
 export interface AuditEventDto {
   id: number;
   actorId: number | null;
@@ -108,6 +118,10 @@ export interface AuditEventDto {
   before: unknown;
   after: unknown;
   requestId: string | null;
+  /** The record in words, e.g. "wafer W03 of lot L-7" or "task on wafer W03 of lot L-7". */
+  recordName: string | null;
+  /** The fields that changed, in words. */
+  changes: AuditChangeDto[];
   createdAt: string;
 }
 

@@ -2,13 +2,14 @@ import { simpleParser } from 'mailparser';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AssignmentDto } from '@rhotrace/api-types';
+import { documentProblems } from '../openapi/testing/document-validator';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { Assignment } from './assignment.model';
 import { AssignmentPlan } from './assignment-plan.model';
 import { CRYOGEN, DEFER_TO_LAB_RULES } from './assignment-safety';
 import { engineering } from '../mail/templates/plan-summary';
 
-async function waitFor<T>(probe: () => T | undefined, timeoutMs = 8_000): Promise<T> {
+async function waitFor<T>(probe: () => T | undefined, timeoutMs = 20_000): Promise<T> {
   const start = Date.now();
   for (;;) {
     const value = probe();
@@ -78,10 +79,12 @@ describe('a measurement plan attached to an assignment', () => {
     const res = await assign({ plan: planFor(waferId) });
     expect(res.status).toBe(201);
     const dto = res.body as AssignmentDto;
+    expect(documentProblems('POST', '/assignments', 201, res.body)).toEqual([]);
     expect(dto.plan!.plan.steps).toHaveLength(6);
     expect(dto.plan!.request.minK).toBe(80);
     const queue = await request(ctx.app).get('/api/assignments?assignee=me').set(tech.header);
     const mine = (queue.body.items as AssignmentDto[]).find((a) => a.id === dto.id)!;
+    expect(documentProblems('GET', '/assignments', 200, queue.body)).toEqual([]);
     expect(mine.plan!.plan).toEqual(dto.plan!.plan);
     const message = await waitFor(() =>
       ctx.mailbox.slice(before).find((m) => m.to.includes(tech.user.email)),

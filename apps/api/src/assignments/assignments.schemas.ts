@@ -57,6 +57,8 @@ export const listQuery = listQuerySchema(ASSIGNMENT_SORT_FIELDS, {
   state: state.optional(),
   waferId: idParam.optional(),
   overdue: booleanParam,
+  /** true: only assigned or in progress; false: only done or cancelled. */
+  open: booleanParam,
 });
 
 export const overdueQuery = listQuerySchema(ASSIGNMENT_SORT_FIELDS, {

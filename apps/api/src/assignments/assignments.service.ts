@@ -167,6 +167,7 @@ export interface AssignmentListOptions {
   state?: AssignmentState;
   waferId?: number;
   overdue?: boolean;
+  open?: boolean;
 }
 
 /** A page of assignments; technicians may only list their own (403 for anyone else's). */
@@ -185,6 +186,9 @@ export async function listAssignments(
   if (assigneeId !== undefined) where.push({ assigneeId });
   if (options.state) where.push({ state: options.state });
   if (options.waferId) where.push({ waferId: options.waferId });
+  if (options.open !== undefined) {
+    where.push({ state: { [options.open ? Op.in : Op.notIn]: OPEN_STATES } });
+  }
   if (options.overdue === true) {
     where.push({ state: { [Op.in]: OPEN_STATES }, dueDate: { [Op.lt]: todayIso() } });
   } else if (options.overdue === false) {

@@ -27,3 +27,8 @@ export class Downloader {
     setTimeout(() => URL.revokeObjectURL(href), 10_000);
   }
 }
+
+/** A record's name made safe for a file name (anything but letters, digits, '.', '-' becomes '_'). */
+export function safeName(name: string): string {
+  return name.replace(/[^\w.-]+/g, '_');
+}

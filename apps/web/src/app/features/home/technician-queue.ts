@@ -25,7 +25,7 @@ import { PlanView } from '../planner/plan-view/plan-view';
       @for (a of open(); track a.id) {
         <li class="card" [class.overdue]="a.overdue">
           <a class="title" [routerLink]="['/wafers', a.waferId]"
-            >Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a
+            >Lot {{ a.lotCode }} · Wafer {{ a.waferNumber }}</a
           >
           <span>{{ a.task }}</span>
           <span class="due"

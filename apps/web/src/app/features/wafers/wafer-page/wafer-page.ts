@@ -28,6 +28,7 @@ import { SweepUpload } from '../sweep-upload/sweep-upload';
 import { WafersApi } from '../wafers-api';
 import { PlanForm } from '../../planner/plan-form/plan-form';
 import { PlanView } from '../../planner/plan-view/plan-view';
+import { RecordHistory } from '../../../shared/record-history/record-history';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
@@ -41,6 +42,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
 @Component({
   selector: 'rt-wafer-page',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatSelectModule,
