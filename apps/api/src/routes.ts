@@ -10,12 +10,15 @@ import { authRouter } from './auth/auth.router';
 import { usersRouter } from './users/users.router';
 import { lotsRouter } from './lots/lots.router';
 import { wafersRouter } from './wafers/wafers.router';
+import { stationPostRouter } from './station-posts/station-post.router';
+import { stationTokensRouter } from './station-tokens/station-tokens.router';
 import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
-import { plannerRouter } from './planner/planner.router';
 import { openApiRouter } from './openapi/openapi.router';
+import { searchRouter } from './search/search.router';
+import { plannerRouter } from './planner/planner.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -31,8 +34,11 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(lotsRouter(deps));
   router.use(wafersRouter(deps));
   router.use(stationsRouter(deps));
+  router.use(stationTokensRouter(deps));
+  router.use(stationPostRouter(deps));
   router.use(auditRouter(deps));
   router.use(assignmentsRouter(deps));
+  router.use(searchRouter(deps));
   router.use(devMailRouter(deps));
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));

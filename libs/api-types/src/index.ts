@@ -61,10 +61,12 @@ export type {
   FitCorrelation,
   FitGoodness,
   FitInterpretation,
+  HallScattering,
   FitCurvature,
   FitDto,
   FitPreviewDto,
 } from './fits';
+export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
 export { PLAN_SPACINGS, PLAN_METHODS, CURRENT_LIMITS } from './planner';
 export type {
   PlanSpacing,
@@ -100,6 +102,7 @@ export type {
   StationDto,
   AssignmentDto,
   AuditChangeDto,
+  AssignmentStationUpload,
   AuditEventDto,
   LotListQuery,
   WaferListQuery,
@@ -110,6 +113,8 @@ export type {
   UpdateAssignmentRequest,
   AuditListQuery,
 } from './records';
+export { SEARCH_KINDS } from './search';
+export type { SearchKind, SearchHit, SearchGroup, SearchResponse } from './search';
 export { UNCERTAINTY_SOURCES, SPEC_VERDICT_WORDS, SPEC_VERDICT_MEANINGS } from './spec';
 export type {
   ValueAt23CMethod,
@@ -119,7 +124,21 @@ export type {
   ValueUncertainty,
   LotCapability,
 } from './spec';
-export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
+export { STATION_TOKEN_PREFIX } from './station-tokens';
+export type {
+  CreateStationTokenRequest,
+  StationTokenDto,
+  StationTokenCreatedResponse,
+  StationUploadDto,
+  StationSweepCreatedResponse,
+} from './station-tokens';
+export {
+  SWEEP_METHODS,
+  COLUMN_MEANINGS,
+  POINT_FLAGS,
+  JUMP_FACTOR,
+  HALL_FACTOR_NAMES,
+} from './sweeps';
 export type {
   SweepMethod,
   ColumnMeaning,
@@ -137,5 +156,8 @@ export type {
   SweepParseReport,
   RawReading,
   SweepPointDto,
+  PointQuantities,
+  HallFactorName,
+  HallImportReport,
   SweepDto,
 } from './sweeps';

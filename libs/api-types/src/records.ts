@@ -92,6 +92,10 @@ export interface AssignmentDto {
   overdue: boolean;
   /** Safety notes for this task and wafer material (they defer to the lab's own rules). */
   safetyCautions?: string[];
+  /** The probe station the wafer is to be measured on; its token may post the sweep. */
+  stationId?: number | null;
+  /** The sweep the station posted for this assignment, when one did. */
+  stationUpload?: AssignmentStationUpload | null;
   /** The measurement plan attached to the assignment, when one is. */
   plan?: AssignmentPlanDto | null;
   createdAt: string;
@@ -106,6 +110,14 @@ export interface AuditChangeDto {
   /** null when the record did not exist before (created) or after (deleted). */
   before: string | null;
   after: string | null;
+}
+
+/** A station's post that fulfilled an assignment. */
+export interface AssignmentStationUpload {
+  sweepId: number;
+  stationName: string;
+  tokenLabel: string;
+  postedAt: string;
 }
 
 export interface AuditEventDto {
@@ -183,6 +195,7 @@ export interface CreateAssignmentRequest {
   task: string;
   dueDate: string;
   notes?: string | null;
+  stationId?: number | null;
 }
 
 export interface UpdateAssignmentRequest {
@@ -191,6 +204,7 @@ export interface UpdateAssignmentRequest {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
 }
 
 /** `GET /api/audit` filters: `entity` (lot, wafer, station, assignment, user), `id`, `actorId`. */

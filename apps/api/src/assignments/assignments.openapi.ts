@@ -2,7 +2,7 @@ import type { AssignmentDto } from '@rhotrace/api-types';
 import { ASSIGNMENT_STATES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
-import { pageOf, timestamps } from '../openapi/shapes';
+import { dateTime, pageOf, timestamps } from '../openapi/shapes';
 import { assignmentPlanSchema } from '../planner/planner.openapi';
 import { createBody, listQuery, overdueQuery, updateBody } from './assignments.schemas';
 
@@ -25,6 +25,17 @@ export const assignmentDtoSchema = registry.register(
       overdue: z.boolean(),
       safetyCautions: z.array(z.string()).optional(),
       plan: assignmentPlanSchema.nullable().optional(),
+      stationId: z.number().int().nullable().optional(),
+      stationUpload: z
+        .object({
+          sweepId: z.number().int(),
+          stationName: z.string(),
+          tokenLabel: z.string(),
+          postedAt: dateTime,
+        })
+        .strict()
+        .nullable()
+        .optional(),
       ...timestamps,
     })
     .strict(),

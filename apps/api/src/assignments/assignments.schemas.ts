@@ -27,12 +27,15 @@ export const fields = {
   task: requiredText(500),
   dueDate: isoDate,
   notes: optionalText(LIMITS.notes),
+  /** The probe station to measure on (optional); its station token may post the sweep. */
+  stationId: id.nullable(),
 };
 
 export const createBody = z
   .object({
     ...fields,
     notes: fields.notes.transform((v) => v ?? null),
+    stationId: fields.stationId.optional().default(null),
     plan: plannerSchema.optional(),
   })
   .strict();
@@ -44,6 +47,7 @@ export const updateBody = z
     dueDate: fields.dueDate.optional(),
     notes: fields.notes,
     assigneeId: fields.assigneeId.optional(),
+    stationId: fields.stationId.optional(),
     plan: plannerSchema.nullable().optional(),
   })
   .strict();

@@ -1,5 +1,6 @@
 import {
   type AssignmentDto,
+  type AssignmentStationUpload,
   type AssignmentState,
   type Page,
   type SessionUser,
@@ -13,6 +14,8 @@ import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
 import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
+import { stationUploadsByAssignment } from '../station-posts/station-uploads';
+import { Station } from '../stations/station.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
@@ -30,6 +33,7 @@ interface Related {
   wafers: Map<number, Wafer>;
   lots: Map<number, Lot>;
   users: Map<number, User>;
+  stationUploads: Map<number, AssignmentStationUpload>;
   plans: Map<number, AssignmentPlan>;
 }
 
@@ -46,10 +50,12 @@ async function related(rows: Assignment[], transaction?: Transaction): Promise<R
   const users = userIds.length
     ? await User.findAll({ where: { id: { [Op.in]: userIds } }, transaction })
     : [];
+  const stationed = rows.filter((a) => a.stationId != null).map((a) => a.id);
   return {
     wafers: new Map(wafers.map((w) => [w.id, w])),
     lots: new Map(lots.map((l) => [l.id, l])),
     users: new Map(users.map((u) => [u.id, u])),
+    stationUploads: await stationUploadsByAssignment(stationed, transaction),
     plans: await plansOf(
       rows.map((a) => a.id),
       transaction,
@@ -75,6 +81,8 @@ export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
     notes: a.notes,
     overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
     ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
+    stationId: a.stationId ?? null,
+    ...(r ? { stationUpload: r.stationUploads.get(a.id) ?? null } : {}),
     ...(r ? { plan: r.plans.has(a.id) ? toPlanDto(r.plans.get(a.id)!) : null } : {}),
     createdAt: a.createdAt.toISOString(),
     updatedAt: a.updatedAt.toISOString(),
@@ -132,8 +140,19 @@ export interface NewAssignment {
   task: string;
   dueDate: string;
   notes: string | null;
+  stationId: number | null;
   /** A planner request for the assignment's wafer: the plan computed from it is attached. */
   plan?: PlannerInput;
+}
+
+/** 400 unless `stationId` is null or a station that exists (not deleted). */
+async function knownStation(stationId: number | null | undefined, t: Transaction): Promise<void> {
+  if (stationId == null) return;
+  if (!(await Station.findByPk(stationId, { transaction: t }))) {
+    throw validationFailed('The station does not exist', [
+      { field: 'body.stationId', problem: 'is not a probe station' },
+    ]);
+  }
 }
 
 /**
@@ -150,6 +169,7 @@ export async function createAssignment(
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
     const assignee = await activeAssignee(input.assigneeId, t);
+    await knownStation(input.stationId, t);
     const { plan: planRequest, ...fields } = input;
     const a = await Assignment.create({ ...fields, assignedById: actor.id }, { transaction: t });
     await auditChange(t, actor, 'create', 'assignment', a.id, { after: snapshot(a) });
@@ -226,6 +246,7 @@ export interface AssignmentChanges {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
   /** A new plan for the assignment's wafer, or null to detach the plan. */
   plan?: PlannerInput | null;
 }
@@ -263,6 +284,7 @@ export async function updateAssignment(
         }
       }
     }
+    await knownStation(changes.stationId, t);
     const before = snapshot(a);
     const newAssignee =
       changes.assigneeId !== undefined && changes.assigneeId !== a.assigneeId

@@ -8,6 +8,7 @@ import { initAuditEventModel } from '../audit/audit-event.model';
 import { initFitModel } from '../fits/fit.model';
 import { initLotModel } from '../lots/lot.model';
 import { initOutgoingEmailModel } from '../mail/outgoing-email.model';
+import { initStationTokenModel } from '../station-tokens/station-token.model';
 import { initStationModel } from '../stations/station.model';
 import { initSweepModels } from '../sweeps/sweep.model';
 import { initUserModels } from '../users/user.model';
@@ -45,6 +46,7 @@ export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}
   initLotModel(sequelize);
   initWaferModel(sequelize);
   initStationModel(sequelize);
+  initStationTokenModel(sequelize);
   initAssignmentModel(sequelize);
   initAssignmentPlanModel(sequelize);
   initSweepModels(sequelize);

@@ -15,7 +15,10 @@ import { registerLotsApi } from '../lots/lots.openapi';
 import { registerPlannerApi } from '../planner/planner.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
+import { registerStationPostApi } from '../station-posts/station-post.openapi';
+import { registerStationTokensApi } from '../station-tokens/station-tokens.openapi';
 import { registerStationsApi } from '../stations/stations.openapi';
+import { registerSearchApi } from '../search/search.openapi';
 import { registerSweepsApi } from '../sweeps/sweep.openapi';
 import { registerUsersApi } from '../users/users.openapi';
 import { registerWafersApi } from '../wafers/wafers.openapi';
@@ -31,6 +34,8 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerLotsApi,
   registerWafersApi,
   registerStationsApi,
+  registerStationTokensApi,
+  registerStationPostApi,
   registerAssignmentsApi,
   registerAuditApi,
   registerActivityApi,
@@ -40,6 +45,7 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerReportsApi,
   registerDevMailApi,
   registerPlannerApi,
+  registerSearchApi,
 ];
 
 /** The generated document (OpenAPI 3.1). */

@@ -23,7 +23,8 @@ export function openApiRouter(): Router {
     swaggerUi.serveFiles(undefined, { swaggerOptions: { url: '/api/openapi.json' } }),
     swaggerUi.setup(undefined, {
       customSiteTitle: 'Rhotrace API',
-      customCss: '',
+      // the page is Rhotrace's reference, without the tool's own top bar
+      customCss: '.swagger-ui .topbar { display: none }',
       swaggerOptions: { url: '/api/openapi.json' },
     }),
   );

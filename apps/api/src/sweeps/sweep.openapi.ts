@@ -53,6 +53,17 @@ const summaryShape = {
   minTemperatureK: z.number().nullable(),
   maxTemperatureK: z.number().nullable(),
   createdAt: dateTime,
+  uploadedVia: z
+    .object({
+      stationId: z.number().int(),
+      stationName: z.string(),
+      tokenId: z.number().int(),
+      tokenLabel: z.string(),
+    })
+    .strict()
+    .nullable()
+    .optional()
+    .describe('Set when a probe station posted the sweep with its token'),
 };
 
 /** A sweep without its points. */

@@ -52,6 +52,7 @@ import { HomeApi } from './home-api';
         </li>
       }
     </ul>
+    <a routerLink="/search" [queryParams]="{ kind: 'sweeps' }">Every upload</a>
   `,
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

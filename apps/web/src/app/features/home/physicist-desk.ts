@@ -62,6 +62,7 @@ import { HomeApi } from './home-api';
         </li>
       }
     </ul>
+    <a routerLink="/search" [queryParams]="{ kind: 'sweeps' }">Every sweep</a>
   `,
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

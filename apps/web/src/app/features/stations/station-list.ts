@@ -15,6 +15,7 @@ import { formatDay } from '../../shared/format';
 import { FormatValuePipe } from '../../shared/format-value';
 import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
+import { StationTokens } from './station-tokens/station-tokens';
 import { StationsApi } from './stations-api';
 import { RecordHistory } from '../../shared/record-history/record-history';
 
@@ -31,6 +32,7 @@ import { RecordHistory } from '../../shared/record-history/record-history';
     ReactiveFormsModule,
     FormatValuePipe,
     ListEditor,
+    StationTokens,
   ],
   templateUrl: './station-list.html',
   styles: `

@@ -89,6 +89,7 @@ export class AssignForm {
   protected readonly problem = signal<string | null>(null);
   protected readonly unmatched = signal<FieldProblem[]>([]);
   protected readonly assignees = rxResource({ stream: () => this.api.assignees() });
+  protected readonly stations = rxResource({ stream: () => this.api.stations() });
   /** Whether a measurement plan goes with the assignment, and the one computed for it. */
   protected readonly attachPlan = signal(false);
   protected readonly plan = signal<PlannedSweep | null>(null);
@@ -99,6 +100,7 @@ export class AssignForm {
     task: ['', [Validators.required, Validators.maxLength(200)]],
     dueDate: ['', Validators.required],
     notes: this.fb.control<string | null>(null),
+    stationId: this.fb.control<number | null>(null),
   });
 
   protected readonly waferSearch = signal('');
@@ -142,6 +144,7 @@ export class AssignForm {
         task: v.task,
         dueDate: v.dueDate,
         notes: v.notes || null,
+        stationId: v.stationId,
         ...(plan ? { plan: plan.request } : {}),
       })
       .subscribe({

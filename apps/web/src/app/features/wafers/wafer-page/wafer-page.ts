@@ -26,9 +26,9 @@ import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
 import { WafersApi } from '../wafers-api';
+import { RecordHistory } from '../../../shared/record-history/record-history';
 import { PlanForm } from '../../planner/plan-form/plan-form';
 import { PlanView } from '../../planner/plan-view/plan-view';
-import { RecordHistory } from '../../../shared/record-history/record-history';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
