@@ -13,6 +13,7 @@ import { registerFitsApi } from '../fits/fit.openapi';
 import { registerHealthApi } from '../health/health.openapi';
 import { registerLotsApi } from '../lots/lots.openapi';
 import { registerMapsApi } from '../maps/maps.openapi';
+import { registerPlannerApi } from '../planner/planner.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
 import { registerStationPostApi } from '../station-posts/station-post.openapi';
@@ -44,6 +45,7 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerFitsApi,
   registerReportsApi,
   registerDevMailApi,
+  registerPlannerApi,
   registerSearchApi,
   registerMapsApi,
 ];
