@@ -17,6 +17,8 @@ import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { openApiRouter } from './openapi/openapi.router';
+import { searchRouter } from './search/search.router';
+import { plannerRouter } from './planner/planner.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -36,9 +38,11 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(stationPostRouter(deps));
   router.use(auditRouter(deps));
   router.use(assignmentsRouter(deps));
+  router.use(searchRouter(deps));
   router.use(devMailRouter(deps));
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));
   router.use(reportsRouter(deps));
+  router.use(plannerRouter(deps));
   return router;
 }

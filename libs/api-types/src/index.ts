@@ -52,6 +52,7 @@ export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
 export type { Page, HealthResponse } from './common';
 export { ERROR_STATUS } from './errors';
 export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
+export { PARAMETER_WORDS, KIND_WORDS } from './fit-words';
 export { FIT_KINDS, FIT_EXCLUDED_FLAGS } from './fits';
 export type {
   FitKind,
@@ -64,6 +65,18 @@ export type {
   FitDto,
   FitPreviewDto,
 } from './fits';
+export { PLAN_SPACINGS, PLAN_METHODS, CURRENT_LIMITS } from './planner';
+export type {
+  PlanSpacing,
+  PlanMethodName,
+  CurrentLimitName,
+  PlannerRequest,
+  PlanStepDto,
+  PlanCurrentRangeDto,
+  PlanBasisDto,
+  PlannerResponse,
+  AssignmentPlanDto,
+} from './planner';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,
@@ -86,6 +99,7 @@ export type {
   WaferDto,
   StationDto,
   AssignmentDto,
+  AuditChangeDto,
   AssignmentStationUpload,
   AuditEventDto,
   LotListQuery,
@@ -97,6 +111,8 @@ export type {
   UpdateAssignmentRequest,
   AuditListQuery,
 } from './records';
+export { SEARCH_KINDS } from './search';
+export type { SearchKind, SearchHit, SearchGroup, SearchResponse } from './search';
 export { UNCERTAINTY_SOURCES, SPEC_VERDICT_WORDS, SPEC_VERDICT_MEANINGS } from './spec';
 export type {
   ValueAt23CMethod,

@@ -1,3 +1,4 @@
+import type { AssignmentPlanDto } from './planner';
 /** Semiconductor wafer materials Rhotrace models. */
 export const SEMICONDUCTORS = ['Si', 'Ge', 'GaAs', '4H-SiC'] as const;
 /** Metal-film test wafers Rhotrace knows reference data for. */
@@ -95,8 +96,20 @@ export interface AssignmentDto {
   stationId?: number | null;
   /** The sweep the station posted for this assignment, when one did. */
   stationUpload?: AssignmentStationUpload | null;
+  /** The measurement plan attached to the assignment, when one is. */
+  plan?: AssignmentPlanDto | null;
   createdAt: string;
   updatedAt: string;
+}
+
+/** One changed field of an audit event, in words: values with units, ids as names. */
+export interface AuditChangeDto {
+  /** The stored field name (for scripts); `label` is what people read. */
+  field: string;
+  label: string;
+  /** null when the record did not exist before (created) or after (deleted). */
+  before: string | null;
+  after: string | null;
 }
 
 /** A station's post that fulfilled an assignment. */
@@ -117,6 +130,10 @@ export interface AuditEventDto {
   before: unknown;
   after: unknown;
   requestId: string | null;
+  /** The record in words, e.g. "wafer W03 of lot L-7" or "task on wafer W03 of lot L-7". */
+  recordName: string | null;
+  /** The fields that changed, in words. */
+  changes: AuditChangeDto[];
   createdAt: string;
 }
 

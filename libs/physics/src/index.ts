@@ -63,6 +63,22 @@ export type { FourPointProbeResult } from './probe/four-point';
 export { vanDerPauw } from './probe/van-der-pauw';
 export type { VanDerPauwResult } from './probe/van-der-pauw';
 export { barResistivity } from './probe/bar';
+export {
+  denseAround,
+  MAX_PLAN_STEPS,
+  PLAN_DEFAULTS,
+  planTemperatureSteps,
+  sweepDurationS,
+} from './plan/temperature-steps';
+export type { StepSpacing } from './plan/temperature-steps';
+export { planCurrentRanges, planProbeCurrent } from './plan/probe-current';
+export type {
+  CurrentLimit,
+  CurrentRange,
+  PlanMethod,
+  ProbeCurrentPlan,
+  ProbeLimits,
+} from './plan/probe-current';
 export { resistivityFromSheetResistance } from './probe/sheet-resistance';
 
 export { IEC_60751, rtdResistance, rtdTemperatureK } from './thermometry/rtd';

@@ -5,18 +5,18 @@ export const DEFER_TO_LAB_RULES =
   "These notes are reminders, not a procedure: your lab's own safety rules, training and the " +
   'instructions of licensed staff come first. If in doubt, stop and ask.';
 
-const HOT_CHUCK =
+export const HOT_CHUCK =
   'Hot chuck: a heated stage stays hot long after the sweep ends. Check its temperature before ' +
   'touching the wafer or probes, handle with tweezers, and never leave a hot stage unattended.';
-const CRYOGEN =
+export const CRYOGEN =
   'Cryogens: wear a face shield and cryogenic gloves when filling or handling liquid nitrogen or ' +
   'helium, keep the room ventilated (boil-off displaces oxygen), and never seal a cold vessel.';
-const TOXIC_COMPOUND = (material: string) =>
+export const TOXIC_COMPOUND = (material: string) =>
   `Toxic compound semiconductor: ${material} contains arsenic. An intact wafer is safe to ` +
   'handle with gloves, but if it breaks, chips or is scratched, do not sweep or blow the ' +
   "fragments: collect them wet, keep the dust out of the air, and follow the lab's hazardous " +
   'waste rules.';
-const PROBE_HEATING =
+export const PROBE_HEATING =
   'Probe current heats thin films: start with a small current and raise it only as far as the ' +
   'signal needs. Self-heating at the probe tips shifts the reading and can burn through a film.';
 const SHARP =

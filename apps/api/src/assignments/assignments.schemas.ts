@@ -9,6 +9,7 @@ import {
   requiredText,
 } from '../middleware/fields';
 import { idParam } from '../middleware/validate';
+import { plannerSchema } from '../planner/planner.schemas';
 
 export const state = z.enum(ASSIGNMENT_STATES, {
   errorMap: () => ({ message: `must be one of ${ASSIGNMENT_STATES.join(', ')}` }),
@@ -35,6 +36,7 @@ export const createBody = z
     ...fields,
     notes: fields.notes.transform((v) => v ?? null),
     stationId: fields.stationId.optional().default(null),
+    plan: plannerSchema.optional(),
   })
   .strict();
 
@@ -46,6 +48,7 @@ export const updateBody = z
     notes: fields.notes,
     assigneeId: fields.assigneeId.optional(),
     stationId: fields.stationId.optional(),
+    plan: plannerSchema.nullable().optional(),
   })
   .strict();
 
@@ -58,6 +61,8 @@ export const listQuery = listQuerySchema(ASSIGNMENT_SORT_FIELDS, {
   state: state.optional(),
   waferId: idParam.optional(),
   overdue: booleanParam,
+  /** true: only assigned or in progress; false: only done or cancelled. */
+  open: booleanParam,
 });
 
 export const overdueQuery = listQuerySchema(ASSIGNMENT_SORT_FIELDS, {

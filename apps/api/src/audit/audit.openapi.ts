@@ -1,8 +1,8 @@
 import type { AuditEventDto } from '@rhotrace/api-types';
 import { z } from 'zod';
-import { routesOf } from '../openapi/registry';
+import { idParams, routesOf } from '../openapi/registry';
 import { dateTime, jsonValue, pageOf } from '../openapi/shapes';
-import { listQuery } from './audit.schemas';
+import { historyQuery, listQuery } from './audit.schemas';
 
 const auditEventSchema = z
   .object({
@@ -15,6 +15,17 @@ const auditEventSchema = z
     before: jsonValue,
     after: jsonValue,
     requestId: z.string().nullable(),
+    recordName: z.string().nullable(),
+    changes: z.array(
+      z
+        .object({
+          field: z.string(),
+          label: z.string(),
+          before: z.string().nullable(),
+          after: z.string().nullable(),
+        })
+        .strict(),
+    ),
     createdAt: dateTime,
   })
   .strict() satisfies z.ZodType<AuditEventDto>;
@@ -29,4 +40,15 @@ export function registerAuditApi(): void {
     ok: { status: 200, description: 'A page of events', schema: pageOf(auditEventSchema) },
     errors: [403],
   });
+  for (const of of ['lots', 'wafers', 'stations'] as const) {
+    routesOf('Audit trail')({
+      method: 'get',
+      path: `/${of}/:id/history`,
+      summary: `One of the ${of}' history (for anyone who may see it), newest first`,
+      params: idParams,
+      query: historyQuery,
+      ok: { status: 200, description: 'A page of events', schema: pageOf(auditEventSchema) },
+      errors: [404],
+    });
+  }
 }

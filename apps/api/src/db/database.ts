@@ -3,6 +3,7 @@ import { Sequelize } from 'sequelize';
 import { DatabaseHosts, hostLabel, type DatabaseHost } from './database-hosts';
 import type { DbConfig } from '../config';
 import { initAssignmentModel } from '../assignments/assignment.model';
+import { initAssignmentPlanModel } from '../assignments/assignment-plan.model';
 import { initAuditEventModel } from '../audit/audit-event.model';
 import { initFitModel } from '../fits/fit.model';
 import { initLotModel } from '../lots/lot.model';
@@ -47,6 +48,7 @@ export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}
   initStationModel(sequelize);
   initStationTokenModel(sequelize);
   initAssignmentModel(sequelize);
+  initAssignmentPlanModel(sequelize);
   initSweepModels(sequelize);
   initFitModel(sequelize);
   initAuditEventModel(sequelize);

@@ -17,6 +17,7 @@ import { registerReportsApi } from '../reports/report.openapi';
 import { registerStationPostApi } from '../station-posts/station-post.openapi';
 import { registerStationTokensApi } from '../station-tokens/station-tokens.openapi';
 import { registerStationsApi } from '../stations/stations.openapi';
+import { registerSearchApi } from '../search/search.openapi';
 import { registerSweepsApi } from '../sweeps/sweep.openapi';
 import { registerUsersApi } from '../users/users.openapi';
 import { registerWafersApi } from '../wafers/wafers.openapi';
@@ -42,6 +43,7 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerFitsApi,
   registerReportsApi,
   registerDevMailApi,
+  registerSearchApi,
 ];
 
 /** The generated document (OpenAPI 3.1). */

@@ -17,11 +17,13 @@ import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
 import { StationTokens } from './station-tokens/station-tokens';
 import { StationsApi } from './stations-api';
+import { RecordHistory } from '../../shared/record-history/record-history';
 
 /** Probe stations: list, register, edit. */
 @Component({
   selector: 'rt-station-list',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatFormFieldModule,
