@@ -13,6 +13,8 @@ export const PARAMETER_WORDS: Readonly<Record<string, string>> = {
   mobilityScale: 'Mobility scale',
   referenceResistivityOhmCm: 'ρ at reference (Ω·cm)',
   alphaPerK: 'Temperature coefficient (1/K)',
+  exponent: 'Mobility exponent',
+  mobilityAt300K: 'Hall mobility at 300 K (cm²/(V s))',
   residualOhmCm: 'Residual resistivity (Ω·cm)',
   couplingOhmCm: 'Phonon coupling (Ω·cm)',
   debyeK: 'Debye temperature (K)',
@@ -24,4 +26,6 @@ export const KIND_WORDS: Readonly<Record<FitKind, string>> = {
   model: 'Full model',
   tcr: 'Linear TCR',
   'bloch-gruneisen': 'Bloch–Grüneisen',
+  'carrier-density': 'Hall carrier density',
+  'hall-mobility': 'Hall mobility',
 };

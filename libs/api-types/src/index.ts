@@ -61,10 +61,12 @@ export type {
   FitCorrelation,
   FitGoodness,
   FitInterpretation,
+  HallScattering,
   FitCurvature,
   FitDto,
   FitPreviewDto,
 } from './fits';
+export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
 export { PLAN_SPACINGS, PLAN_METHODS, CURRENT_LIMITS } from './planner';
 export type {
   PlanSpacing,
@@ -130,7 +132,13 @@ export type {
   StationUploadDto,
   StationSweepCreatedResponse,
 } from './station-tokens';
-export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
+export {
+  SWEEP_METHODS,
+  COLUMN_MEANINGS,
+  POINT_FLAGS,
+  JUMP_FACTOR,
+  HALL_FACTOR_NAMES,
+} from './sweeps';
 export type {
   SweepMethod,
   ColumnMeaning,
@@ -148,5 +156,8 @@ export type {
   SweepParseReport,
   RawReading,
   SweepPointDto,
+  PointQuantities,
+  HallFactorName,
+  HallImportReport,
   SweepDto,
 } from './sweeps';

@@ -137,3 +137,33 @@ describe('documented examples and defaults', () => {
     expect(d.acceptorDegeneracy).toBe(4);
   });
 });
+
+describe('documented Hall examples', () => {
+  it('hall examples hold', () => {
+    expect(
+      physics.hallVoltageFromReversals({ pp: 0.0012, pn: -0.0008, np: 0.0032, nn: -0.0028 }),
+    ).toBeCloseTo(-0.001, 15);
+    const h = physics.hallCoefficient({
+      hallVoltageV: -1e-3,
+      currentA: 1e-3,
+      magneticFieldT: 0.5,
+      thicknessCm: 0.05,
+    });
+    expect(h.hallCoefficientCm3PerC).toBeCloseTo(-1000, 9);
+    expect(h.densityCm3 / 6.24e15).toBeCloseTo(1, 2);
+    expect(h.carrierType).toBe('n');
+    expect(physics.hallMobility(-1000, 1)).toBe(1000);
+    expect(
+      physics.twoCarrierHallCoefficient({
+        electronDensityCm3: 1e15,
+        holeDensityCm3: 1e15,
+        electronMobility: 3,
+        holeMobility: 1,
+      }),
+    ).toBeCloseTo(-3121, 0);
+    const mu = physics.fitMobilityPowerLaw(
+      [100, 150, 200, 300].map((t) => ({ temperatureK: t, mobility: 1000 * (t / 300) ** -2.4 })),
+    );
+    expect(mu.exponent).toBeCloseTo(-2.4, 9);
+  });
+});

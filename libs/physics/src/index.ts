@@ -107,6 +107,7 @@ export type { LeastSquaresProblem, LeastSquaresResult } from './fit/levenberg-ma
 export { fitModel } from './fit/model-fit';
 export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit';
 export { fitLinearTcr } from './fit/tcr';
+export { arrheniusValue, linearTcrResistivity } from './fit/fitted-curves';
 export type { LinearTcrFit, TcrParameter } from './fit/tcr';
 export { studentTCritical } from './numeric/student-t';
 
@@ -150,3 +151,29 @@ export {
 export type { MetalBlochGruneisen, MetalId, MetalReference } from './metal/metals';
 export { listMaterials } from './materials';
 export type { MaterialCatalogue, SemiconductorCatalogueEntry } from './materials';
+
+export {
+  HALL_SCATTERING_FACTORS,
+  hallCoefficient,
+  hallMobility,
+  hallVoltageFromReversals,
+  twoCarrierHallCoefficient,
+} from './hall/hall-effect';
+export type {
+  HallCoefficientInput,
+  HallCoefficientResult,
+  HallReversals,
+  TwoCarrierInput,
+} from './hall/hall-effect';
+export { fitCarrierDensity } from './hall/carrier-density-fit';
+export type {
+  CarrierDensityFit,
+  CarrierDensityFitOptions,
+  CarrierDensityParameter,
+} from './hall/carrier-density-fit';
+export { fitMobilityPowerLaw } from './hall/mobility-power-law';
+export type {
+  MobilityPowerLawFit,
+  MobilityPowerLawOptions,
+  MobilityPowerLawParameter,
+} from './hall/mobility-power-law';

@@ -19,6 +19,11 @@ export const TOXIC_COMPOUND = (material: string) =>
 export const PROBE_HEATING =
   'Probe current heats thin films: start with a small current and raise it only as far as the ' +
   'signal needs. Self-heating at the probe tips shifts the reading and can burn through a film.';
+/** Strong magnets of a Hall setup (the field itself and what it pulls). */
+export const MAGNET =
+  'Strong magnet (Hall measurement): keep people with pacemakers or other implants out of the ' +
+  'marked field zone, keep loose steel tools, gas cylinders and chairs away from the magnet, and ' +
+  'leave cards, watches and phones outside; switch an electromagnet down slowly.';
 const SHARP =
   'Wafer edges and shards are sharp and brittle: handle by the edge with wafer tweezers and keep ' +
   'broken pieces in a labelled container.';
@@ -27,7 +32,8 @@ const metals: readonly string[] = METAL_FILMS;
 
 /**
  * The safety cautions that fit a task on a wafer of `material`, chosen from the task's wording
- * (heating, cryogenic work, current) and the material (arsenic compounds, thin metal films).
+ * (heating, cryogenic work, current, a Hall measurement's magnet) and the material (arsenic
+ * compounds, thin metal films).
  * Always ends with the reminder that the lab's own rules come first.
  */
 export function safetyCautionsFor(material: string, task: string): string[] {
@@ -52,6 +58,7 @@ export function safetyCautionsFor(material: string, task: string): string[] {
   if (metals.includes(material) || /film|current/.test(text)) {
     cautions.push(PROBE_HEATING);
   }
+  if (/\bhall\b|magnet|\bb[- ]?field|tesla/.test(text)) cautions.push(MAGNET);
   cautions.push(SHARP);
   cautions.push(DEFER_TO_LAB_RULES);
   return cautions;

@@ -2,6 +2,7 @@ import { KIND_WORDS, PARAMETER_WORDS, type AnalysisStep, type FitDto } from '@rh
 import { ACCENT, geometryText, INK, keepSpace, MUTED, OHM_CM, openPdf, sig } from './pdf-document';
 import { drawAxes, roundXTicks } from './pdf-plot';
 import type { ReportData } from './report.service';
+import { drawHallSection } from './report-hall';
 import { specLines } from './report-spec';
 
 /** Title used in the document info (ASCII, so it can be read from the file as is). */
@@ -139,6 +140,7 @@ export function renderReportPdf(
   doc.x = 50;
   doc.y = top + 250;
   fitsSection(doc, d.fits);
+  if (d.hall) drawHallSection(doc, d.hall, d.fits, d.material);
   closingSection(doc, d.cautions, d.disclaimer);
   doc.end();
   return done;

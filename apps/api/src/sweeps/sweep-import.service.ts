@@ -9,6 +9,7 @@
  */
 import { createHash } from 'node:crypto';
 import type {
+  HallFactorName,
   SessionUser,
   SweepColumnOverride,
   SweepCreatedResponse,
@@ -24,9 +25,11 @@ import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter } from './import/convert-rows';
+import type { ConvertedPoint } from './import/import-types';
 import { detectColumns, publicColumns } from './import/detect-columns';
 import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
+import { HallSummary, hallSettings } from './import/hall-summary';
 import { openTable, readTable, slices, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
 import { RawCopy } from './import/store/raw-copy';
@@ -56,6 +59,8 @@ export interface ImportSweepInput {
   stationId?: number | null;
   columns?: SweepColumnOverride[];
   geometry?: SweepGeometryInput;
+  /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
+  hallFactor?: number | HallFactorName;
 }
 
 /** The signed-in user, with the request id the audit event records. */
@@ -210,8 +215,12 @@ async function storeSweep(
     file: parsed.recognised,
     needsRtd: columns.find((c) => c.meaning === 'temperature')?.unitInfo?.kind === 'resistance',
   });
-  const converter = new RowConverter(parsed, columns, input.method, geometry);
+  const settings = hallSettings(input.method, input.hallFactor);
+  const converter = new RowConverter(parsed, columns, input.method, geometry, settings);
   const finder = new SuspiciousPointFinder();
+  const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
+  const hall = input.method === 'hall' ? new HallSummary(settings, reversals) : null;
+  const watch = (points: ConvertedPoint[]) => finder.addAll(hall ? hall.addAll(points) : points);
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
   const store = new SweepStore(
     {
@@ -234,9 +243,9 @@ async function storeSweep(
   try {
     // no slice is read once the converter holds as many problems as an answer lists
     for (const slice of slices(file, IMPORT_SLICE_ROWS, () => converter.open)) {
-      await store.write(finder.addAll(converter.next(slice)));
+      await store.write(watch(converter.next(slice)));
     }
-    await store.write(finder.addAll(converter.finish()));
+    await store.write(watch(converter.finish()));
     if (converter.problems.length) {
       throw unprocessable(
         'Some rows hold values that cannot be stored; nothing was stored',
@@ -248,7 +257,7 @@ async function storeSweep(
     throw error;
   }
   const flags = finder.finish();
-  warnings.push(...converter.warnings, ...flags.warnings);
+  warnings.push(...converter.warnings, ...flags.warnings, ...(hall?.warnings ?? []));
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,
@@ -256,6 +265,7 @@ async function storeSweep(
     rowCount: parsed.table.records.length,
     warnings,
     flaggedPoints: flags.flagged,
+    ...(hall ? { hall: hall.report } : {}),
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
     actorId: actor.id,

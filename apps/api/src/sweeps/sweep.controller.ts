@@ -84,7 +84,7 @@ export const sweepsController = {
     const waferId = parseId(req.params);
     const file = uploaded(req);
     const body = parseOrThrow(storeSchema, req.body, 'body');
-    const { method, stationId, columns, ...geometry } = body;
+    const { method, stationId, columns, hallFactor, ...geometry } = body;
     const result = await importSweep(
       {
         waferId,
@@ -93,6 +93,7 @@ export const sweepsController = {
         method,
         stationId: stationId ?? null,
         columns: parseColumns(columns),
+        ...(hallFactor === undefined ? {} : { hallFactor }),
         geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
       },
       actorOf(req),

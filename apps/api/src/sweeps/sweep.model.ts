@@ -51,6 +51,8 @@ export class SweepPoint extends Model<
   declare resistivityOhmCm: number;
   declare raw: unknown;
   declare flags: string;
+  /** Quantities beyond resistivity (`PointQuantities`), null for most sweeps. */
+  declare quantities: CreationOptional<unknown>;
 }
 
 /** Raw upload bytes, kept byte for byte (the database storage implementation). */
@@ -103,6 +105,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       resistivityOhmCm: { type: DataTypes.DOUBLE, allowNull: false },
       raw: jsonColumn('raw', false),
       flags: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '' },
+      quantities: jsonColumn('quantities'),
     },
     { sequelize, tableName: 'sweep_points', underscored: true, timestamps: false },
   );

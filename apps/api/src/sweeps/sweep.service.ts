@@ -7,6 +7,7 @@ import { gzip as gzipCallback } from 'node:zlib';
 import type {
   PointFlag,
   StationUploadDto,
+  PointQuantities,
   SweepColumn,
   SweepDto,
   SweepGeometry,
@@ -147,8 +148,15 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
       sheetResistanceOhmSq: p.sheetResistanceOhmSq,
       resistivityOhmCm: p.resistivityOhmCm,
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
+      // Only sweeps that have quantities carry the key: most points stay as small as before.
+      ...(p.quantities ? { quantities: quantitiesOf(p.quantities) } : {}),
     };
   });
+}
+
+/** A stored quantities document (text from a raw read). */
+function quantitiesOf(stored: unknown): PointQuantities {
+  return (typeof stored === 'string' ? JSON.parse(stored) : stored) as PointQuantities;
 }
 
 /** The sweep with its columns, metadata, report and every point in sequence. */
