@@ -75,6 +75,11 @@ export class Shell {
       .subscribe({ next: (response) => this.session.start(response), error: () => undefined });
   }
 
+  /** Opens the search page for what was typed in the bar. */
+  protected find(q: string): void {
+    void this.router.navigate(['/search'], { queryParams: { q: q.trim() } });
+  }
+
   protected signOut(): void {
     this.session.end();
     void this.router.navigate(['/sign-in']);

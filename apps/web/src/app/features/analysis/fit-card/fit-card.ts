@@ -7,6 +7,7 @@ import {
   PARAMETER_WORDS,
   PROPERTY_WORDS,
   REGIME_WORDS,
+  SCATTERING_WORDS,
   wordsFor,
 } from '../analysis-labels';
 import { type ShownFit, isSaved } from '../fit-queue';
@@ -41,6 +42,7 @@ export class FitCard {
   protected readonly regimeWords = REGIME_WORDS;
   protected readonly compensationWords = COMPENSATION_WORDS;
   protected readonly sourceWords = COMPENSATION_SOURCE_WORDS;
+  protected readonly scatteringWords = SCATTERING_WORDS;
 
   protected readonly saved = computed(() => isSaved(this.fit()));
   protected readonly title = computed(() => {

@@ -7,6 +7,7 @@ import { formatValue } from '../../../shared/format';
 import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
 import { AnalysisStore } from '../analysis-store';
 import { ArrheniusWindow } from '../arrhenius-window/arrhenius-window';
+import { HallStudy } from '../parts/hall-study/hall-study';
 import { MetalFits } from '../metal-fits/metal-fits';
 import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
@@ -28,6 +29,7 @@ import { SavedFits } from '../saved-fits/saved-fits';
     ModelFit,
     MetalFits,
     SavedFits,
+    HallStudy,
   ],
   providers: [AnalysisStore],
   templateUrl: './sweep-study.html',
