@@ -107,6 +107,7 @@ export type { LeastSquaresProblem, LeastSquaresResult } from './fit/levenberg-ma
 export { fitModel } from './fit/model-fit';
 export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit';
 export { fitLinearTcr } from './fit/tcr';
+export { arrheniusValue, linearTcrResistivity } from './fit/fitted-curves';
 export type { LinearTcrFit, TcrParameter } from './fit/tcr';
 export { studentTCritical } from './numeric/student-t';
 

@@ -14,6 +14,7 @@ import { requireSemiconductor } from '../semiconductor/material';
 import type { CurveTerms, ResistivityOptions } from '../semiconductor/resistivity';
 import { curveTerms, modelPointAt, resolveModel } from '../semiconductor/resistivity';
 import type { FitResult, ParameterScale } from './fit-result';
+import { FIT_PARAMETER_WORDS, parameterWords } from './fit-result';
 import { readPoints } from './points';
 import { fitLnRhoSteps } from './step-levenberg';
 import type { StepOptions } from './steps';
@@ -205,17 +206,21 @@ function boundWarnings(fit: ModelFit, nType: boolean): string[] {
     : (['acceptorDensity', 'donorDensity'] as const);
   if (fit.fitted.includes(minority) && p[minority] > MAX_COMPENSATION_RATIO * p[majority]) {
     out.push(
-      `${minority} is at its bound: it has reached ${majority} (the fit keeps the starting ` +
+      `${parameterWords(minority)} is at its bound: it has reached ` +
+        `${FIT_PARAMETER_WORDS[majority]} (the fit keeps the starting ` +
         `${nType ? 'n' : 'p'}-type), so the data do not separate the two densities.`,
     );
   }
   for (const level of ['donorLevel', 'acceptorLevel'] as const) {
     if (!fit.fitted.includes(level)) continue;
     if (p[level] < 0.002 || p[level] > LEVEL_RANGE_EV[1] - 0.002)
-      out.push(`${level} is at a bound of its range (0 to 1 eV): ${p[level].toFixed(4)} eV.`);
+      out.push(
+        `${parameterWords(level)} is at a bound of its range (0 to 1 eV): ` +
+          `${p[level].toFixed(4)} eV.`,
+      );
   }
   const s = p.mobilityScale;
   if (fit.fitted.includes('mobilityScale') && (s < 1e-5 || s > 1e5))
-    out.push(`mobilityScale is at a bound of its range (1e-6 to 1e6): ${s.toPrecision(3)}.`);
+    out.push(`The mobility scale is at a bound of its range (1e-6 to 1e6): ${s.toPrecision(3)}.`);
   return out;
 }

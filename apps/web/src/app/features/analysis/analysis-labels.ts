@@ -5,6 +5,12 @@ import type {
   HallScattering,
   RegimeName,
 } from '@rhotrace/api-types';
+import { SEMICONDUCTOR_NAMES } from '@rhotrace/physics';
+
+/** Materials in running text ("silicon"). */
+const MATERIAL_WORDS: Readonly<Record<string, string>> = Object.fromEntries(
+  Object.entries(SEMICONDUCTOR_NAMES).map(([id, name]) => [id, name.toLowerCase()]),
+);
 
 /** A parameter a full-model fit may free. */
 export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][number];
@@ -17,6 +23,16 @@ export type CompensationChoice = 'inferred' | 'compensated' | 'uncompensated';
 
 /** Parameter and kind words are shared with the printed reports. */
 export { KIND_WORDS, PARAMETER_WORDS } from '@rhotrace/api-types';
+
+/** A fit's name in a plot legend (the window and which fit follow it). */
+export const FIT_TRACE_WORDS: Readonly<Record<string, string>> = {
+  arrhenius: 'Arrhenius fit',
+  model: 'Full-model fit',
+  tcr: 'Linear TCR fit',
+  'bloch-gruneisen': 'Bloch–Grüneisen fit',
+  'carrier-density': 'Carrier-density fit',
+  'hall-mobility': 'Hall-mobility fit',
+};
 
 export const FREE_WORDS: Readonly<Record<FreeParameter, string>> = {
   donorDensity: 'Donor density',
@@ -85,3 +101,27 @@ export const SCATTERING_WORDS: Readonly<Record<HallScattering, string>> = {
   'ionized-impurity': 'ionized impurities',
   mixed: 'a mixture of lattice and impurity scattering',
 };
+
+const PARAMETER_SET_WORDS: Readonly<Record<string, string>> = {
+  arrhenius: 'Arrhenius line',
+  'linear-tcr': 'linear temperature coefficient',
+  'bloch-gruneisen': 'Bloch–Grüneisen',
+};
+
+/**
+ * A stored model version (`physics@0.1.0+Si:si-scaled-t15`) in words: "Model: silicon,
+ * Rhotrace physics 0.1". The version string stays in the stored fit and its exports.
+ */
+export function modelVersionWords(version: string): string {
+  const match = /^physics@(\d+)\.(\d+)[^+]*\+(.*)$/.exec(version);
+  if (!match) return `Model: ${version}`;
+  const [, major, minor, set = ''] = match;
+  const material = set.includes(':') ? set.slice(0, set.indexOf(':')) : null;
+  const metal = /^metal-(.+)-bg$/.exec(set)?.[1];
+  const what = material
+    ? (MATERIAL_WORDS[material] ?? material)
+    : metal
+      ? `${metal} reference`
+      : (PARAMETER_SET_WORDS[set] ?? set);
+  return `Model: ${what}, Rhotrace physics ${major}.${minor}`;
+}

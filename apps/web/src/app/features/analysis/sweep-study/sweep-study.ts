@@ -4,6 +4,7 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { formatValue } from '../../../shared/format';
+import { formatTemperatureRange } from '../../../shared/temperature-unit';
 import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
 import { AnalysisStore } from '../analysis-store';
 import { ArrheniusWindow } from '../arrhenius-window/arrhenius-window';
@@ -41,6 +42,9 @@ export class SweepStudy {
   /** The sweep id from the route. */
   readonly id = input.required<string>();
   protected readonly format = formatValue;
+  protected range(minK: number | null, maxK: number | null): string {
+    return formatTemperatureRange(minK, maxK, this.store.unit());
+  }
 
   constructor() {
     // Fetch and evaluate plotly while the sweep's data are on their way, not after.
