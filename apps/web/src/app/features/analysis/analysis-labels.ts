@@ -16,6 +16,13 @@ export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][numbe
  */
 export type CompensationChoice = 'inferred' | 'compensated' | 'uncompensated';
 
+/** Options of the Arrhenius window fit. */
+export interface ArrheniusOptions {
+  quantity: 'resistivity' | 'conductivity';
+  prefactorExponent: number;
+  compensation: CompensationChoice;
+}
+
 /** Words and units for the parameters fits report. */
 export const PARAMETER_WORDS: Readonly<Record<string, string>> = {
   activationEnergyEv: 'Activation energy (eV)',
