@@ -85,7 +85,7 @@ describe('words on screen and the study page', () => {
       .poll(async () => (await legend.allTextContents()).join(' | '), { timeout: 30_000 })
       .toMatch(/Arrhenius fit, \d+\.\d–\d+\.\d K \(preview\)/);
 
-    await page.getByRole('group', { name: 'Temperature unit' }).getByText('°C').click();
+    await page.getByLabel('Temperature unit').getByText('°C').click();
     const header = await page.locator('h1 + p').innerText();
     expect(header).toMatch(/-?\d+\.\d–\d+\.\d °C/);
     await expect
