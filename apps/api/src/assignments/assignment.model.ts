@@ -20,6 +20,10 @@ export class Assignment extends Model<
   declare dueDate: string;
   declare state: CreationOptional<AssignmentState>;
   declare notes: string | null;
+  /** The probe station to measure on; its token may post the sweep. */
+  declare stationId: CreationOptional<number | null>;
+  /** The day the assignee was last reminded of this task being overdue (null: never). */
+  declare remindedOn: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -35,6 +39,8 @@ export function initAssignmentModel(sequelize: Sequelize): void {
       dueDate: { type: DataTypes.DATEONLY, allowNull: false },
       state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'assigned' },
       notes: DataTypes.TEXT,
+      stationId: DataTypes.INTEGER,
+      remindedOn: DataTypes.DATEONLY,
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -11,8 +11,8 @@ import {
 } from '../semiconductor/dopants';
 import type { SemiconductorId } from '../semiconductor/material';
 import { requireSemiconductor } from '../semiconductor/material';
-import type { ResistivityOptions } from '../semiconductor/resistivity';
-import { modelPointUnchecked, resolveModel } from '../semiconductor/resistivity';
+import type { CurveTerms, ResistivityOptions } from '../semiconductor/resistivity';
+import { curveTerms, modelPointAt, resolveModel } from '../semiconductor/resistivity';
 import type { FitResult, ParameterScale } from './fit-result';
 import { FIT_PARAMETER_WORDS, parameterWords } from './fit-result';
 import { readPoints } from './points';
@@ -136,6 +136,18 @@ export function fitModel(
     });
     return v;
   };
+  // The fit evaluates the model at the same step temperatures for every parameter set (the
+  // Jacobian's columns differ from their base by 1e-7): the temperature-only terms are computed
+  // once per temperature and each neutrality solve starts from that temperature's last root.
+  const curve = new Map<number, { terms: CurveTerms; eta: number }>();
+  const curveAt = (t: number): { terms: CurveTerms; eta: number } => {
+    let at = curve.get(t);
+    if (!at) {
+      at = { terms: curveTerms(model, t), eta: Number.NaN };
+      curve.set(t, at);
+    }
+    return at;
+  };
   const lnModel = (q: readonly number[]): ((t: number) => number) | null => {
     const v = unpack(q);
     const feasible =
@@ -158,7 +170,12 @@ export function fitModel(
       v.acceptorLevel,
     );
     const cfg = { ...model, mobilityScale: v.mobilityScale };
-    return (t) => modelPointUnchecked(cfg, d, t).lnResistivity;
+    return (t) => {
+      const at = curveAt(t);
+      const p = modelPointAt(cfg, d, at.terms, at.eta);
+      at.eta = p.eta;
+      return p.lnResistivity;
+    };
   };
   const initialCoordinates = [
     ...densities.initial,

@@ -1,5 +1,10 @@
 /** Every word the study page and the desks show for fits, regimes and parameters. */
-import type { FitInterpretation, FitKind, FitRequest, RegimeName } from '@rhotrace/api-types';
+import type {
+  FitInterpretation,
+  FitRequest,
+  HallScattering,
+  RegimeName,
+} from '@rhotrace/api-types';
 import { SEMICONDUCTOR_NAMES } from '@rhotrace/physics';
 
 /** Materials in running text ("silicon"). */
@@ -23,29 +28,8 @@ export interface ArrheniusOptions {
   compensation: CompensationChoice;
 }
 
-/** Words and units for the parameters fits report. */
-export const PARAMETER_WORDS: Readonly<Record<string, string>> = {
-  activationEnergyEv: 'Activation energy (eV)',
-  intercept: 'Intercept (ln)',
-  impliedEv: 'Implied level or gap (eV)',
-  donorDensity: 'Donor density (cm⁻³)',
-  acceptorDensity: 'Acceptor density (cm⁻³)',
-  donorLevel: 'Donor ionization energy (eV)',
-  acceptorLevel: 'Acceptor ionization energy (eV)',
-  mobilityScale: 'Mobility scale',
-  referenceResistivityOhmCm: 'ρ at reference (Ω·cm)',
-  alphaPerK: 'Temperature coefficient (1/K)',
-  residualOhmCm: 'Residual resistivity (Ω·cm)',
-  couplingOhmCm: 'Phonon coupling (Ω·cm)',
-  debyeK: 'Debye temperature (K)',
-};
-
-export const KIND_WORDS: Readonly<Record<FitKind, string>> = {
-  arrhenius: 'Arrhenius window',
-  model: 'Full model',
-  tcr: 'Linear TCR',
-  'bloch-gruneisen': 'Bloch–Grüneisen',
-};
+/** Parameter and kind words are shared with the printed reports. */
+export { KIND_WORDS, PARAMETER_WORDS } from '@rhotrace/api-types';
 
 /** A fit's name in a plot legend (the window and which fit follow it). */
 export const FIT_TRACE_WORDS: Readonly<Record<string, string>> = {
@@ -53,6 +37,8 @@ export const FIT_TRACE_WORDS: Readonly<Record<string, string>> = {
   model: 'Full-model fit',
   tcr: 'Linear TCR fit',
   'bloch-gruneisen': 'Bloch–Grüneisen fit',
+  'carrier-density': 'Carrier-density fit',
+  'hall-mobility': 'Hall-mobility fit',
 };
 
 export const FREE_WORDS: Readonly<Record<FreeParameter, string>> = {
@@ -114,6 +100,14 @@ export const PREFACTOR_CHOICES: ReadonlyArray<{ value: number; words: string }> 
 export function wordsFor(map: Readonly<Record<string, string>>, key: string): string {
   return map[key] ?? key;
 }
+
+/** The scattering mechanism a Hall-mobility exponent suggests. */
+export const SCATTERING_WORDS: Readonly<Record<HallScattering, string>> = {
+  'acoustic-phonon': 'acoustic phonons',
+  'acoustic-and-optical-phonon': 'acoustic and optical phonons (lattice)',
+  'ionized-impurity': 'ionized impurities',
+  mixed: 'a mixture of lattice and impurity scattering',
+};
 
 const PARAMETER_SET_WORDS: Readonly<Record<string, string>> = {
   arrhenius: 'Arrhenius line',

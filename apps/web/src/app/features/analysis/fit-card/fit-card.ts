@@ -9,6 +9,7 @@ import {
   PARAMETER_WORDS,
   PROPERTY_WORDS,
   REGIME_WORDS,
+  SCATTERING_WORDS,
   modelVersionWords,
   wordsFor,
 } from '../analysis-labels';
@@ -55,6 +56,7 @@ export class FitCard {
   protected readonly regimeWords = REGIME_WORDS;
   protected readonly compensationWords = COMPENSATION_WORDS;
   protected readonly sourceWords = COMPENSATION_SOURCE_WORDS;
+  protected readonly scatteringWords = SCATTERING_WORDS;
 
   protected readonly saved = computed(() => isSaved(this.fit()));
   protected readonly title = computed(() => {

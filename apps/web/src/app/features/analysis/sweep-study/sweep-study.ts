@@ -8,6 +8,7 @@ import { formatTemperatureRange } from '../../../shared/temperature-unit';
 import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
 import { AnalysisStore } from '../analysis-store';
 import { ArrheniusWindow } from '../arrhenius-window/arrhenius-window';
+import { HallStudy } from '../parts/hall-study/hall-study';
 import { MetalFits } from '../metal-fits/metal-fits';
 import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
@@ -29,6 +30,7 @@ import { SavedFits } from '../saved-fits/saved-fits';
     ModelFit,
     MetalFits,
     SavedFits,
+    HallStudy,
   ],
   providers: [AnalysisStore],
   templateUrl: './sweep-study.html',
