@@ -24,6 +24,8 @@ export interface ModelCurveRequest {
   material: string;
   /** Required for semiconductors; ignored for metal films. */
   doping?: DopingInput;
+  /** Factor on both mobilities, as a full-model fit reports it (semiconductors); default 1. */
+  mobilityScale?: number;
   fromK: number;
   toK: number;
   /** 2 to 2000 temperatures, evenly spaced from fromK to toK inclusive. */

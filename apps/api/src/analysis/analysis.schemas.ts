@@ -37,6 +37,11 @@ export const curveSchema = z
       errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }),
     }),
     doping: dopingSchema.optional(),
+    mobilityScale: z
+      .number({ invalid_type_error: 'must be a number' })
+      .gt(0, 'must be above 0')
+      .max(1e6, 'must be at most 1e6')
+      .optional(),
     fromK: temperature('fromK'),
     toK: temperature('toK'),
     steps: z

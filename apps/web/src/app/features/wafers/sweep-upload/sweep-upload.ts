@@ -40,6 +40,13 @@ const GEOMETRY_FIELDS: ReadonlyArray<{ key: keyof SweepGeometryInput; label: str
   { key: 'barWidthCm', label: 'Bar width' },
 ];
 
+/** How sure the column detection is, in words (a choice made by hand is certain). */
+export function confidenceWords(confidence: number): string {
+  if (confidence >= 0.9) return 'high';
+  if (confidence >= 0.6) return 'medium: check it';
+  return 'low: choose by hand';
+}
+
 /**
  * Bringing sweeps in: drop or pick files, check what was detected, correct the column mapping,
  * choose method, station and geometry, then store each file with a progress bar.
@@ -65,6 +72,7 @@ const GEOMETRY_FIELDS: ReadonlyArray<{ key: keyof SweepGeometryInput; label: str
 })
 export class SweepUpload {
   private readonly api = inject(WafersApi);
+  protected readonly confidenceWords = confidenceWords;
 
   readonly waferId = input.required<number>();
   readonly material = input<string | null>(null);
