@@ -112,6 +112,16 @@ export class SweepUpload {
     }
   }
 
+  /**
+   * A click anywhere on the drop zone opens the file chooser (the zone itself only listens to
+   * Enter and drops). The click the chooser's own input sends bubbles back here and is ignored.
+   */
+  protected openChooser(event: Event, zone: DropzoneComponent): void {
+    if (event.target instanceof HTMLInputElement) return;
+    event.preventDefault();
+    zone.openFilePicker();
+  }
+
   protected remove(key: number): void {
     this.items.update((list) => list.filter((i) => i.key !== key));
   }
