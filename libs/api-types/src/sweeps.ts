@@ -81,8 +81,27 @@ export interface SweepPreviewResponse {
   /** The first 20 data rows. */
   rows: PreviewRow[];
   rowCount: number;
+  /** Rows that cannot be read as the columns were detected (text in a number column). */
   problems: RowProblem[];
   suggestedMethod: SweepMethod | null;
+  /**
+   * The method the file was checked with: the one the request names, else the suggested one
+   * (null when neither: choosing one is then a blocking problem).
+   */
+  method: SweepMethod | null;
+  /** The station the sweep would be linked to: the one chosen, or the one the file names. */
+  stationId: number | null;
+  /** The geometry the store would convert with (null while it cannot). */
+  geometry: SweepGeometry | null;
+  /**
+   * Everything that makes the store refuse the file with these choices, found by the same
+   * checks the store runs; empty when the store would take it.
+   */
+  blocking: RowProblem[];
+  /** What the store would warn about without refusing (points outside the station's range). */
+  warnings: string[];
+  /** Points the store would make (null while something blocks). */
+  pointCount: number | null;
 }
 
 /** A column mapping override sent with the store request (JSON text in field `columns`). */

@@ -8,14 +8,7 @@
  * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
-import type {
-  SessionUser,
-  SweepColumnOverride,
-  SweepCreatedResponse,
-  SweepGeometryInput,
-  SweepMethod,
-  SweepPreviewResponse,
-} from '@rhotrace/api-types';
+import type { SessionUser, SweepCreatedResponse } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
 import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
 import { conflict, unprocessable } from '../errors';
@@ -23,68 +16,28 @@ import type { RawStorage } from '../storage/raw-storage';
 import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
-import { RowConverter } from './import/convert-rows';
-import { detectColumns, publicColumns } from './import/detect-columns';
-import { findStation } from './import/find-station';
-import { SuspiciousPointFinder } from './import/flag';
-import { openTable, readTable, slices, unreadableRows } from './import/read-table';
+import { SweepRows } from './import/check-rows';
+import { publicColumns } from './import/detect-columns';
+import { planImport, type ImportChoices, type ImportPlan } from './import/plan-import';
+import { openTable, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
 import { RawCopy } from './import/store/raw-copy';
 import { rawJson, SweepStore } from './import/store/sweep-store';
-import {
-  MAX_PROBLEMS,
-  readNumber,
-  unreadableCells,
-  type OpenedSweepFile,
-  type ResolvedColumn,
-} from './parse';
-import { resolveGeometry } from './import/resolve-geometry';
+import { MAX_PROBLEMS, type OpenedSweepFile } from './parse';
 import { Sweep } from './sweep.model';
-
-/** Rows the preview shows. */
-export const PREVIEW_ROWS = 20;
 
 /** Records converted per slice: one slice is stored while the next is converted. */
 export const IMPORT_SLICE_ROWS = POINT_CHUNK;
 
 /** What `importSweep` needs; the demo seeder calls it directly. */
-export interface ImportSweepInput {
+export interface ImportSweepInput extends ImportChoices {
   waferId: number;
   file: Buffer;
   originalName: string;
-  method: SweepMethod;
-  stationId?: number | null;
-  columns?: SweepColumnOverride[];
-  geometry?: SweepGeometryInput;
 }
 
 /** The signed-in user, with the request id the audit event records. */
 export type SweepActor = SessionUser & { requestId?: string | null };
-
-/** Parses without storing: layout, guessed columns, the first rows and the problems found. */
-export async function previewSweep(
-  input: { waferId: number; file: Buffer },
-  actor: SweepActor,
-): Promise<SweepPreviewResponse> {
-  await mayUploadTo(actor, input.waferId);
-  const parsed = readTable(input.file);
-  const { layout, table } = parsed;
-  const rows = table.records.slice(0, PREVIEW_ROWS).map((cells, i) => ({
-    row: table.lines[i]!,
-    cells,
-    values: cells.map((c) => readNumber(c, layout.decimalMark) ?? null),
-  }));
-  return {
-    delimiter: layout.delimiter,
-    decimalMark: layout.decimalMark,
-    metadata: layout.metadata,
-    columns: publicColumns(parsed.columns),
-    rows,
-    rowCount: table.records.length,
-    problems: [...parsed.problems, ...unreadableCells(parsed, parsed.columns)].slice(0, 50),
-    suggestedMethod: parsed.suggestedMethod,
-  };
-}
 
 /**
  * Imports a sweep file onto a wafer as `actor`. Stores everything or nothing; throws the
@@ -125,7 +78,6 @@ async function importOnce(
   storage: RawStorage,
 ): Promise<SweepCreatedResponse> {
   const file = openTable(input.file, IMPORT_SLICE_ROWS);
-  const columns = detectColumns(file.parsed, input.columns ?? [], input.method);
   if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
   const sha256 = createHash('sha256').update(input.file).digest('hex');
   const raw = new RawCopy(storage);
@@ -140,10 +92,11 @@ async function importOnce(
           sweepId: earlier.id,
         });
       }
+      const plan = await planImport(file.parsed, input, { wafer, lot }, transaction);
       const rawKey = raw.put(input.file, transaction);
       try {
         return await storeSweep(
-          { input, actor, file, columns, sha256, storage, rawKey, wafer, lot },
+          { input, actor, file, plan, sha256, storage, rawKey, wafer },
           transaction,
         );
       } catch (error) {
@@ -162,12 +115,11 @@ interface StoreContext {
   input: ImportSweepInput;
   actor: SweepActor;
   file: OpenedSweepFile;
-  columns: ResolvedColumn[];
+  plan: ImportPlan;
   sha256: string;
   storage: RawStorage;
   rawKey: Promise<string>;
   wafer: Wafer;
-  lot: Awaited<ReturnType<typeof mayUploadTo>>['lot'];
 }
 
 /**
@@ -178,26 +130,9 @@ async function storeSweep(
   ctx: StoreContext,
   transaction: Transaction,
 ): Promise<SweepCreatedResponse> {
-  const { input, actor, file, columns, sha256, storage, rawKey, wafer, lot } = ctx;
+  const { input, actor, file, plan, sha256, storage, rawKey, wafer } = ctx;
+  const { station, geometry } = plan;
   const parsed = file.parsed;
-  const warnings: string[] = [];
-  const station = await findStation(
-    input.stationId,
-    parsed.recognised.stationName,
-    warnings,
-    transaction,
-  );
-  const geometry = resolveGeometry({
-    method: input.method,
-    request: input.geometry ?? {},
-    wafer,
-    lot,
-    station,
-    file: parsed.recognised,
-    needsRtd: columns.find((c) => c.meaning === 'temperature')?.unitInfo?.kind === 'resistance',
-  });
-  const converter = new RowConverter(parsed, columns, input.method, geometry);
-  const finder = new SuspiciousPointFinder();
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
   const store = new SweepStore(
     {
@@ -211,30 +146,27 @@ async function storeSweep(
       sha256,
       storageKind: storage.kind,
       storageKey: rawKey,
-      columnMapping: publicColumns(columns),
+      columnMapping: publicColumns(plan.columns),
       metadata: parsed.layout.metadata,
     },
     rawJson(parsed),
     transaction,
   );
+  const rows = new SweepRows(file, plan, input.method, IMPORT_SLICE_ROWS);
   try {
-    // no slice is read once the converter holds as many problems as an answer lists
-    for (const slice of slices(file, IMPORT_SLICE_ROWS, () => converter.open)) {
-      await store.write(finder.addAll(converter.next(slice)));
-    }
-    await store.write(finder.addAll(converter.finish()));
-    if (converter.problems.length) {
+    for (const points of rows.points()) await store.write(points);
+    if (rows.problems.length) {
       throw unprocessable(
         'Some rows hold values that cannot be stored; nothing was stored',
-        converter.problems.slice(0, MAX_PROBLEMS),
+        rows.problems.slice(0, MAX_PROBLEMS),
       );
     }
   } catch (error) {
     await store.abandon();
     throw error;
   }
-  const flags = finder.finish();
-  warnings.push(...converter.warnings, ...flags.warnings);
+  const flags = rows.finish();
+  const warnings = [...plan.warnings, ...flags.warnings];
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,

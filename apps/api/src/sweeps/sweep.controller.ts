@@ -3,13 +3,15 @@
  */
 import type { SweepColumnOverride } from '@rhotrace/api-types';
 import type { NextFunction, Request, Response } from 'express';
+import type { z } from 'zod';
 import { mayUploadTo } from '../access/visibility.service';
 import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { validationFailed } from '../errors';
 import { pointsCsv, safeFileName } from './sweep-csv';
-import { columnsSchema, storeSchema } from './sweep.schemas';
+import type { ImportChoices } from './import/plan-import';
+import { columnsSchema, previewSchema, storeSchema } from './sweep.schemas';
 import {
   deleteSweep,
   getSweep,
@@ -63,6 +65,17 @@ function parseColumns(text: string | undefined): SweepColumnOverride[] | undefin
   return parseOrThrow(columnsSchema, json, 'body.columns');
 }
 
+/** The store request's choices (method, station, mapping, geometry) from its text fields. */
+function choicesOf(body: z.infer<typeof previewSchema>): Partial<ImportChoices> {
+  const { method, stationId, columns, ...geometry } = body;
+  return {
+    ...(method ? { method } : {}),
+    stationId: stationId ?? null,
+    columns: parseColumns(columns),
+    geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
+  };
+}
+
 /** Handlers of sweep uploads and reads. */
 export const sweepsController = {
   /**
@@ -76,23 +89,22 @@ export const sweepsController = {
   /** `POST /api/wafers/:id/sweeps/preview` */
   async preview(req: Request, res: Response): Promise<void> {
     const waferId = parseId(req.params);
-    res.json(await previewSweep({ waferId, file: uploaded(req).buffer }, actorOf(req)));
+    const file = uploaded(req);
+    const choices = choicesOf(parseOrThrow(previewSchema, req.body ?? {}, 'body'));
+    res.json(await previewSweep({ waferId, file: file.buffer, choices }, actorOf(req)));
   },
   /** `POST /api/wafers/:id/sweeps` */
   async store(req: Request, res: Response): Promise<void> {
     const waferId = parseId(req.params);
     const file = uploaded(req);
     const body = parseOrThrow(storeSchema, req.body, 'body');
-    const { method, stationId, columns, ...geometry } = body;
     const result = await importSweep(
       {
+        ...choicesOf(body),
+        method: body.method,
         waferId,
         file: file.buffer,
         originalName: storedFileName(file.originalname),
-        method,
-        stationId: stationId ?? null,
-        columns: parseColumns(columns),
-        geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
       },
       actorOf(req),
       {

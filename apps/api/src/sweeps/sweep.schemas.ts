@@ -38,3 +38,6 @@ export const storeSchema = z
     barWidthCm: length,
   })
   .strict();
+
+/** The text fields of a preview: the store's, all optional (the method defaults to the guess). */
+export const previewSchema = storeSchema.partial();

@@ -1,0 +1,64 @@
+/**
+ * Stages 3 to 6 over a whole file, for the preview and the store alike: each slice's rows read,
+ * paired, converted, flagged and checked against the station's range. The store writes each
+ * slice's points as they come; the preview only counts them. Both see the same problems and
+ * warnings, so a file the preview passes is one the store takes.
+ */
+import type { RowProblem, SweepMethod } from '@rhotrace/api-types';
+import type { OpenedSweepFile } from '../parse';
+import { RowConverter } from './convert-rows';
+import { SuspiciousPointFinder, type FlagSummary } from './flag';
+import type { ConvertedPoint } from './import-types';
+import type { ImportPlan } from './plan-import';
+import { slices } from './read-table';
+import { StationRangeCheck } from './station-range';
+
+/** The rows of one file as points, a slice at a time. */
+export class SweepRows {
+  private readonly converter: RowConverter;
+  private readonly finder = new SuspiciousPointFinder();
+  private readonly range: StationRangeCheck;
+
+  constructor(
+    private readonly file: OpenedSweepFile,
+    plan: ImportPlan,
+    method: SweepMethod,
+    private readonly sliceRows: number,
+  ) {
+    this.converter = new RowConverter(file.parsed, plan.columns, method, plan.geometry);
+    this.range = new StationRangeCheck(plan.station);
+  }
+
+  /**
+   * Each slice's points, flagged, then those still held after the last. No slice is read once
+   * as many problems are held as an answer lists; a row of the wrong width throws the 422.
+   */
+  *points(): Generator<ConvertedPoint[]> {
+    const c = this.converter;
+    for (const slice of slices(this.file, this.sliceRows, () => c.open)) {
+      yield this.checked(c.next(slice));
+    }
+    yield this.checked(c.finish());
+  }
+
+  /** Row problems found (after `points` ran): any one of them refuses the whole file. */
+  get problems(): RowProblem[] {
+    return this.converter.problems;
+  }
+
+  /** After the last point: the flag summary, with every warning of the conversion in it. */
+  finish(): FlagSummary {
+    const flags = this.finder.finish();
+    const outside = this.range.warning();
+    flags.warnings = [
+      ...this.converter.warnings,
+      ...flags.warnings,
+      ...(outside === null ? [] : [outside]),
+    ];
+    return flags;
+  }
+
+  private checked(points: ConvertedPoint[]): ConvertedPoint[] {
+    return this.range.addAll(this.finder.addAll(points));
+  }
+}
