@@ -28,6 +28,21 @@ export interface SweepStoreOptions {
   geometry: SweepGeometryInput;
 }
 
+/** The choices a preview is checked with: the store's, the method not yet chosen or not. */
+export type SweepChoices = Omit<SweepStoreOptions, 'method'> & { method: SweepMethod | null };
+
+/** The choices as the upload's text fields (the file is appended last by the caller). */
+function choiceFields(choices: SweepChoices): FormData {
+  const body = new FormData();
+  if (choices.method) body.append('method', choices.method);
+  if (choices.stationId !== null) body.append('stationId', String(choices.stationId));
+  if (choices.columns) body.append('columns', JSON.stringify(choices.columns));
+  for (const [key, value] of Object.entries(choices.geometry)) {
+    if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
+  }
+  return body;
+}
+
 function itemsOf<T>(body: Page<T> | T[]): T[] {
   return Array.isArray(body) ? body : body.items;
 }
@@ -92,9 +107,12 @@ export class WafersApi {
       .pipe(map(itemsOf));
   }
 
-  /** Parses a file without storing it. Quiet: problems are shown against the file. */
-  preview(waferId: number, file: File): Observable<SweepPreviewResponse> {
-    const body = new FormData();
+  /**
+   * Parses a file without storing it and runs the store's checks with `choices`. Quiet:
+   * problems are shown against the file.
+   */
+  preview(waferId: number, file: File, choices?: SweepChoices): Observable<SweepPreviewResponse> {
+    const body = choices ? choiceFields(choices) : new FormData();
     body.append('file', file, file.name);
     return this.http.post<SweepPreviewResponse>(`/api/wafers/${waferId}/sweeps/preview`, body, {
       context: quietRequest(),
@@ -107,13 +125,7 @@ export class WafersApi {
     file: File,
     options: SweepStoreOptions,
   ): Observable<HttpEvent<SweepCreatedResponse>> {
-    const body = new FormData();
-    body.append('method', options.method);
-    if (options.stationId !== null) body.append('stationId', String(options.stationId));
-    if (options.columns) body.append('columns', JSON.stringify(options.columns));
-    for (const [key, value] of Object.entries(options.geometry)) {
-      if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
-    }
+    const body = choiceFields(options);
     body.append('file', file, file.name);
     return this.http.post<SweepCreatedResponse>(`/api/wafers/${waferId}/sweeps`, body, {
       reportProgress: true,

@@ -16,21 +16,29 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   other: [],
 };
 
-/** Words shown for each column meaning. */
+/**
+ * What a column holds, in the words of the mapping sentence ("Column “T (°C)” holds
+ * temperature in °C"). A new meaning needs only its entry here and its units above.
+ */
 export const MEANING_WORDS: Record<ColumnMeaning, string> = {
-  temperature: 'Temperature',
-  voltage: 'Voltage',
-  current: 'Current',
-  resistance: 'Resistance (V/I, or R_A)',
-  'resistance-b': 'Resistance R_B (van der Pauw)',
-  'sheet-resistance': 'Sheet resistance',
-  resistivity: 'Resistivity',
-  polarity: 'Current polarity',
-  'current-level': 'Current level',
-  time: 'Time',
-  index: 'Row number',
-  other: 'Keep as raw text',
+  temperature: 'temperature',
+  voltage: 'voltage',
+  current: 'current',
+  resistance: 'resistance V/I (or R_A)',
+  'resistance-b': 'resistance R_B (van der Pauw)',
+  'sheet-resistance': 'sheet resistance',
+  resistivity: 'resistivity',
+  polarity: 'current direction',
+  'current-level': 'current level',
+  time: 'time',
+  index: 'reading number',
+  other: 'nothing Rhotrace uses',
 };
+
+/** The choice offered for a meaning: "holds temperature", or "is not used". */
+export function meaningChoice(meaning: ColumnMeaning): string {
+  return meaning === 'other' ? 'is not used' : `holds ${MEANING_WORDS[meaning]}`;
+}
 
 /** Words shown for each measurement method. */
 export const METHOD_WORDS: Record<SweepMethod, string> = {

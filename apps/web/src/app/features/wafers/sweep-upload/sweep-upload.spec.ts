@@ -26,6 +26,25 @@ const PREVIEW: SweepPreviewResponse = {
   rowCount: 2,
   problems: [{ row: 3, column: 'V', problem: 'is not a number', field: 'row 3, column V' }],
   suggestedMethod: 'four-point',
+  method: 'four-point',
+  stationId: null,
+  geometry: null,
+  blocking: [{ row: 3, column: 'V', problem: '"x" is not a number', field: 'row 3, column V' }],
+  warnings: [],
+  pointCount: null,
+};
+
+/** The same file once nothing blocks it. */
+const READY: SweepPreviewResponse = {
+  ...PREVIEW,
+  problems: [],
+  blocking: [],
+  pointCount: 2,
+  geometry: {
+    thicknessCm: 0.05,
+    spacingCm: 0.1,
+    sources: { thicknessCm: 'wafer', spacingCm: 'station' },
+  },
 };
 
 async function setup() {
@@ -61,8 +80,19 @@ function choose(input: HTMLInputElement, files: File[]): void {
 }
 
 describe('SweepUpload', () => {
-  it('shows the caution for the material, previews each chosen file and marks problem rows', async () => {
-    const { fixture, backend, input } = await setup();
+  it('opens the chooser on a click on the drop zone', async () => {
+    const { fixture, input } = await setup();
+    let opened = 0;
+    input.addEventListener('click', () => opened++);
+    const zone = (fixture.nativeElement as HTMLElement).querySelector(
+      'ngx-dropzone',
+    ) as HTMLElement;
+    zone.querySelector('.drop-words')!.dispatchEvent(new MouseEvent('click', { bubbles: true }));
+    expect(opened).toBe(1);
+  });
+
+  it('previews each file, marks what blocks it and keeps Store disabled', async () => {
+    const { fixture, loader, backend, input } = await setup();
     const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
     expect(text()).toContain('GaAs is toxic when broken or abraded');
 
@@ -79,72 +109,92 @@ describe('SweepUpload', () => {
       { status: 422, statusText: 'Unprocessable' },
     );
     await fixture.whenStable();
-    expect(text()).toContain('Ready to store');
+    expect(text()).toContain('Needs attention');
+    expect(text()).not.toContain('Ready to store');
     expect(text()).toContain('This file holds no readable table');
     expect(text()).toContain('Line 3, V:');
     const badRows = (fixture.nativeElement as HTMLElement).querySelectorAll('tr.bad');
     expect(badRows).toHaveLength(1);
     expect(badRows[0]!.textContent).toContain('is not a number');
+    const store = await loader.getHarness(MatButtonHarness.with({ text: /Store 0 files/ }));
+    expect(await store.isDisabled()).toBe(true);
   });
 
-  it('sends the edited mapping, method and station and shows progress then the result', async () => {
+  it('gives each file its own method, station and mapping, checked again after each change', async () => {
     const { fixture, loader, backend, input } = await setup();
-    choose(input, [new File(['T,V,I\n80,0.01,1'], 'ramp.csv')]);
+    choose(input, [new File(['T,V,I\n80,0.01,1'], 'ramp.csv'), new File(['x'], 'square.csv')]);
     await fixture.whenStable();
-    backend.expectOne('/api/wafers/7/sweeps/preview').flush({ ...PREVIEW, problems: [] });
+    const [first, second] = backend.match('/api/wafers/7/sweeps/preview');
+    first!.flush(READY);
+    second!.flush({ ...READY, suggestedMethod: 'van-der-pauw', method: 'van-der-pauw' });
     await fixture.whenStable();
 
-    const method = await loader.getHarness(
-      MatSelectHarness.with({ selector: '.settings mat-select' }),
+    const methods = await loader.getAllHarnesses(
+      MatSelectHarness.with({ selector: '.settings mat-select[required]' }),
     );
-    expect(await method.getValueText()).toBe('Four-point probe (collinear)');
+    expect(await methods[0]!.getValueText()).toBe('Four-point probe (collinear)');
+    expect(await methods[1]!.getValueText()).toBe('Van der Pauw square');
     const [, station] = await loader.getAllHarnesses(
       MatSelectHarness.with({ selector: '.settings mat-select' }),
     );
     await station!.open();
     await station!.clickOptions({ text: 'Cryo bench' });
-    // Correct the voltage column's unit from V to mV.
-    const unitSelects = await loader.getAllHarnesses(
-      MatSelectHarness.with({ selector: '.mapping mat-select' }),
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect((recheck.request.body as FormData).get('stationId')).toBe('3');
+    recheck.flush({ ...READY, stationId: 3 });
+    await fixture.whenStable();
+    // Correct the first file's voltage unit from V to mV: checked again with the mapping.
+    const units = await loader.getAllHarnesses(
+      MatSelectHarness.with({ selector: '.unit-field mat-select' }),
     );
-    const voltageUnit = unitSelects[3]!;
-    await voltageUnit.open();
-    await voltageUnit.clickOptions({ text: 'mV' });
-
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
-    const store = backend.expectOne('/api/wafers/7/sweeps');
-    const body = store.request.body as FormData;
-    expect(body.get('method')).toBe('four-point');
-    expect(body.get('stationId')).toBe('3');
-    expect(JSON.parse(String(body.get('columns')))).toEqual([
+    await units[1]!.open();
+    await units[1]!.clickOptions({ text: 'mV' });
+    const mapped = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect(JSON.parse(String((mapped.request.body as FormData).get('columns')))).toEqual([
       { index: 0, meaning: 'temperature', unit: 'K' },
       { index: 1, meaning: 'voltage', unit: 'mV' },
       { index: 2, meaning: 'current', unit: 'mA' },
     ]);
-    expect(store.request.reportProgress).toBe(true);
+    mapped.flush({ ...READY, stationId: 3 });
+    await fixture.whenStable();
 
-    store.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 2 files/ }))).click();
+    const [ramp, square] = backend.match('/api/wafers/7/sweeps');
+    const sent = (r: typeof ramp) => r!.request.body as FormData;
+    expect(sent(ramp).get('method')).toBe('four-point');
+    expect(sent(ramp).get('stationId')).toBe('3');
+    expect(JSON.parse(String(sent(ramp).get('columns')))[1]).toEqual({
+      index: 1,
+      meaning: 'voltage',
+      unit: 'mV',
+    });
+    expect(sent(square).get('method')).toBe('van-der-pauw');
+    expect(sent(square).get('stationId')).toBeNull();
+    expect(sent(square).get('columns')).toBeNull();
+    expect(ramp!.request.reportProgress).toBe(true);
+
+    ramp!.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
     await fixture.whenStable();
     const bar = await loader.getHarness(
       MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }),
     );
     expect(await bar.getValue()).toBe(40);
-
-    store.flush(
+    ramp!.flush(
       { id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] },
       { status: 201, statusText: 'Created' },
     );
+    square!.flush({ id: 56, pointCount: 2, warnings: [] }, { status: 201, statusText: 'Created' });
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
     expect(text).toContain('Stored: 24 points');
     expect(text).toContain('2 points flagged as jumps');
   });
 
-  it('a refused store lists the rows the server names', async () => {
+  it('after a refusal the file is corrected in place and stored on the next try', async () => {
     const { fixture, loader, backend, input } = await setup();
     choose(input, [new File(['x'], 'bad.csv')]);
     await fixture.whenStable();
-    backend.expectOne('/api/wafers/7/sweeps/preview').flush({ ...PREVIEW, problems: [] });
+    backend.expectOne('/api/wafers/7/sweeps/preview').flush(READY);
     await fixture.whenStable();
     await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
     backend.expectOne('/api/wafers/7/sweeps').flush(
@@ -158,10 +208,22 @@ describe('SweepUpload', () => {
       { status: 400, statusText: 'Bad Request' },
     );
     await fixture.whenStable();
-    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Refused');
-    expect(text).toContain('nothing was stored');
-    expect(text).toContain('Line 14, I (mA):');
-    expect(text).toContain('current must be above zero');
+    const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text()).toContain('Refused');
+    expect(text()).toContain('nothing was stored');
+    expect(text()).toContain('Line 14, I (mA):');
+
+    const thickness = (fixture.nativeElement as HTMLElement).querySelector(
+      '.geo input',
+    ) as HTMLInputElement;
+    thickness.value = '0.0525';
+    thickness.dispatchEvent(new Event('change'));
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.0525');
+    recheck.flush(READY);
+    await fixture.whenStable();
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+    const retry = backend.expectOne('/api/wafers/7/sweeps');
+    expect((retry.request.body as FormData).get('thicknessCm')).toBe('0.0525');
   });
 });

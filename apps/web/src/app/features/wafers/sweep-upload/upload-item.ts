@@ -5,9 +5,11 @@ import type {
   SweepCreatedResponse,
   SweepPreviewResponse,
 } from '@rhotrace/api-types';
+import type { SweepChoices } from '../wafers-api';
 
 /** Where one chosen file is in the upload flow. */
-export type UploadStatus = 'reading' | 'ready' | 'unreadable' | 'uploading' | 'stored' | 'refused';
+export type UploadStatus =
+  'reading' | 'checking' | 'ready' | 'blocked' | 'unreadable' | 'uploading' | 'stored' | 'refused';
 
 /** One file of the upload area with everything shown about it. */
 export interface UploadItem {
@@ -15,14 +17,42 @@ export interface UploadItem {
   file: File;
   status: UploadStatus;
   preview: SweepPreviewResponse | null;
+  /** This file's own method, station and geometry (preset from what the preview detected). */
+  choices: SweepChoices;
   /** The mapping as the user edited it (starts as the detected columns). */
   columns: SweepColumn[];
   mappingEdited: boolean;
   progressPercent: number;
   result: SweepCreatedResponse | null;
+  /** The words of the last refusal (kept while the file is corrected and checked again). */
   message: string | null;
-  /** Problems by row and column, from the preview or from a refused store. */
+  /** What keeps the file from being stored: the preview's blocking list, or a refusal's. */
   problems: RowProblem[];
+}
+
+/** A new item for a chosen file, before its first preview. */
+export function newUploadItem(key: number, file: File): UploadItem {
+  return {
+    key,
+    file,
+    status: 'reading',
+    preview: null,
+    choices: { method: null, stationId: null, columns: null, geometry: {} },
+    columns: [],
+    mappingEdited: false,
+    progressPercent: 0,
+    result: null,
+    message: null,
+    problems: [],
+  };
+}
+
+/** The item's choices with its edited mapping, as the preview and the store send them. */
+export function choicesOf(item: UploadItem): SweepChoices {
+  const columns = item.mappingEdited
+    ? item.columns.map((c) => ({ index: c.index, meaning: c.meaning, unit: c.unit }))
+    : null;
+  return { ...item.choices, columns };
 }
 
 /** Server field problems (`row 12, column V (mV)`) as row problems. */
