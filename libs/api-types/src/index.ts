@@ -114,6 +114,7 @@ export type {
   RowProblem,
   PreviewRow,
   SweepPreviewResponse,
+  MetadataFinding,
   SweepColumnOverride,
   SweepGeometryInput,
   GeometrySource,

@@ -102,6 +102,32 @@ export interface SweepPreviewResponse {
   warnings: string[];
   /** Points the store would make (null while something blocks). */
   pointCount: number | null;
+  /** The file's metadata lines that fill or disagree with the records. */
+  metadataFindings: MetadataFinding[];
+}
+
+/**
+ * What a file's metadata lines say about a value the records also hold: it fills a value the
+ * records lack, or disagrees with them (the user chooses which one the sweep is converted with).
+ */
+export interface MetadataFinding {
+  /** The recognised key (`thicknessCm`, `diameterCm`, `spacingCm`, `sampleName`). */
+  key: string;
+  /** The value in words (`Thickness`, `Sample`). */
+  label: string;
+  /** The file's value in words with its unit (`380 µm`). */
+  fileText: string;
+  /** The record's value in words with where it is kept (`525 µm on the wafer`), or null. */
+  recordText: string | null;
+  agreement: 'fills' | 'disagrees';
+  /** The geometry field that takes the file's value when the user chooses it (else null). */
+  field: keyof SweepGeometryInput | null;
+  /** The file's value in the field's unit (cm), when it has a field. */
+  fileValue: number | null;
+  /** Which value the sweep is converted with under the current choices. */
+  using: 'file' | 'record';
+  /** One sentence for the parse report and the preview. */
+  sentence: string;
 }
 
 /** A column mapping override sent with the store request (JSON text in field `columns`). */

@@ -166,7 +166,8 @@ async function storeSweep(
     throw error;
   }
   const flags = rows.finish();
-  const warnings = [...plan.warnings, ...flags.warnings];
+  const disagreements = plan.metadata.filter((f) => f.agreement === 'disagrees');
+  const warnings = [...plan.warnings, ...disagreements.map((f) => f.sentence), ...flags.warnings];
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,

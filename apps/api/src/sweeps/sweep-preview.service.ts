@@ -124,5 +124,6 @@ export async function previewSweep(
     blocking,
     warnings,
     pointCount,
+    metadataFindings: plan?.metadata ?? [],
   };
 }

@@ -5,6 +5,7 @@
 import type { RowProblem, SweepPreviewResponse } from '@rhotrace/api-types';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Lot } from '../lots/lot.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { makeStation, makeWafer } from './sweep-test-helpers';
 
@@ -135,5 +136,60 @@ describe('the station range', () => {
     expect(store.status).toBe(201);
     expect(store.body.warnings).toContain(warning);
     expect(store.body.pointCount).toBe(3);
+  });
+});
+
+describe("the file's metadata lines", () => {
+  const withHeader = (sample: string) => `Sample: ${sample}\nThickness: 380 um\n${VI}`;
+
+  it('fill a value the records lack, and say so', async () => {
+    const wafer = await makeWafer();
+    const station = await makeStation({ probeSpacingCm: 0.1 });
+    const preview = await send('preview', wafer.id, withHeader(wafer.number), {
+      stationId: station.id,
+    });
+    expect(preview.body.blocking).toEqual([]);
+    expect(preview.body.geometry.thicknessCm).toBeCloseTo(0.038, 12);
+    expect(preview.body.geometry.sources.thicknessCm).toBe('file');
+    expect(preview.body.metadataFindings).toEqual([
+      expect.objectContaining({ key: 'thicknessCm', agreement: 'fills', fileText: '380 µm' }),
+    ]);
+  });
+
+  it('that disagree with the records are shown before storing, and the user chooses', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.0525 });
+    const station = await makeStation({ probeSpacingCm: 0.1 });
+    const file = withHeader('DEMO-W99');
+    const preview = await send('preview', wafer.id, file, { stationId: station.id });
+    expect(preview.body.blocking).toEqual([]);
+    expect(preview.body.geometry.thicknessCm).toBe(0.0525);
+    const [sample, thickness] = preview.body
+      .metadataFindings as SweepPreviewResponse['metadataFindings'];
+    expect(sample).toMatchObject({
+      key: 'sampleName',
+      agreement: 'disagrees',
+      fileText: 'DEMO-W99',
+    });
+    expect(thickness).toMatchObject({
+      key: 'thicknessCm',
+      agreement: 'disagrees',
+      fileText: '380 µm',
+      recordText: '525 µm on the wafer',
+      field: 'thicknessCm',
+      using: 'record',
+    });
+
+    // the user takes the file's value: the preview and the store convert with it
+    const chosen = { stationId: station.id, thicknessCm: thickness!.fileValue };
+    const again = await send('preview', wafer.id, file, chosen);
+    expect(again.body.geometry.thicknessCm).toBeCloseTo(0.038, 12);
+    expect(again.body.metadataFindings[1].using).toBe('file');
+    const stored = await send('store', wafer.id, file, { method: 'four-point', ...chosen });
+    expect(stored.status).toBe(201);
+    const lot = await Lot.findByPk(wafer.lotId);
+    expect(stored.body.warnings).toEqual([
+      `the file names sample "DEMO-W99" but was stored on wafer ${wafer.number} of lot ${lot!.code}`,
+      "the file's header gives thickness 380 µm, the record 525 µm on the wafer; the file's value was used",
+    ]);
   });
 });

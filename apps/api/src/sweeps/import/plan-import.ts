@@ -6,6 +6,7 @@
  */
 import type {
   FieldProblem,
+  MetadataFinding,
   SweepColumnOverride,
   SweepGeometry,
   SweepGeometryInput,
@@ -19,6 +20,7 @@ import type { Wafer } from '../../wafers/wafer.model';
 import { applyColumnOverrides, type ParsedSweepFile, type ResolvedColumn } from '../parse';
 import { detectColumns } from './detect-columns';
 import { findStation } from './find-station';
+import { readMetadata, type MetadataRecords } from './read-metadata';
 import { resolveGeometry } from './resolve-geometry';
 
 /** What the user chose for one file: the store request's fields. */
@@ -36,12 +38,14 @@ export interface ImportPlan {
   geometry: SweepGeometry;
   /** Warnings of the planning itself (a station named in the file but not registered). */
   warnings: string[];
+  /** The file's metadata lines that fill or disagree with the records. */
+  metadata: MetadataFinding[];
 }
 
 /** The wafer and lot an upload goes to. */
 export interface ImportRecords {
-  wafer: Pick<Wafer, 'id' | 'thicknessCm'>;
-  lot: Pick<Lot, 'thicknessCm' | 'diameterCm'>;
+  wafer: Pick<Wafer, 'id' | 'number' | 'thicknessCm'>;
+  lot: Pick<Lot, 'code' | 'thicknessCm' | 'diameterCm'>;
 }
 
 /** Runs a check; a 400 it throws adds its message and details to `problems` instead. */
@@ -97,5 +101,7 @@ export async function planImport(
       problems.flatMap((p) => p.details),
     );
   }
-  return { columns, station, geometry, warnings };
+  const compared: MetadataRecords = { ...records, station };
+  const metadata = readMetadata(parsed.recognised, compared, choices.geometry ?? {});
+  return { columns, station, geometry, warnings, metadata };
 }

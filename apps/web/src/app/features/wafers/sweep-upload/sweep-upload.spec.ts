@@ -3,6 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
+import { MatRadioGroupHarness } from '@angular/material/radio/testing';
 import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { SweepPreviewResponse } from '@rhotrace/api-types';
@@ -32,6 +34,7 @@ const PREVIEW: SweepPreviewResponse = {
   blocking: [{ row: 3, column: 'V', problem: '"x" is not a number', field: 'row 3, column V' }],
   warnings: [],
   pointCount: null,
+  metadataFindings: [],
 };
 
 /** The same file once nothing blocks it. */
@@ -225,5 +228,77 @@ describe('SweepUpload', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
     const retry = backend.expectOne('/api/wafers/7/sweeps');
     expect((retry.request.body as FormData).get('thicknessCm')).toBe('0.0525');
+  });
+
+  it("shows the header's disagreements and lets the user choose before storing", async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'w03.csv')]);
+    await fixture.whenStable();
+    backend.expectOne('/api/wafers/7/sweeps/preview').flush({
+      ...READY,
+      metadataFindings: [
+        {
+          key: 'sampleName',
+          label: 'Sample',
+          fileText: 'DEMO-W03',
+          recordText: 'wafer W01 of lot DEMO',
+          agreement: 'disagrees',
+          field: null,
+          fileValue: null,
+          using: 'record',
+          sentence: '',
+        },
+        {
+          key: 'thicknessCm',
+          label: 'Thickness',
+          fileText: '380 µm',
+          recordText: '525 µm on the wafer',
+          agreement: 'disagrees',
+          field: 'thicknessCm',
+          fileValue: 0.038,
+          using: 'record',
+          sentence: '',
+        },
+      ],
+    });
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text).toContain('Thickness 380 µm, but 525 µm on the wafer.');
+    const storeButton = () => loader.getHarness(MatButtonHarness.with({ text: /^Store/ }));
+    expect(await (await storeButton()).getText()).toBe('Store 0 files');
+
+    const thickness = await loader.getHarness(MatRadioGroupHarness);
+    await thickness.checkRadioButton({ label: /the file's 380 µm/ });
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.038');
+    recheck.flush({ ...READY, metadataFindings: [] });
+    await fixture.whenStable();
+    expect(await (await storeButton()).getText()).toBe('Store 1 file');
+  });
+
+  it('asks for a confirmation when the header names another sample', async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'w03.csv')]);
+    await fixture.whenStable();
+    const finding = {
+      key: 'sampleName',
+      label: 'Sample',
+      fileText: 'DEMO-W03',
+      recordText: 'wafer W01 of lot DEMO',
+      agreement: 'disagrees' as const,
+      field: null,
+      fileValue: null,
+      using: 'record' as const,
+      sentence: '',
+    };
+    backend
+      .expectOne('/api/wafers/7/sweeps/preview')
+      .flush({ ...READY, metadataFindings: [finding] });
+    await fixture.whenStable();
+    const storeButton = () => loader.getHarness(MatButtonHarness.with({ text: /^Store/ }));
+    expect(await (await storeButton()).isDisabled()).toBe(true);
+    await (await loader.getHarness(MatCheckboxHarness)).check();
+    expect(await (await storeButton()).getText()).toBe('Store 1 file');
+    expect(await (await storeButton()).isDisabled()).toBe(false);
   });
 });

@@ -1,13 +1,16 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import {
   COLUMN_MEANINGS,
   type ColumnMeaning,
   SWEEP_METHODS,
+  type MetadataFinding,
   type StationDto,
   type SweepGeometryInput,
 } from '@rhotrace/api-types';
@@ -40,10 +43,12 @@ const SOURCE_WORDS: Record<string, string> = {
   selector: 'rt-upload-file',
   imports: [
     MatButtonModule,
+    MatCheckboxModule,
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
     MatProgressBarModule,
+    MatRadioModule,
   ],
   templateUrl: './upload-file.html',
   styleUrl: './sweep-upload.scss',
@@ -86,6 +91,14 @@ export class UploadFile {
   protected setGeometry(key: keyof SweepGeometryInput, raw: string): void {
     const value = raw.trim() === '' ? undefined : Number(raw);
     const geometry = { ...this.item().choices.geometry, [key]: value };
+    this.store.choose(this.item().key, { geometry });
+  }
+
+  /** Converts with the file's value of a disagreeing length, or with the record's again. */
+  protected useFileValue(finding: MetadataFinding, useFile: boolean): void {
+    if (!finding.field) return;
+    const value = useFile ? (finding.fileValue ?? undefined) : undefined;
+    const geometry = { ...this.item().choices.geometry, [finding.field]: value };
     this.store.choose(this.item().key, { geometry });
   }
 

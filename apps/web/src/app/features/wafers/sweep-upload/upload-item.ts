@@ -28,6 +28,8 @@ export interface UploadItem {
   message: string | null;
   /** What keeps the file from being stored: the preview's blocking list, or a refusal's. */
   problems: RowProblem[];
+  /** True once the user said the file belongs here although its header names another sample. */
+  confirmedHere: boolean;
 }
 
 /** A new item for a chosen file, before its first preview. */
@@ -44,7 +46,19 @@ export function newUploadItem(key: number, file: File): UploadItem {
     result: null,
     message: null,
     problems: [],
+    confirmedHere: false,
   };
+}
+
+/**
+ * The metadata disagreements no value choice settles (the file names another sample): the
+ * user must confirm the file belongs on this wafer before it is stored.
+ */
+export function needsConfirmation(item: UploadItem): boolean {
+  const findings = item.preview?.metadataFindings ?? [];
+  return (
+    !item.confirmedHere && findings.some((f) => f.agreement === 'disagrees' && f.field === null)
+  );
 }
 
 /** The item's choices with its edited mapping, as the preview and the store send them. */

@@ -6,7 +6,13 @@ import { EMPTY, Subject, catchError, groupBy, mergeMap, switchMap, tap } from 'r
 import { ApiError } from '../../../core/http/api-error';
 import { WafersApi, type SweepChoices } from '../wafers-api';
 import { UNITS_BY_MEANING } from './column-units';
-import { type UploadItem, choicesOf, newUploadItem, rowProblemsFrom } from './upload-item';
+import {
+  type UploadItem,
+  choicesOf,
+  needsConfirmation,
+  newUploadItem,
+  rowProblemsFrom,
+} from './upload-item';
 
 /**
  * The files of one upload area: each is checked by the server's preview with its own choices
@@ -22,9 +28,13 @@ export class UploadStore {
   readonly waferId = signal(0);
   readonly items = signal<UploadItem[]>([]);
   /** Files the server's checks passed, ready to be stored. */
-  readonly ready = computed(() => this.items().filter((i) => i.status === 'ready'));
+  readonly ready = computed(() =>
+    this.items().filter((i) => i.status === 'ready' && !needsConfirmation(i)),
+  );
   /** Files that cannot be stored as they are. */
-  readonly blocked = computed(() => this.items().filter((i) => i.status === 'blocked'));
+  readonly blocked = computed(() =>
+    this.items().filter((i) => i.status === 'blocked' || needsConfirmation(i)),
+  );
   readonly busy = computed(() =>
     this.items().some((i) => ['reading', 'checking', 'uploading'].includes(i.status)),
   );
@@ -60,6 +70,11 @@ export class UploadStore {
   choose(key: number, change: Partial<SweepChoices>): void {
     this.patch(key, (i) => ({ choices: { ...i.choices, ...change } }));
     this.recheck(key);
+  }
+
+  /** Records that the file belongs on this wafer although its header names another sample. */
+  confirmHere(key: number, confirmed: boolean): void {
+    this.patch(key, () => ({ confirmedHere: confirmed }));
   }
 
   /** Gives a column another meaning (and a unit that fits it) and checks again. */
