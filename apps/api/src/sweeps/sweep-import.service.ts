@@ -77,7 +77,7 @@ async function importOnce(
   actor: SweepActor,
   storage: RawStorage,
 ): Promise<SweepCreatedResponse> {
-  const file = openTable(input.file, IMPORT_SLICE_ROWS);
+  const file = openTable(input.file, IMPORT_SLICE_ROWS, input.layout);
   if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
   const sha256 = createHash('sha256').update(input.file).digest('hex');
   const raw = new RawCopy(storage);

@@ -70,10 +70,10 @@ export async function previewSweep(
   actor: SweepActor,
 ): Promise<SweepPreviewResponse> {
   const { wafer, lot } = await mayUploadTo(actor, input.waferId);
-  const file = openTable(input.file, Infinity);
+  const choices = input.choices ?? {};
+  const file = openTable(input.file, Infinity, choices.layout);
   const parsed = file.parsed;
   const { layout, table } = parsed;
-  const choices = input.choices ?? {};
   const method = choices.method ?? parsed.suggestedMethod;
   const blocking: RowProblem[] = [...parsed.problems];
   const warnings: string[] = [];

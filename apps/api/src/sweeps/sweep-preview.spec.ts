@@ -193,3 +193,26 @@ describe("the file's metadata lines", () => {
     ]);
   });
 });
+
+describe('the separator and decimal mark', () => {
+  const SEMI = 'T (K);R (ohm)\n300;1,25\n310;1,31\n';
+
+  it('are detected, and a corrected one is what the preview and the store read with', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const station = await makeStation({ probeSpacingCm: 0.1 });
+    const chosen = { method: 'four-point', stationId: station.id };
+    const detected = await send('preview', wafer.id, SEMI, chosen);
+    expect([detected.body.delimiter, detected.body.decimalMark]).toEqual([';', ',']);
+    expect(detected.body.pointCount).toBe(2);
+
+    const point = await send('preview', wafer.id, SEMI, { ...chosen, decimalMark: '.' });
+    expect(point.body.decimalMark).toBe('.');
+    expect(point.body.blocking[0]).toMatchObject({ row: 2, problem: '"1,25" is not a number' });
+    const refused = await send('store', wafer.id, SEMI, { ...chosen, decimalMark: '.' });
+    expect(refused.status).toBe(422);
+
+    const both = await send('preview', wafer.id, SEMI, { delimiter: ',', decimalMark: ',' });
+    expect(both.status).toBe(400);
+    expect(both.body.error.message).toMatch(/cannot separate both/);
+  });
+});

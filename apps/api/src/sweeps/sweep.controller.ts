@@ -67,9 +67,13 @@ function parseColumns(text: string | undefined): SweepColumnOverride[] | undefin
 
 /** The store request's choices (method, station, mapping, geometry) from its text fields. */
 function choicesOf(body: z.infer<typeof previewSchema>): Partial<ImportChoices> {
-  const { method, stationId, columns, ...geometry } = body;
+  const { method, stationId, columns, delimiter, decimalMark, ...geometry } = body;
   return {
     ...(method ? { method } : {}),
+    layout: {
+      ...(delimiter ? { delimiter } : {}),
+      ...(decimalMark ? { decimalMark } : {}),
+    },
     stationId: stationId ?? null,
     columns: parseColumns(columns),
     geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),

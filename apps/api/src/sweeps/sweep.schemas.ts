@@ -31,6 +31,8 @@ export const storeSchema = z
       z.coerce.number().int().positive().optional(),
     ),
     columns: z.string().max(100_000).optional(),
+    delimiter: z.enum([',', ';', '\t']).optional(),
+    decimalMark: z.enum(['.', ',']).optional(),
     thicknessCm: length,
     diameterCm: length,
     spacingCm: length,

@@ -17,7 +17,12 @@ import { HttpError, validationFailed } from '../../errors';
 import type { Lot } from '../../lots/lot.model';
 import type { Station } from '../../stations/station.model';
 import type { Wafer } from '../../wafers/wafer.model';
-import { applyColumnOverrides, type ParsedSweepFile, type ResolvedColumn } from '../parse';
+import {
+  applyColumnOverrides,
+  type LayoutChoice,
+  type ParsedSweepFile,
+  type ResolvedColumn,
+} from '../parse';
 import { detectColumns } from './detect-columns';
 import { findStation } from './find-station';
 import { readMetadata, type MetadataRecords } from './read-metadata';
@@ -29,6 +34,8 @@ export interface ImportChoices {
   stationId?: number | null;
   columns?: SweepColumnOverride[];
   geometry?: SweepGeometryInput;
+  /** The separator and decimal mark, where the user corrected the detected ones. */
+  layout?: LayoutChoice;
 }
 
 /** What the file is converted with once the choices passed their checks. */

@@ -26,6 +26,14 @@ export interface SweepStoreOptions {
   stationId: number | null;
   columns: SweepColumnOverride[] | null;
   geometry: SweepGeometryInput;
+  /** The separator and decimal mark, where the user corrected the detected ones. */
+  layout?: SweepLayoutChoice;
+}
+
+/** A separator or decimal mark the user gave instead of the detected one. */
+export interface SweepLayoutChoice {
+  delimiter?: SweepPreviewResponse['delimiter'];
+  decimalMark?: SweepPreviewResponse['decimalMark'];
 }
 
 /** The choices a preview is checked with: the store's, the method not yet chosen or not. */
@@ -37,6 +45,8 @@ function choiceFields(choices: SweepChoices): FormData {
   if (choices.method) body.append('method', choices.method);
   if (choices.stationId !== null) body.append('stationId', String(choices.stationId));
   if (choices.columns) body.append('columns', JSON.stringify(choices.columns));
+  if (choices.layout?.delimiter) body.append('delimiter', choices.layout.delimiter);
+  if (choices.layout?.decimalMark) body.append('decimalMark', choices.layout.decimalMark);
   for (const [key, value] of Object.entries(choices.geometry)) {
     if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
   }

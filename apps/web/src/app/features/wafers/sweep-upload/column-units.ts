@@ -1,4 +1,4 @@
-import type { ColumnMeaning, SweepMethod } from '@rhotrace/api-types';
+import type { ColumnMeaning, SweepMethod, SweepPreviewResponse } from '@rhotrace/api-types';
 
 /** Unit labels the import understands for each column meaning (the API's canonical spellings). */
 export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
@@ -61,3 +61,16 @@ export function unitLabel(unit: string | null): string {
     .replace(/ohm\/sq$/, 'Ω/□')
     .replace(/ohm$/, 'Ω');
 }
+
+/** The separators the import reads, in the words of the layout sentence. */
+export const DELIMITER_WORDS: Record<SweepPreviewResponse['delimiter'], string> = {
+  ',': 'commas',
+  ';': 'semicolons',
+  '\t': 'tabs',
+};
+
+/** The decimal marks the import reads, in words with an example. */
+export const DECIMAL_WORDS: Record<SweepPreviewResponse['decimalMark'], string> = {
+  '.': 'point (1.5)',
+  ',': 'comma (1,5)',
+};

@@ -301,4 +301,35 @@ describe('SweepUpload', () => {
     expect(await (await storeButton()).getText()).toBe('Store 1 file');
     expect(await (await storeButton()).isDisabled()).toBe(false);
   });
+
+  it("words the mapping in Rhotrace's sentences and lets the separator be changed", async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'ramp.csv')]);
+    await fixture.whenStable();
+    backend.expectOne('/api/wafers/7/sweeps/preview').flush(READY);
+    await fixture.whenStable();
+    const text = () => (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ');
+    expect(text()).toContain(
+      '2 readings; values are separated by commas and written with a decimal point (1.5).',
+    );
+    expect(text()).toContain('Column “T (K)”');
+    const holds = await loader.getHarness(
+      MatSelectHarness.with({ selector: '.cell-field mat-select' }),
+    );
+    expect(await holds.getValueText()).toBe('holds temperature');
+    await holds.open();
+    const options = await holds.getOptions();
+    expect(await options.at(-1)!.getText()).toBe('is not used');
+    await holds.close();
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Change' }))).click();
+    const separator = await loader.getHarness(
+      MatSelectHarness.with({ selector: '.layout-choice mat-select' }),
+    );
+    await separator.open();
+    await separator.clickOptions({ text: 'semicolons' });
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect((recheck.request.body as FormData).get('delimiter')).toBe(';');
+    expect((recheck.request.body as FormData).get('columns')).toBeNull();
+  });
 });

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -14,7 +14,15 @@ import {
   type StationDto,
   type SweepGeometryInput,
 } from '@rhotrace/api-types';
-import { METHOD_WORDS, UNITS_BY_MEANING, meaningChoice, unitLabel } from './column-units';
+import {
+  DECIMAL_WORDS,
+  DELIMITER_WORDS,
+  METHOD_WORDS,
+  UNITS_BY_MEANING,
+  meaningChoice,
+  unitLabel,
+} from './column-units';
+import type { SweepLayoutChoice } from '../wafers-api';
 import type { UploadItem } from './upload-item';
 import { UploadStore } from './upload-store';
 
@@ -67,6 +75,14 @@ export class UploadFile {
   protected readonly unitsFor = (m: ColumnMeaning) => UNITS_BY_MEANING[m];
   protected readonly unitLabel = unitLabel;
   protected readonly geometryFields = GEOMETRY_FIELDS;
+  protected readonly delimiterWords = DELIMITER_WORDS;
+  protected readonly decimalWords = DECIMAL_WORDS;
+  protected readonly delimiters = Object.keys(DELIMITER_WORDS) as Array<
+    keyof typeof DELIMITER_WORDS
+  >;
+  protected readonly decimalMarks = Object.keys(DECIMAL_WORDS) as Array<keyof typeof DECIMAL_WORDS>;
+  /** True while the separator and decimal mark controls are open. */
+  protected readonly changingLayout = signal(false);
   protected readonly editable = computed(() =>
     ['ready', 'blocked', 'refused', 'checking'].includes(this.item().status),
   );
@@ -78,6 +94,14 @@ export class UploadFile {
       .slice(0, 3)
       .map((r) => r.cells[index] ?? '')
       .join(', ');
+  }
+
+  /** The file's header lines (`key: value`), all of them, as one line of text. */
+  protected headerLines(): string {
+    const metadata = this.item().preview?.metadata ?? {};
+    return Object.entries(metadata)
+      .map(([k, v]) => `${k}: ${v}`)
+      .join(' · ');
   }
 
   /** What the server would use for a geometry value left empty, in words. */
@@ -92,6 +116,11 @@ export class UploadFile {
     const value = raw.trim() === '' ? undefined : Number(raw);
     const geometry = { ...this.item().choices.geometry, [key]: value };
     this.store.choose(this.item().key, { geometry });
+  }
+
+  protected setLayout(change: SweepLayoutChoice): void {
+    const layout = { ...this.item().choices.layout, ...change };
+    this.store.choose(this.item().key, { layout });
   }
 
   /** Converts with the file's value of a disagreeing length, or with the record's again. */

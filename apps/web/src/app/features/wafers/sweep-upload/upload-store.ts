@@ -66,9 +66,15 @@ export class UploadStore {
     this.items.update((list) => list.filter((i) => i.key !== key));
   }
 
-  /** Changes a file's method, station or geometry and checks it again. */
+  /**
+   * Changes a file's method, station, geometry or layout and checks it again. Another separator
+   * gives other columns, so the mapping then starts again from what is detected.
+   */
   choose(key: number, change: Partial<SweepChoices>): void {
-    this.patch(key, (i) => ({ choices: { ...i.choices, ...change } }));
+    this.patch(key, (i) => ({
+      choices: { ...i.choices, ...change },
+      ...(change.layout ? { mappingEdited: false } : {}),
+    }));
     this.recheck(key);
   }
 
