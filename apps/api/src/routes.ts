@@ -14,6 +14,7 @@ import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
+import { importSettingsRouter } from './import-settings/import-settings.router';
 
 /**
  * Every API router, mounted under /api. Each feature adds its own line here.
@@ -34,5 +35,6 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));
   router.use(reportsRouter(deps));
+  router.use(importSettingsRouter(deps));
   return router;
 }

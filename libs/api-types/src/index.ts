@@ -125,4 +125,7 @@ export type {
   RawReading,
   SweepPointDto,
   SweepDto,
+  SweepLayoutInput,
+  ImportSettingsDto,
+  ImportSettingsInput,
 } from './sweeps';

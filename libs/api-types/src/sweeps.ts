@@ -104,6 +104,12 @@ export interface SweepPreviewResponse {
   pointCount: number | null;
   /** The file's metadata lines that fill or disagree with the records. */
   metadataFindings: MetadataFinding[];
+  /** The file's shape (separator and header), the key its saved settings are kept under. */
+  shape: string;
+  /** The shape in words. */
+  shapeLabel: string;
+  /** Settings saved for this shape and the sweep's station, offered for this file. */
+  savedSettings: ImportSettingsDto | null;
 }
 
 /**
@@ -219,4 +225,43 @@ export interface SweepDto extends SweepSummaryDto {
   metadata: Record<string, string>;
   parseReport: SweepParseReport;
   points: SweepPointDto[];
+}
+
+/** A separator or decimal mark given instead of the detected one. */
+export interface SweepLayoutInput {
+  delimiter?: ',' | ';' | '\t';
+  decimalMark?: '.' | ',';
+}
+
+/**
+ * How files of one shape from one station are read (`/api/import-settings`): offered by the
+ * preview when a file of that shape from that station arrives again.
+ */
+export interface ImportSettingsDto {
+  id: number;
+  stationId: number;
+  stationName: string | null;
+  /** The file shape's key (`SweepPreviewResponse.shape`). */
+  shape: string;
+  /** The shape in words (separator, columns). */
+  shapeLabel: string;
+  method: SweepMethod;
+  columns: SweepColumnOverride[];
+  geometry: SweepGeometryInput;
+  layout: SweepLayoutInput;
+  savedById: number | null;
+  savedByName: string | null;
+  updatedAt: string;
+}
+
+/** `PUT /api/import-settings`: saves (or replaces) the settings of a station and shape. */
+export interface ImportSettingsInput {
+  stationId: number;
+  shape: string;
+  /** The shape in words, as the preview gave it. */
+  shapeLabel?: string;
+  method: SweepMethod;
+  columns: SweepColumnOverride[];
+  geometry: SweepGeometryInput;
+  layout: SweepLayoutInput;
 }

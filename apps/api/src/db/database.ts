@@ -5,6 +5,7 @@ import type { DbConfig } from '../config';
 import { initAssignmentModel } from '../assignments/assignment.model';
 import { initAuditEventModel } from '../audit/audit-event.model';
 import { initFitModel } from '../fits/fit.model';
+import { initImportSettingsModel } from '../import-settings/import-settings.model';
 import { initLotModel } from '../lots/lot.model';
 import { initOutgoingEmailModel } from '../mail/outgoing-email.model';
 import { initStationModel } from '../stations/station.model';
@@ -47,6 +48,7 @@ export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}
   initAssignmentModel(sequelize);
   initSweepModels(sequelize);
   initFitModel(sequelize);
+  initImportSettingsModel(sequelize);
   initAuditEventModel(sequelize);
   initOutgoingEmailModel(sequelize);
   return sequelize;

@@ -8,8 +8,11 @@ import { createHash } from 'node:crypto';
 import type { FieldProblem, RowProblem, SweepPreviewResponse } from '@rhotrace/api-types';
 import { mayUploadTo } from '../access/visibility.service';
 import { HttpError } from '../errors';
+import { findImportSettings } from '../import-settings/import-settings.service';
 import { SweepRows } from './import/check-rows';
 import { publicColumns } from './import/detect-columns';
+import { fileShape } from './import/file-shape';
+import { findStation } from './import/find-station';
 import { planImport, type ImportChoices, type ImportPlan } from './import/plan-import';
 import { openTable } from './import/read-table';
 import { MAX_PROBLEMS, readNumber, unreadableCells, type OpenedSweepFile } from './parse';
@@ -60,6 +63,20 @@ function convertAll(
   return count;
 }
 
+/** The station a file goes with when its plan failed: the chosen one, or the one it names. */
+async function stationOf(
+  choices: Partial<ImportChoices>,
+  parsed: OpenedSweepFile['parsed'],
+): Promise<number | null> {
+  try {
+    const station = await findStation(choices.stationId, parsed.recognised.stationName, []);
+    return station?.id ?? null;
+  } catch (error) {
+    if (error instanceof HttpError && error.status === 400) return null;
+    throw error;
+  }
+}
+
 /**
  * Parses without storing and checks the file with `choices` (the store request's fields; the
  * method defaults to the suggested one): what the store would refuse is listed in `blocking`,
@@ -104,6 +121,8 @@ export async function previewSweep(
     );
     pointCount = null;
   }
+  const shape = fileShape(parsed);
+  const stationId = plan ? (plan.station?.id ?? null) : await stationOf(choices, parsed);
   const rows = table.records.slice(0, PREVIEW_ROWS).map((cells, i) => ({
     row: table.lines[i]!,
     cells,
@@ -119,11 +138,14 @@ export async function previewSweep(
     problems: [...parsed.problems, ...unreadableCells(parsed, parsed.columns)].slice(0, 50),
     suggestedMethod: parsed.suggestedMethod,
     method,
-    stationId: plan?.station?.id ?? null,
+    stationId,
     geometry: plan?.geometry ?? null,
     blocking,
     warnings,
     pointCount,
     metadataFindings: plan?.metadata ?? [],
+    shape: shape.key,
+    shapeLabel: shape.label,
+    savedSettings: await findImportSettings(stationId, shape.key),
   };
 }

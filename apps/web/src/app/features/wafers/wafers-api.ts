@@ -4,6 +4,8 @@ import type {
   AssignmentDto,
   AssignmentState,
   DopantDensityResponse,
+  ImportSettingsDto,
+  ImportSettingsInput,
   Page,
   StationDto,
   SweepCreatedResponse,
@@ -127,6 +129,11 @@ export class WafersApi {
     return this.http.post<SweepPreviewResponse>(`/api/wafers/${waferId}/sweeps/preview`, body, {
       context: quietRequest(),
     });
+  }
+
+  /** Saves how files of one shape from one station are read, for the next such file. */
+  saveImportSettings(input: ImportSettingsInput): Observable<ImportSettingsDto> {
+    return this.http.put<ImportSettingsDto>('/api/import-settings', input);
   }
 
   /** Stores a sweep, reporting upload progress. */

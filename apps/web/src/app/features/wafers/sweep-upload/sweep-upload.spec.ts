@@ -35,6 +35,9 @@ const PREVIEW: SweepPreviewResponse = {
   warnings: [],
   pointCount: null,
   metadataFindings: [],
+  shape: 'a'.repeat(64),
+  shapeLabel: '3 comma-separated columns: T (K), V, I (mA)',
+  savedSettings: null,
 };
 
 /** The same file once nothing blocks it. */
@@ -331,5 +334,67 @@ describe('SweepUpload', () => {
     const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
     expect((recheck.request.body as FormData).get('delimiter')).toBe(';');
     expect((recheck.request.body as FormData).get('columns')).toBeNull();
+  });
+
+  it('presets a file from the settings saved for its station and shape, and saves new ones', async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'again.csv'), new File(['y'], 'new.csv')]);
+    await fixture.whenStable();
+    const [again, fresh] = backend.match('/api/wafers/7/sweeps/preview');
+    const saved = {
+      id: 4,
+      stationId: 3,
+      stationName: 'Cryo bench',
+      shape: 'a'.repeat(64),
+      shapeLabel: '3 comma-separated columns: T (K), V, I (mA)',
+      method: 'bar' as const,
+      columns: [{ index: 1, meaning: 'voltage' as const, unit: 'mV' }],
+      geometry: { barLengthCm: 0.5, barWidthCm: 0.1 },
+      layout: { decimalMark: ',' as const },
+      savedById: 2,
+      savedByName: 'Demo Engineer',
+      updatedAt: '2026-11-30T10:00:00.000Z',
+    };
+    again!.flush({ ...READY, stationId: 3, savedSettings: saved });
+    fresh!.flush({ ...READY, stationId: 3 });
+    await fixture.whenStable();
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    const sent = recheck.request.body as FormData;
+    expect(sent.get('method')).toBe('bar');
+    expect(sent.get('barLengthCm')).toBe('0.5');
+    expect(sent.get('decimalMark')).toBe(',');
+    expect(JSON.parse(String(sent.get('columns')))[1]).toEqual({
+      index: 1,
+      meaning: 'voltage',
+      unit: 'mV',
+    });
+    recheck.flush({ ...READY, stationId: 3, savedSettings: saved });
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ');
+    expect(text).toContain(
+      'Preset from the settings saved for Cryo bench by Demo Engineer on 2026-11-30',
+    );
+
+    // the second file, not preset, is remembered as it was detected
+    const remember = await loader.getAllHarnesses(
+      MatButtonHarness.with({ text: 'Remember these settings for this station' }),
+    );
+    await remember[1]!.click();
+    const put = backend.expectOne({ method: 'PUT', url: '/api/import-settings' });
+    expect(put.request.body).toMatchObject({
+      stationId: 3,
+      shape: 'a'.repeat(64),
+      method: 'four-point',
+      columns: [
+        { index: 0, meaning: 'temperature', unit: 'K' },
+        { index: 1, meaning: 'voltage', unit: 'V' },
+        { index: 2, meaning: 'current', unit: 'mA' },
+      ],
+    });
+    put.flush({ ...saved, id: 5, method: 'four-point' });
+    await fixture.whenStable();
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'the next file of this shape from it is preset the same way',
+    );
   });
 });

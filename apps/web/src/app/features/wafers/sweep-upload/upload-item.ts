@@ -1,5 +1,7 @@
 import type {
   FieldProblem,
+  ImportSettingsDto,
+  ImportSettingsInput,
   RowProblem,
   SweepColumn,
   SweepCreatedResponse,
@@ -30,6 +32,10 @@ export interface UploadItem {
   problems: RowProblem[];
   /** True once the user said the file belongs here although its header names another sample. */
   confirmedHere: boolean;
+  /** The saved import settings this file was preset from (their id), if any. */
+  appliedSettingsId: number | null;
+  /** The settings this file's choices were saved as, once saved. */
+  savedSettings: ImportSettingsDto | null;
 }
 
 /** A new item for a chosen file, before its first preview. */
@@ -47,6 +53,8 @@ export function newUploadItem(key: number, file: File): UploadItem {
     message: null,
     problems: [],
     confirmedHere: false,
+    appliedSettingsId: null,
+    savedSettings: null,
   };
 }
 
@@ -81,4 +89,45 @@ export function rowProblemsFrom(details: FieldProblem[]): RowProblem[] {
       field: d.field,
     };
   });
+}
+
+/** The item's choices as import settings for its station and shape (null without either). */
+export function settingsOf(item: UploadItem): ImportSettingsInput | null {
+  const { preview, choices } = item;
+  if (!preview || choices.stationId === null || !choices.method) return null;
+  return {
+    stationId: choices.stationId,
+    shape: preview.shape,
+    shapeLabel: preview.shapeLabel,
+    method: choices.method,
+    columns: item.columns.map((c) => ({ index: c.index, meaning: c.meaning, unit: c.unit })),
+    geometry: Object.fromEntries(
+      Object.entries(choices.geometry).filter(([, v]) => typeof v === 'number'),
+    ),
+    layout: choices.layout ?? {},
+  };
+}
+
+/** The choices and mapping saved settings give a file (its columns from the preview). */
+export function presetFrom(
+  item: UploadItem,
+  settings: ImportSettingsDto,
+  columns: SweepColumn[],
+): Partial<UploadItem> {
+  const byIndex = new Map(settings.columns.map((c) => [c.index, c]));
+  return {
+    appliedSettingsId: settings.id,
+    choices: {
+      ...item.choices,
+      method: settings.method,
+      stationId: settings.stationId,
+      geometry: { ...settings.geometry },
+      layout: { ...settings.layout },
+    },
+    mappingEdited: byIndex.size > 0,
+    columns: columns.map((c) => {
+      const saved = byIndex.get(c.index);
+      return saved ? { ...c, meaning: saved.meaning, unit: saved.unit ?? null, confidence: 1 } : c;
+    }),
+  };
 }

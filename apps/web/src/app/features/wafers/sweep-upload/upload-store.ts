@@ -11,7 +11,9 @@ import {
   choicesOf,
   needsConfirmation,
   newUploadItem,
+  presetFrom,
   rowProblemsFrom,
+  settingsOf,
 } from './upload-item';
 
 /**
@@ -83,6 +85,18 @@ export class UploadStore {
     this.patch(key, () => ({ confirmedHere: confirmed }));
   }
 
+  /** Saves the file's choices as its station's settings for files of this shape. */
+  saveSettings(key: number): void {
+    const item = this.items().find((i) => i.key === key);
+    const settings = item && settingsOf(item);
+    if (!settings) return;
+    this.api
+      .saveImportSettings(settings)
+      .subscribe((saved) =>
+        this.patch(key, () => ({ savedSettings: saved, appliedSettingsId: saved.id })),
+      );
+  }
+
   /** Gives a column another meaning (and a unit that fits it) and checks again. */
   setMeaning(key: number, index: number, meaning: ColumnMeaning): void {
     const units = UNITS_BY_MEANING[meaning];
@@ -138,7 +152,16 @@ export class UploadStore {
     if (!item) return EMPTY;
     const first = item.preview === null;
     return this.api.preview(this.waferId(), item.file, first ? undefined : choicesOf(item)).pipe(
-      tap((preview) => this.patch(key, (i) => this.checked(i, preview, first))),
+      tap((preview) => {
+        this.patch(key, (i) => this.checked(i, preview, first));
+        const offered = preview.savedSettings;
+        const now = this.items().find((i) => i.key === key);
+        if (offered && now && offered.id !== now.appliedSettingsId) {
+          // Offered settings preset the file; it is checked again with them.
+          this.patch(key, (i) => presetFrom(i, offered, preview.columns));
+          this.recheck(key);
+        }
+      }),
       catchError((err: unknown) => {
         const apiError = err instanceof ApiError ? err : null;
         this.patch(key, () => ({
