@@ -45,7 +45,8 @@ export class StationRangeCheck {
         : `${kelvin(this.lowestK)} to ${kelvin(this.highestK)}`;
     return (
       `${this.rows.length} point(s) at ${seen} lie outside the ${span} that station ` +
-      `"${s.name}" spans (rows ${listRows(this.rows)}): check that the right station is chosen`
+      `"${s.name}" spans (row${this.rows.length === 1 ? '' : 's'} ${listRows(this.rows)}): ` +
+      'check that the right station is chosen'
     );
   }
 }
