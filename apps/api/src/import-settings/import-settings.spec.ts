@@ -26,7 +26,7 @@ async function preview(waferId: number, file: string, fields: Record<string, unk
   return res.body as SweepPreviewResponse;
 }
 
-const save = (body: unknown, role: 'engineer' | 'technician' = 'engineer') =>
+const save = (body: object, role: 'engineer' | 'technician' = 'engineer') =>
   request(ctx.app).put('/api/import-settings').set(ctx.auth(role)).send(body);
 
 describe('saved import settings', () => {

@@ -216,3 +216,22 @@ describe('the separator and decimal mark', () => {
     expect(both.body.error.message).toMatch(/cannot separate both/);
   });
 });
+
+describe('a station past its calibration interval', () => {
+  it('is marked on the stations list and warned about before and at storing', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const station = await makeStation({ probeSpacingCm: 0.1, calibratedOn: '2020-01-15' });
+    const listed = await request(ctx.app)
+      .get(`/api/stations/${station.id}`)
+      .set(ctx.auth('technician'));
+    expect(listed.body).toMatchObject({ calibrationDueOn: '2021-01-15', calibrationOverdue: true });
+    const { preview, store } = await both(wafer.id, VI, { stationId: station.id });
+    const warning =
+      `station "${station.name}" was last calibrated on 2020-01-15; the lab's 12-month ` +
+      'interval ended on 2021-01-15: treat its readings with care';
+    expect(preview.blocking).toEqual([]);
+    expect(preview.warnings).toContain(warning);
+    expect(store.status).toBe(201);
+    expect(store.body.warnings).toContain(warning);
+  });
+});

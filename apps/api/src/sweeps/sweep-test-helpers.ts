@@ -45,6 +45,7 @@ export async function makeStation(s: {
   name?: string;
   minTemperatureK?: number;
   maxTemperatureK?: number;
+  calibratedOn?: string | null;
 }): Promise<Station> {
   serial += 1;
   return Station.create({
@@ -55,7 +56,7 @@ export async function makeStation(s: {
     rtdR0Ohm: s.rtdR0Ohm ?? null,
     minTemperatureK: s.minTemperatureK ?? 4,
     maxTemperatureK: s.maxTemperatureK ?? 800,
-    calibratedOn: null,
+    calibratedOn: s.calibratedOn ?? null,
     notes: null,
   });
 }

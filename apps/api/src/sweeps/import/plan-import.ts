@@ -15,6 +15,7 @@ import type {
 import type { Transaction } from 'sequelize';
 import { HttpError, validationFailed } from '../../errors';
 import type { Lot } from '../../lots/lot.model';
+import { calibrationWarning } from '../../stations/calibration';
 import type { Station } from '../../stations/station.model';
 import type { Wafer } from '../../wafers/wafer.model';
 import {
@@ -102,6 +103,8 @@ export async function planImport(
       needsRtd: temperature?.unitInfo?.kind === 'resistance',
     }),
   );
+  const uncalibrated = station ? calibrationWarning(station) : null;
+  if (uncalibrated) warnings.push(uncalibrated);
   if (problems.length || !columns || !geometry) {
     throw validationFailed(
       problems[0]?.message ?? 'The file cannot be imported as chosen',

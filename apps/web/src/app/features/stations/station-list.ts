@@ -35,6 +35,11 @@ import { StationsApi } from './stations-api';
     .danger {
       color: var(--mat-sys-error);
     }
+    .overdue {
+      display: block;
+      color: var(--mat-sys-error);
+      font: var(--mat-sys-label-medium);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
