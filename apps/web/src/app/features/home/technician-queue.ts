@@ -24,7 +24,7 @@ import { HomeApi } from './home-api';
       @for (a of open(); track a.id) {
         <li class="card" [class.overdue]="a.overdue">
           <a class="title" [routerLink]="['/wafers', a.waferId]"
-            >Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a
+            >Lot {{ a.lotCode }} · wafer {{ a.waferNumber }}</a
           >
           <span>{{ a.task }}</span>
           <span class="due"

@@ -180,7 +180,7 @@ export class WaferPage {
   /** Deletes a wafer not yet measured (the API refuses a measured one with a message). */
   protected removeWafer(number: string, lotId: number): void {
     const question =
-      `Delete wafer W${number}? Its open assignments are cancelled; ` +
+      `Delete wafer ${number}? Its open assignments are cancelled; ` +
       'it stays in the change trail.';
     if (!globalThis.confirm(question)) return;
     this.api
