@@ -55,7 +55,7 @@ describe('an engineer removes records registered by mistake', () => {
     // a demo wafer with sweeps: no delete button (the API would refuse it with 409)
     await page.getByRole('link', { name: /Lots & wafers/ }).click();
     await page.getByRole('link', { name: 'LV-26-B014' }).click();
-    await wafers.getByRole('link', { name: 'W01' }).click();
+    await wafers.getByRole('link', { name: '01', exact: true }).click();
     await page.getByRole('table', { name: 'Sweeps of this wafer' }).waitFor();
     await expect(page.getByRole('button', { name: 'Delete wafer' }).count()).resolves.toBe(0);
   });
