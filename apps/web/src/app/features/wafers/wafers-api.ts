@@ -64,8 +64,9 @@ function itemsOf<T>(body: Page<T> | T[]): T[] {
 export class WafersApi {
   private readonly http = inject(HttpClient);
 
+  /** One wafer. Quiet: a page shows a hidden or missing wafer as not available. */
   get(id: number): Observable<WaferDto> {
-    return this.http.get<WaferDto>(`/api/wafers/${id}`);
+    return this.http.get<WaferDto>(`/api/wafers/${id}`, { context: quietRequest() });
   }
 
   list(query: ListQuery): Observable<Page<WaferDto>> {

@@ -25,6 +25,7 @@ import { Plot } from '../../../shared/plot/plot';
 import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
+import { NotAvailable } from '../../../shared/not-available';
 import { WafersApi } from '../wafers-api';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
@@ -50,6 +51,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     SweepUpload,
     EstimateNote,
     ValueAt23C,
+    NotAvailable,
   ],
   templateUrl: './wafer-page.html',
   styleUrl: './wafer-page.scss',
@@ -82,11 +84,13 @@ export class WaferPage {
     stream: ({ params }) => this.api.get(params),
   });
   protected readonly lot = rxResource({
-    params: () => this.wafer.value()?.lotId,
+    params: () => (this.wafer.hasValue() ? this.wafer.value().lotId : undefined),
     stream: ({ params }) => this.lots.get(params),
   });
+  // The wafer's parts load once the wafer itself is known to be visible, so a hidden wafer
+  // shows one "not available" page, not a row of empty headings and "not found" messages.
   protected readonly sweeps = rxResource({
-    params: () => this.waferId(),
+    params: () => (this.wafer.hasValue() ? this.waferId() : undefined),
     stream: ({ params }) => this.api.sweeps(params),
   });
   protected readonly dopant = rxResource({
@@ -95,7 +99,7 @@ export class WaferPage {
       params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null),
   });
   protected readonly assignments = rxResource({
-    params: () => this.waferId(),
+    params: () => (this.wafer.hasValue() ? this.waferId() : undefined),
     stream: ({ params }) =>
       this.api.assignments(
         this.seesAllAssignments ? { waferId: params } : { assignee: 'me', waferId: params },
