@@ -44,18 +44,18 @@ describe('an engineer removes records registered by mistake', () => {
     await page.getByLabel('Wafer number').fill(number);
     await page.getByRole('button', { name: 'Add', exact: true }).click();
     const wafers = page.getByRole('table', { name: 'Wafers of this lot' });
-    await wafers.getByRole('link', { name: number, exact: true }).click();
+    await wafers.getByRole('link', { name: number }).click();
     await page.getByRole('heading', { name: new RegExp(`Wafer ${number}`) }).waitFor();
     page.once('dialog', (d) => void d.accept());
     await page.getByRole('button', { name: 'Delete wafer' }).click();
     await page.waitForURL(/\/lots\/\d+$/);
     await wafers.waitFor();
-    await expect(wafers.getByRole('link', { name: number, exact: true }).count()).resolves.toBe(0);
+    await expect(wafers.getByRole('link', { name: number }).count()).resolves.toBe(0);
 
     // a demo wafer with sweeps: no delete button (the API would refuse it with 409)
     await page.getByRole('link', { name: /Lots & wafers/ }).click();
     await page.getByRole('link', { name: 'LV-26-B014' }).click();
-    await wafers.getByRole('link', { name: '01', exact: true }).click();
+    await wafers.getByRole('link', { name: 'W01' }).click();
     await page.getByRole('table', { name: 'Sweeps of this wafer' }).waitFor();
     await expect(page.getByRole('button', { name: 'Delete wafer' }).count()).resolves.toBe(0);
   });

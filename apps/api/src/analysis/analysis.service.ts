@@ -9,6 +9,7 @@ import type {
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
 import { visibleSweep, visibleWafer } from '../access/visibility.service';
 import { notFound, unprocessable } from '../errors';
+import { hallAnalysis, hallAt300K, hallFactorOf } from './hall-analysis';
 import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
@@ -33,6 +34,8 @@ export async function sweepAnalysis(
   const { points, skipped } = await sweepReadings(v.sweep);
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
+  const factor = hallFactorOf(v.sweep.parseReport);
+  const hall = factor === null ? null : hallAnalysis(points, factor);
   return {
     sweep: sweepSummary(v, skipped),
     steps,
@@ -45,6 +48,7 @@ export async function sweepAnalysis(
           dopantType: v.lot.dopantType,
         }),
     spec: specCheck(assessed.value, assessed.uncertainty, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
+    ...(hall ? { hall } : {}),
   };
 }
 
@@ -141,14 +145,14 @@ export async function compareSweeps(
     const v = await visibleSweep(user, id);
     const steps = averageSteps((await sweepReadings(v.sweep)).points);
     if (steps.length === 0) throw unprocessable(`Sweep ${id} has no usable points`);
-    loaded.push({ v, steps });
+    loaded.push({ v, steps, hall: await hallAt300K(v.sweep) });
   }
   const minK = Math.min(...loaded.map((l) => l.steps[0]!.temperatureK));
   const maxK = Math.max(...loaded.map((l) => l.steps[l.steps.length - 1]!.temperatureK));
   const grid = minK === maxK ? [minK] : temperatureGrid(minK, maxK, gridPoints);
   return {
     temperaturesK: grid,
-    curves: loaded.map(({ v, steps }) => ({
+    curves: loaded.map(({ v, steps, hall }) => ({
       sweepId: v.sweep.id,
       waferId: v.wafer.id,
       waferNumber: v.wafer.number,
@@ -158,6 +162,7 @@ export async function compareSweeps(
       minTemperatureK: steps[0]!.temperatureK,
       maxTemperatureK: steps[steps.length - 1]!.temperatureK,
       resistivityOhmCm: grid.map((t) => interpolateWithin(steps, t)),
+      ...(hall ? { hall } : {}),
     })),
   };
 }

@@ -40,6 +40,16 @@ export interface ImportSweepInput extends ImportChoices {
 export type SweepActor = SessionUser & { requestId?: string | null };
 
 /**
+ * Work a caller adds to the upload's own transaction (a station post records its key and
+ * closes its assignment there), so it commits or rolls back with the sweep: `begin` runs
+ * first, `commit` once the sweep is stored. Both run again if the upload is retried.
+ */
+export interface ImportHooks {
+  begin?: (transaction: Transaction) => Promise<void>;
+  commit?: (result: SweepCreatedResponse, transaction: Transaction) => Promise<void>;
+}
+
+/**
  * Imports a sweep file onto a wafer as `actor`. Stores everything or nothing; throws the
  * API's errors (404 hidden wafer, 400 mapping or geometry, 409 duplicate, 422 unreadable rows,
  * 503 when the database refused it twice for reasons of the moment). The raw file goes to
@@ -49,12 +59,12 @@ export type SweepActor = SessionUser & { requestId?: string | null };
 export async function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
-  options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
+  options: { storage?: RawStorage; onRetry?: (error: unknown) => void; hooks?: ImportHooks } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
   return retryTransientOnce(
     'upload',
-    () => importOnce(input, actor, storage).catch(lostSweepRow),
+    () => importOnce(input, actor, storage, options.hooks ?? {}).catch(lostSweepRow),
     options.onRetry,
   );
 }
@@ -76,6 +86,7 @@ async function importOnce(
   input: ImportSweepInput,
   actor: SweepActor,
   storage: RawStorage,
+  hooks: ImportHooks,
 ): Promise<SweepCreatedResponse> {
   const file = openTable(input.file, IMPORT_SLICE_ROWS, input.layout);
   if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
@@ -83,6 +94,7 @@ async function importOnce(
   const raw = new RawCopy(storage);
   try {
     return await Sweep.sequelize!.transaction(async (transaction) => {
+      await hooks.begin?.(transaction);
       const { wafer, lot } = await mayUploadTo(actor, input.waferId, transaction);
       // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
       await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
@@ -95,10 +107,12 @@ async function importOnce(
       const plan = await planImport(file.parsed, input, { wafer, lot }, transaction);
       const rawKey = raw.put(input.file, transaction);
       try {
-        return await storeSweep(
+        const result = await storeSweep(
           { input, actor, file, plan, sha256, storage, rawKey, wafer },
           transaction,
         );
+        await hooks.commit?.(result, transaction);
+        return result;
       } catch (error) {
         await raw.settle();
         throw error;
@@ -175,6 +189,7 @@ async function storeSweep(
     rowCount: parsed.table.records.length,
     warnings,
     flaggedPoints: flags.flagged,
+    ...(rows.hallReport ? { hall: rows.hallReport } : {}),
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
     actorId: actor.id,

@@ -52,7 +52,8 @@ export function storedFileName(multerName: string): string {
   return kept || 'sweep.csv';
 }
 
-function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
+/** The `columns` field of an upload: JSON text of `{ index, meaning, unit }` entries. */
+export function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
   if (text === undefined || text.trim() === '') return undefined;
   let json: unknown;
   try {
@@ -67,9 +68,10 @@ function parseColumns(text: string | undefined): SweepColumnOverride[] | undefin
 
 /** The store request's choices (method, station, mapping, geometry) from its text fields. */
 function choicesOf(body: z.infer<typeof previewSchema>): Partial<ImportChoices> {
-  const { method, stationId, columns, delimiter, decimalMark, ...geometry } = body;
+  const { method, stationId, columns, delimiter, decimalMark, hallFactor, ...geometry } = body;
   return {
     ...(method ? { method } : {}),
+    ...(hallFactor === undefined ? {} : { hallFactor }),
     layout: {
       ...(delimiter ? { delimiter } : {}),
       ...(decimalMark ? { decimalMark } : {}),

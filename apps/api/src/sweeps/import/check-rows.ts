@@ -8,6 +8,7 @@ import type { RowProblem, SweepMethod } from '@rhotrace/api-types';
 import type { OpenedSweepFile } from '../parse';
 import { RowConverter } from './convert-rows';
 import { SuspiciousPointFinder, type FlagSummary } from './flag';
+import { HallSummary } from './hall-summary';
 import type { ConvertedPoint } from './import-types';
 import type { ImportPlan } from './plan-import';
 import { slices } from './read-table';
@@ -18,6 +19,8 @@ export class SweepRows {
   private readonly converter: RowConverter;
   private readonly finder = new SuspiciousPointFinder();
   private readonly range: StationRangeCheck;
+  /** The Hall sweep's whole-sweep checks (null for other methods). */
+  private readonly hall: HallSummary | null;
 
   constructor(
     private readonly file: OpenedSweepFile,
@@ -25,8 +28,11 @@ export class SweepRows {
     method: SweepMethod,
     private readonly sliceRows: number,
   ) {
-    this.converter = new RowConverter(file.parsed, plan.columns, method, plan.geometry);
+    const { columns, geometry, settings } = plan;
+    this.converter = new RowConverter(file.parsed, columns, method, geometry, settings);
     this.range = new StationRangeCheck(plan.station);
+    const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
+    this.hall = method === 'hall' ? new HallSummary(settings, reversals) : null;
   }
 
   /**
@@ -53,12 +59,19 @@ export class SweepRows {
     flags.warnings = [
       ...this.converter.warnings,
       ...flags.warnings,
+      ...(this.hall?.warnings ?? []),
       ...(outside === null ? [] : [outside]),
     ];
     return flags;
   }
 
+  /** The Hall sweep's part of the parse report (after `finish`), or null for other methods. */
+  get hallReport(): HallSummary['report'] | null {
+    return this.hall ? this.hall.report : null;
+  }
+
   private checked(points: ConvertedPoint[]): ConvertedPoint[] {
-    return this.range.addAll(this.finder.addAll(points));
+    const watched = this.hall ? this.hall.addAll(points) : points;
+    return this.range.addAll(this.finder.addAll(watched));
   }
 }

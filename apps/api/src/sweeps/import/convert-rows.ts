@@ -9,6 +9,7 @@ import type { ConvertedPoint, Reading } from './import-types';
 import { PolarityPairer, type ReadingGroup } from './pair-polarities';
 import { RowReader } from './read-row';
 import type { Slice } from './read-table';
+import type { MethodSettings } from './methods';
 import { pointMaker } from './to-point';
 
 /** Converts a file's records to points a slice at a time. */
@@ -25,11 +26,12 @@ export class RowConverter {
     columns: ResolvedColumn[],
     method: SweepMethod,
     geometry: SweepGeometry,
+    settings?: MethodSettings,
   ) {
     this.problems = [...parsed.problems];
     const currentA = parsed.recognised.currentA;
     this.rows = new RowReader(parsed, columns, method, geometry, currentA, this.problems);
-    this.toPoint = pointMaker(method, geometry, columns, this.problems);
+    this.toPoint = pointMaker(method, geometry, columns, this.problems, settings);
   }
 
   /** True while more problems may still be collected. */

@@ -6,6 +6,7 @@
  */
 import type {
   FieldProblem,
+  HallFactorName,
   MetadataFinding,
   SweepColumnOverride,
   SweepGeometry,
@@ -26,6 +27,7 @@ import {
 } from '../parse';
 import { detectColumns } from './detect-columns';
 import { findStation } from './find-station';
+import { hallSettings } from './hall-summary';
 import { readMetadata, type MetadataRecords } from './read-metadata';
 import { resolveGeometry } from './resolve-geometry';
 
@@ -37,6 +39,8 @@ export interface ImportChoices {
   geometry?: SweepGeometryInput;
   /** The separator and decimal mark, where the user corrected the detected ones. */
   layout?: LayoutChoice;
+  /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
+  hallFactor?: number | HallFactorName;
 }
 
 /** What the file is converted with once the choices passed their checks. */
@@ -48,6 +52,8 @@ export interface ImportPlan {
   warnings: string[];
   /** The file's metadata lines that fill or disagree with the records. */
   metadata: MetadataFinding[];
+  /** What the method computes with besides the geometry (the Hall factor). */
+  settings: ReturnType<typeof hallSettings>;
 }
 
 /** The wafer and lot an upload goes to. */
@@ -103,9 +109,10 @@ export async function planImport(
       needsRtd: temperature?.unitInfo?.kind === 'resistance',
     }),
   );
+  const settings = await collect(problems, () => hallSettings(choices.method, choices.hallFactor));
   const uncalibrated = station ? calibrationWarning(station) : null;
   if (uncalibrated) warnings.push(uncalibrated);
-  if (problems.length || !columns || !geometry) {
+  if (problems.length || !columns || !geometry || !settings) {
     throw validationFailed(
       problems[0]?.message ?? 'The file cannot be imported as chosen',
       problems.flatMap((p) => p.details),
@@ -113,5 +120,5 @@ export async function planImport(
   }
   const compared: MetadataRecords = { ...records, station };
   const metadata = readMetadata(parsed.recognised, compared, choices.geometry ?? {});
-  return { columns, station, geometry, warnings, metadata };
+  return { columns, station, geometry, warnings, metadata, settings };
 }

@@ -71,7 +71,7 @@ import { CompareApi } from './compare-api';
               [checked]="chosen().includes(c.sweep.id)"
               (change)="toggle(c.sweep.id, $event.checked)"
             >
-              {{ c.lotCode }} · wafer {{ c.wafer.number }} · {{ c.sweep.originalName }}
+              {{ c.lotCode }} · Wafer {{ c.wafer.number }} · {{ c.sweep.originalName }}
             </mat-checkbox>
           }
         </fieldset>
@@ -133,7 +133,7 @@ export class Compare {
       data: data.curves.map((c, i) => ({
         type: 'scatter',
         mode: 'lines+markers',
-        name: `${c.lotCode} wafer ${c.waferNumber} (#${c.sweepId})`,
+        name: `${c.lotCode} Wafer ${c.waferNumber} (#${c.sweepId})`,
         x,
         y: c.resistivityOhmCm,
         line: { color: seriesColour(i), width: 2 },

@@ -40,6 +40,8 @@ export class UploadStore {
   readonly busy = computed(() =>
     this.items().some((i) => ['reading', 'checking', 'uploading'].includes(i.status)),
   );
+  /** True when a file is to be stored as a Hall sweep (a magnet's cautions apply). */
+  readonly measuresHall = computed(() => this.items().some((i) => i.choices.method === 'hall'));
   /** Ids of the sweeps stored, in order. */
   readonly stored = new Subject<number>();
 
