@@ -126,112 +126,124 @@ describe('SweepUpload', () => {
     expect(await store.isDisabled()).toBe(true);
   });
 
-  it('gives each file its own method, station and mapping, checked again after each change', async () => {
-    const { fixture, loader, backend, input } = await setup();
-    choose(input, [new File(['T,V,I\n80,0.01,1'], 'ramp.csv'), new File(['x'], 'square.csv')]);
-    await fixture.whenStable();
-    const [first, second] = backend.match('/api/wafers/7/sweeps/preview');
-    first!.flush(READY);
-    second!.flush({ ...READY, suggestedMethod: 'van-der-pauw', method: 'van-der-pauw' });
-    await fixture.whenStable();
+  // many harness steps: a loaded two-core machine needs more than the default 5 s
+  it(
+    'gives each file its own method, station and mapping, checked again after each change',
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['T,V,I\n80,0.01,1'], 'ramp.csv'), new File(['x'], 'square.csv')]);
+      await fixture.whenStable();
+      const [first, second] = backend.match('/api/wafers/7/sweeps/preview');
+      first!.flush(READY);
+      second!.flush({ ...READY, suggestedMethod: 'van-der-pauw', method: 'van-der-pauw' });
+      await fixture.whenStable();
 
-    const methods = await loader.getAllHarnesses(
-      MatSelectHarness.with({ selector: '.settings mat-select[required]' }),
-    );
-    expect(await methods[0]!.getValueText()).toBe('Four-point probe (collinear)');
-    expect(await methods[1]!.getValueText()).toBe('Van der Pauw square');
-    const [, station] = await loader.getAllHarnesses(
-      MatSelectHarness.with({ selector: '.settings mat-select' }),
-    );
-    await station!.open();
-    await station!.clickOptions({ text: 'Cryo bench' });
-    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
-    expect((recheck.request.body as FormData).get('stationId')).toBe('3');
-    recheck.flush({ ...READY, stationId: 3 });
-    await fixture.whenStable();
-    // Correct the first file's voltage unit from V to mV: checked again with the mapping.
-    const units = await loader.getAllHarnesses(
-      MatSelectHarness.with({ selector: '.unit-field mat-select' }),
-    );
-    await units[1]!.open();
-    await units[1]!.clickOptions({ text: 'mV' });
-    const mapped = backend.expectOne('/api/wafers/7/sweeps/preview');
-    expect(JSON.parse(String((mapped.request.body as FormData).get('columns')))).toEqual([
-      { index: 0, meaning: 'temperature', unit: 'K' },
-      { index: 1, meaning: 'voltage', unit: 'mV' },
-      { index: 2, meaning: 'current', unit: 'mA' },
-    ]);
-    mapped.flush({ ...READY, stationId: 3 });
-    await fixture.whenStable();
+      const methods = await loader.getAllHarnesses(
+        MatSelectHarness.with({ selector: '.settings mat-select[required]' }),
+      );
+      expect(await methods[0]!.getValueText()).toBe('Four-point probe (collinear)');
+      expect(await methods[1]!.getValueText()).toBe('Van der Pauw square');
+      const [, station] = await loader.getAllHarnesses(
+        MatSelectHarness.with({ selector: '.settings mat-select' }),
+      );
+      await station!.open();
+      await station!.clickOptions({ text: 'Cryo bench' });
+      const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((recheck.request.body as FormData).get('stationId')).toBe('3');
+      recheck.flush({ ...READY, stationId: 3 });
+      await fixture.whenStable();
+      // Correct the first file's voltage unit from V to mV: checked again with the mapping.
+      const units = await loader.getAllHarnesses(
+        MatSelectHarness.with({ selector: '.unit-field mat-select' }),
+      );
+      await units[1]!.open();
+      await units[1]!.clickOptions({ text: 'mV' });
+      const mapped = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect(JSON.parse(String((mapped.request.body as FormData).get('columns')))).toEqual([
+        { index: 0, meaning: 'temperature', unit: 'K' },
+        { index: 1, meaning: 'voltage', unit: 'mV' },
+        { index: 2, meaning: 'current', unit: 'mA' },
+      ]);
+      mapped.flush({ ...READY, stationId: 3 });
+      await fixture.whenStable();
 
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 2 files/ }))).click();
-    const [ramp, square] = backend.match('/api/wafers/7/sweeps');
-    const sent = (r: typeof ramp) => r!.request.body as FormData;
-    expect(sent(ramp).get('method')).toBe('four-point');
-    expect(sent(ramp).get('stationId')).toBe('3');
-    expect(JSON.parse(String(sent(ramp).get('columns')))[1]).toEqual({
-      index: 1,
-      meaning: 'voltage',
-      unit: 'mV',
-    });
-    expect(sent(square).get('method')).toBe('van-der-pauw');
-    expect(sent(square).get('stationId')).toBeNull();
-    expect(sent(square).get('columns')).toBeNull();
-    expect(ramp!.request.reportProgress).toBe(true);
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 2 files/ }))).click();
+      const [ramp, square] = backend.match('/api/wafers/7/sweeps');
+      const sent = (r: typeof ramp) => r!.request.body as FormData;
+      expect(sent(ramp).get('method')).toBe('four-point');
+      expect(sent(ramp).get('stationId')).toBe('3');
+      expect(JSON.parse(String(sent(ramp).get('columns')))[1]).toEqual({
+        index: 1,
+        meaning: 'voltage',
+        unit: 'mV',
+      });
+      expect(sent(square).get('method')).toBe('van-der-pauw');
+      expect(sent(square).get('stationId')).toBeNull();
+      expect(sent(square).get('columns')).toBeNull();
+      expect(ramp!.request.reportProgress).toBe(true);
 
-    ramp!.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
-    await fixture.whenStable();
-    const bar = await loader.getHarness(
-      MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }),
-    );
-    expect(await bar.getValue()).toBe(40);
-    ramp!.flush(
-      { id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] },
-      { status: 201, statusText: 'Created' },
-    );
-    square!.flush({ id: 56, pointCount: 2, warnings: [] }, { status: 201, statusText: 'Created' });
-    await fixture.whenStable();
-    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Stored: 24 points');
-    expect(text).toContain('2 points flagged as jumps');
-  });
+      ramp!.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
+      await fixture.whenStable();
+      const bar = await loader.getHarness(
+        MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }),
+      );
+      expect(await bar.getValue()).toBe(40);
+      ramp!.flush(
+        { id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] },
+        { status: 201, statusText: 'Created' },
+      );
+      square!.flush(
+        { id: 56, pointCount: 2, warnings: [] },
+        { status: 201, statusText: 'Created' },
+      );
+      await fixture.whenStable();
+      const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+      expect(text).toContain('Stored: 24 points');
+      expect(text).toContain('2 points flagged as jumps');
+    },
+  );
 
-  it('after a refusal the file is corrected in place and stored on the next try', async () => {
-    const { fixture, loader, backend, input } = await setup();
-    choose(input, [new File(['x'], 'bad.csv')]);
-    await fixture.whenStable();
-    backend.expectOne('/api/wafers/7/sweeps/preview').flush(READY);
-    await fixture.whenStable();
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
-    backend.expectOne('/api/wafers/7/sweeps').flush(
-      {
-        error: {
-          code: 'validation_failed',
-          message: 'The file has rows that cannot be stored; nothing was stored',
-          details: [{ field: 'row 14, column I (mA)', problem: 'current must be above zero' }],
+  it(
+    'after a refusal the file is corrected in place and stored on the next try',
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['x'], 'bad.csv')]);
+      await fixture.whenStable();
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(READY);
+      await fixture.whenStable();
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      backend.expectOne('/api/wafers/7/sweeps').flush(
+        {
+          error: {
+            code: 'validation_failed',
+            message: 'The file has rows that cannot be stored; nothing was stored',
+            details: [{ field: 'row 14, column I (mA)', problem: 'current must be above zero' }],
+          },
         },
-      },
-      { status: 400, statusText: 'Bad Request' },
-    );
-    await fixture.whenStable();
-    const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text()).toContain('Refused');
-    expect(text()).toContain('nothing was stored');
-    expect(text()).toContain('Line 14, I (mA):');
+        { status: 400, statusText: 'Bad Request' },
+      );
+      await fixture.whenStable();
+      const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
+      expect(text()).toContain('Refused');
+      expect(text()).toContain('nothing was stored');
+      expect(text()).toContain('Line 14, I (mA):');
 
-    const thickness = (fixture.nativeElement as HTMLElement).querySelector(
-      '.geo input',
-    ) as HTMLInputElement;
-    thickness.value = '0.0525';
-    thickness.dispatchEvent(new Event('change'));
-    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
-    expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.0525');
-    recheck.flush(READY);
-    await fixture.whenStable();
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
-    const retry = backend.expectOne('/api/wafers/7/sweeps');
-    expect((retry.request.body as FormData).get('thicknessCm')).toBe('0.0525');
-  });
+      const thickness = (fixture.nativeElement as HTMLElement).querySelector(
+        '.geo input',
+      ) as HTMLInputElement;
+      thickness.value = '0.0525';
+      thickness.dispatchEvent(new Event('change'));
+      const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.0525');
+      recheck.flush(READY);
+      await fixture.whenStable();
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      const retry = backend.expectOne('/api/wafers/7/sweeps');
+      expect((retry.request.body as FormData).get('thicknessCm')).toBe('0.0525');
+    },
+  );
 
   it("shows the header's disagreements and lets the user choose before storing", async () => {
     const { fixture, loader, backend, input } = await setup();

@@ -70,7 +70,8 @@ export class UploadFile {
 
   protected readonly methods = SWEEP_METHODS;
   protected readonly methodWords = METHOD_WORDS;
-  protected readonly meanings = COLUMN_MEANINGS;
+  /** Every meaning a column may hold, "is not used" last. */
+  protected readonly meanings = [...COLUMN_MEANINGS.filter((m) => m !== 'other'), 'other' as const];
   protected readonly meaningChoice = meaningChoice;
   protected readonly unitsFor = (m: ColumnMeaning) => UNITS_BY_MEANING[m];
   protected readonly unitLabel = unitLabel;
