@@ -17,6 +17,7 @@ import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
 import { importSettingsRouter } from './import-settings/import-settings.router';
+import { mapsRouter } from './maps/maps.router';
 import { openApiRouter } from './openapi/openapi.router';
 import { searchRouter } from './search/search.router';
 import { plannerRouter } from './planner/planner.router';
@@ -44,6 +45,7 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));
   router.use(reportsRouter(deps));
+  router.use(mapsRouter(deps));
   router.use(plannerRouter(deps));
   router.use(importSettingsRouter(deps));
   return router;

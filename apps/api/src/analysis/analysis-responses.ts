@@ -8,6 +8,7 @@ import type {
 import { UNCERTAINTY_SOURCES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { dateTime } from '../openapi/shapes';
+import { hallAnalysisSchema, hallAt300KSchema } from './hall-responses';
 
 const regime = z.enum(['freeze-out', 'extrinsic', 'intrinsic']);
 const verdict = z.enum(['pass', 'fail', 'indeterminate']);
@@ -94,6 +95,7 @@ export const sweepAnalysisResponse = z
         reason: z.string().nullable(),
       })
       .strict(),
+    hall: hallAnalysisSchema.optional(),
   })
   .strict() satisfies z.ZodType<SweepAnalysisResponse>;
 
@@ -154,6 +156,18 @@ export const lotSummaryResponse = z
               })
               .strict(),
           ),
+          hall: hallAt300KSchema.nullable().optional(),
+          uniformity: z
+            .object({
+              temperatureK: z.number(),
+              siteCount: z.number().int(),
+              stdDevPercent: nullableNumber,
+              rangePercent: z.number(),
+            })
+            .strict()
+            .nullable()
+            .optional()
+            .describe("A map wafer's uniformity at the step nearest 23 °C"),
         })
         .strict(),
     ),
@@ -173,6 +187,18 @@ export const lotSummaryResponse = z
         maxOhmCm: nullableNumber,
         cpk: nullableNumber,
         cpkReason: z.string().nullable(),
+        uniformity: z
+          .object({
+            count: z.number().int(),
+            meanStdDevPercent: z.number(),
+            minStdDevPercent: z.number(),
+            maxStdDevPercent: z.number(),
+            stdDevOfStdDevPercent: nullableNumber,
+          })
+          .strict()
+          .nullable()
+          .optional()
+          .describe("The spread of the map wafers' uniformities"),
       })
       .strict(),
   })
@@ -193,6 +219,7 @@ export const compareResponse = z
           minTemperatureK: z.number(),
           maxTemperatureK: z.number(),
           resistivityOhmCm: z.array(nullableNumber),
+          hall: hallAt300KSchema.optional(),
         })
         .strict(),
     ),

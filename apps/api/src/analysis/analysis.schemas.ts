@@ -37,6 +37,11 @@ export const curveSchema = z
       errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }),
     }),
     doping: dopingSchema.optional(),
+    mobilityScale: z
+      .number({ invalid_type_error: 'must be a number' })
+      .gt(0, 'must be above 0')
+      .max(1e6, 'must be at most 1e6')
+      .optional(),
     fromK: temperature('fromK'),
     toK: temperature('toK'),
     steps: z
@@ -53,3 +58,11 @@ export const compareSchema = z.object({
   sweeps: z.string({ required_error: 'is required' }).min(1, 'is required'),
   points: z.coerce.number().int('must be a whole number').min(2).max(2000).default(200),
 });
+
+/**
+ * `GET /api/sweeps/:id/analysis` query: on a map sweep, `site` names one site (its label, or
+ * `x,y` in mm); without it the map mean is analysed.
+ */
+export const analysisQuerySchema = z
+  .object({ site: z.string().trim().min(1, 'must name a site').max(64).optional() })
+  .passthrough();

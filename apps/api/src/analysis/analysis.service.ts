@@ -29,9 +29,10 @@ export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusP
 export async function sweepAnalysis(
   user: SessionUser,
   sweepId: number,
+  site: string | null = null,
 ): Promise<SweepAnalysisResponse> {
   const v = await visibleSweep(user, sweepId);
-  const { points, skipped } = await sweepReadings(v.sweep);
+  const { points, skipped } = await sweepReadings(v.sweep, undefined, site);
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   const factor = hallFactorOf(v.sweep.parseReport);

@@ -116,7 +116,7 @@ export async function previewFit(
   const stepToleranceK = request.stepToleranceK ?? PHYSICS_DEFAULTS.fitStepToleranceK;
   const temperatureUncertaintyK =
     request.temperatureUncertaintyK ?? PHYSICS_DEFAULTS.fitTemperatureUncertaintyK;
-  const readings = await sweepFitReadings(v.sweep, includeFlagged);
+  const readings = await sweepFitReadings(v.sweep, includeFlagged, request.site ?? null);
   const window = windowPoints(readings.points, request.minK, request.maxK);
   const run = runFitKind(request.kind, request, {
     points: window.points,
@@ -152,6 +152,7 @@ export async function previewFit(
       includeFlagged,
       stepToleranceK,
       temperatureUncertaintyK,
+      ...(request.site !== undefined ? { site: request.site } : {}),
     },
     windowMinK: window.minK,
     windowMaxK: window.maxK,

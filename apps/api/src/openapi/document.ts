@@ -13,6 +13,8 @@ import { registerFitsApi } from '../fits/fit.openapi';
 import { registerHealthApi } from '../health/health.openapi';
 import { registerImportSettingsApi } from '../import-settings/import-settings.openapi';
 import { registerLotsApi } from '../lots/lots.openapi';
+import { registerMapsApi } from '../maps/maps.openapi';
+import { registerPlannerApi } from '../planner/planner.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
 import { registerStationPostApi } from '../station-posts/station-post.openapi';
@@ -45,7 +47,9 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerFitsApi,
   registerReportsApi,
   registerDevMailApi,
+  registerPlannerApi,
   registerSearchApi,
+  registerMapsApi,
 ];
 
 /** The generated document (OpenAPI 3.1). */

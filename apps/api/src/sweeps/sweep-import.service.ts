@@ -148,6 +148,7 @@ async function storeSweep(
   const { station, geometry } = plan;
   const parsed = file.parsed;
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
+  const rows = new SweepRows(file, plan, input.method, IMPORT_SLICE_ROWS);
   const store = new SweepStore(
     {
       waferId: wafer.id,
@@ -162,11 +163,11 @@ async function storeSweep(
       storageKey: rawKey,
       columnMapping: publicColumns(plan.columns),
       metadata: parsed.layout.metadata,
+      mapInfo: rows.mapInfo,
     },
     rawJson(parsed),
     transaction,
   );
-  const rows = new SweepRows(file, plan, input.method, IMPORT_SLICE_ROWS);
   try {
     for (const points of rows.points()) await store.write(points);
     if (rows.problems.length) {

@@ -66,9 +66,10 @@ export function parseColumns(text: string | undefined): SweepColumnOverride[] | 
   return parseOrThrow(columnsSchema, json, 'body.columns');
 }
 
-/** The store request's choices (method, station, mapping, geometry) from its text fields. */
+/** The store request's choices (method, station, mapping, geometry, map) from its text fields. */
 function choicesOf(body: z.infer<typeof previewSchema>): Partial<ImportChoices> {
-  const { method, stationId, columns, delimiter, decimalMark, hallFactor, ...geometry } = body;
+  const { method, stationId, columns, delimiter, decimalMark, hallFactor, ...rest } = body;
+  const { sitePattern, edgeExclusionMm, ...geometry } = rest;
   return {
     ...(method ? { method } : {}),
     ...(hallFactor === undefined ? {} : { hallFactor }),
@@ -79,6 +80,10 @@ function choicesOf(body: z.infer<typeof previewSchema>): Partial<ImportChoices> 
     stationId: stationId ?? null,
     columns: parseColumns(columns),
     geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
+    map: {
+      ...(sitePattern !== undefined && { sitePattern }),
+      ...(edgeExclusionMm !== undefined && { edgeExclusionMm }),
+    },
   };
 }
 

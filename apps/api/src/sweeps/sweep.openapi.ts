@@ -10,7 +10,9 @@ import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { dateTime, fileBody } from '../openapi/shapes';
 import { importSettingsSchema } from '../import-settings/import-settings.openapi';
+import { sweepMapInfoSchema } from '../maps/maps.openapi';
 import { previewSchema as previewForm, storeSchema } from './sweep.schemas';
+import { hallImportReportSchema, pointQuantitiesSchema } from '../analysis/hall-responses';
 
 const GEOMETRY_KEYS = ['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'];
 const geometrySource = z.enum(['request', 'wafer', 'lot', 'station', 'file']);
@@ -66,6 +68,10 @@ const summaryShape = {
     .nullable()
     .optional()
     .describe('Set when a probe station posted the sweep with its token'),
+  map: sweepMapInfoSchema
+    .nullable()
+    .optional()
+    .describe('Set when the sweep is a wafer map (its points carry sites)'),
 };
 
 /** A sweep without its points. */
@@ -86,6 +92,13 @@ const point = z
     sheetResistanceOhmSq: z.number().nullable(),
     resistivityOhmCm: z.number(),
     flags: z.array(z.enum(POINT_FLAGS)),
+    quantities: pointQuantitiesSchema.nullable().optional(),
+    site: z
+      .object({ xMm: z.number(), yMm: z.number(), label: z.string().nullable() })
+      .strict()
+      .nullable()
+      .optional()
+      .describe('Where on the wafer (map sweeps), mm from the centre'),
   })
   .strict();
 
@@ -104,6 +117,7 @@ const sweepSchema = registry.register(
           rowCount: z.number().int(),
           warnings: z.array(z.string()),
           flaggedPoints: z.number().int(),
+          hall: hallImportReportSchema.optional(),
         })
         .strict(),
       points: z.array(point),

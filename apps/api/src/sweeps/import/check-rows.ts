@@ -4,12 +4,12 @@
  * slice's points as they come; the preview only counts them. Both see the same problems and
  * warnings, so a file the preview passes is one the store takes.
  */
-import type { RowProblem, SweepMethod } from '@rhotrace/api-types';
+import type { RowProblem, SweepMapInfo, SweepMethod } from '@rhotrace/api-types';
 import type { OpenedSweepFile } from '../parse';
 import { RowConverter } from './convert-rows';
 import { SuspiciousPointFinder, type FlagSummary } from './flag';
 import { HallSummary } from './hall-summary';
-import type { ConvertedPoint } from './import-types';
+import { listRows, type ConvertedPoint } from './import-types';
 import type { ImportPlan } from './plan-import';
 import { slices } from './read-table';
 import { StationRangeCheck } from './station-range';
@@ -28,8 +28,8 @@ export class SweepRows {
     method: SweepMethod,
     private readonly sliceRows: number,
   ) {
-    const { columns, geometry, settings } = plan;
-    this.converter = new RowConverter(file.parsed, columns, method, geometry, settings);
+    const { columns, geometry, settings, placer } = plan;
+    this.converter = new RowConverter(file.parsed, columns, method, geometry, settings, placer);
     this.range = new StationRangeCheck(plan.station);
     const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
     this.hall = method === 'hall' ? new HallSummary(settings, reversals) : null;
@@ -60,6 +60,7 @@ export class SweepRows {
       ...this.converter.warnings,
       ...flags.warnings,
       ...(this.hall?.warnings ?? []),
+      ...this.mapWarnings(),
       ...(outside === null ? [] : [outside]),
     ];
     return flags;
@@ -68,6 +69,21 @@ export class SweepRows {
   /** The Hall sweep's part of the parse report (after `finish`), or null for other methods. */
   get hallReport(): HallSummary['report'] | null {
     return this.hall ? this.hall.report : null;
+  }
+
+  /** A map's placement settings (diameter, edge exclusion, pattern), or null for a sweep. */
+  get mapInfo(): SweepMapInfo | null {
+    return this.converter.placer?.info ?? null;
+  }
+
+  /** What the map stage noticed without refusing it. */
+  private mapWarnings(): string[] {
+    const rows = this.converter.placer?.tipOffWafer ?? [];
+    if (!rows.length) return [];
+    return [
+      `${rows.length} site(s) lie so near the edge that the probe's outer tip is off the wafer; ` +
+        `they are kept but excluded, with the edge factor of a tip on the edge (rows ${listRows(rows)})`,
+    ];
   }
 
   private checked(points: ConvertedPoint[]): ConvertedPoint[] {

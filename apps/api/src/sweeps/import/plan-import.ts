@@ -8,9 +8,11 @@ import type {
   FieldProblem,
   HallFactorName,
   MetadataFinding,
+  RowProblem,
   SweepColumnOverride,
   SweepGeometry,
   SweepGeometryInput,
+  SweepMapInput,
   SweepMethod,
 } from '@rhotrace/api-types';
 import type { Transaction } from 'sequelize';
@@ -30,6 +32,7 @@ import { findStation } from './find-station';
 import { hallSettings } from './hall-summary';
 import { readMetadata, type MetadataRecords } from './read-metadata';
 import { resolveGeometry } from './resolve-geometry';
+import { hasSites, SitePlacer } from './sites';
 
 /** What the user chose for one file: the store request's fields. */
 export interface ImportChoices {
@@ -41,7 +44,12 @@ export interface ImportChoices {
   layout?: LayoutChoice;
   /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
   hallFactor?: number | HallFactorName;
+  /** Map fields (site pattern, edge exclusion); used when the columns place readings at sites. */
+  map?: SweepMapInput;
 }
+
+/** Builds a map's site placer over the converter's problem list (null: not a map). */
+export type PlacerFactory = ((problems: RowProblem[]) => SitePlacer) | null;
 
 /** What the file is converted with once the choices passed their checks. */
 export interface ImportPlan {
@@ -54,6 +62,8 @@ export interface ImportPlan {
   metadata: MetadataFinding[];
   /** What the method computes with besides the geometry (the Hall factor). */
   settings: ReturnType<typeof hallSettings>;
+  /** Places a map's readings on the wafer (null when the columns carry no sites). */
+  placer: PlacerFactory;
 }
 
 /** The wafer and lot an upload goes to. */
@@ -98,6 +108,7 @@ export async function planImport(
   // The geometry is checked even when the mapping was refused, so both are listed at once.
   const mapped = columns ?? applyColumnOverrides(parsed.columns, overrides).columns;
   const temperature = mapped.find((c) => c.meaning === 'temperature');
+  const isMap = hasSites(mapped);
   const geometry = await collect(problems, () =>
     resolveGeometry({
       method: choices.method,
@@ -107,12 +118,14 @@ export async function planImport(
       station,
       file: parsed.recognised,
       needsRtd: temperature?.unitInfo?.kind === 'resistance',
+      isMap,
     }),
   );
+  const placer = await collect(problems, () => placerOf(choices, columns, geometry));
   const settings = await collect(problems, () => hallSettings(choices.method, choices.hallFactor));
   const uncalibrated = station ? calibrationWarning(station) : null;
   if (uncalibrated) warnings.push(uncalibrated);
-  if (problems.length || !columns || !geometry || !settings) {
+  if (problems.length || !columns || !geometry || !settings || placer === null) {
     throw validationFailed(
       problems[0]?.message ?? 'The file cannot be imported as chosen',
       problems.flatMap((p) => p.details),
@@ -120,5 +133,21 @@ export async function planImport(
   }
   const compared: MetadataRecords = { ...records, station };
   const metadata = readMetadata(parsed.recognised, compared, choices.geometry ?? {});
-  return { columns, station, geometry, warnings, metadata, settings };
+  return { columns, station, geometry, warnings, metadata, settings, placer: placer.factory };
+}
+
+/**
+ * A map's placer factory, its fields (pattern, edge exclusion, diameter) checked once here so a
+ * refusal joins the plan's 400; `factory` is null when the columns carry no sites.
+ */
+function placerOf(
+  choices: ImportChoices,
+  columns: ResolvedColumn[] | null,
+  geometry: SweepGeometry | null,
+): { factory: PlacerFactory } {
+  if (!columns || !geometry || !hasSites(columns)) return { factory: null };
+  const make = (problems: RowProblem[]) =>
+    new SitePlacer(choices.map ?? {}, choices.method, columns, geometry, problems);
+  make([]);
+  return { factory: make };
 }

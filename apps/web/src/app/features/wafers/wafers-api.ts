@@ -11,6 +11,7 @@ import type {
   SweepCreatedResponse,
   SweepDto,
   SweepGeometryInput,
+  SweepMapInput,
   SweepColumnOverride,
   SweepMethod,
   SweepPreviewResponse,
@@ -30,6 +31,8 @@ export interface SweepStoreOptions {
   geometry: SweepGeometryInput;
   /** The separator and decimal mark, where the user corrected the detected ones. */
   layout?: SweepLayoutChoice;
+  /** Map fields, sent when set (files with site columns). */
+  map?: SweepMapInput;
 }
 
 /** A separator or decimal mark the user gave instead of the detected one. */
@@ -52,6 +55,10 @@ function choiceFields(choices: SweepChoices): FormData {
   for (const [key, value] of Object.entries(choices.geometry)) {
     if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
   }
+  const site = choices.map;
+  if (site?.sitePattern) body.append('sitePattern', site.sitePattern);
+  if (site?.edgeExclusionMm !== undefined && Number.isFinite(site.edgeExclusionMm))
+    body.append('edgeExclusionMm', String(site.edgeExclusionMm));
   return body;
 }
 

@@ -14,6 +14,7 @@ import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
 import { SavedFits } from '../saved-fits/saved-fits';
 
+import { MapView } from '../../maps/map-view/map-view';
 /**
  * Studying one sweep: the page around its parts (model overlay, Arrhenius window, full-model or
  * metal fits, saved fits). The parts share one `AnalysisStore`, provided here.
@@ -30,6 +31,7 @@ import { SavedFits } from '../saved-fits/saved-fits';
     ModelFit,
     MetalFits,
     SavedFits,
+    MapView,
     HallStudy,
   ],
   providers: [AnalysisStore],

@@ -14,6 +14,10 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   time: ['s', 'ms', 'min', 'h'],
   index: [],
   other: [],
+  'site-x': ['mm', 'cm', 'um'],
+  'site-y': ['mm', 'cm', 'um'],
+  site: [],
+  'site-label': [],
   'magnetic-field': ['T', 'mT', 'G', 'kG'],
   'hall-voltage': ['V', 'mV', 'uV', 'nV'],
   'hall-voltage-pp': ['V', 'mV', 'uV', 'nV'],
@@ -39,6 +43,10 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   time: 'time',
   index: 'reading number',
   other: 'nothing Rhotrace uses',
+  'site-x': 'map site x (from the wafer centre)',
+  'site-y': 'map site y (away from the flat or notch)',
+  site: 'map site number (of the chosen pattern)',
+  'site-label': 'map site name',
   'magnetic-field': 'magnetic field',
   'hall-voltage': 'Hall voltage (offsets removed)',
   'hall-voltage-pp': 'Hall voltage at +B, +I',
@@ -46,6 +54,13 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   'hall-voltage-np': 'Hall voltage at −B, +I',
   'hall-voltage-nn': 'Hall voltage at −B, −I',
 };
+
+/** How sure the column detection is, in words (a choice made by hand is certain). */
+export function confidenceWords(confidence: number): string {
+  if (confidence >= 0.9) return 'high';
+  if (confidence >= 0.6) return 'medium: check it';
+  return 'low: choose by hand';
+}
 
 /** The choice offered for a meaning: "holds temperature", or "is not used". */
 export function meaningChoice(meaning: ColumnMeaning): string {

@@ -13,12 +13,15 @@ import {
   type MetadataFinding,
   type StationDto,
   type SweepGeometryInput,
+  type SweepMapInput,
 } from '@rhotrace/api-types';
+import { SITE_PATTERN_IDS } from '@rhotrace/physics';
 import {
   DECIMAL_WORDS,
   DELIMITER_WORDS,
   METHOD_WORDS,
   UNITS_BY_MEANING,
+  confidenceWords,
   meaningChoice,
   unitLabel,
 } from './column-units';
@@ -76,6 +79,13 @@ export class UploadFile {
   protected readonly unitsFor = (m: ColumnMeaning) => UNITS_BY_MEANING[m];
   protected readonly unitLabel = unitLabel;
   protected readonly geometryFields = GEOMETRY_FIELDS;
+  protected readonly confidenceWords = confidenceWords;
+  /** Map fields: the patterns a `site` column may number. */
+  protected readonly sitePatterns = SITE_PATTERN_IDS;
+  /** True when the file's columns place readings at sites (it is stored as a wafer map). */
+  protected readonly hasSites = computed(() =>
+    this.item().columns.some((c) => c.meaning === 'site' || c.meaning === 'site-x'),
+  );
   protected readonly delimiterWords = DELIMITER_WORDS;
   protected readonly decimalWords = DECIMAL_WORDS;
   protected readonly delimiters = Object.keys(DELIMITER_WORDS) as Array<
@@ -117,6 +127,15 @@ export class UploadFile {
     const value = raw.trim() === '' ? undefined : Number(raw);
     const geometry = { ...this.item().choices.geometry, [key]: value };
     this.store.choose(this.item().key, { geometry });
+  }
+
+  protected setMap(change: SweepMapInput): void {
+    const map = { ...this.item().choices.map, ...change };
+    this.store.choose(this.item().key, { map });
+  }
+
+  protected setEdgeExclusion(raw: string): void {
+    this.setMap({ edgeExclusionMm: raw.trim() === '' ? undefined : Number(raw) });
   }
 
   protected setLayout(change: SweepLayoutChoice): void {
