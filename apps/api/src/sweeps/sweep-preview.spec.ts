@@ -102,6 +102,43 @@ describe('the preview blocks what the store refuses, in the same words', () => {
     expect(words(store.body.error.details)).toEqual(words(preview.body.blocking));
   });
 
+  it('a map site outside the wafer, naming its row and column', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05, diameterCm: 15 });
+    const file = 'x (mm),y (mm),T (K),rho (ohm cm)\n0,0,296,10\n60,60,296,12\n';
+    const { preview, store } = await both(wafer.id, file, { method: 'resistivity' });
+    expect(preview.blocking).toEqual([
+      expect.objectContaining({
+        row: 3,
+        column: 'x (mm)',
+        problem: expect.stringMatching(/outside the wafer \(radius 75 mm\)/),
+      }),
+    ]);
+    expect(preview.pointCount).toBeNull();
+    expect(store.status).toBe(422);
+    expect(words(store.body.error.details)).toEqual(words(preview.blocking));
+  });
+
+  it('numbered map sites without their pattern, until it is given', async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05, diameterCm: 10 });
+    const file = 'site,T (K),rho (ohm cm)\n1,296,10\n5,296,11\n';
+    const { preview, store } = await both(wafer.id, file, { method: 'resistivity' });
+    expect(preview.blocking.map((p) => p.field)).toEqual(['sitePattern']);
+    expect(store.status).toBe(400);
+    expect(words(store.body.error.details)).toEqual(words(preview.blocking));
+
+    const chosen = { method: 'resistivity', sitePattern: 'centre-5', edgeExclusionMm: 3 };
+    const again = await both(wafer.id, file, chosen);
+    expect(again.preview.blocking).toEqual([]);
+    expect(again.preview.pointCount).toBe(2);
+    expect(again.store.status, JSON.stringify(again.store.body)).toBe(201);
+    const map = await request(ctx.app)
+      .get(`/api/sweeps/${again.store.body.id}/map`)
+      .set(ctx.auth('engineer'));
+    expect(map.body.map).toEqual(
+      expect.objectContaining({ diameterMm: 100, edgeExclusionMm: 3, pattern: 'centre-5' }),
+    );
+  });
+
   it('a reading at or below 0 K', async () => {
     const wafer = await makeWafer({ thicknessCm: 0.05 });
     const station = await makeStation({ probeSpacingCm: 0.1 });
