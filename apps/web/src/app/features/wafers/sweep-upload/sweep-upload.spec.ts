@@ -245,6 +245,56 @@ describe('SweepUpload', () => {
     },
   );
 
+  it(
+    "asks a file with site columns for the map's pattern and edge exclusion, and sends them",
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['x'], 'map.csv')]);
+      await fixture.whenStable();
+      const mapFile: SweepPreviewResponse = {
+        ...READY,
+        suggestedMethod: 'resistivity',
+        method: 'resistivity',
+        columns: [
+          { index: 0, header: 'site', meaning: 'site', unit: null, confidence: 0.5 },
+          { index: 1, header: 'T (K)', meaning: 'temperature', unit: 'K', confidence: 1 },
+          { index: 2, header: 'rho', meaning: 'resistivity', unit: 'ohm_cm', confidence: 1 },
+        ],
+      };
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(mapFile);
+      await fixture.whenStable();
+      const host = fixture.nativeElement as HTMLElement;
+      expect(host.querySelector('[aria-label="Wafer map of map.csv"]')).not.toBeNull();
+      // an unsure guess is named in words beside the column
+      expect(host.textContent).toContain('detection: low: choose by hand');
+
+      const pattern = await loader.getHarness(
+        MatSelectHarness.with({ selector: '[aria-label="Wafer map of map.csv"] mat-select' }),
+      );
+      await pattern.open();
+      await pattern.clickOptions({ text: 'centre-5' });
+      const picked = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((picked.request.body as FormData).get('sitePattern')).toBe('centre-5');
+      picked.flush(mapFile);
+      await fixture.whenStable();
+      const edge = host.querySelector(
+        '[aria-label="Wafer map of map.csv"] input',
+      ) as HTMLInputElement;
+      edge.value = '5';
+      edge.dispatchEvent(new Event('change'));
+      const edged = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((edged.request.body as FormData).get('edgeExclusionMm')).toBe('5');
+      edged.flush(mapFile);
+      await fixture.whenStable();
+
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      const stored = backend.expectOne('/api/wafers/7/sweeps').request.body as FormData;
+      expect(stored.get('sitePattern')).toBe('centre-5');
+      expect(stored.get('edgeExclusionMm')).toBe('5');
+    },
+  );
+
   it("shows the header's disagreements and lets the user choose before storing", async () => {
     const { fixture, loader, backend, input } = await setup();
     choose(input, [new File(['x'], 'w03.csv')]);
