@@ -13,9 +13,7 @@ import {
   type MetadataFinding,
   type StationDto,
   type SweepGeometryInput,
-  type SweepMapInput,
 } from '@rhotrace/api-types';
-import { SITE_PATTERN_IDS } from '@rhotrace/physics';
 import {
   DECIMAL_WORDS,
   DELIMITER_WORDS,
@@ -27,6 +25,7 @@ import {
 } from './column-units';
 import type { SweepLayoutChoice } from '../wafers-api';
 import type { UploadItem } from './upload-item';
+import { UploadMapFields } from './upload-map-fields';
 import { UploadStore } from './upload-store';
 
 const GEOMETRY_FIELDS: ReadonlyArray<{ key: keyof SweepGeometryInput; label: string }> = [
@@ -60,6 +59,7 @@ const SOURCE_WORDS: Record<string, string> = {
     MatSelectModule,
     MatProgressBarModule,
     MatRadioModule,
+    UploadMapFields,
   ],
   templateUrl: './upload-file.html',
   styleUrl: './sweep-upload.scss',
@@ -79,13 +79,6 @@ export class UploadFile {
   protected readonly unitsFor = (m: ColumnMeaning) => UNITS_BY_MEANING[m];
   protected readonly unitLabel = unitLabel;
   protected readonly geometryFields = GEOMETRY_FIELDS;
-  protected readonly confidenceWords = confidenceWords;
-  /** Map fields: the patterns a `site` column may number. */
-  protected readonly sitePatterns = SITE_PATTERN_IDS;
-  /** True when the file's columns place readings at sites (it is stored as a wafer map). */
-  protected readonly hasSites = computed(() =>
-    this.item().columns.some((c) => c.meaning === 'site' || c.meaning === 'site-x'),
-  );
   protected readonly delimiterWords = DELIMITER_WORDS;
   protected readonly decimalWords = DECIMAL_WORDS;
   protected readonly delimiters = Object.keys(DELIMITER_WORDS) as Array<
@@ -129,13 +122,9 @@ export class UploadFile {
     this.store.choose(this.item().key, { geometry });
   }
 
-  protected setMap(change: SweepMapInput): void {
-    const map = { ...this.item().choices.map, ...change };
-    this.store.choose(this.item().key, { map });
-  }
-
-  protected setEdgeExclusion(raw: string): void {
-    this.setMap({ edgeExclusionMm: raw.trim() === '' ? undefined : Number(raw) });
+  /** An unsure column guess in words ("detection: medium: check it"); empty when sure. */
+  protected guessNote(confidence: number): string {
+    return confidence < 0.9 ? `detection: ${confidenceWords(confidence)}` : '';
   }
 
   protected setLayout(change: SweepLayoutChoice): void {
