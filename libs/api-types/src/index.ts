@@ -162,6 +162,7 @@ export type {
   RowProblem,
   PreviewRow,
   SweepPreviewResponse,
+  MetadataFinding,
   SweepColumnOverride,
   SweepGeometryInput,
   GeometrySource,
@@ -176,4 +177,7 @@ export type {
   HallImportReport,
   SweepSite,
   SweepDto,
+  SweepLayoutInput,
+  ImportSettingsDto,
+  ImportSettingsInput,
 } from './sweeps';

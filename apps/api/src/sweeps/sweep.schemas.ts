@@ -54,6 +54,8 @@ export const storeSchema = z
       z.coerce.number().int().positive().optional(),
     ),
     columns: z.string().max(100_000).optional(),
+    delimiter: z.enum([',', ';', '\t']).optional(),
+    decimalMark: z.enum(['.', ',']).optional(),
     thicknessCm: length,
     diameterCm: length,
     spacingCm: length,
@@ -79,3 +81,6 @@ export const storeSchema = z
     hallFactor,
   })
   .strict();
+
+/** The text fields of a preview: the store's, all optional (the method defaults to the guess). */
+export const previewSchema = storeSchema.partial();

@@ -15,6 +15,8 @@ export interface RecognisedMetadata {
   currentA?: number;
   rtdR0Ohm?: number;
   method?: string;
+  /** The sample or wafer the file says it was measured on (`Sample: DEMO-W03`). */
+  sampleName?: string;
 }
 
 const LENGTH_CM: Record<string, number> = {
@@ -69,6 +71,7 @@ const KEYS: Array<[RegExp, (v: string, out: RecognisedMetadata) => void]> = [
     },
   ],
   [/^(method|measurement|technique|configuration)$/i, (v, o) => (o.method = v)],
+  [/^(sample|wafer|specimen)( ?(name|id|no\.?|number))?$/i, (v, o) => (o.sampleName = v)],
 ];
 
 /** Reads the recognised keys; unknown keys stay in the sweep's metadata only. */
