@@ -117,6 +117,7 @@ export type {
   StationDto,
   AssignmentDto,
   AuditChangeDto,
+  AssignmentSweepDto,
   AssignmentStationUpload,
   AuditEventDto,
   LotListQuery,

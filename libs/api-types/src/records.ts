@@ -102,6 +102,8 @@ export interface AssignmentDto {
   stationUpload?: AssignmentStationUpload | null;
   /** The measurement plan attached to the assignment, when one is. */
   plan?: AssignmentPlanDto | null;
+  /** The sweeps the assignee uploaded that fulfil this task, oldest first. */
+  sweeps?: AssignmentSweepDto[];
   createdAt: string;
   updatedAt: string;
 }
@@ -114,6 +116,13 @@ export interface AuditChangeDto {
   /** null when the record did not exist before (created) or after (deleted). */
   before: string | null;
   after: string | null;
+}
+
+/** A sweep that fulfils a task (uploaded by its assignee to the task's wafer). */
+export interface AssignmentSweepDto {
+  id: number;
+  originalName: string;
+  createdAt: string;
 }
 
 /** A station's post that fulfilled an assignment. */

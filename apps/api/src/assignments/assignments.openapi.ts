@@ -25,6 +25,14 @@ export const assignmentDtoSchema = registry.register(
       overdue: z.boolean(),
       safetyCautions: z.array(z.string()).optional(),
       plan: assignmentPlanSchema.nullable().optional(),
+      sweeps: z
+        .array(
+          z
+            .object({ id: z.number().int(), originalName: z.string(), createdAt: dateTime })
+            .strict(),
+        )
+        .optional()
+        .describe('The sweeps the assignee uploaded that fulfil this task'),
       stationId: z.number().int().nullable().optional(),
       stationUpload: z
         .object({

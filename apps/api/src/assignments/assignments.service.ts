@@ -1,6 +1,5 @@
 import {
   type AssignmentDto,
-  type AssignmentStationUpload,
   type AssignmentState,
   type Page,
   type SessionUser,
@@ -14,80 +13,21 @@ import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
 import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
-import { stationUploadsByAssignment } from '../station-posts/station-uploads';
 import { Station } from '../stations/station.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
 import { inTransaction } from '../db/connection';
 import type { AssignmentPlan } from './assignment-plan.model';
-import { plansOf, setAssignmentPlan, toPlanDto } from './assignment-plan.service';
+import { setAssignmentPlan } from './assignment-plan.service';
 import type { PlannerInput } from '../planner/planner.schemas';
 
-/** States in which an assignment is still open (and can become overdue). */
-export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
+import { OPEN_STATES, related, toAssignmentDto } from './assignment-dto';
+
+export { OPEN_STATES, toAssignmentDto };
+
 /** The order an assignee may move their own assignment along. */
 const FORWARD: AssignmentState[] = ['assigned', 'in progress', 'done'];
-
-interface Related {
-  wafers: Map<number, Wafer>;
-  lots: Map<number, Lot>;
-  users: Map<number, User>;
-  stationUploads: Map<number, AssignmentStationUpload>;
-  plans: Map<number, AssignmentPlan>;
-}
-
-async function related(rows: Assignment[], transaction?: Transaction): Promise<Related> {
-  const waferIds = [...new Set(rows.map((a) => a.waferId))];
-  const wafers = waferIds.length
-    ? await Wafer.findAll({ where: { id: { [Op.in]: waferIds } }, paranoid: false, transaction })
-    : [];
-  const lotIds = [...new Set(wafers.map((w) => w.lotId))];
-  const lots = lotIds.length
-    ? await Lot.findAll({ where: { id: { [Op.in]: lotIds } }, paranoid: false, transaction })
-    : [];
-  const userIds = [...new Set(rows.map((a) => a.assigneeId))];
-  const users = userIds.length
-    ? await User.findAll({ where: { id: { [Op.in]: userIds } }, transaction })
-    : [];
-  const stationed = rows.filter((a) => a.stationId != null).map((a) => a.id);
-  return {
-    wafers: new Map(wafers.map((w) => [w.id, w])),
-    lots: new Map(lots.map((l) => [l.id, l])),
-    users: new Map(users.map((u) => [u.id, u])),
-    stationUploads: await stationUploadsByAssignment(stationed, transaction),
-    plans: await plansOf(
-      rows.map((a) => a.id),
-      transaction,
-    ),
-  };
-}
-
-/** The API's view of an assignment, with wafer number, lot code, assignee and safety notes. */
-export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
-  const wafer = r?.wafers.get(a.waferId);
-  const lot = wafer ? r?.lots.get(wafer.lotId) : undefined;
-  return {
-    id: a.id,
-    waferId: a.waferId,
-    ...(wafer ? { waferNumber: wafer.number } : {}),
-    ...(lot ? { lotCode: lot.code } : {}),
-    assigneeId: a.assigneeId,
-    ...(r?.users.get(a.assigneeId) ? { assigneeName: r.users.get(a.assigneeId)!.name } : {}),
-    assignedById: a.assignedById,
-    task: a.task,
-    dueDate: a.dueDate,
-    state: a.state,
-    notes: a.notes,
-    overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
-    ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
-    stationId: a.stationId ?? null,
-    ...(r ? { stationUpload: r.stationUploads.get(a.id) ?? null } : {}),
-    ...(r ? { plan: r.plans.has(a.id) ? toPlanDto(r.plans.get(a.id)!) : null } : {}),
-    createdAt: a.createdAt.toISOString(),
-    updatedAt: a.updatedAt.toISOString(),
-  };
-}
 
 /** The audit snapshot of an assignment (its own columns only). */
 const snapshot = (a: Assignment) => toAssignmentDto(a);

@@ -25,6 +25,7 @@ import { RawCopy } from './import/store/raw-copy';
 import { rawJson, SweepStore } from './import/store/sweep-store';
 import { MAX_PROBLEMS, type OpenedSweepFile } from './parse';
 import { Sweep } from './sweep.model';
+import { followUpload } from '../assignments/follow-upload';
 
 /** Records converted per slice: one slice is stored while the next is converted. */
 export const IMPORT_SLICE_ROWS = POINT_CHUNK;
@@ -111,6 +112,7 @@ async function importOnce(
           { input, actor, file, plan, sha256, storage, rawKey, wafer },
           transaction,
         );
+        await followUpload(actor, wafer.id, result.id, transaction);
         await hooks.commit?.(result, transaction);
         return result;
       } catch (error) {

@@ -29,6 +29,7 @@ const task = {
   state: 'assigned',
   notes: null,
   overdue: true,
+  sweeps: [{ id: 41, originalName: 'W03-cryo.csv', createdAt: '2026-11-29T10:00:00.000Z' }],
   createdAt: '2026-11-20T00:00:00.000Z',
   updatedAt: '2026-11-20T00:00:00.000Z',
 } as AssignmentDto;
@@ -73,6 +74,14 @@ async function setup() {
 }
 
 describe('Worklist', () => {
+  it('lists the sweeps that fulfil a task', async () => {
+    const { fixture } = await setup();
+    const link = [...(fixture.nativeElement as HTMLElement).querySelectorAll('a')].find(
+      (a) => a.textContent?.trim() === 'W03-cryo.csv',
+    );
+    expect(link?.getAttribute('href')).toBe('/sweeps/41');
+  });
+
   it('hands a task to another person from its row', async () => {
     const { api, loader } = await setup();
     const who = await loader.getHarness(

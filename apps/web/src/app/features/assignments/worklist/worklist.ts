@@ -46,6 +46,11 @@ import { AssignForm } from './assign-form';
     .assignee-field {
       width: 150px;
     }
+    .fulfilled {
+      display: block;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
     .due-input {
       font: inherit;
       color: inherit;
