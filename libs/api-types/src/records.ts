@@ -54,6 +54,8 @@ export interface WaferDto {
   thicknessCm: number | null;
   state: WaferState;
   notes: string | null;
+  /** The sweep chosen to give the 23 °C value; null: the newest that reaches 23 °C counts. */
+  countedSweepId: number | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -199,6 +201,8 @@ export interface AssignmentListQuery {
 
 export type WaferInput = Pick<WaferDto, 'number' | 'thicknessCm' | 'notes'> & {
   state?: WaferState;
+  /** `PATCH` only: the sweep that counts for the 23 °C value (null: the newest). */
+  countedSweepId?: number | null;
 };
 export type StationInput = Omit<StationDto, 'id' | 'createdAt' | 'updatedAt'>;
 

@@ -68,7 +68,10 @@ export async function assessSweep(
   return { value, uncertainty };
 }
 
-/** A wafer's newest sweep that gives a 23 °C value, or the reason none does. */
+/**
+ * The sweep that gives a wafer its 23 °C value: the one an engineer chose (`countedSweepId`), else
+ * the newest that reaches 23 °C; or the reason none does.
+ */
 export async function waferAssessment(
   wafer: Wafer,
   lot: Lot,
@@ -80,6 +83,16 @@ export async function waferAssessment(
       ['id', 'DESC'],
     ],
   });
+  // A sweep an engineer chose counts, whether or not it reaches 23 °C (its reason then says so).
+  const chosen = sweeps.find((s) => s.id === wafer.countedSweepId);
+  if (chosen) {
+    const steps = averageSteps((await sweepReadings(chosen)).points);
+    return {
+      sweepId: chosen.id,
+      sweepCount: sweeps.length,
+      ...(await assessSweep(chosen, wafer, lot, steps)),
+    };
+  }
   let firstMiss: ValueAt23C | null = null;
   for (const sweep of sweeps) {
     const steps = averageSteps((await sweepReadings(sweep)).points);

@@ -52,6 +52,7 @@ const FIELDS: Record<string, FieldWords> = {
   lotId: { label: 'Lot', record: 'lot' },
   stationId: { label: 'Station', record: 'station' },
   sweepId: { label: 'Sweep', record: 'sweep' },
+  countedSweepId: { label: 'Sweep that counts at 23 °C', record: 'sweep' },
   assigneeId: { label: 'Assignee', record: 'user' },
   assignedById: { label: 'Assigned by', record: 'user' },
   uploadedById: { label: 'Uploaded by', record: 'user' },

@@ -15,6 +15,8 @@ export class Wafer extends Model<InferAttributes<Wafer>, InferCreationAttributes
   declare thicknessCm: number | null;
   declare state: CreationOptional<WaferState>;
   declare notes: string | null;
+  /** The sweep chosen to give the 23 °C value (null: the newest that reaches 23 °C). */
+  declare countedSweepId: CreationOptional<number | null>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -29,6 +31,7 @@ export function initWaferModel(sequelize: Sequelize): void {
       thicknessCm: DataTypes.DOUBLE,
       state: { type: DataTypes.STRING(24), allowNull: false, defaultValue: 'received' },
       notes: DataTypes.TEXT,
+      countedSweepId: DataTypes.INTEGER,
       deletedAt: DataTypes.DATE(3),
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),

@@ -17,6 +17,7 @@ export const waferDtoSchema = registry.register(
       thicknessCm: z.number().nullable(),
       state: z.enum(WAFER_STATES),
       notes: z.string().nullable(),
+      countedSweepId: z.number().int().nullable(),
       ...timestamps,
     })
     .strict(),

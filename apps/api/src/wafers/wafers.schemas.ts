@@ -47,7 +47,17 @@ export const createBody = z
   })
   .strict();
 
-export const updateBody = z.object(fields).partial().strict();
+export const updateBody = z
+  .object({
+    ...fields,
+    countedSweepId: z
+      .number({ invalid_type_error: 'must be a sweep id or null' })
+      .int('must be a sweep id or null')
+      .positive('must be a sweep id or null')
+      .nullable(),
+  })
+  .partial()
+  .strict();
 
 export const filters = { q: searchParam, state: state.optional() };
 

@@ -3,7 +3,7 @@ import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { visibleLot, visibleWafer, visibleWafers } from '../access/visibility.service';
 import { Assignment } from '../assignments/assignment.model';
 import { auditChange, type Actor } from '../audit/audit.service';
-import { conflict, notFound } from '../errors';
+import { conflict, notFound, unprocessable } from '../errors';
 import { Lot } from '../lots/lot.model';
 import { likePattern, orderFrom } from '../db/query';
 import { Sweep } from '../sweeps/sweep.model';
@@ -20,6 +20,7 @@ export function toWaferDto(wafer: Wafer, lotCode?: string): WaferDto {
     thicknessCm: wafer.thicknessCm,
     state: wafer.state,
     notes: wafer.notes,
+    countedSweepId: wafer.countedSweepId ?? null,
     createdAt: wafer.createdAt.toISOString(),
     updatedAt: wafer.updatedAt.toISOString(),
   };
@@ -30,6 +31,8 @@ export interface WaferInput {
   thicknessCm: number | null;
   state?: WaferState;
   notes: string | null;
+  /** The sweep that counts for the 23 °C value; null returns to the newest. */
+  countedSweepId?: number | null;
 }
 
 export interface WaferListOptions {
@@ -137,6 +140,17 @@ export async function updateWafer(
       const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
       if (!wafer || !lot) throw notFound(`Wafer ${id}`);
       const before = toWaferDto(wafer, lot.code);
+      if (changes.countedSweepId != null) {
+        const sweep = await Sweep.findOne({
+          where: { id: changes.countedSweepId, waferId: id },
+          transaction: t,
+        });
+        if (!sweep) {
+          throw unprocessable(`Sweep ${changes.countedSweepId} is not a sweep of this wafer`, [
+            { field: 'body.countedSweepId', problem: 'is not a sweep of this wafer' },
+          ]);
+        }
+      }
       await wafer.update(changes, { transaction: t });
       const dto = toWaferDto(wafer, lot.code);
       await auditChange(t, actor, 'update', 'wafer', id, { before, after: dto });

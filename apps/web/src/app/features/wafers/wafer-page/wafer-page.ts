@@ -103,7 +103,11 @@ export class WaferPage {
     stream: ({ params }) => this.api.sweeps(params),
   });
   protected readonly dopant = rxResource({
-    params: () => ({ id: this.waferId(), sweeps: this.sweeps.value()?.length ?? 0 }),
+    params: () => ({
+      id: this.waferId(),
+      sweeps: this.sweeps.value()?.length ?? 0,
+      counted: this.wafer.value()?.countedSweepId ?? null,
+    }),
     stream: ({ params }) =>
       params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null),
   });
@@ -140,7 +144,16 @@ export class WaferPage {
     'resistivityOhmCm',
     'flags',
   ];
-  protected readonly sweepColumns = ['file', 'method', 'points', 'range', 'by', 'when', 'actions'];
+  protected readonly sweepColumns = [
+    'file',
+    'counts',
+    'method',
+    'points',
+    'range',
+    'by',
+    'when',
+    'actions',
+  ];
 
   protected readonly pointsPlot = computed(() => {
     const sweep = this.shownSweep.value();
@@ -169,6 +182,13 @@ export class WaferPage {
 
   protected methodWord(method: string): string {
     return (METHOD_WORDS as Record<string, string>)[method] ?? method;
+  }
+
+  /** Chooses the sweep that gives the 23 °C value and verdict (null: the newest); audited. */
+  protected countSweep(sweepId: number | null): void {
+    this.api
+      .update(this.waferId(), { countedSweepId: sweepId })
+      .subscribe(() => this.wafer.reload());
   }
 
   protected setState(state: WaferState): void {
