@@ -67,6 +67,21 @@ export { resistivityFromSheetResistance } from './probe/sheet-resistance';
 
 export { IEC_60751, rtdResistance, rtdTemperatureK } from './thermometry/rtd';
 export {
+  THERMOCOUPLE_INVERSE_RANGE_CELSIUS,
+  thermocoupleEmfMv,
+  thermocoupleTemperatureK,
+} from './thermometry/thermocouple';
+export {
+  THERMOCOUPLE_REFERENCE,
+  THERMOCOUPLE_TYPES,
+} from './thermometry/thermocouple-coefficients';
+export type { ReferenceRange, ThermocoupleType } from './thermometry/thermocouple-coefficients';
+export {
+  CALIBRATION_EXTRAPOLATION_FRACTION,
+  calibrationTableTemperatureK,
+} from './thermometry/calibration-table';
+export type { CalibrationPoint } from './thermometry/calibration-table';
+export {
   ASTM_F723_RANGES,
   siliconDopantFromResistivity,
   siliconResistivityFromDopant,
