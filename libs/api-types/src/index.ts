@@ -105,7 +105,7 @@ export type {
   ValueUncertainty,
   LotCapability,
 } from './spec';
-export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR } from './sweeps';
+export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR, MAX_FINDINGS } from './sweeps';
 export type {
   SweepMethod,
   ColumnMeaning,
@@ -120,6 +120,8 @@ export type {
   SweepGeometry,
   SweepCreatedResponse,
   SweepSummaryDto,
+  PointFinding,
+  TemperatureConversion,
   SweepParseReport,
   RawReading,
   SweepPointDto,

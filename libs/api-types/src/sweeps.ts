@@ -25,6 +25,7 @@ export const COLUMN_MEANINGS = [
   'time',
   'index',
   'other',
+  'reference-junction',
 ] as const;
 export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
 
@@ -33,13 +34,24 @@ export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
  * - `jump`: resistivity differs from the previous point by more than `JUMP_FACTOR` times;
  * - `temperature-reversal`: temperature moved against the ramp direction;
  * - `polarity-averaged`: combined from a forward and a reverse reading (`raw` holds both rows);
- * - `unpaired-polarity`: a forward or reverse reading without its partner, stored on its own.
+ * - `unpaired-polarity`: a forward or reverse reading without its partner, stored on its own;
+ * - `outlier`: ln rho lies beyond a Hampel filter's bound within its leg;
+ * - `polarity-asymmetry`: forward and reverse readings differ by more than 2 %;
+ * - `self-heating`: the higher of two current levels at one step reads beyond the scatter;
+ * - `unsettled`: the readings of a step still drift one way (a dwell too short);
+ * - `contact-fault`: van der Pauw reciprocal configurations disagree by more than 2 %.
+ * The reason for each of the last five is listed in the sweep's `parseReport.findings`.
  */
 export const POINT_FLAGS = [
   'jump',
   'temperature-reversal',
   'polarity-averaged',
   'unpaired-polarity',
+  'outlier',
+  'polarity-asymmetry',
+  'self-heating',
+  'unsettled',
+  'contact-fault',
 ] as const;
 export type PointFlag = (typeof POINT_FLAGS)[number];
 
@@ -133,6 +145,26 @@ export interface SweepSummaryDto {
   minTemperatureK: number | null;
   maxTemperatureK: number | null;
   createdAt: string;
+  /** Points carrying a doubtful flag (`parseReport.flaggedPoints`); absent on old sweeps. */
+  flaggedPoints?: number;
+}
+
+/** A doubtful point and why, in words (`the step at 300.0 K drifts by +0.8 %`). */
+export interface PointFinding {
+  /** The point's `sequence`. */
+  sequence: number;
+  /** The file row it was read from. */
+  row: number;
+  flag: PointFlag;
+  reason: string;
+}
+
+/** How the import read the temperature column. */
+export interface TemperatureConversion {
+  /** `kelvin`, `celsius`, `platinum-rtd`, `thermocouple` or `table`. */
+  kind: 'kelvin' | 'celsius' | 'platinum-rtd' | 'thermocouple' | 'table';
+  /** The conversion in words, e.g. `type K thermocouple, cold junction 23.4 °C (file metadata)`. */
+  description: string;
 }
 
 /** What the import found and decided, kept with the sweep. */
@@ -143,7 +175,14 @@ export interface SweepParseReport {
   rowCount: number;
   warnings: string[];
   flaggedPoints: number;
+  /** Each flagged point with its reason (the first `MAX_FINDINGS`); absent on old sweeps. */
+  findings?: PointFinding[];
+  /** How the temperatures were converted; absent on old sweeps. */
+  temperature?: TemperatureConversion;
 }
+
+/** Findings kept in a parse report; the count beyond them is in `flaggedPoints`. */
+export const MAX_FINDINGS = 500;
 
 /** The file row (1-based line number) a point was read from, cell text keyed by header. */
 export interface RawReading {
@@ -166,6 +205,8 @@ export interface SweepPointDto {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
   flags: PointFlag[];
+  /** The ramp leg (1, 2, ...) the point belongs to; null on sweeps imported before legs. */
+  leg?: number | null;
 }
 
 /** `GET /api/sweeps/:id`. */

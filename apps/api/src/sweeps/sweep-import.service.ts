@@ -8,13 +8,14 @@
  * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
-import type {
-  SessionUser,
-  SweepColumnOverride,
-  SweepCreatedResponse,
-  SweepGeometryInput,
-  SweepMethod,
-  SweepPreviewResponse,
+import {
+  MAX_FINDINGS,
+  type SessionUser,
+  type SweepColumnOverride,
+  type SweepCreatedResponse,
+  type SweepGeometryInput,
+  type SweepMethod,
+  type SweepPreviewResponse,
 } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
 import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
@@ -242,6 +243,7 @@ async function storeSweep(
     rowCount: parsed.table.records.length,
     warnings,
     flaggedPoints: flags.flagged,
+    findings: flags.findings.slice(0, MAX_FINDINGS),
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
     actorId: actor.id,

@@ -49,6 +49,7 @@ export class SweepPoint extends Model<
   declare resistivityOhmCm: number;
   declare raw: unknown;
   declare flags: string;
+  declare leg: CreationOptional<number | null>;
 }
 
 /** Raw upload bytes, kept byte for byte (the database storage implementation). */
@@ -100,6 +101,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       resistivityOhmCm: { type: DataTypes.DOUBLE, allowNull: false },
       raw: jsonColumn('raw', false),
       flags: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '' },
+      leg: DataTypes.SMALLINT,
     },
     { sequelize, tableName: 'sweep_points', underscored: true, timestamps: false },
   );

@@ -51,7 +51,24 @@ function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
     minTemperatureK: sweep.minTemperatureK,
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
+    flaggedPoints: flaggedPointsOf(sweep.parseReport),
   };
+}
+
+/** The report's count of doubtful points (0 when the report predates it or is unreadable). */
+function flaggedPointsOf(report: unknown): number {
+  const doc = (typeof report === 'string' ? safeJson(report) : report) as {
+    flaggedPoints?: unknown;
+  } | null;
+  return typeof doc?.flaggedPoints === 'number' ? doc.flaggedPoints : 0;
+}
+
+function safeJson(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
 }
 
 async function uploaderNames(sweeps: Sweep[]): Promise<Map<number, string>> {
@@ -139,6 +156,7 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
       sheetResistanceOhmSq: p.sheetResistanceOhmSq,
       resistivityOhmCm: p.resistivityOhmCm,
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
+      leg: p.leg ?? null,
     };
   });
 }

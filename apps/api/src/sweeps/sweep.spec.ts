@@ -283,14 +283,26 @@ describe('suspicious values are stored with flags and warnings', () => {
     expect(res.body.warnings.join(' ')).toMatch(/against the ramp/);
     const sweep = (await request(ctx.app).get(`/api/sweeps/${res.body.id}`).set(ctx.auth('admin')))
       .body as SweepDto;
+    // the 150 is also a Hampel outlier (window cut to the 5 points, 4 scaled MAD)
     expect(sweep.points.map((p) => p.flags)).toEqual([
       [],
       [],
       ['temperature-reversal'],
-      ['jump'],
+      ['jump', 'outlier'],
       ['jump'],
     ]);
+    expect(sweep.points.map((p) => p.leg)).toEqual([1, 1, 1, 1, 1]);
     expect(sweep.parseReport.flaggedPoints).toBe(3);
+    expect(sweep.parseReport.findings!.map((f) => [f.sequence, f.flag])).toEqual([
+      [3, 'temperature-reversal'],
+      [4, 'jump'],
+      [4, 'outlier'],
+      [5, 'jump'],
+    ]);
+    const list = await request(ctx.app)
+      .get(`/api/wafers/${wafer.id}/sweeps`)
+      .set(ctx.auth('admin'));
+    expect(list.body[0].flaggedPoints).toBe(3);
   });
 });
 

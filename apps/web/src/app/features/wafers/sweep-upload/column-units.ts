@@ -2,7 +2,7 @@ import type { ColumnMeaning, SweepMethod } from '@rhotrace/api-types';
 
 /** Unit labels the import understands for each column meaning (the API's canonical spellings). */
 export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
-  temperature: ['K', 'degC', 'ohm'],
+  temperature: ['K', 'degC', 'ohm', 'mV', 'V'],
   voltage: ['V', 'mV', 'uV', 'nV'],
   current: ['A', 'mA', 'uA', 'nA'],
   resistance: ['ohm', 'mohm', 'kohm', 'Mohm'],
@@ -14,6 +14,7 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   time: ['s', 'ms', 'min', 'h'],
   index: [],
   other: [],
+  'reference-junction': ['K', 'degC'],
 };
 
 /** Words shown for each column meaning. */
@@ -30,6 +31,7 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   time: 'Time',
   index: 'Row number',
   other: 'Keep as raw text',
+  'reference-junction': 'Reference (cold) junction temperature',
 };
 
 /** Words shown for each measurement method. */
