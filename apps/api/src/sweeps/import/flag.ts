@@ -7,7 +7,7 @@
  */
 import { JUMP_FACTOR, type PointFinding, type PointFlag } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
-import { HAMPEL_MIN_SPREAD, hampelOutliers } from './faults/hampel';
+import { hampelOutliers } from './faults/hampel';
 import { splitLegs, stepRanges, type LegRange } from './faults/legs';
 import { readingScatter } from './faults/noise';
 import { selfHeating, unsettledSteps, type Finding } from './faults/step-faults';
@@ -104,24 +104,24 @@ export class SuspiciousPointFinder {
     const t = this.temperatures;
     const legs = splitLegs(t, this.stepToleranceK);
     const late: Finding[] = [];
-    const series: number[][] = [];
     const stepsByLeg = legs.map((leg) => stepRanges(t, leg.start, leg.end, this.stepToleranceK));
+    const levelsByLeg = legs.map((leg) => this.levelSeries(leg));
+    const sigma = readingScatter(this.lnRho, levelsByLeg.flat());
     legs.forEach((leg, k) => {
       late.push(...this.reversalsIn(leg));
-      const levels = this.levelSeries(leg);
-      for (const o of levels.flatMap((at) => hampelOutliers(t, this.lnRho, at))) {
+      const outliers = levelsByLeg[k]!.flatMap((at) =>
+        hampelOutliers(t, this.lnRho, at, sigma ?? undefined),
+      );
+      for (const o of outliers) {
         const off = Math.exp(this.lnRho[o.index]! - o.median) - 1;
-        const sigmas =
-          Math.abs(this.lnRho[o.index]! - o.median) / Math.max(o.scaledMad, HAMPEL_MIN_SPREAD);
+        const spreads = Math.abs(this.lnRho[o.index]! - o.median) / o.scaledMad;
         late.push({
           index: o.index,
           flag: 'outlier',
-          reason: `ln rho lies ${sigmas.toFixed(1)} scaled MAD off the trend of its neighbours (${off >= 0 ? '+' : ''}${(off * 100).toFixed(1)} %) in leg ${k + 1}`,
+          reason: `ln rho lies ${spreads.toFixed(1)} scaled MAD off the trend of its neighbours (${off >= 0 ? '+' : ''}${(off * 100).toFixed(1)} %) in leg ${k + 1}`,
         });
       }
-      series.push(...levels);
     });
-    const sigma = readingScatter(this.lnRho, series);
     if (sigma !== null) {
       const data = { temperaturesK: t, lnRho: this.lnRho, currentsA: this.currents };
       for (const steps of stepsByLeg) {
