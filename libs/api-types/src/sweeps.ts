@@ -95,6 +95,10 @@ export interface SweepPreviewResponse {
   rowCount: number;
   problems: RowProblem[];
   suggestedMethod: SweepMethod | null;
+  /** How the temperature column would be converted (null when it cannot be yet). */
+  temperature?: TemperatureConversion | null;
+  /** Why there is no conversion yet (e.g. RTD ohms with no R0 until a station is chosen). */
+  temperatureNote?: string | null;
 }
 
 /** A column mapping override sent with the store request (JSON text in field `columns`). */

@@ -15,7 +15,7 @@ import {
   type SweepCreatedResponse,
   type SweepGeometryInput,
   type SweepMethod,
-  type SweepPreviewResponse,
+  type StationSensor,
 } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
 import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
@@ -28,22 +28,15 @@ import { RowConverter } from './import/convert-rows';
 import { detectColumns, publicColumns } from './import/detect-columns';
 import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
-import { openTable, readTable, slices, unreadableRows } from './import/read-table';
+import { openTable, slices, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
 import { RawCopy } from './import/store/raw-copy';
 import { rawJson, SweepStore } from './import/store/sweep-store';
-import {
-  MAX_PROBLEMS,
-  readNumber,
-  unreadableCells,
-  type OpenedSweepFile,
-  type ResolvedColumn,
-} from './parse';
+import { MAX_PROBLEMS, type OpenedSweepFile, type ResolvedColumn } from './parse';
 import { resolveGeometry } from './import/resolve-geometry';
+import { temperatureReader } from './import/temperature';
+import type { Station } from '../stations/station.model';
 import { Sweep } from './sweep.model';
-
-/** Rows the preview shows. */
-export const PREVIEW_ROWS = 20;
 
 /** Records converted per slice: one slice is stored while the next is converted. */
 export const IMPORT_SLICE_ROWS = POINT_CHUNK;
@@ -62,29 +55,15 @@ export interface ImportSweepInput {
 /** The signed-in user, with the request id the audit event records. */
 export type SweepActor = SessionUser & { requestId?: string | null };
 
-/** Parses without storing: layout, guessed columns, the first rows and the problems found. */
-export async function previewSweep(
-  input: { waferId: number; file: Buffer },
-  actor: SweepActor,
-): Promise<SweepPreviewResponse> {
-  await mayUploadTo(actor, input.waferId);
-  const parsed = readTable(input.file);
-  const { layout, table } = parsed;
-  const rows = table.records.slice(0, PREVIEW_ROWS).map((cells, i) => ({
-    row: table.lines[i]!,
-    cells,
-    values: cells.map((c) => readNumber(c, layout.decimalMark) ?? null),
-  }));
-  return {
-    delimiter: layout.delimiter,
-    decimalMark: layout.decimalMark,
-    metadata: layout.metadata,
-    columns: publicColumns(parsed.columns),
-    rows,
-    rowCount: table.records.length,
-    problems: [...parsed.problems, ...unreadableCells(parsed, parsed.columns)].slice(0, 50),
-    suggestedMethod: parsed.suggestedMethod,
-  };
+/** RTD ohms need R0 unless the station reads its ohms through its own table. */
+function needsRtd(columns: ResolvedColumn[], station: Station | null): boolean {
+  const unit = columns.find((c) => c.meaning === 'temperature')?.unitInfo;
+  return unit?.kind === 'resistance' && station?.sensor?.kind !== 'table';
+}
+
+/** The station's sensor (null without a station). */
+export function stationSensor(station: Station | null): StationSensor | null {
+  return station?.sensor ?? null;
 }
 
 /**
@@ -195,9 +174,16 @@ async function storeSweep(
     lot,
     station,
     file: parsed.recognised,
-    needsRtd: columns.find((c) => c.meaning === 'temperature')?.unitInfo?.kind === 'resistance',
+    needsRtd: needsRtd(columns, station),
   });
-  const converter = new RowConverter(parsed, columns, input.method, geometry);
+  const temperature = temperatureReader({
+    column: columns.find((c) => c.meaning === 'temperature')!,
+    referenceColumn: columns.some((c) => c.meaning === 'reference-junction'),
+    sensor: stationSensor(station),
+    file: parsed.recognised,
+    geometry,
+  });
+  const converter = new RowConverter(parsed, columns, input.method, geometry, temperature);
   const finder = new SuspiciousPointFinder();
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
   const store = new SweepStore(
@@ -244,6 +230,7 @@ async function storeSweep(
     warnings,
     flaggedPoints: flags.flagged,
     findings: flags.findings.slice(0, MAX_FINDINGS),
+    temperature: temperature.conversion,
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
     actorId: actor.id,

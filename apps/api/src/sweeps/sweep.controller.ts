@@ -9,7 +9,7 @@ import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { validationFailed } from '../errors';
 import { pointsCsv, safeFileName } from './sweep-csv';
-import { columnsSchema, storeSchema } from './sweep.schemas';
+import { columnsSchema, previewSchema, storeSchema } from './sweep.schemas';
 import {
   deleteSweep,
   getSweep,
@@ -76,7 +76,8 @@ export const sweepsController = {
   /** `POST /api/wafers/:id/sweeps/preview` */
   async preview(req: Request, res: Response): Promise<void> {
     const waferId = parseId(req.params);
-    res.json(await previewSweep({ waferId, file: uploaded(req).buffer }, actorOf(req)));
+    const { stationId } = parseOrThrow(previewSchema, req.body ?? {}, 'body');
+    res.json(await previewSweep({ waferId, file: uploaded(req).buffer, stationId }, actorOf(req)));
   },
   /** `POST /api/wafers/:id/sweeps` */
   async store(req: Request, res: Response): Promise<void> {

@@ -20,6 +20,16 @@ export const columnsSchema = z.array(
     .strict(),
 );
 
+/** The optional text field of a preview: the station whose sensor converts temperatures. */
+export const previewSchema = z
+  .object({
+    stationId: z.preprocess(
+      (v) => (v === '' ? undefined : v),
+      z.coerce.number().int().positive().optional(),
+    ),
+  })
+  .strict();
+
 /** The text fields of an upload (besides the file). */
 export const storeSchema = z
   .object({

@@ -27,12 +27,8 @@ import { Sweep, SweepPoint } from './sweep.model';
 
 const gzipAsync = promisify(gzipCallback);
 
-export {
-  importSweep,
-  previewSweep,
-  type ImportSweepInput,
-  type SweepActor,
-} from './sweep-import.service';
+export { importSweep, type ImportSweepInput, type SweepActor } from './sweep-import.service';
+export { previewSweep } from './sweep-preview.service';
 import { inTransaction } from '../db/connection';
 
 function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {

@@ -9,6 +9,7 @@ import type { ConvertedPoint, Reading } from './import-types';
 import { PolarityPairer, type ReadingGroup } from './pair-polarities';
 import { RowReader } from './read-row';
 import type { Slice } from './read-table';
+import type { TemperatureReader } from './temperature';
 import { pointMaker } from './to-point';
 
 /** Converts a file's records to points a slice at a time. */
@@ -25,10 +26,19 @@ export class RowConverter {
     columns: ResolvedColumn[],
     method: SweepMethod,
     geometry: SweepGeometry,
+    temperature?: TemperatureReader,
   ) {
     this.problems = [...parsed.problems];
     const currentA = parsed.recognised.currentA;
-    this.rows = new RowReader(parsed, columns, method, geometry, currentA, this.problems);
+    this.rows = new RowReader(
+      parsed,
+      columns,
+      method,
+      geometry,
+      currentA,
+      this.problems,
+      temperature,
+    );
     this.toPoint = pointMaker(method, geometry, columns, this.problems);
   }
 
