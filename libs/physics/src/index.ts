@@ -106,6 +106,8 @@ export type { LeastSquaresProblem, LeastSquaresResult } from './fit/levenberg-ma
 export { fitModel } from './fit/model-fit';
 export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit';
 export { fitLinearTcr } from './fit/tcr';
+export { thermalLag } from './fit/thermal-lag';
+export type { LegCurve, ThermalLag } from './fit/thermal-lag';
 export type { LinearTcrFit, TcrParameter } from './fit/tcr';
 export { studentTCritical } from './numeric/student-t';
 
