@@ -195,6 +195,27 @@ export interface SweepAnalysisResponse {
   arrhenius: ArrheniusPoint[];
   suggestedWindows: SuggestedWindow[];
   spec: SpecCheckDto;
+  /** The sweep's ramp legs in recorded order. */
+  legs?: LegDto[];
+  /** The leg the steps above come from; null: all legs together. */
+  leg?: number | null;
+  /**
+   * Sensor-to-sample lag read from an up and a down leg overlapping by at least 20 K: half the
+   * temperature offset between them at equal resistivity, positive when the sample trails the
+   * sensor; null without such a pair.
+   */
+  thermalLag?: { lagK: number; standardErrorK: number } | null;
+}
+
+/** One ramp leg of a sweep. */
+export interface LegDto {
+  /** 1, 2, ... in recorded order (the points' `leg`). */
+  index: number;
+  direction: 'up' | 'down' | 'hold';
+  minK: number;
+  maxK: number;
+  /** Dwell steps in the leg (readings within the step tolerance of a step's first). */
+  stepCount: number;
 }
 
 /** `GET /api/wafers/:id/dopant` answer. */

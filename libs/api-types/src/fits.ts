@@ -28,6 +28,8 @@ export const FIT_EXCLUDED_FLAGS: readonly PointFlag[] = [
 export interface FitRequestOptions {
   /** Include readings carrying a `FIT_EXCLUDED_FLAGS` flag. Default false. */
   includeFlagged?: boolean;
+  /** The ramp leg to fit, or `all`; default: the first leg with at least 5 dwell steps. */
+  leg?: number | 'all';
   /** Consecutive readings within this of a step's first reading form one dwell step, K. Default 0.5. */
   stepToleranceK?: number;
   /** Standard uncertainty of each step's temperature, K (effective variance). Default 0. */

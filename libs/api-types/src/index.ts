@@ -26,6 +26,7 @@ export type {
   SuggestedWindow,
   SpecCheckDto,
   SweepAnalysisResponse,
+  LegDto,
   DopantDensityResponse,
   LotSummaryWafer,
   LotSummaryResponse,

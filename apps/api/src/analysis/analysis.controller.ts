@@ -3,7 +3,7 @@ import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { badRequest } from '../errors';
 import { MAX_COMPARE_SWEEPS, compareSweeps, sweepAnalysis, waferDopant } from './analysis.service';
-import { compareSchema, curveSchema } from './analysis.schemas';
+import { analysisQuerySchema, compareSchema, curveSchema } from './analysis.schemas';
 import { toCsv } from './csv';
 import { lotSummary } from './lot-summary.service';
 import { curveFor, materials } from './model.service';
@@ -23,7 +23,9 @@ export function getMaterials(req: Request, res: Response): void {
 
 /** `GET /api/sweeps/:id/analysis`. */
 export async function getSweepAnalysis(req: Request, res: Response): Promise<void> {
-  res.json(await sweepAnalysis(currentUser(req), parseId(req.params)));
+  const user = currentUser(req);
+  const { leg } = parseOrThrow(analysisQuerySchema, req.query, 'query');
+  res.json(await sweepAnalysis(user, parseId(req.params), leg));
 }
 
 /** `GET /api/wafers/:id/dopant`. */

@@ -53,3 +53,15 @@ export const compareSchema = z.object({
   sweeps: z.string({ required_error: 'is required' }).min(1, 'is required'),
   points: z.coerce.number().int('must be a whole number').min(2).max(2000).default(200),
 });
+
+/** A ramp leg in a request: its number, or `all` (see `FitRequestOptions.leg`). */
+export const legSchema = z.union([
+  z.literal('all'),
+  z.coerce
+    .number({ invalid_type_error: 'must be a leg number or all' })
+    .int('must be a whole leg number')
+    .positive('must be a leg number (1, 2, ...) or all'),
+]);
+
+/** `GET /api/sweeps/:id/analysis?leg=` */
+export const analysisQuerySchema = z.object({ leg: legSchema.optional() }).strict();

@@ -13,7 +13,8 @@ import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
-import { averageSteps, sweepReadings, sweepSummary } from './sweep-data.service';
+import { chooseLeg, describeLegs, legThermalLag } from './legs';
+import { averageSteps, legReadings, sweepReadings, sweepSummary } from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {
@@ -28,9 +29,19 @@ export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusP
 export async function sweepAnalysis(
   user: SessionUser,
   sweepId: number,
+  requestedLeg?: number | 'all',
 ): Promise<SweepAnalysisResponse> {
   const v = await visibleSweep(user, sweepId);
-  const { points, skipped } = await sweepReadings(v.sweep);
+  const { points: all, skipped } = await sweepReadings(v.sweep);
+  const readings = await legReadings(v.sweep);
+  const legs = describeLegs(readings);
+  const leg = chooseLeg(legs, requestedLeg);
+  const points =
+    leg === null
+      ? all
+      : readings
+          .filter((r) => r.leg === leg)
+          .map((r) => ({ temperatureK: r.temperatureK, resistivityOhmCm: r.resistivityOhmCm }));
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   return {
@@ -45,6 +56,9 @@ export async function sweepAnalysis(
           dopantType: v.lot.dopantType,
         }),
     spec: specCheck(assessed.value, assessed.uncertainty, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
+    legs,
+    leg,
+    thermalLag: legThermalLag(readings, legs),
   };
 }
 

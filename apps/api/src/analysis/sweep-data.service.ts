@@ -31,6 +31,8 @@ interface CachedReadings {
   /** Sequence number of each of `points`, and whether it carries a `FIT_EXCLUDED_FLAGS` flag. */
   sequences: Int32Array;
   excludable: Uint8Array;
+  /** Ramp leg of each of `points` (0 on sweeps imported before legs: one leg). */
+  legs: Int16Array;
   /** Temperatures of the readings left out (finite ones only), sorted. */
   skippedK: number[];
   /** Readings left out whose temperature is not finite (in no window). */
@@ -49,11 +51,16 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
   const hit = readingsCache.get(sweep);
   if (hit) return hit;
   const rows = await SweepPoint.findAll({
-    attributes: ['sequence', 'temperatureK', 'resistivityOhmCm', 'flags'],
+    attributes: ['sequence', 'temperatureK', 'resistivityOhmCm', 'flags', 'leg'],
     where: { sweepId: sweep.id },
     raw: true,
   });
-  const usable: Array<{ point: AnalysisPoint; sequence: number; excludable: boolean }> = [];
+  const usable: Array<{
+    point: AnalysisPoint;
+    sequence: number;
+    excludable: boolean;
+    leg: number;
+  }> = [];
   const skippedK: number[] = [];
   let skippedNoTemperature = 0;
   for (const r of rows) {
@@ -65,6 +72,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
         point: { temperatureK: t, resistivityOhmCm: rho },
         sequence: Number(r.sequence),
         excludable: FIT_EXCLUDED_FLAGS.some((f) => flags.includes(f)),
+        leg: Number(r.leg ?? 0),
       });
     } else if (Number.isFinite(t)) {
       skippedK.push(t);
@@ -79,6 +87,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     points: usable.map((u) => u.point),
     sequences: Int32Array.from(usable, (u) => u.sequence),
     excludable: Uint8Array.from(usable, (u) => (u.excludable ? 1 : 0)),
+    legs: Int16Array.from(usable, (u) => u.leg),
     skippedK,
     skippedNoTemperature,
   });
@@ -99,12 +108,15 @@ export interface FitReadings {
 export async function sweepFitReadings(
   sweep: SweepIdentity,
   includeFlagged: boolean,
+  leg: number | null = null,
 ): Promise<FitReadings> {
   const cached = await loadReadings(sweep);
-  if (includeFlagged) return { points: cached.points.slice(), excluded: [] };
+  const inLeg = (i: number) => leg === null || cached.legs[i] === leg;
+  if (includeFlagged) return { points: cached.points.filter((_, i) => inLeg(i)), excluded: [] };
   const points: AnalysisPoint[] = [];
   const excluded: FitReadings['excluded'] = [];
   cached.points.forEach((p, i) => {
+    if (!inLeg(i)) return;
     if (cached.excludable[i]) {
       excluded.push({ sequence: cached.sequences[i]!, temperatureK: p.temperatureK });
     } else {
@@ -112,6 +124,19 @@ export async function sweepFitReadings(
     }
   });
   return { points, excluded };
+}
+
+/** Each usable reading with its sequence, leg and whether a fit leaves it out by default. */
+export async function legReadings(
+  sweep: SweepIdentity,
+): Promise<Array<AnalysisPoint & { sequence: number; leg: number; excludable: boolean }>> {
+  const c = await loadReadings(sweep);
+  return c.points.map((p, i) => ({
+    ...p,
+    sequence: c.sequences[i]!,
+    leg: c.legs[i]!,
+    excludable: c.excludable[i] === 1,
+  }));
 }
 
 /** The first index in 0..n at which `pred` holds (it must hold from some index on), or n. */
