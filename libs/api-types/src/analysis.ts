@@ -2,6 +2,7 @@
  * Analysis API shapes: model curves, materials, sweep analysis, fits, dopant density, lot
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
+import type { PointFinding } from './sweeps';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
@@ -205,6 +206,10 @@ export interface SweepAnalysisResponse {
    * sensor; null without such a pair.
    */
   thermalLag?: { lagK: number; standardErrorK: number } | null;
+  /** The import's findings: each doubtful point and why (from the sweep's parse report). */
+  findings?: PointFinding[];
+  /** Points carrying a doubtful flag. */
+  flaggedPoints?: number;
 }
 
 /** One ramp leg of a sweep. */

@@ -5,6 +5,7 @@ import type {
   DopantDensityResponse,
   SessionUser,
   SweepAnalysisResponse,
+  SweepParseReport,
 } from '@rhotrace/api-types';
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
 import { visibleSweep, visibleWafer } from '../access/visibility.service';
@@ -59,6 +60,8 @@ export async function sweepAnalysis(
     legs,
     leg,
     thermalLag: legThermalLag(readings, legs),
+    findings: (v.sweep.parseReport as SweepParseReport).findings ?? [],
+    flaggedPoints: (v.sweep.parseReport as SweepParseReport).flaggedPoints ?? 0,
   };
 }
 

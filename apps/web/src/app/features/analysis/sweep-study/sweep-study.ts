@@ -11,6 +11,7 @@ import { MetalFits } from '../metal-fits/metal-fits';
 import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
 import { SavedFits } from '../saved-fits/saved-fits';
+import { SweepFaults } from '../parts/sweep-faults/sweep-faults';
 
 /**
  * Studying one sweep: the page around its parts (model overlay, Arrhenius window, full-model or
@@ -28,6 +29,7 @@ import { SavedFits } from '../saved-fits/saved-fits';
     ModelFit,
     MetalFits,
     SavedFits,
+    SweepFaults,
   ],
   providers: [AnalysisStore],
   templateUrl: './sweep-study.html',
