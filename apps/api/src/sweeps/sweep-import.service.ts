@@ -36,6 +36,7 @@ import { MAX_PROBLEMS, type OpenedSweepFile, type ResolvedColumn } from './parse
 import { resolveGeometry } from './import/resolve-geometry';
 import { temperatureReader } from './import/temperature';
 import type { Station } from '../stations/station.model';
+import { toStationDto } from '../stations/stations.service';
 import { Sweep } from './sweep.model';
 
 /** Records converted per slice: one slice is stored while the next is converted. */
@@ -63,7 +64,8 @@ function needsRtd(columns: ResolvedColumn[], station: Station | null): boolean {
 
 /** The station's sensor (null without a station). */
 export function stationSensor(station: Station | null): StationSensor | null {
-  return station?.sensor ?? null;
+  // a station written before sensors (or by a seeder) reads through its older fields
+  return station ? (toStationDto(station).sensor ?? null) : null;
 }
 
 /**
