@@ -99,10 +99,10 @@ export const DEMO_LOTS: Array<{
     specMaxOhmCm: 12,
     notes: 'Prime-grade p-type wafers for the diode teaching module.',
     wafers: [
-      { number: '01', thicknessCm: 0.0524, state: 'measured', notes: null },
-      { number: '02', thicknessCm: 0.0527, state: 'measured', notes: null },
-      { number: '03', thicknessCm: null, state: 'queued', notes: null },
-      { number: '04', thicknessCm: null, state: 'received', notes: 'Edge chip at the flat.' },
+      { number: 'W01', thicknessCm: 0.0524, state: 'measured', notes: null },
+      { number: 'W02', thicknessCm: 0.0527, state: 'measured', notes: null },
+      { number: 'W03', thicknessCm: null, state: 'queued', notes: null },
+      { number: 'W04', thicknessCm: null, state: 'received', notes: 'Edge chip at the flat.' },
     ],
   },
   {
@@ -119,9 +119,9 @@ export const DEMO_LOTS: Array<{
     specMaxOhmCm: 5,
     notes: 'n-type substrates for the MOS capacitor lab.',
     wafers: [
-      { number: '01', thicknessCm: 0.0523, state: 'measured', notes: null },
-      { number: '02', thicknessCm: null, state: 'measuring', notes: null },
-      { number: '03', thicknessCm: null, state: 'received', notes: null },
+      { number: 'W01', thicknessCm: 0.0523, state: 'measured', notes: null },
+      { number: 'W02', thicknessCm: null, state: 'measuring', notes: null },
+      { number: 'W03', thicknessCm: null, state: 'received', notes: null },
     ],
   },
   {
@@ -138,8 +138,8 @@ export const DEMO_LOTS: Array<{
     specMaxOhmCm: 5,
     notes: 'Germanium for the band-gap exercise.',
     wafers: [
-      { number: '01', thicknessCm: 0.0498, state: 'measured', notes: null },
-      { number: '02', thicknessCm: null, state: 'received', notes: null },
+      { number: 'W01', thicknessCm: 0.0498, state: 'measured', notes: null },
+      { number: 'W02', thicknessCm: null, state: 'received', notes: null },
     ],
   },
   {
@@ -155,7 +155,7 @@ export const DEMO_LOTS: Array<{
     specMinOhmCm: 0.001,
     specMaxOhmCm: 0.01,
     notes: 'Gallium arsenide: toxic when broken or abraded; handle per the lab chemical-safety rules.',
-    wafers: [{ number: '01', thicknessCm: null, state: 'received', notes: null }],
+    wafers: [{ number: 'W01', thicknessCm: null, state: 'received', notes: null }],
   },
   {
     code: 'LV-26-W007',
@@ -171,8 +171,8 @@ export const DEMO_LOTS: Array<{
     specMaxOhmCm: 1.2e-5,
     notes: '200 nm tungsten on 1 µm thermal oxide, for the TCR exercise.',
     wafers: [
-      { number: '01', thicknessCm: 0.0000198, state: 'measured', notes: null },
-      { number: '02', thicknessCm: null, state: 'received', notes: null },
+      { number: 'W01', thicknessCm: 0.0000198, state: 'measured', notes: null },
+      { number: 'W02', thicknessCm: null, state: 'received', notes: null },
     ],
   },
 ];
@@ -188,7 +188,7 @@ export const DEMO_ASSIGNMENTS: Array<{
 }> = [
   {
     lotCode: 'LV-26-B014',
-    waferNumber: '03',
+    waferNumber: 'W03',
     assignee: 'technician@rhotrace.example',
     task: 'Four-point sweep 80 K to 480 K on the cryo bench',
     dueInDays: 3,
@@ -197,7 +197,7 @@ export const DEMO_ASSIGNMENTS: Array<{
   },
   {
     lotCode: 'LV-26-P021',
-    waferNumber: '02',
+    waferNumber: 'W02',
     assignee: 'technician@rhotrace.example',
     task: 'Four-point sweep 300 K to 700 K on the hot chuck',
     dueInDays: 1,
@@ -206,7 +206,7 @@ export const DEMO_ASSIGNMENTS: Array<{
   },
   {
     lotCode: 'LV-26-B014',
-    waferNumber: '01',
+    waferNumber: 'W01',
     assignee: 'technician@rhotrace.example',
     task: 'Room-temperature spot check at 23 °C',
     dueInDays: -12,
@@ -215,7 +215,7 @@ export const DEMO_ASSIGNMENTS: Array<{
   },
   {
     lotCode: 'LV-26-G003',
-    waferNumber: '02',
+    waferNumber: 'W02',
     assignee: 'student@rhotrace.example',
     task: 'Van der Pauw sweep 200 K to 400 K',
     dueInDays: -2,
@@ -224,7 +224,7 @@ export const DEMO_ASSIGNMENTS: Array<{
   },
   {
     lotCode: 'LV-26-W007',
-    waferNumber: '02',
+    waferNumber: 'W02',
     assignee: 'student@rhotrace.example',
     task: 'Metal film TCR sweep 290 K to 400 K, low current',
     dueInDays: 7,

@@ -50,31 +50,31 @@ const semiconductor = (material: SemiconductorId, doping: Doping) => (t: number)
 
 const RECIPES: Recipe[] = [
   {
-    lotCode: 'LV-26-B014', waferNumber: '01', station: 'Cryo bench North', fileName: 'B014-01_cryo_25-480K.csv',
+    lotCode: 'LV-26-B014', waferNumber: 'W01', station: 'Cryo bench North', fileName: 'B014-01_cryo_25-480K.csv',
     spacingCm: 0.1, thicknessCm: 0.0524, diameterCm: 10, temperaturesK: range(25, 480, 5),
     resistivityAt: semiconductor('Si', { donorDensity: 0, acceptorDensity: 1.35e15, acceptor: 'B' }),
     currentA: 1e-3, shape: 'comma-kelvin', seed: 14, noise: 0.004,
   },
   {
-    lotCode: 'LV-26-B014', waferNumber: '02', station: 'Cryo bench North', fileName: 'B014-02_cryo_250-420K.csv',
+    lotCode: 'LV-26-B014', waferNumber: 'W02', station: 'Cryo bench North', fileName: 'B014-02_cryo_250-420K.csv',
     spacingCm: 0.1, thicknessCm: 0.0527, diameterCm: 10, temperaturesK: range(250, 420, 5),
     resistivityAt: semiconductor('Si', { donorDensity: 0, acceptorDensity: 0.95e15, acceptor: 'B' }),
     currentA: 1e-3, shape: 'comma-kelvin', seed: 15, noise: 0.004,
   },
   {
-    lotCode: 'LV-26-P021', waferNumber: '01', station: 'Hot chuck South', fileName: 'P021-01_hot_25-425C.csv',
+    lotCode: 'LV-26-P021', waferNumber: 'W01', station: 'Hot chuck South', fileName: 'P021-01_hot_25-425C.csv',
     spacingCm: 0.1588, thicknessCm: 0.0523, diameterCm: 10, temperaturesK: range(298.15, 698.15, 5),
     resistivityAt: semiconductor('Si', { donorDensity: 1.6e15, acceptorDensity: 2e13, donor: 'P' }),
     currentA: 5e-3, shape: 'semicolon-celsius', seed: 21, noise: 0.005,
   },
   {
-    lotCode: 'LV-26-G003', waferNumber: '01', station: 'Cryo bench North', fileName: 'G003-01_cryo_200-450K.csv',
+    lotCode: 'LV-26-G003', waferNumber: 'W01', station: 'Cryo bench North', fileName: 'G003-01_cryo_200-450K.csv',
     spacingCm: 0.1, thicknessCm: 0.0498, diameterCm: 5.08, temperaturesK: range(200, 450, 5),
     resistivityAt: semiconductor('Ge', { donorDensity: 0, acceptorDensity: 2e15, acceptor: 'Ga' }),
     currentA: 1e-3, shape: 'comma-kelvin', seed: 3, noise: 0.005,
   },
   {
-    lotCode: 'LV-26-W007', waferNumber: '01', station: 'Hot chuck South', fileName: 'W007-01_film_20-120C.csv',
+    lotCode: 'LV-26-W007', waferNumber: 'W01', station: 'Hot chuck South', fileName: 'W007-01_film_20-120C.csv',
     spacingCm: 0.1588, thicknessCm: 0.0000198, diameterCm: 10, temperaturesK: range(293.15, 393.15, 2.5),
     resistivityAt: (t) => 1.9 * metalResistivity('W', t),
     currentA: 1e-3, shape: 'semicolon-celsius', seed: 7, noise: 0.002,

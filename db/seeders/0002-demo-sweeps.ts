@@ -49,7 +49,7 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
   }
   const actor = { id: physicist.id, requestId: 'demo-seed' };
   const user = asActor(physicist);
-  const p021 = ids['LV-26-P021/01'];
+  const p021 = ids['LV-26-P021/W01'];
   if (p021) {
     await createFit(
       sequelize,
@@ -66,9 +66,9 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
       actor,
     );
   }
-  const w007 = ids['LV-26-W007/01'];
+  const w007 = ids['LV-26-W007/W01'];
   if (w007) await createFit(sequelize, user, w007, { kind: 'tcr', referenceK: 293.15 }, actor);
-  const b014 = ids['LV-26-B014/01'];
+  const b014 = ids['LV-26-B014/W01'];
   if (b014)
     await createFit(
       sequelize,

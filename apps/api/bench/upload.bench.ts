@@ -1,10 +1,17 @@
 /**
  * Upload benchmark: a 100,000-row four-column four-point-probe file uploaded over HTTP, parsed,
- * converted and stored, against the bare baseline (csv-parse of the same file plus the driver's
- * batch insert of the same rows in one transaction). Prints medians, peak memory growth and the
- * ratio; writes bench/out/upload.json. Needs the MariaDB that `npm run bench` starts (DB_*).
+ * converted and stored, against two references measured in the same run: the bare baseline
+ * (csv-parse of the same file plus the driver's batch insert of the same rows in one
+ * transaction) and MariaDB's own LOAD DATA LOCAL INFILE of the same point rows (raw cells as the
+ * import stores them) from a tab-separated file prepared beforehand, in one transaction (timed:
+ * the statement and its commit, the server's own floor). Prints medians, peak memory
+ * growth and the ratios; writes bench/out/upload.json. Needs the MariaDB that `npm run bench`
+ * starts (DB_*).
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import mariadb from 'mariadb';
 import type { AddressInfo } from 'node:net';
 import { fileURLToPath } from 'node:url';
 import { parse } from 'csv-parse/sync';
@@ -16,6 +23,8 @@ const ROWS = 100_000;
 /** Measured runs of each (BENCH_RUNS overrides; a noisy machine needs more). */
 const RUNS = Number(process.env.BENCH_RUNS) || 5;
 const RATIO_TARGET = 1.5;
+/** Issue 20: the upload within twice the time of MariaDB's own LOAD DATA of the same rows. */
+const LOAD_DATA_RATIO_TARGET = 2;
 const MEMORY_TARGET_MB = 300;
 const OUT = fileURLToPath(new URL('../../../bench/out/', import.meta.url));
 
@@ -116,19 +125,61 @@ async function main(): Promise<void> {
     return ms;
   }
 
+  // LOAD DATA needs a connection that allows a local file; the app's pool does not.
+  const config = ctx.sequelize.config;
+  const loader = await mariadb.createConnection({
+    host: config.host,
+    port: Number(config.port),
+    user: config.username,
+    password: config.password ?? undefined,
+    database: config.database,
+    permitLocalInfile: true,
+  });
+  const scratch = mkdtempSync(join(tmpdir(), 'rhotrace-load-data-'));
+
+  /** The same point rows as the import writes (raw cells as JSON), by LOAD DATA. */
+  async function loadData(file: Buffer): Promise<number> {
+    const records = parse(file, { from_line: 2 }) as string[][];
+    const tsv = join(scratch, 'points.tsv');
+    const lines = records.map((r, i) => {
+      const [t, current, voltage] = [Number(r[1]), Number(r[2]), Number(r[3])];
+      const raw = JSON.stringify(r).replace(/\\/g, '\\\\');
+      return `${holder.id}\t${i + 1}\t${i + 2}\t${t}\t${current}\t${voltage}\t${voltage / current}\t${raw}\t`;
+    });
+    writeFileSync(tsv, `${lines.join('\n')}\n`);
+    // Timed: the server's own work only (the rows are ready in a file, as LOAD DATA wants them).
+    const start = performance.now();
+    await loader.beginTransaction();
+    const result = (await loader.query(
+      `LOAD DATA LOCAL INFILE '${tsv}' INTO TABLE sweep_points ` +
+        '(sweep_id, sequence, source_row, temperature_k, current_a, voltage_v, resistivity_ohm_cm, raw, flags)',
+    )) as { affectedRows: number };
+    await loader.commit();
+    const ms = performance.now() - start;
+    if (result.affectedRows !== ROWS)
+      throw new Error(`LOAD DATA stored ${result.affectedRows} rows`);
+    await ctx.sequelize.query(`DELETE FROM sweep_points WHERE sweep_id = ${holder.id}`);
+    return ms;
+  }
+
   const fullMs: number[] = [];
+  const loadMs: number[] = [];
   const peaks: number[] = [];
   const baseMs: number[] = [];
   await full(makeFile(-1));
   await baseline(makeFile(-1));
+  await loadData(makeFile(-1));
   for (let k = 0; k < RUNS; k++) {
     const file = makeFile(k);
     baseMs.push(await baseline(file));
+    loadMs.push(await loadData(file));
     const f = await full(file);
     fullMs.push(f.ms);
     peaks.push(f.peakMb);
   }
   server.close();
+  await loader.end();
+  rmSync(scratch, { recursive: true, force: true });
   await ctx.close();
 
   // Each full run follows its own baseline run, so the per-pair ratio shares the machine's load.
@@ -137,6 +188,8 @@ async function main(): Promise<void> {
   const baseMedian = median(baseMs);
   const ratio = fullMedian / baseMedian;
   const peak = Math.max(...peaks);
+  const loadMedian = median(loadMs);
+  const loadRatio = median(fullMs.map((ms, k) => ms / loadMs[k]!));
   const figures = [
     {
       name: 'upload 100k rows over HTTP (median)',
@@ -160,6 +213,14 @@ async function main(): Promise<void> {
       pass: ratio < RATIO_TARGET,
     },
     {
+      name: "upload / MariaDB's LOAD DATA of the same rows (median of per-run ratios)",
+      value: +loadRatio.toFixed(2),
+      unit: 'x',
+      target: `<= ${LOAD_DATA_RATIO_TARGET}`,
+      reference: `LOAD DATA LOCAL INFILE ${loadMedian.toFixed(0)} ms (median)`,
+      pass: loadRatio <= LOAD_DATA_RATIO_TARGET,
+    },
+    {
       name: 'upload peak memory growth',
       value: +peak.toFixed(1),
       unit: 'MB',
@@ -170,6 +231,7 @@ async function main(): Promise<void> {
   console.log(`upload benchmark: ${ROWS} rows, ${RUNS} runs each`);
   console.log(`  full upload runs (ms): ${fullMs.map((x) => x.toFixed(0)).join(', ')}`);
   console.log(`  baseline runs (ms):    ${baseMs.map((x) => x.toFixed(0)).join(', ')}`);
+  console.log(`  LOAD DATA runs (ms):   ${loadMs.map((x) => x.toFixed(0)).join(', ')}`);
   console.log(`  median of per-run ratios: ${pairMedian.toFixed(2)} x (noise check)`);
   for (const f of figures) {
     console.log(

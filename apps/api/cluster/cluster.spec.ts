@@ -11,6 +11,7 @@ import { migrator } from '../src/db/migrator';
 import { makeWafer } from '../src/sweeps/sweep-test-helpers';
 import { User } from '../src/users/user.model';
 import { ApiInstance, GaleraCluster, S3StandIn, freePort } from './cluster-harness';
+import { postEverywhere, seedStationPost, type StationSetup } from './cluster-station-post';
 import {
   POINTS_PER_FILE,
   emptyTally,
@@ -32,6 +33,7 @@ let b: ApiInstance;
 const tally: Tally = emptyTally();
 const figures: Record<string, number | string> = {};
 let waferIds: number[] = [];
+let stationSetup: StationSetup;
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
@@ -64,7 +66,7 @@ beforeAll(async () => {
     { poolMax: 2 },
   );
   await migrator(sequelize).up();
-  await User.create({
+  const engineer = await User.create({
     email: EMAIL,
     name: 'Cluster Engineer',
     role: 'engineer',
@@ -74,6 +76,7 @@ beforeAll(async () => {
     (await makeWafer({ thicknessCm: 0.05 })).id,
     (await makeWafer({ thicknessCm: 0.05 })).id,
   ];
+  stationSetup = await seedStationPost(engineer.id);
   await sequelize.close();
 
   const shared = {
@@ -215,6 +218,21 @@ describe('Rhotrace on a Galera cluster with node and instance failures', () => {
         "AND action = 'create' GROUP BY entity_id HAVING COUNT(*) > 1) d",
     );
     expect(doubled[0]!.n).toBe(0);
+  });
+
+  it('stores one sweep for one Idempotency-Key posted to both instances (two nodes) at once', async () => {
+    const answers = await postEverywhere(stationSetup, [a.url, b.url]);
+    // the loser waits for the winner's row, or (its node not yet holding it) answers 409
+    expect(answers.every((x) => x.status === 201 || x.status === 409)).toBe(true);
+    const stored = answers.filter((x) => x.status === 201);
+    expect(stored.length).toBeGreaterThan(0);
+    expect(new Set(stored.map((x) => x.id)).size).toBe(1);
+    const rows = await cluster.query<{ id: number }>(
+      1,
+      'SELECT id FROM sweeps WHERE wafer_id = ?',
+      [stationSetup.waferId],
+    );
+    expect(rows.map((r) => r.id)).toEqual([stored[0]!.id]);
   });
 
   it('reads every stored sweep back from both instances', async () => {

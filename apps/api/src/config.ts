@@ -36,6 +36,8 @@ export interface AppConfig {
   storage: 'db' | 's3';
   /** Sign-in attempts one address and e-mail may make per 15 minutes (first-line limiter). */
   signInLimitPer15Min: number;
+  /** Sweeps one station token may post per minute (429 with Retry-After beyond). */
+  stationPostsPerMinute: number;
 }
 
 type Env = Record<string, string | undefined>;
@@ -119,5 +121,6 @@ export function loadConfig(env: Env = process.env): AppConfig {
     webDist: env.WEB_DIST ?? join(REPO_ROOT, 'dist/web/browser'),
     storage: env.RAW_STORAGE === 's3' ? 's3' : 'db',
     signInLimitPer15Min: intFrom(env, 'SIGN_IN_LIMIT', 30),
+    stationPostsPerMinute: intFrom(env, 'STATION_POSTS_PER_MIN', 30),
   };
 }

@@ -96,6 +96,8 @@ const MATRIX: Row[] = [
   { method: 'get', path: '/api/dev/mail', expect:                       [200, 200, 200, 200, 200, 200] },
 
   // ── sweep import, fits, analysis and reports: append your rows below this line ──
+  // measurement planner: roles with plans:make
+  { method: 'post', path: '/api/planner', body: () => ({ stationId: fx.station, material: 'Si', doping: { donorDensity: 1e15, acceptorDensity: 0 }, thicknessCm: 0.05, minK: 100, maxK: 300, count: 5, spacing: 'linear', targetVoltageV: 0.01, maxVoltageV: 0.1, maxPowerW: 0.001 }), expect: [200, 200, 200, 200, 403, 401] },
 ];
 
 describe('permission matrix: every route against every role', () => {

@@ -3,6 +3,8 @@ declare module 'plotly.js-dist-min' {
   export interface PlotlyHTMLElement extends HTMLElement {
     on(event: string, handler: (event: unknown) => void): void;
     removeAllListeners?(event: string): void;
+    /** The layout as drawn (axes with their current type and range). */
+    layout?: Record<string, { type?: string } | undefined>;
   }
   export function react(
     element: HTMLElement,
@@ -11,6 +13,7 @@ declare module 'plotly.js-dist-min' {
     config?: Record<string, unknown>,
   ): Promise<PlotlyHTMLElement>;
   export function purge(element: HTMLElement): void;
+  export function relayout(element: HTMLElement, update: Record<string, unknown>): Promise<unknown>;
   export function downloadImage(
     element: HTMLElement,
     options: { format: 'png' | 'svg'; filename: string; width?: number; height?: number },
@@ -23,6 +26,7 @@ declare module 'plotly.js-dist-min' {
   const Plotly: {
     react: typeof react;
     purge: typeof purge;
+    relayout: typeof relayout;
     downloadImage: typeof downloadImage;
     toImage: typeof toImage;
     Plots: typeof Plots;

@@ -2,6 +2,7 @@
  * Analysis API shapes: model curves, materials, sweep analysis, fits, dopant density, lot
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
+import type { HallAnalysis, HallAt300K } from './hall';
 import type { PointFinding } from './sweeps';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
@@ -210,6 +211,8 @@ export interface SweepAnalysisResponse {
   findings?: PointFinding[];
   /** Points carrying a doubtful flag. */
   flaggedPoints?: number;
+  /** Hall sweeps only: n(T) and mu_H(T) by step, the carrier type and the freeze-out window. */
+  hall?: HallAnalysis;
 }
 
 /** One ramp leg of a sweep. */
@@ -264,6 +267,8 @@ export interface LotSummaryWafer extends ValueUncertainty {
     maxK: number | null;
     quantity: string;
   }>;
+  /** The wafer's latest Hall sweep at 300 K, null when it has none. */
+  hall?: HallAt300K | null;
 }
 
 /** `GET /api/lots/:id/summary` answer. */
@@ -305,5 +310,7 @@ export interface CompareResponse {
     maxTemperatureK: number;
     /** Aligned with temperaturesK; null outside the sweep's own temperature range. */
     resistivityOhmCm: Array<number | null>;
+    /** Hall sweeps only: the sweep at 300 K. */
+    hall?: HallAt300K;
   }>;
 }

@@ -54,6 +54,8 @@ export interface UpdateUserRequest {
   role?: Role;
   active?: boolean;
   password?: string;
+  /** With `active: false`: the account that takes over the person's open tasks. */
+  reassignTo?: number;
 }
 
 /** `POST /api/auth/password-reset` always answers 202 with this, whether or not the account exists. */

@@ -19,6 +19,7 @@ export const CAPABILITIES = [
   'fits:delete-any',
   'fits:delete-own',
   'audit:read',
+  'plans:make',
 ] as const;
 
 /** One thing a role may be allowed to do. */
@@ -32,6 +33,8 @@ export type Capability = (typeof CAPABILITIES)[number];
  * - `sweeps:upload`: upload sweeps to every wafer the role sees (technicians: assigned ones).
  * - `fits:run`: run and save fits, edit model parameters.
  * - `*:delete-any` / `*:delete-own`: soft-delete any record, or only those the user created.
+ * - `plans:make`: compute measurement plans (probe current, temperature steps); anyone who
+ *   assigns attaches them, and the assignee reads the one attached to their assignment.
  */
 export const ROLE_CAPABILITIES: Readonly<Record<Role, readonly Capability[]>> = {
   admin: [
@@ -46,6 +49,7 @@ export const ROLE_CAPABILITIES: Readonly<Record<Role, readonly Capability[]>> = 
     'sweeps:delete-any',
     'fits:delete-any',
     'audit:read',
+    'plans:make',
   ],
   manager: [
     'records:edit',
@@ -58,6 +62,7 @@ export const ROLE_CAPABILITIES: Readonly<Record<Role, readonly Capability[]>> = 
     'sweeps:delete-any',
     'fits:delete-any',
     'audit:read',
+    'plans:make',
   ],
   engineer: [
     'records:edit',
@@ -68,6 +73,7 @@ export const ROLE_CAPABILITIES: Readonly<Record<Role, readonly Capability[]>> = 
     'fits:run',
     'sweeps:delete-own',
     'fits:delete-own',
+    'plans:make',
   ],
   physicist: [
     'assignments:see-all',
@@ -76,6 +82,7 @@ export const ROLE_CAPABILITIES: Readonly<Record<Role, readonly Capability[]>> = 
     'fits:run',
     'sweeps:delete-own',
     'fits:delete-own',
+    'plans:make',
   ],
   technician: ['sweeps:upload'],
 };

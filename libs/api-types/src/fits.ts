@@ -4,7 +4,14 @@
 import type { DopingInput, RegimeName } from './analysis';
 import type { PointFlag } from './sweeps';
 
-export const FIT_KINDS = ['arrhenius', 'model', 'tcr', 'bloch-gruneisen'] as const;
+export const FIT_KINDS = [
+  'arrhenius',
+  'model',
+  'tcr',
+  'bloch-gruneisen',
+  'carrier-density',
+  'hall-mobility',
+] as const;
 export type FitKind = (typeof FIT_KINDS)[number];
 
 /**
@@ -65,6 +72,16 @@ export type FitRequest = FitRequestOptions &
       }
     | { kind: 'tcr'; referenceK?: number; minK?: number; maxK?: number }
     | { kind: 'bloch-gruneisen'; minK?: number; maxK?: number }
+    | {
+        /** Hall sweeps: charge neutrality fitted to the measured n(T) (or p(T)). */
+        kind: 'carrier-density';
+        material?: string;
+        initial: DopingInput;
+        free: Array<'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel'>;
+        minK?: number;
+        maxK?: number;
+      }
+    | { kind: 'hall-mobility'; minK?: number; maxK?: number }
   );
 
 /** Correlation matrix of the fitted parameters (rows and columns in `parameters` order). */
@@ -103,7 +120,18 @@ export interface FitInterpretation {
   prefactorExponent: number;
   /** One sentence: method and assumption. */
   note: string;
+  /**
+   * `carrier-density` fits: the compensation ratio N_minority / N_majority (N_A / N_D for an
+   * n-type sample) with its 95 % interval, null when the fit did not free both densities.
+   */
+  compensationRatio?: { value: number; confidenceInterval95: [number, number] | null } | null;
+  /** `hall-mobility` fits: the scattering mechanism the exponent suggests. */
+  scattering?: HallScattering | null;
 }
+
+/** Scattering mechanisms a Hall-mobility exponent can point to. */
+export type HallScattering =
+  'acoustic-phonon' | 'acoustic-and-optical-phonon' | 'ionized-impurity' | 'mixed';
 
 /** Quadratic term of ln(value) against 1/(kT) over the window (Arrhenius only), eV^2. */
 export interface FitCurvature {

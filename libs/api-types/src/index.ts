@@ -53,6 +53,7 @@ export { MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE } from './common';
 export type { Page, HealthResponse } from './common';
 export { ERROR_STATUS } from './errors';
 export type { FieldProblem, ApiErrorBody, ErrorCode } from './errors';
+export { PARAMETER_WORDS, KIND_WORDS } from './fit-words';
 export { FIT_KINDS, FIT_EXCLUDED_FLAGS } from './fits';
 export type {
   FitKind,
@@ -61,10 +62,24 @@ export type {
   FitCorrelation,
   FitGoodness,
   FitInterpretation,
+  HallScattering,
   FitCurvature,
   FitDto,
   FitPreviewDto,
 } from './fits';
+export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
+export { PLAN_SPACINGS, PLAN_METHODS, CURRENT_LIMITS } from './planner';
+export type {
+  PlanSpacing,
+  PlanMethodName,
+  CurrentLimitName,
+  PlannerRequest,
+  PlanStepDto,
+  PlanCurrentRangeDto,
+  PlanBasisDto,
+  PlannerResponse,
+  AssignmentPlanDto,
+} from './planner';
 export {
   SEMICONDUCTORS,
   METAL_FILMS,
@@ -90,6 +105,8 @@ export type {
   WaferDto,
   StationDto,
   AssignmentDto,
+  AuditChangeDto,
+  AssignmentStationUpload,
   AuditEventDto,
   LotListQuery,
   WaferListQuery,
@@ -100,6 +117,8 @@ export type {
   UpdateAssignmentRequest,
   AuditListQuery,
 } from './records';
+export { SEARCH_KINDS } from './search';
+export type { SearchKind, SearchHit, SearchGroup, SearchResponse } from './search';
 export { UNCERTAINTY_SOURCES, SPEC_VERDICT_WORDS, SPEC_VERDICT_MEANINGS } from './spec';
 export type {
   ValueAt23CMethod,
@@ -109,7 +128,22 @@ export type {
   ValueUncertainty,
   LotCapability,
 } from './spec';
-export { SWEEP_METHODS, COLUMN_MEANINGS, POINT_FLAGS, JUMP_FACTOR, MAX_FINDINGS } from './sweeps';
+export { STATION_TOKEN_PREFIX } from './station-tokens';
+export type {
+  CreateStationTokenRequest,
+  StationTokenDto,
+  StationTokenCreatedResponse,
+  StationUploadDto,
+  StationSweepCreatedResponse,
+} from './station-tokens';
+export {
+  SWEEP_METHODS,
+  COLUMN_MEANINGS,
+  POINT_FLAGS,
+  JUMP_FACTOR,
+  MAX_FINDINGS,
+  HALL_FACTOR_NAMES,
+} from './sweeps';
 export type {
   SweepMethod,
   ColumnMeaning,
@@ -129,5 +163,8 @@ export type {
   SweepParseReport,
   RawReading,
   SweepPointDto,
+  PointQuantities,
+  HallFactorName,
+  HallImportReport,
   SweepDto,
 } from './sweeps';

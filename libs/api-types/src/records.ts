@@ -1,3 +1,4 @@
+import type { AssignmentPlanDto } from './planner';
 /** Semiconductor wafer materials Rhotrace models. */
 export const SEMICONDUCTORS = ['Si', 'Ge', 'GaAs', '4H-SiC'] as const;
 /** Metal-film test wafers Rhotrace knows reference data for. */
@@ -112,8 +113,32 @@ export interface AssignmentDto {
   overdue: boolean;
   /** Safety notes for this task and wafer material (they defer to the lab's own rules). */
   safetyCautions?: string[];
+  /** The probe station the wafer is to be measured on; its token may post the sweep. */
+  stationId?: number | null;
+  /** The sweep the station posted for this assignment, when one did. */
+  stationUpload?: AssignmentStationUpload | null;
+  /** The measurement plan attached to the assignment, when one is. */
+  plan?: AssignmentPlanDto | null;
   createdAt: string;
   updatedAt: string;
+}
+
+/** One changed field of an audit event, in words: values with units, ids as names. */
+export interface AuditChangeDto {
+  /** The stored field name (for scripts); `label` is what people read. */
+  field: string;
+  label: string;
+  /** null when the record did not exist before (created) or after (deleted). */
+  before: string | null;
+  after: string | null;
+}
+
+/** A station's post that fulfilled an assignment. */
+export interface AssignmentStationUpload {
+  sweepId: number;
+  stationName: string;
+  tokenLabel: string;
+  postedAt: string;
 }
 
 export interface AuditEventDto {
@@ -126,6 +151,10 @@ export interface AuditEventDto {
   before: unknown;
   after: unknown;
   requestId: string | null;
+  /** The record in words, e.g. "wafer W03 of lot L-7" or "task on wafer W03 of lot L-7". */
+  recordName: string | null;
+  /** The fields that changed, in words. */
+  changes: AuditChangeDto[];
   createdAt: string;
 }
 
@@ -187,6 +216,7 @@ export interface CreateAssignmentRequest {
   task: string;
   dueDate: string;
   notes?: string | null;
+  stationId?: number | null;
 }
 
 export interface UpdateAssignmentRequest {
@@ -195,6 +225,7 @@ export interface UpdateAssignmentRequest {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
 }
 
 /** `GET /api/audit` filters: `entity` (lot, wafer, station, assignment, user), `id`, `actorId`. */

@@ -1,3 +1,5 @@
+import type { StationUploadDto } from './station-tokens';
+
 /** How a sweep's readings become resistivity. */
 export const SWEEP_METHODS = [
   'four-point',
@@ -5,12 +7,15 @@ export const SWEEP_METHODS = [
   'bar',
   'resistivity',
   'sheet-resistance',
+  'hall',
 ] as const;
 export type SweepMethod = (typeof SWEEP_METHODS)[number];
 
 /**
  * What a column of an imported file holds. `resistance` is V/I (for van der Pauw: R_A) and
  * `resistance-b` the second van der Pauw configuration (R_B); `other` is kept raw only.
+ * Hall sweeps add `magnetic-field` and either `hall-voltage` (already corrected for offsets) or
+ * the four reversals `hall-voltage-xy` (x the field sign, y the current sign; p = +, n = -).
  */
 export const COLUMN_MEANINGS = [
   'temperature',
@@ -25,6 +30,12 @@ export const COLUMN_MEANINGS = [
   'time',
   'index',
   'other',
+  'magnetic-field',
+  'hall-voltage',
+  'hall-voltage-pp',
+  'hall-voltage-pn',
+  'hall-voltage-np',
+  'hall-voltage-nn',
   'reference-junction',
 ] as const;
 export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
@@ -149,6 +160,8 @@ export interface SweepSummaryDto {
   minTemperatureK: number | null;
   maxTemperatureK: number | null;
   createdAt: string;
+  /** Set when a probe station posted the sweep with its token. */
+  uploadedVia?: StationUploadDto | null;
   /** Points carrying a doubtful flag (`parseReport.flaggedPoints`); absent on old sweeps. */
   flaggedPoints?: number;
 }
@@ -179,6 +192,8 @@ export interface SweepParseReport {
   rowCount: number;
   warnings: string[];
   flaggedPoints: number;
+  /** Hall sweeps only: the Hall factor used and what the import found. */
+  hall?: HallImportReport;
   /** Each flagged point with its reason (the first `MAX_FINDINGS`); absent on old sweeps. */
   findings?: PointFinding[];
   /** How the temperatures were converted; absent on old sweeps. */
@@ -209,8 +224,48 @@ export interface SweepPointDto {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
   flags: PointFlag[];
+  /** Measured or derived quantities beyond resistivity (Hall sweeps), null when none. */
+  quantities?: PointQuantities | null;
   /** The ramp leg (1, 2, ...) the point belongs to; null on sweeps imported before legs. */
   leg?: number | null;
+}
+
+/**
+ * Quantities a point carries beyond the fixed columns, stored as one JSON document per point
+ * (`sweep_points.quantities`). Keys are camelCase with their unit in the name; a new measured
+ * quantity is a new key, not a new column.
+ */
+export interface PointQuantities {
+  /** Signed Hall coefficient R_H, cm^3/C (negative for electrons). */
+  hallCoefficientCm3PerC?: number;
+  /** Hall carrier density r_H / (q |R_H|), cm^-3. */
+  carrierDensityCm3?: number;
+  /** Sheet carrier density, cm^-2. */
+  sheetCarrierDensityCm2?: number;
+  /** Hall mobility |R_H| / rho, cm^2/(V s). */
+  hallMobilityCm2PerVs?: number;
+  carrierType?: 'n' | 'p';
+  /** Field the Hall voltage was measured at, T. */
+  magneticFieldT?: number;
+  /** Hall voltage at +B, +I with offsets removed, V. */
+  hallVoltageV?: number;
+  [key: string]: number | string | undefined;
+}
+
+/** Named Hall scattering factors the store request accepts for `hallFactor`. */
+export const HALL_FACTOR_NAMES = ['acoustic-phonon', 'ionized-impurity', 'degenerate'] as const;
+export type HallFactorName = (typeof HALL_FACTOR_NAMES)[number];
+
+/** How a Hall sweep's densities were computed (in its parse report). */
+export interface HallImportReport {
+  /** r_H the densities were divided by (n = r_H / (q |R_H|)). */
+  hallFactor: number;
+  /** The named factor, or null when a number was given. */
+  hallFactorName: HallFactorName | null;
+  /** True when the carrier type changes sign within the sweep (mixed conduction). */
+  mixedConduction: boolean;
+  /** Whether the Hall voltage came from the four reversals or one corrected column. */
+  hallVoltageFrom: 'reversals' | 'corrected-column';
 }
 
 /** `GET /api/sweeps/:id`. */

@@ -56,6 +56,40 @@ describe('documented examples and defaults', () => {
     expect(physics.celsiusToKelvin(23)).toBeCloseTo(296.15, 12);
     expect(physics.kelvinToCelsius(373.15)).toBeCloseTo(100, 12);
   });
+  it('planner examples hold', () => {
+    const steps = physics.planTemperatureSteps({
+      minK: 20,
+      maxK: 100,
+      count: 10,
+      spacing: 'inverse',
+    });
+    expect(steps[1]).toBeCloseTo(21.95, 2);
+    expect(steps[8]).toBeCloseTo(69.23, 2);
+    expect(physics.denseAround([100, 200, 300], [150])).toEqual([
+      100, 135, 142.5, 157.5, 165, 200, 300,
+    ]);
+    expect(physics.sweepDurationS([296.15, 306.15], { dwellS: 60, rampKPerMin: 5 })).toBeCloseTo(
+      360,
+      9,
+    );
+    const p = physics.planProbeCurrent({
+      method: 'four-point',
+      sheetResistanceOhmSq: 100,
+      targetVoltageV: 0.01,
+      maxVoltageV: 0.1,
+      maxPowerW: 0.01,
+    });
+    expect(p.currentA).toBeCloseTo(4.532e-4, 7);
+    expect(p.powerW).toBeCloseTo(4.532e-6, 9);
+    expect(p.limitedBy).toBe('target-voltage');
+    const ranges = physics.planCurrentRanges([100, 150], {
+      method: 'van-der-pauw',
+      targetVoltageV: 0.01,
+      maxVoltageV: 0.1,
+      maxPowerW: 0.01,
+    });
+    expect(ranges.ranges).toHaveLength(1);
+  });
   it('fit and metal examples hold', () => {
     expect(physics.studentTCritical(0.95, 10)).toBeCloseTo(2.2281, 4);
     expect(physics.seededRandom(42)()).toBeCloseTo(0.6011, 4);
@@ -108,5 +142,35 @@ describe('documented examples and defaults', () => {
     );
     expect(d.donorDegeneracy).toBe(2);
     expect(d.acceptorDegeneracy).toBe(4);
+  });
+});
+
+describe('documented Hall examples', () => {
+  it('hall examples hold', () => {
+    expect(
+      physics.hallVoltageFromReversals({ pp: 0.0012, pn: -0.0008, np: 0.0032, nn: -0.0028 }),
+    ).toBeCloseTo(-0.001, 15);
+    const h = physics.hallCoefficient({
+      hallVoltageV: -1e-3,
+      currentA: 1e-3,
+      magneticFieldT: 0.5,
+      thicknessCm: 0.05,
+    });
+    expect(h.hallCoefficientCm3PerC).toBeCloseTo(-1000, 9);
+    expect(h.densityCm3 / 6.24e15).toBeCloseTo(1, 2);
+    expect(h.carrierType).toBe('n');
+    expect(physics.hallMobility(-1000, 1)).toBe(1000);
+    expect(
+      physics.twoCarrierHallCoefficient({
+        electronDensityCm3: 1e15,
+        holeDensityCm3: 1e15,
+        electronMobility: 3,
+        holeMobility: 1,
+      }),
+    ).toBeCloseTo(-3121, 0);
+    const mu = physics.fitMobilityPowerLaw(
+      [100, 150, 200, 300].map((t) => ({ temperatureK: t, mobility: 1000 * (t / 300) ** -2.4 })),
+    );
+    expect(mu.exponent).toBeCloseTo(-2.4, 9);
   });
 });

@@ -63,6 +63,22 @@ export type { FourPointProbeResult } from './probe/four-point';
 export { vanDerPauw } from './probe/van-der-pauw';
 export type { VanDerPauwResult } from './probe/van-der-pauw';
 export { barResistivity } from './probe/bar';
+export {
+  denseAround,
+  MAX_PLAN_STEPS,
+  PLAN_DEFAULTS,
+  planTemperatureSteps,
+  sweepDurationS,
+} from './plan/temperature-steps';
+export type { StepSpacing } from './plan/temperature-steps';
+export { planCurrentRanges, planProbeCurrent } from './plan/probe-current';
+export type {
+  CurrentLimit,
+  CurrentRange,
+  PlanMethod,
+  ProbeCurrentPlan,
+  ProbeLimits,
+} from './plan/probe-current';
 export { resistivityFromSheetResistance } from './probe/sheet-resistance';
 
 export { IEC_60751, rtdResistance, rtdTemperatureK } from './thermometry/rtd';
@@ -106,6 +122,7 @@ export type { LeastSquaresProblem, LeastSquaresResult } from './fit/levenberg-ma
 export { fitModel } from './fit/model-fit';
 export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit';
 export { fitLinearTcr } from './fit/tcr';
+export { arrheniusValue, linearTcrResistivity } from './fit/fitted-curves';
 export { thermalLag } from './fit/thermal-lag';
 export type { LegCurve, ThermalLag } from './fit/thermal-lag';
 export type { LinearTcrFit, TcrParameter } from './fit/tcr';
@@ -151,3 +168,29 @@ export {
 export type { MetalBlochGruneisen, MetalId, MetalReference } from './metal/metals';
 export { listMaterials } from './materials';
 export type { MaterialCatalogue, SemiconductorCatalogueEntry } from './materials';
+
+export {
+  HALL_SCATTERING_FACTORS,
+  hallCoefficient,
+  hallMobility,
+  hallVoltageFromReversals,
+  twoCarrierHallCoefficient,
+} from './hall/hall-effect';
+export type {
+  HallCoefficientInput,
+  HallCoefficientResult,
+  HallReversals,
+  TwoCarrierInput,
+} from './hall/hall-effect';
+export { fitCarrierDensity } from './hall/carrier-density-fit';
+export type {
+  CarrierDensityFit,
+  CarrierDensityFitOptions,
+  CarrierDensityParameter,
+} from './hall/carrier-density-fit';
+export { fitMobilityPowerLaw } from './hall/mobility-power-law';
+export type {
+  MobilityPowerLawFit,
+  MobilityPowerLawOptions,
+  MobilityPowerLawParameter,
+} from './hall/mobility-power-law';

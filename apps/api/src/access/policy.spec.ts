@@ -20,6 +20,7 @@ describe('the role-to-capability table', () => {
     expect(rolesWith('records:see-all')).toEqual(['admin', 'manager', 'engineer', 'physicist']);
     expect(rolesWith('fits:run')).toEqual(['admin', 'manager', 'engineer', 'physicist']);
     expect(rolesWith('audit:read')).toEqual(['admin', 'manager']);
+    expect(rolesWith('plans:make')).toEqual(['admin', 'manager', 'engineer', 'physicist']);
   });
 });
 

@@ -52,6 +52,9 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
     w.activationEnergies.map((a) => `${a.activationEnergyEv.toPrecision(4)} eV`).join('; '),
     w.reason,
     w.uncertaintyOhmCm,
+    w.hall?.carrierDensityAt300KCm3 ?? null,
+    w.hall?.hallMobilityAt300KCm2PerVs ?? null,
+    w.hall?.carrierType ?? null,
   ]);
   const st = s.statistics;
   rows.push(
@@ -75,6 +78,9 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
       'activation_energies',
       'note',
       'expanded_uncertainty_k2_ohm_cm',
+      'hall_carrier_density_300k_cm3',
+      'hall_mobility_300k_cm2_per_vs',
+      'carrier_type',
     ],
     rows,
   );

@@ -10,6 +10,7 @@ import type {
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
 import { visibleSweep, visibleWafer } from '../access/visibility.service';
 import { notFound, unprocessable } from '../errors';
+import { hallAnalysis, hallAt300K, hallFactorOf } from './hall-analysis';
 import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
@@ -45,6 +46,8 @@ export async function sweepAnalysis(
           .map((r) => ({ temperatureK: r.temperatureK, resistivityOhmCm: r.resistivityOhmCm }));
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
+  const factor = hallFactorOf(v.sweep.parseReport);
+  const hall = factor === null ? null : hallAnalysis(points, factor);
   return {
     sweep: sweepSummary(v, skipped),
     steps,
@@ -62,6 +65,7 @@ export async function sweepAnalysis(
     thermalLag: legThermalLag(readings, legs),
     findings: (v.sweep.parseReport as SweepParseReport).findings ?? [],
     flaggedPoints: (v.sweep.parseReport as SweepParseReport).flaggedPoints ?? 0,
+    ...(hall ? { hall } : {}),
   };
 }
 
@@ -158,14 +162,14 @@ export async function compareSweeps(
     const v = await visibleSweep(user, id);
     const steps = averageSteps((await sweepReadings(v.sweep)).points);
     if (steps.length === 0) throw unprocessable(`Sweep ${id} has no usable points`);
-    loaded.push({ v, steps });
+    loaded.push({ v, steps, hall: await hallAt300K(v.sweep) });
   }
   const minK = Math.min(...loaded.map((l) => l.steps[0]!.temperatureK));
   const maxK = Math.max(...loaded.map((l) => l.steps[l.steps.length - 1]!.temperatureK));
   const grid = minK === maxK ? [minK] : temperatureGrid(minK, maxK, gridPoints);
   return {
     temperaturesK: grid,
-    curves: loaded.map(({ v, steps }) => ({
+    curves: loaded.map(({ v, steps, hall }) => ({
       sweepId: v.sweep.id,
       waferId: v.wafer.id,
       waferNumber: v.wafer.number,
@@ -175,6 +179,7 @@ export async function compareSweeps(
       minTemperatureK: steps[0]!.temperatureK,
       maxTemperatureK: steps[steps.length - 1]!.temperatureK,
       resistivityOhmCm: grid.map((t) => interpolateWithin(steps, t)),
+      ...(hall ? { hall } : {}),
     })),
   };
 }

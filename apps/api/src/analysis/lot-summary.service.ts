@@ -11,6 +11,7 @@ import { visibleLot, visibleWafers } from '../access/visibility.service';
 import { Fit } from '../fits/fit.model';
 import { Sweep } from '../sweeps/sweep.model';
 import { Wafer } from '../wafers/wafer.model';
+import { hallAt300K } from './hall-analysis';
 import { specVerdict } from './spec-check';
 import { waferAssessment } from './spec.service';
 
@@ -55,6 +56,11 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
     order: [['id', 'ASC']],
   });
   const waferOfSweep = new Map(sweeps.map((s) => [s.id, s.waferId]));
+  const hallSweeps = await Sweep.findAll({
+    attributes: ['id', 'waferId', 'sha256', 'createdAt', 'pointCount', 'parseReport'],
+    where: { waferId: { [Op.in]: wafers.map((w) => w.id) }, method: 'hall' },
+    order: [['id', 'DESC']],
+  });
 
   const rows: LotSummaryWafer[] = [];
   for (const wafer of wafers) {
@@ -66,7 +72,9 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
       lot.specMinOhmCm,
       lot.specMaxOhmCm,
     );
+    const latestHall = hallSweeps.find((s) => s.waferId === wafer.id);
     rows.push({
+      hall: latestHall ? await hallAt300K(latestHall) : null,
       waferId: wafer.id,
       number: wafer.number,
       sweepId: found.sweepId,

@@ -1,4 +1,4 @@
-import type { AnalysisStep, AnalysisSweepDto } from '@rhotrace/api-types';
+import type { AnalysisStep, AnalysisSweepDto, PointQuantities } from '@rhotrace/api-types';
 import { FIT_EXCLUDED_FLAGS } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
 import type { VisibleSweep } from '../access/visibility.service';
@@ -16,6 +16,8 @@ export const STEP_TOLERANCE_K = 0.25;
 export interface AnalysisPoint {
   temperatureK: number;
   resistivityOhmCm: number;
+  /** Quantities beyond resistivity (Hall sweeps: density, mobility); absent for most sweeps. */
+  quantities?: PointQuantities;
 }
 
 /** The readings of a sweep usable for analysis, sorted by temperature. */
@@ -51,7 +53,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
   const hit = readingsCache.get(sweep);
   if (hit) return hit;
   const rows = await SweepPoint.findAll({
-    attributes: ['sequence', 'temperatureK', 'resistivityOhmCm', 'flags', 'leg'],
+    attributes: ['sequence', 'temperatureK', 'resistivityOhmCm', 'flags', 'quantities', 'leg'],
     where: { sweepId: sweep.id },
     raw: true,
   });
@@ -68,8 +70,10 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     const rho = Number(r.resistivityOhmCm);
     if (Number.isFinite(t) && t > 0 && Number.isFinite(rho) && rho > 0) {
       const flags = r.flags ? r.flags.split(',') : [];
+      const point: AnalysisPoint = { temperatureK: t, resistivityOhmCm: rho };
+      if (r.quantities) point.quantities = storedQuantities(r.quantities);
       usable.push({
-        point: { temperatureK: t, resistivityOhmCm: rho },
+        point,
         sequence: Number(r.sequence),
         excludable: FIT_EXCLUDED_FLAGS.some((f) => flags.includes(f)),
         leg: Number(r.leg ?? 0),
@@ -91,6 +95,11 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     skippedK,
     skippedNoTemperature,
   });
+}
+
+/** A stored quantities document, as text from a raw read. */
+function storedQuantities(stored: unknown): PointQuantities {
+  return (typeof stored === 'string' ? JSON.parse(stored) : stored) as PointQuantities;
 }
 
 /** Readings a fit uses, and the flagged ones it left out. */

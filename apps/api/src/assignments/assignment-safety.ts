@@ -5,20 +5,25 @@ export const DEFER_TO_LAB_RULES =
   "These notes are reminders, not a procedure: your lab's own safety rules, training and the " +
   'instructions of licensed staff come first. If in doubt, stop and ask.';
 
-const HOT_CHUCK =
+export const HOT_CHUCK =
   'Hot chuck: a heated stage stays hot long after the sweep ends. Check its temperature before ' +
   'touching the wafer or probes, handle with tweezers, and never leave a hot stage unattended.';
-const CRYOGEN =
+export const CRYOGEN =
   'Cryogens: wear a face shield and cryogenic gloves when filling or handling liquid nitrogen or ' +
   'helium, keep the room ventilated (boil-off displaces oxygen), and never seal a cold vessel.';
-const TOXIC_COMPOUND = (material: string) =>
+export const TOXIC_COMPOUND = (material: string) =>
   `Toxic compound semiconductor: ${material} contains arsenic. An intact wafer is safe to ` +
   'handle with gloves, but if it breaks, chips or is scratched, do not sweep or blow the ' +
   "fragments: collect them wet, keep the dust out of the air, and follow the lab's hazardous " +
   'waste rules.';
-const PROBE_HEATING =
+export const PROBE_HEATING =
   'Probe current heats thin films: start with a small current and raise it only as far as the ' +
   'signal needs. Self-heating at the probe tips shifts the reading and can burn through a film.';
+/** Strong magnets of a Hall setup (the field itself and what it pulls). */
+export const MAGNET =
+  'Strong magnet (Hall measurement): keep people with pacemakers or other implants out of the ' +
+  'marked field zone, keep loose steel tools, gas cylinders and chairs away from the magnet, and ' +
+  'leave cards, watches and phones outside; switch an electromagnet down slowly.';
 const SHARP =
   'Wafer edges and shards are sharp and brittle: handle by the edge with wafer tweezers and keep ' +
   'broken pieces in a labelled container.';
@@ -27,7 +32,8 @@ const metals: readonly string[] = METAL_FILMS;
 
 /**
  * The safety cautions that fit a task on a wafer of `material`, chosen from the task's wording
- * (heating, cryogenic work, current) and the material (arsenic compounds, thin metal films).
+ * (heating, cryogenic work, current, a Hall measurement's magnet) and the material (arsenic
+ * compounds, thin metal films).
  * Always ends with the reminder that the lab's own rules come first.
  */
 export function safetyCautionsFor(material: string, task: string): string[] {
@@ -52,6 +58,7 @@ export function safetyCautionsFor(material: string, task: string): string[] {
   if (metals.includes(material) || /film|current/.test(text)) {
     cautions.push(PROBE_HEATING);
   }
+  if (/\bhall\b|magnet|\bb[- ]?field|tesla/.test(text)) cautions.push(MAGNET);
   cautions.push(SHARP);
   cautions.push(DEFER_TO_LAB_RULES);
   return cautions;

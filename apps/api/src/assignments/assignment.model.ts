@@ -20,6 +20,8 @@ export class Assignment extends Model<
   declare dueDate: string;
   declare state: CreationOptional<AssignmentState>;
   declare notes: string | null;
+  /** The probe station to measure on; its token may post the sweep. */
+  declare stationId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -35,6 +37,7 @@ export function initAssignmentModel(sequelize: Sequelize): void {
       dueDate: { type: DataTypes.DATEONLY, allowNull: false },
       state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'assigned' },
       notes: DataTypes.TEXT,
+      stationId: DataTypes.INTEGER,
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -9,6 +9,7 @@ import {
   requiredText,
 } from '../middleware/fields';
 import { idParam } from '../middleware/validate';
+import { plannerSchema } from '../planner/planner.schemas';
 
 export const state = z.enum(ASSIGNMENT_STATES, {
   errorMap: () => ({ message: `must be one of ${ASSIGNMENT_STATES.join(', ')}` }),
@@ -26,10 +27,17 @@ export const fields = {
   task: requiredText(500),
   dueDate: isoDate,
   notes: optionalText(LIMITS.notes),
+  /** The probe station to measure on (optional); its station token may post the sweep. */
+  stationId: id.nullable(),
 };
 
 export const createBody = z
-  .object({ ...fields, notes: fields.notes.transform((v) => v ?? null) })
+  .object({
+    ...fields,
+    notes: fields.notes.transform((v) => v ?? null),
+    stationId: fields.stationId.optional().default(null),
+    plan: plannerSchema.optional(),
+  })
   .strict();
 
 export const updateBody = z
@@ -39,6 +47,8 @@ export const updateBody = z
     dueDate: fields.dueDate.optional(),
     notes: fields.notes,
     assigneeId: fields.assigneeId.optional(),
+    stationId: fields.stationId.optional(),
+    plan: plannerSchema.nullable().optional(),
   })
   .strict();
 
@@ -51,6 +61,8 @@ export const listQuery = listQuerySchema(ASSIGNMENT_SORT_FIELDS, {
   state: state.optional(),
   waferId: idParam.optional(),
   overdue: booleanParam,
+  /** true: only assigned or in progress; false: only done or cancelled. */
+  open: booleanParam,
 });
 
 export const overdueQuery = listQuerySchema(ASSIGNMENT_SORT_FIELDS, {

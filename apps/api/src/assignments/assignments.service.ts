@@ -1,5 +1,6 @@
 import {
   type AssignmentDto,
+  type AssignmentStationUpload,
   type AssignmentState,
   type Page,
   type SessionUser,
@@ -13,10 +14,15 @@ import { assignmentMail } from '../mail/templates/assignment.mail';
 import type { Mailer } from '../mail/mailer.service';
 import { orderFrom, todayIso } from '../db/query';
 import { User } from '../users/user.model';
+import { stationUploadsByAssignment } from '../station-posts/station-uploads';
+import { Station } from '../stations/station.model';
 import { Wafer } from '../wafers/wafer.model';
 import { Assignment } from './assignment.model';
 import { safetyCautionsFor } from './assignment-safety';
 import { inTransaction } from '../db/connection';
+import type { AssignmentPlan } from './assignment-plan.model';
+import { plansOf, setAssignmentPlan, toPlanDto } from './assignment-plan.service';
+import type { PlannerInput } from '../planner/planner.schemas';
 
 /** States in which an assignment is still open (and can become overdue). */
 export const OPEN_STATES: AssignmentState[] = ['assigned', 'in progress'];
@@ -27,6 +33,8 @@ interface Related {
   wafers: Map<number, Wafer>;
   lots: Map<number, Lot>;
   users: Map<number, User>;
+  stationUploads: Map<number, AssignmentStationUpload>;
+  plans: Map<number, AssignmentPlan>;
 }
 
 async function related(rows: Assignment[], transaction?: Transaction): Promise<Related> {
@@ -42,10 +50,16 @@ async function related(rows: Assignment[], transaction?: Transaction): Promise<R
   const users = userIds.length
     ? await User.findAll({ where: { id: { [Op.in]: userIds } }, transaction })
     : [];
+  const stationed = rows.filter((a) => a.stationId != null).map((a) => a.id);
   return {
     wafers: new Map(wafers.map((w) => [w.id, w])),
     lots: new Map(lots.map((l) => [l.id, l])),
     users: new Map(users.map((u) => [u.id, u])),
+    stationUploads: await stationUploadsByAssignment(stationed, transaction),
+    plans: await plansOf(
+      rows.map((a) => a.id),
+      transaction,
+    ),
   };
 }
 
@@ -67,6 +81,9 @@ export function toAssignmentDto(a: Assignment, r?: Related): AssignmentDto {
     notes: a.notes,
     overdue: OPEN_STATES.includes(a.state) && a.dueDate < todayIso(),
     ...(lot ? { safetyCautions: safetyCautionsFor(lot.material, a.task) } : {}),
+    stationId: a.stationId ?? null,
+    ...(r ? { stationUpload: r.stationUploads.get(a.id) ?? null } : {}),
+    ...(r ? { plan: r.plans.has(a.id) ? toPlanDto(r.plans.get(a.id)!) : null } : {}),
     createdAt: a.createdAt.toISOString(),
     updatedAt: a.updatedAt.toISOString(),
   };
@@ -87,7 +104,13 @@ async function activeAssignee(id: number, transaction: Transaction): Promise<Use
 
 async function queueMail(
   a: Assignment,
-  context: { wafer: Wafer; lot: Lot; assignee: User; assignerName: string },
+  context: {
+    wafer: Wafer;
+    lot: Lot;
+    assignee: User;
+    assignerName: string;
+    plan: AssignmentPlan | null;
+  },
   mail: { mailer: Mailer; publicUrl: string },
   transaction: Transaction,
 ): Promise<void> {
@@ -105,6 +128,7 @@ async function queueMail(
       material: context.lot.material,
       link: `${mail.publicUrl}/wafers/${context.wafer.id}`,
       cautions: safetyCautionsFor(context.lot.material, a.task),
+      plan: context.plan?.plan ?? null,
     }),
     transaction,
   );
@@ -116,6 +140,19 @@ export interface NewAssignment {
   task: string;
   dueDate: string;
   notes: string | null;
+  stationId: number | null;
+  /** A planner request for the assignment's wafer: the plan computed from it is attached. */
+  plan?: PlannerInput;
+}
+
+/** 400 unless `stationId` is null or a station that exists (not deleted). */
+async function knownStation(stationId: number | null | undefined, t: Transaction): Promise<void> {
+  if (stationId == null) return;
+  if (!(await Station.findByPk(stationId, { transaction: t }))) {
+    throw validationFailed('The station does not exist', [
+      { field: 'body.stationId', problem: 'is not a probe station' },
+    ]);
+  }
 }
 
 /**
@@ -124,7 +161,7 @@ export interface NewAssignment {
  */
 export async function createAssignment(
   input: NewAssignment,
-  actor: Actor & { name: string },
+  actor: Actor & SessionUser,
   mail: { mailer: Mailer; publicUrl: string },
 ): Promise<AssignmentDto> {
   return inTransaction(async (t) => {
@@ -132,9 +169,12 @@ export async function createAssignment(
     const lot = wafer ? await Lot.findByPk(wafer.lotId, { transaction: t }) : null;
     if (!wafer || !lot) throw notFound(`Wafer ${input.waferId}`);
     const assignee = await activeAssignee(input.assigneeId, t);
-    const a = await Assignment.create({ ...input, assignedById: actor.id }, { transaction: t });
+    await knownStation(input.stationId, t);
+    const { plan: planRequest, ...fields } = input;
+    const a = await Assignment.create({ ...fields, assignedById: actor.id }, { transaction: t });
     await auditChange(t, actor, 'create', 'assignment', a.id, { after: snapshot(a) });
-    await queueMail(a, { wafer, lot, assignee, assignerName: actor.name }, mail, t);
+    const plan = planRequest ? await setAssignmentPlan(t, a, planRequest, actor) : null;
+    await queueMail(a, { wafer, lot, assignee, assignerName: actor.name, plan }, mail, t);
     return toAssignmentDto(a, await related([a], t));
   });
 }
@@ -147,6 +187,7 @@ export interface AssignmentListOptions {
   state?: AssignmentState;
   waferId?: number;
   overdue?: boolean;
+  open?: boolean;
 }
 
 /** A page of assignments; technicians may only list their own (403 for anyone else's). */
@@ -165,6 +206,9 @@ export async function listAssignments(
   if (assigneeId !== undefined) where.push({ assigneeId });
   if (options.state) where.push({ state: options.state });
   if (options.waferId) where.push({ waferId: options.waferId });
+  if (options.open !== undefined) {
+    where.push({ state: { [options.open ? Op.in : Op.notIn]: OPEN_STATES } });
+  }
   if (options.overdue === true) {
     where.push({ state: { [Op.in]: OPEN_STATES }, dueDate: { [Op.lt]: todayIso() } });
   } else if (options.overdue === false) {
@@ -202,6 +246,9 @@ export interface AssignmentChanges {
   dueDate?: string;
   notes?: string | null;
   assigneeId?: number;
+  stationId?: number | null;
+  /** A new plan for the assignment's wafer, or null to detach the plan. */
+  plan?: PlannerInput | null;
 }
 
 /**
@@ -237,18 +284,29 @@ export async function updateAssignment(
         }
       }
     }
+    await knownStation(changes.stationId, t);
     const before = snapshot(a);
     const newAssignee =
       changes.assigneeId !== undefined && changes.assigneeId !== a.assigneeId
         ? await activeAssignee(changes.assigneeId, t)
         : null;
-    await a.update(changes, { transaction: t });
+    const { plan: planRequest, ...fields } = changes;
+    await a.update(fields, { transaction: t });
     await auditChange(t, actor, 'update', 'assignment', id, { before, after: snapshot(a) });
+    if (planRequest !== undefined) {
+      await setAssignmentPlan(t, a, planRequest, { ...user, requestId: actor.requestId ?? null });
+    }
     const r = await related([a], t);
     const wafer = r.wafers.get(a.waferId);
     const lot = wafer ? r.lots.get(wafer.lotId) : undefined;
     if (newAssignee && wafer && lot) {
-      await queueMail(a, { wafer, lot, assignee: newAssignee, assignerName: user.name }, mail, t);
+      const plan = r.plans.get(a.id) ?? null;
+      await queueMail(
+        a,
+        { wafer, lot, assignee: newAssignee, assignerName: user.name, plan },
+        mail,
+        t,
+      );
     }
     return toAssignmentDto(a, r);
   });

@@ -129,6 +129,10 @@ describe('/api/assignments', () => {
     expect(safetyCautionsFor('Si', 'Sweep down to 77 K in the LN2 dewar').join(' ')).toMatch(
       /Cryogens/,
     );
+    // A Hall sweep brings the magnet's cautions (common practice, no source).
+    const hall = safetyCautionsFor('Si', 'Hall sweep from 20 K to 400 K at 0.5 T').join(' ');
+    expect(hall).toMatch(/Strong magnet.*pacemakers.*loose steel.*cards/);
+    expect(anneal.join(' ')).not.toMatch(/Strong magnet/);
   });
 
   it.each([

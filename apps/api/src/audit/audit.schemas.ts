@@ -11,3 +11,6 @@ export const listQuery = z
     action: z.string().max(24, 'must be at most 24 characters').optional(),
   })
   .strict();
+
+/** `GET /api/{lots,wafers,stations}/:id/history`: a page of one record's trail. */
+export const historyQuery = z.object(paginationSchema(MAX_PAGE_SIZE, DEFAULT_PAGE_SIZE)).strict();

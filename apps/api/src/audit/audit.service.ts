@@ -1,6 +1,6 @@
 import type { AuditEventDto, Page } from '@rhotrace/api-types';
-import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize';
-import { User } from '../users/user.model';
+import { auditEventDtos } from './audit-events';
+import { QueryTypes, type Transaction, type WhereOptions } from 'sequelize';
 import { AuditEvent } from './audit-event.model';
 
 export interface AuditEntry {
@@ -114,7 +114,7 @@ export interface AuditListOptions {
   action?: string;
 }
 
-/** A page of the trail, newest first, with each actor's e-mail. */
+/** A page of the trail, newest first, with each actor's e-mail and the changes in words. */
 export async function listAudit(options: AuditListOptions): Promise<Page<AuditEventDto>> {
   const where: WhereOptions<AuditEvent> = {
     ...(options.entity ? { entity: options.entity } : {}),
@@ -128,26 +128,8 @@ export async function listAudit(options: AuditListOptions): Promise<Page<AuditEv
     limit: options.pageSize,
     offset: (options.page - 1) * options.pageSize,
   });
-  const actorIds = [
-    ...new Set(rows.map((r) => r.actorId).filter((id): id is number => id !== null)),
-  ];
-  const actors = actorIds.length
-    ? await User.findAll({ attributes: ['id', 'email'], where: { id: { [Op.in]: actorIds } } })
-    : [];
-  const emails = new Map(actors.map((u) => [u.id, u.email]));
   return {
-    items: rows.map((r) => ({
-      id: Number(r.id),
-      actorId: r.actorId,
-      actorEmail: r.actorId === null ? null : (emails.get(r.actorId) ?? null),
-      action: r.action,
-      entity: r.entity,
-      entityId: r.entityId,
-      before: r.before,
-      after: r.after,
-      requestId: r.requestId,
-      createdAt: r.createdAt.toISOString(),
-    })),
+    items: await auditEventDtos(rows),
     total: count,
     page: options.page,
     pageSize: options.pageSize,

@@ -22,6 +22,12 @@ import { inTransaction } from '../db/connection';
 
 /** The one message for every failed sign-in, so it never tells which part was wrong. */
 export const SIGN_IN_FAILED = 'The e-mail address or password is not correct';
+/**
+ * Told only after a correct password, so it reveals nothing a guesser does not already hold:
+ * the person learns why they cannot sign in instead of doubting their password.
+ */
+export const ACCOUNT_DEACTIVATED =
+  'This account is deactivated. Ask your lab\u2019s administrator to reactivate it.';
 
 /** How long a password reset link works. */
 export const RESET_VALID_MINUTES = 60;
@@ -56,7 +62,7 @@ export async function login(
     throw unauthenticated(SIGN_IN_FAILED);
   }
   await clearFailures(keys.account);
-  if (!user.active) throw unauthenticated(SIGN_IN_FAILED);
+  if (!user.active) throw unauthenticated(ACCOUNT_DEACTIVATED);
   const { token, expiresAt } = signToken(user, config.jwtSecret, config.tokenTtlS);
   return { token, expiresAt, user: session(user) };
 }

@@ -4,7 +4,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { PasswordReset, SignInThrottle } from '../users/user.model';
 import { createTestContext, TEST_PASSWORD, type TestContext } from '../testing/test-context';
-import { SIGN_IN_FAILED } from './auth.service';
+import { ACCOUNT_DEACTIVATED, SIGN_IN_FAILED } from './auth.service';
 
 async function waitFor<T>(probe: () => T | undefined, timeoutMs = 5_000): Promise<T> {
   const start = Date.now();
@@ -186,9 +186,13 @@ describe('/api/auth', () => {
     expect(off.status).toBe(200);
     expect(off.body.active).toBe(false);
     expect((await request(ctx.app).get('/api/auth/me').set(header)).status).toBe(401);
+    // A correct password is told the account is deactivated; a wrong one learns nothing new.
     const again = await login(user.email, TEST_PASSWORD);
     expect(again.status).toBe(401);
-    expect(again.body.error.message).toBe(SIGN_IN_FAILED);
+    expect(again.body.error.message).toBe(ACCOUNT_DEACTIVATED);
+    const guess = await login(user.email, 'not-the-password-1');
+    expect(guess.status).toBe(401);
+    expect(guess.body.error.message).toBe(SIGN_IN_FAILED);
   });
 
   describe('password reset', () => {

@@ -4,6 +4,8 @@ import type { AnalysisPoint } from '../analysis/sweep-data.service';
 import type { FitComputation } from './fit-computation';
 import { arrheniusKind } from './kinds/arrhenius.kind';
 import { blochGruneisenKind } from './kinds/bloch-gruneisen.kind';
+import { carrierDensityKind } from './kinds/carrier-density.kind';
+import { hallMobilityKind } from './kinds/hall-mobility.kind';
 import { modelKind } from './kinds/model.kind';
 import { tcrKind } from './kinds/tcr.kind';
 
@@ -47,6 +49,8 @@ export const FIT_KIND_TABLE: { [K in FitKind]: FitKindEntry<K> } = {
   model: modelKind,
   tcr: tcrKind,
   'bloch-gruneisen': blochGruneisenKind,
+  'carrier-density': carrierDensityKind,
+  'hall-mobility': hallMobilityKind,
 };
 
 /** Runs the kind's entry for a request of that kind. */

@@ -41,7 +41,7 @@ export function boundsInOrder<T extends { minK?: number; maxK?: number }>(
 export const fitKindSchema = z
   .object({
     kind: z.enum(FIT_KINDS, {
-      errorMap: () => ({ message: 'must be one of arrhenius, model, tcr, bloch-gruneisen' }),
+      errorMap: () => ({ message: `must be one of ${FIT_KINDS.join(', ')}` }),
     }),
   })
   .passthrough();

@@ -22,9 +22,20 @@ export function fitsController(deps: AppDeps) {
     async create(req: Request, res: Response): Promise<void> {
       const sweepId = parseId(req.params);
       const body = parseFitRequest(req.body);
-      res
-        .status(201)
-        .json(await createFit(deps.sequelize, currentUser(req), sweepId, body, actorOf(req)));
+      // A connection closed before the answer is written is a cancelled request: store nothing.
+      const cancel = new AbortController();
+      res.on('close', () => {
+        if (!res.writableFinished) cancel.abort();
+      });
+      const fit = await createFit(
+        deps.sequelize,
+        currentUser(req),
+        sweepId,
+        body,
+        actorOf(req),
+        cancel.signal,
+      );
+      res.status(201).json(fit);
     },
     /** `POST /api/sweeps/:id/fits/preview` → 200 with the fit as it would be saved (not stored). */
     async preview(req: Request, res: Response): Promise<void> {

@@ -5,7 +5,7 @@ import { assertMayDeleteFit } from '../access/policy';
 import { visibleSweep } from '../access/visibility.service';
 import type { Actor } from '../audit/audit.service';
 import { auditChange, recordAudit } from '../audit/audit.service';
-import { asNotFound, badRequest, notFound } from '../errors';
+import { asNotFound, badRequest, conflict, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
 import { chooseLeg, describeLegs } from '../analysis/legs';
 import {
@@ -139,9 +139,11 @@ export async function previewFit(
   if (excludedSequences.length) {
     computed.warnings.push(
       `${excludedSequences.length} flagged reading(s) in the window were left out ` +
-        '(includeFlagged: true keeps them).',
+        '(ask for flagged readings to be fitted too to keep them).',
     );
   }
+  const clipped = clippedWarning(request, window);
+  if (clipped) computed.warnings.push(clipped);
   return {
     sweepId,
     kind: request.kind,
@@ -163,15 +165,23 @@ export async function previewFit(
   };
 }
 
-/** Runs the requested fit as `previewFit` does and stores it with an audit event. */
+/**
+ * Runs the requested fit as `previewFit` does and stores it with an audit event, unless
+ * `cancelled` fires first: a person who cancelled a long fit must not find it saved. The fit
+ * itself runs without yielding, so the check comes after it, once pending events (the client's
+ * closed connection among them) have been seen, and again before the transaction commits.
+ */
 export async function createFit(
   sequelize: Sequelize,
   user: SessionUser,
   sweepId: number,
   request: FitRequest,
   actor: Actor,
+  cancelled?: AbortSignal,
 ): Promise<FitDto> {
   const preview = await previewFit(user, sweepId, request);
+  await new Promise((resolve) => setImmediate(resolve));
+  refuseIfCancelled(cancelled);
   return sequelize.transaction(async (transaction) => {
     const fit = await Fit.create({ ...preview, createdById: user.id }, { transaction });
     await recordAudit(
@@ -191,10 +201,32 @@ export async function createFit(
       },
       transaction,
     );
+    // Thrown inside the transaction, so it rolls the fit and its audit event back.
+    refuseIfCancelled(cancelled);
     // Made from the values just stored, not read back through the JSON columns (parsing a few
     // thousand residuals again cost more than the fit itself).
     return fitDtoOf(fit, { id: user.id, name: user.name });
   });
+}
+
+function refuseIfCancelled(cancelled: AbortSignal | undefined): void {
+  if (cancelled?.aborted)
+    throw conflict('The fit was cancelled before it was stored; nothing was saved.');
+}
+
+/** The caution for a window reaching past the readings, which is fitted as far as they go. */
+function clippedWarning(
+  request: FitRequest,
+  window: { minK: number | null; maxK: number | null },
+): string | null {
+  const low = request.minK !== undefined && window.minK !== null && window.minK > request.minK;
+  const high = request.maxK !== undefined && window.maxK !== null && window.maxK < request.maxK;
+  if (!low && !high) return null;
+  const asked = `${request.minK ?? 'start'}–${request.maxK ?? 'end'} K`;
+  return (
+    `The window asked for (${asked}) reaches past the readings; it was fitted and is stored ` +
+    `as ${window.minK?.toFixed(2)}–${window.maxK?.toFixed(2)} K, the readings inside it.`
+  );
 }
 
 /** Saved fits of a sweep, oldest first (no visibility check: callers check the sweep). */

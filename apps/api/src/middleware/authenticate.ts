@@ -1,8 +1,8 @@
 import type { RequestHandler } from 'express';
-import type { Role, SessionUser } from '@rhotrace/api-types';
+import { STATION_TOKEN_PREFIX, type Role, type SessionUser } from '@rhotrace/api-types';
 import { QueryTypes } from 'sequelize';
 import { verifyToken } from '../auth/token.service';
-import { unauthenticated } from '../errors';
+import { forbidden, unauthenticated } from '../errors';
 import { database } from '../db/connection';
 
 declare module 'express-serve-static-core' {
@@ -32,6 +32,10 @@ async function sessionRow(userId: number): Promise<SessionRow | undefined> {
   return rows[0];
 }
 
+/** What every route but the station post answers a station token. */
+export const STATION_TOKEN_ONLY =
+  'A station token may only post sweeps (POST /api/station/sweeps); sign in as a person for this';
+
 /**
  * Requires a valid bearer token of an active account whose token version still matches
  * (deactivation and password changes raise the version, so older tokens stop working).
@@ -41,6 +45,8 @@ export function authenticate(secret: string): RequestHandler {
     const header = req.headers.authorization ?? '';
     const match = /^Bearer ([A-Za-z0-9._-]+)$/.exec(header);
     if (!match) throw unauthenticated();
+    // a station token is for station posts only, whatever it is presented to
+    if (match[1]!.startsWith(STATION_TOKEN_PREFIX)) throw forbidden(STATION_TOKEN_ONLY);
     // verifyToken checks signature, algorithm, issuer and a required expiry in one place
     const claims = verifyToken(match[1]!, secret);
     if (!claims) throw unauthenticated('Your session is not valid or has expired; sign in again');

@@ -28,18 +28,16 @@ describe('the printed 23 °C lines', () => {
   it('print the value ± U with k, the method, the verdict and each budget line', () => {
     const [value, ...budget] = specLines(spec);
     expect(value).toBe(
-      'Spec 8 to 15 ohm cm; at 23 °C 14.95 ± 0.12 (k = 2) ohm cm, corrected from a step ' +
+      'Spec 8 to 15 Ω·cm; at 23 °C 14.95 ± 0.12 (k = 2) Ω·cm, corrected from a step ' +
         '4.90 K away; too close to call (A spec limit lies within value ± U: the measurement ' +
         'cannot decide.)',
     );
-    expect(budget).toEqual([
-      '   temperature-sensor: 0.060 ohm cm (0.401 %, rectangular) – ±0.42 K',
-    ]);
+    expect(budget).toEqual(['   temperature sensor: 0.060 Ω·cm (0.401 %, rectangular) – ±0.42 K']);
   });
 
   it('print why there is no value', () => {
     expect(
       specLines({ ...spec, resistivityAt23COhmCm: null, reason: 'The sweep does not reach 23 °C' }),
-    ).toEqual(['Spec 8 to 15 ohm cm; no value at 23 °C: The sweep does not reach 23 °C']);
+    ).toEqual(['Spec 8 to 15 Ω·cm; no value at 23 °C: The sweep does not reach 23 °C']);
   });
 });

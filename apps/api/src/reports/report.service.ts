@@ -1,4 +1,12 @@
-import type { AnalysisStep, FitDto, SessionUser, SpecCheckDto } from '@rhotrace/api-types';
+import type {
+  AnalysisStep,
+  FitDto,
+  HallAnalysis,
+  SessionUser,
+  SpecCheckDto,
+} from '@rhotrace/api-types';
+import { MAGNET } from '../assignments/assignment-safety';
+import { hallAnalysis, hallFactorOf } from '../analysis/hall-analysis';
 import { Station } from '../stations/station.model';
 import { visibleSweep } from '../access/visibility.service';
 import { averageSteps, sweepReadings } from '../analysis/sweep-data.service';
@@ -37,6 +45,8 @@ export interface ReportData {
   /** The 23 °C value with its method, uncertainty budget and guard-banded verdict. */
   spec: SpecCheckDto;
   fits: FitDto[];
+  /** Hall sweeps only: n(T), mu_H(T) and what goes with them. */
+  hall: HallAnalysis | null;
   cautions: string[];
   disclaimer: string;
 }
@@ -44,7 +54,10 @@ export interface ReportData {
 /** Gathers a sweep's report data (visibility as for every sweep read). */
 export async function reportData(user: SessionUser, sweepId: number): Promise<ReportData> {
   const v = await visibleSweep(user, sweepId);
-  const steps = averageSteps((await sweepReadings(v.sweep)).points);
+  const { points } = await sweepReadings(v.sweep);
+  const steps = averageSteps(points);
+  const factor = hallFactorOf(v.sweep.parseReport);
+  const hall = factor === null ? null : hallAnalysis(points, factor);
   const station = v.sweep.stationId ? await Station.findByPk(v.sweep.stationId) : null;
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   const spec = specCheck(
@@ -79,7 +92,9 @@ export async function reportData(user: SessionUser, sweepId: number): Promise<Re
     inSpec: spec.inSpec,
     spec,
     fits: await listFitsOfSweep(sweepId),
-    cautions: REPORT_CAUTIONS,
+    hall,
+    // A Hall sweep was measured in a strong field: its magnet's cautions come first.
+    cautions: hall ? [MAGNET, ...REPORT_CAUTIONS] : REPORT_CAUTIONS,
     disclaimer: REPORT_DISCLAIMER,
   };
 }

@@ -29,9 +29,37 @@ const FIXED = [
   'flags',
 ];
 
-/** The points as CSV: stored values first, then the file's own columns as read. */
+/** Quantity keys in the order a Hall export lists them; other keys follow in first-seen order. */
+const QUANTITY_ORDER = [
+  'hallCoefficientCm3PerC',
+  'carrierDensityCm3',
+  'sheetCarrierDensityCm2',
+  'hallMobilityCm2PerVs',
+  'carrierType',
+  'magneticFieldT',
+  'hallVoltageV',
+];
+
+/** The quantity keys the points carry (none for most sweeps), in export order. */
+function quantityKeys(points: SweepPointDto[]): string[] {
+  const seen = new Set<string>();
+  for (const p of points) for (const k of Object.keys(p.quantities ?? {})) seen.add(k);
+  const known = QUANTITY_ORDER.filter((k) => seen.has(k));
+  return [...known, ...[...seen].filter((k) => !QUANTITY_ORDER.includes(k))];
+}
+
+/** camelCase with units to the export's snake_case: `carrierDensityCm3` → `carrier_density_cm3`. */
+const snake = (key: string) => key.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
+
+/**
+ * The points as CSV: stored values first, then the quantities beyond resistivity (Hall sweeps),
+ * then the file's own columns as read.
+ */
 export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): string {
-  const header = [...FIXED, ...columns.map((c) => `raw ${c.header}`)].map(csvCell).join(',');
+  const keys = quantityKeys(points);
+  const header = [...FIXED, ...keys.map(snake), ...columns.map((c) => `raw ${c.header}`)]
+    .map(csvCell)
+    .join(',');
   const lines = [header];
   for (const p of points) {
     const raw = columns.map((c) => p.raw.map((r) => r.values[c.header] ?? '').join(' | '));
@@ -46,6 +74,7 @@ export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): stri
         p.sheetResistanceOhmSq,
         p.resistivityOhmCm,
         p.flags.join(' '),
+        ...keys.map((k) => p.quantities?.[k] ?? null),
         ...raw,
       ]
         .map((v) => csvCell(v))

@@ -10,6 +10,7 @@
 import { createHash } from 'node:crypto';
 import {
   MAX_FINDINGS,
+  type HallFactorName,
   type SessionUser,
   type SweepColumnOverride,
   type SweepCreatedResponse,
@@ -25,9 +26,11 @@ import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter } from './import/convert-rows';
+import type { ConvertedPoint } from './import/import-types';
 import { detectColumns, publicColumns } from './import/detect-columns';
 import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
+import { HallSummary, hallSettings } from './import/hall-summary';
 import { openTable, slices, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
 import { RawCopy } from './import/store/raw-copy';
@@ -51,10 +54,22 @@ export interface ImportSweepInput {
   stationId?: number | null;
   columns?: SweepColumnOverride[];
   geometry?: SweepGeometryInput;
+  /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
+  hallFactor?: number | HallFactorName;
 }
 
 /** The signed-in user, with the request id the audit event records. */
 export type SweepActor = SessionUser & { requestId?: string | null };
+
+/**
+ * Work a caller adds to the upload's own transaction (a station post records its key and
+ * closes its assignment there), so it commits or rolls back with the sweep: `begin` runs
+ * first, `commit` once the sweep is stored. Both run again if the upload is retried.
+ */
+export interface ImportHooks {
+  begin?: (transaction: Transaction) => Promise<void>;
+  commit?: (result: SweepCreatedResponse, transaction: Transaction) => Promise<void>;
+}
 
 /** RTD ohms need R0 unless the station reads its ohms through its own table. */
 function needsRtd(columns: ResolvedColumn[], station: Station | null): boolean {
@@ -78,12 +93,12 @@ export function stationSensor(station: Station | null): StationSensor | null {
 export async function importSweep(
   input: ImportSweepInput,
   actor: SweepActor,
-  options: { storage?: RawStorage; onRetry?: (error: unknown) => void } = {},
+  options: { storage?: RawStorage; onRetry?: (error: unknown) => void; hooks?: ImportHooks } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
   return retryTransientOnce(
     'upload',
-    () => importOnce(input, actor, storage).catch(lostSweepRow),
+    () => importOnce(input, actor, storage, options.hooks ?? {}).catch(lostSweepRow),
     options.onRetry,
   );
 }
@@ -105,6 +120,7 @@ async function importOnce(
   input: ImportSweepInput,
   actor: SweepActor,
   storage: RawStorage,
+  hooks: ImportHooks,
 ): Promise<SweepCreatedResponse> {
   const file = openTable(input.file, IMPORT_SLICE_ROWS);
   const columns = detectColumns(file.parsed, input.columns ?? [], input.method);
@@ -113,6 +129,7 @@ async function importOnce(
   const raw = new RawCopy(storage);
   try {
     return await Sweep.sequelize!.transaction(async (transaction) => {
+      await hooks.begin?.(transaction);
       const { wafer, lot } = await mayUploadTo(actor, input.waferId, transaction);
       // Serialises uploads to one wafer, so two copies of a file cannot both pass the check.
       await Wafer.findByPk(wafer.id, { transaction, lock: Transaction.LOCK.UPDATE });
@@ -124,10 +141,12 @@ async function importOnce(
       }
       const rawKey = raw.put(input.file, transaction);
       try {
-        return await storeSweep(
+        const result = await storeSweep(
           { input, actor, file, columns, sha256, storage, rawKey, wafer, lot },
           transaction,
         );
+        await hooks.commit?.(result, transaction);
+        return result;
       } catch (error) {
         await raw.settle();
         throw error;
@@ -178,6 +197,7 @@ async function storeSweep(
     file: parsed.recognised,
     needsRtd: needsRtd(columns, station),
   });
+  const settings = hallSettings(input.method, input.hallFactor);
   const temperature = temperatureReader({
     column: columns.find((c) => c.meaning === 'temperature')!,
     referenceColumn: columns.some((c) => c.meaning === 'reference-junction'),
@@ -185,8 +205,18 @@ async function storeSweep(
     file: parsed.recognised,
     geometry,
   });
-  const converter = new RowConverter(parsed, columns, input.method, geometry, temperature);
+  const converter = new RowConverter(
+    parsed,
+    columns,
+    input.method,
+    geometry,
+    settings,
+    temperature,
+  );
   const finder = new SuspiciousPointFinder();
+  const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
+  const hall = input.method === 'hall' ? new HallSummary(settings, reversals) : null;
+  const watch = (points: ConvertedPoint[]) => finder.addAll(hall ? hall.addAll(points) : points);
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
   const store = new SweepStore(
     {
@@ -209,9 +239,9 @@ async function storeSweep(
   try {
     // no slice is read once the converter holds as many problems as an answer lists
     for (const slice of slices(file, IMPORT_SLICE_ROWS, () => converter.open)) {
-      await store.write(finder.addAll(converter.next(slice)));
+      await store.write(watch(converter.next(slice)));
     }
-    await store.write(finder.addAll(converter.finish()));
+    await store.write(watch(converter.finish()));
     if (converter.problems.length) {
       throw unprocessable(
         'Some rows hold values that cannot be stored; nothing was stored',
@@ -223,7 +253,7 @@ async function storeSweep(
     throw error;
   }
   const flags = finder.finish();
-  warnings.push(...converter.warnings, ...flags.warnings);
+  warnings.push(...converter.warnings, ...flags.warnings, ...(hall?.warnings ?? []));
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,
@@ -233,6 +263,7 @@ async function storeSweep(
     flaggedPoints: flags.flagged,
     findings: flags.findings.slice(0, MAX_FINDINGS),
     temperature: temperature.conversion,
+    ...(hall ? { hall: hall.report } : {}),
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
     actorId: actor.id,

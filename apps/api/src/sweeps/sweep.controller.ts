@@ -50,7 +50,8 @@ export function storedFileName(multerName: string): string {
   return kept || 'sweep.csv';
 }
 
-function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
+/** The `columns` field of an upload: JSON text of `{ index, meaning, unit }` entries. */
+export function parseColumns(text: string | undefined): SweepColumnOverride[] | undefined {
   if (text === undefined || text.trim() === '') return undefined;
   let json: unknown;
   try {
@@ -84,7 +85,7 @@ export const sweepsController = {
     const waferId = parseId(req.params);
     const file = uploaded(req);
     const body = parseOrThrow(storeSchema, req.body, 'body');
-    const { method, stationId, columns, ...geometry } = body;
+    const { method, stationId, columns, hallFactor, ...geometry } = body;
     const result = await importSweep(
       {
         waferId,
@@ -93,6 +94,7 @@ export const sweepsController = {
         method,
         stationId: stationId ?? null,
         columns: parseColumns(columns),
+        ...(hallFactor === undefined ? {} : { hallFactor }),
         geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
       },
       actorOf(req),

@@ -28,6 +28,8 @@ export class Sweep extends Model<InferAttributes<Sweep>, InferCreationAttributes
   declare maxTemperatureK: number | null;
   declare deletedAt: CreationOptional<Date | null>;
   declare deletedById: number | null;
+  /** The station token a station post came with; null for an ordinary upload. */
+  declare stationTokenId: CreationOptional<number | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -49,6 +51,8 @@ export class SweepPoint extends Model<
   declare resistivityOhmCm: number;
   declare raw: unknown;
   declare flags: string;
+  /** Quantities beyond resistivity (`PointQuantities`), null for most sweeps. */
+  declare quantities: CreationOptional<unknown>;
   declare leg: CreationOptional<number | null>;
 }
 
@@ -78,6 +82,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       metadata: jsonColumn('metadata'),
       parseReport: jsonColumn('parseReport', false),
       pointCount: { type: DataTypes.INTEGER, allowNull: false },
+      stationTokenId: DataTypes.INTEGER,
       minTemperatureK: DataTypes.DOUBLE,
       maxTemperatureK: DataTypes.DOUBLE,
       deletedAt: DataTypes.DATE(3),
@@ -101,6 +106,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       resistivityOhmCm: { type: DataTypes.DOUBLE, allowNull: false },
       raw: jsonColumn('raw', false),
       flags: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '' },
+      quantities: jsonColumn('quantities'),
       leg: DataTypes.SMALLINT,
     },
     { sequelize, tableName: 'sweep_points', underscored: true, timestamps: false },

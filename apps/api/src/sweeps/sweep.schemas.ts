@@ -1,4 +1,4 @@
-import { COLUMN_MEANINGS, SWEEP_METHODS } from '@rhotrace/api-types';
+import { COLUMN_MEANINGS, HALL_FACTOR_NAMES, SWEEP_METHODS } from '@rhotrace/api-types';
 import { z } from 'zod';
 
 /** A length in cm, as a form field. */
@@ -8,6 +8,28 @@ const length = z.coerce
   .positive('must be above 0 cm')
   .max(100, 'must be at most 100 cm')
   .optional();
+
+/** A Hall factor r_H, as a form field: a number or one of the named scattering factors. */
+const hallFactor = z.preprocess(
+  (v) => (v === '' ? undefined : v),
+  z
+    .union(
+      [
+        z.enum(HALL_FACTOR_NAMES),
+        z.coerce
+          .number()
+          .finite()
+          .min(0.5, 'must be between 0.5 and 3')
+          .max(3, 'must be between 0.5 and 3'),
+      ],
+      {
+        errorMap: () => ({
+          message: `must be a number between 0.5 and 3 or one of ${HALL_FACTOR_NAMES.join(', ')}`,
+        }),
+      },
+    )
+    .optional(),
+);
 
 /** The column mapping an upload may send as JSON in its `columns` field. */
 export const columnsSchema = z.array(
@@ -46,5 +68,6 @@ export const storeSchema = z
     spacingCm: length,
     barLengthCm: length,
     barWidthCm: length,
+    hallFactor,
   })
   .strict();

@@ -6,6 +6,8 @@ import { promisify } from 'node:util';
 import { gzip as gzipCallback } from 'node:zlib';
 import type {
   PointFlag,
+  StationUploadDto,
+  PointQuantities,
   SweepColumn,
   SweepDto,
   SweepGeometry,
@@ -22,6 +24,7 @@ import { rawStorageFor } from '../storage/storage';
 import type { StorageKind } from '../storage/raw-storage';
 import { User } from '../users/user.model';
 import type { SweepActor } from './sweep-import.service';
+import { stationUploadsOf } from '../station-tokens/station-tokens.service';
 import { SweepCache } from './sweep-cache';
 import { Sweep, SweepPoint } from './sweep.model';
 
@@ -31,7 +34,11 @@ export { importSweep, type ImportSweepInput, type SweepActor } from './sweep-imp
 export { previewSweep } from './sweep-preview.service';
 import { inTransaction } from '../db/connection';
 
-function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
+function summary(
+  sweep: Sweep,
+  uploaderName: string | null,
+  via: Map<number, StationUploadDto>,
+): SweepSummaryDto {
   return {
     id: sweep.id,
     waferId: sweep.waferId,
@@ -47,6 +54,7 @@ function summary(sweep: Sweep, uploaderName: string | null): SweepSummaryDto {
     minTemperatureK: sweep.minTemperatureK,
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
+    uploadedVia: sweep.stationTokenId ? (via.get(sweep.stationTokenId) ?? null) : null,
     flaggedPoints: flaggedPointsOf(sweep.parseReport),
   };
 }
@@ -86,7 +94,8 @@ export async function listSweeps(waferId: number, actor: SweepActor): Promise<Sw
     ],
   });
   const names = await uploaderNames(sweeps);
-  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null));
+  const via = await stationUploadsOf(sweeps.map((s) => s.stationTokenId));
+  return sweeps.map((s) => summary(s, names.get(s.uploadedById) ?? null, via));
 }
 
 interface StoredRaw {
@@ -118,7 +127,7 @@ async function sweepParts(id: number, actor: SweepActor): Promise<SweepParts> {
   const { sweep, uploaderName } = await visibleSweepWithUploader(actor, id);
   const columns = sweep.columnMapping as SweepColumn[];
   const head = {
-    ...summary(sweep, uploaderName),
+    ...summary(sweep, uploaderName, await stationUploadsOf([sweep.stationTokenId])),
     columns,
     metadata: (sweep.metadata ?? {}) as Record<string, string>,
     parseReport: sweep.parseReport as SweepParseReport,
@@ -152,9 +161,16 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
       sheetResistanceOhmSq: p.sheetResistanceOhmSq,
       resistivityOhmCm: p.resistivityOhmCm,
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
+      // Only sweeps that have quantities carry the key: most points stay as small as before.
+      ...(p.quantities ? { quantities: quantitiesOf(p.quantities) } : {}),
       leg: p.leg ?? null,
     };
   });
+}
+
+/** A stored quantities document (text from a raw read). */
+function quantitiesOf(stored: unknown): PointQuantities {
+  return (typeof stored === 'string' ? JSON.parse(stored) : stored) as PointQuantities;
 }
 
 /** The sweep with its columns, metadata, report and every point in sequence. */

@@ -190,7 +190,7 @@ describe('geometry and mapping', () => {
 
   it('answers 400 for an unknown method and a missing file', async () => {
     const wafer = await makeWafer({ thicknessCm: 0.05 });
-    const res = await upload(wafer.id, file, 'c.csv', { method: 'hall' });
+    const res = await upload(wafer.id, file, 'c.csv', { method: 'seebeck' });
     expect(res.status).toBe(400);
     expect(res.body.error.details[0].field).toBe('body.method');
     const none = await request(ctx.app)

@@ -31,8 +31,17 @@ export const updateBody = z
     role: role.optional(),
     active: z.boolean({ invalid_type_error: 'must be true or false' }).optional(),
     password: passwordField.optional(),
+    reassignTo: z
+      .number({ invalid_type_error: 'must be a user id' })
+      .int('must be a user id')
+      .positive('must be a user id')
+      .optional(),
   })
-  .strict();
+  .strict()
+  .refine((b) => b.reassignTo === undefined || b.active === false, {
+    message: 'is only taken with active: false (handing over the open tasks of a deactivation)',
+    path: ['reassignTo'],
+  });
 
 export const listQuery = listQuerySchema(USER_SORT_FIELDS, {
   q: searchParam,

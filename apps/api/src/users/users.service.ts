@@ -12,6 +12,7 @@ import { conflict, notFound } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
 import { hashPassword as hashInWorker } from '../auth/password-hasher';
 import { User } from './user.model';
+import { handOverOpenTasks } from './hand-over';
 import { inTransaction } from '../db/connection';
 
 /** bcrypt work factor for every stored password. */
@@ -79,6 +80,8 @@ export interface UserChanges {
   role?: Role;
   active?: boolean;
   password?: string;
+  /** With `active: false`: who takes over the person's open tasks (they stay put without it). */
+  reassignTo?: number;
 }
 
 /**
@@ -91,6 +94,9 @@ export async function updateUser(id: number, changes: UserChanges, actor: Actor)
     const user = await User.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
     if (!user) throw notFound(`User ${id}`);
     const before = toUserDto(user);
+    if (changes.active === false && user.active && user.id === actor.id) {
+      throw conflict('You cannot deactivate your own account; another admin can');
+    }
     // The last active account that manages accounts (the admin) must stay one.
     const losesAdmin =
       roleCan(user.role, 'users:manage') &&
@@ -115,6 +121,8 @@ export async function updateUser(id: number, changes: UserChanges, actor: Actor)
       },
       { transaction: t },
     );
+    if (changes.reassignTo !== undefined)
+      await handOverOpenTasks(t, user.id, changes.reassignTo, actor);
     await auditChange(t, actor, 'update', 'user', user.id, {
       before,
       after: { ...toUserDto(user), ...(passwordHash ? { passwordChanged: true } : {}) },

@@ -56,6 +56,10 @@ export const routes: Routes = [
           import('./features/compare/compare.routes').then((m) => m.COMPARE_ROUTES),
       },
       {
+        path: 'search',
+        loadChildren: () => import('./features/search/search.routes').then((m) => m.SEARCH_ROUTES),
+      },
+      {
         path: 'worklist',
         canMatch: [capabilityGuard('assignments:assign')],
         loadChildren: () =>

@@ -75,6 +75,27 @@ describe('fitArrhenius', () => {
     expect(r.parameters.intercept).toBeCloseTo(ref.b, 8);
   });
 
+  it('keeps 1e-9 agreement with linearRegression and the OLS standard error on 10,000 steps', () => {
+    // simple-statistics linearRegression (independent); se(b) = sqrt(s^2 / Sxx), s^2 = SSR /
+    // (n - 2) (Press et al., Numerical Recipes, 3rd ed., section 15.2). stepToleranceK 0 makes
+    // every reading a step of weight 1, so the fit is ordinary least squares.
+    const pts = sweep(0.55, range(300, 600, 10_000), 0.01, 2024);
+    const r = fitArrhenius(pts, { stepToleranceK: 0 });
+    const xy = pts.map((p) => [1 / (k * p.temperatureK), Math.log(p.value)] as [number, number]);
+    const ref = linearRegression(xy);
+    const mx = xy.reduce((sum, [x]) => sum + x, 0) / xy.length;
+    const sxx = xy.reduce((sum, [x]) => sum + (x - mx) ** 2, 0);
+    const ssr = xy.reduce((sum, [x, y]) => sum + (y - (ref.b + ref.m * x)) ** 2, 0);
+    const se = Math.sqrt(ssr / (xy.length - 2) / sxx);
+    expect(Math.abs(r.parameters.activationEnergyEv / ref.m - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(r.parameters.intercept / ref.b - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(r.standardErrors.activationEnergyEv! / se - 1)).toBeLessThan(1e-9);
+    expect(r.residuals).toHaveLength(10_000);
+    expect(Math.abs(r.residuals[17]! - (xy[17]![1] - (ref.b + ref.m * xy[17]![0])))).toBeLessThan(
+      1e-9,
+    );
+  });
+
   it('uses an inclusive window and Student t with n - 2 degrees of freedom', () => {
     const pts = sweep(0.4, range(300, 400, 11), 0.02, 3);
     const r = fitArrhenius(pts, { minK: 310, maxK: 330 });
@@ -130,6 +151,10 @@ describe('fitArrhenius invalid inputs', () => {
     );
     expect(() => fitArrhenius([...pts, { temperatureK: Number.NaN, value: 1 }])).toThrow(
       RangeError,
+    );
+    const textual: unknown = { temperatureK: '300', value: 1 };
+    expect(() => fitArrhenius([...pts, textual as (typeof pts)[number]])).toThrow(
+      /points\[5\]\.temperatureK to be a number/,
     );
     const notAList: unknown = 'x';
     expect(() => fitArrhenius(notAList as typeof pts)).toThrow(TypeError);

@@ -3,13 +3,13 @@
  */
 import { BOLTZMANN_EV_PER_K } from '../constants';
 import { PHYSICS_DEFAULTS } from '../defaults';
-import { weightedLeastSquares } from '../numeric/weighted-least-squares';
-import { requireFiniteNumber, requireObject, requireOneOf } from '../validate';
+import { invertSpd } from '../numeric/matrix';
+import { requireArray, requireFiniteNumber, requireObject, requireOneOf } from '../validate';
 import type { FitResult } from './fit-result';
 import { standardWarnings, uncertaintiesOf, weightedRSquared } from './fit-result';
-import { readPoints } from './points';
+import { pointNumber, pointRecord } from './points';
 import type { StepOptions } from './steps';
-import { dwellSteps, readStepOptions } from './steps';
+import { dwellStepColumns, readStepOptions } from './steps';
 import { effectiveVarianceLine } from './effective-variance';
 
 /** Options of `fitArrhenius`. */
@@ -99,37 +99,46 @@ export function fitArrhenius(
     );
   }
   const steps = readStepOptions(fn, o);
-  const [temps, values] = readPoints(fn, points, ['temperatureK', 'value'], 0) as [
-    Float64Array,
-    Float64Array,
-  ];
-  const t: number[] = [];
-  const y: number[] = [];
+  // One pass over the points: check each, keep the window's, take the logarithms.
+  const list = requireArray(fn, 'points', points, 0);
+  const t = new Float64Array(list.length);
+  const y = new Float64Array(list.length);
   const sign = quantity === 'resistivity' ? 1 : -1;
-  for (let i = 0; i < temps.length; i++) {
-    const tk = temps[i]!;
+  let n = 0;
+  for (let i = 0; i < list.length; i++) {
+    const p = pointRecord(fn, list, i);
+    // Named reads are fast; the checked read runs only to name a bad value.
+    const rawT = p['temperatureK'];
+    const rawValue = p['value'];
+    const tk = isPositive(rawT) ? rawT : pointNumber(fn, p, i, 'temperatureK');
+    const value = isPositive(rawValue) ? rawValue : pointNumber(fn, p, i, 'value');
     if (tk < minK || tk > maxK) continue;
-    t.push(tk);
-    y.push(Math.log(values[i]!) + sign * m * Math.log(tk));
+    t[n] = tk;
+    // m = 0 adds exactly 0: skip its logarithm.
+    y[n] = m === 0 ? Math.log(value) : Math.log(value) + sign * m * Math.log(tk);
+    n++;
   }
-  if (t.length < 3) {
+  if (n < 3) {
     throw new RangeError(
-      `\`${fn}\` requires at least 3 points in the temperature window, got ${t.length}`,
+      `\`${fn}\` requires at least 3 points in the temperature window, got ${n}`,
     );
   }
-  if (t.every((v) => v === t[0])) {
+  let distinct = false;
+  for (let i = 1; i < n && !distinct; i++) distinct = t[i] !== t[0];
+  if (!distinct) {
     throw new RangeError(
       `\`${fn}\` requires at least two distinct temperatures in the window, got only ${t[0]} K`,
     );
   }
-  const grouped = dwellSteps(t, y, steps.toleranceK);
+  const grouped = dwellStepColumns(t, y, n, steps.toleranceK);
   if (grouped.length < 3) {
     throw new RangeError(
       `\`${fn}\` requires at least 3 temperature steps in the window (readings within ` +
         `options.stepToleranceK = ${steps.toleranceK} K form one step), got ${grouped.length}`,
     );
   }
-  const x = grouped.map((s) => 1 / (BOLTZMANN_EV_PER_K * s.temperatureK));
+  const x = new Float64Array(grouped.length);
+  for (let i = 0; i < x.length; i++) x[i] = 1 / (BOLTZMANN_EV_PER_K * grouped.temperatureK[i]!);
   const line = effectiveVarianceLine(
     grouped,
     x,
@@ -156,27 +165,20 @@ export function fitArrhenius(
     dof,
     line.converged,
   );
-  const residuals = t.map(
-    (tk, i) => y[i]! - (line.intercept + line.slope / (BOLTZMANN_EV_PER_K * tk)),
-  );
-  const curvature = curvatureOf(
-    grouped.map((s) => s.mean),
-    x,
-    line.weights,
-  );
+  const residuals = new Array<number>(n);
+  for (let i = 0; i < n; i++) {
+    residuals[i] = y[i]! - (line.intercept + line.slope / (BOLTZMANN_EV_PER_K * t[i]!));
+  }
+  const curvature = curvatureOf(grouped.mean, x, line.weights);
   const result: ArrheniusFit = {
     parameters: { activationEnergyEv: ea, intercept: line.intercept },
     fitted: ['activationEnergyEv', 'intercept'],
     ...u,
     residuals,
-    count: t.length,
+    count: n,
     stepCount: grouped.length,
     degreesOfFreedom: dof,
-    rSquared: weightedRSquared(
-      grouped.map((s) => s.mean),
-      line.weights,
-      line.chiSquare,
-    ),
+    rSquared: weightedRSquared(grouped.mean, line.weights, line.chiSquare),
     converged: line.converged,
     reason: line.reason,
     iterations: line.iterations,
@@ -193,21 +195,49 @@ export function fitArrhenius(
   return result;
 }
 
+function isPositive(v: unknown): v is number {
+  return typeof v === 'number' && v > 0 && v < Number.POSITIVE_INFINITY;
+}
+
 function curvatureOf(
-  y: readonly number[],
-  x: readonly number[],
-  weights: readonly number[],
+  y: Float64Array,
+  x: Float64Array,
+  weights: Float64Array,
 ): ArrheniusCurvature | null {
   if (y.length < 4) return null;
-  const xm = x.reduce((s, v) => s + v, 0) / x.length;
-  const q = weightedLeastSquares(
-    x.map((v) => [1, v - xm, (v - xm) ** 2]),
-    y,
-    weights,
-  );
-  if (!q.unscaledCovariance) return null;
-  const value = q.coefficients[2]!;
-  const standardError = Math.sqrt((q.unscaledCovariance[2]![2]! * q.chiSquare) / (y.length - 3));
+  let xm = 0;
+  for (let i = 0; i < x.length; i++) xm += x[i]!;
+  xm /= x.length;
+  // Weighted least squares on the rows [1, x - xm, (x - xm)^2], normal equations summed in one
+  // pass (Press et al., Numerical Recipes, 3rd ed., section 15.4).
+  const a = [
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+  ];
+  const rhs = [0, 0, 0];
+  const row = [1, 0, 0];
+  for (let i = 0; i < y.length; i++) {
+    const w = weights[i]!;
+    row[1] = x[i]! - xm;
+    row[2] = row[1] ** 2;
+    for (let p = 0; p < 3; p++) {
+      rhs[p] = rhs[p]! + w * row[p]! * y[i]!;
+      for (let q = 0; q <= p; q++) a[p]![q] = a[p]![q]! + w * row[p]! * row[q]!;
+    }
+  }
+  for (let p = 0; p < 3; p++) for (let q = p + 1; q < 3; q++) a[p]![q] = a[q]![p]!;
+  const inv = invertSpd(a);
+  if (!inv) return null;
+  const c = inv.map((r) => r[0]! * rhs[0]! + r[1]! * rhs[1]! + r[2]! * rhs[2]!);
+  let chiSquare = 0;
+  for (let i = 0; i < y.length; i++) {
+    const d = x[i]! - xm;
+    const r = y[i]! - (c[0]! + c[1]! * d + c[2]! * d ** 2);
+    chiSquare += weights[i]! * r * r;
+  }
+  const value = c[2]!;
+  const standardError = Math.sqrt((inv[2]![2]! * chiSquare) / (y.length - 3));
   const tValue = standardError > 0 ? value / standardError : 0;
   return {
     value,

@@ -47,6 +47,31 @@ export interface FitResult<P extends string> {
   warnings: string[];
 }
 
+/**
+ * Plain words for every parameter the library's fits report, as their warnings name them (a
+ * warning is read by people, not programs).
+ */
+export const FIT_PARAMETER_WORDS: Readonly<Record<string, string>> = {
+  activationEnergyEv: 'the activation energy',
+  intercept: 'the intercept',
+  donorDensity: 'the donor density',
+  acceptorDensity: 'the acceptor density',
+  donorLevel: 'the donor ionization energy',
+  acceptorLevel: 'the acceptor ionization energy',
+  mobilityScale: 'the mobility scale',
+  referenceResistivityOhmCm: 'the resistivity at the reference temperature',
+  alphaPerK: 'the temperature coefficient',
+  residualOhmCm: 'the residual resistivity',
+  couplingOhmCm: 'the phonon coupling',
+  debyeK: 'the Debye temperature',
+};
+
+/** @internal A parameter's words, capitalised to start a sentence. */
+export function parameterWords(name: string): string {
+  const words = FIT_PARAMETER_WORDS[name] ?? name;
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
 /** Relative standard error above which a parameter is called poorly determined. */
 export const MAX_RELATIVE_STANDARD_ERROR = 0.5;
 
@@ -64,10 +89,13 @@ export function standardWarnings<P extends string>(
     const se = r.standardErrors[name];
     const value = r.parameters[name];
     if (se === null || se === undefined) {
-      out.push(`${name} is not determined by the data (no standard error).`);
+      out.push(`${parameterWords(name)} is not determined by the data (no standard error).`);
     } else if (se > MAX_RELATIVE_STANDARD_ERROR * Math.abs(value)) {
       const pct = value === 0 ? 'infinite' : `${((100 * se) / Math.abs(value)).toFixed(0)} %`;
-      out.push(`${name} is poorly determined: relative standard error ${pct} (above 50 %).`);
+      out.push(
+        `${parameterWords(name)} is poorly determined: relative standard error ${pct} ` +
+          '(above 50 %).',
+      );
     }
   }
   return out;

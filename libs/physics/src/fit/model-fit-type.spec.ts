@@ -48,7 +48,7 @@ describe('fitModel keeps the conduction type of its start', () => {
     expect(fit.correlation![0]![0]).toBeCloseTo(1, 12);
     expect(fit.correlation![0]![1]).toBeCloseTo(fit.correlation![1]![0]!, 12);
     // The minority density is barely determined by extrinsic data: called out.
-    expect(fit.warnings.join(' ')).toMatch(/acceptorDensity is poorly determined/);
+    expect(fit.warnings.join(' ')).toMatch(/The acceptor density is poorly determined/);
   });
 
   it('keeps a p-type start p-type and refuses equal starting densities', () => {

@@ -11,9 +11,10 @@ import {
 } from '../semiconductor/dopants';
 import type { SemiconductorId } from '../semiconductor/material';
 import { requireSemiconductor } from '../semiconductor/material';
-import type { ResistivityOptions } from '../semiconductor/resistivity';
-import { modelPointUnchecked, resolveModel } from '../semiconductor/resistivity';
+import type { CurveTerms, ResistivityOptions } from '../semiconductor/resistivity';
+import { curveTerms, modelPointAt, resolveModel } from '../semiconductor/resistivity';
 import type { FitResult, ParameterScale } from './fit-result';
+import { FIT_PARAMETER_WORDS, parameterWords } from './fit-result';
 import { readPoints } from './points';
 import { fitLnRhoSteps } from './step-levenberg';
 import type { StepOptions } from './steps';
@@ -135,6 +136,18 @@ export function fitModel(
     });
     return v;
   };
+  // The fit evaluates the model at the same step temperatures for every parameter set (the
+  // Jacobian's columns differ from their base by 1e-7): the temperature-only terms are computed
+  // once per temperature and each neutrality solve starts from that temperature's last root.
+  const curve = new Map<number, { terms: CurveTerms; eta: number }>();
+  const curveAt = (t: number): { terms: CurveTerms; eta: number } => {
+    let at = curve.get(t);
+    if (!at) {
+      at = { terms: curveTerms(model, t), eta: Number.NaN };
+      curve.set(t, at);
+    }
+    return at;
+  };
   const lnModel = (q: readonly number[]): ((t: number) => number) | null => {
     const v = unpack(q);
     const feasible =
@@ -157,7 +170,12 @@ export function fitModel(
       v.acceptorLevel,
     );
     const cfg = { ...model, mobilityScale: v.mobilityScale };
-    return (t) => modelPointUnchecked(cfg, d, t).lnResistivity;
+    return (t) => {
+      const at = curveAt(t);
+      const p = modelPointAt(cfg, d, at.terms, at.eta);
+      at.eta = p.eta;
+      return p.lnResistivity;
+    };
   };
   const initialCoordinates = [
     ...densities.initial,
@@ -188,17 +206,21 @@ function boundWarnings(fit: ModelFit, nType: boolean): string[] {
     : (['acceptorDensity', 'donorDensity'] as const);
   if (fit.fitted.includes(minority) && p[minority] > MAX_COMPENSATION_RATIO * p[majority]) {
     out.push(
-      `${minority} is at its bound: it has reached ${majority} (the fit keeps the starting ` +
+      `${parameterWords(minority)} is at its bound: it has reached ` +
+        `${FIT_PARAMETER_WORDS[majority]} (the fit keeps the starting ` +
         `${nType ? 'n' : 'p'}-type), so the data do not separate the two densities.`,
     );
   }
   for (const level of ['donorLevel', 'acceptorLevel'] as const) {
     if (!fit.fitted.includes(level)) continue;
     if (p[level] < 0.002 || p[level] > LEVEL_RANGE_EV[1] - 0.002)
-      out.push(`${level} is at a bound of its range (0 to 1 eV): ${p[level].toFixed(4)} eV.`);
+      out.push(
+        `${parameterWords(level)} is at a bound of its range (0 to 1 eV): ` +
+          `${p[level].toFixed(4)} eV.`,
+      );
   }
   const s = p.mobilityScale;
   if (fit.fitted.includes('mobilityScale') && (s < 1e-5 || s > 1e5))
-    out.push(`mobilityScale is at a bound of its range (1e-6 to 1e6): ${s.toPrecision(3)}.`);
+    out.push(`The mobility scale is at a bound of its range (1e-6 to 1e6): ${s.toPrecision(3)}.`);
   return out;
 }

@@ -73,42 +73,80 @@ export function dwellSteps(
   y: ArrayLike<number>,
   toleranceK: number,
 ): DwellStep[] {
-  const raw: Array<{ t: number; mean: number; ss: number; n: number }> = [];
+  const c = dwellStepColumns(temperaturesK, y, temperaturesK.length, toleranceK);
+  return Array.from({ length: c.length }, (_, i) => ({
+    temperatureK: c.temperatureK[i]!,
+    mean: c.mean[i]!,
+    varianceOfMean: c.varianceOfMean[i]!,
+    count: c.count[i]!,
+  }));
+}
+
+/** @internal Dwell steps as parallel typed arrays (`length` of each used). */
+export interface DwellStepColumns {
+  length: number;
+  temperatureK: Float64Array;
+  mean: Float64Array;
+  varianceOfMean: Float64Array;
+  count: Float64Array;
+}
+
+/**
+ * @internal `dwellSteps` over the first `n` readings, into typed arrays with no object per step
+ * (the same arithmetic: `dwellSteps` is built on it).
+ */
+export function dwellStepColumns(
+  temperaturesK: ArrayLike<number>,
+  y: ArrayLike<number>,
+  n: number,
+  toleranceK: number,
+): DwellStepColumns {
+  const temperatureK = new Float64Array(n);
+  const mean = new Float64Array(n);
+  const ssOf = new Float64Array(n);
+  const count = new Float64Array(n);
+  let length = 0;
   let i = 0;
-  while (i < temperaturesK.length) {
+  while (i < n) {
     const first = temperaturesK[i]!;
     let end = i + 1;
-    while (end < temperaturesK.length && Math.abs(temperaturesK[end]! - first) <= toleranceK) {
-      end++;
-    }
+    while (end < n && Math.abs(temperaturesK[end]! - first) <= toleranceK) end++;
     let st = 0;
     let sy = 0;
     for (let j = i; j < end; j++) {
       st += temperaturesK[j]!;
       sy += y[j]!;
     }
-    const n = end - i;
-    const mean = sy / n;
+    const k = end - i;
+    const m = sy / k;
     let ss = 0;
-    for (let j = i; j < end; j++) ss += (y[j]! - mean) ** 2;
-    raw.push({ t: st / n, mean, ss, n });
+    for (let j = i; j < end; j++) ss += (y[j]! - m) ** 2;
+    temperatureK[length] = st / k;
+    mean[length] = m;
+    ssOf[length] = ss;
+    count[length] = k;
+    length++;
     i = end;
   }
   let pooledSs = 0;
   let pooledDof = 0;
-  for (const s of raw) {
-    pooledSs += s.ss;
-    pooledDof += s.n - 1;
+  for (let s = 0; s < length; s++) {
+    pooledSs += ssOf[s]!;
+    pooledDof += count[s]! - 1;
   }
   const pooled = pooledDof > 0 ? pooledSs / pooledDof : 0;
-  return raw.map((s) => {
-    const own = s.n > 1 ? s.ss / (s.n - 1) : 0;
+  const varianceOfMean = new Float64Array(length);
+  for (let s = 0; s < length; s++) {
+    const k = count[s]!;
+    const own = k > 1 ? ssOf[s]! / (k - 1) : 0;
     const variance = own > 0 ? own : pooled;
-    return {
-      temperatureK: s.t,
-      mean: s.mean,
-      varianceOfMean: pooled > 0 ? variance / s.n : 1,
-      count: s.n,
-    };
-  });
+    varianceOfMean[s] = pooled > 0 ? variance / k : 1;
+  }
+  return {
+    length,
+    temperatureK: temperatureK.subarray(0, length),
+    mean: mean.subarray(0, length),
+    varianceOfMean,
+    count: count.subarray(0, length),
+  };
 }

@@ -8,7 +8,7 @@ import type { FitResult } from './fit-result';
 import { standardWarnings, uncertaintiesOf, weightedRSquared } from './fit-result';
 import { readPoints } from './points';
 import type { StepOptions } from './steps';
-import { dwellSteps, readStepOptions } from './steps';
+import { dwellStepColumns, readStepOptions } from './steps';
 
 /** Parameters of `fitLinearTcr`: rho at the reference temperature (ohm cm) and alpha (1/K). */
 export type TcrParameter = 'referenceResistivityOhmCm' | 'alphaPerK';
@@ -52,7 +52,7 @@ export function fitLinearTcr(
       `\`${fn}\` requires at least two distinct temperatures, got only ${temps[0]} K`,
     );
   }
-  const steps = dwellSteps(temps, rhos, stepOptions.toleranceK);
+  const steps = dwellStepColumns(temps, rhos, temps.length, stepOptions.toleranceK);
   if (steps.length < 3) {
     throw new RangeError(
       `\`${fn}\` requires at least 3 temperature steps (readings within ` +
@@ -61,7 +61,7 @@ export function fitLinearTcr(
   }
   const line = effectiveVarianceLine(
     steps,
-    steps.map((s) => s.temperatureK - ref),
+    steps.temperatureK.map((t) => t - ref),
     (c1) => -c1,
     stepOptions.temperatureUncertaintyK,
   );
@@ -110,11 +110,7 @@ export function fitLinearTcr(
     count: temps.length,
     stepCount: steps.length,
     degreesOfFreedom: dof,
-    rSquared: weightedRSquared(
-      steps.map((s) => s.mean),
-      line.weights,
-      line.chiSquare,
-    ),
+    rSquared: weightedRSquared(steps.mean, line.weights, line.chiSquare),
     converged: line.converged,
     reason: line.reason,
     iterations: line.iterations,

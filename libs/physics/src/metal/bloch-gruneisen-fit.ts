@@ -2,6 +2,7 @@
  * Bloch–Grüneisen fit of a measured metal rho(T), on dwell-step means.
  */
 import type { FitResult } from '../fit/fit-result';
+import { parameterWords } from '../fit/fit-result';
 import { readPoints } from '../fit/points';
 import { fitLnRhoSteps } from '../fit/step-levenberg';
 import type { StepOptions } from '../fit/steps';
@@ -59,7 +60,9 @@ export function fitBlochGruneisen(
       ? given['couplingOhmCm']
       : Math.max(1e-12 * rhoMax, (4 * theta0 * (rhoMax - rho00)) / tMax);
   const scale = rhoMax;
-  return fitLnRhoSteps<BlochGruneisenParameter>({
+  let tMin = Number.POSITIVE_INFINITY;
+  for (let i = 0; i < temps.length; i++) tMin = Math.min(tMin, temps[i]!);
+  const fit = fitLnRhoSteps<BlochGruneisenParameter>({
     fn,
     temperaturesK: temps,
     resistivitiesOhmCm: rhos,
@@ -82,4 +85,30 @@ export function fitBlochGruneisen(
       debyeK: Math.exp(q[2]!),
     }),
   });
+  fit.warnings.push(...coverageWarnings(fit, tMin, rhoMax));
+  return fit;
+}
+
+/**
+ * Cautions particular to Bloch–Grüneisen: Theta is only pinned down by readings below about
+ * Theta / 3, where rho(T) leaves its straight line (above it any Theta with a matching A fits);
+ * and rho_0 or A pressed against their lower bound of 0.
+ */
+function coverageWarnings(fit: BlochGruneisenFit, lowestK: number, rhoMax: number): string[] {
+  if (!fit.converged) return [];
+  const out: string[] = [];
+  const theta = fit.parameters.debyeK;
+  if (lowestK > theta / 3) {
+    out.push(
+      `The readings start at ${lowestK.toFixed(1)} K, above a third of the fitted Debye ` +
+        `temperature (${theta.toFixed(0)} K): there the curve is nearly straight, so the Debye ` +
+        'temperature is weakly constrained by these data.',
+    );
+  }
+  for (const name of ['residualOhmCm', 'couplingOhmCm'] as const) {
+    // Zero within rounding of the largest reading: the fit pressed it against its bound.
+    if (fit.parameters[name] <= 1e-9 * rhoMax)
+      out.push(`${parameterWords(name)} is at its bound of 0.`);
+  }
+  return out;
 }

@@ -98,3 +98,31 @@ describe('blochGruneisen invalid inputs', () => {
     expect(() => fitBlochGruneisen([])).toThrow(/`fitBlochGruneisen`.*points/);
   });
 });
+
+describe('fitBlochGruneisen warnings', () => {
+  it('says the Debye temperature is weakly constrained when the readings start above Theta/3', () => {
+    // Kittel's Debye temperature of copper, 343 K; data only from 250 K up, where the curve is
+    // nearly straight (Bloch–Grüneisen is linear in T above Theta: common practice, no source).
+    const n = seededNormal(seededRandom(3));
+    const pts = Array.from({ length: 60 }, (_, i) => {
+      const t = 250 + 4 * i;
+      const rho = blochGruneisen(t, { residualOhmCm: 2e-7, couplingOhmCm: 4e-6, debyeK: 343 });
+      return { temperatureK: t, resistivityOhmCm: rho * (1 + 0.003 * n()) };
+    });
+    const r = fitBlochGruneisen(pts);
+    expect(r.converged).toBe(true);
+    expect(r.warnings.join(' ')).toMatch(/Debye temperature is weakly constrained/);
+    expect(r.warnings.join(' ')).not.toMatch(/debyeK/);
+  });
+
+  it('gives no coverage caution when the readings reach well below Theta/3', () => {
+    const pts = Array.from({ length: 40 }, (_, i) => {
+      const t = 20 + 10 * i;
+      const rho = blochGruneisen(t, { residualOhmCm: 2e-7, couplingOhmCm: 4e-6, debyeK: 343 });
+      return { temperatureK: t, resistivityOhmCm: rho * (1 + 1e-4 * Math.sin(i)) };
+    });
+    const r = fitBlochGruneisen(pts);
+    expect(r.warnings).toEqual([]);
+    expect(r.parameters.debyeK).toBeCloseTo(343, 0);
+  });
+});

@@ -2,14 +2,13 @@
  * Charge neutrality with incomplete ionization: electron and hole densities, ionized dopants,
  * Fermi level and regime.
  */
-import { BOLTZMANN_EV_PER_K } from '../constants';
 import { PHYSICS_DEFAULTS } from '../defaults';
-import { brentRoot } from '../numeric/brent';
-import { logAddExp, logisticComplement, softplus } from '../numeric/log-math';
+import { logisticComplement } from '../numeric/log-math';
 import { requireTemperatureK } from '../validate';
-import { bandGapUnchecked } from './band-gap';
 import type { BandModelOptions, DensityOfStatesSet } from './density-of-states';
-import { logDensityOfStates, resolveDensityOfStatesSet } from './density-of-states';
+import { resolveDensityOfStatesSet } from './density-of-states';
+import type { TemperatureTerms } from './neutrality-solve';
+import { neutralityFunction, neutralityRoot, temperatureTerms } from './neutrality-solve';
 import type { Doping, ResolvedDoping } from './dopants';
 import { resolveDoping } from './dopants';
 import type { SemiconductorId } from './material';
@@ -20,6 +19,8 @@ export type Regime = 'freeze-out' | 'extrinsic' | 'intrinsic';
 
 /** @internal Full solver output, in logs where values may underflow. */
 export interface NeutralitySolution {
+  /** E_F / kT from the valence band edge: the root, reusable as the next solve's start. */
+  eta: number;
   lnElectrons: number;
   lnHoles: number;
   lnIntrinsic: number;
@@ -33,8 +34,6 @@ export interface NeutralitySolution {
   nearDegenerate: boolean;
 }
 
-const LN_GD = Math.log(PHYSICS_DEFAULTS.donorDegeneracy);
-const LN_GA = Math.log(PHYSICS_DEFAULTS.acceptorDegeneracy);
 const LN_FREEZE_OUT_THRESHOLD = Math.log(PHYSICS_DEFAULTS.ionizedFractionThreshold);
 
 /**
@@ -48,48 +47,27 @@ export function solveNeutrality(
   doping: ResolvedDoping,
   temperatureK: number,
 ): NeutralitySolution {
-  const kT = BOLTZMANN_EV_PER_K * temperatureK;
-  const eg = bandGapUnchecked(material, temperatureK);
-  const epsG = eg / kT;
-  const { lnNc, lnNv } = logDensityOfStates(set, material, temperatureK);
-  const lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
-  const lnNa =
-    doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
-  // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
-  const donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
-  const acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
-  // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
+  return solveNeutralityAt(temperatureTerms(material, set, temperatureK), doping);
+}
+
+/**
+ * @internal `solveNeutrality` on precomputed temperature terms (shared across a curve or a fit),
+ * started from `guessEta` (a neighbouring temperature's or parameter set's eta) when given.
+ */
+export function solveNeutralityAt(
+  terms: TemperatureTerms,
+  doping: ResolvedDoping,
+  guessEta = Number.NaN,
+): NeutralitySolution {
+  const { kT, epsG, lnNc, lnNv } = terms;
+  const g = neutralityFunction(terms, doping);
+  const eta = neutralityRoot(g, terms, doping, guessEta).eta;
   const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
   const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
-  const donorsFull = bD === 0;
-  const acceptorsFull = bA === 0;
-  const lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
-  const lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
-  const lnBD = donorsFull ? 0 : Math.log(bD);
-  const lnBA = acceptorsFull ? 0 : Math.log(bA);
-  const lnNcMinusG = lnNc - epsG;
-
-  const g = (eta: number): number => {
-    const lnP = lnNv - eta;
-    const lnN = lnNcMinusG + eta;
-    const lnDp = donorsFull ? lnNd : lnNd + logAddExp(lnFreeD, lnBD - softplus(donorShift + eta));
-    const lnAm = acceptorsFull
-      ? lnNa
-      : lnNa + logAddExp(lnFreeA, lnBA - softplus(acceptorShift - eta));
-    return logAddExp(lnP, lnDp) - logAddExp(lnN, lnAm);
-  };
-
-  // The bracket spans the gap plus a margin wide enough for 1e22 cm^-3 against Nc or Nv at 1 K.
-  const margin = 80;
-  const result = brentRoot(g, -margin, epsG + margin, 1e-10, 300);
-  const eta = result.root;
-
-  const lnN = lnNcMinusG + eta;
+  const lnN = g.lnNcMinusG + eta;
   const lnP = lnNv - eta;
-  const donorFraction = donorsFull ? 1 : 1 - bD + bD * logisticComplement(donorShift + eta);
-  const acceptorFraction = acceptorsFull
-    ? 1
-    : 1 - bA + bA * logisticComplement(acceptorShift - eta);
+  const donorFraction = bD === 0 ? 1 : 1 - bD + bD * logisticComplement(g.donorShift + eta);
+  const acceptorFraction = bA === 0 ? 1 : 1 - bA + bA * logisticComplement(g.acceptorShift - eta);
   const lnIntrinsic = 0.5 * (lnNc + lnNv) - 0.5 * epsG;
   const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
   const lnMajority = doping.donorDensity >= doping.acceptorDensity ? lnN : lnP;
@@ -97,11 +75,12 @@ export function solveNeutrality(
   const regime = regimeOf(lnIntrinsic, net, lnMajorityFraction);
   const margin3 = PHYSICS_DEFAULTS.degeneracyMarginKt;
   return {
+    eta,
     lnElectrons: lnN,
     lnHoles: lnP,
     lnIntrinsic,
     fermiLevelEv: eta * kT,
-    bandGapEv: eg,
+    bandGapEv: terms.bandGapEv,
     ionizedDonors: doping.donorDensity * donorFraction,
     ionizedAcceptors: doping.acceptorDensity * acceptorFraction,
     lnMajorityFraction,
@@ -146,7 +125,8 @@ export interface CarrierDensities {
  * Formula: solve n + N_A^- = p + N_D^+ for E_F with
  *   n = Nc exp(-(Eg - E_F)/kT), p = Nv exp(-E_F/kT),
  *   N_D^+ = N_D / (1 + 2 exp((E_F - Eg + E_d)/kT)), N_A^- = N_A / (1 + 4 exp((E_a - E_F)/kT))
- * (degeneracy 2 for donors, 4 for acceptors), by Brent's method on ln(p + N_D^+) - ln(n + N_A^-).
+ * (degeneracy 2 for donors, 4 for acceptors), by a safeguarded Newton iteration on
+ * ln(p + N_D^+) - ln(n + N_A^-) with its analytic derivative (Brent's method as the fallback).
  * Regime (`regimeOf`): `intrinsic` when n_i > |N_D - N_A|; else `freeze-out` when the majority
  * carrier density is below 90 % of |N_D - N_A| (the ionized fraction of the net doping, so a
  * compensated sample whose donors are mostly ionized can still be frozen out); else `extrinsic`.

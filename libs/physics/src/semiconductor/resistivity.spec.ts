@@ -74,7 +74,10 @@ describe('modelCurve', () => {
     const curve = modelCurve('Si', n(1e15), temps);
     expect(curve.map((c) => c.temperatureK)).toEqual(temps);
     curve.forEach((c, i) => {
-      expect(c.resistivityOhmCm).toBe(resistivity('Si', n(1e15), temps[i]!));
+      // The curve starts each solve from its neighbour's root, a single value from an estimate:
+      // the iterations stop at different points within rounding (1e-12 relative).
+      const single = resistivity('Si', n(1e15), temps[i]!);
+      expect(Math.abs(c.resistivityOhmCm / single - 1)).toBeLessThan(1e-12);
       expect(c.electronMobility).toBeGreaterThan(c.holeMobility);
     });
     expect(curve[1]!.regime).toBe('freeze-out');

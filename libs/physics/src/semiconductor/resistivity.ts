@@ -11,10 +11,12 @@ import type { Doping, ResolvedDoping } from './dopants';
 import { resolveDoping } from './dopants';
 import type { SemiconductorId } from './material';
 import { requireSemiconductor } from './material';
-import type { MobilityOptions } from './mobility';
-import { mobilityUnchecked, resolveMobilityModel } from './mobility';
+import type { MobilityOptions, MobilityTerms } from './mobility';
+import { mobilityAt, mobilityTerms, resolveMobilityModel } from './mobility';
 import type { Regime } from './neutrality';
-import { solveNeutrality } from './neutrality';
+import { solveNeutralityAt } from './neutrality';
+import type { TemperatureTerms } from './neutrality-solve';
+import { temperatureTerms } from './neutrality-solve';
 import type { MobilityModelId } from '../defaults';
 
 /** Options of the resistivity model. */
@@ -65,24 +67,41 @@ export interface ModelPoint {
 const LN_Q = Math.log(ELEMENTARY_CHARGE_C);
 const LN_CEILING = Math.log(PHYSICS_DEFAULTS.resistivityCeilingOhmCm);
 
-/** @internal Model point and ln(rho), without input checks. */
-export function modelPointUnchecked(
+/** @internal Everything of the model that depends on temperature only, shared across dopings. */
+export interface CurveTerms {
+  neutral: TemperatureTerms;
+  electron: MobilityTerms;
+  hole: MobilityTerms;
+}
+
+/** @internal The temperature-only terms of the model at one temperature. */
+export function curveTerms(model: ResolvedModel, temperatureK: number): CurveTerms {
+  const { material, set, mobilityModel } = model;
+  return {
+    neutral: temperatureTerms(material, set, temperatureK),
+    electron: mobilityTerms(material, 'electron', temperatureK, mobilityModel),
+    hole: mobilityTerms(material, 'hole', temperatureK, mobilityModel),
+  };
+}
+
+/** @internal A model point with ln(rho) and the neutrality root eta (a start for the next). */
+export type SolvedModelPoint = ModelPoint & { lnResistivity: number; eta: number };
+
+/** @internal Model point from precomputed temperature terms, the solve started at `guessEta`. */
+export function modelPointAt(
   model: ResolvedModel,
   doping: ResolvedDoping,
-  temperatureK: number,
-): ModelPoint & { lnResistivity: number } {
-  const s = solveNeutrality(model.material, model.set, doping, temperatureK);
-  const total = doping.donorDensity + doping.acceptorDensity;
-  const muN =
-    model.mobilityScale *
-    mobilityUnchecked(model.material, 'electron', temperatureK, total, model.mobilityModel);
-  const muP =
-    model.mobilityScale *
-    mobilityUnchecked(model.material, 'hole', temperatureK, total, model.mobilityModel);
+  terms: CurveTerms,
+  guessEta = Number.NaN,
+): SolvedModelPoint {
+  const s = solveNeutralityAt(terms.neutral, doping, guessEta);
+  const lnTotal = Math.log(doping.donorDensity + doping.acceptorDensity);
+  const muN = model.mobilityScale * mobilityAt(terms.electron, lnTotal);
+  const muP = model.mobilityScale * mobilityAt(terms.hole, lnTotal);
   const lnSigma = LN_Q + logAddExp(s.lnElectrons + Math.log(muN), s.lnHoles + Math.log(muP));
   const lnRho = -lnSigma;
   return {
-    temperatureK,
+    temperatureK: terms.neutral.temperatureK,
     resistivityOhmCm:
       lnRho >= LN_CEILING ? PHYSICS_DEFAULTS.resistivityCeilingOhmCm : Math.exp(lnRho),
     electrons: Math.exp(s.lnElectrons),
@@ -91,7 +110,17 @@ export function modelPointUnchecked(
     holeMobility: muP,
     regime: s.regime,
     lnResistivity: lnRho,
+    eta: s.eta,
   };
+}
+
+/** @internal Model point and ln(rho), without input checks. */
+export function modelPointUnchecked(
+  model: ResolvedModel,
+  doping: ResolvedDoping,
+  temperatureK: number,
+): SolvedModelPoint {
+  return modelPointAt(model, doping, curveTerms(model, temperatureK));
 }
 
 /**
@@ -147,8 +176,18 @@ export function modelCurve(
   const temps = requireArray('modelCurve', 'temperaturesK', temperaturesK);
   const checked = temps.map((t, i) => requireTemperatureK('modelCurve', t, `temperaturesK[${i}]`));
   const model = resolveModel('modelCurve', m, options);
+  // Each temperature's solve starts from the Fermi level (eV) extrapolated from its two
+  // neighbours, rescaled to kT: a start within about 1e-4 needs two Newton steps.
+  const previous = { t0: Number.NaN, e0: Number.NaN, t1: Number.NaN, e1: Number.NaN };
   return checked.map((t) => {
-    const q = modelPointUnchecked(model, d, t);
+    const terms = curveTerms(model, t);
+    const slope = (previous.e1 - previous.e0) / (previous.t1 - previous.t0);
+    const guessEv = previous.e1 + (Number.isFinite(slope) ? slope * (t - previous.t1) : 0);
+    const q = modelPointAt(model, d, terms, guessEv / terms.neutral.kT);
+    previous.t0 = previous.t1;
+    previous.e0 = previous.e1;
+    previous.t1 = t;
+    previous.e1 = q.eta * terms.neutral.kT;
     return {
       temperatureK: q.temperatureK,
       resistivityOhmCm: q.resistivityOhmCm,

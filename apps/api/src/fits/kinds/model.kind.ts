@@ -38,7 +38,7 @@ function unknownDopant(field: 'donor' | 'acceptor', name: string, m: Semiconduct
 }
 
 /** The request's starting doping with its dopant names checked against the material's table. */
-function dopingOf(m: SemiconductorId, input: DopingInput): Doping {
+export function dopingOf(m: SemiconductorId, input: DopingInput): Doping {
   const { donor, acceptor, ...rest } = input;
   const doping: Doping = { ...rest };
   if (donor !== undefined)

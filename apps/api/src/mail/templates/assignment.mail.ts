@@ -1,5 +1,7 @@
 import type { MailMessage } from '../mailer.service';
+import type { PlannerResponse } from '@rhotrace/api-types';
 import { escapeHtml, htmlFrame } from './escape-html';
+import { planHtml, planText } from './plan-summary';
 
 export interface AssignmentMailInput {
   to: string;
@@ -14,10 +16,21 @@ export interface AssignmentMailInput {
   material: string;
   link: string;
   cautions: string[];
+  /** The attached measurement plan, if any: summarised, with its cautions added to the list. */
+  plan?: PlannerResponse | null;
 }
 
 /** The e-mail an assignee gets: what, which wafer and lot, due when, a link, safety notes. */
 export function assignmentMail(input: AssignmentMailInput): MailMessage {
+  const plan = input.plan ?? null;
+  // The plan's cautions (cryogen, hot chuck) join the task's, each once; both lists end with the
+  // reminder that the lab's rules come first, which stays last.
+  const last = input.cautions.at(-1);
+  const cautions = [
+    ...new Set([...input.cautions.slice(0, -1), ...(plan?.cautions ?? []), ...input.cautions]),
+  ].filter((c) => c !== last);
+  if (last !== undefined) cautions.push(last);
+
   const subject = `Rhotrace: ${input.task} on wafer ${input.waferNumber} of lot ${input.lotCode} (due ${input.dueDate})`;
   const text = [
     `Hello ${input.assigneeName},`,
@@ -31,8 +44,9 @@ export function assignmentMail(input: AssignmentMailInput): MailMessage {
     '',
     `Open the wafer: ${input.link}`,
     '',
+    ...(plan ? [...planText(plan), ''] : []),
     'Safety before you start:',
-    ...input.cautions.map((c) => `- ${c}`),
+    ...cautions.map((c) => `- ${c}`),
   ].join('\n');
   const html = htmlFrame(
     subject,
@@ -48,9 +62,10 @@ export function assignmentMail(input: AssignmentMailInput): MailMessage {
         : []),
       '</table>',
       `<p><a href="${escapeHtml(input.link)}">Open the wafer in Rhotrace</a></p>`,
+      ...(plan ? planHtml(plan) : []),
       '<h2 style="font-size: 1.1em">Safety before you start</h2>',
       '<ul>',
-      ...input.cautions.map((c) => `<li>${escapeHtml(c)}</li>`),
+      ...cautions.map((c) => `<li>${escapeHtml(c)}</li>`),
       '</ul>',
     ].join('\n'),
   );

@@ -9,6 +9,7 @@ import type { ConvertedPoint, Reading } from './import-types';
 import { PolarityPairer, type ReadingGroup } from './pair-polarities';
 import { RowReader } from './read-row';
 import type { Slice } from './read-table';
+import type { MethodSettings } from './methods';
 import type { TemperatureReader } from './temperature';
 import { pointMaker } from './to-point';
 
@@ -26,6 +27,7 @@ export class RowConverter {
     columns: ResolvedColumn[],
     method: SweepMethod,
     geometry: SweepGeometry,
+    settings?: MethodSettings,
     temperature?: TemperatureReader,
   ) {
     this.problems = [...parsed.problems];
@@ -39,7 +41,7 @@ export class RowConverter {
       this.problems,
       temperature,
     );
-    this.toPoint = pointMaker(method, geometry, columns, this.problems);
+    this.toPoint = pointMaker(method, geometry, columns, this.problems, settings);
   }
 
   /** True while more problems may still be collected. */

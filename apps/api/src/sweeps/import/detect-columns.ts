@@ -54,6 +54,9 @@ export function requireColumns(
       });
     }
   }
+  for (const problem of entry.columnProblems?.(has, constantCurrentA) ?? []) {
+    problems.push({ field: 'columns', problem });
+  }
   for (const c of columns) {
     if (!UNITLESS.has(c.meaning) && !c.unitInfo) {
       problems.push({

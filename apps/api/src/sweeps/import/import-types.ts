@@ -2,7 +2,7 @@
  * What the import stages hand each other: a row read in stored units (`Reading`), and the point
  * made from one reading or a forward/reverse pair (`ConvertedPoint`).
  */
-import type { PointFlag } from '@rhotrace/api-types';
+import type { PointFlag, PointQuantities } from '@rhotrace/api-types';
 
 /** One data row read in stored units (SI, kelvin, ohm cm); null where the file has no value. */
 export interface Reading {
@@ -19,6 +19,12 @@ export interface Reading {
   resistanceBOhm: number | null;
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number | null;
+  /** Hall sweeps: the field's magnitude, T. */
+  magneticFieldT?: number | null;
+  /** Hall sweeps: one Hall voltage already corrected for offsets, V. */
+  hallVoltageV?: number | null;
+  /** Hall sweeps: the four field and current reversals (xy = field sign, current sign), V. */
+  hallReversalsV?: { pp: number; pn: number; np: number; nn: number } | null;
 }
 
 /** A converted point, ready to store. */
@@ -33,6 +39,8 @@ export interface ConvertedPoint {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
   flags: PointFlag[];
+  /** Quantities beyond resistivity (Hall sweeps), stored as `sweep_points.quantities`. */
+  quantities?: PointQuantities | null;
   /** Why each flag the point stage set was set, in words. */
   reasons?: Partial<Record<PointFlag, string>>;
   /** Van der Pauw: R_A / R_B of the point, for the sample-shape warning. */

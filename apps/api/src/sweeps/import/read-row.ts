@@ -21,9 +21,32 @@ const REVERSE = /^(-|-1|r|rev|reverse|neg|negative|n|reversed|-i)$/i;
 
 /** Columns a reading may use, by meaning (null when not mapped). */
 type ColumnsByMeaning = Record<
-  'voltage' | 'current' | 'resistance' | 'resistance-b' | 'sheet-resistance' | 'resistivity',
+  | 'voltage'
+  | 'current'
+  | 'resistance'
+  | 'resistance-b'
+  | 'sheet-resistance'
+  | 'resistivity'
+  | HallMeaning,
   ResolvedColumn | null
 >;
+
+/** The columns of a Hall sweep besides the van der Pauw ones. */
+type HallMeaning = Extract<ColumnMeaning, 'magnetic-field' | `hall-voltage${string}`>;
+
+type HallReadingKey = 'magneticFieldT' | 'hallVoltageV' | 'hallReversalsV';
+
+/** The Hall columns of a file and whether the method makes each one's cells required. */
+function hallColumns<T>(of: (m: HallMeaning) => T): Record<HallMeaning, T> {
+  return {
+    'magnetic-field': of('magnetic-field'),
+    'hall-voltage': of('hall-voltage'),
+    'hall-voltage-pp': of('hall-voltage-pp'),
+    'hall-voltage-pn': of('hall-voltage-pn'),
+    'hall-voltage-np': of('hall-voltage-np'),
+    'hall-voltage-nn': of('hall-voltage-nn'),
+  };
+}
 
 /** Reads records of a parsed file as readings; problems go to the list it is given. */
 export class RowReader {
@@ -37,6 +60,7 @@ export class RowReader {
   private readonly mark: DecimalMark;
   /** True while the row being read has a problem. */
   private bad = false;
+  private readonly currentFromHeader: boolean;
 
   constructor(
     private readonly parsed: ParsedSweepFile,
@@ -68,6 +92,7 @@ export class RowReader {
       'resistance-b': col('resistance-b'),
       'sheet-resistance': col('sheet-resistance'),
       resistivity: col('resistivity'),
+      ...hallColumns(col),
     };
     const entry = POINT_METHODS[method];
     const cells = new Set(entry.requiredCells);
@@ -76,12 +101,15 @@ export class RowReader {
     const { voltage, resistance } = this.columns;
     this.required = {
       voltage: vi && !resistance,
-      current: vi && !resistance,
+      current: (vi && !resistance) || cells.has('current'),
       resistance: cells.has('resistance') || (vi && !voltage),
       'resistance-b': cells.has('resistance-b'),
       'sheet-resistance': cells.has('sheet-resistance'),
       resistivity: cells.has('resistivity'),
+      ...hallColumns((m) => cells.has(m)),
     };
+    // A method that needs a current takes the file header's when no column gives one.
+    this.currentFromHeader = cells.has('current');
     this.mark = parsed.layout.decimalMark;
   }
 
@@ -97,13 +125,14 @@ export class RowReader {
     const voltageV = this.value(cells, row, 'voltage');
     let currentA = this.columns.current
       ? this.value(cells, row, 'current')
-      : voltageV !== null
+      : voltageV !== null || this.currentFromHeader
         ? (this.constantCurrentA ?? null)
         : null;
     const resistanceOhm = this.value(cells, row, 'resistance');
     const resistanceBOhm = this.value(cells, row, 'resistance-b');
     const sheetResistanceOhmSq = this.value(cells, row, 'sheet-resistance');
     const resistivityOhmCm = this.value(cells, row, 'resistivity');
+    const hall = this.readHall(cells, row);
     if (this.bad || temperatureRaw === null) return null;
 
     const junctionK =
@@ -122,7 +151,8 @@ export class RowReader {
       this.notPositive(row, 'resistance', resistanceOhm) ||
       this.notPositive(row, 'resistance-b', resistanceBOhm) ||
       this.notPositive(row, 'sheet-resistance', sheetResistanceOhmSq) ||
-      this.notPositive(row, 'resistivity', resistivityOhmCm)
+      this.notPositive(row, 'resistivity', resistivityOhmCm) ||
+      this.notPositive(row, 'magnetic-field', hall.magneticFieldT)
     ) {
       return null;
     }
@@ -137,6 +167,24 @@ export class RowReader {
       resistanceBOhm,
       sheetResistanceOhmSq,
       resistivityOhmCm,
+      ...hall,
+    };
+  }
+
+  /** A Hall sweep's field and voltages (all null when the file has no such columns). */
+  private readHall(cells: string[], row: number): Required<Pick<Reading, HallReadingKey>> {
+    const v = (m: HallMeaning) => this.value(cells, row, m);
+    const [pp, pn, np, nn] = [
+      v('hall-voltage-pp'),
+      v('hall-voltage-pn'),
+      v('hall-voltage-np'),
+      v('hall-voltage-nn'),
+    ];
+    return {
+      magneticFieldT: v('magnetic-field'),
+      hallVoltageV: v('hall-voltage'),
+      hallReversalsV:
+        pp !== null && pn !== null && np !== null && nn !== null ? { pp, pn, np, nn } : null,
     };
   }
 

@@ -4,12 +4,12 @@
  * library's `PhysicsInputError` says which argument it refused: a geometry argument makes the
  * whole upload a 400, anything else is a problem of that row.
  */
-import type { RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
+import type { ColumnMeaning, RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
 import { PhysicsInputError } from '@rhotrace/physics';
 import { validationFailed } from '../../errors';
 import { rowProblem, type ResolvedColumn } from '../parse';
 import type { ConvertedPoint, Reading } from './import-types';
-import { POINT_METHODS, type PointInput, type PointValues } from './methods';
+import { POINT_METHODS, type MethodSettings, type PointInput, type PointValues } from './methods';
 import type { ReadingGroup } from './pair-polarities';
 
 /** Arguments of the physics functions that come from the sweep's geometry, not from a row. */
@@ -20,6 +20,13 @@ const GEOMETRY_ARGUMENTS: ReadonlySet<string> = new Set([
   'lengthCm',
   'widthCm',
 ]);
+
+/** The column a refused Hall argument comes from (the first of the alternatives mapped). */
+const HALL_ARGUMENT_COLUMNS: Readonly<Record<string, ColumnMeaning[]>> = {
+  'input.hallVoltageV': ['hall-voltage', 'hall-voltage-pp'],
+  'input.magneticFieldT': ['magnetic-field'],
+  'input.currentA': ['current'],
+};
 
 /** Refused together when V/I is zero or negative. */
 const VOLTAGE_OVER_CURRENT = 'voltageV and currentA';
@@ -67,6 +74,10 @@ function pointInput(f: Reading, r: Reading | undefined): PointInput {
     resistanceBOhm: pairMean(f.resistanceBOhm, r.resistanceBOhm),
     sheetResistanceOhmSq: pairMean(f.sheetResistanceOhmSq, r.sheetResistanceOhmSq),
     resistivityOhmCm: pairMean(f.resistivityOhmCm, r.resistivityOhmCm),
+    // Hall readings reverse their current within a row; a pair keeps the forward one's.
+    magneticFieldT: f.magneticFieldT ?? null,
+    hallVoltageV: f.hallVoltageV ?? null,
+    hallReversalsV: f.hallReversalsV ?? null,
   };
 }
 
@@ -80,10 +91,16 @@ export function pointMaker(
   geometry: SweepGeometry,
   columns: ResolvedColumn[],
   problems: RowProblem[],
+  settings: MethodSettings = { hallFactor: 1 },
 ): (group: ReadingGroup) => ConvertedPoint | null {
-  const compute = POINT_METHODS[method].converter(geometry);
+  const compute = POINT_METHODS[method].converter(geometry, settings);
   const valueColumn =
     columns.find((c) => c.meaning === 'voltage' || c.meaning === 'resistance')?.header ?? null;
+  const columnOf = (argument: string): string | null => {
+    const meanings = HALL_ARGUMENT_COLUMNS[argument];
+    if (!meanings) return valueColumn;
+    return columns.find((c) => meanings.includes(c.meaning))?.header ?? valueColumn;
+  };
   return ({ forward: f, reverse: r, flag }) => {
     const input = pointInput(f, r);
     let values: PointValues;
@@ -99,10 +116,12 @@ export function pointMaker(
       problems.push(
         rowProblem(
           f.row,
-          valueColumn,
+          columnOf(error.argument),
           error.argument === VOLTAGE_OVER_CURRENT
             ? 'voltage and current have opposite signs (a negative resistance); check the wiring or the polarity column'
-            : `the resistivity cannot be computed: ${error.requirement}`,
+            : HALL_ARGUMENT_COLUMNS[error.argument]
+              ? `the Hall coefficient cannot be computed: ${error.requirement}`
+              : `the resistivity cannot be computed: ${error.requirement}`,
         ),
       );
       return null;
@@ -119,6 +138,7 @@ export function pointMaker(
       sheetResistanceOhmSq: values.sheetResistanceOhmSq,
       resistivityOhmCm: values.resistivityOhmCm,
       flags,
+      ...(values.quantities ? { quantities: values.quantities } : {}),
     };
     if (asymmetry !== null && asymmetry > POLARITY_ASYMMETRY_LIMIT) {
       flags.push('polarity-asymmetry');

@@ -2,6 +2,7 @@
  * Guesses what each column of a sweep export holds from its header, unit and values.
  */
 import type { ColumnMeaning, SweepColumn, SweepMethod } from '@rhotrace/api-types';
+import { hallMeaningOf } from './hall-columns';
 import { splitHeader, parseUnit, type Unit, type UnitKind } from './units';
 
 /** A column with its unit resolved (the factor to the stored unit). */
@@ -27,6 +28,7 @@ const NAME_RULES: Array<[ColumnMeaning, RegExp]> = [
     'temperature',
     /^(t|temp|temperature|t_?chuck|chuck|chuck ?temp|stage|t_?sample|sample ?temp|tc|rtd|pt100|pt1000|thermometer|sensor)\b/i,
   ],
+  ['magnetic-field', /^(b|b[ _-]?field|field|mag(netic)?[ _-]?field|flux( density)?|b[ _]?set)$/i],
   ['voltage', /^(v|u|volt|voltage|v_?meas|v_?4pp|v_?23|v ?probe|spannung)\b/i],
   ['current', /^(i|curr|current|i_?src|i_?source|i_?14|source ?current|strom)\b/i],
 ];
@@ -39,7 +41,17 @@ const UNIT_MEANING: Record<UnitKind, ColumnMeaning> = {
   'sheet-resistance': 'sheet-resistance',
   resistivity: 'resistivity',
   time: 'time',
+  'magnetic-field': 'magnetic-field',
 };
+
+/** The Hall-voltage meanings: voltages like `voltage`, but never the resistivity's V. */
+const HALL_VOLTAGES: ReadonlySet<ColumnMeaning> = new Set([
+  'hall-voltage',
+  'hall-voltage-pp',
+  'hall-voltage-pn',
+  'hall-voltage-np',
+  'hall-voltage-nn',
+]);
 
 /** Meanings that read as numbers; the rest may hold text. */
 export const NUMERIC_MEANINGS: ReadonlySet<ColumnMeaning> = new Set([
@@ -51,6 +63,8 @@ export const NUMERIC_MEANINGS: ReadonlySet<ColumnMeaning> = new Set([
   'sheet-resistance',
   'resistivity',
   'current-level',
+  'magnetic-field',
+  ...HALL_VOLTAGES,
   'reference-junction',
 ]);
 
@@ -71,6 +85,8 @@ export function unitFitsMeaning(meaning: ColumnMeaning, unit: Unit): boolean {
       return unit.kind === 'resistance';
     case 'current-level':
       return unit.kind === 'current';
+    case 'magnetic-field':
+      return unit.kind === 'magnetic-field';
     case 'voltage':
     case 'current':
     case 'sheet-resistance':
@@ -78,7 +94,7 @@ export function unitFitsMeaning(meaning: ColumnMeaning, unit: Unit): boolean {
     case 'time':
       return unit.kind === meaning;
     default:
-      return true;
+      return HALL_VOLTAGES.has(meaning) ? unit.kind === 'voltage' : true;
   }
 }
 
@@ -94,8 +110,9 @@ function defaultUnit(meaning: ColumnMeaning): Unit | null {
     resistivity: 'ohm_cm',
     'current-level': 'A',
     time: 's',
+    'magnetic-field': 'T',
   };
-  const l = label[meaning];
+  const l = HALL_VOLTAGES.has(meaning) ? 'V' : label[meaning];
   return l ? parseUnit(l) : null;
 }
 
@@ -103,7 +120,8 @@ function guessOne(index: number, header: string, unitCell: string | null): Resol
   const parts = splitHeader(header);
   let unit = unitCell ? parseUnit(unitCell.replace(/^[[(]\s*|\s*[)\]]$/g, '')) : parts.unit;
   const name = parts.name;
-  const byName = NAME_RULES.find(([, re]) => re.test(name))?.[0] ?? null;
+  const hall = hallMeaningOf(header);
+  const byName = hall ?? NAME_RULES.find(([, re]) => re.test(name))?.[0] ?? null;
   // A suffix that contradicts the name (`R_A` is van der Pauw's R_A, not amperes) is not a unit.
   if (unit && byName && parts.fromSuffix && !unitFitsMeaning(byName, unit)) unit = null;
   const rtdName = /(rtd|pt100|pt1000|sensor|thermometer)/i.test(name);
@@ -121,7 +139,8 @@ function guessOne(index: number, header: string, unitCell: string | null): Resol
   } else if (byName && !unit) {
     meaning = byName;
     // A bracketed unit Rhotrace does not know stays unknown (never silently kelvin or volts).
-    const unknownUnit = parts.unitText !== null && !parts.fromSuffix;
+    // (`V(+B,+I)` brackets its signs, not a unit.)
+    const unknownUnit = parts.unitText !== null && !parts.fromSuffix && !hall;
     if (!unknownUnit) {
       unit = rtdName && byName === 'temperature' ? parseUnit('ohm') : defaultUnit(byName);
     }
@@ -191,6 +210,9 @@ export function suggestMethod(
   methodHint: string | null,
 ): SweepMethod | null {
   const has = (m: ColumnMeaning) => columns.some((c) => c.meaning === m);
+  // Hall columns decide before a hint: a Hall file often names van der Pauw in its header.
+  const hall = has('magnetic-field') && (has('hall-voltage') || has('hall-voltage-pp'));
+  if (hall && has('temperature')) return 'hall';
   if (methodHint) {
     if (/pauw|vdp/i.test(methodHint)) return 'van-der-pauw';
     if (/bar|bridge|hall ?bar/i.test(methodHint)) return 'bar';

@@ -1,6 +1,6 @@
 /**
  * Units found in sweep file headers: how they are spelled and the factor to the SI-like unit
- * Rhotrace stores (K, V, A, ohm, ohm/sq, ohm cm, s). Temperatures in °C and RTD ohms are not
+ * Rhotrace stores (K, V, A, ohm, ohm/sq, ohm cm, s, T). Temperatures in °C and RTD ohms are not
  * scaled here: they are converted by `@rhotrace/physics`.
  */
 
@@ -12,7 +12,8 @@ export type UnitKind =
   | 'resistance'
   | 'sheet-resistance'
   | 'resistivity'
-  | 'time';
+  | 'time'
+  | 'magnetic-field';
 
 /** A recognised unit: canonical label, kind and the factor to the stored unit. */
 export interface Unit {
@@ -66,6 +67,11 @@ function build(): Map<string, Unit> {
     add([`${p}ohm_cm`, `${p}ohmcm`], { label: `${p}ohm_cm`, kind: 'resistivity', factor: f });
     add([`${p}ohm_m`, `${p}ohmm`], { label: `${p}ohm_m`, kind: 'resistivity', factor: f * 100 });
   }
+  // Field in tesla; gauss converted (1 G = 1e-4 T). Case matters: `T`, `mT`, `G`, `kG`.
+  add(['T', 'tesla'], { label: 'T', kind: 'magnetic-field', factor: 1 });
+  add(['mT'], { label: 'mT', kind: 'magnetic-field', factor: 1e-3 });
+  add(['G', 'gauss', 'Gs'], { label: 'G', kind: 'magnetic-field', factor: 1e-4 });
+  add(['kG', 'kgauss'], { label: 'kG', kind: 'magnetic-field', factor: 0.1 });
   add(['s', 'sec', 'seconds'], { label: 's', kind: 'time', factor: 1 });
   add(['ms'], { label: 'ms', kind: 'time', factor: 1e-3 });
   add(['min'], { label: 'min', kind: 'time', factor: 60 });

@@ -22,6 +22,12 @@ const TOXIC_MATERIALS = new Set(['GaAs']);
             Cryogens freeze skin and displace oxygen; use them only where the room is ventilated.
           </li>
           <li>Probe current heats small samples and can damage thin films; start low.</li>
+          @if (magnet()) {
+            <li>
+              A Hall magnet's field reaches beyond the poles: keep pacemakers and other implants out
+              of the marked zone, loose steel away, and cards, watches and phones outside.
+            </li>
+          }
           @if (toxic()) {
             <li>
               <strong>{{ material() }}</strong> is toxic when broken or abraded; handle fragments as
@@ -67,5 +73,7 @@ const TOXIC_MATERIALS = new Set(['GaAs']);
 export class Caution {
   /** Material being handled, when known (adds its own hazard). */
   readonly material = input<string | null | undefined>(null);
+  /** True where the work uses a Hall magnet (adds the strong-field cautions). */
+  readonly magnet = input(false);
   protected readonly toxic = computed(() => TOXIC_MATERIALS.has(this.material() ?? ''));
 }

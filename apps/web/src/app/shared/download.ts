@@ -8,7 +8,15 @@ export class Downloader {
   private readonly http = inject(HttpClient);
 
   async save(url: string, filename: string): Promise<void> {
-    const blob = await firstValueFrom(this.http.get(url, { responseType: 'blob' }));
+    this.saveBlob(await firstValueFrom(this.http.get(url, { responseType: 'blob' })), filename);
+  }
+
+  /** Saves text made in the browser (a CSV export) as a file. */
+  saveText(text: string, filename: string, type = 'text/csv'): void {
+    this.saveBlob(new Blob([text], { type }), filename);
+  }
+
+  private saveBlob(blob: Blob, filename: string): void {
     const href = URL.createObjectURL(blob);
     const a = document.createElement('a');
     a.href = href;
@@ -18,4 +26,9 @@ export class Downloader {
     a.remove();
     setTimeout(() => URL.revokeObjectURL(href), 10_000);
   }
+}
+
+/** A record's name made safe for a file name (anything but letters, digits, '.', '-' becomes '_'). */
+export function safeName(name: string): string {
+  return name.replace(/[^\w.-]+/g, '_');
 }

@@ -5,6 +5,7 @@
 import type { SweepMethod } from '@rhotrace/api-types';
 import { BAR } from './bar';
 import { FOUR_POINT } from './four-point';
+import { HALL } from './hall';
 import type { PointMethod } from './point-method';
 import { RESISTIVITY } from './resistivity';
 import { SHEET_RESISTANCE } from './sheet-resistance';
@@ -16,6 +17,7 @@ export const POINT_METHODS: Readonly<Record<SweepMethod, PointMethod>> = {
   'van-der-pauw': VAN_DER_PAUW,
   resistivity: RESISTIVITY,
   'sheet-resistance': SHEET_RESISTANCE,
+  hall: HALL,
 };
 
-export type { PointInput, PointMethod, PointValues } from './point-method';
+export type { MethodSettings, PointInput, PointMethod, PointValues } from './point-method';

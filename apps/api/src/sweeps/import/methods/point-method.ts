@@ -2,7 +2,12 @@
  * What a measurement method brings to the import: the columns it needs and how a row's values
  * become sheet resistance and resistivity. One file per method, listed in `index.ts`.
  */
-import type { ColumnMeaning, SweepGeometry, SweepGeometryInput } from '@rhotrace/api-types';
+import type {
+  ColumnMeaning,
+  PointQuantities,
+  SweepGeometry,
+  SweepGeometryInput,
+} from '@rhotrace/api-types';
 
 /** The values a point is computed from: one reading's, or a forward/reverse pair's means. */
 export interface PointInput {
@@ -12,12 +17,24 @@ export interface PointInput {
   resistanceBOhm: number | null;
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number | null;
+  /** Hall sweeps (see `Reading`). */
+  magneticFieldT?: number | null;
+  hallVoltageV?: number | null;
+  hallReversalsV?: { pp: number; pn: number; np: number; nn: number } | null;
 }
 
 /** What a method computes for a point. */
 export interface PointValues {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
+  /** Quantities beyond resistivity (Hall). */
+  quantities?: PointQuantities;
+}
+
+/** Settings of an upload that are not geometry. */
+export interface MethodSettings {
+  /** Hall scattering factor r_H the carrier densities are computed with (default 1). */
+  hallFactor: number;
 }
 
 /** One measurement method's entry in the import's table. */
@@ -33,11 +50,13 @@ export interface PointMethod {
   requiredCells: ColumnMeaning[];
   /** Geometry the method needs (a 400 when unknown) and uses when it is known. */
   geometry: { needs: Array<keyof SweepGeometryInput>; uses: Array<keyof SweepGeometryInput> };
+  /** Further checks of the mapped columns, as problems in words (none by default). */
+  columnProblems?(has: ReadonlySet<ColumnMeaning>, constantCurrentA: number | undefined): string[];
   /**
    * Makes the converter for one sweep's geometry (once per import; it is called per point).
    * It throws the physics library's `PhysicsInputError` for values it cannot use.
    */
-  converter(geometry: SweepGeometry): (input: PointInput) => PointValues;
+  converter(geometry: SweepGeometry, settings: MethodSettings): (input: PointInput) => PointValues;
 }
 
 /** True when a point has V and I; without them the file gives V/I as a resistance column. */

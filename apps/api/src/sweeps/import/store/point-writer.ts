@@ -8,8 +8,8 @@ import { requireAffected } from '../../../db/transient-errors';
 
 const INSERT_POINTS =
   'INSERT INTO sweep_points (sweep_id, sequence, source_row, temperature_k, current_a, voltage_v, ' +
-  'resistance_ohm, sheet_resistance_ohm_sq, resistivity_ohm_cm, raw, flags) ' +
-  'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)';
+  'resistance_ohm, sheet_resistance_ohm_sq, resistivity_ohm_cm, raw, flags, quantities) ' +
+  'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)';
 
 /** The driver connection Sequelize holds for a transaction. */
 interface BatchConnection {
@@ -35,10 +35,11 @@ export const POINT_CHUNK = 10_000;
 export const POINT_CHUNK_BYTES = 3 * 1024 * 1024;
 
 /**
- * Bytes a row takes besides its raw text and flags in the bulk protocol, at most: eleven null
- * marks, three 4-byte integers, six 8-byte doubles and two length prefixes (up to 9 bytes each).
+ * Bytes a row takes besides its raw text, flags and quantities in the bulk protocol, at most:
+ * twelve null marks, three 4-byte integers, six 8-byte doubles and three length prefixes (up to
+ * 9 bytes each).
  */
-const ROW_OVERHEAD_BYTES = 11 + 3 * 4 + 6 * 8 + 2 * 9;
+const ROW_OVERHEAD_BYTES = 12 + 3 * 4 + 6 * 8 + 3 * 9;
 
 /** Batches one writer keeps on the connection before it waits for the oldest to finish. */
 export const POINT_BATCHES_IN_FLIGHT = 2;
@@ -77,8 +78,9 @@ export class PointWriter {
         const p = points[start]!;
         const raw = this.rawOf(p);
         const flags = p.flags.length === 0 ? '' : p.flags.join(',');
+        const quantities = p.quantities ? JSON.stringify(p.quantities) : null;
         // UTF-8 takes at most 3 bytes per UTF-16 unit: a bound, not an estimate.
-        bytes += 3 * raw.length + flags.length + ROW_OVERHEAD_BYTES;
+        bytes += 3 * raw.length + flags.length + (quantities?.length ?? 0) + ROW_OVERHEAD_BYTES;
         if (bytes > POINT_CHUNK_BYTES && rows.length > 0) break;
         this.written += 1;
         rows.push([
@@ -93,6 +95,7 @@ export class PointWriter {
           p.resistivityOhmCm,
           raw,
           flags,
+          quantities,
         ]);
       }
       this.send(rows);

@@ -9,6 +9,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { filter, interval, map, switchMap } from 'rxjs';
 import { Icon } from '../../shared/icon';
+import { PlotlyLoader } from '../../shared/plot/plotly-loader';
 import { AuthApi } from '../auth/auth-api';
 import { Session } from '../auth/session';
 import { navFor } from './nav-items';
@@ -58,6 +59,11 @@ export class Shell {
   });
 
   constructor() {
+    // Roles whose pages plot (studies, lots, comparisons) get plotly in the first idle moment
+    // after sign-in, so their first plot does not wait for the chunk.
+    if (this.session.can('fits:run') || this.session.can('records:see-all')) {
+      inject(PlotlyLoader).preloadWhenIdle();
+    }
     const auth = inject(AuthApi);
     // Renew the token a few minutes before it runs out, while the app is open.
     interval(60_000)
@@ -67,6 +73,11 @@ export class Shell {
         takeUntilDestroyed(inject(DestroyRef)),
       )
       .subscribe({ next: (response) => this.session.start(response), error: () => undefined });
+  }
+
+  /** Opens the search page for what was typed in the bar. */
+  protected find(q: string): void {
+    void this.router.navigate(['/search'], { queryParams: { q: q.trim() } });
   }
 
   protected signOut(): void {

@@ -1,5 +1,16 @@
 /** Every word the study page and the desks show for fits, regimes and parameters. */
-import type { FitInterpretation, FitKind, FitRequest, RegimeName } from '@rhotrace/api-types';
+import type {
+  FitInterpretation,
+  FitRequest,
+  HallScattering,
+  RegimeName,
+} from '@rhotrace/api-types';
+import { SEMICONDUCTOR_NAMES } from '@rhotrace/physics';
+
+/** Materials in running text ("silicon"). */
+const MATERIAL_WORDS: Readonly<Record<string, string>> = Object.fromEntries(
+  Object.entries(SEMICONDUCTOR_NAMES).map(([id, name]) => [id, name.toLowerCase()]),
+);
 
 /** A parameter a full-model fit may free. */
 export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][number];
@@ -10,28 +21,17 @@ export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][numbe
  */
 export type CompensationChoice = 'inferred' | 'compensated' | 'uncompensated';
 
-/** Words and units for the parameters fits report. */
-export const PARAMETER_WORDS: Readonly<Record<string, string>> = {
-  activationEnergyEv: 'Activation energy (eV)',
-  intercept: 'Intercept (ln)',
-  impliedEv: 'Implied level or gap (eV)',
-  donorDensity: 'Donor density (cm⁻³)',
-  acceptorDensity: 'Acceptor density (cm⁻³)',
-  donorLevel: 'Donor ionization energy (eV)',
-  acceptorLevel: 'Acceptor ionization energy (eV)',
-  mobilityScale: 'Mobility scale',
-  referenceResistivityOhmCm: 'ρ at reference (Ω·cm)',
-  alphaPerK: 'Temperature coefficient (1/K)',
-  residualOhmCm: 'Residual resistivity (Ω·cm)',
-  couplingOhmCm: 'Phonon coupling (Ω·cm)',
-  debyeK: 'Debye temperature (K)',
-};
+/** Parameter and kind words are shared with the printed reports. */
+export { KIND_WORDS, PARAMETER_WORDS } from '@rhotrace/api-types';
 
-export const KIND_WORDS: Readonly<Record<FitKind, string>> = {
-  arrhenius: 'Arrhenius window',
-  model: 'Full model',
-  tcr: 'Linear TCR',
-  'bloch-gruneisen': 'Bloch–Grüneisen',
+/** A fit's name in a plot legend (the window and which fit follow it). */
+export const FIT_TRACE_WORDS: Readonly<Record<string, string>> = {
+  arrhenius: 'Arrhenius fit',
+  model: 'Full-model fit',
+  tcr: 'Linear TCR fit',
+  'bloch-gruneisen': 'Bloch–Grüneisen fit',
+  'carrier-density': 'Carrier-density fit',
+  'hall-mobility': 'Hall-mobility fit',
 };
 
 export const FREE_WORDS: Readonly<Record<FreeParameter, string>> = {
@@ -92,4 +92,36 @@ export const PREFACTOR_CHOICES: ReadonlyArray<{ value: number; words: string }> 
 /** Words for a parameter, a kind or a regime not in the maps: the key itself. */
 export function wordsFor(map: Readonly<Record<string, string>>, key: string): string {
   return map[key] ?? key;
+}
+
+/** The scattering mechanism a Hall-mobility exponent suggests. */
+export const SCATTERING_WORDS: Readonly<Record<HallScattering, string>> = {
+  'acoustic-phonon': 'acoustic phonons',
+  'acoustic-and-optical-phonon': 'acoustic and optical phonons (lattice)',
+  'ionized-impurity': 'ionized impurities',
+  mixed: 'a mixture of lattice and impurity scattering',
+};
+
+const PARAMETER_SET_WORDS: Readonly<Record<string, string>> = {
+  arrhenius: 'Arrhenius line',
+  'linear-tcr': 'linear temperature coefficient',
+  'bloch-gruneisen': 'Bloch–Grüneisen',
+};
+
+/**
+ * A stored model version (`physics@0.1.0+Si:si-scaled-t15`) in words: "Model: silicon,
+ * Rhotrace physics 0.1". The version string stays in the stored fit and its exports.
+ */
+export function modelVersionWords(version: string): string {
+  const match = /^physics@(\d+)\.(\d+)[^+]*\+(.*)$/.exec(version);
+  if (!match) return `Model: ${version}`;
+  const [, major, minor, set = ''] = match;
+  const material = set.includes(':') ? set.slice(0, set.indexOf(':')) : null;
+  const metal = /^metal-(.+)-bg$/.exec(set)?.[1];
+  const what = material
+    ? (MATERIAL_WORDS[material] ?? material)
+    : metal
+      ? `${metal} reference`
+      : (PARAMETER_SET_WORDS[set] ?? set);
+  return `Model: ${what}, Rhotrace physics ${major}.${minor}`;
 }

@@ -2,23 +2,23 @@ import { Injectable, computed, effect, inject, signal, untracked } from '@angula
 import { rxResource, takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { type DopingInput, type FitRequest, METAL_FILMS } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
-import { ReplaySubject, Subject, catchError, exhaustMap, filter, map, of, switchMap } from 'rxjs';
-import { ApiError } from '../../core/http/api-error';
-import { LotsApi } from '../lots/lots-api';
-import { WafersApi } from '../wafers/wafers-api';
+import { ReplaySubject, Subject, filter, switchMap } from 'rxjs';
 import { AnalysisApi } from './analysis-api';
 import type { CompensationChoice, FreeParameter } from './analysis-labels';
 import {
   EMPTY_SLOT,
   type FitJob,
   type FitSlot,
+  type ShownFit,
   type SlotState,
+  exclusiveSaves,
   isSaved,
   queuedFits,
 } from './fit-queue';
-import { scaleToMeasured, startingDoping } from './sweep-study/initial-doping';
+import { startingPointResource } from './sweep-study/starting-point';
 import { type CurveState, modelCurveStream } from './sweep-study/model-curve-stream';
-import { type TemperatureUnit, plotRangeK } from './sweep-study/study-plots';
+import { type TemperatureUnit, TemperatureUnitSetting } from '../../shared/temperature-unit';
+import { plotRangeK } from './sweep-study/study-plots';
 
 /** Options of the Arrhenius window fit. */
 export interface ArrheniusOptions {
@@ -36,8 +36,7 @@ export interface ArrheniusOptions {
 @Injectable()
 export class AnalysisStore {
   private readonly api = inject(AnalysisApi);
-  private readonly lots = inject(LotsApi);
-  private readonly wafers = inject(WafersApi);
+  private readonly unitSetting = inject(TemperatureUnitSetting);
 
   readonly sweepId = signal<number | null>(null);
   /** The ramp leg studied: null for the API's default (the first leg with 5 steps). */
@@ -53,18 +52,6 @@ export class AnalysisStore {
     params: () => this.sweepId() ?? undefined,
     stream: ({ params }) => this.api.fits(params),
   });
-  private readonly materials = rxResource({
-    stream: () => this.api.materials().pipe(catchError(() => of(null))),
-  });
-  private readonly lot = rxResource({
-    params: () => this.analysis.value()?.sweep.lotId,
-    stream: ({ params }) => this.lots.get(params),
-  });
-  private readonly dopant = rxResource({
-    params: () => this.analysis.value()?.sweep.waferId,
-    stream: ({ params }) => this.wafers.dopant(params).pipe(catchError(() => of(null))),
-  });
-
   readonly isMetal = computed(() =>
     (METAL_FILMS as readonly string[]).includes(this.analysis.value()?.sweep.material ?? ''),
   );
@@ -74,34 +61,12 @@ export class AnalysisStore {
     return plotRangeK(s?.minTemperatureK ?? null, s?.maxTemperatureK ?? null);
   });
   /** Where the model starts, and why (semiconductors only). */
-  readonly start = rxResource({
-    params: () => {
-      const a = this.analysis.value();
-      const waiting = this.lot.isLoading() || this.dopant.isLoading() || this.materials.isLoading();
-      if (!a || this.isMetal() || waiting) return undefined;
-      const material = this.materials
-        .value()
-        ?.semiconductors.find((m) => m.id === a.sweep.material);
-      return { a, lot: this.lot.value(), material, dopant: this.dopant.value() };
-    },
-    stream: ({ params: { a, lot, material, dopant } }) => {
-      const base = startingDoping(lot, material, dopant);
-      const rho23 = a.spec.resistivityAt23COhmCm ?? dopant?.resistivityAt23COhmCm ?? null;
-      if (base.basis !== 'fallback' || rho23 === null || rho23 <= 0 || !material) return of(base);
-      const atK = PHYSICS_DEFAULTS.astmF723TemperatureK;
-      const modelAt23 = (doping: DopingInput) =>
-        this.api
-          .modelCurve({ material: a.sweep.material, doping, fromK: atK, toK: atK + 0.5, steps: 2 })
-          .pipe(map((c) => c.points[0]?.resistivityOhmCm ?? null));
-      return scaleToMeasured(base, rho23, modelAt23, (d) =>
-        startingDoping(lot, material, dopant, d),
-      );
-    },
-  });
+  readonly start = startingPointResource(this.analysis.value, this.isMetal);
   readonly initial = computed<DopingInput | null>(() => this.start.value()?.doping ?? null);
 
   // The model curve, redrawn as parameters are typed.
-  readonly unit = signal<TemperatureUnit>('K');
+  /** The unit of every temperature the page shows or takes (the user's setting). */
+  readonly unit = this.unitSetting.unit;
   readonly doping = signal<DopingInput | null>(null);
   readonly curveState = signal<CurveState>({ curve: null, problem: null, loading: false });
   private readonly doping$ = new ReplaySubject<DopingInput | null>(1);
@@ -115,12 +80,25 @@ export class AnalysisStore {
   readonly includeFlagged = signal(false);
   readonly window = signal<{ minK: number; maxK: number } | null>(null);
   readonly slots = { window: signal<SlotState>(EMPTY_SLOT), model: signal<SlotState>(EMPTY_SLOT) };
-  readonly saving = signal(false);
+  /** The slot whose fit is being saved, null when none is. */
+  readonly savingSlot = signal<FitSlot | null>(null);
+  readonly saving = computed(() => this.savingSlot() !== null);
+  /** When the save on its way was asked for (`Date.now()`), null when none is. */
+  readonly savingStartedAt = signal<number | null>(null);
+  private readonly cancels$ = new Subject<FitSlot>();
   /** Saved fits chosen for side-by-side comparison. */
   readonly compared = signal<number[]>([]);
   readonly comparedFits = computed(() =>
     (this.fits.value() ?? []).filter((f) => this.compared().includes(f.id)),
   );
+  /** The fits drawn on the ρ(T) plot: the two panels' fits, then the saved ones compared. */
+  readonly drawnFits = computed<ShownFit[]>(() => {
+    const shown = [this.slots.window().fit, this.slots.model().fit].filter(
+      (f): f is ShownFit => f !== null,
+    );
+    const ids = new Set(shown.filter(isSaved).map((f) => f.id));
+    return [...shown, ...this.comparedFits().filter((f) => !ids.has(f.id))];
+  });
   private readonly previews$ = new Subject<FitJob<FitSlot>>();
   private readonly keeps$ = new Subject<FitSlot>();
 
@@ -147,39 +125,37 @@ export class AnalysisStore {
     });
     this.previews$
       .pipe(
-        queuedFits<FitSlot>((body) => this.api.previewFit(this.requireSweepId(), body)),
+        queuedFits<FitSlot>(
+          (body) => this.api.previewFit(this.requireSweepId(), body),
+          this.cancels$,
+        ),
         takeUntilDestroyed(),
       )
       .subscribe(({ slot, body, fit, problem, current }) => {
         // An answer to a request since discarded or replaced is not shown.
         if (!current || this.slots[slot]().request !== body) return;
-        this.slots[slot].update((s) => ({ ...s, fit, problem, busy: false }));
+        this.slots[slot].update((s) => ({ ...s, fit, problem, busy: false, startedAt: null }));
         // The API clips a window reaching past the data; shade and type what was fitted.
         if (slot === 'window' && fit?.windowMinK != null && fit.windowMaxK != null)
           this.window.set({ minK: fit.windowMinK, maxK: fit.windowMaxK });
       });
     this.keeps$
       .pipe(
-        exhaustMap((slot) => {
-          const { request, busy } = this.slots[slot]();
-          if (!request || busy) return of(null);
-          this.saving.set(true);
-          return this.api.createFit(this.requireSweepId(), request).pipe(
-            map((fit) => ({ slot, request, fit, problem: null })),
-            catchError((err: unknown) =>
-              of({
-                slot,
-                request,
-                fit: null,
-                problem: problemOf(err, 'The fit could not be saved.'),
-              }),
-            ),
-          );
-        }),
+        exclusiveSaves<FitSlot>(
+          (slot) => {
+            const { request, busy } = this.slots[slot]();
+            if (!request || busy) return null;
+            this.savingSlot.set(slot);
+            this.savingStartedAt.set(Date.now());
+            return request;
+          },
+          (body) => this.api.createFit(this.requireSweepId(), body),
+          this.cancels$,
+        ),
         takeUntilDestroyed(),
       )
       .subscribe((answer) => {
-        this.saving.set(false);
+        this.endSaving();
         if (!answer) return;
         if (answer.fit) this.fits.reload();
         // The slot shows the saved fit unless another preview has replaced the one kept.
@@ -199,6 +175,11 @@ export class AnalysisStore {
     this.compared.set([]);
     this.slots.window.set(EMPTY_SLOT);
     this.slots.model.set(EMPTY_SLOT);
+  }
+
+  /** Shows and takes every temperature in `unit` (remembered for the user). */
+  setUnit(unit: TemperatureUnit): void {
+    this.unitSetting.set(unit);
   }
 
   setDoping(doping: DopingInput | null): void {
@@ -253,6 +234,27 @@ export class AnalysisStore {
     this.keeps$.next(slot);
   }
 
+  /**
+   * Stops the slot's fit or save on its way: the request is aborted (the API stores nothing for
+   * an aborted save) and no answer to it is shown. A preview shown before stays only when the
+   * cancelled work was saving it.
+   */
+  cancel(slot: FitSlot): void {
+    const saving = this.savingSlot() === slot;
+    if (!this.slots[slot]().busy && !saving) return;
+    this.cancels$.next(slot);
+    if (saving) {
+      this.endSaving();
+      this.slots[slot].update((s) => ({
+        ...s,
+        problem: 'Saving was cancelled: nothing was stored.',
+      }));
+    } else {
+      this.slots[slot].set({ ...EMPTY_SLOT, problem: 'The fit was cancelled.' });
+      if (slot === 'window') this.window.set(null);
+    }
+  }
+
   /** Forgets a slot's preview (a saved fit is deleted from the saved list instead). */
   discard(slot: FitSlot): void {
     this.slots[slot].set(EMPTY_SLOT);
@@ -289,8 +291,19 @@ export class AnalysisStore {
     // fits read the leg studied (the API's default leg when none was picked)
     const leg = this.leg();
     const body: FitRequest = leg === null ? flagged : { ...flagged, leg };
-    this.slots[slot].update((s) => ({ ...s, request: body, problem: null, busy: true }));
+    this.slots[slot].update((s) => ({
+      ...s,
+      request: body,
+      problem: null,
+      busy: true,
+      startedAt: Date.now(),
+    }));
     this.previews$.next({ slot, body });
+  }
+
+  private endSaving(): void {
+    this.savingSlot.set(null);
+    this.savingStartedAt.set(null);
   }
 
   private requireSweepId(): number {
@@ -298,8 +311,4 @@ export class AnalysisStore {
     if (id === null) throw new Error('AnalysisStore: load a sweep first');
     return id;
   }
-}
-
-function problemOf(err: unknown, fallback: string): string {
-  return err instanceof ApiError ? err.message : fallback;
 }

@@ -74,4 +74,32 @@ describe('queuedFits', () => {
     expect(answers[0]).toMatchObject({ fit: null, problem: 'The window holds 2 points' });
     expect(runs).toBe(2);
   });
+
+  it('on cancel, aborts the running request of that slot, drops its waiting one and answers neither', () => {
+    const calls: Array<{ body: FitRequest; answer: Subject<FitPreviewDto> }> = [];
+    const jobs = new Subject<FitJob<'window' | 'model'>>();
+    const cancel = new Subject<'window' | 'model'>();
+    const answers: Array<FitAnswer<'window' | 'model'>> = [];
+    jobs
+      .pipe(
+        queuedFits<'window' | 'model'>((body) => {
+          const answer = new Subject<FitPreviewDto>();
+          calls.push({ body, answer });
+          return answer;
+        }, cancel),
+      )
+      .subscribe((a) => answers.push(a));
+    jobs.next({ slot: 'model', body: { kind: 'bloch-gruneisen' } });
+    jobs.next({ slot: 'model', body: { kind: 'tcr' } });
+    jobs.next({ slot: 'window', body: windowFit(300, 400) });
+    expect(calls[0]!.answer.observed).toBe(true);
+    cancel.next('model');
+    // Unsubscribed: HttpClient aborts the request it stands for.
+    expect(calls[0]!.answer.observed).toBe(false);
+    // The waiting model job is dropped; the window job runs.
+    expect(calls.map((c) => c.body.kind)).toEqual(['bloch-gruneisen', 'arrhenius']);
+    calls[1]!.answer.next(previewOf(calls[1]!.body));
+    calls[1]!.answer.complete();
+    expect(answers.map((a) => a.slot)).toEqual(['window']);
+  });
 });

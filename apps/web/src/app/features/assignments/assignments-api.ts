@@ -5,6 +5,7 @@ import type {
   AssignmentDto,
   CreateAssignmentRequest,
   Page,
+  StationDto,
   UpdateAssignmentRequest,
   WaferDto,
 } from '@rhotrace/api-types';
@@ -33,6 +34,15 @@ export class AssignmentsApi {
     return this.http
       .get<{ items: AssigneeDto[] }>('/api/users/assignees')
       .pipe(map((b) => b.items));
+  }
+
+  /** Probe stations an assignment may name (its station token may then post the sweep). */
+  stations(): Observable<StationDto[]> {
+    return this.http
+      .get<Page<StationDto>>('/api/stations', {
+        params: listParams({ pageSize: 200, sort: 'name' }),
+      })
+      .pipe(map((p) => p.items));
   }
 
   wafers(q: string): Observable<WaferDto[]> {

@@ -6,6 +6,7 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { DEFAULT_PAGE_SIZE } from '@rhotrace/api-types';
+import { ChangeList } from '../../shared/record-history/change-list';
 import { AuditApi } from './audit-api';
 
 const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit'] as const;
@@ -19,6 +20,7 @@ const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit
     MatSelectModule,
     MatFormFieldModule,
     MatInputModule,
+    ChangeList,
   ],
   template: `
     <div class="rt-page">
@@ -46,29 +48,13 @@ const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit
           <ng-container matColumnDef="when"
             ><th mat-header-cell *matHeaderCellDef>When</th>
             <td mat-cell *matCellDef="let e">
-              {{ e.createdAt.slice(0, 19).replace('T', ' ') }}
-            </td></ng-container
-          >
-          <ng-container matColumnDef="who"
-            ><th mat-header-cell *matHeaderCellDef>Who</th>
-            <td mat-cell *matCellDef="let e">{{ e.actorEmail ?? 'system' }}</td></ng-container
-          >
-          <ng-container matColumnDef="what"
-            ><th mat-header-cell *matHeaderCellDef>What</th>
-            <td mat-cell *matCellDef="let e">
-              {{ e.action }} {{ e.entity }} #{{ e.entityId }}
+              {{ e.createdAt.slice(0, 16).replace('T', ' ') }} UTC
             </td></ng-container
           >
           <ng-container matColumnDef="change"
-            ><th mat-header-cell *matHeaderCellDef>Change</th>
-            <td mat-cell *matCellDef="let e">
-              <details>
-                <summary>before / after</summary>
-                <pre>{{ show(e.before) }}</pre>
-                <pre>{{ show(e.after) }}</pre>
-              </details>
-            </td></ng-container
-          >
+            ><th mat-header-cell *matHeaderCellDef>Who changed what</th>
+            <td mat-cell *matCellDef="let e"><rt-change-list [event]="e" /></td
+          ></ng-container>
           <tr mat-header-row *matHeaderRowDef="columns"></tr>
           <tr mat-row *matRowDef="let row; columns: columns"></tr>
         </table>
@@ -87,20 +73,13 @@ const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit
     table {
       width: 100%;
     }
-    pre {
-      white-space: pre-wrap;
-      word-break: break-word;
-      font-size: 12px;
-      max-width: 560px;
-      margin: 4px 0;
-    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ChangeTrail {
   private readonly api = inject(AuditApi);
   protected readonly entities = ENTITIES;
-  protected readonly columns = ['when', 'who', 'what', 'change'];
+  protected readonly columns = ['when', 'change'];
   protected readonly entity = signal('');
   protected readonly recordId = signal('');
   protected readonly pageIndex = signal(0);
@@ -118,9 +97,5 @@ export class ChangeTrail {
   protected setPage(e: PageEvent): void {
     this.pageIndex.set(e.pageIndex);
     this.pageSize.set(e.pageSize);
-  }
-
-  protected show(value: unknown): string {
-    return value === null || value === undefined ? '—' : JSON.stringify(value, null, 1);
   }
 }

@@ -71,7 +71,7 @@ import { CompareApi } from './compare-api';
               [checked]="chosen().includes(c.sweep.id)"
               (change)="toggle(c.sweep.id, $event.checked)"
             >
-              {{ c.lotCode }} · W{{ c.wafer.number }} · {{ c.sweep.originalName }}
+              {{ c.lotCode }} · Wafer {{ c.wafer.number }} · {{ c.sweep.originalName }}
             </mat-checkbox>
           }
         </fieldset>

@@ -22,7 +22,7 @@ import { HomeApi } from './home-api';
       @for (o of outOfSpec.value() ?? []; track o.wafer.waferId) {
         <li class="card overdue">
           <a class="title" [routerLink]="['/wafers', o.wafer.waferId]"
-            >Lot {{ o.lot.code }} · W{{ o.wafer.number }}</a
+            >Lot {{ o.lot.code }} · Wafer {{ o.wafer.number }}</a
           >
           <span
             >ρ at 23 °C {{ o.wafer.resistivityAt23COhmCm | value }} Ω·cm; spec
@@ -42,7 +42,7 @@ import { HomeApi } from './home-api';
       @for (s of recent.value() ?? []; track s.id) {
         <li class="card">
           <a class="title" [routerLink]="['/wafers', s.waferId]"
-            >Lot {{ s.lotCode }} · W{{ s.waferNumber }}</a
+            >Lot {{ s.lotCode }} · Wafer {{ s.waferNumber }}</a
           >
           <span>{{ s.originalName }} · {{ s.pointCount }} points</span>
           <span class="rt-muted"
@@ -52,6 +52,7 @@ import { HomeApi } from './home-api';
         </li>
       }
     </ul>
+    <a routerLink="/search" [queryParams]="{ kind: 'sweeps' }">Every upload</a>
   `,
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

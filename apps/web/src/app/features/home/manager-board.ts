@@ -35,7 +35,7 @@ import { HomeApi } from './home-api';
         @for (a of group.items.slice(0, 6); track a.id) {
           <li class="card" [class.overdue]="a.overdue">
             <a class="title" [routerLink]="['/wafers', a.waferId]"
-              >Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a
+              >Lot {{ a.lotCode }} · Wafer {{ a.waferNumber }}</a
             >
             <span>{{ a.task }} — {{ a.assigneeName }}</span>
             <span class="due">Due {{ day(a.dueDate) }}</span>

@@ -59,7 +59,7 @@ describe('PhysicistDesk', () => {
     http.verify();
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Arrhenius window · Lot LV-26-P021 · W01');
+    expect(text).toContain('Arrhenius window · Lot LV-26-P021 · Wafer 01');
     expect(text).toContain('Activation energy (eV): 0.5729 ± 0.0029');
     expect(text).toContain('81 points');
 

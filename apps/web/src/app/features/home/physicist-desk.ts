@@ -30,7 +30,7 @@ import { HomeApi } from './home-api';
       @for (f of fits.value() ?? []; track f.id) {
         <li class="card">
           <a class="title" [routerLink]="['/sweeps', f.sweepId]"
-            >{{ kind(f) }} · Lot {{ f.lotCode }} · W{{ f.waferNumber }}</a
+            >{{ kind(f) }} · Lot {{ f.lotCode }} · Wafer {{ f.waferNumber }}</a
           >
           <span
             >{{ headline(f) }}
@@ -56,12 +56,13 @@ import { HomeApi } from './home-api';
         <li class="card">
           <a class="title" [routerLink]="['/sweeps', s.id]">{{ s.originalName }}</a>
           <span
-            >Lot {{ s.lotCode }} · W{{ s.waferNumber }} · {{ s.pointCount }} points ·
+            >Lot {{ s.lotCode }} · Wafer {{ s.waferNumber }} · {{ s.pointCount }} points ·
             {{ day(s.createdAt) }}</span
           >
         </li>
       }
     </ul>
+    <a routerLink="/search" [queryParams]="{ kind: 'sweeps' }">Every sweep</a>
   `,
   styleUrl: './home.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -7,11 +7,12 @@ import type { AssignmentDto } from '@rhotrace/api-types';
 import { Caution } from '../../shared/caution';
 import { formatDay, todayLocal } from '../../shared/format';
 import { HomeApi } from './home-api';
+import { PlanView } from '../planner/plan-view/plan-view';
 
 /** A technician's queue: open assignments, soonest due first. */
 @Component({
   selector: 'rt-technician-queue',
-  imports: [RouterLink, MatButtonModule, MatProgressBarModule, Caution],
+  imports: [RouterLink, MatButtonModule, MatProgressBarModule, Caution, PlanView],
   template: `
     <h2 class="rt-section-title">Your queue</h2>
     @if (queue.isLoading()) {
@@ -24,7 +25,7 @@ import { HomeApi } from './home-api';
       @for (a of open(); track a.id) {
         <li class="card" [class.overdue]="a.overdue">
           <a class="title" [routerLink]="['/wafers', a.waferId]"
-            >Lot {{ a.lotCode }} · W{{ a.waferNumber }}</a
+            >Lot {{ a.lotCode }} · Wafer {{ a.waferNumber }}</a
           >
           <span>{{ a.task }}</span>
           <span class="due"
@@ -38,6 +39,16 @@ import { HomeApi } from './home-api';
           <span class="chip">{{ a.state }}</span>
           @if (a.notes) {
             <span class="rt-muted">{{ a.notes }}</span>
+          }
+          @if (a.plan; as p) {
+            <details>
+              <summary>Measurement plan: {{ p.plan.steps.length }} steps</summary>
+              <rt-plan-view
+                [plan]="p.plan"
+                [compact]="true"
+                [exportName]="'plan-assignment-' + a.id + '.csv'"
+              />
+            </details>
           }
           <div class="actions">
             <a mat-flat-button [routerLink]="['/wafers', a.waferId]">Open and upload</a>

@@ -48,6 +48,16 @@ export class LotsApi {
     return this.http.post<WaferDto>(`/api/lots/${lotId}/wafers`, body, { context: quietRequest() });
   }
 
+  /** Where the lot summary's CSV export is served. */
+  summaryCsvUrl(lotId: number): string {
+    return `/api/lots/${lotId}/summary.csv`;
+  }
+
+  /** Where the printable lot report (PDF) is served. */
+  reportPdfUrl(lotId: number): string {
+    return `/api/lots/${lotId}/report.pdf`;
+  }
+
   summary(lotId: number): Observable<LotSummaryResponse> {
     return this.http.get<LotSummaryResponse>(`/api/lots/${lotId}/summary`);
   }

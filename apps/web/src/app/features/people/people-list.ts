@@ -1,16 +1,31 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatDialog } from '@angular/material/dialog';
+import { MatSlideToggle, MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
-import { MIN_PASSWORD_LENGTH, ROLES, type Role, type UserDto } from '@rhotrace/api-types';
+import {
+  MIN_PASSWORD_LENGTH,
+  ROLES,
+  type Role,
+  type UpdateUserRequest,
+  type UserDto,
+} from '@rhotrace/api-types';
+import { forkJoin, map, switchMap } from 'rxjs';
+import { Session } from '../../core/auth/session';
 import { fieldError } from '../../shared/field-error';
 import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
+import {
+  DeactivateDialog,
+  type DeactivateAnswer,
+  type DeactivateQuestion,
+} from './deactivate-dialog';
 import { PeopleApi } from './people-api';
 
 /** Accounts and roles (admin). */
@@ -104,14 +119,24 @@ import { PeopleApi } from './people-api';
           <td mat-cell *matCellDef="let u">
             <mat-slide-toggle
               [checked]="u.active"
-              (change)="setActive(u, $event.checked)"
+              [disabled]="u.id === myId() || busyId() === u.id"
+              (change)="setActive(u, $event.checked, $event.source)"
               [aria-label]="'Account of ' + u.name + ' active'"
-            /></td
-        ></ng-container>
+            />
+            @if (u.id === myId()) {
+              <span class="rt-muted own">your own account</span>
+            }
+          </td></ng-container
+        >
         <tr mat-header-row *matHeaderRowDef="columns"></tr>
         <tr mat-row *matRowDef="let row; columns: columns"></tr>
       </table>
     </rt-list-editor>
+  `,
+  styles: `
+    .own {
+      margin-left: 8px;
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -121,6 +146,12 @@ export class PeopleList {
   protected readonly roles = ROLES;
   protected readonly minLength = MIN_PASSWORD_LENGTH;
   protected readonly error = fieldError;
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly signedIn = inject(Session);
+  protected readonly myId = computed(() => this.signedIn.user()?.id ?? null);
+  /** The account whose deactivation question is being prepared. */
+  protected readonly busyId = signal<number | null>(null);
   protected readonly columns = ['name', 'email', 'role', 'active'];
   protected readonly people = rxResource({
     stream: () => this.api.list({ pageSize: 200, sort: 'name' }),
@@ -152,7 +183,69 @@ export class PeopleList {
     this.api.update(u.id, { role }).subscribe(() => this.people.reload());
   }
 
-  protected setActive(u: UserDto, active: boolean): void {
-    this.api.update(u.id, { active }).subscribe(() => this.people.reload());
+  /**
+   * Reactivates at once; deactivation first asks, naming the open tasks and offering to hand
+   * them over in the same request. The switch goes back when the question is declined.
+   */
+  protected setActive(u: UserDto, active: boolean, toggle: MatSlideToggle): void {
+    if (active) {
+      this.save(u, { active: true }, `${u.name} can sign in again.`);
+      return;
+    }
+    this.busyId.set(u.id);
+    forkJoin([this.api.openTasks(u.id), this.api.assignees()])
+      .pipe(
+        switchMap(([openTasks, candidates]) =>
+          this.dialog
+            .open<DeactivateDialog, DeactivateQuestion, DeactivateAnswer>(DeactivateDialog, {
+              data: { person: u, openTasks, candidates },
+              width: '520px',
+            })
+            .afterClosed()
+            .pipe(map((answer) => ({ answer, openTasks, candidates }))),
+        ),
+      )
+      .subscribe({
+        next: ({ answer, openTasks, candidates }) => {
+          this.busyId.set(null);
+          if (!answer) {
+            toggle.checked = true;
+            return;
+          }
+          const to = candidates.find((c) => c.id === answer.reassignTo);
+          const tasks = `${openTasks.length} open ${openTasks.length === 1 ? 'task' : 'tasks'}`;
+          const outcome =
+            openTasks.length === 0
+              ? ''
+              : to
+                ? ` ${tasks} now with ${to.name}.`
+                : ` ${tasks} stay with them.`;
+          this.save(
+            u,
+            { active: false, ...(to ? { reassignTo: to.id } : {}) },
+            `${u.name} is deactivated.${outcome}`,
+            toggle,
+          );
+        },
+        error: () => {
+          this.busyId.set(null);
+          toggle.checked = true;
+          this.snackBar.open(`The open tasks of ${u.name} could not be loaded.`, 'OK');
+        },
+      });
+  }
+
+  private save(u: UserDto, body: UpdateUserRequest, done: string, toggle?: MatSlideToggle): void {
+    this.api.update(u.id, body).subscribe({
+      next: () => {
+        this.snackBar.open(done, 'OK', { duration: 6000 });
+        this.people.reload();
+      },
+      error: (err: { error?: { error?: { message?: string } } }) => {
+        if (toggle) toggle.checked = !toggle.checked;
+        this.snackBar.open(err.error?.error?.message ?? 'The change was not saved.', 'OK');
+        this.people.reload();
+      },
+    });
   }
 }

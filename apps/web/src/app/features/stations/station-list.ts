@@ -15,12 +15,15 @@ import { formatDay } from '../../shared/format';
 import { FormatValuePipe } from '../../shared/format-value';
 import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
+import { StationTokens } from './station-tokens/station-tokens';
 import { StationsApi } from './stations-api';
+import { RecordHistory } from '../../shared/record-history/record-history';
 
 /** Probe stations: list, register, edit. */
 @Component({
   selector: 'rt-station-list',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -29,6 +32,7 @@ import { StationsApi } from './stations-api';
     ReactiveFormsModule,
     FormatValuePipe,
     ListEditor,
+    StationTokens,
   ],
   templateUrl: './station-list.html',
   styles: `

@@ -12,6 +12,11 @@ import {
 } from '@angular/core';
 import type { PlotlyHTMLElement } from 'plotly.js-dist-min';
 import { ThemeMode } from '../../core/layout/theme-mode';
+import { thinningNote } from './decimate';
+import { PLOT_BACKGROUND } from './palette';
+import type { AxisName } from './plot-figure';
+import { prepareFigure, zoomedLogTicks } from './plot-figure';
+import { PNG_SIZE, pngFilename, saveBlob, stampedPng } from './plot-png';
 import { PlotlyLoader } from './plotly-loader';
 
 /** A selection made by dragging a box on the plot: the x range chosen. */
@@ -39,43 +44,39 @@ export function resolvedColour(element: HTMLElement, variable: string, fallback:
   return colour || fallback;
 }
 
-/** A Plotly chart; loads plotly lazily and redraws when its inputs change. */
+let webglAvailable: boolean | null = null;
+/** Whether the browser can draw WebGL traces (checked once). */
+function hasWebgl(doc: Document): boolean {
+  webglAvailable ??= (() => {
+    try {
+      return !!doc.createElement('canvas').getContext('webgl');
+    } catch {
+      return false;
+    }
+  })();
+  return webglAvailable;
+}
+
+/** Resolves after the browser has painted what is on the page (the numbers before the plot). */
+function afterPaint(): Promise<void> {
+  return new Promise((resolve) => {
+    const frame = globalThis.requestAnimationFrame;
+    if (typeof frame === 'function') frame(() => setTimeout(resolve));
+    else setTimeout(resolve);
+  });
+}
+
+/**
+ * A Plotly chart with Rhotrace's own toolbar (save image, reset axes, log or linear y) instead of
+ * plotly's mode bar. Plotly loads lazily; traces longer than 5,000 points are thinned for display
+ * (a note under the plot says how; fits use every point), big ones drawn with WebGL, palette
+ * colours follow the scheme and log axes get whole-value ticks. The page's own content is painted
+ * before the plot is drawn.
+ */
 @Component({
   selector: 'rt-plot',
-  template: `
-    <figure class="figure" [attr.aria-label]="label()">
-      <div #host class="host"></div>
-      @if (!ready()) {
-        <p class="loading">Drawing the plot…</p>
-      }
-      @if (caption()) {
-        <figcaption>{{ caption() }}</figcaption>
-      }
-    </figure>
-  `,
-  styles: `
-    :host {
-      display: block;
-    }
-    .figure {
-      margin: 0;
-      position: relative;
-    }
-    .host {
-      width: 100%;
-      height: var(--rt-plot-height, 380px);
-    }
-    .loading {
-      position: absolute;
-      inset: 40% 0 auto;
-      text-align: center;
-      color: var(--mat-sys-on-surface-variant);
-    }
-    figcaption {
-      font: var(--mat-sys-body-small);
-      color: var(--mat-sys-on-surface-variant);
-    }
-  `,
+  templateUrl: './plot.html',
+  styleUrl: './plot.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class Plot {
@@ -87,37 +88,78 @@ export class Plot {
   readonly layout = input<Record<string, unknown>>({});
   readonly label = input.required<string>();
   readonly caption = input<string>('');
+  /** Title drawn in a saved image; the label when empty. */
+  readonly title = input<string>('');
+  /** The sample named in a saved image (wafer, sweep). */
+  readonly sample = input<string>('');
   /** When true, dragging selects an x range (box select) instead of zooming. */
   readonly selectable = input(false);
   readonly selected = output<PlotSelection>();
 
   protected readonly ready = signal(false);
+  protected readonly note = signal('');
+  /** The y axis type chosen with the toolbar (null: the page's). */
+  protected readonly yType = signal<'log' | 'linear' | null>(null);
+  protected readonly yIsLog = signal(false);
   private listening = false;
+  private logRanges: Partial<Record<AxisName, [number, number]>> = {};
+  private drawn = 0;
 
   constructor() {
     afterRenderEffect(() => {
       const data = this.data();
       const layout = this.layout();
       const selectable = this.selectable();
+      const yType = this.yType();
       // Read so a change of scheme redraws with that scheme's colours.
-      this.theme.dark();
+      const dark = this.theme.dark();
       const element = this.host().nativeElement;
-      void this.draw(element, data, layout, selectable);
+      void this.draw(element, data, layout, selectable, yType, dark);
     });
     inject(DestroyRef).onDestroy(() => {
-      void this.loader.load().then((p) => p.purge(this.host().nativeElement));
+      // Only a plot that asked for plotly has anything to free.
+      if (this.drawn > 0) void this.loader.load().then((p) => p.purge(this.host().nativeElement));
     });
   }
 
-  /** Saves the plot as a PNG file. */
+  /** Switches the y axis between log and linear. */
+  protected toggleLog(): void {
+    this.yType.set(this.yIsLog() ? 'linear' : 'log');
+  }
+
+  /** Back to the full range of the data on both axes. */
+  protected async resetAxes(): Promise<void> {
+    const plotly = await this.loader.load();
+    await plotly.relayout(this.host().nativeElement, {
+      'xaxis.autorange': true,
+      'yaxis.autorange': true,
+    });
+  }
+
+  /** The toolbar's save: a file named after the title. */
+  protected save(): void {
+    void this.downloadPng(pngFilename(this.title() || this.label()));
+  }
+
+  /** Saves the plot as a PNG file with the title, the sample and the date drawn above it. */
   async downloadPng(filename: string): Promise<void> {
     const plotly = await this.loader.load();
-    await plotly.downloadImage(this.host().nativeElement, {
+    const element = this.host().nativeElement;
+    const image = await plotly.toImage(element, {
       format: 'png',
-      filename,
-      width: 1200,
-      height: 700,
+      width: PNG_SIZE.width,
+      height: PNG_SIZE.height,
     });
+    const dark = this.theme.dark();
+    const blob = await stampedPng(
+      image,
+      { title: this.title() || this.label(), sample: this.sample(), date: new Date() },
+      {
+        background: dark ? PLOT_BACKGROUND.dark : PLOT_BACKGROUND.light,
+        text: resolvedColour(element, '--mat-sys-on-surface', dark ? '#e3e2e6' : '#1b1b1f'),
+      },
+    );
+    saveBlob(blob, filename.endsWith('.png') ? filename : `${filename}.png`);
   }
 
   private async draw(
@@ -125,8 +167,23 @@ export class Plot {
     data: unknown[],
     layout: Record<string, unknown>,
     selectable: boolean,
+    yType: 'log' | 'linear' | null,
+    dark: boolean,
   ): Promise<void> {
+    const turn = ++this.drawn;
+    const figure = prepareFigure(data, layout, {
+      dark,
+      webgl: hasWebgl(element.ownerDocument),
+      yType,
+    });
+    this.note.set(thinningNote(figure.thinned));
+    this.logRanges = figure.logRanges;
+    const yAxis = figure.layout['yaxis'] as Record<string, unknown> | undefined;
+    this.yIsLog.set(yAxis?.['type'] === 'log');
     const plotly = await this.loader.load();
+    await afterPaint();
+    // A newer draw (inputs changed meanwhile) supersedes this one.
+    if (turn !== this.drawn) return;
     const text = resolvedColour(element, '--mat-sys-on-surface', '#1b1b1b');
     const grid = resolvedColour(element, '--mat-sys-outline-variant', '#cccccc');
     const axis = { gridcolor: grid, zerolinecolor: grid, linecolor: grid, automargin: true };
@@ -138,20 +195,26 @@ export class Plot {
       legend: { orientation: 'h', y: -0.22 },
       dragmode: selectable ? 'select' : 'zoom',
       selectdirection: 'h',
-      ...layout,
-      xaxis: { ...axis, ...(layout['xaxis'] as object) },
-      yaxis: { ...axis, ...(layout['yaxis'] as object) },
+      ...figure.layout,
+      xaxis: { ...axis, ...(figure.layout['xaxis'] as object) },
+      yaxis: { ...axis, ...(figure.layout['yaxis'] as object) },
     };
-    const config = {
-      responsive: true,
-      displaylogo: false,
-      modeBarButtonsToRemove: ['sendDataToCloud', 'lasso2d'],
-    };
-    const plotted: PlotlyHTMLElement = await plotly.react(element, data, merged, config);
+    // Rhotrace's toolbar replaces plotly's mode bar.
+    const config = { responsive: true, displaylogo: false, displayModeBar: false };
+    const plotted: PlotlyHTMLElement = await plotly.react(element, figure.data, merged, config);
     this.ready.set(true);
     if (!this.listening) {
       this.listening = true;
       plotted.on('plotly_selected', (event) => this.emitSelection(event as PlotlySelectedEvent));
+      plotted.on('plotly_relayout', (event) => {
+        if (typeof event !== 'object' || event === null) return;
+        const update: Record<string, unknown> = {};
+        for (const name of ['xaxis', 'yaxis'] as const) {
+          if (plotted.layout?.[name]?.type !== 'log') continue;
+          Object.assign(update, zoomedLogTicks(event, name, this.logRanges[name]));
+        }
+        if (Object.keys(update).length > 0) void plotly.relayout(plotted, update);
+      });
     }
   }
 

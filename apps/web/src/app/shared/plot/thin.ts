@@ -1,5 +1,11 @@
-/** Most markers a plot draws; longer series are thinned for display (fits use every point). */
-export const MAX_DISPLAY_POINTS = 1500;
+import { MAX_POINTS_PER_TRACE } from './decimate';
+
+/**
+ * Most markers a page asks a plot to draw; longer series are thinned for display (fits use every
+ * point). The plot itself thins any longer trace (see `thinTrace`) and says so under it, so a page
+ * may also pass every point.
+ */
+export const MAX_DISPLAY_POINTS = MAX_POINTS_PER_TRACE;
 
 /**
  * Thins a series for display: the series is cut into MAX_DISPLAY_POINTS / 2 runs in order and

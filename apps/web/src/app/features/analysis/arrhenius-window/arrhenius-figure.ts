@@ -1,8 +1,10 @@
-import type { ArrheniusPoint, FitPreviewDto } from '@rhotrace/api-types';
-import { BOLTZMANN_EV_PER_K } from '@rhotrace/physics';
+import type { ArrheniusPoint } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { thinForDisplay } from '../../../shared/plot/thin';
+import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
 import { QUANTITY_WORDS } from '../analysis-labels';
+import type { ShownFit } from '../fit-queue';
+import { fitTraceName, fittedCurve } from '../fitted-curve';
 import type { Figure } from '../sweep-study/study-plots';
 
 /** Arrhenius plot: ln ρ (or ln σ) against 1000/T, the chosen window shaded, the fit line drawn. */
@@ -10,7 +12,8 @@ export function arrheniusFigure(
   points: ArrheniusPoint[],
   quantity: 'resistivity' | 'conductivity',
   window: { minK: number; maxK: number } | null,
-  fit: FitPreviewDto | null,
+  fit: ShownFit | null,
+  unit: TemperatureUnit = 'K',
 ): Figure {
   const y = (p: ArrheniusPoint) =>
     quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity;
@@ -22,9 +25,9 @@ export function arrheniusFigure(
       name: QUANTITY_WORDS[quantity].legend,
       x: shown.map((p) => p.inverseTemperaturePerKK),
       y: shown.map(y),
-      customdata: shown.map((p) => 1000 / p.inverseTemperaturePerKK),
+      customdata: shown.map((p) => toUnit(1000 / p.inverseTemperaturePerKK, unit)),
       marker: { color: PLOT_ROLES.measured, size: shown.length < points.length ? 4 : 6 },
-      hovertemplate: '1000/T %{x:.3f} 1/K (%{customdata:.1f} K): %{y:.3f}<extra></extra>',
+      hovertemplate: `1000/T %{x:.3f} 1/K (%{customdata:.1f} ${UNIT_SYMBOL[unit]}): %{y:.3f}<extra></extra>`,
     },
   ];
   const shapes: unknown[] = [];
@@ -42,12 +45,12 @@ export function arrheniusFigure(
       layer: 'below',
     });
   }
-  const line = fit ? fitLine(points, quantity, fit) : null;
-  if (line) {
+  const line = fit?.kind === 'arrhenius' ? fitLine(quantity, fit) : null;
+  if (fit && line) {
     data.push({
       type: 'scatter',
       mode: 'lines',
-      name: 'window fit',
+      name: fitTraceName(fit, unit),
       x: line.x,
       y: line.y,
       line: { color: PLOT_ROLES.fit, width: 3 },
@@ -64,38 +67,19 @@ export function arrheniusFigure(
   };
 }
 
-/** The fitted line over the window: through the mean of the window's points with the fit's slope. */
-function fitLine(
-  points: ArrheniusPoint[],
-  quantity: 'resistivity' | 'conductivity',
-  fit: FitPreviewDto,
-): { x: number[]; y: number[] } | null {
-  if (fit.kind !== 'arrhenius' || fit.windowMinK === null || fit.windowMaxK === null) return null;
-  const slope = slopeOf(fit);
-  if (slope === null) return null;
-  const lo = 1000 / fit.windowMaxK;
-  const hi = 1000 / fit.windowMinK;
-  const inside = points.filter(
-    (p) => p.inverseTemperaturePerKK >= lo && p.inverseTemperaturePerKK <= hi,
-  );
-  if (inside.length === 0) return null;
-  const y = (p: ArrheniusPoint) =>
-    quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity;
-  const mx = inside.reduce((s, p) => s + p.inverseTemperaturePerKK, 0) / inside.length;
-  const my = inside.reduce((s, p) => s + y(p), 0) / inside.length;
-  return { x: [lo, hi], y: [my + slope * (lo - mx), my + slope * (hi - mx)] };
-}
-
 /**
- * Slope of ln ρ against 1000/T implied by an Arrhenius fit, for drawing only: an explicit
- * slope parameter when the fit gives one, else ±Ea / (1000 k_B).
+ * The fit's line over its window in the plot's own quantity, from the fit's parameters (the
+ * same evaluation as the ρ(T) plot, `fittedCurve`).
  */
-function slopeOf(fit: FitPreviewDto): number | null {
-  const p = fit.parameters;
-  const explicit = p['slope'] ?? p['slopePerKK'];
-  if (typeof explicit === 'number') return explicit;
-  const ea = p['activationEnergyEv'];
-  if (typeof ea !== 'number') return null;
-  const sign = fit.inputs['quantity'] === 'conductivity' ? -1 : 1;
-  return (sign * ea) / (1000 * BOLTZMANN_EV_PER_K);
+function fitLine(
+  quantity: 'resistivity' | 'conductivity',
+  fit: ShownFit,
+): { x: number[]; y: number[] } | null {
+  const curve = fittedCurve(fit);
+  if (curve.length < 2) return null;
+  const sign = quantity === 'resistivity' ? 1 : -1;
+  return {
+    x: curve.map((p) => 1000 / p.temperatureK),
+    y: curve.map((p) => sign * Math.log(p.resistivityOhmCm)),
+  };
 }

@@ -35,12 +35,12 @@ describe('ArrheniusWindow', () => {
     ]);
     expect(api.creates).toHaveLength(0);
     // The typed bounds follow the drag.
-    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=minK]' }));
+    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=from]' }));
     expect(await from.getValue()).toBe('350');
 
     answer(api.previews[0], previewOf(api.previews[0]!.body));
     await fixture.whenStable();
-    expect(text()).toContain('Arrhenius window 350–400 K (preview)');
+    expect(text()).toContain('Arrhenius window 350.0–400.0 K (preview)');
     expect(text()).toContain('preview, not saved');
 
     const keep = await loader.getHarness(MatButtonHarness.with({ text: 'Keep this fit' }));
@@ -60,7 +60,7 @@ describe('ArrheniusWindow', () => {
     expect(api.previews).toHaveLength(1); // the second drag waits
     answer(api.previews[0], previewOf(api.previews[0]!.body));
     await fixture.whenStable();
-    expect(text()).not.toContain('350–400 K (preview)'); // overtaken: not shown
+    expect(text()).not.toContain('350.0–400.0 K (preview)'); // overtaken: not shown
     expect(api.previews).toHaveLength(2);
     expect(api.previews[1]!.body).toMatchObject({ minK: 384.62, maxK: 416.67 });
     answer(api.previews[1], previewOf(api.previews[1]!.body));
@@ -115,7 +115,7 @@ describe('ArrheniusWindow', () => {
     const body = api.previews[0]!.body;
     answer(api.previews[0], previewOf(body, { windowMinK: 300, windowMaxK: 400 }));
     await fixture.whenStable();
-    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=minK]' }));
+    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=from]' }));
     expect(await from.getValue()).toBe('300');
     expect(api.previews).toHaveLength(1); // showing the clipped window asks for nothing more
   });
@@ -123,12 +123,12 @@ describe('ArrheniusWindow', () => {
   it('previews typed bounds and explains a missing one', async () => {
     const { api, loader, text, fixture } = await mount();
     const preview = await loader.getHarness(MatButtonHarness.with({ text: 'Preview this window' }));
-    const to = await loader.getHarness(MatInputHarness.with({ selector: '[name=maxK]' }));
+    const to = await loader.getHarness(MatInputHarness.with({ selector: '[name=to]' }));
     await to.setValue('420');
     await preview.click();
     expect(text()).toContain('Give both ends of the window');
     expect(api.previews).toHaveLength(0);
-    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=minK]' }));
+    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=from]' }));
     await from.setValue('330');
     await preview.click();
     await fixture.whenStable();
@@ -154,5 +154,28 @@ describe('ArrheniusWindow', () => {
       '[data-testid="window-warning"]',
     );
     expect(note?.textContent).toContain('only 4 steps');
+  });
+
+  it('shows and takes every temperature in the unit chosen for the page', async () => {
+    const { api, loader, store, text, fixture } = await mount();
+    store.setUnit('C');
+    await fixture.whenStable();
+    // 0 °C = 273.15 K by the definition of the Celsius scale (SI Brochure, 9th ed., 2.3.1).
+    expect(text()).toContain('Intrinsic 76.9–176.9 °C (9 readings)');
+    await (await loader.getHarness(MatButtonHarness.with({ text: /^Intrinsic/ }))).click();
+    const from = await loader.getHarness(MatInputHarness.with({ selector: '[name=from]' }));
+    const to = await loader.getHarness(MatInputHarness.with({ selector: '[name=to]' }));
+    expect(await from.getValue()).toBe('76.85');
+    expect(text()).toContain('°C');
+    answer(api.previews[0], previewOf(api.previews[0]!.body));
+    await fixture.whenStable();
+    expect(text()).toContain('Arrhenius window 76.9–176.9 °C (preview)');
+    await from.setValue('100');
+    await to.setValue('150');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Preview this window' }))).click();
+    expect(api.previews[1]!.body).toMatchObject({ minK: 373.15, maxK: 423.15 });
+    store.setUnit('K');
+    await fixture.whenStable();
+    expect(await from.getValue()).toBe('373.15');
   });
 });

@@ -12,9 +12,14 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { formatValue } from '../../../shared/format';
+import {
+  UNIT_SYMBOL,
+  formatTemperatureRange,
+  toKelvin,
+  toUnit,
+} from '../../../shared/temperature-unit';
 import { Plot, type PlotSelection } from '../../../shared/plot/plot';
 import {
   COMPENSATION_CHOICE_WORDS,
@@ -25,6 +30,7 @@ import {
 } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
 import { FitCard } from '../fit-card/fit-card';
+import { FitProgress } from '../fit-card/fit-progress';
 import { KeepActions } from '../fit-card/keep-actions';
 import { arrheniusFigure } from './arrhenius-figure';
 
@@ -41,7 +47,7 @@ import { arrheniusFigure } from './arrhenius-figure';
     MatButtonToggleModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
+    FitProgress,
     MatSelectModule,
     Plot,
     FitCard,
@@ -70,7 +76,8 @@ export class ArrheniusWindow {
   protected readonly suggestions = computed(
     () => this.store.analysis.value()?.suggestedWindows ?? [],
   );
-  /** The typed bounds follow the window chosen by dragging or a suggestion. */
+  protected readonly symbol = computed(() => UNIT_SYMBOL[this.store.unit()]);
+  /** The typed bounds (kept in kelvin) follow the window chosen by dragging or a suggestion. */
   protected readonly minK = linkedSignal<number | null>(() => this.store.window()?.minK ?? null);
   protected readonly maxK = linkedSignal<number | null>(() => this.store.window()?.maxK ?? null);
   protected readonly typedProblem = signal<string | null>(null);
@@ -81,6 +88,7 @@ export class ArrheniusWindow {
       this.options().quantity,
       this.store.window(),
       this.slot().fit,
+      this.store.unit(),
     ),
   );
 
@@ -89,6 +97,20 @@ export class ArrheniusWindow {
     if (selection.xMin <= 0) return;
     this.typedProblem.set(null);
     this.store.previewWindow(1000 / selection.xMax, 1000 / selection.xMin);
+  }
+
+  protected range(minK: number, maxK: number): string {
+    return formatTemperatureRange(minK, maxK, this.store.unit());
+  }
+
+  /** A bound in kelvin as the input shows it: in the page's unit, to 0.01 of a degree. */
+  protected shown(kelvin: number | null): number | null {
+    return kelvin === null ? null : Number(toUnit(kelvin, this.store.unit()).toFixed(2));
+  }
+
+  /** A typed bound in the page's unit, in kelvin (an emptied field is no bound). */
+  protected typed(value: number | null): number | null {
+    return value === null || !Number.isFinite(value) ? null : toKelvin(value, this.store.unit());
   }
 
   protected previewTyped(): void {

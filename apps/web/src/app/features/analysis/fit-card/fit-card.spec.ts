@@ -6,6 +6,7 @@ import { FitCard } from './fit-card';
 const BODY = { kind: 'arrhenius', minK: 120, maxK: 200 } as const;
 
 async function render(fit: FitPreviewDto) {
+  TestBed.resetTestingModule();
   TestBed.configureTestingModule({ imports: [FitCard] });
   const fixture = TestBed.createComponent(FitCard);
   fixture.componentRef.setInput('fit', fit);
@@ -34,7 +35,7 @@ describe('FitCard', () => {
         excludedSequences: [4, 9],
       }),
     );
-    expect(text).toContain('Arrhenius window 120–200 K (preview)');
+    expect(text).toContain('Arrhenius window 120.0–200.0 K (preview)');
     expect(text).toContain('9 temperature steps');
     expect(text).toContain('Dopant ionization energy: 0.0452 eV ± 0.0011 eV');
     expect(text).toContain('Assumes the Freeze-out regime, uncompensated (inferred from the data)');
@@ -55,5 +56,47 @@ describe('FitCard', () => {
     expect(el.querySelector('[aria-label=Warnings]')).toBeNull();
     expect(el.querySelector('[data-testid=curvature]')).toBeNull();
     expect(el.querySelector('[data-testid=excluded]')).toBeNull();
+  });
+
+  it('calls out a bad fit: a value with a relative standard error above 50 %, and says which parameters were held fixed', async () => {
+    // The Bloch–Grüneisen case: a Debye temperature of 257 ± 2300 K.
+    const { el, text } = await render(
+      previewOf(
+        { kind: 'bloch-gruneisen' },
+        {
+          parameters: { residualOhmCm: 1e-7, couplingOhmCm: 5e-6, debyeK: 257 },
+          standardErrors: { residualOhmCm: 1e-9, couplingOhmCm: 1e-8, debyeK: 2300 },
+          confidenceIntervals: {},
+          modelVersion: 'physics@0.1.0+bloch-gruneisen',
+          warnings: [
+            'The Debye temperature is poorly determined: relative standard error 895 % (above 50 %).',
+          ],
+        },
+      ),
+    );
+    expect(el.querySelector('[data-testid=check-fit]')).not.toBeNull();
+    expect(text).toContain('257 (poorly determined)');
+    expect(text).not.toContain('1.000 × 10⁻⁷ (poorly determined)');
+    expect(text).toContain('Model: Bloch–Grüneisen, Rhotrace physics 0.1');
+    expect(text).not.toContain('physics@');
+
+    const model = await render(
+      previewOf(
+        {
+          kind: 'model',
+          initial: { donorDensity: 0, acceptorDensity: 1e15 },
+          free: ['acceptorDensity'],
+        },
+        {
+          parameters: { donorDensity: 0, acceptorDensity: 1.2e15 },
+          standardErrors: { acceptorDensity: 1e13 },
+          confidenceIntervals: {},
+          modelVersion: 'physics@0.1.0+Si:si-scaled-t15',
+        },
+      ),
+    );
+    expect(model.text).toMatch(/Donor density \(cm⁻³\) 0 held fixed/);
+    expect(model.text).toContain('Model: silicon, Rhotrace physics 0.1');
+    expect(model.el.querySelector('[data-testid=check-fit]')).toBeNull();
   });
 });

@@ -1,5 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MAX_RELATIVE_STANDARD_ERROR } from '@rhotrace/physics';
 import { formatValue } from '../../../shared/format';
+import { type TemperatureUnit, formatTemperatureRange } from '../../../shared/temperature-unit';
 import {
   COMPENSATION_SOURCE_WORDS,
   COMPENSATION_WORDS,
@@ -7,6 +9,8 @@ import {
   PARAMETER_WORDS,
   PROPERTY_WORDS,
   REGIME_WORDS,
+  SCATTERING_WORDS,
+  modelVersionWords,
   wordsFor,
 } from '../analysis-labels';
 import { type ShownFit, isSaved } from '../fit-queue';
@@ -17,6 +21,15 @@ interface ParameterRow {
   value: string;
   error: string;
   interval: string;
+  /** Why the value is not to be trusted as it stands, or null. */
+  caution: string | null;
+}
+
+/** Why a fitted value is not to be trusted as it stands (the API's warnings give the detail). */
+function cautionOf(value: number, se: number | null, converged: boolean): string | null {
+  if (!converged) return null;
+  if (se === null) return 'not determined';
+  return se > MAX_RELATIVE_STANDARD_ERROR * Math.abs(value) ? 'poorly determined' : null;
 }
 
 /** Sequence numbers listed before "and N more". */
@@ -35,19 +48,22 @@ const EXCLUDED_LISTED = 8;
 })
 export class FitCard {
   readonly fit = input.required<ShownFit>();
+  /** The unit the fit's window is shown in. */
+  readonly unit = input<TemperatureUnit>('K');
 
   protected readonly format = formatValue;
   protected readonly propertyWords = PROPERTY_WORDS;
   protected readonly regimeWords = REGIME_WORDS;
   protected readonly compensationWords = COMPENSATION_WORDS;
   protected readonly sourceWords = COMPENSATION_SOURCE_WORDS;
+  protected readonly scatteringWords = SCATTERING_WORDS;
 
   protected readonly saved = computed(() => isSaved(this.fit()));
   protected readonly title = computed(() => {
     const f = this.fit();
     const window =
       f.windowMinK !== null && f.windowMaxK !== null
-        ? ` ${formatValue(f.windowMinK)}–${formatValue(f.windowMaxK)} K`
+        ? ` ${formatTemperatureRange(f.windowMinK, f.windowMaxK, this.unit())}`
         : '';
     return `${wordsFor(KIND_WORDS, f.kind)}${window} (${isSaved(f) ? `fit ${f.id}` : 'preview'})`;
   });
@@ -71,22 +87,27 @@ export class FitCard {
     const who = isSaved(f)
       ? ` · by ${f.createdBy.name ?? 'someone'} · ${f.createdAt.slice(0, 16).replace('T', ' ')}`
       : ' · not saved: keep it to store it with the sweep';
-    return `Model ${f.modelVersion}${who} · engineering estimate`;
+    return `${modelVersionWords(f.modelVersion)}${who} · engineering estimate`;
   });
   protected readonly rows = computed<ParameterRow[]>(() => {
     const f = this.fit();
     return Object.entries(f.parameters).map(([key, value]) => {
+      const fitted = key in f.standardErrors;
       const se = f.standardErrors[key];
       const ci = f.confidenceIntervals[key];
       return {
         key,
         words: wordsFor(PARAMETER_WORDS, key),
         value: formatValue(value, 4),
-        error: se === undefined || se === null ? '–' : formatValue(se, 2),
+        error: !fitted ? 'held fixed' : se === undefined || se === null ? '–' : formatValue(se, 2),
         interval: ci ? `${formatValue(ci[0], 4)} … ${formatValue(ci[1], 4)}` : '–',
+        caution: !fitted ? null : cautionOf(value, se ?? null, f.converged),
       };
     });
   });
+
+  /** A fit to check before trusting: not converged, or any warning from the API. */
+  protected readonly doubtful = computed(() => !this.fit().converged || this.warnings().length > 0);
 
   protected ev(value: number): string {
     return formatValue(value, 3);

@@ -26,4 +26,19 @@ describe('MetalFits', () => {
     expect(api.previews[2]!.body).toEqual({ kind: 'bloch-gruneisen' });
     expect(api.creates).toHaveLength(0);
   });
+
+  it('takes the TCR reference in the page’s unit and sends it in kelvin', async () => {
+    const api = new FakeAnalysisApi();
+    api.analysisAnswer = analysisOf('W');
+    const { loader, store, fixture } = await mountPart(MetalFits, api);
+    store.setUnit('C');
+    await fixture.whenStable();
+    const reference = await loader.getHarness(MatInputHarness);
+    // 20 °C, the reference of the introductory tables' alpha values.
+    expect(await reference.getValue()).toBe('20');
+    await reference.setValue('25');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Fit linear TCR' }))).click();
+    expect(api.previews[0]!.body).toEqual({ kind: 'tcr', referenceK: 298.15 });
+    store.setUnit('K');
+  });
 });

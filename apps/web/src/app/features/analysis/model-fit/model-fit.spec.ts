@@ -41,4 +41,35 @@ describe('ModelFit', () => {
     const fit = await loader.getHarness(MatButtonHarness.with({ text: 'Fit the model' }));
     expect(await fit.isDisabled()).toBe(true);
   });
+
+  it('shows the time a fit has taken and cancels it, aborting the request', async () => {
+    const { api, loader, fixture } = await mountPart(ModelFit);
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Fit the model' }))).click();
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    expect(el.querySelector('[data-testid=elapsed]')?.textContent).toMatch(
+      /Fitting the model: \d+\.\d s/,
+    );
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Cancel' }))).click();
+    expect(api.previews[0]!.answer.observed).toBe(false);
+    expect(el.textContent).toContain('The fit was cancelled.');
+    expect(el.querySelector('[data-testid=elapsed]')).toBeNull();
+    const fit = await loader.getHarness(MatButtonHarness.with({ text: 'Fit the model' }));
+    expect(await fit.isDisabled()).toBe(false);
+  });
+
+  it('cancels a save: the request is aborted and the preview stays, unsaved', async () => {
+    const { api, loader, fixture, store } = await mountPart(ModelFit);
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Fit the model' }))).click();
+    answer(api.previews[0], previewOf(api.previews[0]!.body));
+    await fixture.whenStable();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Keep this fit' }))).click();
+    expect(store.saving()).toBe(true);
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Cancel' }))).click();
+    expect(api.creates[0]!.answer.observed).toBe(false);
+    expect(store.saving()).toBe(false);
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text).toContain('Saving was cancelled: nothing was stored.');
+    expect(text).toContain('preview, not saved');
+  });
 });

@@ -1,16 +1,16 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { FREE_WORDS, type FreeParameter } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
 import { FitCard } from '../fit-card/fit-card';
+import { FitProgress } from '../fit-card/fit-progress';
 import { KeepActions } from '../fit-card/keep-actions';
 
 /** The full-model fit (Levenberg–Marquardt) from the parameters drawn above; Keep saves it. */
 @Component({
   selector: 'rt-model-fit',
-  imports: [MatButtonModule, MatCheckboxModule, MatProgressBarModule, FitCard, KeepActions],
+  imports: [MatButtonModule, MatCheckboxModule, FitCard, FitProgress, KeepActions],
   template: `
     <section class="panel" aria-labelledby="model-title">
       <h2 id="model-title" class="rt-section-title">Full-model fit (Levenberg–Marquardt)</h2>
@@ -33,14 +33,18 @@ import { KeepActions } from '../fit-card/keep-actions';
           Fit the model
         </button>
       </div>
-      @if (slot().busy) {
-        <mat-progress-bar mode="indeterminate" aria-label="Fitting the model" />
+      @if (slot().busy && slot().startedAt; as started) {
+        <rt-fit-progress
+          what="Fitting the model"
+          [startedAt]="started"
+          (cancelled)="store.cancel('model')"
+        />
       }
       @if (slot().problem; as p) {
         <p class="problem" role="alert">{{ p }}</p>
       }
       @if (slot().fit; as f) {
-        <rt-fit-card [fit]="f" />
+        <rt-fit-card [fit]="f" [unit]="store.unit()" />
         <rt-keep-actions slot="model" [fit]="f" />
       }
     </section>

@@ -31,7 +31,12 @@ export class ModelOverlay {
       : d
         ? `model: donors ${formatExponent(d.donorDensity)}, acceptors ${formatExponent(d.acceptorDensity)} cm⁻³`
         : 'model';
-    return { unit: this.store.unit(), rangeK: this.store.rangeK(), modelName };
+    return {
+      unit: this.store.unit(),
+      rangeK: this.store.rangeK(),
+      modelName,
+      fits: this.store.drawnFits(),
+    };
   });
   private readonly steps = computed(() => this.store.analysis.value()?.steps ?? []);
   protected readonly curveFig = computed(() =>

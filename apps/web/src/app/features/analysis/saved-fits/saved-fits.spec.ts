@@ -41,7 +41,7 @@ describe('SavedFits', () => {
     expect(text()).toContain('Arrhenius window #5');
     expect(text()).toContain('(1 warning)');
     expect(text()).toContain('Bloch–Grüneisen #6');
-    expect(text()).toContain('350–400');
+    expect(text()).toContain('350.0–400.0 K');
     expect(text()).toContain('9 (3)'); // 9 readings in 3 dwell steps
     const [, second] = await loader.getAllHarnesses(MatCheckboxHarness);
     await second!.check();

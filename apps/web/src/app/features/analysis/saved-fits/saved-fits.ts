@@ -4,9 +4,10 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import type { FitDto } from '@rhotrace/api-types';
 import { Confirmer } from '../../../shared/confirm-dialog';
 import { EstimateNote } from '../../../shared/estimate-note';
-import { formatValue } from '../../../shared/format';
+import { formatTemperatureRange } from '../../../shared/temperature-unit';
 import { KIND_WORDS } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
+import { mainResult } from '../main-result';
 import { FitCard } from '../fit-card/fit-card';
 
 /** The sweep's saved fits: compare side by side, export as CSV, delete (after a confirmation). */
@@ -25,17 +26,11 @@ export class SavedFits {
 
   protected windowOf(f: FitDto): string {
     return f.windowMinK !== null && f.windowMaxK !== null
-      ? `${formatValue(f.windowMinK)}–${formatValue(f.windowMaxK)}`
-      : 'all';
+      ? formatTemperatureRange(f.windowMinK, f.windowMaxK, this.store.unit())
+      : 'all readings';
   }
 
-  /** The first parameter with its standard error, e.g. "0.2512 ± 0.0031". */
-  protected mainValue(f: FitDto): string {
-    const [key, value] = Object.entries(f.parameters)[0] ?? [];
-    if (key === undefined || value === undefined) return '–';
-    const se = f.standardErrors[key];
-    return `${formatValue(value)}${se ? ' ± ' + formatValue(se, 2) : ''}`;
-  }
+  protected readonly mainResult = mainResult;
 
   protected remove(f: FitDto): void {
     this.confirmer

@@ -1,5 +1,5 @@
 import type { AnalysisStep, ModelCurveResponse } from '@rhotrace/api-types';
-import { thinForDisplay } from '../../../shared/plot/thin';
+import { MAX_DISPLAY_POINTS, thinForDisplay } from '../../../shared/plot/thin';
 import { arrheniusFigure } from '../arrhenius-window/arrhenius-figure';
 import { curveFigure, plotRangeK, residualFigure } from './study-plots';
 
@@ -74,14 +74,14 @@ describe('study plots', () => {
     expect((fig.layout['xaxis'] as { title: { text: string } }).title.text).toBe('1000 / T (1/K)');
     const trace = fig.data[0] as { type: string; x: number[] };
     expect(trace.type).toBe('scatter');
-    expect(trace.x.length).toBeLessThanOrEqual(1500);
+    expect(trace.x.length).toBeLessThanOrEqual(MAX_DISPLAY_POINTS);
     const big = curveFigure(steps(250, 450, 10_000), null, {
       unit: 'K',
       rangeK: plotRangeK(250, 450),
       modelName: 'model',
     });
     expect((big.data[0] as { type: string }).type).toBe('scatter');
-    expect((big.data[0] as { name: string }).name).toMatch(/1500 of 10000 steps shown/);
+    expect((big.data[0] as { name: string }).name).toMatch(/5000 of 10000 steps shown/);
   });
 
   it('thinning keeps each run’s extremes in order', () => {

@@ -1,10 +1,9 @@
 import type { AnalysisStep, ModelCurveResponse } from '@rhotrace/api-types';
-import { ZERO_CELSIUS_K } from '@rhotrace/physics';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { thinForDisplay } from '../../../shared/plot/thin';
-
-/** Temperature axis unit of the curve plot. */
-export type TemperatureUnit = 'K' | 'C';
+import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
+import type { ShownFit } from '../fit-queue';
+import { fitCurveTraces, fitResidualTraces } from './fit-traces';
 
 /** Plotly figure: traces and layout (the Arrhenius plot's is in arrhenius-figure.ts). */
 export interface Figure {
@@ -12,9 +11,8 @@ export interface Figure {
   layout: Record<string, unknown>;
 }
 
-const toAxis = (unit: TemperatureUnit) => (k: number) => (unit === 'K' ? k : k - ZERO_CELSIUS_K);
-const axisTitle = (unit: TemperatureUnit) =>
-  unit === 'K' ? 'Temperature (K)' : 'Temperature (°C)';
+const toAxis = (unit: TemperatureUnit) => (k: number) => toUnit(k, unit);
+const axisTitle = (unit: TemperatureUnit) => `Temperature (${UNIT_SYMBOL[unit]})`;
 
 /** The temperature range a sweep's plots show: the data's range with a margin of 4 % (≥ 2 K). */
 export function plotRangeK(
@@ -34,6 +32,8 @@ export interface CurveOptions {
   rangeK: { fromK: number; toK: number };
   /** Legend words for the model line (e.g. "model (Si, P 1.55e15 cm⁻³)" or "bulk W reference"). */
   modelName: string;
+  /** Fits drawn as their own lines (and residuals), each named with its window. */
+  fits?: readonly ShownFit[];
 }
 
 /** Measured steps (with their spread) over the model curve, log resistivity axis. */
@@ -63,7 +63,7 @@ export function curveFigure(
         thickness: 1,
       },
       marker: { color: PLOT_ROLES.measured, size: thinned ? 4 : 6 },
-      hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.4g} Ω·cm<extra>measured</extra>`,
+      hovertemplate: `%{x:.2f} ${UNIT_SYMBOL[unit]}: %{y:.4g} Ω·cm<extra>measured</extra>`,
     },
   ];
   if (model) {
@@ -74,9 +74,10 @@ export function curveFigure(
       x: model.points.map((p) => x(p.temperatureK)),
       y: model.points.map((p) => p.resistivityOhmCm),
       line: { color: PLOT_ROLES.model, width: 2.5, dash: 'solid' },
-      hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.4g} Ω·cm<extra>model</extra>`,
+      hovertemplate: `%{x:.2f} ${UNIT_SYMBOL[unit]}: %{y:.4g} Ω·cm<extra>model</extra>`,
     });
   }
+  data.push(...fitCurveTraces(options.fits ?? [], unit));
   const shapes: unknown[] = [];
   const annotations: unknown[] = [];
   if (model?.kind === 'semiconductor') {
@@ -159,44 +160,49 @@ export function modelAt(model: ModelCurveResponse, k: number): number | null {
   return null;
 }
 
-/** Residuals ln(ρ measured / ρ model) at each measured step inside the model's range. */
+/**
+ * Residuals ln(ρ measured / ρ model) at each measured step inside the model's range, and each
+ * drawn fit's own residuals; null when there is neither a model nor a fit.
+ */
 export function residualFigure(
   steps: AnalysisStep[],
   model: ModelCurveResponse | null,
   options: CurveOptions,
 ): Figure | null {
-  if (!model) return null;
+  const fitTraces = fitResidualTraces(options.fits ?? [], options.unit);
+  if (!model && fitTraces.length === 0) return null;
   const { unit, rangeK } = options;
   const x = toAxis(unit);
   const xs: number[] = [];
   const ys: number[] = [];
-  for (const s of thinForDisplay(steps, (s) => s.resistivityOhmCm)) {
-    const m = modelAt(model, s.temperatureK);
-    if (m === null || m <= 0) continue;
-    xs.push(x(s.temperatureK));
-    ys.push(Math.log(s.resistivityOhmCm / m));
+  if (model) {
+    for (const s of thinForDisplay(steps, (s) => s.resistivityOhmCm)) {
+      const m = modelAt(model, s.temperatureK);
+      if (m === null || m <= 0) continue;
+      xs.push(x(s.temperatureK));
+      ys.push(Math.log(s.resistivityOhmCm / m));
+    }
   }
+  const modelTrace = {
+    type: 'scatter',
+    mode: 'markers',
+    name: 'residuals of the model',
+    x: xs,
+    y: ys,
+    marker: { color: PLOT_ROLES.measured, size: 5 },
+    hovertemplate: `%{x:.2f} ${UNIT_SYMBOL[unit]}: %{y:.3f}<extra>ln(ρ measured / ρ model)</extra>`,
+  };
   return {
-    data: [
-      {
-        type: 'scatter',
-        mode: 'markers',
-        name: 'residual',
-        x: xs,
-        y: ys,
-        marker: { color: PLOT_ROLES.measured, size: 5 },
-        hovertemplate: `%{x:.2f} ${unit === 'K' ? 'K' : '°C'}: %{y:.3f}<extra>ln(ρ measured / ρ model)</extra>`,
-      },
-    ],
+    data: [...(model ? [modelTrace] : []), ...fitTraces],
     layout: {
-      showlegend: false,
+      showlegend: fitTraces.length > 0,
       margin: { l: 80, r: 20, t: 10, b: 48 },
       xaxis: {
         title: { text: axisTitle(unit) },
         range: [x(rangeK.fromK), x(rangeK.toK)],
         autorange: false,
       },
-      yaxis: { title: { text: 'ln(ρ / ρ model)' }, zeroline: true },
+      yaxis: { title: { text: 'ln(ρ measured / ρ fitted)' }, zeroline: true },
     },
   };
 }

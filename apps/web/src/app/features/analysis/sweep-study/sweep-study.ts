@@ -4,9 +4,11 @@ import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { formatValue } from '../../../shared/format';
+import { formatTemperatureRange } from '../../../shared/temperature-unit';
 import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
 import { AnalysisStore } from '../analysis-store';
 import { ArrheniusWindow } from '../arrhenius-window/arrhenius-window';
+import { HallStudy } from '../parts/hall-study/hall-study';
 import { MetalFits } from '../metal-fits/metal-fits';
 import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
@@ -29,6 +31,7 @@ import { SweepFaults } from '../parts/sweep-faults/sweep-faults';
     ModelFit,
     MetalFits,
     SavedFits,
+    HallStudy,
     SweepFaults,
   ],
   providers: [AnalysisStore],
@@ -41,6 +44,9 @@ export class SweepStudy {
   /** The sweep id from the route. */
   readonly id = input.required<string>();
   protected readonly format = formatValue;
+  protected range(minK: number | null, maxK: number | null): string {
+    return formatTemperatureRange(minK, maxK, this.store.unit());
+  }
 
   constructor() {
     // Fetch and evaluate plotly while the sweep's data are on their way, not after.

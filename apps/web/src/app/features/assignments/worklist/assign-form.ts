@@ -16,6 +16,7 @@ import {
 } from '@angular/forms';
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -26,6 +27,7 @@ import { Caution } from '../../../shared/caution';
 import { fieldError } from '../../../shared/field-error';
 import { todayLocal } from '../../../shared/format';
 import { AssignmentsApi } from '../assignments-api';
+import { PlanForm, type PlannedSweep } from '../../planner/plan-form/plan-form';
 
 /** Tasks the lab hands out most (free text is fine too). */
 export const COMMON_TASKS = [
@@ -45,7 +47,9 @@ export const COMMON_TASKS = [
     MatSelectModule,
     MatAutocompleteModule,
     MatButtonModule,
+    MatCheckboxModule,
     Caution,
+    PlanForm,
   ],
   templateUrl: './assign-form.html',
   styles: `
@@ -85,6 +89,10 @@ export class AssignForm {
   protected readonly problem = signal<string | null>(null);
   protected readonly unmatched = signal<FieldProblem[]>([]);
   protected readonly assignees = rxResource({ stream: () => this.api.assignees() });
+  protected readonly stations = rxResource({ stream: () => this.api.stations() });
+  /** Whether a measurement plan goes with the assignment, and the one computed for it. */
+  protected readonly attachPlan = signal(false);
+  protected readonly plan = signal<PlannedSweep | null>(null);
 
   protected readonly form = this.fb.group({
     waferId: this.fb.control<number | null>(null, Validators.required),
@@ -92,6 +100,7 @@ export class AssignForm {
     task: ['', [Validators.required, Validators.maxLength(200)]],
     dueDate: ['', Validators.required],
     notes: this.fb.control<string | null>(null),
+    stationId: this.fb.control<number | null>(null),
   });
 
   protected readonly waferSearch = signal('');
@@ -109,6 +118,7 @@ export class AssignForm {
   protected pickWafer(wafer: WaferDto): void {
     this.chosenWafer.set(wafer);
     this.form.controls.waferId.setValue(wafer.id);
+    this.plan.set(null);
   }
 
   protected submit(): void {
@@ -120,6 +130,11 @@ export class AssignForm {
       return;
     }
     const v = this.form.getRawValue();
+    const plan = this.attachPlan() ? this.plan() : null;
+    if (this.attachPlan() && (!plan || plan.request.waferId !== v.waferId)) {
+      this.problem.set('Compute the measurement plan for this wafer first, or untick it.');
+      return;
+    }
     this.saving.set(true);
     this.problem.set(null);
     this.api
@@ -129,6 +144,8 @@ export class AssignForm {
         task: v.task,
         dueDate: v.dueDate,
         notes: v.notes || null,
+        stationId: v.stationId,
+        ...(plan ? { plan: plan.request } : {}),
       })
       .subscribe({
         next: (a) => {
@@ -137,6 +154,8 @@ export class AssignForm {
           this.formDirective()?.resetForm();
           this.chosenWafer.set(null);
           this.waferSearch.set('');
+          this.plan.set(null);
+          this.attachPlan.set(false);
           this.created.emit(a);
         },
         error: (err: unknown) => {

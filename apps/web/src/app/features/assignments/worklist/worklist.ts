@@ -64,7 +64,12 @@ export class Worklist {
 
   protected readonly states = ASSIGNMENT_STATES;
   protected readonly day = formatDay;
-  protected readonly columns = ['wafer', 'task', 'assignee', 'due', 'state'];
+  protected readonly columns = ['wafer', 'task', 'assignee', 'station', 'due', 'state'];
+  private readonly stations = rxResource({ stream: () => this.api.stations() });
+  /** Station names by id, for the station column. */
+  protected readonly stationNames = computed(
+    () => new Map((this.stations.value() ?? []).map((s) => [s.id, s.name])),
+  );
   protected readonly state = signal<AssignmentState | ''>('');
   protected readonly overdueOnly = signal(false);
   protected readonly pageIndex = signal(0);

@@ -48,7 +48,7 @@ export function lotChart(summary: LotSummaryResponse): {
         type: 'scatter',
         mode: 'markers',
         name: 'ρ at 23 °C',
-        x: measured.map((w) => `W${w.number}`),
+        x: measured.map((w) => w.number),
         y: measured.map((w) => w.resistivityAt23COhmCm),
         error_y: {
           type: 'data',

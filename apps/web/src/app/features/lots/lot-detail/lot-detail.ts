@@ -21,10 +21,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import type { LotSummaryWafer, WaferDto } from '@rhotrace/api-types';
-import { of } from 'rxjs';
+import { filter, of, switchMap } from 'rxjs';
 import { Session } from '../../../core/auth/session';
 import { ApiError, applyServerErrors } from '../../../core/http/api-error';
-import { Downloader } from '../../../shared/download';
+import { Confirmer } from '../../../shared/confirm-dialog';
+import { Downloader, safeName } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { above, fieldError } from '../../../shared/field-error';
 import { formatDay } from '../../../shared/format';
@@ -34,6 +35,7 @@ import { SpecVerdictBadge } from '../../../shared/spec-verdict';
 import { methodWords, ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
 import { LotsApi } from '../lots-api';
 import { lotChart } from './lot-chart';
+import { RecordHistory } from '../../../shared/record-history/record-history';
 
 interface WaferRow {
   wafer: WaferDto;
@@ -47,6 +49,7 @@ interface WaferRow {
 @Component({
   selector: 'rt-lot-detail',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -68,6 +71,7 @@ export class LotDetail {
   private readonly api = inject(LotsApi);
   private readonly router = inject(Router);
   private readonly downloader = inject(Downloader);
+  private readonly confirmer = inject(Confirmer);
   private readonly fb = inject(NonNullableFormBuilder);
   private readonly waferFormDirective = viewChild(FormGroupDirective);
   protected readonly canEdit = inject(Session).can('records:edit');
@@ -151,8 +155,17 @@ export class LotDetail {
 
   protected deleteLot(): void {
     const code = this.lot.value()?.code ?? '';
-    if (!globalThis.confirm(`Delete lot ${code}? It stays in the change trail.`)) return;
-    this.api.remove(this.lotId()).subscribe(() => void this.router.navigate(['/lots']));
+    this.confirmer
+      .ask({
+        title: `Delete lot ${code}?`,
+        message: 'The lot and its wafers leave the lists; the change trail keeps the record.',
+        confirmWords: 'Delete the lot',
+      })
+      .pipe(
+        filter(Boolean),
+        switchMap(() => this.api.remove(this.lotId())),
+      )
+      .subscribe(() => void this.router.navigate(['/lots']));
   }
 
   protected averageEa(row: WaferRow): string {
@@ -163,7 +176,17 @@ export class LotDetail {
 
   /** The lot summary (wafers, 23 °C values, verdicts, statistics) as a CSV file. */
   protected downloadSummaryCsv(code: string): void {
-    const safe = code.replace(/[^\w.-]+/g, '_');
-    void this.downloader.save(`/api/lots/${this.lotId()}/summary.csv`, `lot-${safe}-summary.csv`);
+    void this.downloader.save(
+      this.api.summaryCsvUrl(this.lotId()),
+      `lot-${safeName(code)}-summary.csv`,
+    );
+  }
+
+  /** The printable lot report: every wafer's 23 °C value, the statistics, chart and fits. */
+  protected downloadReport(code: string): void {
+    void this.downloader.save(
+      this.api.reportPdfUrl(this.lotId()),
+      `lot-${safeName(code)}-report.pdf`,
+    );
   }
 }

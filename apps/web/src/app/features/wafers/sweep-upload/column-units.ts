@@ -14,6 +14,12 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   time: ['s', 'ms', 'min', 'h'],
   index: [],
   other: [],
+  'magnetic-field': ['T', 'mT', 'G', 'kG'],
+  'hall-voltage': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-pp': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-pn': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-np': ['V', 'mV', 'uV', 'nV'],
+  'hall-voltage-nn': ['V', 'mV', 'uV', 'nV'],
   'reference-junction': ['K', 'degC'],
 };
 
@@ -31,6 +37,12 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   time: 'Time',
   index: 'Row number',
   other: 'Keep as raw text',
+  'magnetic-field': 'Magnetic field',
+  'hall-voltage': 'Hall voltage (offsets removed)',
+  'hall-voltage-pp': 'Hall voltage at +B, +I',
+  'hall-voltage-pn': 'Hall voltage at +B, −I',
+  'hall-voltage-np': 'Hall voltage at −B, +I',
+  'hall-voltage-nn': 'Hall voltage at −B, −I',
   'reference-junction': 'Reference (cold) junction temperature',
 };
 
@@ -41,6 +53,7 @@ export const METHOD_WORDS: Record<SweepMethod, string> = {
   bar: 'Bar with contacts',
   resistivity: 'Resistivity already computed',
   'sheet-resistance': 'Sheet resistance already computed',
+  hall: 'Hall effect (van der Pauw with a field)',
 };
 
 /** A unit label as a person writes it: degC → °C, ohm → Ω, u → µ. */

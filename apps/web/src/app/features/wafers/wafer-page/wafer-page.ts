@@ -26,6 +26,9 @@ import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
 import { WafersApi } from '../wafers-api';
+import { RecordHistory } from '../../../shared/record-history/record-history';
+import { PlanForm } from '../../planner/plan-form/plan-form';
+import { PlanView } from '../../planner/plan-view/plan-view';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
@@ -39,6 +42,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
 @Component({
   selector: 'rt-wafer-page',
   imports: [
+    RecordHistory,
     MatTableModule,
     MatButtonModule,
     MatSelectModule,
@@ -50,6 +54,8 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     SweepUpload,
     EstimateNote,
     ValueAt23C,
+    PlanForm,
+    PlanView,
   ],
   templateUrl: './wafer-page.html',
   styleUrl: './wafer-page.scss',
@@ -68,6 +74,7 @@ export class WaferPage {
   protected readonly canEdit = this.session.can('records:edit');
   protected readonly canAnalyse = this.session.can('fits:run');
   protected readonly canUpload = this.session.can('sweeps:upload');
+  protected readonly canPlan = this.session.can('plans:make');
   /** Lots list and breadcrumb are for roles that see every lot. */
   protected readonly seesAllLots = this.session.can('records:see-all');
   /** Roles that see every assignment (others list and move only their own). */

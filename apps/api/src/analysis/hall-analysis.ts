@@ -1,0 +1,149 @@
+/**
+ * The Hall part of a sweep analysis: carrier density and Hall mobility by temperature step,
+ * the carrier type, the values at 300 K and the freeze-out window for the n(T) fit.
+ */
+import type {
+  HallAnalysis,
+  HallAnalysisStep,
+  HallAt300K,
+  SuggestedWindow,
+} from '@rhotrace/api-types';
+import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
+import { mean, median, sampleStandardDeviation } from 'simple-statistics';
+import type { SweepIdentity } from '../sweeps/sweep-cache';
+import { STEP_TOLERANCE_K, sweepReadings, type AnalysisPoint } from './sweep-data.service';
+
+/** A value at 300 K is interpolated between steps no farther than this from 300 K, K. */
+export const HALL_300K_REACH_K = 15;
+/** |d ln n / d ln T| below this marks the saturation plateau (common practice, no source). */
+const PLATEAU_SLOPE = 0.5;
+/** Fewer freeze-out steps than this earn a caution. */
+const FEW_STEPS = 5;
+
+/** Hall steps of temperature-sorted readings (those without Hall quantities are skipped). */
+export function hallSteps(points: readonly AnalysisPoint[]): HallAnalysisStep[] {
+  const hall = points.filter(
+    (p) =>
+      typeof p.quantities?.carrierDensityCm3 === 'number' &&
+      typeof p.quantities.hallMobilityCm2PerVs === 'number' &&
+      typeof p.quantities.hallCoefficientCm3PerC === 'number',
+  );
+  const steps: HallAnalysisStep[] = [];
+  let start = 0;
+  while (start < hall.length) {
+    const first = hall[start]!.temperatureK;
+    let end = start + 1;
+    while (end < hall.length && hall[end]!.temperatureK - first < STEP_TOLERANCE_K) end += 1;
+    const group = hall.slice(start, end).map((p) => p.quantities!);
+    const densities = group.map((q) => q.carrierDensityCm3!);
+    const rh = mean(group.map((q) => q.hallCoefficientCm3PerC!));
+    steps.push({
+      temperatureK: mean(hall.slice(start, end).map((p) => p.temperatureK)),
+      carrierDensityCm3: mean(densities),
+      carrierDensitySpreadCm3: densities.length > 1 ? sampleStandardDeviation(densities) : 0,
+      hallMobilityCm2PerVs: mean(group.map((q) => q.hallMobilityCm2PerVs!)),
+      hallCoefficientCm3PerC: rh,
+      carrierType: rh < 0 ? 'n' : 'p',
+      count: group.length,
+    });
+    start = end;
+  }
+  return steps;
+}
+
+/** Log-linear interpolation of a step value at `temperatureK` within `HALL_300K_REACH_K`. */
+export function hallValueAt(
+  steps: readonly HallAnalysisStep[],
+  key: 'carrierDensityCm3' | 'hallMobilityCm2PerVs',
+  temperatureK: number,
+): number | null {
+  const i = steps.findIndex((s) => s.temperatureK >= temperatureK);
+  if (i < 0) return null;
+  const hi = steps[i]!;
+  const lo = i > 0 ? steps[i - 1]! : hi;
+  if (hi.temperatureK - temperatureK > HALL_300K_REACH_K) return null;
+  if (temperatureK - lo.temperatureK > HALL_300K_REACH_K) return null;
+  if (hi === lo || hi.temperatureK === lo.temperatureK) return hi[key];
+  const f = (temperatureK - lo.temperatureK) / (hi.temperatureK - lo.temperatureK);
+  return Math.exp(Math.log(lo[key]) + f * (Math.log(hi[key]) - Math.log(lo[key])));
+}
+
+/**
+ * Freeze-out window: the saturation density n_sat is the median of the steps where
+ * |d ln n / d ln T| < 0.5 (the plateau); the window runs from the coldest step up to the last
+ * step below `PHYSICS_DEFAULTS.freezeOutWindowIonizedFraction` (0.5) of n_sat, where the
+ * density is set by ionization (n ~ exp(-E_d / 2kT) or exp(-E_d / kT)) and the level shows.
+ */
+export function freezeOutWindow(
+  steps: readonly HallAnalysisStep[],
+  points: readonly AnalysisPoint[],
+): SuggestedWindow | null {
+  if (steps.length < 3) return null;
+  const plateau: number[] = [];
+  for (let i = 1; i + 1 < steps.length; i++) {
+    const a = steps[i - 1]!;
+    const b = steps[i + 1]!;
+    const slope =
+      Math.log(b.carrierDensityCm3 / a.carrierDensityCm3) /
+      Math.log(b.temperatureK / a.temperatureK);
+    if (Math.abs(slope) < PLATEAU_SLOPE) plateau.push(steps[i]!.carrierDensityCm3);
+  }
+  if (plateau.length === 0) return null;
+  const limit = PHYSICS_DEFAULTS.freezeOutWindowIonizedFraction * median(plateau);
+  let last = -1;
+  while (last + 1 < steps.length && steps[last + 1]!.carrierDensityCm3 < limit) last += 1;
+  if (last < 2) return null;
+  const minK = steps[0]!.temperatureK;
+  const maxK = steps[last]!.temperatureK;
+  const window: SuggestedWindow = {
+    regime: 'freeze-out',
+    minK,
+    maxK,
+    pointCount: points.filter((p) => p.temperatureK >= minK && p.temperatureK <= maxK).length,
+  };
+  if (last + 1 < FEW_STEPS) {
+    window.warnings = [`Only ${last + 1} steps are frozen out: the level is loosely determined.`];
+  }
+  return window;
+}
+
+/** The Hall analysis of a sweep's readings, or null when none carries Hall quantities. */
+export function hallAnalysis(
+  points: readonly AnalysisPoint[],
+  hallFactor: number,
+): HallAnalysis | null {
+  const steps = hallSteps(points);
+  if (steps.length === 0) return null;
+  const types = new Set(steps.map((s) => s.carrierType));
+  return {
+    steps,
+    carrierType: types.size > 1 ? 'mixed' : steps[0]!.carrierType,
+    hallFactor,
+    carrierDensityAt300KCm3: hallValueAt(steps, 'carrierDensityCm3', 300),
+    hallMobilityAt300KCm2PerVs: hallValueAt(steps, 'hallMobilityCm2PerVs', 300),
+    freezeOutWindow: freezeOutWindow(steps, points),
+  };
+}
+
+/** The Hall factor a sweep's parse report records, or null for a sweep that is not Hall. */
+export function hallFactorOf(parseReport: unknown): number | null {
+  const hall = (parseReport as { hall?: { hallFactor?: unknown } } | null)?.hall;
+  return typeof hall?.hallFactor === 'number' ? hall.hallFactor : null;
+}
+
+/** A Hall sweep at 300 K for the compare and lot summaries; null for other sweeps. */
+export async function hallAt300K(
+  sweep: SweepIdentity & { parseReport: unknown },
+): Promise<HallAt300K | null> {
+  const factor = hallFactorOf(sweep.parseReport);
+  if (factor === null) return null;
+  const h = hallAnalysis((await sweepReadings(sweep)).points, factor);
+  if (!h) return null;
+  return {
+    sweepId: sweep.id,
+    carrierType: h.carrierType,
+    carrierDensityAt300KCm3: h.carrierDensityAt300KCm3,
+    hallMobilityAt300KCm2PerVs: h.hallMobilityAt300KCm2PerVs,
+    hallFactor: factor,
+  };
+}

@@ -1,0 +1,87 @@
+import type { AssignmentDto } from '@rhotrace/api-types';
+import { ASSIGNMENT_STATES } from '@rhotrace/api-types';
+import { z } from 'zod';
+import { idParams, registry, routesOf } from '../openapi/registry';
+import { dateTime, pageOf, timestamps } from '../openapi/shapes';
+import { createBody, listQuery, overdueQuery, updateBody } from './assignments.schemas';
+
+/** An assignment as the API answers it. */
+export const assignmentDtoSchema = registry.register(
+  'Assignment',
+  z
+    .object({
+      id: z.number().int(),
+      waferId: z.number().int(),
+      waferNumber: z.string().optional(),
+      lotCode: z.string().optional(),
+      assigneeId: z.number().int(),
+      assigneeName: z.string().optional(),
+      assignedById: z.number().int(),
+      task: z.string(),
+      dueDate: z.string().date(),
+      state: z.enum(ASSIGNMENT_STATES),
+      notes: z.string().nullable(),
+      overdue: z.boolean(),
+      safetyCautions: z.array(z.string()).optional(),
+      stationId: z.number().int().nullable().optional(),
+      stationUpload: z
+        .object({
+          sweepId: z.number().int(),
+          stationName: z.string(),
+          tokenLabel: z.string(),
+          postedAt: dateTime,
+        })
+        .strict()
+        .nullable()
+        .optional(),
+      ...timestamps,
+    })
+    .strict(),
+) satisfies z.ZodType<AssignmentDto>;
+
+/** /api/assignments */
+export function registerAssignmentsApi(): void {
+  const route = routesOf('Assignments');
+  const page = pageOf(assignmentDtoSchema);
+  route({
+    method: 'get',
+    path: '/assignments/overdue',
+    summary: 'Open assignments past their due date (for those who assign)',
+    query: overdueQuery,
+    ok: { status: 200, description: 'A page of assignments', schema: page },
+    errors: [403],
+  });
+  route({
+    method: 'get',
+    path: '/assignments',
+    summary: 'Assignments (technicians: their own)',
+    query: listQuery,
+    ok: { status: 200, description: 'A page of assignments', schema: page },
+    errors: [403],
+  });
+  route({
+    method: 'post',
+    path: '/assignments',
+    summary: 'Assigns a wafer to someone, with an e-mail to them',
+    body: createBody,
+    ok: { status: 201, description: 'The new assignment', schema: assignmentDtoSchema },
+    errors: [403, 404, 409],
+  });
+  route({
+    method: 'get',
+    path: '/assignments/:id',
+    summary: 'One assignment',
+    params: idParams,
+    ok: { status: 200, description: 'The assignment', schema: assignmentDtoSchema },
+    errors: [404],
+  });
+  route({
+    method: 'patch',
+    path: '/assignments/:id',
+    summary: 'Changes an assignment (its assignee may move the state)',
+    params: idParams,
+    body: updateBody,
+    ok: { status: 200, description: 'The changed assignment', schema: assignmentDtoSchema },
+    errors: [403, 404, 409],
+  });
+}

@@ -1,0 +1,55 @@
+/**
+ * Axis ticks for printed plots: round numbers (1, 2 or 5 times a power of ten) on linear axes and
+ * whole decades on log axes, the way plots in print are labelled (common practice, no source).
+ */
+
+/** The round step (1, 2 or 5 × 10^k) that divides `span` into about `target` intervals. */
+export function niceStep(span: number, target: number): number {
+  if (!(span > 0) || !(target > 0)) throw new RangeError('niceStep: span and target must be > 0');
+  const raw = span / target;
+  const power = 10 ** Math.floor(Math.log10(raw));
+  const fraction = raw / power;
+  const nice = fraction <= 1.5 ? 1 : fraction <= 3.5 ? 2 : fraction <= 7.5 ? 5 : 10;
+  return nice * power;
+}
+
+/** Round-number ticks covering [min, max]: the axis is widened to the outer ticks. */
+export function niceTicks(min: number, max: number, target = 5): number[] {
+  const lo = Math.min(min, max);
+  let hi = Math.max(min, max);
+  if (hi === lo) hi = lo + 1;
+  const step = niceStep(hi - lo, target);
+  const first = Math.floor(lo / step) * step;
+  const ticks: number[] = [];
+  for (let t = first; t <= hi + step * 1e-9; t += step) ticks.push(Number(t.toPrecision(12)));
+  if (ticks[ticks.length - 1]! < hi)
+    ticks.push(Number((ticks[ticks.length - 1]! + step).toPrecision(12)));
+  return ticks;
+}
+
+/** A decade's label: plain digits from 0.001 to 10,000, otherwise a power of ten. */
+export function decadeLabel(exponent: number): { base: string; exponent: string | null } {
+  if (exponent >= -3 && exponent <= 4) {
+    return {
+      base: exponent < 0 ? (10 ** exponent).toFixed(-exponent) : String(10 ** exponent),
+      exponent: null,
+    };
+  }
+  return { base: '10', exponent: exponent < 0 ? `−${-exponent}` : String(exponent) };
+}
+
+/** Whole decades covering [minValue, maxValue] (both > 0), at most `max` labels apart evenly. */
+export function decadeTicks(minValue: number, maxValue: number, max = 8): number[] {
+  if (!(minValue > 0) || !(maxValue > 0)) throw new RangeError('decadeTicks: values must be > 0');
+  let lo = Math.floor(Math.log10(Math.min(minValue, maxValue)));
+  let hi = Math.ceil(Math.log10(Math.max(minValue, maxValue)));
+  if (hi === lo) {
+    lo -= 1;
+    hi += 1;
+  }
+  const every = Math.max(1, Math.ceil((hi - lo) / max));
+  const ticks: number[] = [];
+  for (let k = lo; k <= hi; k += every) ticks.push(k);
+  if (ticks[ticks.length - 1] !== hi) ticks.push(hi);
+  return ticks;
+}

@@ -1,0 +1,75 @@
+import { createRequire } from 'node:module';
+import PDFDocument from 'pdfkit';
+
+const require = createRequire(import.meta.url);
+/** IBM Plex Sans static TTFs from the installed font package (no machine paths). */
+const FONTS = {
+  regular:
+    require.resolve('@expo-google-fonts/ibm-plex-sans/400Regular/IBMPlexSans_400Regular.ttf'),
+  bold: require.resolve('@expo-google-fonts/ibm-plex-sans/600SemiBold/IBMPlexSans_600SemiBold.ttf'),
+};
+
+export const INK = '#1d2733';
+export const MUTED = '#5b6773';
+export const ACCENT = '#1f6f8b';
+export const GRID = '#d5dbe1';
+
+/** Resistivity's unit as the screens write it. */
+export const OHM_CM = 'Ω·cm';
+
+/** Formats a number to `digits` significant figures (exponent form for very large/small). */
+export function sig(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '–';
+  const a = Math.abs(value);
+  return a !== 0 && (a < 1e-3 || a >= 1e5)
+    ? value.toExponential(digits - 1).replace(/e\+?/, ' × 10^')
+    : value.toPrecision(digits);
+}
+
+/** A geometry value in words with the unit a lab reads it in (stored in cm). */
+const GEOMETRY_WORDS: Record<string, { label: string; unit: string; scale: number }> = {
+  thicknessCm: { label: 'thickness', unit: 'µm', scale: 1e4 },
+  diameterCm: { label: 'diameter', unit: 'mm', scale: 10 },
+  spacingCm: { label: 'probe spacing', unit: 'mm', scale: 10 },
+  barLengthCm: { label: 'bar length', unit: 'mm', scale: 10 },
+  barWidthCm: { label: 'bar width', unit: 'mm', scale: 10 },
+  rtdR0Ohm: { label: 'thermometer R0', unit: 'Ω', scale: 1 },
+};
+
+/** A sweep's geometry as words and units ("thickness 525 µm, diameter 150 mm"). */
+export function geometryText(geometry: Record<string, unknown>): string {
+  return Object.entries(geometry)
+    .flatMap(([key, value]) => {
+      const words = GEOMETRY_WORDS[key];
+      if (!words || typeof value !== 'number' || !Number.isFinite(value)) return [];
+      return [`${words.label} ${sig(value * words.scale)} ${words.unit}`];
+    })
+    .join(', ');
+}
+
+/** An A4 document in IBM Plex Sans and the promise of its bytes once `doc.end()` is called. */
+export function openPdf(
+  info: PDFKit.DocumentInfo,
+  options: { compress?: boolean } = {},
+): { doc: PDFKit.PDFDocument; done: Promise<Buffer> } {
+  const doc = new PDFDocument({
+    size: 'A4',
+    margin: 50,
+    compress: options.compress ?? true,
+    info: { Author: 'Rhotrace', ...info },
+  });
+  const chunks: Buffer[] = [];
+  doc.on('data', (c: Buffer) => chunks.push(c));
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)));
+    doc.on('error', reject);
+  });
+  doc.registerFont('plex', FONTS.regular);
+  doc.registerFont('plex-bold', FONTS.bold);
+  return { doc, done };
+}
+
+/** Starts a new page when fewer than `heightPt` points remain above the bottom margin. */
+export function keepSpace(doc: PDFKit.PDFDocument, heightPt: number): void {
+  if (doc.y + heightPt > doc.page.height - doc.page.margins.bottom) doc.addPage();
+}

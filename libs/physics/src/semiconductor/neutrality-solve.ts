@@ -1,0 +1,184 @@
+/**
+ * The charge-neutrality root: the Fermi level at one temperature, by a safeguarded Newton
+ * iteration on the analytic derivative with Brent's method as the fallback.
+ */
+import { BOLTZMANN_EV_PER_K } from '../constants';
+import { PHYSICS_DEFAULTS } from '../defaults';
+import { brentRoot } from '../numeric/brent';
+import { logAddExp, logisticComplement, softplus } from '../numeric/log-math';
+import { bandGapUnchecked } from './band-gap';
+import type { DensityOfStatesSet } from './density-of-states';
+import { logDensityOfStates } from './density-of-states';
+import type { ResolvedDoping } from './dopants';
+import type { SemiconductorId } from './material';
+
+/** @internal The terms of the neutrality equation that depend on temperature only. */
+export interface TemperatureTerms {
+  temperatureK: number;
+  kT: number;
+  bandGapEv: number;
+  /** Eg / kT. */
+  epsG: number;
+  lnNc: number;
+  lnNv: number;
+}
+
+/** @internal Computes the temperature-only terms once, to be shared by every doping. */
+export function temperatureTerms(
+  material: SemiconductorId,
+  set: DensityOfStatesSet,
+  temperatureK: number,
+): TemperatureTerms {
+  const kT = BOLTZMANN_EV_PER_K * temperatureK;
+  const bandGapEv = bandGapUnchecked(material, temperatureK);
+  const { lnNc, lnNv } = logDensityOfStates(set, material, temperatureK);
+  return { temperatureK, kT, bandGapEv, epsG: bandGapEv / kT, lnNc, lnNv };
+}
+
+const LN_GD = Math.log(PHYSICS_DEFAULTS.donorDegeneracy);
+const LN_GA = Math.log(PHYSICS_DEFAULTS.acceptorDegeneracy);
+/** The bracket spans the gap plus a margin wide enough for 1e22 cm^-3 against Nc or Nv at 1 K. */
+const BRACKET_MARGIN = 80;
+const NEWTON_MAX_STEPS = 60;
+const NEWTON_STEP_TOLERANCE = 1e-8;
+
+/**
+ * @internal The neutrality function g(eta) = ln(p + N_D^+) - ln(n + N_A^-), eta = E_F / kT
+ * from the valence band edge, with its derivative; g falls monotonically in eta.
+ */
+export interface NeutralityFunction {
+  value: (eta: number) => number;
+  /** g and dg/deta at eta; `slope` is written to the object passed in. */
+  valueAndSlope: (eta: number, out: { slope: number }) => number;
+  /** Shifts of the donor and acceptor occupancy exponents (ln g + level terms). */
+  donorShift: number;
+  acceptorShift: number;
+  lnNcMinusG: number;
+}
+
+/** @internal Builds g(eta) and g'(eta) for one doping at one temperature. */
+export function neutralityFunction(
+  terms: TemperatureTerms,
+  doping: ResolvedDoping,
+): NeutralityFunction {
+  const { kT, epsG, lnNc, lnNv } = terms;
+  const lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
+  const lnNa =
+    doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
+  // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
+  const donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
+  const acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
+  // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
+  const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
+  const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
+  const donorsFull = bD === 0;
+  const acceptorsFull = bA === 0;
+  const lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
+  const lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
+  const lnBD = donorsFull ? 0 : Math.log(bD);
+  const lnBA = acceptorsFull ? 0 : Math.log(bA);
+  const lnNcMinusG = lnNc - epsG;
+
+  const value = (eta: number): number => {
+    const lnP = lnNv - eta;
+    const lnN = lnNcMinusG + eta;
+    const lnDp = donorsFull ? lnNd : lnNd + logAddExp(lnFreeD, lnBD - softplus(donorShift + eta));
+    const lnAm = acceptorsFull
+      ? lnNa
+      : lnNa + logAddExp(lnFreeA, lnBA - softplus(acceptorShift - eta));
+    return logAddExp(lnP, lnDp) - logAddExp(lnN, lnAm);
+  };
+
+  // d ln F / d eta of F = (1 - b) + b / (1 + e^s): -b e^-softplus(s) logistic(s) / F, with
+  // ds/deta = +1 for the donors and -1 for the acceptors. The same expressions as `value`.
+  const valueAndSlope = (eta: number, out: { slope: number }): number => {
+    const lnP = lnNv - eta;
+    const lnN = lnNcMinusG + eta;
+    let lnDp = lnNd;
+    let dLnDp = 0;
+    if (!donorsFull) {
+      const s = donorShift + eta;
+      const bound = lnBD - softplus(s);
+      const lnF = logAddExp(lnFreeD, bound);
+      lnDp = lnNd + lnF;
+      dLnDp = -Math.exp(bound - lnF) * logisticComplement(-s);
+    }
+    let lnAm = lnNa;
+    let dLnAm = 0;
+    if (!acceptorsFull) {
+      const s = acceptorShift - eta;
+      const bound = lnBA - softplus(s);
+      const lnF = logAddExp(lnFreeA, bound);
+      lnAm = lnNa + lnF;
+      dLnAm = Math.exp(bound - lnF) * logisticComplement(-s);
+    }
+    const u = logAddExp(lnP, lnDp);
+    const v = logAddExp(lnN, lnAm);
+    const du = -Math.exp(lnP - u) + (dLnDp === 0 ? 0 : Math.exp(lnDp - u) * dLnDp);
+    const dv = Math.exp(lnN - v) + (dLnAm === 0 ? 0 : Math.exp(lnAm - v) * dLnAm);
+    out.slope = du - dv;
+    return u - v;
+  };
+  return { value, valueAndSlope, donorShift, acceptorShift, lnNcMinusG };
+}
+
+/** @internal The root eta and how it was found. */
+export interface NeutralityRoot {
+  eta: number;
+  /** Newton iterations taken (0 when Brent's method gave the root). */
+  newtonSteps: number;
+  converged: boolean;
+}
+
+/**
+ * @internal Solves g(eta) = 0 inside [-80, Eg/kT + 80] from a starting point (a neighbour's
+ * root, else an estimate from the net doping): Newton steps eta - g/g' on the analytic
+ * derivative, each checked against the bracket that the signs of g seen so far leave (a step
+ * outside it is replaced by bisection), stopping after a Newton step below 1e-8 (the error left
+ * is then of order 1e-16); g is monotone, so the bracket always holds the root. Should the iteration not
+ * settle within 60 steps, Brent's method on the whole bracket (tolerance 1e-10) gives the root as
+ * before. Source: Press et al., Numerical Recipes, 3rd ed. (2007), section 9.4 (rtsafe).
+ */
+export function neutralityRoot(
+  g: NeutralityFunction,
+  terms: TemperatureTerms,
+  doping: ResolvedDoping,
+  guessEta = Number.NaN,
+): NeutralityRoot {
+  let lo = -BRACKET_MARGIN;
+  let hi = terms.epsG + BRACKET_MARGIN;
+  let eta = guessEta;
+  if (!(eta > lo && eta < hi)) eta = startingEta(g, terms, doping, lo, hi);
+  const out = { slope: 0 };
+  for (let step = 1; step <= NEWTON_MAX_STEPS; step++) {
+    const value = g.valueAndSlope(eta, out);
+    if (value === 0) return { eta, newtonSteps: step, converged: true };
+    if (value > 0) lo = eta;
+    else hi = eta;
+    const next = eta - value / out.slope;
+    // Newton converges quadratically: after a step of 1e-8 the error left is about
+    // |g'' / 2g'| 1e-16, far below the rounding of g (1e-13 for eta near 1e3), so a stricter
+    // test would only chase rounding noise. A step this small is taken only next to a root.
+    if (Math.abs(next - eta) <= NEWTON_STEP_TOLERANCE) {
+      return { eta: next, newtonSteps: step, converged: true };
+    }
+    eta = next > lo && next < hi ? next : 0.5 * (lo + hi);
+  }
+  const r = brentRoot(g.value, -BRACKET_MARGIN, terms.epsG + BRACKET_MARGIN, 1e-10, 300);
+  return { eta: r.root, newtonSteps: 0, converged: r.converged };
+}
+
+/** eta where the majority carrier equals the net doping (or midgap when compensated). */
+function startingEta(
+  g: NeutralityFunction,
+  terms: TemperatureTerms,
+  doping: ResolvedDoping,
+  lo: number,
+  hi: number,
+): number {
+  const net = doping.donorDensity - doping.acceptorDensity;
+  let eta = 0.5 * (terms.lnNv - g.lnNcMinusG);
+  if (net > 0) eta = Math.max(eta, Math.log(net) - g.lnNcMinusG);
+  else if (net < 0) eta = Math.min(eta, terms.lnNv - Math.log(-net));
+  return Math.min(Math.max(eta, lo + 1), hi - 1);
+}
