@@ -64,7 +64,25 @@ const summaryShape = {
     .nullable()
     .optional()
     .describe('Set when a probe station posted the sweep with its token'),
+  flaggedPoints: z.number().int().optional().describe('Points carrying a doubtful flag'),
 };
+
+/** A doubtful point and why (issue 15 findings). */
+export const findingSchema = z
+  .object({
+    sequence: z.number().int(),
+    row: z.number().int(),
+    flag: z.enum(POINT_FLAGS),
+    reason: z.string(),
+  })
+  .strict();
+
+const temperatureConversion = z
+  .object({
+    kind: z.enum(['kelvin', 'celsius', 'platinum-rtd', 'thermocouple', 'table']),
+    description: z.string(),
+  })
+  .strict();
 
 /** A sweep without its points. */
 export const sweepSummarySchema = registry.register(
@@ -84,6 +102,7 @@ const point = z
     sheetResistanceOhmSq: z.number().nullable(),
     resistivityOhmCm: z.number(),
     flags: z.array(z.enum(POINT_FLAGS)),
+    leg: z.number().int().nullable().optional(),
   })
   .strict();
 
@@ -102,6 +121,8 @@ const sweepSchema = registry.register(
           rowCount: z.number().int(),
           warnings: z.array(z.string()),
           flaggedPoints: z.number().int(),
+          findings: z.array(findingSchema).optional(),
+          temperature: temperatureConversion.optional(),
         })
         .strict(),
       points: z.array(point),
@@ -136,6 +157,8 @@ const previewSchema = z
     rowCount: z.number().int(),
     problems: z.array(rowProblem),
     suggestedMethod: z.enum(SWEEP_METHODS).nullable(),
+    temperature: temperatureConversion.nullable().optional(),
+    temperatureNote: z.string().nullable().optional(),
   })
   .strict() satisfies z.ZodType<SweepPreviewResponse>;
 
