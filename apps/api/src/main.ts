@@ -33,7 +33,7 @@ server.on('error', (error: NodeJS.ErrnoException) => {
 let stopHousekeeping: (() => void) | null = null;
 server.listen(config.port, config.host, () => {
   mailer.start();
-  stopHousekeeping = startHousekeeping({ sequelize, config, logger });
+  stopHousekeeping = startHousekeeping({ sequelize, config, logger, mailer });
   console.log(`[api] listening on http://${config.host}:${config.port}`);
 });
 

@@ -16,6 +16,7 @@ import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
+import { mapsRouter } from './maps/maps.router';
 import { openApiRouter } from './openapi/openapi.router';
 import { searchRouter } from './search/search.router';
 import { plannerRouter } from './planner/planner.router';
@@ -43,6 +44,7 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(analysisRouter(deps));
   router.use(fitsRouter(deps));
   router.use(reportsRouter(deps));
+  router.use(mapsRouter(deps));
   router.use(plannerRouter(deps));
   return router;
 }

@@ -2,6 +2,7 @@
  * Analysis API shapes: model curves, materials, sweep analysis, fits, dopant density, lot
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
+import type { LotUniformitySpread, WaferUniformity } from './maps';
 import type { HallAnalysis, HallAt300K } from './hall';
 import type { PointFinding } from './sweeps';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
@@ -24,6 +25,8 @@ export interface ModelCurveRequest {
   material: string;
   /** Required for semiconductors; ignored for metal films. */
   doping?: DopingInput;
+  /** Factor on both mobilities, as a full-model fit reports it (semiconductors); default 1. */
+  mobilityScale?: number;
   fromK: number;
   toK: number;
   /** 2 to 2000 temperatures, evenly spaced from fromK to toK inclusive. */
@@ -267,6 +270,11 @@ export interface LotSummaryWafer extends ValueUncertainty {
     maxK: number | null;
     quantity: string;
   }>;
+  /**
+   * When the sweep behind the 23 °C value is a wafer map: its uniformity at the step nearest
+   * 23 °C (over the sites not excluded); null otherwise.
+   */
+  uniformity?: WaferUniformity | null;
   /** The wafer's latest Hall sweep at 300 K, null when it has none. */
   hall?: HallAt300K | null;
 }
@@ -293,6 +301,8 @@ export interface LotSummaryResponse {
     /** Always null: within-wafer repeatability is not measured (see `cpkReason`); use `ppk`. */
     cpk: number | null;
     cpkReason: string | null;
+    /** The spread of the map wafers' uniformities; null without two-site maps. */
+    uniformity?: LotUniformitySpread | null;
   };
 }
 

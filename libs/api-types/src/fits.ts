@@ -41,6 +41,11 @@ export interface FitRequestOptions {
   stepToleranceK?: number;
   /** Standard uncertainty of each step's temperature, K (effective variance). Default 0. */
   temperatureUncertaintyK?: number;
+  /**
+   * On a map sweep, the site to fit (its label, or `x,y` in mm when it has none); without it a
+   * map is fitted on its map mean (the mean over the sites not excluded, per temperature step).
+   */
+  site?: string;
 }
 
 /** `POST /api/sweeps/:id/fits` body, by kind. */

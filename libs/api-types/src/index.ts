@@ -68,6 +68,21 @@ export type {
   FitPreviewDto,
 } from './fits';
 export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
+export { MAP_CORRECTIONS, DEFAULT_EDGE_EXCLUSION_MM } from './maps';
+export type {
+  MapCorrection,
+  SweepMapInput,
+  SweepMapInfo,
+  MapSiteDto,
+  MapStatisticsDto,
+  MapAtTemperatureDto,
+  PatternSiteDto,
+  SweepMapResponse,
+  LotWaferMapDto,
+  LotMapsResponse,
+  WaferUniformity,
+  LotUniformitySpread,
+} from './maps';
 export { PLAN_SPACINGS, PLAN_METHODS, CURRENT_LIMITS } from './planner';
 export type {
   PlanSpacing,
@@ -166,5 +181,6 @@ export type {
   PointQuantities,
   HallFactorName,
   HallImportReport,
+  SweepSite,
   SweepDto,
 } from './sweeps';

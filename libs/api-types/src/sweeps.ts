@@ -1,3 +1,4 @@
+import type { SweepMapInfo } from './maps';
 import type { StationUploadDto } from './station-tokens';
 
 /** How a sweep's readings become resistivity. */
@@ -13,6 +14,10 @@ export type SweepMethod = (typeof SWEEP_METHODS)[number];
 
 /**
  * What a column of an imported file holds. `resistance` is V/I (for van der Pauw: R_A) and
+ * `resistance-b` the second van der Pauw configuration (R_B; on a four-point map, the second
+ * configuration of a dual-configuration reading); `other` is kept raw only. A map file places
+ * each reading at a site: `site-x` and `site-y` in mm from the wafer centre, or `site`, a site
+ * number of the pattern named in the upload (`sitePattern`); `site-label` names the site.
  * `resistance-b` the second van der Pauw configuration (R_B); `other` is kept raw only.
  * Hall sweeps add `magnetic-field` and either `hall-voltage` (already corrected for offsets) or
  * the four reversals `hall-voltage-xy` (x the field sign, y the current sign; p = +, n = -).
@@ -30,6 +35,10 @@ export const COLUMN_MEANINGS = [
   'time',
   'index',
   'other',
+  'site-x',
+  'site-y',
+  'site',
+  'site-label',
   'magnetic-field',
   'hall-voltage',
   'hall-voltage-pp',
@@ -46,6 +55,8 @@ export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
  * - `temperature-reversal`: temperature moved against the ramp direction;
  * - `polarity-averaged`: combined from a forward and a reverse reading (`raw` holds both rows);
  * - `unpaired-polarity`: a forward or reverse reading without its partner, stored on its own;
+ * - `edge-exclusion`: a map site closer to the wafer edge than the upload's edge exclusion
+ *   (stored and shown, left out of the map statistics and the map mean);
  * - `outlier`: ln rho lies beyond a Hampel filter's bound within its leg;
  * - `polarity-asymmetry`: forward and reverse readings differ by more than 2 %;
  * - `self-heating`: the higher of two current levels at one step reads beyond the scatter;
@@ -58,6 +69,7 @@ export const POINT_FLAGS = [
   'temperature-reversal',
   'polarity-averaged',
   'unpaired-polarity',
+  'edge-exclusion',
   'outlier',
   'polarity-asymmetry',
   'self-heating',
@@ -160,6 +172,8 @@ export interface SweepSummaryDto {
   minTemperatureK: number | null;
   maxTemperatureK: number | null;
   createdAt: string;
+  /** Set when the sweep is a wafer map (its points carry sites). */
+  map?: SweepMapInfo | null;
   /** Set when a probe station posted the sweep with its token. */
   uploadedVia?: StationUploadDto | null;
   /** Points carrying a doubtful flag (`parseReport.flaggedPoints`); absent on old sweeps. */
@@ -224,6 +238,8 @@ export interface SweepPointDto {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
   flags: PointFlag[];
+  /** Where on the wafer the point was measured (map sweeps), else null or absent. */
+  site?: SweepSite | null;
   /** Measured or derived quantities beyond resistivity (Hall sweeps), null when none. */
   quantities?: PointQuantities | null;
   /** The ramp leg (1, 2, ...) the point belongs to; null on sweeps imported before legs. */
@@ -266,6 +282,13 @@ export interface HallImportReport {
   mixedConduction: boolean;
   /** Whether the Hall voltage came from the four reversals or one corrected column. */
   hallVoltageFrom: 'reversals' | 'corrected-column';
+}
+
+/** A map point's site: mm from the wafer centre (y away from the flat or notch). */
+export interface SweepSite {
+  xMm: number;
+  yMm: number;
+  label: string | null;
 }
 
 /** `GET /api/sweeps/:id`. */

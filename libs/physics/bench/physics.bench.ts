@@ -111,7 +111,7 @@ function brentCurve(): number {
   for (const t of temps1000) {
     const terms = temperatureTerms('Si', set, t);
     const g = neutralityFunction(terms, d);
-    sum += brentRoot(g.value, -80, terms.epsG + 80, 1e-10, 300).root;
+    sum += brentRoot((x) => g.value(x), -80, terms.epsG + 80, 1e-10, 300).root;
   }
   return sum;
 }

@@ -63,6 +63,18 @@ export type { FourPointProbeResult } from './probe/four-point';
 export { vanDerPauw } from './probe/van-der-pauw';
 export type { VanDerPauwResult } from './probe/van-der-pauw';
 export { barResistivity } from './probe/bar';
+export { edgeCorrectionFactor, PROBE_ORIENTATIONS } from './probe/edge-correction';
+export type { ProbeOrientation } from './probe/edge-correction';
+export {
+  dualConfiguration,
+  DUAL_CONFIGURATION_IDEAL_RATIO,
+  DUAL_CONFIGURATION_RATIO_RANGE,
+} from './probe/dual-configuration';
+export type { DualConfigurationResult } from './probe/dual-configuration';
+export { GRID_49_PITCH, patternSiteMm, SITE_PATTERN_IDS, SITE_PATTERNS } from './map/site-patterns';
+export type { PatternSite, SitePatternId } from './map/site-patterns';
+export { mapUniformity } from './map/uniformity';
+export type { MapSiteValue, MapUniformity } from './map/uniformity';
 export {
   denseAround,
   MAX_PLAN_STEPS,

@@ -9,6 +9,7 @@ import { UNCERTAINTY_SOURCES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { dateTime } from '../openapi/shapes';
 import { findingSchema } from '../sweeps/sweep.openapi';
+import { hallAnalysisSchema, hallAt300KSchema } from './hall-responses';
 
 const regime = z.enum(['freeze-out', 'extrinsic', 'intrinsic']);
 const verdict = z.enum(['pass', 'fail', 'indeterminate']);
@@ -116,6 +117,7 @@ export const sweepAnalysisResponse = z
       .optional(),
     findings: z.array(findingSchema).optional(),
     flaggedPoints: z.number().int().optional(),
+    hall: hallAnalysisSchema.optional(),
   })
   .strict() satisfies z.ZodType<SweepAnalysisResponse>;
 
@@ -176,6 +178,18 @@ export const lotSummaryResponse = z
               })
               .strict(),
           ),
+          hall: hallAt300KSchema.nullable().optional(),
+          uniformity: z
+            .object({
+              temperatureK: z.number(),
+              siteCount: z.number().int(),
+              stdDevPercent: nullableNumber,
+              rangePercent: z.number(),
+            })
+            .strict()
+            .nullable()
+            .optional()
+            .describe("A map wafer's uniformity at the step nearest 23 °C"),
         })
         .strict(),
     ),
@@ -195,6 +209,18 @@ export const lotSummaryResponse = z
         maxOhmCm: nullableNumber,
         cpk: nullableNumber,
         cpkReason: z.string().nullable(),
+        uniformity: z
+          .object({
+            count: z.number().int(),
+            meanStdDevPercent: z.number(),
+            minStdDevPercent: z.number(),
+            maxStdDevPercent: z.number(),
+            stdDevOfStdDevPercent: nullableNumber,
+          })
+          .strict()
+          .nullable()
+          .optional()
+          .describe("The spread of the map wafers' uniformities"),
       })
       .strict(),
   })
@@ -215,6 +241,7 @@ export const compareResponse = z
           minTemperatureK: z.number(),
           maxTemperatureK: z.number(),
           resistivityOhmCm: z.array(nullableNumber),
+          hall: hallAt300KSchema.optional(),
         })
         .strict(),
     ),

@@ -23,9 +23,8 @@ export function getMaterials(req: Request, res: Response): void {
 
 /** `GET /api/sweeps/:id/analysis`. */
 export async function getSweepAnalysis(req: Request, res: Response): Promise<void> {
-  const user = currentUser(req);
-  const { leg } = parseOrThrow(analysisQuerySchema, req.query, 'query');
-  res.json(await sweepAnalysis(user, parseId(req.params), leg));
+  const { leg, site } = parseOrThrow(analysisQuerySchema, req.query, 'query');
+  res.json(await sweepAnalysis(currentUser(req), parseId(req.params), leg, site ?? null));
 }
 
 /** `GET /api/wafers/:id/dopant`. */

@@ -37,6 +37,11 @@ export const curveSchema = z
       errorMap: () => ({ message: `must be one of ${MATERIALS.join(', ')}` }),
     }),
     doping: dopingSchema.optional(),
+    mobilityScale: z
+      .number({ invalid_type_error: 'must be a number' })
+      .gt(0, 'must be above 0')
+      .max(1e6, 'must be at most 1e6')
+      .optional(),
     fromK: temperature('fromK'),
     toK: temperature('toK'),
     steps: z
@@ -63,5 +68,13 @@ export const legSchema = z.union([
     .positive('must be a leg number (1, 2, ...) or all'),
 ]);
 
-/** `GET /api/sweeps/:id/analysis?leg=` */
-export const analysisQuerySchema = z.object({ leg: legSchema.optional() }).strict();
+/**
+ * `GET /api/sweeps/:id/analysis` query: `leg` picks a ramp leg (or `all`); on a map sweep,
+ * `site` names one site (its label, or `x,y` in mm); without it the map mean is analysed.
+ */
+export const analysisQuerySchema = z
+  .object({
+    leg: legSchema.optional(),
+    site: z.string().trim().min(1, 'must name a site').max(64).optional(),
+  })
+  .passthrough();

@@ -32,9 +32,11 @@ export async function sweepAnalysis(
   user: SessionUser,
   sweepId: number,
   requestedLeg?: number | 'all',
+  site: string | null = null,
 ): Promise<SweepAnalysisResponse> {
   const v = await visibleSweep(user, sweepId);
-  const { points: all, skipped } = await sweepReadings(v.sweep);
+  const { points: all, skipped } = await sweepReadings(v.sweep, undefined, site);
+  // a map's readings are its site means per step: one leg, so `leg` is null there
   const readings = await legReadings(v.sweep);
   const legs = describeLegs(readings);
   const leg = chooseLeg(legs, requestedLeg);

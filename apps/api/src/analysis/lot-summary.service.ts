@@ -14,6 +14,7 @@ import { Wafer } from '../wafers/wafer.model';
 import { hallAt300K } from './hall-analysis';
 import { specVerdict } from './spec-check';
 import { waferAssessment } from './spec.service';
+import { lotUniformitySpread, waferUniformity } from '../maps/maps.service';
 
 /** Why `cpk` is null: Cpk needs the within-wafer (short-term) spread, which is not measured. */
 export const CPK_REASON =
@@ -48,7 +49,7 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
   });
 
   const sweeps = await Sweep.findAll({
-    attributes: ['id', 'waferId'],
+    attributes: ['id', 'waferId', 'sha256', 'createdAt', 'pointCount', 'mapInfo'],
     where: { waferId: { [Op.in]: wafers.map((w) => w.id) } },
   });
   const fits = await Fit.findAll({
@@ -72,8 +73,10 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
       lot.specMinOhmCm,
       lot.specMaxOhmCm,
     );
+    const sweep = found.sweepId === null ? null : sweeps.find((s) => s.id === found.sweepId);
     const latestHall = hallSweeps.find((s) => s.waferId === wafer.id);
     rows.push({
+      uniformity: sweep ? await waferUniformity(sweep) : null,
       hall: latestHall ? await hallAt300K(latestHall) : null,
       waferId: wafer.id,
       number: wafer.number,
@@ -127,6 +130,7 @@ export async function lotSummary(user: SessionUser, lotId: number): Promise<LotS
       ...lotCapability(rows, lot.specMinOhmCm, lot.specMaxOhmCm),
       cpk: null,
       cpkReason: CPK_REASON,
+      uniformity: lotUniformitySpread(rows),
     },
   };
 }

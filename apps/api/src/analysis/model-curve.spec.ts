@@ -42,6 +42,29 @@ describe('POST /api/model/curve', () => {
     expect(res.body.warnings).toEqual(modelCurveWarnings('Si', body.doping as never, temps));
   });
 
+  it('scales both mobilities by a fitted mobility scale, so ρ divides by it, and refuses 0', async () => {
+    const scaled = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('physicist'))
+      .send({ ...body, mobilityScale: 0.5 });
+    expect(scaled.status).toBe(200);
+    const plain = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('physicist'))
+      .send(body);
+    // sigma = q (n mu_n + p mu_p): halving both mobilities doubles rho (common practice, no source).
+    const i = 100;
+    expect(
+      scaled.body.points[i].resistivityOhmCm / plain.body.points[i].resistivityOhmCm,
+    ).toBeCloseTo(2, 9);
+    const zero = await request(ctx.app)
+      .post('/api/model/curve')
+      .set(ctx.auth('physicist'))
+      .send({ ...body, mobilityScale: 0 });
+    expect(zero.status).toBe(400);
+    expect(JSON.stringify(zero.body)).toContain('mobilityScale');
+  });
+
   it('warns when the Arora mobility leaves its 200-500 K range and near degeneracy', async () => {
     // Issue 13, defect 10: Arora, Hauser & Roulston 1982 fitted about 200-500 K; 20-800 K
     // extrapolates. The library's near-degeneracy flag (Fermi level within 3 kT of a band

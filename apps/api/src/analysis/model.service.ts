@@ -25,6 +25,7 @@ import { withPhysics } from './physics-errors';
 export interface CurveQuery {
   material: string;
   doping?: DopingInput;
+  mobilityScale?: number;
   fromK: number;
   toK: number;
   steps: number;
@@ -67,7 +68,10 @@ export function curveFor(q: CurveQuery): ModelCurveResponse {
     }
     const material = q.material;
     const doping = q.doping as Doping;
-    const points = withPhysics('body.doping', () => modelCurve(material, doping, temperatures));
+    const options = { mobilityScale: q.mobilityScale ?? 1 };
+    const points = withPhysics('body.doping', () =>
+      modelCurve(material, doping, temperatures, options),
+    );
     const boundaries = withPhysics('body.doping', () => regimeBoundaries(material, doping));
     const warnings = withPhysics('body.doping', () =>
       modelCurveWarnings(material, doping, temperatures),

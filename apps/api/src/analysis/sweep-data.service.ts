@@ -1,9 +1,17 @@
-import type { AnalysisStep, AnalysisSweepDto, PointQuantities } from '@rhotrace/api-types';
+import type {
+  AnalysisStep,
+  AnalysisSweepDto,
+  MapAtTemperatureDto,
+  PointQuantities,
+} from '@rhotrace/api-types';
 import { FIT_EXCLUDED_FLAGS } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
 import type { VisibleSweep } from '../access/visibility.service';
 import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
 import { SweepPoint } from '../sweeps/sweep.model';
+import { badRequest } from '../errors';
+import { mapReadings, mapSeries, mapsOf, siteName } from '../maps/map-data';
+import { loadMapPointRows } from '../maps/maps.service';
 
 /**
  * Readings closer than this to the first reading of a step belong to the same temperature
@@ -39,6 +47,8 @@ interface CachedReadings {
   skippedK: number[];
   /** Readings left out whose temperature is not finite (in no window). */
   skippedNoTemperature: number;
+  /** A map sweep's maps (its points carry sites), else null. */
+  maps: MapAtTemperatureDto[] | null;
 }
 
 /** Readings kept across all cached sweeps (about 60 bytes each). */
@@ -53,10 +63,20 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
   const hit = readingsCache.get(sweep);
   if (hit) return hit;
   const rows = await SweepPoint.findAll({
-    attributes: ['sequence', 'temperatureK', 'resistivityOhmCm', 'flags', 'quantities', 'leg'],
+    attributes: [
+      'sequence',
+      'temperatureK',
+      'resistivityOhmCm',
+      'flags',
+      'quantities',
+      'leg',
+      'siteXMm',
+      'siteYMm',
+    ],
     where: { sweepId: sweep.id },
     raw: true,
   });
+  if (rows.some((r) => r.siteXMm !== null)) return loadMapReadings(sweep);
   const usable: Array<{
     point: AnalysisPoint;
     sequence: number;
@@ -94,7 +114,48 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     legs: Int16Array.from(usable, (u) => u.leg),
     skippedK,
     skippedNoTemperature,
+    maps: null,
   });
+}
+
+/**
+ * A map sweep's readings: per temperature step, one reading per site not excluded, at the
+ * step's mean temperature, so that a step's mean is the map mean and its spread the
+ * site-to-site spread (the 23 °C value's repeatability is then the standard error of the site
+ * mean). Sites in the edge exclusion are left out, as from the map statistics.
+ */
+async function loadMapReadings(sweep: SweepIdentity): Promise<CachedReadings> {
+  const maps = mapsOf(await loadMapPointRows(sweep.id));
+  const readings = mapReadings(maps);
+  return readingsCache.remember(sweep, {
+    points: readings,
+    sequences: new Int32Array(readings.length),
+    excludable: new Uint8Array(readings.length),
+    legs: new Int16Array(readings.length),
+    skippedK: [],
+    skippedNoTemperature: 0,
+    maps,
+  });
+}
+
+/**
+ * The readings of one site of a map (its averaged value per step); a 400 naming `site` when
+ * the sweep is no map or has no such site.
+ */
+function siteReadings(cached: CachedReadings, site: string): AnalysisPoint[] {
+  if (!cached.maps) {
+    throw badRequest('This sweep is not a map', [
+      { field: 'site', problem: 'only a map sweep has sites; leave site out' },
+    ]);
+  }
+  const points = mapSeries(cached.maps, site);
+  if (!points.length) {
+    const known = [...new Set(cached.maps.flatMap((m) => m.sites.map(siteName)))].slice(0, 10);
+    throw badRequest(`The map has no site "${site}"`, [
+      { field: 'site', problem: `is not a site of this map (sites include ${known.join(', ')})` },
+    ]);
+  }
+  return points;
 }
 
 /** A stored quantities document, as text from a raw read. */
@@ -118,8 +179,10 @@ export async function sweepFitReadings(
   sweep: SweepIdentity,
   includeFlagged: boolean,
   leg: number | null = null,
+  site: string | null = null,
 ): Promise<FitReadings> {
   const cached = await loadReadings(sweep);
+  if (site !== null) return { points: siteReadings(cached, site), excluded: [] };
   const inLeg = (i: number) => leg === null || cached.legs[i] === leg;
   if (includeFlagged) return { points: cached.points.filter((_, i) => inLeg(i)), excluded: [] };
   const points: AnalysisPoint[] = [];
@@ -169,8 +232,11 @@ function firstIndex(n: number, pred: (i: number) => boolean): number {
 export async function sweepReadings(
   sweep: SweepIdentity,
   window?: { minK: number; maxK: number },
+  site: string | null = null,
 ): Promise<SweepReadings> {
-  const cached = await loadReadings(sweep);
+  const loaded = await loadReadings(sweep);
+  const cached =
+    site === null ? loaded : { ...loaded, points: siteReadings(loaded, site), skippedK: [] };
   if (!window) {
     return {
       points: cached.points.slice(),

@@ -22,6 +22,8 @@ export class Assignment extends Model<
   declare notes: string | null;
   /** The probe station to measure on; its token may post the sweep. */
   declare stationId: CreationOptional<number | null>;
+  /** The day the assignee was last reminded of this task being overdue (null: never). */
+  declare remindedOn: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -38,6 +40,7 @@ export function initAssignmentModel(sequelize: Sequelize): void {
       state: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'assigned' },
       notes: DataTypes.TEXT,
       stationId: DataTypes.INTEGER,
+      remindedOn: DataTypes.DATEONLY,
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     },

@@ -3,6 +3,7 @@ import { ASSIGNMENT_STATES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { dateTime, pageOf, timestamps } from '../openapi/shapes';
+import { assignmentPlanSchema } from '../planner/planner.openapi';
 import { createBody, listQuery, overdueQuery, updateBody } from './assignments.schemas';
 
 /** An assignment as the API answers it. */
@@ -23,6 +24,7 @@ export const assignmentDtoSchema = registry.register(
       notes: z.string().nullable(),
       overdue: z.boolean(),
       safetyCautions: z.array(z.string()).optional(),
+      plan: assignmentPlanSchema.nullable().optional(),
       stationId: z.number().int().nullable().optional(),
       stationUpload: z
         .object({

@@ -1,7 +1,7 @@
 import jwt from 'jsonwebtoken';
 import { simpleParser } from 'mailparser';
 import request from 'supertest';
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, beforeEach, describe, expect, it, onTestFinished, vi } from 'vitest';
 import { PasswordReset, SignInThrottle } from '../users/user.model';
 import { createTestContext, TEST_PASSWORD, type TestContext } from '../testing/test-context';
 import { ACCOUNT_DEACTIVATED, SIGN_IN_FAILED } from './auth.service';
@@ -14,6 +14,12 @@ async function waitFor<T>(probe: () => T | undefined, timeoutMs = 5_000): Promis
     if (Date.now() - start > timeoutMs) throw new Error('timed out waiting');
     await new Promise((r) => setTimeout(r, 25));
   }
+}
+
+/** Stops `Date` (only) for the rest of a test; bcrypt's worker threads and timers run on. */
+function freezeClock(): void {
+  vi.useFakeTimers({ toFake: ['Date'], now: new Date() });
+  onTestFinished(() => void vi.useRealTimers());
 }
 
 describe('/api/auth', () => {
@@ -131,6 +137,8 @@ describe('/api/auth', () => {
   });
 
   it('slows an account after 3 failures, then refuses it for 15 minutes after 10', async () => {
+    // The clock stands still, so a slow machine cannot let the 1-second wait pass between calls.
+    freezeClock();
     const email = 'technician@test.rhotrace.example';
     for (let i = 1; i <= 3; i++) expect((await login(email, 'wrong-password')).status).toBe(401);
     const slowed = await login(email, TEST_PASSWORD);
@@ -160,6 +168,7 @@ describe('/api/auth', () => {
   });
 
   it('slows an address that fails across many accounts', async () => {
+    freezeClock();
     for (let i = 0; i < 20; i++) {
       expect((await login(`guess${i}@test.rhotrace.example`, 'wrong-password')).status).toBe(401);
     }

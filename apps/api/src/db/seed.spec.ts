@@ -21,7 +21,11 @@ describe('demo seed', () => {
 
   it('loads the invented lab once, with sweeps imported and fits saved, and is idempotent', async () => {
     const first = await seeder(ctx.sequelize).up();
-    expect(first.map((m) => m.name)).toEqual(['0001-demo-lab', '0002-demo-sweeps']);
+    expect(first.map((m) => m.name)).toEqual([
+      '0001-demo-lab',
+      '0002-demo-sweeps',
+      '0003-demo-maps',
+    ]);
     const second = await seeder(ctx.sequelize).up();
     expect(second).toEqual([]);
 
@@ -29,11 +33,13 @@ describe('demo seed', () => {
       await count(ctx, "SELECT COUNT(*) AS n FROM users WHERE email LIKE '%@rhotrace.example'"),
     ).toBe(DEMO_USERS.length);
     expect(await count(ctx, 'SELECT COUNT(*) AS n FROM lots')).toBe(DEMO_LOTS.length);
-    expect(await count(ctx, 'SELECT COUNT(*) AS n FROM sweeps')).toBe(5);
-    expect(await count(ctx, 'SELECT COUNT(*) AS n FROM raw_files')).toBe(5);
+    // five single-place sweeps and one wafer map
+    expect(await count(ctx, 'SELECT COUNT(*) AS n FROM sweeps')).toBe(6);
+    expect(await count(ctx, 'SELECT COUNT(*) AS n FROM sweeps WHERE map_info IS NOT NULL')).toBe(1);
+    expect(await count(ctx, 'SELECT COUNT(*) AS n FROM raw_files')).toBe(6);
     expect(await count(ctx, 'SELECT COUNT(*) AS n FROM fits WHERE converged = 1')).toBe(3);
     expect(await count(ctx, "SELECT COUNT(*) AS n FROM audit_events WHERE entity = 'sweep'")).toBe(
-      5,
+      6,
     );
   });
 

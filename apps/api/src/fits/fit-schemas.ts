@@ -25,6 +25,12 @@ export const fitOptionsShape = {
     .min(0, 'must be at least 0 K')
     .max(50, 'must be at most 50 K')
     .optional(),
+  site: z
+    .string()
+    .trim()
+    .min(1, 'must name a site')
+    .max(64, 'must be at most 64 characters')
+    .optional(),
 };
 
 /** Refuses minK >= maxK, naming maxK. */

@@ -49,6 +49,21 @@ const previewShape = {
       compensationSource: z.enum(['request', 'inferred', 'not-applicable']),
       prefactorExponent: z.number(),
       note: z.string(),
+      compensationRatio: z
+        .object({
+          value: z.number(),
+          confidenceInterval95: z.tuple([z.number(), z.number()]).nullable(),
+        })
+        .strict()
+        .nullable()
+        .optional(),
+      // A union with null: zod-to-openapi drops null from a nullable enum.
+      scattering: z
+        .union([
+          z.enum(['acoustic-phonon', 'acoustic-and-optical-phonon', 'ionized-impurity', 'mixed']),
+          z.null(),
+        ])
+        .optional(),
     })
     .strict()
     .nullable(),
@@ -82,6 +97,8 @@ const fitRequest = z.union([
   FIT_KIND_TABLE.model.schema,
   FIT_KIND_TABLE.tcr.schema,
   FIT_KIND_TABLE['bloch-gruneisen'].schema,
+  FIT_KIND_TABLE['carrier-density'].schema,
+  FIT_KIND_TABLE['hall-mobility'].schema,
 ]);
 
 /** Fits of a sweep. */

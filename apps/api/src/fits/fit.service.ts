@@ -119,7 +119,7 @@ export async function previewFit(
   const temperatureUncertaintyK =
     request.temperatureUncertaintyK ?? PHYSICS_DEFAULTS.fitTemperatureUncertaintyK;
   const leg = chooseLeg(describeLegs(await legReadings(v.sweep)), request.leg);
-  const readings = await sweepFitReadings(v.sweep, includeFlagged, leg);
+  const readings = await sweepFitReadings(v.sweep, includeFlagged, leg, request.site ?? null);
   const window = windowPoints(readings.points, request.minK, request.maxK);
   const run = runFitKind(request.kind, request, {
     points: window.points,
@@ -156,6 +156,7 @@ export async function previewFit(
       stepToleranceK,
       temperatureUncertaintyK,
       leg: leg ?? 'all',
+      ...(request.site !== undefined ? { site: request.site } : {}),
     },
     windowMinK: window.minK,
     windowMaxK: window.maxK,

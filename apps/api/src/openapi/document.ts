@@ -12,6 +12,8 @@ import { registerAuthApi } from '../auth/auth.openapi';
 import { registerFitsApi } from '../fits/fit.openapi';
 import { registerHealthApi } from '../health/health.openapi';
 import { registerLotsApi } from '../lots/lots.openapi';
+import { registerMapsApi } from '../maps/maps.openapi';
+import { registerPlannerApi } from '../planner/planner.openapi';
 import { registerDevMailApi } from '../mail/dev-mail.openapi';
 import { registerReportsApi } from '../reports/report.openapi';
 import { registerStationPostApi } from '../station-posts/station-post.openapi';
@@ -43,7 +45,9 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerFitsApi,
   registerReportsApi,
   registerDevMailApi,
+  registerPlannerApi,
   registerSearchApi,
+  registerMapsApi,
 ];
 
 /** The generated document (OpenAPI 3.1). */

@@ -44,7 +44,10 @@ export interface RouteSpec {
     contentType?: string;
     headers?: AnyZodObject;
   };
-  /** Error statuses besides 400 (implied by params, query or body) and 401 (implied by auth). */
+  /**
+   * Error statuses besides those implied: 400 by params, query, headers or a body; 413 and 415
+   * by a body; 401 and 503 by a credential.
+   */
   errors?: ErrorStatus[];
 }
 
@@ -112,7 +115,10 @@ const retryAfter = z.object({
 function errorResponses(spec: RouteSpec): RouteConfig['responses'] {
   const statuses = new Set<ErrorStatus>(spec.errors ?? []);
   if (spec.params || spec.query || spec.body || spec.form || spec.headers) statuses.add(400);
-  if (spec.auth !== 'none') statuses.add(401);
+  // every body is checked for its type and size before the route sees it
+  if (spec.body || spec.form) for (const s of [413, 415] as const) statuses.add(s);
+  // a credential is checked against the database, which may be out of reach for a moment
+  if (spec.auth !== 'none') for (const s of [401, 503] as const) statuses.add(s);
   const responses: RouteConfig['responses'] = {};
   for (const status of [...statuses].sort((a, b) => a - b)) {
     responses[status] = {

@@ -1,11 +1,14 @@
 /**
- * The server's hourly chores: forgotten sign-in throttle rows and orphaned raw-file objects go.
- * Every instance may run them at once; both only delete what nothing refers to.
+ * The server's hourly chores: forgotten sign-in throttle rows and orphaned raw-file objects go,
+ * and assignees of overdue tasks get their daily reminder. Every instance may run them at once:
+ * the deletions only take what nothing refers to, and each reminder is claimed in the database.
  */
 import type { Logger } from 'pino';
 import type { Sequelize } from 'sequelize';
 import { pruneThrottles } from '../auth/sign-in-throttle.service';
+import { remindOverdue } from '../assignments/overdue-reminders';
 import type { AppConfig } from '../config';
+import type { Mailer } from '../mail/mailer.service';
 import { removeOrphanedObjects } from '../storage/object-reconciler';
 import type { S3RawStorage } from '../storage/s3-raw-storage';
 import { rawStorageFor } from '../storage/storage';
@@ -15,9 +18,22 @@ export const HOUSEKEEPING_EVERY_MS = 60 * 60 * 1000;
 
 /** Runs the chores once; a failure is logged and the next run tries again. */
 export async function houseKeep(
-  deps: { sequelize: Sequelize; config: Pick<AppConfig, 'storage'>; logger: Logger },
+  deps: {
+    sequelize: Sequelize;
+    config: Pick<AppConfig, 'storage'> & Partial<Pick<AppConfig, 'publicUrl'>>;
+    logger: Logger;
+    mailer?: Mailer;
+  },
   now = new Date(),
 ): Promise<void> {
+  if (deps.mailer && deps.config.publicUrl) {
+    try {
+      const queued = await remindOverdue({ mailer: deps.mailer, publicUrl: deps.config.publicUrl });
+      if (queued) deps.logger.info({ queued }, 'queued overdue-task reminders');
+    } catch (error) {
+      deps.logger.warn({ err: error }, 'queuing overdue-task reminders failed');
+    }
+  }
   try {
     const pruned = await pruneThrottles(now);
     if (pruned) deps.logger.info({ pruned }, 'forgot old sign-in throttle rows');

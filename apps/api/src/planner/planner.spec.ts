@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { PlannerResponse } from '@rhotrace/api-types';
 import { regimeBoundaries, siliconDopantFromResistivity } from '@rhotrace/physics';
 import { CRYOGEN, DEFER_TO_LAB_RULES, HOT_CHUCK } from '../assignments/assignment-safety';
+import { documentProblems } from '../openapi/testing/document-validator';
 import { createTestContext, type TestContext } from '../testing/test-context';
 
 describe('POST /api/planner', () => {
@@ -60,6 +61,7 @@ describe('POST /api/planner', () => {
     expect(res.status).toBe(200);
     const body = res.body as PlannerResponse;
     expect(body.steps).toHaveLength(40);
+    expect(documentProblems('POST', '/planner', 200, res.body)).toEqual([]);
     for (const s of body.steps) {
       expect(s.voltageV).toBeGreaterThanOrEqual(meter.maxVoltageV / 1000);
       expect(s.voltageV).toBeLessThanOrEqual(meter.maxVoltageV);

@@ -14,6 +14,7 @@ import {
   truthElectronsCm3,
   truthMobility,
 } from '../testing/hall-sweep-file';
+import { documentProblems } from '../openapi/testing/document-validator';
 import { renderReportPdf } from '../reports/report-pdf';
 import { reportData } from '../reports/report.service';
 import { Wafer } from '../wafers/wafer.model';
@@ -312,6 +313,23 @@ describe('Hall fits', () => {
     const withHall = await renderReportPdf(data);
     const without = await renderReportPdf({ ...data, hall: null });
     expect(pages(withHall)).toBe(pages(without) + 1);
+  });
+
+  it('answers as the OpenAPI document says (Hall fields included)', async () => {
+    const get = async (url: string, path: string) => {
+      const res = await request(ctx.app).get(url).set(ctx.auth('physicist'));
+      expect(documentProblems('GET', path, res.status, res.body), url).toEqual([]);
+    };
+    const wafer = await Wafer.findByPk((await Sweep.findByPk(sweepId))!.waferId);
+    await get(`/api/sweeps/${sweepId}`, '/sweeps/{id}');
+    await get(`/api/sweeps/${sweepId}/analysis`, '/sweeps/{id}/analysis');
+    await get(`/api/sweeps/${sweepId}/fits`, '/sweeps/{id}/fits');
+    await get(`/api/compare?sweeps=${sweepId}`, '/compare');
+    await get(`/api/lots/${wafer!.lotId}/summary`, '/lots/{id}/summary');
+    const numbered = await upload(hallSweepCsv({ temperaturesK: [300, 310, 320] }), {
+      hallFactor: '1.1',
+    });
+    await get(`/api/sweeps/${numbered.body.id}`, '/sweeps/{id}');
   });
 
   it('fits the mobility exponent in the lattice range within 0.05 of the truth', async () => {

@@ -29,6 +29,9 @@ const FIXED = [
   'flags',
 ];
 
+/** Columns a map sweep's points add after the fixed ones. */
+const SITE = ['site_x_mm', 'site_y_mm', 'site_label'];
+
 /** Quantity keys in the order a Hall export lists them; other keys follow in first-seen order. */
 const QUANTITY_ORDER = [
   'hallCoefficientCm3PerC',
@@ -52,12 +55,14 @@ function quantityKeys(points: SweepPointDto[]): string[] {
 const snake = (key: string) => key.replace(/[A-Z]/g, (c) => `_${c.toLowerCase()}`);
 
 /**
- * The points as CSV: stored values first, then the quantities beyond resistivity (Hall sweeps),
- * then the file's own columns as read.
+ * The points as CSV: stored values first (with the site of a map sweep's points), then the
+ * quantities beyond resistivity (Hall sweeps), then the file's own columns as read.
  */
 export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): string {
   const keys = quantityKeys(points);
-  const header = [...FIXED, ...keys.map(snake), ...columns.map((c) => `raw ${c.header}`)]
+  const isMap = points.some((p) => p.site);
+  const fixed = isMap ? [...FIXED, ...SITE] : FIXED;
+  const header = [...fixed, ...keys.map(snake), ...columns.map((c) => `raw ${c.header}`)]
     .map(csvCell)
     .join(',');
   const lines = [header];
@@ -74,6 +79,7 @@ export function pointsCsv(columns: SweepColumn[], points: SweepPointDto[]): stri
         p.sheetResistanceOhmSq,
         p.resistivityOhmCm,
         p.flags.join(' '),
+        ...(isMap ? [p.site?.xMm ?? null, p.site?.yMm ?? null, p.site?.label ?? null] : []),
         ...keys.map((k) => p.quantities?.[k] ?? null),
         ...raw,
       ]

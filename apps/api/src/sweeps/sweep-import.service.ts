@@ -11,10 +11,12 @@ import { createHash } from 'node:crypto';
 import {
   MAX_FINDINGS,
   type HallFactorName,
+  type RowProblem,
   type SessionUser,
   type SweepColumnOverride,
   type SweepCreatedResponse,
   type SweepGeometryInput,
+  type SweepMapInput,
   type SweepMethod,
   type StationSensor,
 } from '@rhotrace/api-types';
@@ -26,7 +28,7 @@ import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { RowConverter } from './import/convert-rows';
-import type { ConvertedPoint } from './import/import-types';
+import { listRows, type ConvertedPoint } from './import/import-types';
 import { detectColumns, publicColumns } from './import/detect-columns';
 import { findStation } from './import/find-station';
 import { SuspiciousPointFinder } from './import/flag';
@@ -37,6 +39,7 @@ import { RawCopy } from './import/store/raw-copy';
 import { rawJson, SweepStore } from './import/store/sweep-store';
 import { MAX_PROBLEMS, type OpenedSweepFile, type ResolvedColumn } from './parse';
 import { resolveGeometry } from './import/resolve-geometry';
+import { hasSites, SitePlacer } from './import/sites';
 import { temperatureReader } from './import/temperature';
 import type { Station } from '../stations/station.model';
 import { toStationDto } from '../stations/stations.service';
@@ -54,6 +57,8 @@ export interface ImportSweepInput {
   stationId?: number | null;
   columns?: SweepColumnOverride[];
   geometry?: SweepGeometryInput;
+  /** Map fields (site pattern, edge exclusion); used when the columns place readings at sites. */
+  map?: SweepMapInput;
   /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
   hallFactor?: number | HallFactorName;
 }
@@ -113,6 +118,16 @@ function lostSweepRow(error: unknown): never {
   if (e?.errno === 1452 || e?.original?.errno === 1452)
     throw new TransactionLostError('a point batch found no sweep row');
   throw error;
+}
+
+/** What the map stage noticed without refusing it. */
+function mapWarnings(converter: RowConverter): string[] {
+  const rows = converter.placer?.tipOffWafer ?? [];
+  if (!rows.length) return [];
+  return [
+    `${rows.length} site(s) lie so near the edge that the probe's outer tip is off the wafer; ` +
+      `they are kept but excluded, with the edge factor of a tip on the edge (rows ${listRows(rows)})`,
+  ];
 }
 
 /** One attempt: the file is read again, so a retry starts from the same bytes. */
@@ -196,7 +211,12 @@ async function storeSweep(
     station,
     file: parsed.recognised,
     needsRtd: needsRtd(columns, station),
+    isMap: hasSites(columns),
   });
+  const placer = hasSites(columns)
+    ? (problems: RowProblem[]) =>
+        new SitePlacer(input.map ?? {}, input.method, columns, geometry, problems)
+    : null;
   const settings = hallSettings(input.method, input.hallFactor);
   const temperature = temperatureReader({
     column: columns.find((c) => c.meaning === 'temperature')!,
@@ -211,6 +231,7 @@ async function storeSweep(
     input.method,
     geometry,
     settings,
+    placer,
     temperature,
   );
   const finder = new SuspiciousPointFinder();
@@ -232,6 +253,7 @@ async function storeSweep(
       storageKey: rawKey,
       columnMapping: publicColumns(columns),
       metadata: parsed.layout.metadata,
+      mapInfo: converter.placer?.info ?? null,
     },
     rawJson(parsed),
     transaction,
@@ -253,7 +275,12 @@ async function storeSweep(
     throw error;
   }
   const flags = finder.finish();
-  warnings.push(...converter.warnings, ...flags.warnings, ...(hall?.warnings ?? []));
+  warnings.push(
+    ...converter.warnings,
+    ...flags.warnings,
+    ...(hall?.warnings ?? []),
+    ...mapWarnings(converter),
+  );
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,

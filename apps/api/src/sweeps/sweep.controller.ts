@@ -85,7 +85,8 @@ export const sweepsController = {
     const waferId = parseId(req.params);
     const file = uploaded(req);
     const body = parseOrThrow(storeSchema, req.body, 'body');
-    const { method, stationId, columns, hallFactor, ...geometry } = body;
+    const { method, stationId, columns, hallFactor, sitePattern, edgeExclusionMm, ...geometry } =
+      body;
     const result = await importSweep(
       {
         waferId,
@@ -96,6 +97,10 @@ export const sweepsController = {
         columns: parseColumns(columns),
         ...(hallFactor === undefined ? {} : { hallFactor }),
         geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
+        map: {
+          ...(sitePattern !== undefined && { sitePattern }),
+          ...(edgeExclusionMm !== undefined && { edgeExclusionMm }),
+        },
       },
       actorOf(req),
       {

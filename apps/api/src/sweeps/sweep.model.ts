@@ -26,6 +26,8 @@ export class Sweep extends Model<InferAttributes<Sweep>, InferCreationAttributes
   declare pointCount: number;
   declare minTemperatureK: number | null;
   declare maxTemperatureK: number | null;
+  /** Non-null exactly when the sweep is a wafer map (`SweepMapInfo`). */
+  declare mapInfo: unknown;
   declare deletedAt: CreationOptional<Date | null>;
   declare deletedById: number | null;
   /** The station token a station post came with; null for an ordinary upload. */
@@ -51,6 +53,10 @@ export class SweepPoint extends Model<
   declare resistivityOhmCm: number;
   declare raw: unknown;
   declare flags: string;
+  declare siteXMm: CreationOptional<number | null>;
+  declare siteYMm: CreationOptional<number | null>;
+  declare siteLabel: CreationOptional<string | null>;
+  declare edgeFactor: CreationOptional<number | null>;
   /** Quantities beyond resistivity (`PointQuantities`), null for most sweeps. */
   declare quantities: CreationOptional<unknown>;
   declare leg: CreationOptional<number | null>;
@@ -85,6 +91,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       stationTokenId: DataTypes.INTEGER,
       minTemperatureK: DataTypes.DOUBLE,
       maxTemperatureK: DataTypes.DOUBLE,
+      mapInfo: jsonColumn('mapInfo'),
       deletedAt: DataTypes.DATE(3),
       deletedById: DataTypes.INTEGER,
       createdAt: DataTypes.DATE(3),
@@ -106,6 +113,10 @@ export function initSweepModels(sequelize: Sequelize): void {
       resistivityOhmCm: { type: DataTypes.DOUBLE, allowNull: false },
       raw: jsonColumn('raw', false),
       flags: { type: DataTypes.STRING(255), allowNull: false, defaultValue: '' },
+      siteXMm: { type: DataTypes.DOUBLE, field: 'site_x_mm' },
+      siteYMm: { type: DataTypes.DOUBLE, field: 'site_y_mm' },
+      siteLabel: DataTypes.STRING(64),
+      edgeFactor: DataTypes.DOUBLE,
       quantities: jsonColumn('quantities'),
       leg: DataTypes.SMALLINT,
     },

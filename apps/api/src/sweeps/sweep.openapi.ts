@@ -8,7 +8,9 @@ import { COLUMN_MEANINGS, POINT_FLAGS, SWEEP_METHODS } from '@rhotrace/api-types
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { dateTime, fileBody } from '../openapi/shapes';
+import { sweepMapInfoSchema } from '../maps/maps.openapi';
 import { storeSchema } from './sweep.schemas';
+import { hallImportReportSchema, pointQuantitiesSchema } from '../analysis/hall-responses';
 
 const GEOMETRY_KEYS = ['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'];
 const geometrySource = z.enum(['request', 'wafer', 'lot', 'station', 'file']);
@@ -65,6 +67,10 @@ const summaryShape = {
     .optional()
     .describe('Set when a probe station posted the sweep with its token'),
   flaggedPoints: z.number().int().optional().describe('Points carrying a doubtful flag'),
+  map: sweepMapInfoSchema
+    .nullable()
+    .optional()
+    .describe('Set when the sweep is a wafer map (its points carry sites)'),
 };
 
 /** A doubtful point and why (issue 15 findings). */
@@ -102,6 +108,13 @@ const point = z
     sheetResistanceOhmSq: z.number().nullable(),
     resistivityOhmCm: z.number(),
     flags: z.array(z.enum(POINT_FLAGS)),
+    quantities: pointQuantitiesSchema.nullable().optional(),
+    site: z
+      .object({ xMm: z.number(), yMm: z.number(), label: z.string().nullable() })
+      .strict()
+      .nullable()
+      .optional()
+      .describe('Where on the wafer (map sweeps), mm from the centre'),
     leg: z.number().int().nullable().optional(),
   })
   .strict();
@@ -123,6 +136,7 @@ const sweepSchema = registry.register(
           flaggedPoints: z.number().int(),
           findings: z.array(findingSchema).optional(),
           temperature: temperatureConversion.optional(),
+          hall: hallImportReportSchema.optional(),
         })
         .strict(),
       points: z.array(point),

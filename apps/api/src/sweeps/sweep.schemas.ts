@@ -1,4 +1,5 @@
 import { COLUMN_MEANINGS, HALL_FACTOR_NAMES, SWEEP_METHODS } from '@rhotrace/api-types';
+import { SITE_PATTERN_IDS } from '@rhotrace/physics';
 import { z } from 'zod';
 
 /** A length in cm, as a form field. */
@@ -68,6 +69,23 @@ export const storeSchema = z
     spacingCm: length,
     barLengthCm: length,
     barWidthCm: length,
+    sitePattern: z.preprocess(
+      (v) => (v === '' ? undefined : v),
+      z
+        .enum(SITE_PATTERN_IDS, {
+          errorMap: () => ({ message: `must be one of ${SITE_PATTERN_IDS.join(', ')}` }),
+        })
+        .optional(),
+    ),
+    edgeExclusionMm: z.preprocess(
+      (v) => (v === '' ? undefined : v),
+      z.coerce
+        .number({ invalid_type_error: 'must be a number (mm)' })
+        .finite('must be a finite number (mm)')
+        .min(0, 'must be at least 0 mm')
+        .max(100, 'must be at most 100 mm')
+        .optional(),
+    ),
     hallFactor,
   })
   .strict();

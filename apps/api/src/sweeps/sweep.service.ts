@@ -11,6 +11,7 @@ import type {
   SweepColumn,
   SweepDto,
   SweepGeometry,
+  SweepMapInfo,
   SweepMethod,
   SweepParseReport,
   SweepPointDto,
@@ -54,6 +55,7 @@ function summary(
     minTemperatureK: sweep.minTemperatureK,
     maxTemperatureK: sweep.maxTemperatureK,
     createdAt: sweep.createdAt.toISOString(),
+    map: (sweep.mapInfo as SweepMapInfo | null) ?? null,
     uploadedVia: sweep.stationTokenId ? (via.get(sweep.stationTokenId) ?? null) : null,
     flaggedPoints: flaggedPointsOf(sweep.parseReport),
   };
@@ -161,6 +163,10 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
       sheetResistanceOhmSq: p.sheetResistanceOhmSq,
       resistivityOhmCm: p.resistivityOhmCm,
       flags: (p.flags ? p.flags.split(',') : []) as PointFlag[],
+      site:
+        p.siteXMm === null || p.siteYMm === null
+          ? null
+          : { xMm: Number(p.siteXMm), yMm: Number(p.siteYMm), label: p.siteLabel },
       // Only sweeps that have quantities carry the key: most points stay as small as before.
       ...(p.quantities ? { quantities: quantitiesOf(p.quantities) } : {}),
       leg: p.leg ?? null,

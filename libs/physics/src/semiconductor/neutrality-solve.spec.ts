@@ -12,7 +12,8 @@ function brentEta(material: SemiconductorId, nd: number, na: number, t: number):
   const set = resolveDensityOfStatesSet('test', material, undefined);
   const terms = temperatureTerms(material, set, t);
   const d = resolveDoping('test', material, { donorDensity: nd, acceptorDensity: na }, undefined);
-  return brentRoot(neutralityFunction(terms, d).value, -80, terms.epsG + 80, 1e-13, 400).root;
+  const g = neutralityFunction(terms, d);
+  return brentRoot((x) => g.value(x), -80, terms.epsG + 80, 1e-13, 400).root;
 }
 
 function newton(material: SemiconductorId, nd: number, na: number, t: number, guess?: number) {

@@ -44,72 +44,82 @@ const NEWTON_STEP_TOLERANCE = 1e-8;
 
 /**
  * @internal The neutrality function g(eta) = ln(p + N_D^+) - ln(n + N_A^-), eta = E_F / kT
- * from the valence band edge, with its derivative; g falls monotonically in eta.
+ * from the valence band edge, with its derivative; g falls monotonically in eta. A class, not
+ * closures: a curve builds one per temperature, and methods cost nothing to create.
  */
-export interface NeutralityFunction {
-  value: (eta: number) => number;
-  /** g and dg/deta at eta; `slope` is written to the object passed in. */
-  valueAndSlope: (eta: number, out: { slope: number }) => number;
+export class NeutralityFunction {
   /** Shifts of the donor and acceptor occupancy exponents (ln g + level terms). */
-  donorShift: number;
-  acceptorShift: number;
-  lnNcMinusG: number;
-}
+  readonly donorShift: number;
+  readonly acceptorShift: number;
+  readonly lnNcMinusG: number;
+  private readonly lnNv: number;
+  private readonly lnNd: number;
+  private readonly lnNa: number;
+  private readonly donorsFull: boolean;
+  private readonly acceptorsFull: boolean;
+  private readonly lnFreeD: number;
+  private readonly lnFreeA: number;
+  private readonly lnBD: number;
+  private readonly lnBA: number;
 
-/** @internal Builds g(eta) and g'(eta) for one doping at one temperature. */
-export function neutralityFunction(
-  terms: TemperatureTerms,
-  doping: ResolvedDoping,
-): NeutralityFunction {
-  const { kT, epsG, lnNc, lnNv } = terms;
-  const lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
-  const lnNa =
-    doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
-  // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
-  const donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
-  const acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
-  // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
-  const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
-  const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
-  const donorsFull = bD === 0;
-  const acceptorsFull = bA === 0;
-  const lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
-  const lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
-  const lnBD = donorsFull ? 0 : Math.log(bD);
-  const lnBA = acceptorsFull ? 0 : Math.log(bA);
-  const lnNcMinusG = lnNc - epsG;
+  constructor(terms: TemperatureTerms, doping: ResolvedDoping) {
+    const { kT, epsG, lnNc, lnNv } = terms;
+    this.lnNv = lnNv;
+    this.lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
+    this.lnNa =
+      doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
+    // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
+    this.donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
+    this.acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
+    // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
+    const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
+    const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
+    this.donorsFull = bD === 0;
+    this.acceptorsFull = bA === 0;
+    this.lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
+    this.lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
+    this.lnBD = this.donorsFull ? 0 : Math.log(bD);
+    this.lnBA = this.acceptorsFull ? 0 : Math.log(bA);
+    this.lnNcMinusG = lnNc - epsG;
+  }
 
-  const value = (eta: number): number => {
-    const lnP = lnNv - eta;
-    const lnN = lnNcMinusG + eta;
-    const lnDp = donorsFull ? lnNd : lnNd + logAddExp(lnFreeD, lnBD - softplus(donorShift + eta));
-    const lnAm = acceptorsFull
-      ? lnNa
-      : lnNa + logAddExp(lnFreeA, lnBA - softplus(acceptorShift - eta));
+  /** g(eta). */
+  value(eta: number): number {
+    const lnP = this.lnNv - eta;
+    const lnN = this.lnNcMinusG + eta;
+    const lnDp = this.donorsFull
+      ? this.lnNd
+      : this.lnNd + logAddExp(this.lnFreeD, this.lnBD - softplus(this.donorShift + eta));
+    const lnAm = this.acceptorsFull
+      ? this.lnNa
+      : this.lnNa + logAddExp(this.lnFreeA, this.lnBA - softplus(this.acceptorShift - eta));
     return logAddExp(lnP, lnDp) - logAddExp(lnN, lnAm);
-  };
+  }
 
-  // d ln F / d eta of F = (1 - b) + b / (1 + e^s): -b e^-softplus(s) logistic(s) / F, with
-  // ds/deta = +1 for the donors and -1 for the acceptors. The same expressions as `value`.
-  const valueAndSlope = (eta: number, out: { slope: number }): number => {
-    const lnP = lnNv - eta;
-    const lnN = lnNcMinusG + eta;
-    let lnDp = lnNd;
+  /**
+   * g and dg/deta at eta; the slope is written to `out`. d ln F / d eta of
+   * F = (1 - b) + b / (1 + e^s) is -b e^-softplus(s) logistic(s) / F, with ds/deta = +1 for the
+   * donors and -1 for the acceptors; the same expressions as `value`.
+   */
+  valueAndSlope(eta: number, out: { slope: number }): number {
+    const lnP = this.lnNv - eta;
+    const lnN = this.lnNcMinusG + eta;
+    let lnDp = this.lnNd;
     let dLnDp = 0;
-    if (!donorsFull) {
-      const s = donorShift + eta;
-      const bound = lnBD - softplus(s);
-      const lnF = logAddExp(lnFreeD, bound);
-      lnDp = lnNd + lnF;
+    if (!this.donorsFull) {
+      const s = this.donorShift + eta;
+      const bound = this.lnBD - softplus(s);
+      const lnF = logAddExp(this.lnFreeD, bound);
+      lnDp = this.lnNd + lnF;
       dLnDp = -Math.exp(bound - lnF) * logisticComplement(-s);
     }
-    let lnAm = lnNa;
+    let lnAm = this.lnNa;
     let dLnAm = 0;
-    if (!acceptorsFull) {
-      const s = acceptorShift - eta;
-      const bound = lnBA - softplus(s);
-      const lnF = logAddExp(lnFreeA, bound);
-      lnAm = lnNa + lnF;
+    if (!this.acceptorsFull) {
+      const s = this.acceptorShift - eta;
+      const bound = this.lnBA - softplus(s);
+      const lnF = logAddExp(this.lnFreeA, bound);
+      lnAm = this.lnNa + lnF;
       dLnAm = Math.exp(bound - lnF) * logisticComplement(-s);
     }
     const u = logAddExp(lnP, lnDp);
@@ -118,8 +128,15 @@ export function neutralityFunction(
     const dv = Math.exp(lnN - v) + (dLnAm === 0 ? 0 : Math.exp(lnAm - v) * dLnAm);
     out.slope = du - dv;
     return u - v;
-  };
-  return { value, valueAndSlope, donorShift, acceptorShift, lnNcMinusG };
+  }
+}
+
+/** @internal Builds g(eta) and g'(eta) for one doping at one temperature. */
+export function neutralityFunction(
+  terms: TemperatureTerms,
+  doping: ResolvedDoping,
+): NeutralityFunction {
+  return new NeutralityFunction(terms, doping);
 }
 
 /** @internal The root eta and how it was found. */
@@ -164,7 +181,7 @@ export function neutralityRoot(
     }
     eta = next > lo && next < hi ? next : 0.5 * (lo + hi);
   }
-  const r = brentRoot(g.value, -BRACKET_MARGIN, terms.epsG + BRACKET_MARGIN, 1e-10, 300);
+  const r = brentRoot((x) => g.value(x), -BRACKET_MARGIN, terms.epsG + BRACKET_MARGIN, 1e-10, 300);
   return { eta: r.root, newtonSteps: 0, converged: r.converged };
 }
 

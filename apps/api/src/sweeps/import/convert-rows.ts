@@ -9,6 +9,7 @@ import type { ConvertedPoint, Reading } from './import-types';
 import { PolarityPairer, type ReadingGroup } from './pair-polarities';
 import { RowReader } from './read-row';
 import type { Slice } from './read-table';
+import type { SitePlacer } from './sites';
 import type { MethodSettings } from './methods';
 import type { TemperatureReader } from './temperature';
 import { pointMaker } from './to-point';
@@ -21,6 +22,8 @@ export class RowConverter {
   private readonly pairer = new PolarityPairer();
   private readonly toPoint: (group: ReadingGroup) => ConvertedPoint | null;
   private emitted = 0;
+  /** Places map readings on the wafer (null for a sweep without sites). */
+  readonly placer: SitePlacer | null;
 
   constructor(
     parsed: ParsedSweepFile,
@@ -28,6 +31,7 @@ export class RowConverter {
     method: SweepMethod,
     geometry: SweepGeometry,
     settings?: MethodSettings,
+    placer: ((problems: RowProblem[]) => SitePlacer) | null = null,
     temperature?: TemperatureReader,
   ) {
     this.problems = [...parsed.problems];
@@ -41,7 +45,8 @@ export class RowConverter {
       this.problems,
       temperature,
     );
-    this.toPoint = pointMaker(method, geometry, columns, this.problems, settings);
+    this.placer = placer ? placer(this.problems) : null;
+    this.toPoint = pointMaker(method, geometry, columns, this.problems, settings, this.placer);
   }
 
   /** True while more problems may still be collected. */

@@ -8,7 +8,7 @@ import { applyColumnOverrides, type ParsedSweepFile, type ResolvedColumn } from 
 import { POINT_METHODS } from './methods';
 
 /** Meanings that carry no unit. */
-const UNITLESS = new Set(['other', 'index', 'polarity']);
+const UNITLESS = new Set(['other', 'index', 'polarity', 'site', 'site-label']);
 
 /**
  * The columns to import with: the guesses with `overrides` applied. Throws a 400 naming each
@@ -53,6 +53,12 @@ export function requireColumns(
           'voltages need a current: map a current column or state the current in the file header',
       });
     }
+  }
+  if (has.has('site-x') !== has.has('site-y')) {
+    problems.push({
+      field: 'columns',
+      problem: 'a map needs both site coordinates: map a site-x and a site-y column (mm)',
+    });
   }
   for (const problem of entry.columnProblems?.(has, constantCurrentA) ?? []) {
     problems.push({ field: 'columns', problem });

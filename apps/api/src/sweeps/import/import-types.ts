@@ -2,7 +2,12 @@
  * What the import stages hand each other: a row read in stored units (`Reading`), and the point
  * made from one reading or a forward/reverse pair (`ConvertedPoint`).
  */
-import type { PointFlag, PointQuantities } from '@rhotrace/api-types';
+import type { PointFlag, PointQuantities, SweepSite } from '@rhotrace/api-types';
+
+/** Where a row says it was measured: coordinates in mm, or a pattern's site number. */
+export type RowSite =
+  | { kind: 'xy'; xMm: number; yMm: number; label: string | null }
+  | { kind: 'number'; number: number; label: string | null };
 
 /** One data row read in stored units (SI, kelvin, ohm cm); null where the file has no value. */
 export interface Reading {
@@ -19,6 +24,8 @@ export interface Reading {
   resistanceBOhm: number | null;
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number | null;
+  /** The row's site (map files), else null or absent. */
+  site?: RowSite | null;
   /** Hall sweeps: the field's magnitude, T. */
   magneticFieldT?: number | null;
   /** Hall sweeps: one Hall voltage already corrected for offsets, V. */
@@ -39,6 +46,10 @@ export interface ConvertedPoint {
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number;
   flags: PointFlag[];
+  /** Where on the wafer (map sweeps); absent or null otherwise. */
+  site?: SweepSite | null;
+  /** The edge factor the reading was divided by (map sweeps with a collinear probe). */
+  edgeFactor?: number | null;
   /** Quantities beyond resistivity (Hall sweeps), stored as `sweep_points.quantities`. */
   quantities?: PointQuantities | null;
   /** Why each flag the point stage set was set, in words. */

@@ -12,7 +12,10 @@ import {
   type ParsedSweepFile,
   type ResolvedColumn,
 } from '../parse';
-import type { Reading } from './import-types';
+import type { Reading, RowSite } from './import-types';
+
+/** Longest site label kept (the column's width). */
+const SITE_LABEL_LENGTH = 64;
 import { POINT_METHODS } from './methods';
 import { temperatureReader, type TemperatureReader } from './temperature';
 
@@ -58,6 +61,12 @@ export class RowReader {
   /** Whether each column's cell must be filled. */
   private readonly required: Record<keyof ColumnsByMeaning, boolean>;
   private readonly mark: DecimalMark;
+  private readonly site: {
+    x: ResolvedColumn | null;
+    y: ResolvedColumn | null;
+    number: ResolvedColumn | null;
+    label: ResolvedColumn | null;
+  };
   /** True while the row being read has a problem. */
   private bad = false;
   private readonly currentFromHeader: boolean;
@@ -111,6 +120,12 @@ export class RowReader {
     // A method that needs a current takes the file header's when no column gives one.
     this.currentFromHeader = cells.has('current');
     this.mark = parsed.layout.decimalMark;
+    this.site = {
+      x: col('site-x'),
+      y: col('site-y'),
+      number: col('site'),
+      label: col('site-label'),
+    };
   }
 
   /** Record `i` as a reading, or null after noting its problems. */
@@ -132,6 +147,7 @@ export class RowReader {
     const resistanceBOhm = this.value(cells, row, 'resistance-b');
     const sheetResistanceOhmSq = this.value(cells, row, 'sheet-resistance');
     const resistivityOhmCm = this.value(cells, row, 'resistivity');
+    const site = this.readSite(cells, row);
     const hall = this.readHall(cells, row);
     if (this.bad || temperatureRaw === null) return null;
 
@@ -167,6 +183,7 @@ export class RowReader {
       resistanceBOhm,
       sheetResistanceOhmSq,
       resistivityOhmCm,
+      site,
       ...hall,
     };
   }
@@ -186,6 +203,33 @@ export class RowReader {
       hallReversalsV:
         pp !== null && pn !== null && np !== null && nn !== null ? { pp, pn, np, nn } : null,
     };
+  }
+
+  /**
+   * The row's site: coordinates when the file has site-x and site-y (they win over a site
+   * number), else a whole site number; null for a file without sites. Missing cells are
+   * problems, since a map reading without its place cannot be shown.
+   */
+  private readSite(cells: string[], row: number): RowSite | null {
+    const { x, y, number, label: labelColumn } = this.site;
+    if (!(x && y) && !number) return null;
+    const labelText = labelColumn ? (cells[labelColumn.index] ?? '').trim() : '';
+    const label = labelText ? labelText.slice(0, SITE_LABEL_LENGTH) : null;
+    if (x && y) {
+      const xMm = this.cell(cells, row, x, true);
+      const yMm = this.cell(cells, row, y, true);
+      return xMm === null || yMm === null ? null : { kind: 'xy', xMm, yMm, label };
+    }
+    const n = this.cell(cells, row, number!, true);
+    if (n === null) return null;
+    if (!Number.isInteger(n) || n < 1) {
+      this.problems.push(
+        rowProblem(row, number!.header, `the site number must be a whole number from 1 (${n})`),
+      );
+      this.bad = true;
+      return null;
+    }
+    return { kind: 'number', number: n, label };
   }
 
   /** Notes a zero or negative resistance-like value; true when it did. */
@@ -217,7 +261,8 @@ export class RowReader {
       }
       return null;
     }
-    return c.unitInfo!.factor === 1 ? value : value * c.unitInfo!.factor;
+    const factor = c.unitInfo?.factor ?? 1;
+    return factor === 1 ? value : value * factor;
   }
 
   private readPolarity(cells: string[], row: number): 1 | -1 | 0 {

@@ -26,6 +26,8 @@ export interface GeometryInputs {
   file: RecognisedMetadata;
   /** True when the temperature column holds RTD ohms. */
   needsRtd: boolean;
+  /** True for a wafer map, which needs the wafer diameter to place its sites. */
+  isMap?: boolean;
 }
 
 type GeometryKey = keyof SweepGeometryInput | 'rtdR0Ohm';
@@ -58,7 +60,7 @@ const SOURCES: Record<GeometryKey, { from: (i: GeometryInputs) => Candidate[]; m
         ['lot', i.lot.diameterCm],
         ['file', i.file.diameterCm],
       ],
-      missing: '',
+      missing: 'a wafer map needs the wafer diameter: give diameterCm, or record it on the lot',
     },
     barLengthCm: {
       from: (i) => [
@@ -109,6 +111,7 @@ function first(candidates: Candidate[]): [GeometrySource, number] | null {
 export function resolveGeometry(inputs: GeometryInputs): SweepGeometry {
   const { needs, uses } = POINT_METHODS[inputs.method].geometry;
   const required = new Set<GeometryKey>(inputs.needsRtd ? [...needs, 'rtdR0Ohm'] : needs);
+  if (inputs.isMap) required.add('diameterCm');
   const wanted = new Set<GeometryKey>([...required, ...uses]);
   const geometry: SweepGeometry = { sources: {} };
   const problems: Array<{ field: string; problem: string }> = [];

@@ -2,15 +2,24 @@
  * Stage 5, turn a row into a point: a reading, or a forward/reverse pair averaged, becomes
  * sheet resistance and resistivity through the method's entry in `POINT_METHODS`. The physics
  * library's `PhysicsInputError` says which argument it refused: a geometry argument makes the
- * whole upload a 400, anything else is a problem of that row.
+ * whole upload a 400, anything else is a problem of that row. A map reading (with a
+ * `SitePlacer`) is placed on the wafer and divided by its edge factor; a map converts without
+ * the centred-slice diameter correction, which the edge factor replaces.
  */
-import type { ColumnMeaning, RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
+import type {
+  ColumnMeaning,
+  PointFlag,
+  RowProblem,
+  SweepGeometry,
+  SweepMethod,
+} from '@rhotrace/api-types';
 import { PhysicsInputError } from '@rhotrace/physics';
 import { validationFailed } from '../../errors';
 import { rowProblem, type ResolvedColumn } from '../parse';
 import type { ConvertedPoint, Reading } from './import-types';
 import { POINT_METHODS, type MethodSettings, type PointInput, type PointValues } from './methods';
 import type { ReadingGroup } from './pair-polarities';
+import { dualConfigurationConverter, type SitePlacer } from './sites';
 
 /** Arguments of the physics functions that come from the sweep's geometry, not from a row. */
 const GEOMETRY_ARGUMENTS: ReadonlySet<string> = new Set([
@@ -92,8 +101,13 @@ export function pointMaker(
   columns: ResolvedColumn[],
   problems: RowProblem[],
   settings: MethodSettings = { hallFactor: 1 },
+  placer: SitePlacer | null = null,
 ): (group: ReadingGroup) => ConvertedPoint | null {
-  const compute = POINT_METHODS[method].converter(geometry, settings);
+  const correction = placer?.info.correction ?? 'none';
+  const compute: (input: PointInput) => PointValues & { edgeFactor?: number } =
+    correction === 'dual-configuration'
+      ? dualConfigurationConverter(geometry)
+      : POINT_METHODS[method].converter(placer ? withoutDiameter(geometry) : geometry, settings);
   const valueColumn =
     columns.find((c) => c.meaning === 'voltage' || c.meaning === 'resistance')?.header ?? null;
   const columnOf = (argument: string): string | null => {
@@ -103,7 +117,19 @@ export function pointMaker(
   };
   return ({ forward: f, reverse: r, flag }) => {
     const input = pointInput(f, r);
-    let values: PointValues;
+    const placement = placer ? placer.place(f) : null;
+    if (placer && !placement) return null;
+    if (placement && r && !sameSite(f, r)) {
+      problems.push(
+        rowProblem(
+          r.row,
+          null,
+          'the reverse reading lies at another site than its forward reading',
+        ),
+      );
+      return null;
+    }
+    let values: PointValues & { edgeFactor?: number };
     try {
       values = compute(input);
     } catch (error) {
@@ -127,7 +153,19 @@ export function pointMaker(
       return null;
     }
     const asymmetry = polarityAsymmetry(f, r, input);
-    const flags: ConvertedPoint['flags'] = flag ? [flag] : [];
+    const flags: PointFlag[] = flag ? [flag] : [];
+    let edgeFactor: number | null = null;
+    if (placement) {
+      edgeFactor = values.edgeFactor ?? placement.edgeFactor;
+      if (correction === 'edge-images') {
+        values = {
+          sheetResistanceOhmSq:
+            values.sheetResistanceOhmSq === null ? null : values.sheetResistanceOhmSq / edgeFactor,
+          resistivityOhmCm: values.resistivityOhmCm / edgeFactor,
+        };
+      }
+      if (placement.excluded) flags.push('edge-exclusion');
+    }
     const point: ConvertedPoint = {
       sourceRows: r ? [f.row, r.row] : [f.row],
       recordIndexes: r ? [f.record, r.record] : [f.record],
@@ -138,6 +176,8 @@ export function pointMaker(
       sheetResistanceOhmSq: values.sheetResistanceOhmSq,
       resistivityOhmCm: values.resistivityOhmCm,
       flags,
+      site: placement?.site ?? null,
+      edgeFactor,
       ...(values.quantities ? { quantities: values.quantities } : {}),
     };
     if (asymmetry !== null && asymmetry > POLARITY_ASYMMETRY_LIMIT) {
@@ -151,4 +191,20 @@ export function pointMaker(
     }
     return point;
   };
+}
+
+/** The geometry without the slice diameter (a map's edge factor replaces the centred one). */
+function withoutDiameter(geometry: SweepGeometry): SweepGeometry {
+  const { diameterCm: _diameter, ...rest } = geometry;
+  return rest;
+}
+
+/** True when a forward and a reverse reading name one site. */
+function sameSite(f: Reading, r: Reading): boolean {
+  const a = f.site;
+  const b = r.site;
+  if (!a || !b || a.kind !== b.kind) return !a && !b;
+  return a.kind === 'xy' && b.kind === 'xy'
+    ? a.xMm === b.xMm && a.yMm === b.yMm
+    : a.kind === 'number' && b.kind === 'number' && a.number === b.number;
 }

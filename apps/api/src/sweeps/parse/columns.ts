@@ -12,6 +12,10 @@ export interface ResolvedColumn extends SweepColumn {
 
 /** Name patterns per meaning, tried in order (more specific first). */
 const NAME_RULES: Array<[ColumnMeaning, RegExp]> = [
+  ['site-label', /^(site ?(label|name|id)|label|die ?name)$/i],
+  ['site-x', /^(x|site ?x|x ?pos(ition)?|pos(ition)? ?x|x ?coord(inate)?)$/i],
+  ['site-y', /^(y|site ?y|y ?pos(ition)?|pos(ition)? ?y|y ?coord(inate)?)$/i],
+  ['site', /^(site|site ?(no\.?|nr\.?|number|#)|die|die ?(no\.?|number))$/i],
   ['index', /^(#|no\.?|nr\.?|n|idx|index|point|pt|row|step|reading|sample no\.?|seq(uence)?)$/i],
   ['time', /^(time|t_?s|elapsed|timestamp|date|clock|datetime|zeit|hora|t ?elapsed)\b/i],
   ['polarity', /^(polarity|pol|direction|dir|sign|current direction|i ?dir|i ?sign)$/i],
@@ -41,6 +45,7 @@ const UNIT_MEANING: Record<UnitKind, ColumnMeaning> = {
   'sheet-resistance': 'sheet-resistance',
   resistivity: 'resistivity',
   time: 'time',
+  length: 'other',
   'magnetic-field': 'magnetic-field',
 };
 
@@ -63,6 +68,9 @@ export const NUMERIC_MEANINGS: ReadonlySet<ColumnMeaning> = new Set([
   'sheet-resistance',
   'resistivity',
   'current-level',
+  'site-x',
+  'site-y',
+  'site',
   'magnetic-field',
   ...HALL_VOLTAGES,
   'reference-junction',
@@ -85,6 +93,9 @@ export function unitFitsMeaning(meaning: ColumnMeaning, unit: Unit): boolean {
       return unit.kind === 'resistance';
     case 'current-level':
       return unit.kind === 'current';
+    case 'site-x':
+    case 'site-y':
+      return unit.kind === 'length';
     case 'magnetic-field':
       return unit.kind === 'magnetic-field';
     case 'voltage':
@@ -110,6 +121,8 @@ function defaultUnit(meaning: ColumnMeaning): Unit | null {
     resistivity: 'ohm_cm',
     'current-level': 'A',
     time: 's',
+    'site-x': 'mm',
+    'site-y': 'mm',
     'magnetic-field': 'T',
   };
   const l = HALL_VOLTAGES.has(meaning) ? 'V' : label[meaning];

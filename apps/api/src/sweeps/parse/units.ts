@@ -1,6 +1,7 @@
 /**
  * Units found in sweep file headers: how they are spelled and the factor to the SI-like unit
- * Rhotrace stores (K, V, A, ohm, ohm/sq, ohm cm, s, T). Temperatures in °C and RTD ohms are not
+ * Rhotrace stores (K, V, A, ohm, ohm/sq, ohm cm, s, T, and mm for map site coordinates).
+ * Temperatures in °C and RTD ohms are not
  * scaled here: they are converted by `@rhotrace/physics`.
  */
 
@@ -13,6 +14,7 @@ export type UnitKind =
   | 'sheet-resistance'
   | 'resistivity'
   | 'time'
+  | 'length'
   | 'magnetic-field';
 
 /** A recognised unit: canonical label, kind and the factor to the stored unit. */
@@ -67,6 +69,9 @@ function build(): Map<string, Unit> {
     add([`${p}ohm_cm`, `${p}ohmcm`], { label: `${p}ohm_cm`, kind: 'resistivity', factor: f });
     add([`${p}ohm_m`, `${p}ohmm`], { label: `${p}ohm_m`, kind: 'resistivity', factor: f * 100 });
   }
+  add(['mm'], { label: 'mm', kind: 'length', factor: 1 });
+  add(['cm'], { label: 'cm', kind: 'length', factor: 10 });
+  add(['um'], { label: 'um', kind: 'length', factor: 1e-3 });
   // Field in tesla; gauss converted (1 G = 1e-4 T). Case matters: `T`, `mT`, `G`, `kG`.
   add(['T', 'tesla'], { label: 'T', kind: 'magnetic-field', factor: 1 });
   add(['mT'], { label: 'mT', kind: 'magnetic-field', factor: 1e-3 });

@@ -8,8 +8,9 @@ import { requireAffected } from '../../../db/transient-errors';
 
 const INSERT_POINTS =
   'INSERT INTO sweep_points (sweep_id, sequence, source_row, temperature_k, current_a, voltage_v, ' +
-  'resistance_ohm, sheet_resistance_ohm_sq, resistivity_ohm_cm, raw, flags, quantities) ' +
-  'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)';
+  'resistance_ohm, sheet_resistance_ohm_sq, resistivity_ohm_cm, raw, flags, quantities, ' +
+  'site_x_mm, site_y_mm, site_label, edge_factor) ' +
+  'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)';
 
 /** The driver connection Sequelize holds for a transaction. */
 interface BatchConnection {
@@ -35,11 +36,11 @@ export const POINT_CHUNK = 10_000;
 export const POINT_CHUNK_BYTES = 3 * 1024 * 1024;
 
 /**
- * Bytes a row takes besides its raw text, flags and quantities in the bulk protocol, at most:
- * twelve null marks, three 4-byte integers, six 8-byte doubles and three length prefixes (up to
- * 9 bytes each).
+ * Bytes a row takes besides its raw text, flags, quantities and site label in the bulk
+ * protocol, at most: sixteen null marks, three 4-byte integers, nine 8-byte doubles and four
+ * length prefixes (up to 9 bytes each).
  */
-const ROW_OVERHEAD_BYTES = 12 + 3 * 4 + 6 * 8 + 3 * 9;
+const ROW_OVERHEAD_BYTES = 16 + 3 * 4 + 9 * 8 + 4 * 9;
 
 /** Batches one writer keeps on the connection before it waits for the oldest to finish. */
 export const POINT_BATCHES_IN_FLIGHT = 2;
@@ -80,7 +81,12 @@ export class PointWriter {
         const flags = p.flags.length === 0 ? '' : p.flags.join(',');
         const quantities = p.quantities ? JSON.stringify(p.quantities) : null;
         // UTF-8 takes at most 3 bytes per UTF-16 unit: a bound, not an estimate.
-        bytes += 3 * raw.length + flags.length + (quantities?.length ?? 0) + ROW_OVERHEAD_BYTES;
+        const site = p.site ?? null;
+        bytes +=
+          3 * (raw.length + (site?.label?.length ?? 0)) +
+          flags.length +
+          (quantities?.length ?? 0) +
+          ROW_OVERHEAD_BYTES;
         if (bytes > POINT_CHUNK_BYTES && rows.length > 0) break;
         this.written += 1;
         rows.push([
@@ -96,6 +102,10 @@ export class PointWriter {
           raw,
           flags,
           quantities,
+          site?.xMm ?? null,
+          site?.yMm ?? null,
+          site?.label ?? null,
+          p.edgeFactor ?? null,
         ]);
       }
       this.send(rows);

@@ -10,6 +10,7 @@
 import type {
   SweepColumn,
   SweepGeometry,
+  SweepMapInfo,
   SweepMethod,
   SweepParseReport,
 } from '@rhotrace/api-types';
@@ -37,6 +38,8 @@ export interface SweepDraft {
   storageKey: Promise<string>;
   columnMapping: SweepColumn[];
   metadata: Record<string, string>;
+  /** Set for a wafer map. */
+  mapInfo: SweepMapInfo | null;
 }
 
 /**
@@ -139,8 +142,8 @@ export class SweepStore {
     const [id, inserted] = await Sweep.sequelize!.query(
       'INSERT INTO sweeps (wafer_id, station_id, method, geometry, uploaded_by_id, original_name, ' +
         'size_bytes, sha256, storage_kind, storage_key, column_mapping, metadata, parse_report, ' +
-        'point_count, created_at, updated_at) ' +
-        "SELECT ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, '{}', 0, ?, ? FROM DUAL WHERE @@in_transaction = 1",
+        'point_count, created_at, updated_at, map_info) ' +
+        "SELECT ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, '{}', 0, ?, ?, ? FROM DUAL WHERE @@in_transaction = 1",
       {
         replacements: [
           d.waferId,
@@ -157,6 +160,7 @@ export class SweepStore {
           JSON.stringify(d.metadata),
           now,
           now,
+          d.mapInfo === null ? null : JSON.stringify(d.mapInfo),
         ],
         type: QueryTypes.INSERT,
         transaction: this.transaction,

@@ -21,6 +21,13 @@ export type FreeParameter = Extract<FitRequest, { kind: 'model' }>['free'][numbe
  */
 export type CompensationChoice = 'inferred' | 'compensated' | 'uncompensated';
 
+/** Options of the Arrhenius window fit. */
+export interface ArrheniusOptions {
+  quantity: 'resistivity' | 'conductivity';
+  prefactorExponent: number;
+  compensation: CompensationChoice;
+}
+
 /** Parameter and kind words are shared with the printed reports. */
 export { KIND_WORDS, PARAMETER_WORDS } from '@rhotrace/api-types';
 

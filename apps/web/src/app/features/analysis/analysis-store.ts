@@ -4,7 +4,7 @@ import { type DopingInput, type FitRequest, METAL_FILMS } from '@rhotrace/api-ty
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import { ReplaySubject, Subject, filter, switchMap } from 'rxjs';
 import { AnalysisApi } from './analysis-api';
-import type { CompensationChoice, FreeParameter } from './analysis-labels';
+import type { ArrheniusOptions, FreeParameter } from './analysis-labels';
 import {
   EMPTY_SLOT,
   type FitJob,
@@ -15,17 +15,12 @@ import {
   isSaved,
   queuedFits,
 } from './fit-queue';
+import { type FittedOverlay, fittedOverlayOf } from './model-overlay/fitted-overlay';
 import { startingPointResource } from './sweep-study/starting-point';
-import { type CurveState, modelCurveStream } from './sweep-study/model-curve-stream';
+import { fitsToDraw } from './fitted-curve';
+import { type CurveState, curveBaseOf, modelCurveStream } from './sweep-study/model-curve-stream';
 import { type TemperatureUnit, TemperatureUnitSetting } from '../../shared/temperature-unit';
 import { plotRangeK } from './sweep-study/study-plots';
-
-/** Options of the Arrhenius window fit. */
-export interface ArrheniusOptions {
-  quantity: 'resistivity' | 'conductivity';
-  prefactorExponent: number;
-  compensation: CompensationChoice;
-}
 
 /**
  * The study of one sweep: its data, the model curve, fit previews and saved fits. Provided by the
@@ -69,7 +64,11 @@ export class AnalysisStore {
   readonly unit = this.unitSetting.unit;
   readonly doping = signal<DopingInput | null>(null);
   readonly curveState = signal<CurveState>({ curve: null, problem: null, loading: false });
-  private readonly doping$ = new ReplaySubject<DopingInput | null>(1);
+  private readonly doping$ = new ReplaySubject<(DopingInput & { mobilityScale?: number }) | null>(
+    1,
+  );
+  /** The full-model fit the overlay is drawn from; null while it shows the values typed. */
+  readonly fittedOverlay = signal<FittedOverlay | null>(null);
 
   // Fits: the options, the chosen window, one slot per panel, the saves.
   readonly arrheniusOptions = signal<ArrheniusOptions>({
@@ -92,13 +91,9 @@ export class AnalysisStore {
     (this.fits.value() ?? []).filter((f) => this.compared().includes(f.id)),
   );
   /** The fits drawn on the ρ(T) plot: the two panels' fits, then the saved ones compared. */
-  readonly drawnFits = computed<ShownFit[]>(() => {
-    const shown = [this.slots.window().fit, this.slots.model().fit].filter(
-      (f): f is ShownFit => f !== null,
-    );
-    const ids = new Set(shown.filter(isSaved).map((f) => f.id));
-    return [...shown, ...this.comparedFits().filter((f) => !ids.has(f.id))];
-  });
+  readonly drawnFits = computed(() =>
+    fitsToDraw([this.slots.window().fit, this.slots.model().fit], this.comparedFits()),
+  );
   private readonly previews$ = new Subject<FitJob<FitSlot>>();
   private readonly keeps$ = new Subject<FitSlot>();
 
@@ -106,16 +101,11 @@ export class AnalysisStore {
     toObservable(this.analysis.value)
       .pipe(
         filter((a) => a !== undefined),
-        switchMap((a) => {
-          const { fromK, toK } = untracked(() => this.rangeK());
-          const base = {
-            material: a.sweep.material,
-            fromK: Number(fromK.toFixed(2)),
-            toK: Number(toK.toFixed(2)),
-            steps: 400,
-          };
-          return modelCurveStream(this.doping$, base, (body) => this.api.modelCurve(body));
-        }),
+        switchMap((a) =>
+          modelCurveStream(this.doping$, curveBaseOf(a, untracked(this.rangeK)), (body) =>
+            this.api.modelCurve(body),
+          ),
+        ),
         takeUntilDestroyed(),
       )
       .subscribe((state) => this.curveState.set(state));
@@ -184,7 +174,19 @@ export class AnalysisStore {
 
   setDoping(doping: DopingInput | null): void {
     this.doping.set(doping);
-    this.doping$.next(doping);
+    const scale = this.fittedOverlay()?.mobilityScale ?? 1;
+    this.doping$.next(doping && scale !== 1 ? { ...doping, mobilityScale: scale } : doping);
+  }
+
+  /** Draws the model from a full-model fit's values (its mobility scale too). */
+  useFitted(fit: ShownFit): void {
+    this.fittedOverlay.set(fittedOverlayOf(fit));
+  }
+
+  /** A value typed into the model's parameters: the overlay shows typed values again. */
+  markEntered(): void {
+    this.fittedOverlay.set(null);
+    this.setDoping(this.doping());
   }
 
   /** Previews an Arrhenius fit over [minK, maxK] (either order), rounded to 0.01 K. */
@@ -245,10 +247,8 @@ export class AnalysisStore {
     this.cancels$.next(slot);
     if (saving) {
       this.endSaving();
-      this.slots[slot].update((s) => ({
-        ...s,
-        problem: 'Saving was cancelled: nothing was stored.',
-      }));
+      const problem = 'Saving was cancelled: nothing was stored.';
+      this.slots[slot].update((s) => ({ ...s, problem }));
     } else {
       this.slots[slot].set({ ...EMPTY_SLOT, problem: 'The fit was cancelled.' });
       if (slot === 'window') this.window.set(null);
@@ -291,13 +291,8 @@ export class AnalysisStore {
     // fits read the leg studied (the API's default leg when none was picked)
     const leg = this.leg();
     const body: FitRequest = leg === null ? flagged : { ...flagged, leg };
-    this.slots[slot].update((s) => ({
-      ...s,
-      request: body,
-      problem: null,
-      busy: true,
-      startedAt: Date.now(),
-    }));
+    const asked = { request: body, problem: null, busy: true, startedAt: Date.now() };
+    this.slots[slot].update((s) => ({ ...s, ...asked }));
     this.previews$.next({ slot, body });
   }
 

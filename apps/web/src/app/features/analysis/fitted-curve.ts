@@ -136,3 +136,13 @@ export function residualsAsResistivity(
 function isSemiconductor(material: unknown): material is SemiconductorId {
   return typeof material === 'string' && (SEMICONDUCTORS as readonly string[]).includes(material);
 }
+
+/** The fits a ρ(T) plot draws: those shown in the panels, then saved ones not among them. */
+export function fitsToDraw(
+  panels: ReadonlyArray<ShownFit | null>,
+  compared: readonly ShownFit[],
+): ShownFit[] {
+  const shown = panels.filter((f): f is ShownFit => f !== null);
+  const ids = new Set(shown.filter(isSaved).map((f) => f.id));
+  return [...shown, ...compared.filter((f) => !isSaved(f) || !ids.has(f.id))];
+}

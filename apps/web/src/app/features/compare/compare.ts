@@ -5,6 +5,7 @@ import {
   effect,
   inject,
   input,
+  linkedSignal,
   signal,
   untracked,
   viewChild,
@@ -15,7 +16,10 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
+import { Router } from '@angular/router';
+import type { CompareResponse } from '@rhotrace/api-types';
 import { of } from 'rxjs';
+import { TemperatureUnitSetting } from '../../shared/temperature-unit';
 import { EstimateNote } from '../../shared/estimate-note';
 import { seriesColour } from '../../shared/plot/palette';
 import { Plot } from '../../shared/plot/plot';
@@ -47,7 +51,7 @@ import { CompareApi } from './compare-api';
         </mat-form-field>
         <mat-button-toggle-group
           [value]="unit()"
-          (change)="unit.set($event.value)"
+          (change)="unitSetting.set($event.value)"
           aria-label="Temperature unit"
           hideSingleSelectionIndicator
         >
@@ -115,7 +119,11 @@ export class Compare {
   readonly lot = input<string>();
   protected readonly lotIds = signal<number[]>([]);
   protected readonly chosen = signal<number[]>([]);
-  protected readonly unit = signal<'K' | 'C'>('K');
+  /** `?sweeps=1,2,3` starts with those sweeps drawn; the address follows the choice. */
+  readonly sweeps = input<string>();
+  private readonly router = inject(Router);
+  protected readonly unitSetting = inject(TemperatureUnitSetting);
+  protected readonly unit = this.unitSetting.unit;
   protected readonly lots = rxResource({ stream: () => this.api.lots() });
   protected readonly choices = rxResource({
     params: () => (this.lots.value() ?? []).filter((l) => this.lotIds().includes(l.id)),
@@ -125,8 +133,21 @@ export class Compare {
     params: () => this.chosen(),
     stream: ({ params }) => (params.length === 0 ? of(null) : this.api.compare(params)),
   });
+  /**
+   * The curves drawn: the newest answer, kept while the next one loads. Ticking boxes quickly
+   * used to drop the plot on every tick (a loading resource has no value) and redraw it, racing
+   * plotly's drawing of the one just removed; a failed answer draws nothing rather than throwing.
+   */
+  private readonly shownCurves = linkedSignal<
+    CompareResponse | null | undefined,
+    CompareResponse | null
+  >({
+    source: () =>
+      this.curves.isLoading() ? undefined : this.curves.hasValue() ? this.curves.value() : null,
+    computation: (next, previous) => (next === undefined ? (previous?.value ?? null) : next),
+  });
   protected readonly figure = computed(() => {
-    const data = this.curves.value();
+    const data = this.shownCurves();
     if (!data) return null;
     const x = data.temperaturesK.map((k) => (this.unit() === 'K' ? k : k - 273.15));
     return {
@@ -152,6 +173,23 @@ export class Compare {
   });
 
   constructor() {
+    effect(() => {
+      const ids = (this.sweeps() ?? '')
+        .split(',')
+        .map(Number)
+        .filter((n) => n > 0);
+      const same = untracked(() => this.chosen().join(',')) === ids.join(',');
+      if (ids.length > 0 && !same) untracked(() => this.chosen.set(ids));
+    });
+    // The address carries the sweeps drawn, so the view can be shared.
+    effect(() => {
+      const ids = this.chosen();
+      void this.router.navigate([], {
+        queryParams: { sweeps: ids.length > 0 ? ids.join(',') : null },
+        queryParamsHandling: 'merge',
+        replaceUrl: true,
+      });
+    });
     effect(() => {
       const id = this.lot();
       if (id) untracked(() => this.lotIds.set([Number(id)]));

@@ -9,6 +9,7 @@ import type {
   SweepCreatedResponse,
   SweepDto,
   SweepGeometryInput,
+  SweepMapInput,
   SweepColumnOverride,
   SweepMethod,
   SweepPreviewResponse,
@@ -26,6 +27,8 @@ export interface SweepStoreOptions {
   stationId: number | null;
   columns: SweepColumnOverride[] | null;
   geometry: SweepGeometryInput;
+  /** Map fields, sent when set (files with site columns). */
+  map?: SweepMapInput;
 }
 
 function itemsOf<T>(body: Page<T> | T[]): T[] {
@@ -114,6 +117,9 @@ export class WafersApi {
     for (const [key, value] of Object.entries(options.geometry)) {
       if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
     }
+    if (options.map?.sitePattern) body.append('sitePattern', options.map.sitePattern);
+    if (options.map?.edgeExclusionMm !== undefined && Number.isFinite(options.map.edgeExclusionMm))
+      body.append('edgeExclusionMm', String(options.map.edgeExclusionMm));
     body.append('file', file, file.name);
     return this.http.post<SweepCreatedResponse>(`/api/wafers/${waferId}/sweeps`, body, {
       reportProgress: true,

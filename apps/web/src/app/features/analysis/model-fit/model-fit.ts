@@ -46,6 +46,11 @@ import { KeepActions } from '../fit-card/keep-actions';
       @if (slot().fit; as f) {
         <rt-fit-card [fit]="f" [unit]="store.unit()" />
         <rt-keep-actions slot="model" [fit]="f" />
+        @if (f.converged) {
+          <button mat-stroked-button type="button" (click)="store.useFitted(f)">
+            Use fitted values in the model curve
+          </button>
+        }
       }
     </section>
   `,

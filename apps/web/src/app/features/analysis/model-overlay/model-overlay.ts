@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  linkedSignal,
+  viewChild,
+} from '@angular/core';
+import type { DopingInput } from '@rhotrace/api-types';
+import type { FittedOverlay } from './fitted-overlay';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -23,14 +32,21 @@ export class ModelOverlay {
   protected readonly store = inject(AnalysisStore);
   private readonly plot = viewChild<Plot>('curvePlot');
 
+  /** The last fitted values applied: the controls start from them until others are applied. */
+  protected readonly applied = linkedSignal<FittedOverlay | null, DopingInput | null>({
+    source: () => this.store.fittedOverlay(),
+    computation: (fitted, previous) => fitted?.doping ?? previous?.value ?? null,
+  });
   protected readonly material = computed(() => this.store.analysis.value()?.sweep.material ?? '');
   private readonly options = computed<CurveOptions>(() => {
     const d = this.store.doping();
     const modelName = this.store.isMetal()
       ? `bulk ${this.material()} reference (films read higher)`
-      : d
-        ? `model: donors ${formatExponent(d.donorDensity)}, acceptors ${formatExponent(d.acceptorDensity)} cm⁻³`
-        : 'model';
+      : this.store.fittedOverlay()
+        ? `model from ${fittedName(this.store.fittedOverlay()?.fitId ?? null)}`
+        : d
+          ? `model: donors ${formatExponent(d.donorDensity)}, acceptors ${formatExponent(d.acceptorDensity)} cm⁻³`
+          : 'model';
     return {
       unit: this.store.unit(),
       rangeK: this.store.rangeK(),
@@ -50,3 +66,5 @@ export class ModelOverlay {
     void this.plot()?.downloadPng(`sweep-${this.store.sweepId()}-curve`);
   }
 }
+
+const fittedName = (id: number | null) => (id === null ? 'the fit previewed' : `fit ${id}`);

@@ -92,6 +92,8 @@ export class ModelControls {
   readonly initial = input.required<DopingInput>();
   /** Every edit: the doping, or null while a field is invalid. */
   readonly dopingChange = output<DopingInput | null>();
+  /** A value typed by the person (not set from `initial`). */
+  readonly edited = output();
 
   protected readonly error = fieldError;
   protected readonly donorName = computed(() =>
@@ -121,9 +123,10 @@ export class ModelControls {
       );
       this.dopingChange.emit(this.current());
     });
-    this.form.valueChanges
-      .pipe(takeUntilDestroyed(inject(DestroyRef)))
-      .subscribe(() => this.dopingChange.emit(this.current()));
+    this.form.valueChanges.pipe(takeUntilDestroyed(inject(DestroyRef))).subscribe(() => {
+      this.edited.emit();
+      this.dopingChange.emit(this.current());
+    });
   }
 
   /** The doping now in the form, or null when a field is invalid. */

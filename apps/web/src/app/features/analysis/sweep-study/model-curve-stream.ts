@@ -1,4 +1,9 @@
-import type { DopingInput, ModelCurveRequest, ModelCurveResponse } from '@rhotrace/api-types';
+import type {
+  DopingInput,
+  ModelCurveRequest,
+  ModelCurveResponse,
+  SweepAnalysisResponse,
+} from '@rhotrace/api-types';
 import { type Observable, catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
 import { ApiError } from '../../../core/http/api-error';
 
@@ -17,7 +22,7 @@ export const CURVE_DEBOUNCE_MS = 150;
  * newer edit cancels the request in flight (switchMap), so at most one request is ever open.
  */
 export function modelCurveStream(
-  doping$: Observable<DopingInput | null>,
+  doping$: Observable<(DopingInput & { mobilityScale?: number }) | null>,
   base: Omit<ModelCurveRequest, 'doping'>,
   fetch: (body: ModelCurveRequest) => Observable<ModelCurveResponse>,
   debounceMs = CURVE_DEBOUNCE_MS,
@@ -32,7 +37,9 @@ export function modelCurveStream(
           loading: false,
         });
       }
-      return fetch({ ...base, doping }).pipe(
+      const { mobilityScale, ...d } = doping;
+      const scaled = mobilityScale !== undefined && mobilityScale !== 1 ? { mobilityScale } : {};
+      return fetch({ ...base, doping: d, ...scaled }).pipe(
         map((curve): CurveState => ({ curve, problem: null, loading: false })),
         catchError((err: unknown) =>
           of<CurveState>({
@@ -46,4 +53,20 @@ export function modelCurveStream(
       );
     }),
   );
+}
+
+/** Temperatures drawn for a model curve. */
+const CURVE_STEPS = 400;
+
+/** The model curve request of a sweep but its doping: its material over the plots' range. */
+export function curveBaseOf(
+  a: SweepAnalysisResponse,
+  rangeK: { fromK: number; toK: number },
+): Omit<ModelCurveRequest, 'doping'> {
+  return {
+    material: a.sweep.material,
+    fromK: Number(rangeK.fromK.toFixed(2)),
+    toK: Number(rangeK.toK.toFixed(2)),
+    steps: CURVE_STEPS,
+  };
 }

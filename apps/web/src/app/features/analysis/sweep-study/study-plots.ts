@@ -202,7 +202,7 @@ export function residualFigure(
         range: [x(rangeK.fromK), x(rangeK.toK)],
         autorange: false,
       },
-      yaxis: { title: { text: 'ln(ρ measured / ρ fitted)' }, zeroline: true },
+      yaxis: { title: { text: 'ln(ρ / ρ fit)' }, zeroline: true },
     },
   };
 }

@@ -15,6 +15,7 @@ import { ModelOverlay } from '../model-overlay/model-overlay';
 import { SavedFits } from '../saved-fits/saved-fits';
 import { SweepFaults } from '../parts/sweep-faults/sweep-faults';
 
+import { MapView } from '../../maps/map-view/map-view';
 /**
  * Studying one sweep: the page around its parts (model overlay, Arrhenius window, full-model or
  * metal fits, saved fits). The parts share one `AnalysisStore`, provided here.
@@ -31,6 +32,7 @@ import { SweepFaults } from '../parts/sweep-faults/sweep-faults';
     ModelFit,
     MetalFits,
     SavedFits,
+    MapView,
     HallStudy,
     SweepFaults,
   ],

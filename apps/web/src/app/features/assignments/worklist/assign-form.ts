@@ -21,7 +21,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { AssignmentDto, FieldProblem, WaferDto } from '@rhotrace/api-types';
-import { catchError, debounceTime, of, switchMap } from 'rxjs';
+import { catchError, debounceTime, map, of, switchMap } from 'rxjs';
 import { ApiError, applyServerErrors } from '../../../core/http/api-error';
 import { Caution } from '../../../shared/caution';
 import { fieldError } from '../../../shared/field-error';
@@ -35,7 +35,11 @@ export const COMMON_TASKS = [
   'Temperature sweep, room temperature to 600 K',
   'Room-temperature resistivity check',
   'Repeat the last sweep',
+  'Hall sweep, 20 K to 400 K',
 ] as const;
+
+/** Task wording that means a Hall magnet is used (as the API's safety cautions read it). */
+const MAGNET_TASK = /\bhall\b|magnet|\bb[- ]?field|tesla/i;
 
 /** Assigning a wafer to someone with a task and a due date (the assignee is e-mailed). */
 @Component({
@@ -102,6 +106,12 @@ export class AssignForm {
     notes: this.fb.control<string | null>(null),
     stationId: this.fb.control<number | null>(null),
   });
+
+  /** True while the task names a Hall measurement: the caution adds the magnet's hazards. */
+  protected readonly magnet = toSignal(
+    this.form.controls.task.valueChanges.pipe(map((task) => MAGNET_TASK.test(task ?? ''))),
+    { initialValue: false },
+  );
 
   protected readonly waferSearch = signal('');
   protected readonly wafers = toSignal(

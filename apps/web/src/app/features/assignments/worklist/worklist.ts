@@ -42,8 +42,17 @@ import { AssignForm } from './assign-form';
     tr.overdue td:first-child {
       border-left: 4px solid var(--mat-sys-error);
     }
-    .state-field {
+    .state-field,
+    .assignee-field {
       width: 150px;
+    }
+    .due-input {
+      font: inherit;
+      color: inherit;
+      background: transparent;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: 4px;
+      padding: 4px;
     }
     .panel {
       border: 1px solid var(--mat-sys-outline-variant);
@@ -66,6 +75,8 @@ export class Worklist {
   protected readonly day = formatDay;
   protected readonly columns = ['wafer', 'task', 'assignee', 'station', 'due', 'state'];
   private readonly stations = rxResource({ stream: () => this.api.stations() });
+  /** Active people a task can be handed to. */
+  protected readonly assignees = rxResource({ stream: () => this.api.assignees() });
   /** Station names by id, for the station column. */
   protected readonly stationNames = computed(
     () => new Map((this.stations.value() ?? []).map((s) => [s.id, s.name])),
@@ -98,6 +109,32 @@ export class Worklist {
 
   protected move(a: AssignmentDto, state: AssignmentState): void {
     this.api.update(a.id, { state }).subscribe(() => this.list.reload());
+  }
+
+  protected isListed(userId: number): boolean {
+    return (this.assignees.value() ?? []).some((p) => p.id === userId);
+  }
+
+  /** Gives the task to someone else; they get the assignment e-mail. */
+  protected handOver(a: AssignmentDto, assigneeId: number): void {
+    if (assigneeId === a.assigneeId) return;
+    this.api.update(a.id, { assigneeId }).subscribe((saved) => {
+      this.snackBar.open(
+        `Handed to ${saved.assigneeName ?? 'them'}; an e-mail is on its way.`,
+        'OK',
+        { duration: 5000 },
+      );
+      this.list.reload();
+    });
+  }
+
+  /** Moves the due date (an empty field keeps the old one). */
+  protected redate(a: AssignmentDto, dueDate: string): void {
+    if (!/^\d{4}-\d{2}-\d{2}$/.test(dueDate) || dueDate === a.dueDate) return;
+    this.api.update(a.id, { dueDate }).subscribe(() => {
+      this.snackBar.open(`Now due on ${dueDate}.`, 'OK', { duration: 4000 });
+      this.list.reload();
+    });
   }
 
   protected onCreated(a: AssignmentDto): void {

@@ -102,6 +102,11 @@ describe('LotDetail', () => {
       .expectOne((r) => r.url === '/api/lots/1/wafers')
       .flush({ items: [wafer(11, '01'), wafer(12, '02'), wafer(13, '03')], total: 3 });
     backend.expectOne('/api/lots/1/summary').flush(s);
+    // The lot's wafer maps (none here) are asked for once the lot is shown.
+    fixture.detectChanges();
+    backend
+      .match('/api/lots/1/maps')
+      .forEach((r) => r.flush({ lotId: 1, scale: null, wafers: [] }));
     await fixture.whenStable();
     return { fixture, loader, text: () => fixture.nativeElement.textContent as string };
   }

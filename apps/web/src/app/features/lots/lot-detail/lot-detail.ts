@@ -42,6 +42,7 @@ interface WaferRow {
   summary: LotSummaryWafer | undefined;
 }
 
+import { LotMaps } from '../../maps/lot-maps/lot-maps';
 /**
  * One lot: facts, spec, wafers with their 23 °C values (± U, verdict, budget), Ppk and the spec
  * chart.
@@ -62,6 +63,7 @@ interface WaferRow {
     EstimateNote,
     SpecVerdictBadge,
     ValueAt23C,
+    LotMaps,
   ],
   templateUrl: './lot-detail.html',
   styleUrl: './lot-detail.scss',

@@ -1,4 +1,5 @@
 import { HttpEventType } from '@angular/common/http';
+import { SITE_PATTERN_IDS } from '@rhotrace/physics';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -39,6 +40,13 @@ const GEOMETRY_FIELDS: ReadonlyArray<{ key: keyof SweepGeometryInput; label: str
   { key: 'barWidthCm', label: 'Bar width' },
 ];
 
+/** How sure the column detection is, in words (a choice made by hand is certain). */
+export function confidenceWords(confidence: number): string {
+  if (confidence >= 0.9) return 'high';
+  if (confidence >= 0.6) return 'medium: check it';
+  return 'low: choose by hand';
+}
+
 /**
  * Bringing sweeps in: drop or pick files, check what was detected, correct the column mapping,
  * choose method, station and geometry, then store each file with a progress bar.
@@ -64,6 +72,7 @@ const GEOMETRY_FIELDS: ReadonlyArray<{ key: keyof SweepGeometryInput; label: str
 })
 export class SweepUpload {
   private readonly api = inject(WafersApi);
+  protected readonly confidenceWords = confidenceWords;
 
   readonly waferId = input.required<number>();
   readonly material = input<string | null>(null);
@@ -83,6 +92,14 @@ export class SweepUpload {
   protected readonly method = signal<SweepMethod | null>(null);
   protected readonly stationId = signal<number | null>(null);
   protected readonly geometry = signal<SweepGeometryInput>({});
+  /** Map fields: the pattern a `site` column numbers, and the edge exclusion (mm). */
+  protected readonly sitePatterns = SITE_PATTERN_IDS;
+  protected readonly sitePattern = signal<string>('');
+  protected readonly edgeExclusionMm = signal<number | undefined>(undefined);
+  /** True when a file's columns place readings at sites. */
+  protected readonly hasSites = computed(() =>
+    this.items().some((i) => i.columns.some((c) => c.meaning === 'site' || c.meaning === 'site-x')),
+  );
   protected readonly ready = computed(() => this.items().filter((i) => i.status === 'ready'));
   protected readonly busy = computed(() =>
     this.items().some((i) => i.status === 'uploading' || i.status === 'reading'),
@@ -130,6 +147,10 @@ export class SweepUpload {
     this.patchColumn(key, index, (c) => ({ ...c, unit, confidence: 1 }));
   }
 
+  protected setEdgeExclusion(raw: string): void {
+    this.edgeExclusionMm.set(raw === '' ? undefined : Number(raw));
+  }
+
   protected setGeometry(key: keyof SweepGeometryInput, raw: string): void {
     const value = raw === '' ? undefined : Number(raw);
     this.geometry.update((g) => ({ ...g, [key]: value }));
@@ -159,6 +180,12 @@ export class SweepUpload {
         stationId: this.stationId(),
         columns,
         geometry: this.geometry(),
+        map: {
+          ...(this.sitePattern() ? { sitePattern: this.sitePattern() } : {}),
+          ...(this.edgeExclusionMm() !== undefined
+            ? { edgeExclusionMm: this.edgeExclusionMm() }
+            : {}),
+        },
       })
       .subscribe({
         next: (event) => {

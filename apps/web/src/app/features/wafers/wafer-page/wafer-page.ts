@@ -26,6 +26,7 @@ import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
 import { WafersApi } from '../wafers-api';
+import { MapView } from '../../maps/map-view/map-view';
 import { RecordHistory } from '../../../shared/record-history/record-history';
 import { PlanForm } from '../../planner/plan-form/plan-form';
 import { PlanView } from '../../planner/plan-view/plan-view';
@@ -54,6 +55,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     SweepUpload,
     EstimateNote,
     ValueAt23C,
+    MapView,
     PlanForm,
     PlanView,
   ],
@@ -117,6 +119,11 @@ export class WaferPage {
   protected readonly shownSweepId = computed(
     () => this.chosenSweepId() ?? this.sweeps.value()?.[0]?.id ?? null,
   );
+  /** The shown sweep's id when it is a wafer map. */
+  protected readonly shownMapId = computed(() => {
+    const id = this.shownSweepId();
+    return this.sweeps.value()?.find((s) => s.id === id)?.map ? id : null;
+  });
   protected readonly shownSweep = rxResource({
     params: () => this.shownSweepId() ?? undefined,
     stream: ({ params }) => this.api.sweep(params),

@@ -1,0 +1,63 @@
+import { TestBed } from '@angular/core/testing';
+import { Router, provideRouter } from '@angular/router';
+import type { CompareResponse } from '@rhotrace/api-types';
+import { Subject, of } from 'rxjs';
+import { PlotlyLoader } from '../../shared/plot/plotly-loader';
+import { Compare } from './compare';
+import { CompareApi } from './compare-api';
+
+const answerFor = (ids: number[]): CompareResponse => ({
+  temperaturesK: [300, 400],
+  curves: ids.map((id) => ({
+    sweepId: id,
+    waferId: 1,
+    waferNumber: '01',
+    lotId: 1,
+    lotCode: 'L-1',
+    material: 'Si',
+    minTemperatureK: 300,
+    maxTemperatureK: 400,
+    resistivityOhmCm: [1, 2],
+  })),
+});
+
+describe('Compare (overlay)', () => {
+  it('keeps the plot while the next curves load, and carries the sweeps in the address', async () => {
+    const calls: Array<{ ids: number[]; answer: Subject<CompareResponse> }> = [];
+    TestBed.configureTestingModule({
+      imports: [Compare],
+      providers: [
+        provideRouter([]),
+        { provide: PlotlyLoader, useValue: { load: () => new Promise(() => undefined) } },
+        {
+          provide: CompareApi,
+          useValue: {
+            lots: () => of([]),
+            sweepsOfLots: () => of([]),
+            compare: (ids: number[]) => {
+              const answer = new Subject<CompareResponse>();
+              calls.push({ ids, answer });
+              return answer;
+            },
+          },
+        },
+      ],
+    });
+    const fixture = TestBed.createComponent(Compare);
+    fixture.componentRef.setInput('sweeps', '4,9');
+    await fixture.whenStable();
+    expect(calls[0]?.ids).toEqual([4, 9]);
+    calls[0]!.answer.next(answerFor([4, 9]));
+    await fixture.whenStable();
+    const el = fixture.nativeElement as HTMLElement;
+    const plotBefore = el.querySelector('rt-plot');
+    expect(plotBefore).not.toBeNull();
+    expect(TestBed.inject(Router).url).toContain('sweeps=4,9');
+
+    // A tick while loading keeps the same plot element (no teardown racing plotly).
+    fixture.componentInstance['toggle'](12, true);
+    await fixture.whenStable();
+    expect(el.querySelector('rt-plot')).toBe(plotBefore);
+    expect(TestBed.inject(Router).url).toContain('sweeps=4,9,12');
+  });
+});
