@@ -9,8 +9,7 @@ import { mean, sampleStandardDeviation } from 'simple-statistics';
 import type { VisibleSweep } from '../access/visibility.service';
 import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
 import { SweepPoint } from '../sweeps/sweep.model';
-import { badRequest } from '../errors';
-import { mapReadings, mapSeries, mapsOf, siteName } from '../maps/map-data';
+import { mapReadings, mapsOf, siteReadings } from '../maps/map-data';
 import { loadMapPointRows } from '../maps/maps.service';
 
 /**
@@ -138,26 +137,6 @@ async function loadMapReadings(sweep: SweepIdentity): Promise<CachedReadings> {
   });
 }
 
-/**
- * The readings of one site of a map (its averaged value per step); a 400 naming `site` when
- * the sweep is no map or has no such site.
- */
-function siteReadings(cached: CachedReadings, site: string): AnalysisPoint[] {
-  if (!cached.maps) {
-    throw badRequest('This sweep is not a map', [
-      { field: 'site', problem: 'only a map sweep has sites; leave site out' },
-    ]);
-  }
-  const points = mapSeries(cached.maps, site);
-  if (!points.length) {
-    const known = [...new Set(cached.maps.flatMap((m) => m.sites.map(siteName)))].slice(0, 10);
-    throw badRequest(`The map has no site "${site}"`, [
-      { field: 'site', problem: `is not a site of this map (sites include ${known.join(', ')})` },
-    ]);
-  }
-  return points;
-}
-
 /** A stored quantities document, as text from a raw read. */
 function storedQuantities(stored: unknown): PointQuantities {
   return (typeof stored === 'string' ? JSON.parse(stored) : stored) as PointQuantities;
@@ -182,7 +161,7 @@ export async function sweepFitReadings(
   site: string | null = null,
 ): Promise<FitReadings> {
   const cached = await loadReadings(sweep);
-  if (site !== null) return { points: siteReadings(cached, site), excluded: [] };
+  if (site !== null) return { points: siteReadings(cached.maps, site), excluded: [] };
   const inLeg = (i: number) => leg === null || cached.legs[i] === leg;
   if (includeFlagged) return { points: cached.points.filter((_, i) => inLeg(i)), excluded: [] };
   const points: AnalysisPoint[] = [];
@@ -236,7 +215,7 @@ export async function sweepReadings(
 ): Promise<SweepReadings> {
   const loaded = await loadReadings(sweep);
   const cached =
-    site === null ? loaded : { ...loaded, points: siteReadings(loaded, site), skippedK: [] };
+    site === null ? loaded : { ...loaded, points: siteReadings(loaded.maps, site), skippedK: [] };
   if (!window) {
     return {
       points: cached.points.slice(),
