@@ -21,6 +21,13 @@ const answerFor = (ids: number[]): CompareResponse => ({
   })),
 });
 
+/** Settles signals, the view and the router, without waiting for requests still open. */
+async function settle(fixture: { detectChanges(): void }): Promise<void> {
+  TestBed.tick();
+  await new Promise((resolve) => setTimeout(resolve));
+  fixture.detectChanges();
+}
+
 describe('Compare (overlay)', () => {
   it('keeps the plot while the next curves load, and carries the sweeps in the address', async () => {
     const calls: Array<{ ids: number[]; answer: Subject<CompareResponse> }> = [];
@@ -45,10 +52,10 @@ describe('Compare (overlay)', () => {
     });
     const fixture = TestBed.createComponent(Compare);
     fixture.componentRef.setInput('sweeps', '4,9');
-    await fixture.whenStable();
+    await settle(fixture);
     expect(calls[0]?.ids).toEqual([4, 9]);
     calls[0]!.answer.next(answerFor([4, 9]));
-    await fixture.whenStable();
+    await settle(fixture);
     const el = fixture.nativeElement as HTMLElement;
     const plotBefore = el.querySelector('rt-plot');
     expect(plotBefore).not.toBeNull();
@@ -56,7 +63,7 @@ describe('Compare (overlay)', () => {
 
     // A tick while loading keeps the same plot element (no teardown racing plotly).
     fixture.componentInstance['toggle'](12, true);
-    await fixture.whenStable();
+    await settle(fixture);
     expect(el.querySelector('rt-plot')).toBe(plotBefore);
     expect(TestBed.inject(Router).url).toContain('sweeps=4,9,12');
   });

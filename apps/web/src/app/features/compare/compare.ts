@@ -21,9 +21,9 @@ import type { CompareResponse } from '@rhotrace/api-types';
 import { of } from 'rxjs';
 import { TemperatureUnitSetting } from '../../shared/temperature-unit';
 import { EstimateNote } from '../../shared/estimate-note';
-import { seriesColour } from '../../shared/plot/palette';
 import { Plot } from '../../shared/plot/plot';
 import { CompareApi } from './compare-api';
+import { type OverlayOptions, overlayFigure } from './overlay-figure';
 
 /** Overlay: sweeps from several wafers or lots on one plot. */
 @Component({
@@ -67,6 +67,31 @@ import { CompareApi } from './compare-api';
           Save as PNG
         </button>
       </div>
+      <div class="rt-row options" role="group" aria-label="How the overlay is drawn">
+        <mat-button-toggle-group
+          [value]="view()"
+          (change)="view.set($event.value)"
+          aria-label="Overlay view"
+          hideSingleSelectionIndicator
+        >
+          <mat-button-toggle value="temperature">Against temperature</mat-button-toggle>
+          <mat-button-toggle value="arrhenius">Against 1000/T</mat-button-toggle>
+        </mat-button-toggle-group>
+        <mat-checkbox [checked]="logY()" (change)="logY.set($event.checked)"
+          >Log resistivity axis</mat-checkbox
+        >
+        <mat-checkbox [checked]="normalise()" (change)="normalise.set($event.checked)"
+          >Divide each curve by its 23 °C value</mat-checkbox
+        >
+        <mat-checkbox
+          [checked]="showSpec()"
+          [disabled]="!specLot() || normalise()"
+          (change)="showSpec.set($event.checked)"
+          >Spec band{{
+            specLot() ? ' of lot ' + specLot()!.code : ' (choose one lot with a spec)'
+          }}</mat-checkbox
+        >
+      </div>
       @if ((choices.value() ?? []).length > 0) {
         <fieldset class="choices">
           <legend>Sweeps to overlay</legend>
@@ -89,6 +114,17 @@ import { CompareApi } from './compare-api';
           [layout]="f.layout"
           label="Resistivity against temperature for the chosen sweeps"
         />
+        @if (f.leftOut.length) {
+          <p class="rt-muted" role="status">
+            Not drawn (no value at 23 °C to divide by): {{ f.leftOut.join('; ') }}.
+          </p>
+        }
+        @if (normalise()) {
+          <p class="rt-muted">
+            Each curve is divided by its value at 23 °C, read by linear interpolation between the
+            two overlay temperatures around 23 °C.
+          </p>
+        }
         <rt-estimate-note />
       } @else {
         <p class="rt-muted">Choose lots, then the sweeps to draw.</p>
@@ -99,6 +135,11 @@ import { CompareApi } from './compare-api';
     .lots {
       width: 360px;
       max-width: 100%;
+    }
+    .options {
+      flex-wrap: wrap;
+      gap: 8px 16px;
+      margin-bottom: 8px;
     }
     .choices {
       border: 1px solid var(--mat-sys-outline-variant);
@@ -146,30 +187,26 @@ export class Compare {
       this.curves.isLoading() ? undefined : this.curves.hasValue() ? this.curves.value() : null,
     computation: (next, previous) => (next === undefined ? (previous?.value ?? null) : next),
   });
+  protected readonly view = signal<OverlayOptions['view']>('temperature');
+  protected readonly logY = signal(true);
+  protected readonly normalise = signal(false);
+  protected readonly showSpec = signal(false);
+  /** The lot whose spec band can be drawn: the one lot chosen, when it states a spec. */
+  protected readonly specLot = computed(() => {
+    const chosen = (this.lots.value() ?? []).filter((l) => this.lotIds().includes(l.id));
+    const only = chosen.length === 1 ? chosen[0]! : null;
+    return only && only.specMinOhmCm !== null && only.specMaxOhmCm !== null ? only : null;
+  });
   protected readonly figure = computed(() => {
     const data = this.shownCurves();
     if (!data) return null;
-    const x = data.temperaturesK.map((k) => (this.unit() === 'K' ? k : k - 273.15));
-    return {
-      data: data.curves.map((c, i) => ({
-        type: 'scatter',
-        mode: 'lines+markers',
-        name: `${c.lotCode} W${c.waferNumber} (#${c.sweepId})`,
-        x,
-        y: c.resistivityOhmCm,
-        line: { color: seriesColour(i), width: 2 },
-        marker: {
-          color: seriesColour(i),
-          size: 4,
-          symbol: ['circle', 'square', 'diamond', 'triangle-up', 'cross'][i % 5],
-        },
-        connectgaps: false,
-      })),
-      layout: {
-        xaxis: { title: { text: this.unit() === 'K' ? 'Temperature (K)' : 'Temperature (°C)' } },
-        yaxis: { title: { text: 'Resistivity (Ω·cm)' }, type: 'log', exponentformat: 'power' },
-      },
-    };
+    return overlayFigure(data, {
+      unit: this.unit(),
+      view: this.view(),
+      logY: this.logY(),
+      normalise: this.normalise(),
+      specLot: this.showSpec() ? this.specLot() : null,
+    });
   });
 
   constructor() {

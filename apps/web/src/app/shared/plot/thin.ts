@@ -33,3 +33,16 @@ export function thinForDisplay<T>(
   }
   return out;
 }
+
+/**
+ * The sentence under a plot whose series was thinned for display: how, and that the numbers
+ * do not depend on it. Empty when nothing was left out.
+ */
+export function thinningNote(shown: number, total: number, what = 'steps'): string {
+  if (shown >= total) return '';
+  return (
+    `The plot draws ${shown} of ${total} ${what}: the series is cut into runs in order and the ` +
+    `lowest and highest of each run are drawn, so peaks, knees and outliers stay visible. ` +
+    `Fits, values and exports use every one of the ${total}.`
+  );
+}

@@ -1,6 +1,6 @@
 import type { ArrheniusPoint } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
-import { thinForDisplay } from '../../../shared/plot/thin';
+import { thinForDisplay, thinningNote } from '../../../shared/plot/thin';
 import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
 import { QUANTITY_WORDS } from '../analysis-labels';
 import type { ShownFit } from '../fit-queue';
@@ -64,6 +64,7 @@ export function arrheniusFigure(
       xaxis: { title: { text: '1000 / T (1/K)' } },
       yaxis: { title: { text: QUANTITY_WORDS[quantity].axis } },
     },
+    caption: thinningNote(shown.length, points.length),
   };
 }
 

@@ -82,6 +82,15 @@ describe('study plots', () => {
     });
     expect((big.data[0] as { type: string }).type).toBe('scatter');
     expect((big.data[0] as { name: string }).name).toMatch(/5000 of 10000 steps shown/);
+    // Under the plot: how it was thinned, and that the numbers use every step.
+    expect(big.caption).toMatch(/draws 5000 of 10000 steps: .*lowest and highest of each run/);
+    expect(big.caption).toContain('Fits, values and exports use every one of the 10000.');
+    const small = curveFigure(steps(250, 450, 50), null, {
+      unit: 'K',
+      rangeK: plotRangeK(250, 450),
+      modelName: 'model',
+    });
+    expect(small.caption).toBe('');
   });
 
   it('thinning keeps each run’s extremes in order', () => {

@@ -1,6 +1,6 @@
 import type { AnalysisStep, ModelCurveResponse } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
-import { thinForDisplay } from '../../../shared/plot/thin';
+import { thinForDisplay, thinningNote } from '../../../shared/plot/thin';
 import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
 import type { ShownFit } from '../fit-queue';
 import { fitCurveTraces, fitResidualTraces } from './fit-traces';
@@ -9,6 +9,8 @@ import { fitCurveTraces, fitResidualTraces } from './fit-traces';
 export interface Figure {
   data: unknown[];
   layout: Record<string, unknown>;
+  /** A sentence under the plot, e.g. how a long series was thinned for display. */
+  caption?: string;
 }
 
 const toAxis = (unit: TemperatureUnit) => (k: number) => toUnit(k, unit);
@@ -125,6 +127,7 @@ export function curveFigure(
         ...logRangeOf(steps),
       },
     },
+    caption: thinningNote(shown.length, steps.length),
   };
 }
 
