@@ -3,6 +3,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, isAbsolute, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseDatabaseHosts, type DatabaseHost } from './db/database-hosts';
+import { calibrationIntervalMonths } from './stations/calibration';
 
 /** The repository root, found from this file so scripts work from any working directory. */
 export const REPO_ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
@@ -92,6 +93,8 @@ export function loadConfig(env: Env = process.env): AppConfig {
   const pick = (key: string, fallback: string): string => env[key] ?? fromFile[key] ?? fallback;
   const port = intFrom(env, 'PORT', 4300);
   const nodeEnv = env.NODE_ENV ?? 'development';
+  // read where it is used; checked here so a bad value stops the start, not an upload
+  calibrationIntervalMonths(env);
   return {
     nodeEnv,
     production: nodeEnv === 'production',

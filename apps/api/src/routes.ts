@@ -16,6 +16,7 @@ import { stationsRouter } from './stations/stations.router';
 import { auditRouter } from './audit/audit.router';
 import { assignmentsRouter } from './assignments/assignments.router';
 import { devMailRouter } from './mail/dev-mail.router';
+import { importSettingsRouter } from './import-settings/import-settings.router';
 import { mapsRouter } from './maps/maps.router';
 import { openApiRouter } from './openapi/openapi.router';
 import { searchRouter } from './search/search.router';
@@ -46,5 +47,6 @@ export function apiRoutes(deps: AppDeps): Router {
   router.use(reportsRouter(deps));
   router.use(mapsRouter(deps));
   router.use(plannerRouter(deps));
+  router.use(importSettingsRouter(deps));
   return router;
 }

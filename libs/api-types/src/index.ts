@@ -167,6 +167,7 @@ export type {
   RowProblem,
   PreviewRow,
   SweepPreviewResponse,
+  MetadataFinding,
   SweepColumnOverride,
   SweepGeometryInput,
   GeometrySource,
@@ -183,4 +184,7 @@ export type {
   HallImportReport,
   SweepSite,
   SweepDto,
+  SweepLayoutInput,
+  ImportSettingsDto,
+  ImportSettingsInput,
 } from './sweeps';

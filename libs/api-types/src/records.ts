@@ -89,6 +89,10 @@ export interface StationDto {
   minTemperatureK: number;
   maxTemperatureK: number;
   calibratedOn: string | null;
+  /** The day the calibration falls due under the lab's interval (null without a date). */
+  calibrationDueOn?: string | null;
+  /** True once that day has passed: the station is marked and uploads from it are warned. */
+  calibrationOverdue?: boolean;
   /** +/- probe spacing tolerance (half-width), cm; null or absent when not stated. */
   probeSpacingToleranceCm?: number | null;
   /** +/- thermometer tolerance (half-width), K; null or absent: the sensor class is assumed. */

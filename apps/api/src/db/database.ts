@@ -6,6 +6,7 @@ import { initAssignmentModel } from '../assignments/assignment.model';
 import { initAssignmentPlanModel } from '../assignments/assignment-plan.model';
 import { initAuditEventModel } from '../audit/audit-event.model';
 import { initFitModel } from '../fits/fit.model';
+import { initImportSettingsModel } from '../import-settings/import-settings.model';
 import { initLotModel } from '../lots/lot.model';
 import { initOutgoingEmailModel } from '../mail/outgoing-email.model';
 import { initStationTokenModel } from '../station-tokens/station-token.model';
@@ -51,6 +52,7 @@ export function connectDatabase(db: DbConfig, options: { poolMax?: number } = {}
   initAssignmentPlanModel(sequelize);
   initSweepModels(sequelize);
   initFitModel(sequelize);
+  initImportSettingsModel(sequelize);
   initAuditEventModel(sequelize);
   initOutgoingEmailModel(sequelize);
   return sequelize;

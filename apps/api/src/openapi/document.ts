@@ -11,6 +11,7 @@ import { registerAuditApi } from '../audit/audit.openapi';
 import { registerAuthApi } from '../auth/auth.openapi';
 import { registerFitsApi } from '../fits/fit.openapi';
 import { registerHealthApi } from '../health/health.openapi';
+import { registerImportSettingsApi } from '../import-settings/import-settings.openapi';
 import { registerLotsApi } from '../lots/lots.openapi';
 import { registerMapsApi } from '../maps/maps.openapi';
 import { registerPlannerApi } from '../planner/planner.openapi';
@@ -41,6 +42,7 @@ const RESOURCES: ReadonlyArray<() => void> = [
   registerAuditApi,
   registerActivityApi,
   registerSweepsApi,
+  registerImportSettingsApi,
   registerAnalysisApi,
   registerFitsApi,
   registerReportsApi,

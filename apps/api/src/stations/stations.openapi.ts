@@ -20,6 +20,8 @@ export const stationDtoSchema = registry.register(
       minTemperatureK: z.number(),
       maxTemperatureK: z.number(),
       calibratedOn: z.string().date().nullable(),
+      calibrationDueOn: z.string().date().nullable().optional(),
+      calibrationOverdue: z.boolean().optional(),
       probeSpacingToleranceCm: z.number().nullable().optional(),
       temperatureToleranceK: z.number().nullable().optional(),
       notes: z.string().nullable(),

@@ -9,8 +9,15 @@ import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
 import { likePattern, orderFrom } from '../db/query';
+import { calibrationState } from './calibration';
 import { Station } from './station.model';
 import { inTransaction } from '../db/connection';
+
+/** The station's calibration under the lab's interval, as the DTO states it. */
+function calibrationOf(calibratedOn: string | null) {
+  const { dueOn, overdue } = calibrationState(calibratedOn);
+  return { calibrationDueOn: dueOn, calibrationOverdue: overdue };
+}
 
 /** The API's view of a probe station. */
 export function toStationDto(s: Station): StationDto {
@@ -25,6 +32,7 @@ export function toStationDto(s: Station): StationDto {
     minTemperatureK: s.minTemperatureK,
     maxTemperatureK: s.maxTemperatureK,
     calibratedOn: s.calibratedOn,
+    ...calibrationOf(s.calibratedOn),
     probeSpacingToleranceCm: s.probeSpacingToleranceCm ?? null,
     temperatureToleranceK: s.temperatureToleranceK ?? null,
     notes: s.notes,

@@ -8,18 +8,7 @@
  * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
-import {
-  MAX_FINDINGS,
-  type HallFactorName,
-  type RowProblem,
-  type SessionUser,
-  type SweepColumnOverride,
-  type SweepCreatedResponse,
-  type SweepGeometryInput,
-  type SweepMapInput,
-  type SweepMethod,
-  type StationSensor,
-} from '@rhotrace/api-types';
+import { MAX_FINDINGS, type SessionUser, type SweepCreatedResponse } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
 import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
 import { conflict, unprocessable } from '../errors';
@@ -27,40 +16,24 @@ import type { RawStorage } from '../storage/raw-storage';
 import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
-import { RowConverter } from './import/convert-rows';
-import { listRows, type ConvertedPoint } from './import/import-types';
-import { detectColumns, publicColumns } from './import/detect-columns';
-import { findStation } from './import/find-station';
-import { SuspiciousPointFinder } from './import/flag';
-import { HallSummary, hallSettings } from './import/hall-summary';
-import { openTable, slices, unreadableRows } from './import/read-table';
+import { SweepRows } from './import/check-rows';
+import { publicColumns } from './import/detect-columns';
+import { planImport, type ImportChoices, type ImportPlan } from './import/plan-import';
+import { openTable, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
 import { RawCopy } from './import/store/raw-copy';
 import { rawJson, SweepStore } from './import/store/sweep-store';
-import { MAX_PROBLEMS, type OpenedSweepFile, type ResolvedColumn } from './parse';
-import { resolveGeometry } from './import/resolve-geometry';
-import { hasSites, SitePlacer } from './import/sites';
-import { temperatureReader } from './import/temperature';
-import type { Station } from '../stations/station.model';
-import { toStationDto } from '../stations/stations.service';
+import { MAX_PROBLEMS, type OpenedSweepFile } from './parse';
 import { Sweep } from './sweep.model';
 
 /** Records converted per slice: one slice is stored while the next is converted. */
 export const IMPORT_SLICE_ROWS = POINT_CHUNK;
 
 /** What `importSweep` needs; the demo seeder calls it directly. */
-export interface ImportSweepInput {
+export interface ImportSweepInput extends ImportChoices {
   waferId: number;
   file: Buffer;
   originalName: string;
-  method: SweepMethod;
-  stationId?: number | null;
-  columns?: SweepColumnOverride[];
-  geometry?: SweepGeometryInput;
-  /** Map fields (site pattern, edge exclusion); used when the columns place readings at sites. */
-  map?: SweepMapInput;
-  /** Hall sweeps: r_H as a number or a named scattering factor (default 1). */
-  hallFactor?: number | HallFactorName;
 }
 
 /** The signed-in user, with the request id the audit event records. */
@@ -74,18 +47,6 @@ export type SweepActor = SessionUser & { requestId?: string | null };
 export interface ImportHooks {
   begin?: (transaction: Transaction) => Promise<void>;
   commit?: (result: SweepCreatedResponse, transaction: Transaction) => Promise<void>;
-}
-
-/** RTD ohms need R0 unless the station reads its ohms through its own table. */
-function needsRtd(columns: ResolvedColumn[], station: Station | null): boolean {
-  const unit = columns.find((c) => c.meaning === 'temperature')?.unitInfo;
-  return unit?.kind === 'resistance' && station?.sensor?.kind !== 'table';
-}
-
-/** The station's sensor (null without a station). */
-export function stationSensor(station: Station | null): StationSensor | null {
-  // a station written before sensors (or by a seeder) reads through its older fields
-  return station ? (toStationDto(station).sensor ?? null) : null;
 }
 
 /**
@@ -120,16 +81,6 @@ function lostSweepRow(error: unknown): never {
   throw error;
 }
 
-/** What the map stage noticed without refusing it. */
-function mapWarnings(converter: RowConverter): string[] {
-  const rows = converter.placer?.tipOffWafer ?? [];
-  if (!rows.length) return [];
-  return [
-    `${rows.length} site(s) lie so near the edge that the probe's outer tip is off the wafer; ` +
-      `they are kept but excluded, with the edge factor of a tip on the edge (rows ${listRows(rows)})`,
-  ];
-}
-
 /** One attempt: the file is read again, so a retry starts from the same bytes. */
 async function importOnce(
   input: ImportSweepInput,
@@ -137,8 +88,7 @@ async function importOnce(
   storage: RawStorage,
   hooks: ImportHooks,
 ): Promise<SweepCreatedResponse> {
-  const file = openTable(input.file, IMPORT_SLICE_ROWS);
-  const columns = detectColumns(file.parsed, input.columns ?? [], input.method);
+  const file = openTable(input.file, IMPORT_SLICE_ROWS, input.layout);
   if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
   const sha256 = createHash('sha256').update(input.file).digest('hex');
   const raw = new RawCopy(storage);
@@ -154,10 +104,11 @@ async function importOnce(
           sweepId: earlier.id,
         });
       }
+      const plan = await planImport(file.parsed, input, { wafer, lot }, transaction);
       const rawKey = raw.put(input.file, transaction);
       try {
         const result = await storeSweep(
-          { input, actor, file, columns, sha256, storage, rawKey, wafer, lot },
+          { input, actor, file, plan, sha256, storage, rawKey, wafer },
           transaction,
         );
         await hooks.commit?.(result, transaction);
@@ -178,12 +129,11 @@ interface StoreContext {
   input: ImportSweepInput;
   actor: SweepActor;
   file: OpenedSweepFile;
-  columns: ResolvedColumn[];
+  plan: ImportPlan;
   sha256: string;
   storage: RawStorage;
   rawKey: Promise<string>;
   wafer: Wafer;
-  lot: Awaited<ReturnType<typeof mayUploadTo>>['lot'];
 }
 
 /**
@@ -194,51 +144,11 @@ async function storeSweep(
   ctx: StoreContext,
   transaction: Transaction,
 ): Promise<SweepCreatedResponse> {
-  const { input, actor, file, columns, sha256, storage, rawKey, wafer, lot } = ctx;
+  const { input, actor, file, plan, sha256, storage, rawKey, wafer } = ctx;
+  const { station, geometry } = plan;
   const parsed = file.parsed;
-  const warnings: string[] = [];
-  const station = await findStation(
-    input.stationId,
-    parsed.recognised.stationName,
-    warnings,
-    transaction,
-  );
-  const geometry = resolveGeometry({
-    method: input.method,
-    request: input.geometry ?? {},
-    wafer,
-    lot,
-    station,
-    file: parsed.recognised,
-    needsRtd: needsRtd(columns, station),
-    isMap: hasSites(columns),
-  });
-  const placer = hasSites(columns)
-    ? (problems: RowProblem[]) =>
-        new SitePlacer(input.map ?? {}, input.method, columns, geometry, problems)
-    : null;
-  const settings = hallSettings(input.method, input.hallFactor);
-  const temperature = temperatureReader({
-    column: columns.find((c) => c.meaning === 'temperature')!,
-    referenceColumn: columns.some((c) => c.meaning === 'reference-junction'),
-    sensor: stationSensor(station),
-    file: parsed.recognised,
-    geometry,
-  });
-  const converter = new RowConverter(
-    parsed,
-    columns,
-    input.method,
-    geometry,
-    settings,
-    placer,
-    temperature,
-  );
-  const finder = new SuspiciousPointFinder();
-  const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
-  const hall = input.method === 'hall' ? new HallSummary(settings, reversals) : null;
-  const watch = (points: ConvertedPoint[]) => finder.addAll(hall ? hall.addAll(points) : points);
   const originalName = input.originalName.slice(0, 255) || 'sweep.csv';
+  const rows = new SweepRows(file, plan, input.method, IMPORT_SLICE_ROWS);
   const store = new SweepStore(
     {
       waferId: wafer.id,
@@ -251,36 +161,28 @@ async function storeSweep(
       sha256,
       storageKind: storage.kind,
       storageKey: rawKey,
-      columnMapping: publicColumns(columns),
+      columnMapping: publicColumns(plan.columns),
       metadata: parsed.layout.metadata,
-      mapInfo: converter.placer?.info ?? null,
+      mapInfo: rows.mapInfo,
     },
     rawJson(parsed),
     transaction,
   );
   try {
-    // no slice is read once the converter holds as many problems as an answer lists
-    for (const slice of slices(file, IMPORT_SLICE_ROWS, () => converter.open)) {
-      await store.write(watch(converter.next(slice)));
-    }
-    await store.write(watch(converter.finish()));
-    if (converter.problems.length) {
+    for (const points of rows.points()) await store.write(points);
+    if (rows.problems.length) {
       throw unprocessable(
         'Some rows hold values that cannot be stored; nothing was stored',
-        converter.problems.slice(0, MAX_PROBLEMS),
+        rows.problems.slice(0, MAX_PROBLEMS),
       );
     }
   } catch (error) {
     await store.abandon();
     throw error;
   }
-  const flags = finder.finish();
-  warnings.push(
-    ...converter.warnings,
-    ...flags.warnings,
-    ...(hall?.warnings ?? []),
-    ...mapWarnings(converter),
-  );
+  const flags = rows.finish();
+  const disagreements = plan.metadata.filter((f) => f.agreement === 'disagrees');
+  const warnings = [...plan.warnings, ...disagreements.map((f) => f.sentence), ...flags.warnings];
   const report = {
     delimiter: parsed.layout.delimiter,
     decimalMark: parsed.layout.decimalMark,
@@ -289,8 +191,8 @@ async function storeSweep(
     warnings,
     flaggedPoints: flags.flagged,
     findings: flags.findings.slice(0, MAX_FINDINGS),
-    temperature: temperature.conversion,
-    ...(hall ? { hall: hall.report } : {}),
+    temperature: plan.temperature.conversion,
+    ...(rows.hallReport ? { hall: rows.hallReport } : {}),
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({
     actorId: actor.id,

@@ -43,6 +43,9 @@ export async function makeStation(s: {
   thermometer?: 'thermocouple' | 'platinum-rtd';
   rtdR0Ohm?: number | null;
   name?: string;
+  minTemperatureK?: number;
+  maxTemperatureK?: number;
+  calibratedOn?: string | null;
 }): Promise<Station> {
   serial += 1;
   return Station.create({
@@ -51,9 +54,9 @@ export async function makeStation(s: {
     tipRadiusCm: null,
     thermometer: s.thermometer ?? 'thermocouple',
     rtdR0Ohm: s.rtdR0Ohm ?? null,
-    minTemperatureK: 4,
-    maxTemperatureK: 800,
-    calibratedOn: null,
+    minTemperatureK: s.minTemperatureK ?? 4,
+    maxTemperatureK: s.maxTemperatureK ?? 800,
+    calibratedOn: s.calibratedOn ?? null,
     notes: null,
   });
 }

@@ -56,10 +56,13 @@ describe('thermometers in the import', () => {
     expect(sweep.parseReport.temperature?.description).toMatch(
       /^type K thermocouple \(file\).*cold junction at 23\.00 °C \(file metadata\)/,
     );
+    // the preview checks the store's choices, so it names the conversion the store used
     const preview = await request(ctx.app)
       .post(`/api/wafers/${wafer.id}/sweeps/preview`)
       .set(ctx.auth('engineer'))
+      .field('spacingCm', '0.1')
       .attach('file', Buffer.from(TC_FILE), 'tc.csv');
+    expect(preview.status, JSON.stringify(preview.body)).toBe(200);
     expect((preview.body as SweepPreviewResponse).temperature?.kind).toBe('thermocouple');
   });
 
@@ -80,6 +83,25 @@ describe('thermometers in the import', () => {
     const { res } = await upload('# thermocouple: K\nTC (mV),I (mA),V (mV)\n1,1,10\n2,1,11\n');
     expect(res.status).toBe(400);
     expect(res.body.error.details[0].problem).toMatch(/cold junction: 23\.4 °C/);
+  });
+
+  it('the preview names a missing cold junction as blocking, in the words the store uses', async () => {
+    const text = '# thermocouple: K\nTC (mV),I (mA),V (mV)\n1,1,10\n2,1,11\n';
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const res = await request(ctx.app)
+      .post(`/api/wafers/${wafer.id}/sweeps/preview`)
+      .set(ctx.auth('engineer'))
+      .field('method', 'four-point')
+      .field('spacingCm', '0.1')
+      .attach('file', Buffer.from(text), 'tc.csv');
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const preview = res.body as SweepPreviewResponse;
+    expect(preview.temperature).toBeNull();
+    expect(preview.pointCount).toBeNull();
+    const blocking = preview.blocking.filter((b) => b.field === 'temperature');
+    expect(blocking).toHaveLength(1);
+    expect(blocking[0]!.problem).toMatch(/cold junction: 23\.4 °C/);
+    expect(preview.temperatureNote).toBe(blocking[0]!.problem);
   });
 
   it("converts through a station's calibration table (a diode in volts)", async () => {

@@ -3,12 +3,14 @@
  */
 import type { SweepColumnOverride } from '@rhotrace/api-types';
 import type { NextFunction, Request, Response } from 'express';
+import type { z } from 'zod';
 import { mayUploadTo } from '../access/visibility.service';
 import { actorOf } from '../middleware/actor';
 import { currentUser } from '../middleware/authenticate';
 import { parseId, parseOrThrow } from '../middleware/validate';
 import { validationFailed } from '../errors';
 import { pointsCsv, safeFileName } from './sweep-csv';
+import type { ImportChoices } from './import/plan-import';
 import { columnsSchema, previewSchema, storeSchema } from './sweep.schemas';
 import {
   deleteSweep,
@@ -64,6 +66,27 @@ export function parseColumns(text: string | undefined): SweepColumnOverride[] | 
   return parseOrThrow(columnsSchema, json, 'body.columns');
 }
 
+/** The store request's choices (method, station, mapping, geometry, map) from its text fields. */
+function choicesOf(body: z.infer<typeof previewSchema>): Partial<ImportChoices> {
+  const { method, stationId, columns, delimiter, decimalMark, hallFactor, ...rest } = body;
+  const { sitePattern, edgeExclusionMm, ...geometry } = rest;
+  return {
+    ...(method ? { method } : {}),
+    ...(hallFactor === undefined ? {} : { hallFactor }),
+    layout: {
+      ...(delimiter ? { delimiter } : {}),
+      ...(decimalMark ? { decimalMark } : {}),
+    },
+    stationId: stationId ?? null,
+    columns: parseColumns(columns),
+    geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
+    map: {
+      ...(sitePattern !== undefined && { sitePattern }),
+      ...(edgeExclusionMm !== undefined && { edgeExclusionMm }),
+    },
+  };
+}
+
 /** Handlers of sweep uploads and reads. */
 export const sweepsController = {
   /**
@@ -77,30 +100,22 @@ export const sweepsController = {
   /** `POST /api/wafers/:id/sweeps/preview` */
   async preview(req: Request, res: Response): Promise<void> {
     const waferId = parseId(req.params);
-    const { stationId } = parseOrThrow(previewSchema, req.body ?? {}, 'body');
-    res.json(await previewSweep({ waferId, file: uploaded(req).buffer, stationId }, actorOf(req)));
+    const file = uploaded(req);
+    const choices = choicesOf(parseOrThrow(previewSchema, req.body ?? {}, 'body'));
+    res.json(await previewSweep({ waferId, file: file.buffer, choices }, actorOf(req)));
   },
   /** `POST /api/wafers/:id/sweeps` */
   async store(req: Request, res: Response): Promise<void> {
     const waferId = parseId(req.params);
     const file = uploaded(req);
     const body = parseOrThrow(storeSchema, req.body, 'body');
-    const { method, stationId, columns, hallFactor, sitePattern, edgeExclusionMm, ...geometry } =
-      body;
     const result = await importSweep(
       {
+        ...choicesOf(body),
+        method: body.method,
         waferId,
         file: file.buffer,
         originalName: storedFileName(file.originalname),
-        method,
-        stationId: stationId ?? null,
-        columns: parseColumns(columns),
-        ...(hallFactor === undefined ? {} : { hallFactor }),
-        geometry: Object.fromEntries(Object.entries(geometry).filter(([, v]) => v !== undefined)),
-        map: {
-          ...(sitePattern !== undefined && { sitePattern }),
-          ...(edgeExclusionMm !== undefined && { edgeExclusionMm }),
-        },
       },
       actorOf(req),
       {

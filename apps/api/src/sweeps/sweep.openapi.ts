@@ -1,4 +1,5 @@
 import type {
+  MetadataFinding,
   SweepCreatedResponse,
   SweepDto,
   SweepPreviewResponse,
@@ -8,8 +9,9 @@ import { COLUMN_MEANINGS, POINT_FLAGS, SWEEP_METHODS } from '@rhotrace/api-types
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { dateTime, fileBody } from '../openapi/shapes';
+import { importSettingsSchema } from '../import-settings/import-settings.openapi';
 import { sweepMapInfoSchema } from '../maps/maps.openapi';
-import { storeSchema } from './sweep.schemas';
+import { previewSchema as previewForm, storeSchema } from './sweep.schemas';
 import { hallImportReportSchema, pointQuantitiesSchema } from '../analysis/hall-responses';
 
 const GEOMETRY_KEYS = ['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'];
@@ -153,6 +155,22 @@ const rowProblem = z
   })
   .strict();
 
+const metadataFinding = z
+  .object({
+    key: z.string(),
+    label: z.string(),
+    fileText: z.string(),
+    recordText: z.string().nullable(),
+    agreement: z.enum(['fills', 'disagrees']),
+    field: z
+      .enum(['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'])
+      .nullable(),
+    fileValue: z.number().nullable(),
+    using: z.enum(['file', 'record']),
+    sentence: z.string(),
+  })
+  .strict() satisfies z.ZodType<MetadataFinding>;
+
 const previewSchema = z
   .object({
     delimiter: z.enum([',', ';', '\t']),
@@ -173,6 +191,16 @@ const previewSchema = z
     suggestedMethod: z.enum(SWEEP_METHODS).nullable(),
     temperature: temperatureConversion.nullable().optional(),
     temperatureNote: z.string().nullable().optional(),
+    method: z.enum(SWEEP_METHODS).nullable(),
+    stationId: z.number().int().nullable(),
+    geometry: geometry.nullable(),
+    blocking: z.array(rowProblem).describe('What the store would refuse, by its own checks'),
+    warnings: z.array(z.string()),
+    pointCount: z.number().int().nullable(),
+    metadataFindings: z.array(metadataFinding),
+    shape: z.string().regex(/^[0-9a-f]{64}$/),
+    shapeLabel: z.string(),
+    savedSettings: importSettingsSchema.nullable(),
   })
   .strict() satisfies z.ZodType<SweepPreviewResponse>;
 
@@ -195,9 +223,10 @@ export function registerSweepsApi(): void {
   route({
     method: 'post',
     path: '/wafers/:id/sweeps/preview',
-    summary: 'Reads an export without storing it: layout, guessed columns, first rows',
+    summary:
+      "Reads an export without storing it and runs the store's checks with the choices given",
     params: idParams,
-    form: z.object({ file: z.string().describe('The probe-station export') }),
+    form: previewForm.extend({ file: z.string().describe('The probe-station export') }),
     ok: { status: 200, description: 'What the import would see', schema: previewSchema },
     errors: [403, 404, 413, 415, 422],
   });

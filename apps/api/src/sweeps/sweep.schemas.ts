@@ -43,16 +43,6 @@ export const columnsSchema = z.array(
     .strict(),
 );
 
-/** The optional text field of a preview: the station whose sensor converts temperatures. */
-export const previewSchema = z
-  .object({
-    stationId: z.preprocess(
-      (v) => (v === '' ? undefined : v),
-      z.coerce.number().int().positive().optional(),
-    ),
-  })
-  .strict();
-
 /** The text fields of an upload (besides the file). */
 export const storeSchema = z
   .object({
@@ -64,6 +54,8 @@ export const storeSchema = z
       z.coerce.number().int().positive().optional(),
     ),
     columns: z.string().max(100_000).optional(),
+    delimiter: z.enum([',', ';', '\t']).optional(),
+    decimalMark: z.enum(['.', ',']).optional(),
     thicknessCm: length,
     diameterCm: length,
     spacingCm: length,
@@ -89,3 +81,6 @@ export const storeSchema = z
     hallFactor,
   })
   .strict();
+
+/** The text fields of a preview: the store's, all optional (the method defaults to the guess). */
+export const previewSchema = storeSchema.partial();

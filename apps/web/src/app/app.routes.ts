@@ -35,6 +35,11 @@ export const routes: Routes = [
         loadComponent: () => import('./features/home/home').then((m) => m.Home),
       },
       {
+        path: 'not-available',
+        title: 'Not available · Rhotrace',
+        loadComponent: () => import('./shared/not-available').then((m) => m.NotAvailable),
+      },
+      {
         path: 'lots',
         canMatch: [capabilityGuard('records:see-all')],
         loadChildren: () => import('./features/lots/lots.routes').then((m) => m.LOTS_ROUTES),

@@ -11,7 +11,7 @@ export async function findStation(
   stationId: number | null | undefined,
   stationName: string | undefined,
   warnings: string[],
-  transaction: Transaction | undefined,
+  transaction?: Transaction,
 ): Promise<Station | null> {
   if (stationId) {
     const station = await Station.findByPk(stationId, { transaction });

@@ -8,6 +8,7 @@ import {
   MAX_PROBLEMS,
   openSweepFile,
   UnreadableFileError,
+  type LayoutChoice,
   type OpenedSweepFile,
   type ParsedSweepFile,
 } from '../parse';
@@ -31,9 +32,16 @@ export function readTable(bytes: Buffer): ParsedSweepFile {
   return reading(() => openSweepFile(bytes).parsed);
 }
 
-/** The file opened with its first `sliceRows` records read; the rest come with `slices`. */
-export function openTable(bytes: Buffer, sliceRows: number): OpenedSweepFile {
-  return reading(() => openSweepFile(bytes, sliceRows));
+/**
+ * The file opened with its first `sliceRows` records read (the rest come with `slices`), with
+ * the separator and decimal mark the user `chosen`, if any.
+ */
+export function openTable(
+  bytes: Buffer,
+  sliceRows: number,
+  chosen: LayoutChoice = {},
+): OpenedSweepFile {
+  return reading(() => openSweepFile(bytes, sliceRows, chosen));
 }
 
 /** The 422 for rows that cannot be read (a wrong number of values). */

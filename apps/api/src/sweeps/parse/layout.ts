@@ -83,9 +83,12 @@ function mode(values: number[]): { value: number; share: number } {
   return { value: best, share: values.length ? bestCount / values.length : 0 };
 }
 
-function chooseDelimiter(lines: string[]): { delimiter: Delimiter; width: number } | null {
+function chooseDelimiter(
+  lines: string[],
+  candidates: Delimiter[],
+): { delimiter: Delimiter; width: number } | null {
   let best: { delimiter: Delimiter; width: number; score: number } | null = null;
-  for (const d of DELIMITERS) {
+  for (const d of candidates) {
     const rows = lines
       .filter((l) => !isSkippable(l) && l.includes(d))
       .map((l) => splitLine(l, d))
@@ -138,18 +141,25 @@ function isUnitsRow(cells: string[]): boolean {
   return filled.length >= 2 && filled.every((c) => parseUnit(c) !== null);
 }
 
+/** A separator or decimal mark the user gave instead of the detected one. */
+export interface LayoutChoice {
+  delimiter?: Delimiter;
+  decimalMark?: DecimalMark;
+}
+
 /**
- * Works out the layout from the first lines of the text. Returns null when no rows of numbers
- * separated by comma, semicolon or tab are found.
+ * Works out the layout from the first lines of the text, with the separator and decimal mark
+ * `chosen` where the user gave them. Returns null when no rows of numbers separated by comma,
+ * semicolon or tab (or by the chosen separator) are found.
  */
-export function detectLayout(text: string): FileLayout | null {
+export function detectLayout(text: string, chosen: LayoutChoice = {}): FileLayout | null {
   const head = text
     .slice(0, HEAD_CHARS)
     .split(/\r\n|\n|\r/)
     .slice(0, HEAD_LINES);
   // The last line of a cut sample may be partial.
   if (text.length > HEAD_CHARS) head.pop();
-  const choice = chooseDelimiter(head);
+  const choice = chooseDelimiter(head, chosen.delimiter ? [chosen.delimiter] : DELIMITERS);
   if (!choice) return null;
   const { delimiter, width } = choice;
   const split = head.map((l) => (isSkippable(l) ? null : splitLine(l, delimiter)));
@@ -205,7 +215,7 @@ export function detectLayout(text: string): FileLayout | null {
   const cells = (i: number | null) => (i === null ? null : split[i]!.map((c) => c.trim()));
   return {
     delimiter,
-    decimalMark: chooseDecimalMark(dataRows.slice(0, 200), delimiter),
+    decimalMark: chosen.decimalMark ?? chooseDecimalMark(dataRows.slice(0, 200), delimiter),
     headers: cells(headerIndex) ?? [],
     headerLine: headerIndex === null ? null : headerIndex + 1,
     unitsLine: unitsIndex === null ? null : unitsIndex + 1,

@@ -15,6 +15,8 @@ export interface RecognisedMetadata {
   currentA?: number;
   rtdR0Ohm?: number;
   method?: string;
+  /** The sample or wafer the file says it was measured on (`Sample: DEMO-W03`). */
+  sampleName?: string;
   /** `thermocouple: K`, `TC type: type K`: the letter, upper case (checked by the import). */
   thermocoupleType?: string;
   /** `cold junction: 23.4 °C`, `reference junction: 296.55 K`. */
@@ -83,6 +85,7 @@ const KEYS: Array<[RegExp, (v: string, out: RecognisedMetadata) => void]> = [
     },
   ],
   [/^(method|measurement|technique|configuration)$/i, (v, o) => (o.method = v)],
+  [/^(sample|wafer|specimen)( ?(name|id|no\.?|number))?$/i, (v, o) => (o.sampleName = v)],
   [
     /^(thermocouple|tc)( ?type)?$/i,
     (v, o) => (o.thermocoupleType = /^\s*(type\s*)?([a-z])\s*$/i.exec(v)?.[2]?.toUpperCase() ?? v),

@@ -16,7 +16,7 @@ import {
   type ResolvedColumn,
 } from './columns';
 import { decodeText, UnreadableFileError } from './decode';
-import { detectLayout, type FileLayout } from './layout';
+import { detectLayout, type FileLayout, type LayoutChoice } from './layout';
 import { recogniseMetadata, type RecognisedMetadata } from './metadata';
 import { readNumber } from './numbers';
 import { DataTableReader, type DataTable } from './read-table';
@@ -56,13 +56,23 @@ export interface OpenedSweepFile {
 }
 
 /**
- * Decodes the file, finds its layout and columns and reads the first `firstLines` lines of data
- * (at least one record when there is one). Throws `UnreadableFileError` for a file with no
- * rows of numbers.
+ * Decodes the file, finds its layout (with the separator and decimal mark `chosen` where the
+ * user gave them) and columns and reads the first `firstLines` lines of data (at least one
+ * record when there is one). Throws `UnreadableFileError` for a file with no rows of numbers.
  */
-export function openSweepFile(bytes: Buffer, firstLines = Infinity): OpenedSweepFile {
+export function openSweepFile(
+  bytes: Buffer,
+  firstLines = Infinity,
+  chosen: LayoutChoice = {},
+): OpenedSweepFile {
+  if (chosen.delimiter === ',' && chosen.decimalMark === ',') {
+    throw new UnreadableFileError(
+      'A comma cannot separate both the values and the decimals: choose another separator',
+      400,
+    );
+  }
   const text = decodeText(bytes);
-  const layout = detectLayout(text);
+  const layout = detectLayout(text, chosen);
   if (!layout) {
     throw new UnreadableFileError(
       'No rows of numbers were found. Rhotrace reads files whose columns are separated by ' +

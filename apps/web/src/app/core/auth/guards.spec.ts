@@ -28,11 +28,11 @@ describe('capabilityGuard', () => {
     expect(runGuard(capabilityGuard('audit:read'))).toBe(true);
   });
 
-  it('sends a role without it home', () => {
+  it('shows a role without it the page that says so (not silently the bench)', () => {
     signIn('engineer');
     const result = runGuard(capabilityGuard('audit:read'));
     expect(result).toBeInstanceOf(UrlTree);
-    expect(TestBed.inject(Router).serializeUrl(result as UrlTree)).toBe('/');
+    expect(TestBed.inject(Router).serializeUrl(result as UrlTree)).toBe('/not-available');
   });
 
   it('sends a signed-out visitor to sign-in', () => {

@@ -12,7 +12,8 @@ export const signedInGuard: CanActivateFn = (_route, state) => {
 
 /**
  * Matches a lazy route only for roles with `capability` (the role-to-capability table in
- * `@rhotrace/api-types`, which the API enforces too); others land on their home.
+ * `@rhotrace/api-types`, which the API enforces too); others see the page that says it is not
+ * available to them, with a way back.
  */
 export function capabilityGuard(capability: Capability): CanMatchFn {
   return () => {
@@ -24,6 +25,6 @@ export function capabilityGuard(capability: Capability): CanMatchFn {
       const next = router.getCurrentNavigation()?.extractedUrl.toString() ?? '/';
       return router.createUrlTree(['/sign-in'], { queryParams: { next } });
     }
-    return router.createUrlTree(['/']);
+    return router.createUrlTree(['/not-available']);
   };
 }

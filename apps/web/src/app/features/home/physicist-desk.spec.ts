@@ -13,7 +13,8 @@ const fit = (id: number, by: string): RecentFitDto => ({
   sweepId: 3,
   sweepName: 'P021-01_hot_25-425C.csv',
   waferId: 5,
-  waferNumber: '01',
+  // as the user typed it: shown the same, never with a prefix of the screen's own
+  waferNumber: 'W01',
   lotId: 2,
   lotCode: 'LV-26-P021',
   headline: { parameter: 'activationEnergyEv', value: 0.5729, standardError: 0.0029 },
@@ -59,7 +60,8 @@ describe('PhysicistDesk', () => {
     http.verify();
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Arrhenius window · Lot LV-26-P021 · Wafer 01');
+    expect(text).toContain('Arrhenius window · Lot LV-26-P021 · Wafer W01');
+    expect(text).not.toContain('WW01');
     expect(text).toContain('Activation energy (eV): 0.5729 ± 0.0029');
     expect(text).toContain('81 points');
 

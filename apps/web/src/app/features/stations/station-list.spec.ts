@@ -33,9 +33,10 @@ class FakeStationsApi {
   readonly removed: number[] = [];
   readonly updates: Array<{ id: number; body: Partial<StationInput> }> = [];
   refuse: ApiError | null = null;
+  stations: StationDto[] = [BENCH];
   list() {
     this.lists += 1;
-    return of({ items: [BENCH], total: 1, page: 1, pageSize: 200 });
+    return of({ items: this.stations, total: this.stations.length, page: 1, pageSize: 200 });
   }
   remove(id: number) {
     this.removed.push(id);
@@ -47,8 +48,9 @@ class FakeStationsApi {
   }
 }
 
-async function setup() {
+async function setup(stations?: StationDto[]) {
   const api = new FakeStationsApi();
+  if (stations) api.stations = stations;
   TestBed.configureTestingModule({
     imports: [StationList],
     providers: [
@@ -65,6 +67,24 @@ async function setup() {
 }
 
 describe('StationList', () => {
+  it('marks a station whose calibration is past the lab interval', async () => {
+    const { fixture } = await setup([
+      BENCH,
+      {
+        ...BENCH,
+        id: 5,
+        name: 'Old chuck',
+        calibratedOn: '2024-03-01',
+        calibrationDueOn: '2025-03-01',
+        calibrationOverdue: true,
+      },
+    ]);
+    const rows = (fixture.nativeElement as HTMLElement).querySelectorAll('tr');
+    const text = [...rows].map((r) => r.textContent?.replace(/\s+/g, ' ') ?? '');
+    expect(text.find((t) => t.includes('Old chuck'))).toContain('due since 2025-03-01');
+    expect(text.find((t) => t.includes('Cold bench'))).not.toContain('due since');
+  });
+
   it('deletes a station only after the confirmation dialog says so', async () => {
     const { api, loader, root } = await setup();
     const remove = await loader.getHarness(

@@ -39,6 +39,11 @@ import { RecordHistory } from '../../shared/record-history/record-history';
     .danger {
       color: var(--mat-sys-error);
     }
+    .overdue {
+      display: block;
+      color: var(--mat-sys-error);
+      font: var(--mat-sys-label-medium);
+    }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

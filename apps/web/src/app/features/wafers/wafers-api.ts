@@ -4,6 +4,8 @@ import type {
   AssignmentDto,
   AssignmentState,
   DopantDensityResponse,
+  ImportSettingsDto,
+  ImportSettingsInput,
   Page,
   StationDto,
   SweepCreatedResponse,
@@ -27,8 +29,37 @@ export interface SweepStoreOptions {
   stationId: number | null;
   columns: SweepColumnOverride[] | null;
   geometry: SweepGeometryInput;
+  /** The separator and decimal mark, where the user corrected the detected ones. */
+  layout?: SweepLayoutChoice;
   /** Map fields, sent when set (files with site columns). */
   map?: SweepMapInput;
+}
+
+/** A separator or decimal mark the user gave instead of the detected one. */
+export interface SweepLayoutChoice {
+  delimiter?: SweepPreviewResponse['delimiter'];
+  decimalMark?: SweepPreviewResponse['decimalMark'];
+}
+
+/** The choices a preview is checked with: the store's, the method not yet chosen or not. */
+export type SweepChoices = Omit<SweepStoreOptions, 'method'> & { method: SweepMethod | null };
+
+/** The choices as the upload's text fields (the file is appended last by the caller). */
+function choiceFields(choices: SweepChoices): FormData {
+  const body = new FormData();
+  if (choices.method) body.append('method', choices.method);
+  if (choices.stationId !== null) body.append('stationId', String(choices.stationId));
+  if (choices.columns) body.append('columns', JSON.stringify(choices.columns));
+  if (choices.layout?.delimiter) body.append('delimiter', choices.layout.delimiter);
+  if (choices.layout?.decimalMark) body.append('decimalMark', choices.layout.decimalMark);
+  for (const [key, value] of Object.entries(choices.geometry)) {
+    if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
+  }
+  const site = choices.map;
+  if (site?.sitePattern) body.append('sitePattern', site.sitePattern);
+  if (site?.edgeExclusionMm !== undefined && Number.isFinite(site.edgeExclusionMm))
+    body.append('edgeExclusionMm', String(site.edgeExclusionMm));
+  return body;
 }
 
 function itemsOf<T>(body: Page<T> | T[]): T[] {
@@ -40,8 +71,9 @@ function itemsOf<T>(body: Page<T> | T[]): T[] {
 export class WafersApi {
   private readonly http = inject(HttpClient);
 
+  /** One wafer. Quiet: a page shows a hidden or missing wafer as not available. */
   get(id: number): Observable<WaferDto> {
-    return this.http.get<WaferDto>(`/api/wafers/${id}`);
+    return this.http.get<WaferDto>(`/api/wafers/${id}`, { context: quietRequest() });
   }
 
   list(query: ListQuery): Observable<Page<WaferDto>> {
@@ -95,13 +127,21 @@ export class WafersApi {
       .pipe(map(itemsOf));
   }
 
-  /** Parses a file without storing it. Quiet: problems are shown against the file. */
-  preview(waferId: number, file: File): Observable<SweepPreviewResponse> {
-    const body = new FormData();
+  /**
+   * Parses a file without storing it and runs the store's checks with `choices`. Quiet:
+   * problems are shown against the file.
+   */
+  preview(waferId: number, file: File, choices?: SweepChoices): Observable<SweepPreviewResponse> {
+    const body = choices ? choiceFields(choices) : new FormData();
     body.append('file', file, file.name);
     return this.http.post<SweepPreviewResponse>(`/api/wafers/${waferId}/sweeps/preview`, body, {
       context: quietRequest(),
     });
+  }
+
+  /** Saves how files of one shape from one station are read, for the next such file. */
+  saveImportSettings(input: ImportSettingsInput): Observable<ImportSettingsDto> {
+    return this.http.put<ImportSettingsDto>('/api/import-settings', input);
   }
 
   /** Stores a sweep, reporting upload progress. */
@@ -110,16 +150,7 @@ export class WafersApi {
     file: File,
     options: SweepStoreOptions,
   ): Observable<HttpEvent<SweepCreatedResponse>> {
-    const body = new FormData();
-    body.append('method', options.method);
-    if (options.stationId !== null) body.append('stationId', String(options.stationId));
-    if (options.columns) body.append('columns', JSON.stringify(options.columns));
-    for (const [key, value] of Object.entries(options.geometry)) {
-      if (typeof value === 'number' && Number.isFinite(value)) body.append(key, String(value));
-    }
-    if (options.map?.sitePattern) body.append('sitePattern', options.map.sitePattern);
-    if (options.map?.edgeExclusionMm !== undefined && Number.isFinite(options.map.edgeExclusionMm))
-      body.append('edgeExclusionMm', String(options.map.edgeExclusionMm));
+    const body = choiceFields(options);
     body.append('file', file, file.name);
     return this.http.post<SweepCreatedResponse>(`/api/wafers/${waferId}/sweeps`, body, {
       reportProgress: true,

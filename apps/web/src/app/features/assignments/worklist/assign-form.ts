@@ -123,7 +123,7 @@ export class AssignForm {
   );
   protected readonly chosenWafer = signal<WaferDto | null>(null);
   protected readonly waferLabel = (w: WaferDto | null) =>
-    w ? `${w.lotCode ? 'Lot ' + w.lotCode + ' · ' : ''}W${w.number}` : '';
+    w ? `${w.lotCode ? 'Lot ' + w.lotCode + ' · ' : ''}wafer ${w.number}` : '';
 
   protected pickWafer(wafer: WaferDto): void {
     this.chosenWafer.set(wafer);

@@ -1,4 +1,4 @@
-import type { ColumnMeaning, SweepMethod } from '@rhotrace/api-types';
+import type { ColumnMeaning, SweepMethod, SweepPreviewResponse } from '@rhotrace/api-types';
 
 /** Unit labels the import understands for each column meaning (the API's canonical spellings). */
 export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
@@ -27,25 +27,28 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   'reference-junction': ['K', 'degC'],
 };
 
-/** Words shown for each column meaning. */
+/**
+ * What a column holds, in the words of the mapping sentence ("Column “T (°C)” holds
+ * temperature in °C"). A new meaning needs only its entry here and its units above.
+ */
 export const MEANING_WORDS: Record<ColumnMeaning, string> = {
-  temperature: 'Temperature',
-  voltage: 'Voltage',
-  current: 'Current',
-  resistance: 'Resistance (V/I, or R_A)',
-  'resistance-b': 'Resistance R_B (van der Pauw)',
-  'sheet-resistance': 'Sheet resistance',
-  resistivity: 'Resistivity',
-  polarity: 'Current polarity',
-  'current-level': 'Current level',
-  time: 'Time',
-  index: 'Row number',
-  other: 'Keep as raw text',
-  'site-x': 'Map site x (from the wafer centre)',
-  'site-y': 'Map site y (away from the flat or notch)',
-  site: 'Map site number (of the chosen pattern)',
-  'site-label': 'Map site name',
-  'magnetic-field': 'Magnetic field',
+  temperature: 'temperature',
+  voltage: 'voltage',
+  current: 'current',
+  resistance: 'resistance V/I (or R_A)',
+  'resistance-b': 'resistance R_B (van der Pauw)',
+  'sheet-resistance': 'sheet resistance',
+  resistivity: 'resistivity',
+  polarity: 'current direction',
+  'current-level': 'current level',
+  time: 'time',
+  index: 'reading number',
+  other: 'nothing Rhotrace uses',
+  'site-x': 'map site x (from the wafer centre)',
+  'site-y': 'map site y (away from the flat or notch)',
+  site: 'map site number (of the chosen pattern)',
+  'site-label': 'map site name',
+  'magnetic-field': 'magnetic field',
   'hall-voltage': 'Hall voltage (offsets removed)',
   'hall-voltage-pp': 'Hall voltage at +B, +I',
   'hall-voltage-pn': 'Hall voltage at +B, −I',
@@ -53,6 +56,18 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   'hall-voltage-nn': 'Hall voltage at −B, −I',
   'reference-junction': 'Reference (cold) junction temperature',
 };
+
+/** How sure the column detection is, in words (a choice made by hand is certain). */
+export function confidenceWords(confidence: number): string {
+  if (confidence >= 0.9) return 'high';
+  if (confidence >= 0.6) return 'medium: check it';
+  return 'low: choose by hand';
+}
+
+/** The choice offered for a meaning: "holds temperature", or "is not used". */
+export function meaningChoice(meaning: ColumnMeaning): string {
+  return meaning === 'other' ? 'is not used' : `holds ${MEANING_WORDS[meaning]}`;
+}
 
 /** Words shown for each measurement method. */
 export const METHOD_WORDS: Record<SweepMethod, string> = {
@@ -76,3 +91,16 @@ export function unitLabel(unit: string | null): string {
     .replace(/ohm\/sq$/, 'Ω/□')
     .replace(/ohm$/, 'Ω');
 }
+
+/** The separators the import reads, in the words of the layout sentence. */
+export const DELIMITER_WORDS: Record<SweepPreviewResponse['delimiter'], string> = {
+  ',': 'commas',
+  ';': 'semicolons',
+  '\t': 'tabs',
+};
+
+/** The decimal marks the import reads, in words with an example. */
+export const DECIMAL_WORDS: Record<SweepPreviewResponse['decimalMark'], string> = {
+  '.': 'point (1.5)',
+  ',': 'comma (1,5)',
+};

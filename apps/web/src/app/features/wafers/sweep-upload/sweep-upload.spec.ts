@@ -3,6 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
+import { MatRadioGroupHarness } from '@angular/material/radio/testing';
 import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import type { SweepPreviewResponse } from '@rhotrace/api-types';
@@ -26,6 +28,29 @@ const PREVIEW: SweepPreviewResponse = {
   rowCount: 2,
   problems: [{ row: 3, column: 'V', problem: 'is not a number', field: 'row 3, column V' }],
   suggestedMethod: 'four-point',
+  method: 'four-point',
+  stationId: null,
+  geometry: null,
+  blocking: [{ row: 3, column: 'V', problem: '"x" is not a number', field: 'row 3, column V' }],
+  warnings: [],
+  pointCount: null,
+  metadataFindings: [],
+  shape: 'a'.repeat(64),
+  shapeLabel: '3 comma-separated columns: T (K), V, I (mA)',
+  savedSettings: null,
+};
+
+/** The same file once nothing blocks it. */
+const READY: SweepPreviewResponse = {
+  ...PREVIEW,
+  problems: [],
+  blocking: [],
+  pointCount: 2,
+  geometry: {
+    thicknessCm: 0.05,
+    spacingCm: 0.1,
+    sources: { thicknessCm: 'wafer', spacingCm: 'station' },
+  },
 };
 
 async function setup() {
@@ -61,8 +86,19 @@ function choose(input: HTMLInputElement, files: File[]): void {
 }
 
 describe('SweepUpload', () => {
-  it('shows the caution for the material, previews each chosen file and marks problem rows', async () => {
-    const { fixture, backend, input } = await setup();
+  it('opens the chooser on a click on the drop zone', async () => {
+    const { fixture, input } = await setup();
+    let opened = 0;
+    input.addEventListener('click', () => opened++);
+    const zone = (fixture.nativeElement as HTMLElement).querySelector(
+      'ngx-dropzone',
+    ) as HTMLElement;
+    zone.querySelector('.drop-words')!.dispatchEvent(new MouseEvent('click', { bubbles: true }));
+    expect(opened).toBe(1);
+  });
+
+  it('previews each file, marks what blocks it and keeps Store disabled', async () => {
+    const { fixture, loader, backend, input } = await setup();
     const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
     expect(text()).toContain('GaAs is toxic when broken or abraded');
 
@@ -79,89 +115,348 @@ describe('SweepUpload', () => {
       { status: 422, statusText: 'Unprocessable' },
     );
     await fixture.whenStable();
-    expect(text()).toContain('Ready to store');
+    expect(text()).toContain('Needs attention');
+    expect(text()).not.toContain('Ready to store');
     expect(text()).toContain('This file holds no readable table');
     expect(text()).toContain('Line 3, V:');
     const badRows = (fixture.nativeElement as HTMLElement).querySelectorAll('tr.bad');
     expect(badRows).toHaveLength(1);
     expect(badRows[0]!.textContent).toContain('is not a number');
+    const store = await loader.getHarness(MatButtonHarness.with({ text: /Store 0 files/ }));
+    expect(await store.isDisabled()).toBe(true);
   });
 
-  it('sends the edited mapping, method and station and shows progress then the result', async () => {
-    const { fixture, loader, backend, input } = await setup();
-    choose(input, [new File(['T,V,I\n80,0.01,1'], 'ramp.csv')]);
-    await fixture.whenStable();
-    backend.expectOne('/api/wafers/7/sweeps/preview').flush({ ...PREVIEW, problems: [] });
-    await fixture.whenStable();
+  // many harness steps: a loaded two-core machine needs more than the default 5 s
+  it(
+    'gives each file its own method, station and mapping, checked again after each change',
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['T,V,I\n80,0.01,1'], 'ramp.csv'), new File(['x'], 'square.csv')]);
+      await fixture.whenStable();
+      const [first, second] = backend.match('/api/wafers/7/sweeps/preview');
+      first!.flush(READY);
+      second!.flush({ ...READY, suggestedMethod: 'van-der-pauw', method: 'van-der-pauw' });
+      await fixture.whenStable();
 
-    const method = await loader.getHarness(
-      MatSelectHarness.with({ selector: '.settings mat-select' }),
-    );
-    expect(await method.getValueText()).toBe('Four-point probe (collinear)');
-    const [, station] = await loader.getAllHarnesses(
-      MatSelectHarness.with({ selector: '.settings mat-select' }),
-    );
-    await station!.open();
-    await station!.clickOptions({ text: 'Cryo bench' });
-    // Correct the voltage column's unit from V to mV.
-    const unitSelects = await loader.getAllHarnesses(
-      MatSelectHarness.with({ selector: '.mapping mat-select' }),
-    );
-    const voltageUnit = unitSelects[3]!;
-    await voltageUnit.open();
-    await voltageUnit.clickOptions({ text: 'mV' });
+      const methods = await loader.getAllHarnesses(
+        MatSelectHarness.with({ selector: '.settings mat-select[required]' }),
+      );
+      expect(await methods[0]!.getValueText()).toBe('Four-point probe (collinear)');
+      expect(await methods[1]!.getValueText()).toBe('Van der Pauw square');
+      const [, station] = await loader.getAllHarnesses(
+        MatSelectHarness.with({ selector: '.settings mat-select' }),
+      );
+      await station!.open();
+      await station!.clickOptions({ text: 'Cryo bench' });
+      const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((recheck.request.body as FormData).get('stationId')).toBe('3');
+      recheck.flush({ ...READY, stationId: 3 });
+      await fixture.whenStable();
+      // Correct the first file's voltage unit from V to mV: checked again with the mapping.
+      const units = await loader.getAllHarnesses(
+        MatSelectHarness.with({ selector: '.unit-field mat-select' }),
+      );
+      await units[1]!.open();
+      await units[1]!.clickOptions({ text: 'mV' });
+      const mapped = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect(JSON.parse(String((mapped.request.body as FormData).get('columns')))).toEqual([
+        { index: 0, meaning: 'temperature', unit: 'K' },
+        { index: 1, meaning: 'voltage', unit: 'mV' },
+        { index: 2, meaning: 'current', unit: 'mA' },
+      ]);
+      mapped.flush({ ...READY, stationId: 3 });
+      await fixture.whenStable();
 
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
-    const store = backend.expectOne('/api/wafers/7/sweeps');
-    const body = store.request.body as FormData;
-    expect(body.get('method')).toBe('four-point');
-    expect(body.get('stationId')).toBe('3');
-    expect(JSON.parse(String(body.get('columns')))).toEqual([
-      { index: 0, meaning: 'temperature', unit: 'K' },
-      { index: 1, meaning: 'voltage', unit: 'mV' },
-      { index: 2, meaning: 'current', unit: 'mA' },
-    ]);
-    expect(store.request.reportProgress).toBe(true);
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 2 files/ }))).click();
+      const [ramp, square] = backend.match('/api/wafers/7/sweeps');
+      const sent = (r: typeof ramp) => r!.request.body as FormData;
+      expect(sent(ramp).get('method')).toBe('four-point');
+      expect(sent(ramp).get('stationId')).toBe('3');
+      expect(JSON.parse(String(sent(ramp).get('columns')))[1]).toEqual({
+        index: 1,
+        meaning: 'voltage',
+        unit: 'mV',
+      });
+      expect(sent(square).get('method')).toBe('van-der-pauw');
+      expect(sent(square).get('stationId')).toBeNull();
+      expect(sent(square).get('columns')).toBeNull();
+      expect(ramp!.request.reportProgress).toBe(true);
 
-    store.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
-    await fixture.whenStable();
-    const bar = await loader.getHarness(
-      MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }),
-    );
-    expect(await bar.getValue()).toBe(40);
+      ramp!.event({ type: HttpEventType.UploadProgress, loaded: 40, total: 100 });
+      await fixture.whenStable();
+      const bar = await loader.getHarness(
+        MatProgressBarHarness.with({ selector: '.file mat-progress-bar' }),
+      );
+      expect(await bar.getValue()).toBe(40);
+      ramp!.flush(
+        { id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] },
+        { status: 201, statusText: 'Created' },
+      );
+      square!.flush(
+        { id: 56, pointCount: 2, warnings: [] },
+        { status: 201, statusText: 'Created' },
+      );
+      await fixture.whenStable();
+      const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+      expect(text).toContain('Stored: 24 points');
+      expect(text).toContain('2 points flagged as jumps');
+    },
+  );
 
-    store.flush(
-      { id: 55, pointCount: 24, warnings: ['2 points flagged as jumps'] },
-      { status: 201, statusText: 'Created' },
-    );
-    await fixture.whenStable();
-    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Stored: 24 points');
-    expect(text).toContain('2 points flagged as jumps');
-  });
-
-  it('a refused store lists the rows the server names', async () => {
-    const { fixture, loader, backend, input } = await setup();
-    choose(input, [new File(['x'], 'bad.csv')]);
-    await fixture.whenStable();
-    backend.expectOne('/api/wafers/7/sweeps/preview').flush({ ...PREVIEW, problems: [] });
-    await fixture.whenStable();
-    await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
-    backend.expectOne('/api/wafers/7/sweeps').flush(
-      {
-        error: {
-          code: 'validation_failed',
-          message: 'The file has rows that cannot be stored; nothing was stored',
-          details: [{ field: 'row 14, column I (mA)', problem: 'current must be above zero' }],
+  it(
+    'after a refusal the file is corrected in place and stored on the next try',
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['x'], 'bad.csv')]);
+      await fixture.whenStable();
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(READY);
+      await fixture.whenStable();
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      backend.expectOne('/api/wafers/7/sweeps').flush(
+        {
+          error: {
+            code: 'validation_failed',
+            message: 'The file has rows that cannot be stored; nothing was stored',
+            details: [{ field: 'row 14, column I (mA)', problem: 'current must be above zero' }],
+          },
         },
-      },
-      { status: 400, statusText: 'Bad Request' },
-    );
+        { status: 400, statusText: 'Bad Request' },
+      );
+      await fixture.whenStable();
+      const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
+      expect(text()).toContain('Refused');
+      expect(text()).toContain('nothing was stored');
+      expect(text()).toContain('Line 14, I (mA):');
+
+      const thickness = (fixture.nativeElement as HTMLElement).querySelector(
+        '.geo input',
+      ) as HTMLInputElement;
+      thickness.value = '0.0525';
+      thickness.dispatchEvent(new Event('change'));
+      const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.0525');
+      recheck.flush(READY);
+      await fixture.whenStable();
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      const retry = backend.expectOne('/api/wafers/7/sweeps');
+      expect((retry.request.body as FormData).get('thicknessCm')).toBe('0.0525');
+    },
+  );
+
+  it(
+    "asks a file with site columns for the map's pattern and edge exclusion, and sends them",
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['x'], 'map.csv')]);
+      await fixture.whenStable();
+      const mapFile: SweepPreviewResponse = {
+        ...READY,
+        suggestedMethod: 'resistivity',
+        method: 'resistivity',
+        columns: [
+          { index: 0, header: 'site', meaning: 'site', unit: null, confidence: 0.5 },
+          { index: 1, header: 'T (K)', meaning: 'temperature', unit: 'K', confidence: 1 },
+          { index: 2, header: 'rho', meaning: 'resistivity', unit: 'ohm_cm', confidence: 1 },
+        ],
+      };
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(mapFile);
+      await fixture.whenStable();
+      const host = fixture.nativeElement as HTMLElement;
+      expect(host.querySelector('[aria-label="Wafer map of map.csv"]')).not.toBeNull();
+      // an unsure guess is named in words beside the column
+      expect(host.textContent).toContain('detection: low: choose by hand');
+
+      const pattern = await loader.getHarness(
+        MatSelectHarness.with({ selector: '[aria-label="Wafer map of map.csv"] mat-select' }),
+      );
+      await pattern.open();
+      await pattern.clickOptions({ text: 'centre-5' });
+      const picked = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((picked.request.body as FormData).get('sitePattern')).toBe('centre-5');
+      picked.flush(mapFile);
+      await fixture.whenStable();
+      const edge = host.querySelector(
+        '[aria-label="Wafer map of map.csv"] input',
+      ) as HTMLInputElement;
+      edge.value = '5';
+      edge.dispatchEvent(new Event('change'));
+      const edged = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((edged.request.body as FormData).get('edgeExclusionMm')).toBe('5');
+      edged.flush(mapFile);
+      await fixture.whenStable();
+
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      const stored = backend.expectOne('/api/wafers/7/sweeps').request.body as FormData;
+      expect(stored.get('sitePattern')).toBe('centre-5');
+      expect(stored.get('edgeExclusionMm')).toBe('5');
+    },
+  );
+
+  it("shows the header's disagreements and lets the user choose before storing", async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'w03.csv')]);
+    await fixture.whenStable();
+    backend.expectOne('/api/wafers/7/sweeps/preview').flush({
+      ...READY,
+      metadataFindings: [
+        {
+          key: 'sampleName',
+          label: 'Sample',
+          fileText: 'DEMO-W03',
+          recordText: 'wafer W01 of lot DEMO',
+          agreement: 'disagrees',
+          field: null,
+          fileValue: null,
+          using: 'record',
+          sentence: '',
+        },
+        {
+          key: 'thicknessCm',
+          label: 'Thickness',
+          fileText: '380 µm',
+          recordText: '525 µm on the wafer',
+          agreement: 'disagrees',
+          field: 'thicknessCm',
+          fileValue: 0.038,
+          using: 'record',
+          sentence: '',
+        },
+      ],
+    });
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
-    expect(text).toContain('Refused');
-    expect(text).toContain('nothing was stored');
-    expect(text).toContain('Line 14, I (mA):');
-    expect(text).toContain('current must be above zero');
+    expect(text).toContain('Thickness 380 µm, but 525 µm on the wafer.');
+    const storeButton = () => loader.getHarness(MatButtonHarness.with({ text: /^Store/ }));
+    expect(await (await storeButton()).getText()).toBe('Store 0 files');
+
+    const thickness = await loader.getHarness(MatRadioGroupHarness);
+    await thickness.checkRadioButton({ label: /the file's 380 µm/ });
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.038');
+    recheck.flush({ ...READY, metadataFindings: [] });
+    await fixture.whenStable();
+    expect(await (await storeButton()).getText()).toBe('Store 1 file');
+  });
+
+  it('asks for a confirmation when the header names another sample', async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'w03.csv')]);
+    await fixture.whenStable();
+    const finding = {
+      key: 'sampleName',
+      label: 'Sample',
+      fileText: 'DEMO-W03',
+      recordText: 'wafer W01 of lot DEMO',
+      agreement: 'disagrees' as const,
+      field: null,
+      fileValue: null,
+      using: 'record' as const,
+      sentence: '',
+    };
+    backend
+      .expectOne('/api/wafers/7/sweeps/preview')
+      .flush({ ...READY, metadataFindings: [finding] });
+    await fixture.whenStable();
+    const storeButton = () => loader.getHarness(MatButtonHarness.with({ text: /^Store/ }));
+    expect(await (await storeButton()).isDisabled()).toBe(true);
+    await (await loader.getHarness(MatCheckboxHarness)).check();
+    expect(await (await storeButton()).getText()).toBe('Store 1 file');
+    expect(await (await storeButton()).isDisabled()).toBe(false);
+  });
+
+  it("words the mapping in Rhotrace's sentences and lets the separator be changed", async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'ramp.csv')]);
+    await fixture.whenStable();
+    backend.expectOne('/api/wafers/7/sweeps/preview').flush(READY);
+    await fixture.whenStable();
+    const text = () => (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ');
+    expect(text()).toContain(
+      '2 readings; values are separated by commas and written with a decimal point (1.5).',
+    );
+    expect(text()).toContain('Column “T (K)”');
+    const holds = await loader.getHarness(
+      MatSelectHarness.with({ selector: '.cell-field mat-select' }),
+    );
+    expect(await holds.getValueText()).toBe('holds temperature');
+    await holds.open();
+    const options = await holds.getOptions();
+    expect(await options.at(-1)!.getText()).toBe('is not used');
+    await holds.close();
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Change' }))).click();
+    const separator = await loader.getHarness(
+      MatSelectHarness.with({ selector: '.layout-choice mat-select' }),
+    );
+    await separator.open();
+    await separator.clickOptions({ text: 'semicolons' });
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    expect((recheck.request.body as FormData).get('delimiter')).toBe(';');
+    expect((recheck.request.body as FormData).get('columns')).toBeNull();
+  });
+
+  it('presets a file from the settings saved for its station and shape, and saves new ones', async () => {
+    const { fixture, loader, backend, input } = await setup();
+    choose(input, [new File(['x'], 'again.csv'), new File(['y'], 'new.csv')]);
+    await fixture.whenStable();
+    const [again, fresh] = backend.match('/api/wafers/7/sweeps/preview');
+    const saved = {
+      id: 4,
+      stationId: 3,
+      stationName: 'Cryo bench',
+      shape: 'a'.repeat(64),
+      shapeLabel: '3 comma-separated columns: T (K), V, I (mA)',
+      method: 'bar' as const,
+      columns: [{ index: 1, meaning: 'voltage' as const, unit: 'mV' }],
+      geometry: { barLengthCm: 0.5, barWidthCm: 0.1 },
+      layout: { decimalMark: ',' as const },
+      savedById: 2,
+      savedByName: 'Demo Engineer',
+      updatedAt: '2026-11-30T10:00:00.000Z',
+    };
+    again!.flush({ ...READY, stationId: 3, savedSettings: saved });
+    fresh!.flush({ ...READY, stationId: 3 });
+    await fixture.whenStable();
+    const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
+    const sent = recheck.request.body as FormData;
+    expect(sent.get('method')).toBe('bar');
+    expect(sent.get('barLengthCm')).toBe('0.5');
+    expect(sent.get('decimalMark')).toBe(',');
+    expect(JSON.parse(String(sent.get('columns')))[1]).toEqual({
+      index: 1,
+      meaning: 'voltage',
+      unit: 'mV',
+    });
+    recheck.flush({ ...READY, stationId: 3, savedSettings: saved });
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent?.replace(/\s+/g, ' ');
+    expect(text).toContain(
+      'Preset from the settings saved for Cryo bench by Demo Engineer on 2026-11-30',
+    );
+
+    // the second file, not preset, is remembered as it was detected
+    const remember = await loader.getAllHarnesses(
+      MatButtonHarness.with({ text: 'Remember these settings for this station' }),
+    );
+    await remember[1]!.click();
+    const put = backend.expectOne({ method: 'PUT', url: '/api/import-settings' });
+    expect(put.request.body).toMatchObject({
+      stationId: 3,
+      shape: 'a'.repeat(64),
+      method: 'four-point',
+      columns: [
+        { index: 0, meaning: 'temperature', unit: 'K' },
+        { index: 1, meaning: 'voltage', unit: 'V' },
+        { index: 2, meaning: 'current', unit: 'mA' },
+      ],
+    });
+    put.flush({ ...saved, id: 5, method: 'four-point' });
+    await fixture.whenStable();
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(
+      'the next file of this shape from it is preset the same way',
+    );
   });
 });

@@ -113,4 +113,39 @@ describe('WaferPage', () => {
     );
     expect((await budget.getCellTextByColumnName())['source']?.text).toEqual(['Thickness']);
   });
+
+  it('shows one "not available" page for a wafer hidden from the user, and asks for nothing else', async () => {
+    TestBed.configureTestingModule({
+      imports: [WaferPage],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
+      ],
+    });
+    const fixture = TestBed.createComponent(WaferPage);
+    fixture.componentRef.setInput('id', '13');
+    const backend = TestBed.inject(HttpTestingController);
+    const asked: string[] = [];
+    for (let wave = 0; wave < 4; wave += 1) {
+      fixture.detectChanges();
+      await new Promise((resolve) => setTimeout(resolve));
+      for (const req of backend.match(() => true)) {
+        asked.push(req.request.url);
+        if (req.request.url === '/api/wafers/13') {
+          req.flush(
+            { error: { code: 'not_found', message: 'Wafer 13 was not found' } },
+            { status: 404, statusText: 'Not Found' },
+          );
+        } else answer(req);
+      }
+    }
+    await fixture.whenStable();
+    const text = (fixture.nativeElement.textContent as string).replace(/\s+/g, ' ');
+    expect(text).toContain('Not available to you');
+    expect(text).toContain('Back to your bench');
+    expect(text).not.toContain('Assignments');
+    expect(asked.filter((u) => u.startsWith('/api/wafers/13/'))).toEqual([]);
+  });
 });

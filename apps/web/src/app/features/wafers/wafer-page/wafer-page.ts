@@ -25,6 +25,7 @@ import { Plot } from '../../../shared/plot/plot';
 import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
+import { NotAvailable } from '../../../shared/not-available';
 import { WafersApi } from '../wafers-api';
 import { MapView } from '../../maps/map-view/map-view';
 import { RecordHistory } from '../../../shared/record-history/record-history';
@@ -55,6 +56,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     SweepUpload,
     EstimateNote,
     ValueAt23C,
+    NotAvailable,
     MapView,
     PlanForm,
     PlanView,
@@ -91,11 +93,13 @@ export class WaferPage {
     stream: ({ params }) => this.api.get(params),
   });
   protected readonly lot = rxResource({
-    params: () => this.wafer.value()?.lotId,
+    params: () => (this.wafer.hasValue() ? this.wafer.value().lotId : undefined),
     stream: ({ params }) => this.lots.get(params),
   });
+  // The wafer's parts load once the wafer itself is known to be visible, so a hidden wafer
+  // shows one "not available" page, not a row of empty headings and "not found" messages.
   protected readonly sweeps = rxResource({
-    params: () => this.waferId(),
+    params: () => (this.wafer.hasValue() ? this.waferId() : undefined),
     stream: ({ params }) => this.api.sweeps(params),
   });
   protected readonly dopant = rxResource({
@@ -104,7 +108,7 @@ export class WaferPage {
       params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null),
   });
   protected readonly assignments = rxResource({
-    params: () => this.waferId(),
+    params: () => (this.wafer.hasValue() ? this.waferId() : undefined),
     stream: ({ params }) =>
       this.api.assignments(
         this.seesAllAssignments ? { waferId: params } : { assignee: 'me', waferId: params },
@@ -194,7 +198,7 @@ export class WaferPage {
   /** Deletes a wafer not yet measured (the API refuses a measured one with a message). */
   protected removeWafer(number: string, lotId: number): void {
     const question =
-      `Delete wafer W${number}? Its open assignments are cancelled; ` +
+      `Delete wafer ${number}? Its open assignments are cancelled; ` +
       'it stays in the change trail.';
     if (!globalThis.confirm(question)) return;
     this.api

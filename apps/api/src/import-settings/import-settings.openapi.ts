@@ -1,0 +1,72 @@
+import type { ImportSettingsDto } from '@rhotrace/api-types';
+import { SWEEP_METHODS } from '@rhotrace/api-types';
+import { z } from 'zod';
+import { idParams, registry, routesOf } from '../openapi/registry';
+import { dateTime } from '../openapi/shapes';
+import { columnsSchema } from '../sweeps/sweep.schemas';
+import { listQuery, saveBody } from './import-settings.schemas';
+
+const length = z.number();
+
+/** Saved import settings as the API answers them. */
+export const importSettingsSchema = registry.register(
+  'ImportSettings',
+  z
+    .object({
+      id: z.number().int(),
+      stationId: z.number().int(),
+      stationName: z.string().nullable(),
+      shape: z.string().regex(/^[0-9a-f]{64}$/),
+      shapeLabel: z.string(),
+      method: z.enum(SWEEP_METHODS),
+      columns: columnsSchema,
+      geometry: z
+        .object({
+          thicknessCm: length.optional(),
+          diameterCm: length.optional(),
+          spacingCm: length.optional(),
+          barLengthCm: length.optional(),
+          barWidthCm: length.optional(),
+        })
+        .strict(),
+      layout: z
+        .object({
+          delimiter: z.enum([',', ';', '\t']).optional(),
+          decimalMark: z.enum(['.', ',']).optional(),
+        })
+        .strict(),
+      savedById: z.number().int().nullable(),
+      savedByName: z.string().nullable(),
+      updatedAt: dateTime,
+    })
+    .strict(),
+) satisfies z.ZodType<ImportSettingsDto>;
+
+/** /api/import-settings */
+export function registerImportSettingsApi(): void {
+  const route = routesOf('Import settings');
+  route({
+    method: 'get',
+    path: '/import-settings',
+    summary: 'Saved import settings, of one station or all, newest first',
+    query: listQuery,
+    ok: { status: 200, description: 'The settings', schema: z.array(importSettingsSchema) },
+    errors: [403],
+  });
+  route({
+    method: 'put',
+    path: '/import-settings',
+    summary: 'Saves (or replaces) how files of one shape from one station are read',
+    body: saveBody,
+    ok: { status: 200, description: 'The saved settings', schema: importSettingsSchema },
+    errors: [403],
+  });
+  route({
+    method: 'delete',
+    path: '/import-settings/:id',
+    summary: 'Deletes saved import settings',
+    params: idParams,
+    ok: { status: 204, description: 'Deleted' },
+    errors: [403, 404],
+  });
+}
