@@ -244,9 +244,13 @@ def polarity():
         row += 2
         v = (float(vf) - float(vr)) / 2 * 1e-6
         rs, rho_calc = four_point(v, i * 1e-6, s, t)
-        points.append({'row': row - 1, 'sequence': k + 1, 'temperatureK': temp, 'sheetResistanceOhmSq': rs, 'resistivityOhmCm': rho_calc, 'voltageV': v, 'currentA': i * 1e-6, 'flags': ['polarity-averaged']})
+        # the offset makes forward and reverse differ by |R+ - R-| / R, flagged above 2 %
+        r_fwd, r_rev, r_avg = float(vf) / i, float(vr) / -i, v / (i * 1e-6)
+        asymmetric = abs(r_fwd - r_rev) / r_avg > 0.02
+        flags = ['polarity-averaged'] + (['polarity-asymmetry'] if asymmetric else [])
+        points.append({'row': row - 1, 'sequence': k + 1, 'temperatureK': temp, 'sheetResistanceOhmSq': rs, 'resistivityOhmCm': rho_calc, 'voltageV': v, 'currentA': i * 1e-6, 'flags': flags})
     write('forward-reverse-polarity.csv', '\n'.join(lines) + '\n', {
-        'description': 'Forward and reverse current at each temperature (polarity column, current given as a magnitude) with a thermoelectric offset that the average cancels.',
+        'description': 'Forward and reverse current at each temperature (polarity column, current given as a magnitude) with a thermoelectric offset that the average cancels; the readings differ by far more than 2 %, so each point is flagged polarity-asymmetry.',
         'method': 'four-point',
         'setup': {'wafer': {'thicknessCm': t}, 'lot': {}, 'station': {'probeSpacingCm': s, 'thermometer': 'thermocouple'}},
         'expect': {'delimiter': ',', 'decimalMark': '.', 'pointCount': 14, 'headerRow': 1,

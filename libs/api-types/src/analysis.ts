@@ -4,6 +4,7 @@
  */
 import type { LotUniformitySpread, WaferUniformity } from './maps';
 import type { HallAnalysis, HallAt300K } from './hall';
+import type { PointFinding } from './sweeps';
 import type { LotCapability, SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
@@ -199,8 +200,33 @@ export interface SweepAnalysisResponse {
   arrhenius: ArrheniusPoint[];
   suggestedWindows: SuggestedWindow[];
   spec: SpecCheckDto;
+  /** The sweep's ramp legs in recorded order. */
+  legs?: LegDto[];
+  /** The leg the steps above come from; null: all legs together. */
+  leg?: number | null;
+  /**
+   * Sensor-to-sample lag read from an up and a down leg overlapping by at least 20 K: half the
+   * temperature offset between them at equal resistivity, positive when the sample trails the
+   * sensor; null without such a pair.
+   */
+  thermalLag?: { lagK: number; standardErrorK: number } | null;
+  /** The import's findings: each doubtful point and why (from the sweep's parse report). */
+  findings?: PointFinding[];
+  /** Points carrying a doubtful flag. */
+  flaggedPoints?: number;
   /** Hall sweeps only: n(T) and mu_H(T) by step, the carrier type and the freeze-out window. */
   hall?: HallAnalysis;
+}
+
+/** One ramp leg of a sweep. */
+export interface LegDto {
+  /** 1, 2, ... in recorded order (the points' `leg`). */
+  index: number;
+  direction: 'up' | 'down' | 'hold';
+  minK: number;
+  maxK: number;
+  /** Dwell steps in the leg (readings within the step tolerance of a step's first). */
+  stepCount: number;
 }
 
 /** `GET /api/wafers/:id/dopant` answer. */

@@ -16,15 +16,27 @@ export type FitKind = (typeof FIT_KINDS)[number];
 
 /**
  * Point flags that leave a reading out of fits unless the request says `includeFlagged: true`:
- * the suspicious ones (a resistivity jump, a temperature against the ramp). `polarity-averaged`
- * and `unpaired-polarity` say how a point was formed, not that it is doubtful.
+ * the suspicious ones (a resistivity jump, a temperature against the ramp, a Hampel outlier, a
+ * reading warmed by its current, a step not settled, a contact fault). `polarity-averaged` and
+ * `unpaired-polarity` say how a point was formed, not that it is doubtful. A
+ * `polarity-asymmetry` point stays in: the forward/reverse mean cancels an additive
+ * thermoelectric offset, the usual cause, so the flag asks for a look rather than removal.
  */
-export const FIT_EXCLUDED_FLAGS: readonly PointFlag[] = ['jump', 'temperature-reversal'];
+export const FIT_EXCLUDED_FLAGS: readonly PointFlag[] = [
+  'jump',
+  'temperature-reversal',
+  'outlier',
+  'self-heating',
+  'unsettled',
+  'contact-fault',
+];
 
 /** Options every fit request takes. */
 export interface FitRequestOptions {
   /** Include readings carrying a `FIT_EXCLUDED_FLAGS` flag. Default false. */
   includeFlagged?: boolean;
+  /** The ramp leg to fit, or `all`; default: the first leg with at least 5 dwell steps. */
+  leg?: number | 'all';
   /** Consecutive readings within this of a step's first reading form one dwell step, K. Default 0.5. */
   stepToleranceK?: number;
   /** Standard uncertainty of each step's temperature, K (effective variance). Default 0. */

@@ -20,8 +20,25 @@ export type WaferState = (typeof WAFER_STATES)[number];
 export const ASSIGNMENT_STATES = ['assigned', 'in progress', 'done', 'cancelled'] as const;
 export type AssignmentState = (typeof ASSIGNMENT_STATES)[number];
 
-export const THERMOMETERS = ['thermocouple', 'platinum-rtd'] as const;
+export const THERMOMETERS = ['thermocouple', 'platinum-rtd', 'table'] as const;
 export type Thermometer = (typeof THERMOMETERS)[number];
+
+/** The letter-designated thermocouple types (IEC 60584-1; the physics library's list). */
+export const THERMOCOUPLE_LETTERS = ['B', 'E', 'J', 'K', 'N', 'R', 'S', 'T'] as const;
+export type ThermocoupleLetter = (typeof THERMOCOUPLE_LETTERS)[number];
+
+/**
+ * A station's thermometer and how its readings become kelvin:
+ * - `platinum-rtd`: IEC 60751 with resistance `r0Ohm` at 0 °C (readings in ohms);
+ * - `thermocouple`: ITS-90 reference function of `type` (null: not stated yet), readings in mV
+ *   or V, with the cold junction at `referenceJunctionK` unless the file states it;
+ * - `table`: the sensor's own calibration, readings in volts (diodes) or ohms (resistance
+ *   sensors), interpolated by monotone cubic Hermite.
+ */
+export type StationSensor =
+  | { kind: 'platinum-rtd'; r0Ohm: number }
+  | { kind: 'thermocouple'; type: ThermocoupleLetter | null; referenceJunctionK?: number | null }
+  | { kind: 'table'; points: Array<{ reading: number; temperatureK: number }> };
 
 export interface LotDto {
   id: number;
@@ -65,8 +82,12 @@ export interface StationDto {
   name: string;
   probeSpacingCm: number;
   tipRadiusCm: number | null;
+  /** The sensor's kind (kept for older clients; `sensor` says the whole of it). */
   thermometer: Thermometer;
+  /** A platinum RTD's R0 (kept for older clients; the same as `sensor.r0Ohm`). */
   rtdR0Ohm: number | null;
+  /** The thermometer and its conversion; absent from older clients' input. */
+  sensor?: StationSensor | null;
   minTemperatureK: number;
   maxTemperatureK: number;
   calibratedOn: string | null;

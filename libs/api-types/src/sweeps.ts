@@ -45,6 +45,7 @@ export const COLUMN_MEANINGS = [
   'hall-voltage-pn',
   'hall-voltage-np',
   'hall-voltage-nn',
+  'reference-junction',
 ] as const;
 export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
 
@@ -55,7 +56,13 @@ export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
  * - `polarity-averaged`: combined from a forward and a reverse reading (`raw` holds both rows);
  * - `unpaired-polarity`: a forward or reverse reading without its partner, stored on its own;
  * - `edge-exclusion`: a map site closer to the wafer edge than the upload's edge exclusion
- *   (stored and shown, left out of the map statistics and the map mean).
+ *   (stored and shown, left out of the map statistics and the map mean);
+ * - `outlier`: ln rho lies beyond a Hampel filter's bound within its leg;
+ * - `polarity-asymmetry`: forward and reverse readings differ by more than 2 %;
+ * - `self-heating`: the higher of two current levels at one step reads beyond the scatter;
+ * - `unsettled`: the readings of a step still drift one way (a dwell too short);
+ * - `contact-fault`: van der Pauw reciprocal configurations disagree by more than 2 %.
+ * The reason for each of the last five is listed in the sweep's `parseReport.findings`.
  */
 export const POINT_FLAGS = [
   'jump',
@@ -63,6 +70,11 @@ export const POINT_FLAGS = [
   'polarity-averaged',
   'unpaired-polarity',
   'edge-exclusion',
+  'outlier',
+  'polarity-asymmetry',
+  'self-heating',
+  'unsettled',
+  'contact-fault',
 ] as const;
 export type PointFlag = (typeof POINT_FLAGS)[number];
 
@@ -107,6 +119,10 @@ export interface SweepPreviewResponse {
   /** Rows that cannot be read as the columns were detected (text in a number column). */
   problems: RowProblem[];
   suggestedMethod: SweepMethod | null;
+  /** How the temperature column would be converted (null when it cannot be yet). */
+  temperature?: TemperatureConversion | null;
+  /** Why there is no conversion yet (e.g. RTD ohms with no R0 until a station is chosen). */
+  temperatureNote?: string | null;
   /**
    * The method the file was checked with: the one the request names, else the suggested one
    * (null when neither: choosing one is then a blocking problem).
@@ -211,6 +227,26 @@ export interface SweepSummaryDto {
   map?: SweepMapInfo | null;
   /** Set when a probe station posted the sweep with its token. */
   uploadedVia?: StationUploadDto | null;
+  /** Points carrying a doubtful flag (`parseReport.flaggedPoints`); absent on old sweeps. */
+  flaggedPoints?: number;
+}
+
+/** A doubtful point and why, in words (`the step at 300.0 K drifts by +0.8 %`). */
+export interface PointFinding {
+  /** The point's `sequence`. */
+  sequence: number;
+  /** The file row it was read from. */
+  row: number;
+  flag: PointFlag;
+  reason: string;
+}
+
+/** How the import read the temperature column. */
+export interface TemperatureConversion {
+  /** `kelvin`, `celsius`, `platinum-rtd`, `thermocouple` or `table`. */
+  kind: 'kelvin' | 'celsius' | 'platinum-rtd' | 'thermocouple' | 'table';
+  /** The conversion in words, e.g. `type K thermocouple, cold junction 23.4 °C (file metadata)`. */
+  description: string;
 }
 
 /** What the import found and decided, kept with the sweep. */
@@ -223,7 +259,14 @@ export interface SweepParseReport {
   flaggedPoints: number;
   /** Hall sweeps only: the Hall factor used and what the import found. */
   hall?: HallImportReport;
+  /** Each flagged point with its reason (the first `MAX_FINDINGS`); absent on old sweeps. */
+  findings?: PointFinding[];
+  /** How the temperatures were converted; absent on old sweeps. */
+  temperature?: TemperatureConversion;
 }
+
+/** Findings kept in a parse report; the count beyond them is in `flaggedPoints`. */
+export const MAX_FINDINGS = 500;
 
 /** The file row (1-based line number) a point was read from, cell text keyed by header. */
 export interface RawReading {
@@ -250,6 +293,8 @@ export interface SweepPointDto {
   site?: SweepSite | null;
   /** Measured or derived quantities beyond resistivity (Hall sweeps), null when none. */
   quantities?: PointQuantities | null;
+  /** The ramp leg (1, 2, ...) the point belongs to; null on sweeps imported before legs. */
+  leg?: number | null;
 }
 
 /**

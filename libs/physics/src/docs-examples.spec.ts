@@ -44,6 +44,13 @@ describe('documented examples and defaults', () => {
     ).toBeCloseTo(5, 12);
     expect(physics.rtdResistance(373.15)).toBeCloseTo(138.5055, 4);
     expect(physics.rtdTemperatureK(138.5055)).toBeCloseTo(373.15, 6);
+    expect(physics.thermocoupleEmfMv('K', 373.15)).toBeCloseTo(4.096, 3);
+    expect(physics.thermocoupleTemperatureK('K', 1.0, 296.15)).toBeCloseTo(320.63, 2);
+    const table = [
+      { reading: 1, temperatureK: 10 },
+      { reading: 2, temperatureK: 20 },
+    ];
+    expect(physics.calibrationTableTemperatureK(table, 1.5)).toBeCloseTo(15, 9);
     expect(physics.siliconResistivityFromDopant('boron', 1e16)).toBeCloseTo(1.4434, 4);
     expect(physics.siliconDopantFromResistivity('phosphorus', 1) / 4.864e15).toBeCloseTo(1, 3);
     expect(physics.celsiusToKelvin(23)).toBeCloseTo(296.15, 12);

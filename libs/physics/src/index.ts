@@ -95,6 +95,21 @@ export { resistivityFromSheetResistance } from './probe/sheet-resistance';
 
 export { IEC_60751, rtdResistance, rtdTemperatureK } from './thermometry/rtd';
 export {
+  THERMOCOUPLE_INVERSE_RANGE_CELSIUS,
+  thermocoupleEmfMv,
+  thermocoupleTemperatureK,
+} from './thermometry/thermocouple';
+export {
+  THERMOCOUPLE_REFERENCE,
+  THERMOCOUPLE_TYPES,
+} from './thermometry/thermocouple-coefficients';
+export type { ReferenceRange, ThermocoupleType } from './thermometry/thermocouple-coefficients';
+export {
+  CALIBRATION_EXTRAPOLATION_FRACTION,
+  calibrationTableTemperatureK,
+} from './thermometry/calibration-table';
+export type { CalibrationPoint } from './thermometry/calibration-table';
+export {
   ASTM_F723_RANGES,
   siliconDopantFromResistivity,
   siliconResistivityFromDopant,
@@ -120,6 +135,8 @@ export { fitModel } from './fit/model-fit';
 export type { ModelFit, ModelFitOptions, ModelParameter } from './fit/model-fit';
 export { fitLinearTcr } from './fit/tcr';
 export { arrheniusValue, linearTcrResistivity } from './fit/fitted-curves';
+export { thermalLag } from './fit/thermal-lag';
+export type { LegCurve, ThermalLag } from './fit/thermal-lag';
 export type { LinearTcrFit, TcrParameter } from './fit/tcr';
 export { studentTCritical } from './numeric/student-t';
 

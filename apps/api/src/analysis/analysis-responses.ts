@@ -8,6 +8,7 @@ import type {
 import { UNCERTAINTY_SOURCES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { dateTime } from '../openapi/shapes';
+import { findingSchema } from '../sweeps/sweep.openapi';
 import { hallAnalysisSchema, hallAt300KSchema } from './hall-responses';
 
 const regime = z.enum(['freeze-out', 'extrinsic', 'intrinsic']);
@@ -95,6 +96,27 @@ export const sweepAnalysisResponse = z
         reason: z.string().nullable(),
       })
       .strict(),
+    legs: z
+      .array(
+        z
+          .object({
+            index: z.number().int(),
+            direction: z.enum(['up', 'down', 'hold']),
+            minK: z.number(),
+            maxK: z.number(),
+            stepCount: z.number().int(),
+          })
+          .strict(),
+      )
+      .optional(),
+    leg: z.number().int().nullable().optional(),
+    thermalLag: z
+      .object({ lagK: z.number(), standardErrorK: z.number() })
+      .strict()
+      .nullable()
+      .optional(),
+    findings: z.array(findingSchema).optional(),
+    flaggedPoints: z.number().int().optional(),
     hall: hallAnalysisSchema.optional(),
   })
   .strict() satisfies z.ZodType<SweepAnalysisResponse>;

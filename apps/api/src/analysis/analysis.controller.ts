@@ -23,8 +23,8 @@ export function getMaterials(req: Request, res: Response): void {
 
 /** `GET /api/sweeps/:id/analysis`. */
 export async function getSweepAnalysis(req: Request, res: Response): Promise<void> {
-  const { site } = parseOrThrow(analysisQuerySchema, req.query, 'query');
-  res.json(await sweepAnalysis(currentUser(req), parseId(req.params), site ?? null));
+  const { leg, site } = parseOrThrow(analysisQuerySchema, req.query, 'query');
+  res.json(await sweepAnalysis(currentUser(req), parseId(req.params), leg, site ?? null));
 }
 
 /** `GET /api/wafers/:id/dopant`. */

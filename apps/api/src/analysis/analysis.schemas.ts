@@ -59,10 +59,22 @@ export const compareSchema = z.object({
   points: z.coerce.number().int('must be a whole number').min(2).max(2000).default(200),
 });
 
+/** A ramp leg in a request: its number, or `all` (see `FitRequestOptions.leg`). */
+export const legSchema = z.union([
+  z.literal('all'),
+  z.coerce
+    .number({ invalid_type_error: 'must be a leg number or all' })
+    .int('must be a whole leg number')
+    .positive('must be a leg number (1, 2, ...) or all'),
+]);
+
 /**
- * `GET /api/sweeps/:id/analysis` query: on a map sweep, `site` names one site (its label, or
- * `x,y` in mm); without it the map mean is analysed.
+ * `GET /api/sweeps/:id/analysis` query: `leg` picks a ramp leg (or `all`); on a map sweep,
+ * `site` names one site (its label, or `x,y` in mm); without it the map mean is analysed.
  */
 export const analysisQuerySchema = z
-  .object({ site: z.string().trim().min(1, 'must name a site').max(64).optional() })
+  .object({
+    leg: legSchema.optional(),
+    site: z.string().trim().min(1, 'must name a site').max(64).optional(),
+  })
   .passthrough();

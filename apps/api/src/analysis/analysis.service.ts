@@ -5,6 +5,7 @@ import type {
   DopantDensityResponse,
   SessionUser,
   SweepAnalysisResponse,
+  SweepParseReport,
 } from '@rhotrace/api-types';
 import { siliconDopantFromResistivity, type F723Dopant } from '@rhotrace/physics';
 import { visibleSweep, visibleWafer } from '../access/visibility.service';
@@ -14,7 +15,8 @@ import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
-import { averageSteps, sweepReadings, sweepSummary } from './sweep-data.service';
+import { chooseLeg, describeLegs, legThermalLag } from './legs';
+import { averageSteps, legReadings, sweepReadings, sweepSummary } from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {
@@ -29,10 +31,21 @@ export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusP
 export async function sweepAnalysis(
   user: SessionUser,
   sweepId: number,
+  requestedLeg?: number | 'all',
   site: string | null = null,
 ): Promise<SweepAnalysisResponse> {
   const v = await visibleSweep(user, sweepId);
-  const { points, skipped } = await sweepReadings(v.sweep, undefined, site);
+  const { points: all, skipped } = await sweepReadings(v.sweep, undefined, site);
+  // a map's readings are its site means per step: one leg, so `leg` is null there
+  const readings = await legReadings(v.sweep);
+  const legs = describeLegs(readings);
+  const leg = chooseLeg(legs, requestedLeg);
+  const points =
+    leg === null
+      ? all
+      : readings
+          .filter((r) => r.leg === leg)
+          .map((r) => ({ temperatureK: r.temperatureK, resistivityOhmCm: r.resistivityOhmCm }));
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   const factor = hallFactorOf(v.sweep.parseReport);
@@ -49,6 +62,11 @@ export async function sweepAnalysis(
           dopantType: v.lot.dopantType,
         }),
     spec: specCheck(assessed.value, assessed.uncertainty, v.lot.specMinOhmCm, v.lot.specMaxOhmCm),
+    legs,
+    leg,
+    thermalLag: legThermalLag(readings, legs),
+    findings: (v.sweep.parseReport as SweepParseReport).findings ?? [],
+    flaggedPoints: (v.sweep.parseReport as SweepParseReport).flaggedPoints ?? 0,
     ...(hall ? { hall } : {}),
   };
 }

@@ -9,8 +9,7 @@ import { mean, sampleStandardDeviation } from 'simple-statistics';
 import type { VisibleSweep } from '../access/visibility.service';
 import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
 import { SweepPoint } from '../sweeps/sweep.model';
-import { badRequest } from '../errors';
-import { mapReadings, mapSeries, mapsOf, siteName } from '../maps/map-data';
+import { mapReadings, mapsOf, siteReadings } from '../maps/map-data';
 import { loadMapPointRows } from '../maps/maps.service';
 
 /**
@@ -41,6 +40,8 @@ interface CachedReadings {
   /** Sequence number of each of `points`, and whether it carries a `FIT_EXCLUDED_FLAGS` flag. */
   sequences: Int32Array;
   excludable: Uint8Array;
+  /** Ramp leg of each of `points` (0 on sweeps imported before legs: one leg). */
+  legs: Int16Array;
   /** Temperatures of the readings left out (finite ones only), sorted. */
   skippedK: number[];
   /** Readings left out whose temperature is not finite (in no window). */
@@ -67,6 +68,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
       'resistivityOhmCm',
       'flags',
       'quantities',
+      'leg',
       'siteXMm',
       'siteYMm',
     ],
@@ -74,7 +76,12 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     raw: true,
   });
   if (rows.some((r) => r.siteXMm !== null)) return loadMapReadings(sweep);
-  const usable: Array<{ point: AnalysisPoint; sequence: number; excludable: boolean }> = [];
+  const usable: Array<{
+    point: AnalysisPoint;
+    sequence: number;
+    excludable: boolean;
+    leg: number;
+  }> = [];
   const skippedK: number[] = [];
   let skippedNoTemperature = 0;
   for (const r of rows) {
@@ -88,6 +95,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
         point,
         sequence: Number(r.sequence),
         excludable: FIT_EXCLUDED_FLAGS.some((f) => flags.includes(f)),
+        leg: Number(r.leg ?? 0),
       });
     } else if (Number.isFinite(t)) {
       skippedK.push(t);
@@ -102,6 +110,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     points: usable.map((u) => u.point),
     sequences: Int32Array.from(usable, (u) => u.sequence),
     excludable: Uint8Array.from(usable, (u) => (u.excludable ? 1 : 0)),
+    legs: Int16Array.from(usable, (u) => u.leg),
     skippedK,
     skippedNoTemperature,
     maps: null,
@@ -121,30 +130,11 @@ async function loadMapReadings(sweep: SweepIdentity): Promise<CachedReadings> {
     points: readings,
     sequences: new Int32Array(readings.length),
     excludable: new Uint8Array(readings.length),
+    legs: new Int16Array(readings.length),
     skippedK: [],
     skippedNoTemperature: 0,
     maps,
   });
-}
-
-/**
- * The readings of one site of a map (its averaged value per step); a 400 naming `site` when
- * the sweep is no map or has no such site.
- */
-function siteReadings(cached: CachedReadings, site: string): AnalysisPoint[] {
-  if (!cached.maps) {
-    throw badRequest('This sweep is not a map', [
-      { field: 'site', problem: 'only a map sweep has sites; leave site out' },
-    ]);
-  }
-  const points = mapSeries(cached.maps, site);
-  if (!points.length) {
-    const known = [...new Set(cached.maps.flatMap((m) => m.sites.map(siteName)))].slice(0, 10);
-    throw badRequest(`The map has no site "${site}"`, [
-      { field: 'site', problem: `is not a site of this map (sites include ${known.join(', ')})` },
-    ]);
-  }
-  return points;
 }
 
 /** A stored quantities document, as text from a raw read. */
@@ -167,14 +157,17 @@ export interface FitReadings {
 export async function sweepFitReadings(
   sweep: SweepIdentity,
   includeFlagged: boolean,
+  leg: number | null = null,
   site: string | null = null,
 ): Promise<FitReadings> {
   const cached = await loadReadings(sweep);
-  if (site !== null) return { points: siteReadings(cached, site), excluded: [] };
-  if (includeFlagged) return { points: cached.points.slice(), excluded: [] };
+  if (site !== null) return { points: siteReadings(cached.maps, site), excluded: [] };
+  const inLeg = (i: number) => leg === null || cached.legs[i] === leg;
+  if (includeFlagged) return { points: cached.points.filter((_, i) => inLeg(i)), excluded: [] };
   const points: AnalysisPoint[] = [];
   const excluded: FitReadings['excluded'] = [];
   cached.points.forEach((p, i) => {
+    if (!inLeg(i)) return;
     if (cached.excludable[i]) {
       excluded.push({ sequence: cached.sequences[i]!, temperatureK: p.temperatureK });
     } else {
@@ -182,6 +175,19 @@ export async function sweepFitReadings(
     }
   });
   return { points, excluded };
+}
+
+/** Each usable reading with its sequence, leg and whether a fit leaves it out by default. */
+export async function legReadings(
+  sweep: SweepIdentity,
+): Promise<Array<AnalysisPoint & { sequence: number; leg: number; excludable: boolean }>> {
+  const c = await loadReadings(sweep);
+  return c.points.map((p, i) => ({
+    ...p,
+    sequence: c.sequences[i]!,
+    leg: c.legs[i]!,
+    excludable: c.excludable[i] === 1,
+  }));
 }
 
 /** The first index in 0..n at which `pred` holds (it must hold from some index on), or n. */
@@ -209,7 +215,7 @@ export async function sweepReadings(
 ): Promise<SweepReadings> {
   const loaded = await loadReadings(sweep);
   const cached =
-    site === null ? loaded : { ...loaded, points: siteReadings(loaded, site), skippedK: [] };
+    site === null ? loaded : { ...loaded, points: siteReadings(loaded.maps, site), skippedK: [] };
   if (!window) {
     return {
       points: cached.points.slice(),

@@ -1,5 +1,6 @@
 import { FIT_KINDS } from '@rhotrace/api-types';
 import { z } from 'zod';
+import { legSchema } from '../analysis/analysis.schemas';
 
 /** A temperature in a fit request, K. */
 export const kelvin = z
@@ -11,6 +12,7 @@ export const kelvin = z
 /** Fields every fit request takes (see `FitRequestOptions`). */
 export const fitOptionsShape = {
   includeFlagged: z.boolean({ invalid_type_error: 'must be true or false' }).optional(),
+  leg: legSchema.optional(),
   stepToleranceK: z
     .number({ invalid_type_error: 'must be a number' })
     .finite('must be finite')

@@ -7,8 +7,10 @@ import type { Actor } from '../audit/audit.service';
 import { auditChange, recordAudit } from '../audit/audit.service';
 import { asNotFound, badRequest, conflict, notFound } from '../errors';
 import { modelVersion } from '../analysis/model-version';
+import { chooseLeg, describeLegs } from '../analysis/legs';
 import {
   pointsInWindow,
+  legReadings,
   sweepFitReadings,
   type AnalysisPoint,
 } from '../analysis/sweep-data.service';
@@ -116,7 +118,8 @@ export async function previewFit(
   const stepToleranceK = request.stepToleranceK ?? PHYSICS_DEFAULTS.fitStepToleranceK;
   const temperatureUncertaintyK =
     request.temperatureUncertaintyK ?? PHYSICS_DEFAULTS.fitTemperatureUncertaintyK;
-  const readings = await sweepFitReadings(v.sweep, includeFlagged, request.site ?? null);
+  const leg = chooseLeg(describeLegs(await legReadings(v.sweep)), request.leg);
+  const readings = await sweepFitReadings(v.sweep, includeFlagged, leg, request.site ?? null);
   const window = windowPoints(readings.points, request.minK, request.maxK);
   const run = runFitKind(request.kind, request, {
     points: window.points,
@@ -152,6 +155,7 @@ export async function previewFit(
       includeFlagged,
       stepToleranceK,
       temperatureUncertaintyK,
+      leg: leg ?? 'all',
       ...(request.site !== undefined ? { site: request.site } : {}),
     },
     windowMinK: window.minK,

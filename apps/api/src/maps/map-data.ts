@@ -5,6 +5,7 @@
  */
 import type { MapAtTemperatureDto, MapSiteDto, MapStatisticsDto } from '@rhotrace/api-types';
 import { mapUniformity } from '@rhotrace/physics';
+import { badRequest } from '../errors';
 
 /**
  * Readings within this many kelvin of a step's first (coolest) reading belong to that step. A
@@ -154,4 +155,27 @@ export function mapSeries(
     if (s) out.push({ temperatureK: m.temperatureK, resistivityOhmCm: s.resistivityOhmCm });
   }
   return out;
+}
+
+/**
+ * The readings of one site of a map (its averaged value per step); a 400 naming `site` when
+ * the sweep is no map or has no such site.
+ */
+export function siteReadings(
+  maps: readonly MapAtTemperatureDto[] | null,
+  site: string,
+): Array<{ temperatureK: number; resistivityOhmCm: number }> {
+  if (!maps) {
+    throw badRequest('This sweep is not a map', [
+      { field: 'site', problem: 'only a map sweep has sites; leave site out' },
+    ]);
+  }
+  const points = mapSeries(maps, site);
+  if (!points.length) {
+    const known = [...new Set(maps.flatMap((m) => m.sites.map(siteName)))].slice(0, 10);
+    throw badRequest(`The map has no site "${site}"`, [
+      { field: 'site', problem: `is not a site of this map (sites include ${known.join(', ')})` },
+    ]);
+  }
+  return points;
 }

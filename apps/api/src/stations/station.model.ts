@@ -6,7 +6,8 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize';
-import type { Thermometer } from '@rhotrace/api-types';
+import type { StationSensor, Thermometer } from '@rhotrace/api-types';
+import { jsonColumn } from '../db/json-column';
 
 export class Station extends Model<InferAttributes<Station>, InferCreationAttributes<Station>> {
   declare id: CreationOptional<number>;
@@ -15,6 +16,7 @@ export class Station extends Model<InferAttributes<Station>, InferCreationAttrib
   declare tipRadiusCm: number | null;
   declare thermometer: Thermometer;
   declare rtdR0Ohm: number | null;
+  declare sensor: CreationOptional<StationSensor | null>;
   declare minTemperatureK: number;
   declare maxTemperatureK: number;
   declare calibratedOn: string | null;
@@ -35,6 +37,7 @@ export function initStationModel(sequelize: Sequelize): void {
       tipRadiusCm: DataTypes.DOUBLE,
       thermometer: { type: DataTypes.STRING(16), allowNull: false },
       rtdR0Ohm: DataTypes.DOUBLE,
+      sensor: jsonColumn('sensor'),
       minTemperatureK: { type: DataTypes.DOUBLE, allowNull: false },
       maxTemperatureK: { type: DataTypes.DOUBLE, allowNull: false },
       calibratedOn: DataTypes.DATEONLY,

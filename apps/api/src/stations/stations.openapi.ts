@@ -3,7 +3,7 @@ import { THERMOMETERS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
 import { pageOf, timestamps } from '../openapi/shapes';
-import { createBody, listQuery, updateBody } from './stations.schemas';
+import { createBody, listQuery, sensor, updateBody } from './stations.schemas';
 
 /** A probe station as the API answers it. */
 export const stationDtoSchema = registry.register(
@@ -16,6 +16,7 @@ export const stationDtoSchema = registry.register(
       tipRadiusCm: z.number().nullable(),
       thermometer: z.enum(THERMOMETERS),
       rtdR0Ohm: z.number().nullable(),
+      sensor: sensor.nullable().optional(),
       minTemperatureK: z.number(),
       maxTemperatureK: z.number(),
       calibratedOn: z.string().date().nullable(),

@@ -1,4 +1,4 @@
-import { STATION_SORT_FIELDS, THERMOMETERS } from '@rhotrace/api-types';
+import { STATION_SORT_FIELDS, THERMOCOUPLE_LETTERS, THERMOMETERS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import {
   boundedNumber,
@@ -14,6 +14,31 @@ export const thermometer = z.enum(THERMOMETERS, {
   errorMap: () => ({ message: `must be one of ${THERMOMETERS.join(', ')}` }),
 });
 
+/** A station's thermometer; see `StationSensor`. A table needs 2 to 500 points. */
+export const sensor = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('platinum-rtd'), r0Ohm: boundedNumber(1, 100_000, 'Ω') }).strict(),
+  z
+    .object({
+      kind: z.literal('thermocouple'),
+      type: z.enum(THERMOCOUPLE_LETTERS).nullable(),
+      referenceJunctionK: boundedNumber(3, 2000, 'K').nullable().optional(),
+    })
+    .strict(),
+  z
+    .object({
+      kind: z.literal('table'),
+      points: z
+        .array(
+          z
+            .object({ reading: z.number().finite(), temperatureK: boundedNumber(0.01, 2000, 'K') })
+            .strict(),
+        )
+        .min(2)
+        .max(500),
+    })
+    .strict(),
+]);
+
 export const fields = {
   name: requiredText(100),
   /** Four-point probe spacing: 10 µm to 1 cm. */
@@ -22,6 +47,7 @@ export const fields = {
   thermometer,
   /** A platinum RTD's resistance at 0 °C (Pt100: 100 Ω, Pt1000: 1000 Ω). */
   rtdR0Ohm: boundedNumber(1, 100_000, 'Ω').nullable(),
+  sensor: sensor.nullable(),
   minTemperatureK: boundedNumber(0.01, 2000, 'K'),
   maxTemperatureK: boundedNumber(0.01, 2000, 'K'),
   calibratedOn: isoDate.nullable(),
@@ -36,6 +62,7 @@ export const createBody = z
     ...fields,
     tipRadiusCm: fields.tipRadiusCm.optional().default(null),
     rtdR0Ohm: fields.rtdR0Ohm.optional().default(null),
+    sensor: fields.sensor.optional(),
     calibratedOn: fields.calibratedOn.optional().default(null),
     probeSpacingToleranceCm: fields.probeSpacingToleranceCm.optional().default(null),
     temperatureToleranceK: fields.temperatureToleranceK.optional().default(null),

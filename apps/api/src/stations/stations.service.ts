@@ -1,4 +1,10 @@
-import type { Page, StationDto, StationInput, Thermometer } from '@rhotrace/api-types';
+import type {
+  Page,
+  StationDto,
+  StationInput,
+  StationSensor,
+  Thermometer,
+} from '@rhotrace/api-types';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
@@ -22,6 +28,7 @@ export function toStationDto(s: Station): StationDto {
     tipRadiusCm: s.tipRadiusCm,
     thermometer: s.thermometer,
     rtdR0Ohm: s.rtdR0Ohm,
+    sensor: s.sensor ?? legacySensor(s),
     minTemperatureK: s.minTemperatureK,
     maxTemperatureK: s.maxTemperatureK,
     calibratedOn: s.calibratedOn,
@@ -34,9 +41,43 @@ export function toStationDto(s: Station): StationDto {
   };
 }
 
+/** The sensor the older fields describe (a thermocouple's type was never recorded). */
+function legacySensor(s: Pick<StationInput, 'thermometer' | 'rtdR0Ohm'>): StationSensor | null {
+  if (s.thermometer === 'platinum-rtd') return { kind: 'platinum-rtd', r0Ohm: s.rtdR0Ohm ?? 100 };
+  if (s.thermometer === 'thermocouple') return { kind: 'thermocouple', type: null };
+  return null;
+}
+
+/**
+ * One truth for the thermometer: a `sensor` given sets the older `thermometer` and `rtdR0Ohm`
+ * to match; older fields given without a sensor replace the sensor with what they describe.
+ */
+function withSensor<T extends Partial<StationInput>>(changes: T, before?: StationDto): T {
+  if (changes.sensor) {
+    const sensor = changes.sensor;
+    if (changes.thermometer !== undefined && changes.thermometer !== sensor.kind) {
+      throw validationFailed('The station fields do not agree', [
+        { field: 'body.thermometer', problem: `must match sensor.kind (${sensor.kind})` },
+      ]);
+    }
+    return {
+      ...changes,
+      thermometer: sensor.kind,
+      rtdR0Ohm: sensor.kind === 'platinum-rtd' ? sensor.r0Ohm : null,
+    };
+  }
+  if (changes.thermometer === undefined && changes.rtdR0Ohm === undefined) return changes;
+  const merged = { ...before, ...changes } as Pick<StationInput, 'thermometer' | 'rtdR0Ohm'>;
+  const keepTc = merged.thermometer === 'thermocouple' && before?.sensor?.kind === 'thermocouple';
+  return { ...changes, sensor: keepTc ? before!.sensor : legacySensor(merged) };
+}
+
 /** Cross-field rules, checked on the merged record: range order, R0 for a platinum RTD. */
 function assertConsistent(
-  s: Pick<StationInput, 'thermometer' | 'rtdR0Ohm' | 'minTemperatureK' | 'maxTemperatureK'>,
+  s: Pick<
+    StationInput,
+    'thermometer' | 'rtdR0Ohm' | 'minTemperatureK' | 'maxTemperatureK' | 'sensor'
+  >,
 ) {
   const problems = [];
   if (s.minTemperatureK >= s.maxTemperatureK) {
@@ -49,6 +90,12 @@ function assertConsistent(
     problems.push({
       field: 'body.rtdR0Ohm',
       problem: 'is required for a platinum RTD (its resistance at 0 °C)',
+    });
+  }
+  if (s.thermometer === 'table' && s.sensor?.kind !== 'table') {
+    problems.push({
+      field: 'body.sensor',
+      problem: 'a calibration-table thermometer needs its points: { kind: "table", points }',
     });
   }
   if (s.thermometer === 'thermocouple' && s.rtdR0Ohm != null) {
@@ -105,7 +152,8 @@ export async function getStation(id: number): Promise<StationDto> {
 }
 
 /** Registers a probe station, with its audit event. */
-export async function createStation(input: StationInput, actor: Actor): Promise<StationDto> {
+export async function createStation(given: StationInput, actor: Actor): Promise<StationDto> {
+  const input = withSensor(given);
   assertConsistent(input);
   try {
     return await inTransaction(async (t) => {
@@ -130,8 +178,9 @@ export async function updateStation(
       const station = await Station.findByPk(id, { transaction: t, lock: t.LOCK.UPDATE });
       if (!station) throw notFound(`Station ${id}`);
       const before = toStationDto(station);
-      assertConsistent({ ...before, ...changes });
-      await station.update(changes, { transaction: t });
+      const update = withSensor(changes, before);
+      assertConsistent({ ...before, ...update });
+      await station.update(update, { transaction: t });
       const dto = toStationDto(station);
       await auditChange(t, actor, 'update', 'station', id, { before, after: dto });
       return dto;

@@ -8,7 +8,7 @@
  * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
-import type { SessionUser, SweepCreatedResponse } from '@rhotrace/api-types';
+import { MAX_FINDINGS, type SessionUser, type SweepCreatedResponse } from '@rhotrace/api-types';
 import { Transaction } from 'sequelize';
 import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
 import { conflict, unprocessable } from '../errors';
@@ -192,6 +192,8 @@ async function storeSweep(
     rowCount: parsed.table.records.length,
     warnings,
     flaggedPoints: flags.flagged,
+    findings: flags.findings.slice(0, MAX_FINDINGS),
+    temperature: plan.temperature.conversion,
     ...(rows.hallReport ? { hall: rows.hallReport } : {}),
   };
   const { id, pointCount } = await store.complete(flags, report, (sweepId, count) => ({

@@ -60,7 +60,9 @@ interface Place {
   at: (o: QueryOptions) => boolean;
 }
 
-const completingTheSweep = (o: QueryOptions) => o.type === 'UPDATE' || o.type === 'BULKUPDATE';
+// the sweep row's completing update, not the leg and flag updates of its points just before it
+const completingTheSweep = (o: QueryOptions) =>
+  (o.type === 'UPDATE' || o.type === 'BULKUPDATE') && o.model === Sweep;
 
 /** Where in the import the transaction is lost. */
 const WHERE: Record<string, Place> = {

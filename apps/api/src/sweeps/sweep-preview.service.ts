@@ -2,7 +2,8 @@
  * The preview of a sweep file: its layout, detected columns and first rows, and the verdict of
  * the same checks the store runs (`planImport`, then `SweepRows` over every row), so a file the
  * preview passes is one the store takes and a file it would refuse is refused here, in the same
- * words, before anything is sent to be stored.
+ * words, before anything is sent to be stored. It says how the temperature column would become
+ * kelvin (the plan's conversion), or why it cannot yet.
  */
 import { createHash } from 'node:crypto';
 import type { FieldProblem, RowProblem, SweepPreviewResponse } from '@rhotrace/api-types';
@@ -144,6 +145,8 @@ export async function previewSweep(
     warnings,
     pointCount,
     metadataFindings: plan?.metadata ?? [],
+    temperature: plan?.temperature.conversion ?? null,
+    temperatureNote: blocking.find((b) => b.field === 'temperature')?.problem ?? null,
     shape: shape.key,
     shapeLabel: shape.label,
     savedSettings: await findImportSettings(stationId, shape.key),

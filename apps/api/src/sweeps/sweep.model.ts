@@ -59,6 +59,7 @@ export class SweepPoint extends Model<
   declare edgeFactor: CreationOptional<number | null>;
   /** Quantities beyond resistivity (`PointQuantities`), null for most sweeps. */
   declare quantities: CreationOptional<unknown>;
+  declare leg: CreationOptional<number | null>;
 }
 
 /** Raw upload bytes, kept byte for byte (the database storage implementation). */
@@ -117,6 +118,7 @@ export function initSweepModels(sequelize: Sequelize): void {
       siteLabel: DataTypes.STRING(64),
       edgeFactor: DataTypes.DOUBLE,
       quantities: jsonColumn('quantities'),
+      leg: DataTypes.SMALLINT,
     },
     { sequelize, tableName: 'sweep_points', underscored: true, timestamps: false },
   );

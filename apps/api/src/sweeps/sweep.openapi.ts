@@ -68,11 +68,29 @@ const summaryShape = {
     .nullable()
     .optional()
     .describe('Set when a probe station posted the sweep with its token'),
+  flaggedPoints: z.number().int().optional().describe('Points carrying a doubtful flag'),
   map: sweepMapInfoSchema
     .nullable()
     .optional()
     .describe('Set when the sweep is a wafer map (its points carry sites)'),
 };
+
+/** A doubtful point and why (issue 15 findings). */
+export const findingSchema = z
+  .object({
+    sequence: z.number().int(),
+    row: z.number().int(),
+    flag: z.enum(POINT_FLAGS),
+    reason: z.string(),
+  })
+  .strict();
+
+const temperatureConversion = z
+  .object({
+    kind: z.enum(['kelvin', 'celsius', 'platinum-rtd', 'thermocouple', 'table']),
+    description: z.string(),
+  })
+  .strict();
 
 /** A sweep without its points. */
 export const sweepSummarySchema = registry.register(
@@ -99,6 +117,7 @@ const point = z
       .nullable()
       .optional()
       .describe('Where on the wafer (map sweeps), mm from the centre'),
+    leg: z.number().int().nullable().optional(),
   })
   .strict();
 
@@ -117,6 +136,8 @@ const sweepSchema = registry.register(
           rowCount: z.number().int(),
           warnings: z.array(z.string()),
           flaggedPoints: z.number().int(),
+          findings: z.array(findingSchema).optional(),
+          temperature: temperatureConversion.optional(),
           hall: hallImportReportSchema.optional(),
         })
         .strict(),
@@ -168,6 +189,8 @@ const previewSchema = z
     rowCount: z.number().int(),
     problems: z.array(rowProblem),
     suggestedMethod: z.enum(SWEEP_METHODS).nullable(),
+    temperature: temperatureConversion.nullable().optional(),
+    temperatureNote: z.string().nullable().optional(),
     method: z.enum(SWEEP_METHODS).nullable(),
     stationId: z.number().int().nullable(),
     geometry: geometry.nullable(),

@@ -57,7 +57,24 @@ function summary(
     createdAt: sweep.createdAt.toISOString(),
     map: (sweep.mapInfo as SweepMapInfo | null) ?? null,
     uploadedVia: sweep.stationTokenId ? (via.get(sweep.stationTokenId) ?? null) : null,
+    flaggedPoints: flaggedPointsOf(sweep.parseReport),
   };
+}
+
+/** The report's count of doubtful points (0 when the report predates it or is unreadable). */
+function flaggedPointsOf(report: unknown): number {
+  const doc = (typeof report === 'string' ? safeJson(report) : report) as {
+    flaggedPoints?: unknown;
+  } | null;
+  return typeof doc?.flaggedPoints === 'number' ? doc.flaggedPoints : 0;
+}
+
+function safeJson(text: string): unknown {
+  try {
+    return JSON.parse(text);
+  } catch {
+    return null;
+  }
 }
 
 async function uploaderNames(sweeps: Sweep[]): Promise<Map<number, string>> {
@@ -152,6 +169,7 @@ async function readPoints(id: number, columns: SweepColumn[]): Promise<SweepPoin
           : { xMm: Number(p.siteXMm), yMm: Number(p.siteYMm), label: p.siteLabel },
       // Only sweeps that have quantities carry the key: most points stay as small as before.
       ...(p.quantities ? { quantities: quantitiesOf(p.quantities) } : {}),
+      leg: p.leg ?? null,
     };
   });
 }

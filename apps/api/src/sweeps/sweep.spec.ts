@@ -283,6 +283,7 @@ describe('suspicious values are stored with flags and warnings', () => {
     expect(res.body.warnings.join(' ')).toMatch(/against the ramp/);
     const sweep = (await request(ctx.app).get(`/api/sweeps/${res.body.id}`).set(ctx.auth('admin')))
       .body as SweepDto;
+    // five points are too few for the Hampel bound's sweep-wide scatter: the jump alone flags
     expect(sweep.points.map((p) => p.flags)).toEqual([
       [],
       [],
@@ -290,7 +291,17 @@ describe('suspicious values are stored with flags and warnings', () => {
       ['jump'],
       ['jump'],
     ]);
+    expect(sweep.points.map((p) => p.leg)).toEqual([1, 1, 1, 1, 1]);
     expect(sweep.parseReport.flaggedPoints).toBe(3);
+    expect(sweep.parseReport.findings!.map((f) => [f.sequence, f.flag])).toEqual([
+      [3, 'temperature-reversal'],
+      [4, 'jump'],
+      [5, 'jump'],
+    ]);
+    const list = await request(ctx.app)
+      .get(`/api/wafers/${wafer.id}/sweeps`)
+      .set(ctx.auth('admin'));
+    expect(list.body[0].flaggedPoints).toBe(3);
   });
 });
 

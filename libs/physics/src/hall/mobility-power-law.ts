@@ -97,11 +97,7 @@ export function fitMobilityPowerLaw(
     line.converged,
   );
   const mu300 = Math.exp(line.intercept);
-  const rSquared = weightedRSquared(
-    steps.mean,
-    line.weights,
-    line.chiSquare,
-  );
+  const rSquared = weightedRSquared(steps.mean, line.weights, line.chiSquare);
   const result: MobilityPowerLawFit = {
     parameters: { exponent: line.slope, mobilityAt300K: mu300 },
     fitted: ['exponent', 'mobilityAt300K'],

@@ -28,8 +28,16 @@ export class SweepRows {
     method: SweepMethod,
     private readonly sliceRows: number,
   ) {
-    const { columns, geometry, settings, placer } = plan;
-    this.converter = new RowConverter(file.parsed, columns, method, geometry, settings, placer);
+    const { columns, geometry, settings, placer, temperature } = plan;
+    this.converter = new RowConverter(
+      file.parsed,
+      columns,
+      method,
+      geometry,
+      settings,
+      placer,
+      temperature,
+    );
     this.range = new StationRangeCheck(plan.station);
     const reversals = columns.some((c) => c.meaning === 'hall-voltage-pp');
     this.hall = method === 'hall' ? new HallSummary(settings, reversals) : null;

@@ -11,6 +11,7 @@ import { RowReader } from './read-row';
 import type { Slice } from './read-table';
 import type { SitePlacer } from './sites';
 import type { MethodSettings } from './methods';
+import type { TemperatureReader } from './temperature';
 import { pointMaker } from './to-point';
 
 /** Converts a file's records to points a slice at a time. */
@@ -31,10 +32,19 @@ export class RowConverter {
     geometry: SweepGeometry,
     settings?: MethodSettings,
     placer: ((problems: RowProblem[]) => SitePlacer) | null = null,
+    temperature?: TemperatureReader,
   ) {
     this.problems = [...parsed.problems];
     const currentA = parsed.recognised.currentA;
-    this.rows = new RowReader(parsed, columns, method, geometry, currentA, this.problems);
+    this.rows = new RowReader(
+      parsed,
+      columns,
+      method,
+      geometry,
+      currentA,
+      this.problems,
+      temperature,
+    );
     this.placer = placer ? placer(this.problems) : null;
     this.toPoint = pointMaker(method, geometry, columns, this.problems, settings, this.placer);
   }

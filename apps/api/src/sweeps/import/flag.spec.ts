@@ -46,6 +46,14 @@ describe('flag', () => {
       minTemperatureK: 79,
       maxTemperatureK: 90,
     });
+    expect(summary.findings).toEqual([
+      {
+        sequence: 4,
+        row: 5,
+        flag: 'temperature-reversal',
+        reason: 'the temperature steps 1.70 K down inside a leg running up',
+      },
+    ]);
     expect(summary.warnings).toEqual([
       'the temperature goes against the ramp at 1 point(s) (rows 5)',
     ]);
@@ -53,11 +61,40 @@ describe('flag', () => {
 
   it('has no range without points', () => {
     expect(new SuspiciousPointFinder().finish()).toEqual({
+      legs: [],
+      late: {},
+      findings: [],
       reversals: [],
       flagged: 0,
       warnings: [],
       minTemperatureK: null,
       maxTemperatureK: null,
     });
+  });
+
+  it('numbers the legs of an up-and-down ramp and keeps the return free of reversals', () => {
+    const finder = new SuspiciousPointFinder();
+    const temps = [300, 310, 320, 330, 340, 350, 340, 330, 320, 310, 300];
+    finder.addAll(temps.map((t, i) => point(i + 2, t, Math.exp(-t / 100))));
+    const summary = finder.finish();
+    expect(summary.legs.map((l) => [l.start, l.end, l.direction])).toEqual([
+      [0, 6, 'up'],
+      [6, 11, 'down'],
+    ]);
+    expect(summary.reversals).toEqual([]);
+    expect(summary.flagged).toBe(0);
+  });
+
+  it('flags a spike as an outlier with its reason, and a van der Pauw ratio above 3 warns', () => {
+    const finder = new SuspiciousPointFinder();
+    const points = Array.from({ length: 12 }, (_, i) => point(i + 2, 300 + 5 * i, 1 + 0.01 * i));
+    points[6]!.resistivityOhmCm *= 1.3;
+    points[3]!.resistanceRatio = 4.2;
+    finder.addAll(points);
+    const summary = finder.finish();
+    expect(summary.late).toEqual({ outlier: [6] });
+    expect(summary.findings[0]).toMatchObject({ sequence: 7, row: 8, flag: 'outlier' });
+    expect(summary.findings[0]!.reason).toMatch(/\(\+\d+\.\d %\) in leg 1/);
+    expect(summary.warnings.join(' ')).toMatch(/R_A\/R_B reaches 4\.20 \(above 3\) at 1 point/);
   });
 });

@@ -52,6 +52,12 @@ export interface ConvertedPoint {
   edgeFactor?: number | null;
   /** Quantities beyond resistivity (Hall sweeps), stored as `sweep_points.quantities`. */
   quantities?: PointQuantities | null;
+  /** Why each flag the point stage set was set, in words. */
+  reasons?: Partial<Record<PointFlag, string>>;
+  /** Van der Pauw: R_A / R_B of the point, for the sample-shape warning. */
+  resistanceRatio?: number;
+  /** The ramp leg (1, 2, ...), known once the whole sweep was seen. */
+  leg?: number;
 }
 
 /** Row numbers for a warning, the first ten and a count of the rest. */

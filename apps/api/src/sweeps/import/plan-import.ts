@@ -14,12 +14,14 @@ import type {
   SweepGeometryInput,
   SweepMapInput,
   SweepMethod,
+  StationSensor,
 } from '@rhotrace/api-types';
 import type { Transaction } from 'sequelize';
 import { HttpError, validationFailed } from '../../errors';
 import type { Lot } from '../../lots/lot.model';
 import { calibrationWarning } from '../../stations/calibration';
 import type { Station } from '../../stations/station.model';
+import { toStationDto } from '../../stations/stations.service';
 import type { Wafer } from '../../wafers/wafer.model';
 import {
   applyColumnOverrides,
@@ -33,6 +35,7 @@ import { hallSettings } from './hall-summary';
 import { readMetadata, type MetadataRecords } from './read-metadata';
 import { resolveGeometry } from './resolve-geometry';
 import { hasSites, SitePlacer } from './sites';
+import { temperatureReader, type TemperatureReader } from './temperature';
 
 /** What the user chose for one file: the store request's fields. */
 export interface ImportChoices {
@@ -64,6 +67,8 @@ export interface ImportPlan {
   settings: ReturnType<typeof hallSettings>;
   /** Places a map's readings on the wafer (null when the columns carry no sites). */
   placer: PlacerFactory;
+  /** How the temperature column becomes kelvin (thermocouple, RTD, table, K or °C). */
+  temperature: TemperatureReader;
 }
 
 /** The wafer and lot an upload goes to. */
@@ -107,7 +112,7 @@ export async function planImport(
   );
   // The geometry is checked even when the mapping was refused, so both are listed at once.
   const mapped = columns ?? applyColumnOverrides(parsed.columns, overrides).columns;
-  const temperature = mapped.find((c) => c.meaning === 'temperature');
+  const temperatureColumn = mapped.find((c) => c.meaning === 'temperature');
   const isMap = hasSites(mapped);
   const geometry = await collect(problems, () =>
     resolveGeometry({
@@ -117,15 +122,29 @@ export async function planImport(
       lot: records.lot,
       station,
       file: parsed.recognised,
-      needsRtd: temperature?.unitInfo?.kind === 'resistance',
+      needsRtd: needsRtd(temperatureColumn, station),
       isMap,
     }),
   );
   const placer = await collect(problems, () => placerOf(choices, columns, geometry));
+  // A missing thermocouple type or cold junction joins the plan's 400 (RTD ohms without R0
+  // are already named by the geometry, so they wait for it).
+  const temperature =
+    temperatureColumn && (geometry || temperatureColumn.unitInfo?.kind !== 'resistance')
+      ? await collect(problems, () =>
+          temperatureReader({
+            column: temperatureColumn,
+            referenceColumn: mapped.some((c) => c.meaning === 'reference-junction'),
+            sensor: stationSensor(station),
+            file: parsed.recognised,
+            geometry: geometry ?? {},
+          }),
+        )
+      : null;
   const settings = await collect(problems, () => hallSettings(choices.method, choices.hallFactor));
   const uncalibrated = station ? calibrationWarning(station) : null;
   if (uncalibrated) warnings.push(uncalibrated);
-  if (problems.length || !columns || !geometry || !settings || placer === null) {
+  if (problems.length || !columns || !geometry || !settings || placer === null || !temperature) {
     throw validationFailed(
       problems[0]?.message ?? 'The file cannot be imported as chosen',
       problems.flatMap((p) => p.details),
@@ -133,7 +152,27 @@ export async function planImport(
   }
   const compared: MetadataRecords = { ...records, station };
   const metadata = readMetadata(parsed.recognised, compared, choices.geometry ?? {});
-  return { columns, station, geometry, warnings, metadata, settings, placer: placer.factory };
+  return {
+    columns,
+    station,
+    geometry,
+    warnings,
+    metadata,
+    settings,
+    placer: placer.factory,
+    temperature,
+  };
+}
+
+/** RTD ohms need R0 unless the station reads its ohms through its own table. */
+function needsRtd(column: ResolvedColumn | undefined, station: Station | null): boolean {
+  return column?.unitInfo?.kind === 'resistance' && station?.sensor?.kind !== 'table';
+}
+
+/** The station's sensor (null without a station). */
+function stationSensor(station: Station | null): StationSensor | null {
+  // a station written before sensors (or by a seeder) reads through its older fields
+  return station ? (toStationDto(station).sensor ?? null) : null;
 }
 
 /**

@@ -4,7 +4,7 @@
  * row and column; a row with one gives no reading.
  */
 import type { ColumnMeaning, RowProblem, SweepGeometry, SweepMethod } from '@rhotrace/api-types';
-import { celsiusToKelvin, PhysicsInputError, rtdTemperatureK } from '@rhotrace/physics';
+import { PhysicsInputError } from '@rhotrace/physics';
 import {
   readNumber,
   rowProblem,
@@ -17,6 +17,7 @@ import type { Reading, RowSite } from './import-types';
 /** Longest site label kept (the column's width). */
 const SITE_LABEL_LENGTH = 64;
 import { POINT_METHODS } from './methods';
+import { temperatureReader, type TemperatureReader } from './temperature';
 
 const FORWARD = /^(\+|\+1|1|f|fwd|forward|pos|positive|p|normal|\+i)$/i;
 const REVERSE = /^(-|-1|r|rev|reverse|neg|negative|n|reversed|-i)$/i;
@@ -53,6 +54,8 @@ function hallColumns<T>(of: (m: HallMeaning) => T): Record<HallMeaning, T> {
 /** Reads records of a parsed file as readings; problems go to the list it is given. */
 export class RowReader {
   private readonly temperature: ResolvedColumn;
+  private readonly referenceJunction: ResolvedColumn | null;
+  private readonly toKelvin: TemperatureReader['toKelvin'];
   private readonly polarity: ResolvedColumn | null;
   private readonly columns: ColumnsByMeaning;
   /** Whether each column's cell must be filled. */
@@ -75,9 +78,21 @@ export class RowReader {
     private readonly geometry: SweepGeometry,
     private readonly constantCurrentA: number | undefined,
     private readonly problems: RowProblem[],
+    temperature?: TemperatureReader,
   ) {
     const col = (m: ColumnMeaning) => columns.find((c) => c.meaning === m) ?? null;
     this.temperature = col('temperature')!;
+    this.referenceJunction = col('reference-junction');
+    this.toKelvin = (
+      temperature ??
+      temperatureReader({
+        column: this.temperature,
+        referenceColumn: this.referenceJunction !== null,
+        sensor: null,
+        file: parsed.recognised,
+        geometry,
+      })
+    ).toKelvin;
     this.polarity = col('polarity');
     this.columns = {
       voltage: col('voltage'),
@@ -119,6 +134,8 @@ export class RowReader {
     const row = this.parsed.table.lines[i]!;
     this.bad = false;
     const temperatureRaw = this.cell(cells, row, this.temperature, true);
+    const junction = this.referenceJunction;
+    const junctionRaw = junction ? this.cell(cells, row, junction, true) : null;
     const polarity = this.readPolarity(cells, row);
     const voltageV = this.value(cells, row, 'voltage');
     let currentA = this.columns.current
@@ -134,7 +151,13 @@ export class RowReader {
     const hall = this.readHall(cells, row);
     if (this.bad || temperatureRaw === null) return null;
 
-    const temperatureK = this.kelvin(temperatureRaw, row);
+    const junctionK =
+      junctionRaw === null
+        ? null
+        : junction!.unitInfo!.label === 'degC'
+          ? junctionRaw + 273.15
+          : junctionRaw;
+    const temperatureK = this.kelvin(temperatureRaw, junctionK, row);
     if (temperatureK === null) return null;
     if (currentA !== null && this.columns.current) {
       currentA = this.signedCurrent(currentA, polarity, row);
@@ -259,18 +282,12 @@ export class RowReader {
     return 0;
   }
 
-  /** The temperature in kelvin (from °C, an RTD's ohms or kelvin); null after a problem. */
-  private kelvin(raw: number, row: number): number | null {
+  /** The temperature in kelvin (through the sweep's temperature reader); null after a problem. */
+  private kelvin(raw: number, junctionK: number | null, row: number): number | null {
     const c = this.temperature;
-    const unit = c.unitInfo!;
     let temperatureK: number;
     try {
-      temperatureK =
-        unit.label === 'degC'
-          ? celsiusToKelvin(raw)
-          : unit.kind === 'resistance'
-            ? rtdTemperatureK(raw, this.geometry.rtdR0Ohm)
-            : raw;
+      temperatureK = this.toKelvin(raw, junctionK);
     } catch (error) {
       if (!(error instanceof PhysicsInputError)) throw error;
       this.problems.push(

@@ -73,7 +73,21 @@ describe('turn a row into a point', () => {
     expect(p.currentA).toBeCloseTo(0.001, 12);
     expect(p.sheetResistanceOhmSq).toBeCloseTo(THIN_SHEET * 10, 9);
     expect(p).toMatchObject({ sourceRows: [2, 3], recordIndexes: [0, 1], temperatureK: 300.5 });
-    expect(p.flags).toEqual(['polarity-averaged']);
+    // an EMF of 0.7 mV on 10 mV makes the readings 14 % apart: flagged, kept averaged
+    expect(p.flags).toEqual(['polarity-averaged', 'polarity-asymmetry']);
+    expect(p.reasons?.['polarity-asymmetry']).toMatch(/differ by 14\.0 %/);
+  });
+
+  it('flags forward and reverse readings 5 % apart, not 1 % apart', () => {
+    const { make } = maker('four-point', { spacingCm: 0.1, thicknessCm: 0.05 });
+    const pair = (reverseV: number) =>
+      make({
+        forward: reading({ row: 2, polarity: 1, voltageV: 0.01, currentA: 0.001 }),
+        reverse: reading({ row: 3, record: 1, polarity: -1, voltageV: reverseV, currentA: -0.001 }),
+        flag: 'polarity-averaged',
+      })!;
+    expect(pair(-0.0095).flags).toContain('polarity-asymmetry');
+    expect(pair(-0.0099).flags).not.toContain('polarity-asymmetry');
   });
 
   it('van der Pauw, symmetric sample: R_s = pi R / ln 2, rho = R_s t', () => {

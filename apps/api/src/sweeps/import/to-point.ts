@@ -40,6 +40,31 @@ const HALL_ARGUMENT_COLUMNS: Readonly<Record<string, ColumnMeaning[]>> = {
 /** Refused together when V/I is zero or negative. */
 const VOLTAGE_OVER_CURRENT = 'voltageV and currentA';
 
+/** Forward and reverse readings further apart than this (relative) are flagged. */
+export const POLARITY_ASYMMETRY_LIMIT = 0.02;
+
+/**
+ * The relative difference of the forward and reverse readings of a pair, |R+ - R-| / R, with R
+ * the pair's averaged value; null for a lone reading or where a reading lacks the values.
+ */
+function polarityAsymmetry(
+  f: Reading,
+  r: Reading | undefined,
+  averaged: PointInput,
+): number | null {
+  if (!r) return null;
+  const vi = (x: Reading) =>
+    x.voltageV !== null && x.currentA ? x.voltageV / x.currentA : x.resistanceOhm;
+  const avg =
+    averaged.voltageV !== null && averaged.currentA
+      ? averaged.voltageV / averaged.currentA
+      : averaged.resistanceOhm;
+  const a = vi(f);
+  const b = vi(r);
+  if (a === null || b === null || !avg) return null;
+  return Math.abs(a - b) / Math.abs(avg);
+}
+
 /** Mean of a value of the forward and reverse readings (null if either lacks it). */
 function pairMean(f: number | null, r: number | null): number | null {
   return f === null || r === null ? null : (f + r) / 2;
@@ -127,6 +152,7 @@ export function pointMaker(
       );
       return null;
     }
+    const asymmetry = polarityAsymmetry(f, r, input);
     const flags: PointFlag[] = flag ? [flag] : [];
     let edgeFactor: number | null = null;
     if (placement) {
@@ -140,7 +166,7 @@ export function pointMaker(
       }
       if (placement.excluded) flags.push('edge-exclusion');
     }
-    return {
+    const point: ConvertedPoint = {
       sourceRows: r ? [f.row, r.row] : [f.row],
       recordIndexes: r ? [f.record, r.record] : [f.record],
       temperatureK: r ? (f.temperatureK + r.temperatureK) / 2 : f.temperatureK,
@@ -154,6 +180,16 @@ export function pointMaker(
       edgeFactor,
       ...(values.quantities ? { quantities: values.quantities } : {}),
     };
+    if (asymmetry !== null && asymmetry > POLARITY_ASYMMETRY_LIMIT) {
+      flags.push('polarity-asymmetry');
+      point.reasons = {
+        'polarity-asymmetry': `forward and reverse readings differ by ${(asymmetry * 100).toFixed(1)} % (a rectifying or drifting contact, or a thermoelectric offset)`,
+      };
+    }
+    if (input.resistanceOhm && input.resistanceBOhm && method === 'van-der-pauw') {
+      point.resistanceRatio = input.resistanceOhm / input.resistanceBOhm;
+    }
+    return point;
   };
 }
 

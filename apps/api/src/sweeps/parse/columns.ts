@@ -25,6 +25,10 @@ const NAME_RULES: Array<[ColumnMeaning, RegExp]> = [
   ['resistance-b', /^(r|res|resistance)[ _-]?(b|2|vert|v|23[ _,]?41|b ?configuration)$/i],
   ['resistance', /^(r|res|resistance|r[ _-]?(a|1|horiz|h|12[ _,]?34)|v ?\/ ?i|ratio)$/i],
   [
+    'reference-junction',
+    /^(cold ?junction|cj|cjc|ref(erence)? ?junction|t_?ref|t_?cj|t_?rj|rj)\b/i,
+  ],
+  [
     'temperature',
     /^(t|temp|temperature|t_?chuck|chuck|chuck ?temp|stage|t_?sample|sample ?temp|tc|rtd|pt100|pt1000|thermometer|sensor)\b/i,
   ],
@@ -69,13 +73,21 @@ export const NUMERIC_MEANINGS: ReadonlySet<ColumnMeaning> = new Set([
   'site',
   'magnetic-field',
   ...HALL_VOLTAGES,
+  'reference-junction',
 ]);
 
 /** Units a meaning may carry (a temperature in ohms is an RTD reading). */
 export function unitFitsMeaning(meaning: ColumnMeaning, unit: Unit): boolean {
   switch (meaning) {
     case 'temperature':
-      return unit.kind === 'temperature' || (unit.kind === 'resistance' && unit.factor === 1);
+      // ohms: a platinum RTD or a table sensor; volts: a thermocouple (mV) or a diode (V)
+      return (
+        unit.kind === 'temperature' ||
+        unit.kind === 'voltage' ||
+        (unit.kind === 'resistance' && unit.factor === 1)
+      );
+    case 'reference-junction':
+      return unit.kind === 'temperature';
     case 'resistance':
     case 'resistance-b':
       return unit.kind === 'resistance';

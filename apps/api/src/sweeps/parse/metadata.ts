@@ -17,6 +17,20 @@ export interface RecognisedMetadata {
   method?: string;
   /** The sample or wafer the file says it was measured on (`Sample: DEMO-W03`). */
   sampleName?: string;
+  /** `thermocouple: K`, `TC type: type K`: the letter, upper case (checked by the import). */
+  thermocoupleType?: string;
+  /** `cold junction: 23.4 °C`, `reference junction: 296.55 K`. */
+  referenceJunctionK?: number;
+}
+
+/** `23.4 °C`, `23,4 C`, `296.55 K`: a temperature in kelvin, or undefined without a unit. */
+export function readTemperatureK(value: string): number | undefined {
+  const m = /^\s*([-+]?[\d.,]+(?:[eE][-+]?\d+)?)\s*(°\s*C|deg\s*C|degC|C|K)\s*$/i.exec(value);
+  if (!m) return undefined;
+  const n = readNumber(m[1]!, m[1]!.includes(',') && !m[1]!.includes('.') ? ',' : '.');
+  if (typeof n !== 'number') return undefined;
+  const kelvin = /^k$/i.test(m[2]!) ? n : n + 273.15;
+  return kelvin > 0 ? kelvin : undefined;
 }
 
 const LENGTH_CM: Record<string, number> = {
@@ -72,6 +86,14 @@ const KEYS: Array<[RegExp, (v: string, out: RecognisedMetadata) => void]> = [
   ],
   [/^(method|measurement|technique|configuration)$/i, (v, o) => (o.method = v)],
   [/^(sample|wafer|specimen)( ?(name|id|no\.?|number))?$/i, (v, o) => (o.sampleName = v)],
+  [
+    /^(thermocouple|tc)( ?type)?$/i,
+    (v, o) => (o.thermocoupleType = /^\s*(type\s*)?([a-z])\s*$/i.exec(v)?.[2]?.toUpperCase() ?? v),
+  ],
+  [
+    /^(cold|reference|ref) ?junction( ?temp(erature)?)?$|^cjc?$/i,
+    (v, o) => (o.referenceJunctionK = readTemperatureK(v)),
+  ],
 ];
 
 /** Reads the recognised keys; unknown keys stay in the sweep's metadata only. */

@@ -153,7 +153,7 @@ describe('units and headers', () => {
     expect(columns[2]).toMatchObject({ meaning: 'voltage', unit: 'uV', confidence: 1 });
     const bad = applyColumnOverrides(p.columns, [
       { index: 9, meaning: 'voltage' },
-      { index: 0, meaning: 'temperature', unit: 'mV' },
+      { index: 0, meaning: 'temperature', unit: 'mA' },
     ]);
     expect(bad.problems.map((x) => x.field)).toEqual(['columns.0.index', 'columns.1.unit']);
   });

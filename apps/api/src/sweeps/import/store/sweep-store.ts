@@ -1,5 +1,5 @@
 /**
- * Stage 7, store: the sweep row, its points, the reversal flags, the completed row and the
+ * Stage 7, store: the sweep row, its points, their legs and late flags, the completed row and the
  * audit event, in the upload's transaction, with every statement's result checked before the
  * commit. The sweep row is written only while a transaction is open, the points need it (a
  * foreign key), and the audit event is written only where the sweep and all its points are
@@ -95,7 +95,10 @@ export class SweepStore {
   ): Promise<{ id: number; pointCount: number }> {
     const id = this.sweepId!;
     const pointCount = await this.writer!.finish();
-    await this.markReversals(id, flags.reversals);
+    await this.markLegs(id, flags);
+    for (const [flag, positions] of Object.entries(flags.late)) {
+      await this.markFlag(id, flag, positions);
+    }
     const [updated] = await Sweep.update(
       {
         pointCount,
@@ -167,20 +170,35 @@ export class SweepStore {
     return Number(id);
   }
 
-  /** Adds the `temperature-reversal` flag to the points at `positions` (after any flags). */
-  private async markReversals(sweepId: number, positions: number[]): Promise<void> {
-    for (let start = 0; start < positions.length; start += REVERSAL_UPDATE_ROWS) {
-      const sequences = positions.slice(start, start + REVERSAL_UPDATE_ROWS).map((i) => i + 1);
+  /** Numbers the points of each leg: one statement per leg, over its run of sequences. */
+  private async markLegs(sweepId: number, flags: FlagSummary): Promise<void> {
+    for (const [k, leg] of flags.legs.entries()) {
       const [, updated] = await Sweep.sequelize!.query(
-        "UPDATE sweep_points SET flags = IF(flags = '', 'temperature-reversal', " +
-          "CONCAT(flags, ',temperature-reversal')) WHERE sweep_id = ? AND sequence IN (?)",
+        'UPDATE sweep_points SET leg = ? WHERE sweep_id = ? AND sequence BETWEEN ? AND ?',
         {
-          replacements: [sweepId, sequences],
+          replacements: [k + 1, sweepId, leg.start + 1, leg.end],
           type: QueryTypes.UPDATE,
           transaction: this.transaction,
         },
       );
-      requireAffected(updated, sequences.length, 'marking reversals');
+      requireAffected(updated, leg.end - leg.start, 'numbering the legs');
+    }
+  }
+
+  /** Adds `flag` to the points at `positions` (0-based, after any flags they carry). */
+  private async markFlag(sweepId: number, flag: string, positions: number[]): Promise<void> {
+    for (let start = 0; start < positions.length; start += REVERSAL_UPDATE_ROWS) {
+      const sequences = positions.slice(start, start + REVERSAL_UPDATE_ROWS).map((i) => i + 1);
+      const [, updated] = await Sweep.sequelize!.query(
+        "UPDATE sweep_points SET flags = IF(flags = '', ?, CONCAT(flags, ',', ?)) " +
+          'WHERE sweep_id = ? AND sequence IN (?)',
+        {
+          replacements: [flag, flag, sweepId, sequences],
+          type: QueryTypes.UPDATE,
+          transaction: this.transaction,
+        },
+      );
+      requireAffected(updated, sequences.length, `marking ${flag} points`);
     }
   }
 

@@ -21,8 +21,9 @@ export class AnalysisApi {
   private readonly downloader = inject(Downloader);
   private materialsCache: Observable<MaterialsResponse> | null = null;
 
-  analysis(sweepId: number): Observable<SweepAnalysisResponse> {
-    return this.http.get<SweepAnalysisResponse>(`/api/sweeps/${sweepId}/analysis`);
+  analysis(sweepId: number, leg: number | 'all' | null = null): Observable<SweepAnalysisResponse> {
+    const query = leg === null ? '' : `?leg=${leg}`;
+    return this.http.get<SweepAnalysisResponse>(`/api/sweeps/${sweepId}/analysis${query}`);
   }
 
   materials(): Observable<MaterialsResponse> {

@@ -34,9 +34,14 @@ export class AnalysisStore {
   private readonly unitSetting = inject(TemperatureUnitSetting);
 
   readonly sweepId = signal<number | null>(null);
+  /** The ramp leg studied: null for the API's default (the first leg with 5 steps). */
+  readonly leg = signal<number | 'all' | null>(null);
   readonly analysis = rxResource({
-    params: () => this.sweepId() ?? undefined,
-    stream: ({ params }) => this.api.analysis(params),
+    params: () => {
+      const id = this.sweepId();
+      return id === null ? undefined : { id, leg: this.leg() };
+    },
+    stream: ({ params }) => this.api.analysis(params.id, params.leg),
   });
   readonly fits = rxResource({
     params: () => this.sweepId() ?? undefined,
@@ -154,6 +159,7 @@ export class AnalysisStore {
   /** Studies another sweep: everything shown before is forgotten. */
   load(sweepId: number): void {
     if (this.sweepId() === sweepId) return;
+    this.leg.set(null);
     this.sweepId.set(sweepId);
     this.window.set(null);
     this.compared.set([]);
@@ -279,7 +285,12 @@ export class AnalysisStore {
   }
 
   private preview(slot: FitSlot, request: FitRequest): void {
-    const body: FitRequest = this.includeFlagged() ? { ...request, includeFlagged: true } : request;
+    const flagged: FitRequest = this.includeFlagged()
+      ? { ...request, includeFlagged: true }
+      : request;
+    // fits read the leg studied (the API's default leg when none was picked)
+    const leg = this.leg();
+    const body: FitRequest = leg === null ? flagged : { ...flagged, leg };
     const asked = { request: body, problem: null, busy: true, startedAt: Date.now() };
     this.slots[slot].update((s) => ({ ...s, ...asked }));
     this.previews$.next({ slot, body });

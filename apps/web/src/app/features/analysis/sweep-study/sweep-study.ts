@@ -13,6 +13,7 @@ import { MetalFits } from '../metal-fits/metal-fits';
 import { ModelFit } from '../model-fit/model-fit';
 import { ModelOverlay } from '../model-overlay/model-overlay';
 import { SavedFits } from '../saved-fits/saved-fits';
+import { SweepFaults } from '../parts/sweep-faults/sweep-faults';
 
 import { MapView } from '../../maps/map-view/map-view';
 /**
@@ -33,6 +34,7 @@ import { MapView } from '../../maps/map-view/map-view';
     SavedFits,
     MapView,
     HallStudy,
+    SweepFaults,
   ],
   providers: [AnalysisStore],
   templateUrl: './sweep-study.html',

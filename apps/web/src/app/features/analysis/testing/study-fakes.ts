@@ -113,7 +113,14 @@ export class FakeAnalysisApi {
   readonly deleted: number[] = [];
   readonly curves: ModelCurveRequest[] = [];
 
-  analysis(): Observable<SweepAnalysisResponse> {
+  /** The leg asked of each analysis request. */
+  readonly legsAsked: Array<number | 'all' | null> = [];
+
+  analysis(
+    _sweepId?: number,
+    leg: number | 'all' | null = null,
+  ): Observable<SweepAnalysisResponse> {
+    this.legsAsked.push(leg);
     return of(this.analysisAnswer);
   }
   materials(): Observable<null> {

@@ -2,7 +2,7 @@ import type { ColumnMeaning, SweepMethod, SweepPreviewResponse } from '@rhotrace
 
 /** Unit labels the import understands for each column meaning (the API's canonical spellings). */
 export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
-  temperature: ['K', 'degC', 'ohm'],
+  temperature: ['K', 'degC', 'ohm', 'mV', 'V'],
   voltage: ['V', 'mV', 'uV', 'nV'],
   current: ['A', 'mA', 'uA', 'nA'],
   resistance: ['ohm', 'mohm', 'kohm', 'Mohm'],
@@ -24,6 +24,7 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   'hall-voltage-pn': ['V', 'mV', 'uV', 'nV'],
   'hall-voltage-np': ['V', 'mV', 'uV', 'nV'],
   'hall-voltage-nn': ['V', 'mV', 'uV', 'nV'],
+  'reference-junction': ['K', 'degC'],
 };
 
 /**
@@ -53,6 +54,7 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   'hall-voltage-pn': 'Hall voltage at +B, −I',
   'hall-voltage-np': 'Hall voltage at −B, +I',
   'hall-voltage-nn': 'Hall voltage at −B, −I',
+  'reference-junction': 'Reference (cold) junction temperature',
 };
 
 /** How sure the column detection is, in words (a choice made by hand is certain). */

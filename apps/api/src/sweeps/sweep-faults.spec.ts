@@ -1,0 +1,103 @@
+import type { SweepDto } from '@rhotrace/api-types';
+import { BOLTZMANN_EV_PER_K, seededNormal, seededRandom } from '@rhotrace/physics';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestContext, type TestContext } from '../testing/test-context';
+import { makeWafer } from './sweep-test-helpers';
+
+// Invented files, one fault each, uploaded end to end; the thresholds are those of issue 15
+// (Hampel window 7 / 4 scaled MAD, 2 % polarity asymmetry, 3 x scatter for self-heating).
+
+let ctx: TestContext;
+beforeAll(async () => {
+  ctx = await createTestContext();
+});
+afterAll(async () => {
+  await ctx.close();
+});
+
+async function store(text: string, name: string): Promise<SweepDto> {
+  const wafer = await makeWafer({ thicknessCm: 0.05 });
+  const res = await request(ctx.app)
+    .post(`/api/wafers/${wafer.id}/sweeps`)
+    .set(ctx.auth('engineer'))
+    .field('method', 'four-point')
+    .field('spacingCm', '0.1')
+    .attach('file', Buffer.from(text), name);
+  expect(res.status, JSON.stringify(res.body)).toBe(201);
+  return (await request(ctx.app).get(`/api/sweeps/${res.body.id}`).set(ctx.auth('engineer')))
+    .body as SweepDto;
+}
+
+const flagged = (s: SweepDto, flag: string) =>
+  s.points.filter((p) => p.flags.includes(flag as never)).map((p) => p.sequence);
+
+describe('faults found by the import', () => {
+  it('splits an up-and-down ramp into two legs with no reversal on the return', async () => {
+    const normal = seededNormal(seededRandom(11));
+    const temps = [...Array.from({ length: 21 }, (_, i) => 300 + 5 * i)];
+    temps.push(...temps.slice(0, -1).reverse());
+    const rows = temps.map(
+      (t) => `${(t + 0.05 * normal()).toFixed(2)},1,${(10 * (1 + 0.002 * (t - 300))).toFixed(4)}`,
+    );
+    const sweep = await store(`T (K),I (mA),V (mV)\n${rows.join('\n')}\n`, 'ramp.csv');
+    expect(sweep.points.filter((p) => p.leg === 1)).toHaveLength(21);
+    expect(sweep.points.filter((p) => p.leg === 2)).toHaveLength(20);
+    expect(sweep.points.every((p) => p.flags.length === 0)).toBe(true);
+  });
+
+  it('flags a spike as an outlier and leaves it out of the Arrhenius fit', async () => {
+    const normal = seededNormal(seededRandom(12));
+    const rows = Array.from({ length: 30 }, (_, i) => {
+      const t = 300 + 10 * i;
+      const spike = i === 14 ? 1.3 : 1;
+      const v = 10 * Math.exp(0.3 / (BOLTZMANN_EV_PER_K * t) - 0.3 / (BOLTZMANN_EV_PER_K * 300));
+      return `${t},1,${(v * spike * (1 + 0.002 * normal())).toPrecision(6)}`;
+    });
+    const sweep = await store(`T (K),I (mA),V (mV)\n${rows.join('\n')}\n`, 'spike.csv');
+    expect(flagged(sweep, 'outlier')).toEqual([15]);
+    expect(sweep.parseReport.findings).toEqual([
+      expect.objectContaining({
+        sequence: 15,
+        flag: 'outlier',
+        reason: expect.stringMatching(/\(\+(2[5-9]|3[0-5])\.\d %\)/),
+      }),
+    ]);
+    const fit = await request(ctx.app)
+      .post(`/api/sweeps/${sweep.id}/fits`)
+      .set(ctx.auth('engineer'))
+      .send({ kind: 'arrhenius', minK: 300, maxK: 590, regime: 'intrinsic' });
+    expect(fit.status, JSON.stringify(fit.body)).toBe(201);
+    expect(fit.body.excludedSequences).toEqual([15]);
+  });
+
+  it('flags forward and reverse readings 5 % apart', async () => {
+    const rows = [300, 310, 320, 330, 340, 350].flatMap((t) => [
+      `${t},+,1,${t === 320 ? 10.25 : 10.01}`,
+      `${t},-,1,${t === 320 ? -9.75 : -9.99}`,
+    ]);
+    const sweep = await store(`T (K),Polarity,I (mA),V (mV)\n${rows.join('\n')}\n`, 'pol.csv');
+    expect(flagged(sweep, 'polarity-asymmetry')).toEqual([3]);
+    expect(sweep.parseReport.findings![0]!.reason).toMatch(/differ by 5\.0 %/);
+  });
+
+  it('flags the higher of two currents reading 1 % high at alpha = 0.4 %/K, dT about 2.5 K', async () => {
+    // rho = rho0 exp(alpha (T - 300)) has alpha = d ln rho / dT = 0.004 /K everywhere;
+    // dT = (1.01 - 1) / 0.004 = 2.5 K (issue 15).
+    const normal = seededNormal(seededRandom(13));
+    const rows = Array.from({ length: 8 }, (_, k) => 290 + 10 * k).flatMap((t) => {
+      const r = 10 * Math.exp(0.004 * (t - 300));
+      const v = (ma: number, high: number) =>
+        (r * ma * high * (1 + 0.0003 * normal())).toPrecision(7);
+      return [`${t},1,${v(1, 1)}`, `${t},10,${v(10, 1.01)}`];
+    });
+    const sweep = await store(`T (K),I (mA),V (mV)\n${rows.join('\n')}\n`, 'heat.csv');
+    expect(flagged(sweep, 'self-heating')).toEqual([2, 4, 6, 8, 10, 12, 14, 16]);
+    const reasons = sweep.parseReport.findings!.filter((f) => f.flag === 'self-heating');
+    for (const f of reasons) {
+      const dT = Number(/about (\d+\.\d) K/.exec(f.reason)![1]);
+      expect(Math.abs(dT - 2.5)).toBeLessThanOrEqual(0.2);
+    }
+    expect(sweep.points.some((p) => p.flags.includes('outlier'))).toBe(false);
+  });
+});
