@@ -85,9 +85,10 @@ describe('each role sees only what it may use', () => {
 
       const forbidden = FORBIDDEN[role];
       if (forbidden) {
+        // A page the role may not use says so plainly, with a way back (not a silent bench).
         await page.goto(`${BASE_URL}${forbidden}`);
-        await page.waitForURL((url) => url.pathname === '/');
-        expect(new URL(page.url()).pathname).toBe('/');
+        await page.waitForURL((url) => url.pathname === '/not-available');
+        await page.getByRole('heading', { name: 'Not available to you' }).waitFor();
       }
     });
   }

@@ -38,7 +38,7 @@ describe('an engineer uploads a batch of mixed files', () => {
       `/api/lots/${lot.id}/wafers`,
     );
     const list = Array.isArray(wafers) ? wafers : wafers.items;
-    const wafer = list.find((w) => w.number === '03')!;
+    const wafer = list.find((w) => w.number === 'W03')!;
 
     const { page } = browser;
     await signIn(page, 'engineer');

@@ -111,6 +111,7 @@ describe('the wafer map view', () => {
     const rows = page
       .getByRole('table', { name: 'Sites of the map at this temperature' })
       .locator('tbody tr');
+    await rows.first().waitFor();
     await expect(rows.count()).resolves.toBe(next.sites.length);
 
     const download = page.waitForEvent('download');

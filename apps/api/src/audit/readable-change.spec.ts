@@ -70,6 +70,18 @@ describe('an audit change in words', () => {
     expect(gone!.after).toBe('—');
   });
 
+  it('words nested records (geometry, parameters) instead of showing their stored keys', () => {
+    const [geometry] = readableChanges(
+      null,
+      { geometry: { thicknessCm: 0.05, spacingCm: 0.1, sources: { thicknessCm: 'lot' } } },
+      names,
+    );
+    expect(geometry!.after).toBe('thickness 500 µm, probe spacing 1 mm, sources thickness lot');
+    const [parameters] = readableChanges(null, { parameters: { donorDensity: 1e15 } }, names);
+    expect(parameters!.after).toBe('donor density 1.000 × 10^15');
+    expect(JSON.stringify([geometry, parameters])).not.toMatch(/Cm"|donorDensity\b.*:/);
+  });
+
   it('collects the ids to name, by kind', () => {
     const ids = referencedIds([{ waferId: 14, assigneeId: 2 }, { assignedById: 3 }, null]);
     expect([...ids.wafer]).toEqual([14]);

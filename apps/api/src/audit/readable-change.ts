@@ -108,13 +108,31 @@ export function showValue(field: string, value: unknown, names: RecordNames): st
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'number') {
     const shown = value * (words?.scale ?? 1);
-    const text = Number.isInteger(shown) ? String(shown) : String(Number(shown.toPrecision(6)));
+    const a = Math.abs(shown);
+    const text =
+      a !== 0 && (a >= 1e6 || a < 1e-3)
+        ? shown.toExponential(3).replace(/e\+?/, ' × 10^')
+        : Number.isInteger(shown)
+          ? String(shown)
+          : String(Number(shown.toPrecision(6)));
     return words?.unit ? `${text} ${words.unit}` : text;
   }
   if (typeof value === 'string') {
     return /^\d{4}-\d{2}-\d{2}T/.test(value) ? value.slice(0, 10) : value;
   }
-  return JSON.stringify(value);
+  if (Array.isArray(value)) {
+    return value.length === 0 ? '—' : value.map((v) => showValue(field, v, names)).join(', ');
+  }
+  if (isObject(value)) {
+    // A nested record (geometry, fit parameters): each entry in words, never its stored key.
+    const parts = Object.entries(value)
+      .filter(([k, v]) => !HIDDEN.has(k) && v !== null && v !== undefined)
+      .map(
+        ([k, v]) => `${(FIELDS[k]?.label ?? wordsOf(k)).toLowerCase()} ${showValue(k, v, names)}`,
+      );
+    return parts.length ? parts.join(', ') : '—';
+  }
+  return String(value);
 }
 
 /** Every field whose value differs between `before` and `after` (either may be null). */

@@ -26,9 +26,13 @@ import { SPEC_VERDICT_MEANINGS, SPEC_VERDICT_WORDS, type SpecVerdict } from '@rh
       font-weight: 600;
     }
     .indeterminate {
-      color: var(--rt-caution-border);
+      /* #8a4600 on the caution background is 6.4:1 (WCAG 2.2 AA asks 4.5:1 for this size). */
+      color: #8a4600;
       background: var(--rt-caution-bg);
       border-style: dashed;
+    }
+    :host-context(html.rt-dark) .indeterminate {
+      color: var(--rt-caution-border);
     }
     :host-context(html.rt-dark) .pass {
       color: #5fd3a8;
