@@ -53,7 +53,7 @@ describe('an engineer uploads a batch of mixed files', () => {
     ).setFiles([
       csv('hot-chuck.csv', run, [
         'Station: Hot chuck South',
-        'Sample: LV-26-B014-03',
+        'Sample: LV-26-B014-W03',
         'Thickness: 380 um',
         'temperature_K,current_A,voltage_V',
         '80,1.0e-3,1.84e-3',
@@ -104,9 +104,7 @@ describe('an engineer uploads a batch of mixed files', () => {
     await hot.getByText('Ready to store').waitFor();
     await screenshot(page, 'upload-batch-preview');
 
-    await expect(
-      page.getByText('1 file needs attention before storing.').isVisible(),
-    ).resolves.toBe(true);
+    await page.getByText('1 file needs attention before storing.').waitFor();
     await page.getByRole('button', { name: 'Store 2 files' }).click();
     await hot.getByText('Stored: 3 points').waitFor({ timeout: 20_000 });
     await square.getByText('Stored: 2 points').waitFor({ timeout: 20_000 });

@@ -86,7 +86,9 @@ describe('the wafer map view', () => {
     const readout = page.locator('figcaption.readout');
     await expect(readout.textContent()).resolves.toMatch(/^Site 1 /);
     await page.keyboard.press('ArrowRight');
+    await readout.filter({ hasText: /^Site 2 / }).waitFor();
     await page.keyboard.press('ArrowRight');
+    await readout.filter({ hasText: /^Site 3 / }).waitFor();
     const text = (await readout.textContent()) ?? '';
     expect(text).toMatch(/^Site 3 \(x [-\d.]+ mm, y [-\d.]+ mm\): /);
     const site3 = at.sites.find((s) => s.label === '3')!;

@@ -77,6 +77,8 @@ describe('an audit change in words', () => {
       names,
     );
     expect(geometry!.after).toBe('thickness 500 µm, probe spacing 1 mm, sources thickness lot');
+    const [free] = readableChanges(null, { free: ['donorDensity', 'donorLevel'] }, names);
+    expect(free!.after).toBe('donor density, donor level');
     const [parameters] = readableChanges(null, { parameters: { donorDensity: 1e15 } }, names);
     expect(parameters!.after).toBe('donor density 1.000 × 10^15');
     expect(JSON.stringify([geometry, parameters])).not.toMatch(/Cm"|donorDensity\b.*:/);

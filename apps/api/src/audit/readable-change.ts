@@ -121,7 +121,12 @@ export function showValue(field: string, value: unknown, names: RecordNames): st
     return /^\d{4}-\d{2}-\d{2}T/.test(value) ? value.slice(0, 10) : value;
   }
   if (Array.isArray(value)) {
-    return value.length === 0 ? '—' : value.map((v) => showValue(field, v, names)).join(', ');
+    // Lists of keys (a fit's freed parameters) are read as words too.
+    const word = (v: unknown) =>
+      typeof v === 'string' && /^[a-z]+[A-Z]\w*$/.test(v)
+        ? (FIELDS[v]?.label ?? wordsOf(v)).toLowerCase()
+        : showValue(field, v, names);
+    return value.length === 0 ? '—' : value.map(word).join(', ');
   }
   if (isObject(value)) {
     // A nested record (geometry, fit parameters): each entry in words, never its stored key.

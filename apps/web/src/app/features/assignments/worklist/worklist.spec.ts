@@ -85,7 +85,7 @@ describe('Worklist', () => {
   it('hands a task to another person from its row', async () => {
     const { api, loader } = await setup();
     const who = await loader.getHarness(
-      MatSelectHarness.with({ selector: '[aria-label="Assignee for L-7 W03"]' }),
+      MatSelectHarness.with({ selector: '[aria-label="Who measures L-7 W03"]' }),
     );
     await who.open();
     await who.clickOptions({ text: 'Tia Tech' });
@@ -95,7 +95,7 @@ describe('Worklist', () => {
   it('moves the due date from its row, ignoring an emptied field', async () => {
     const { api, fixture } = await setup();
     const due = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>(
-      'input[aria-label="Due date for L-7 W03"]',
+      'input[aria-label="When L-7 W03 is due"]',
     )!;
     expect(due.value).toBe('2026-12-01');
     due.value = '';

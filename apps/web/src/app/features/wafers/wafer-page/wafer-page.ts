@@ -102,11 +102,15 @@ export class WaferPage {
     params: () => (this.wafer.hasValue() ? this.waferId() : undefined),
     stream: ({ params }) => this.api.sweeps(params),
   });
+  /** The sweep chosen to count at 23 °C (null: the newest); read only once the wafer loaded. */
+  protected readonly countedSweepId = computed(() =>
+    this.wafer.hasValue() ? (this.wafer.value().countedSweepId ?? null) : null,
+  );
   protected readonly dopant = rxResource({
     params: () => ({
       id: this.waferId(),
       sweeps: this.sweeps.value()?.length ?? 0,
-      counted: this.wafer.value()?.countedSweepId ?? null,
+      counted: this.countedSweepId(),
     }),
     stream: ({ params }) =>
       params.sweeps > 0 ? this.api.dopant(params.id).pipe(catchError(() => of(null))) : of(null),
