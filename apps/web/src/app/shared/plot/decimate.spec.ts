@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { MAX_POINTS_PER_TRACE, minMaxIndices, thinTrace, thinningNote } from './decimate';
 import { logTicks, powerOfTen } from './log-ticks';
+import { prepareFigure } from './plot-figure';
 
 describe('min/max decimation', () => {
   it('keeps at most two points per column, in order, with every extreme', () => {
@@ -75,5 +76,17 @@ describe('log-axis ticks', () => {
     expect(logTicks(2.1, 2.4)!.tickvals.length).toBeGreaterThanOrEqual(2);
     expect(logTicks(0, 10)).toBeNull();
     expect(logTicks(5, 1)).toBeNull();
+  });
+});
+
+describe('log ticks of a fixed axis', () => {
+  it('follow the range a page fixed, not a model curve running far outside it', () => {
+    const figure = prepareFigure(
+      [{ type: 'scatter', x: [1, 2, 3], y: [1, 1e12, 1e25] }],
+      { yaxis: { type: 'log', range: [0, 2], autorange: false } },
+      { webgl: false, dark: false, yType: null },
+    );
+    const yaxis = figure.layout['yaxis'] as { ticktext: string[] };
+    expect(yaxis.ticktext).toEqual(['1', '2', '5', '10', '20', '50', '100']);
   });
 });

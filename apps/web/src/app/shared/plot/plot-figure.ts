@@ -98,7 +98,16 @@ export function prepareFigure(
   for (const axis of ['xaxis', 'yaxis'] as const) {
     const a = axes[axis];
     if (a['type'] !== 'log' || a['tickvals'] !== undefined) continue;
-    const range = positiveRange(tracesOn(traces, axis), axis === 'xaxis' ? 'x' : 'y');
+    // A page that fixes the axis (log10 units, as plotly takes them) is ticked over what shows,
+    // not over every trace: a model far off the data would otherwise leave one label in view.
+    const fixed = a['range'];
+    const range =
+      Array.isArray(fixed) && typeof fixed[0] === 'number' && typeof fixed[1] === 'number'
+        ? ([10 ** Math.min(fixed[0], fixed[1]), 10 ** Math.max(fixed[0], fixed[1])] as [
+            number,
+            number,
+          ])
+        : positiveRange(tracesOn(traces, axis), axis === 'xaxis' ? 'x' : 'y');
     const ticks = range ? logTicks(range[0], range[1]) : null;
     if (!range || !ticks) continue;
     logRanges[axis] = range;
