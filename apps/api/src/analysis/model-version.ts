@@ -30,8 +30,8 @@ export function physicsVersion(): string {
 
 /**
  * The model version stored with a fit or shown with a curve: physics package version plus the
- * short name of the parameter set (at most 32 characters, the column's width).
+ * short name of the parameter set (at most 96 characters, the column's width).
  */
 export function modelVersion(parameterSet: string): string {
-  return `physics@${physicsVersion()}+${parameterSet}`.slice(0, 32);
+  return `physics@${physicsVersion()}+${parameterSet}`.slice(0, 96);
 }

@@ -60,7 +60,7 @@ export function initFitModel(sequelize: Sequelize): void {
       interpretation: jsonColumn('interpretation'),
       curvature: jsonColumn('curvature'),
       warnings: jsonColumn('warnings'),
-      modelVersion: { type: DataTypes.STRING(32), allowNull: false },
+      modelVersion: { type: DataTypes.STRING(96), allowNull: false },
       createdById: { type: DataTypes.INTEGER, allowNull: false },
       deletedAt: DataTypes.DATE(3),
       createdAt: DataTypes.DATE(3),

@@ -252,6 +252,10 @@ describe('Hall fits', () => {
     expect(ratio.confidenceInterval95![0]).toBeLessThan(0.1);
     expect(ratio.confidenceInterval95![1]).toBeGreaterThan(0.1);
     expect(f.interpretation!.property).toBe('dopant-level');
+    // The stored version names the whole model (it was cut at 32 characters before).
+    expect(f.modelVersion).toMatch(/^physics@[\d.]+\+Si:[\w-]+:constant-level$/);
+    const stored = await request(ctx.app).get(`/api/fits/${f.id}`).set(ctx.auth('physicist'));
+    expect(stored.body.modelVersion).toBe(f.modelVersion);
     expect(f.inputs).toMatchObject({
       kind: 'carrier-density',
       free: ['donorDensity', 'acceptorDensity', 'donorLevel'],

@@ -113,6 +113,7 @@ const PARAMETER_SET_WORDS: Readonly<Record<string, string>> = {
   arrhenius: 'Arrhenius line',
   'linear-tcr': 'linear temperature coefficient',
   'bloch-gruneisen': 'Bloch–Grüneisen',
+  'hall-mobility-power-law': 'Hall mobility power law',
 };
 
 /**
