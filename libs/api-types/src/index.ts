@@ -28,9 +28,6 @@ export type {
   SweepAnalysisResponse,
   LegDto,
   DopantDensityResponse,
-  LotSummaryWafer,
-  LotSummaryResponse,
-  CompareResponse,
 } from './analysis';
 export { ROLES, MIN_PASSWORD_LENGTH, USER_SORT_FIELDS } from './auth';
 export type {
@@ -68,6 +65,7 @@ export type {
   FitPreviewDto,
 } from './fits';
 export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
+export type { LotSummaryWafer, LotSummaryResponse, CompareResponse } from './lot-summary';
 export { MAP_CORRECTIONS, DEFAULT_EDGE_EXCLUSION_MM } from './maps';
 export type {
   MapCorrection,
@@ -152,6 +150,14 @@ export type {
   StationUploadDto,
   StationSweepCreatedResponse,
 } from './station-tokens';
+export type {
+  PreviewRow,
+  SweepPreviewResponse,
+  MetadataFinding,
+  SweepLayoutInput,
+  ImportSettingsDto,
+  ImportSettingsInput,
+} from './sweep-preview';
 export {
   SWEEP_METHODS,
   COLUMN_MEANINGS,
@@ -166,9 +172,6 @@ export type {
   PointFlag,
   SweepColumn,
   RowProblem,
-  PreviewRow,
-  SweepPreviewResponse,
-  MetadataFinding,
   SweepColumnOverride,
   SweepGeometryInput,
   GeometrySource,
@@ -185,7 +188,4 @@ export type {
   HallImportReport,
   SweepSite,
   SweepDto,
-  SweepLayoutInput,
-  ImportSettingsDto,
-  ImportSettingsInput,
 } from './sweeps';

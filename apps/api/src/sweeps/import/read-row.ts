@@ -16,11 +16,10 @@ import type { Reading, RowSite } from './import-types';
 
 /** Longest site label kept (the column's width). */
 const SITE_LABEL_LENGTH = 64;
+import { hallColumns, type HallMeaning, type HallReadingKey } from './hall-cells';
 import { POINT_METHODS } from './methods';
+import { polarityOf, signCurrent } from './polarity-cells';
 import { temperatureReader, type TemperatureReader } from './temperature';
-
-const FORWARD = /^(\+|\+1|1|f|fwd|forward|pos|positive|p|normal|\+i)$/i;
-const REVERSE = /^(-|-1|r|rev|reverse|neg|negative|n|reversed|-i)$/i;
 
 /** Columns a reading may use, by meaning (null when not mapped). */
 type ColumnsByMeaning = Record<
@@ -33,23 +32,6 @@ type ColumnsByMeaning = Record<
   | HallMeaning,
   ResolvedColumn | null
 >;
-
-/** The columns of a Hall sweep besides the van der Pauw ones. */
-type HallMeaning = Extract<ColumnMeaning, 'magnetic-field' | `hall-voltage${string}`>;
-
-type HallReadingKey = 'magneticFieldT' | 'hallVoltageV' | 'hallReversalsV';
-
-/** The Hall columns of a file and whether the method makes each one's cells required. */
-function hallColumns<T>(of: (m: HallMeaning) => T): Record<HallMeaning, T> {
-  return {
-    'magnetic-field': of('magnetic-field'),
-    'hall-voltage': of('hall-voltage'),
-    'hall-voltage-pp': of('hall-voltage-pp'),
-    'hall-voltage-pn': of('hall-voltage-pn'),
-    'hall-voltage-np': of('hall-voltage-np'),
-    'hall-voltage-nn': of('hall-voltage-nn'),
-  };
-}
 
 /** Reads records of a parsed file as readings; problems go to the list it is given. */
 export class RowReader {
@@ -269,8 +251,8 @@ export class RowReader {
     const c = this.polarity;
     if (!c) return 0;
     const text = (cells[c.index] ?? '').trim();
-    if (FORWARD.test(text)) return 1;
-    if (REVERSE.test(text)) return -1;
+    const sign = polarityOf(text);
+    if (sign !== null) return sign;
     this.bad = true;
     this.problems.push(
       rowProblem(
@@ -306,19 +288,9 @@ export class RowReader {
 
   /** The current with the sign its polarity gives it; null after a problem. */
   private signedCurrent(currentA: number, polarity: 1 | -1 | 0, row: number): number | null {
-    // A reverse reading may give the current as a magnitude; it flows the other way.
-    const signed = polarity === -1 && currentA > 0 ? -currentA : currentA;
-    const wrong = polarity === -1 ? signed >= 0 : signed <= 0;
-    if (!wrong) return signed;
-    this.problems.push(
-      rowProblem(
-        row,
-        this.columns.current!.header,
-        polarity === 0 && signed < 0
-          ? `the current is negative (${signed} A); mark reverse-polarity readings in a polarity column`
-          : `the current must not be zero or point the wrong way (${signed} A)`,
-      ),
-    );
+    const signed = signCurrent(currentA, polarity);
+    if (typeof signed === 'number') return signed;
+    this.problems.push(rowProblem(row, this.columns.current!.header, signed.problem));
     return null;
   }
 }

@@ -14,6 +14,8 @@ import {
   exclusiveSaves,
   isSaved,
   queuedFits,
+  loaded,
+  studyRequest,
 } from './fit-queue';
 import { type FittedOverlay, fittedOverlayOf } from './model-overlay/fitted-overlay';
 import { startingPointResource } from './sweep-study/starting-point';
@@ -116,7 +118,7 @@ export class AnalysisStore {
     this.previews$
       .pipe(
         queuedFits<FitSlot>(
-          (body) => this.api.previewFit(this.requireSweepId(), body),
+          (body) => this.api.previewFit(loaded(this.sweepId()), body),
           this.cancels$,
         ),
         takeUntilDestroyed(),
@@ -139,7 +141,7 @@ export class AnalysisStore {
             this.savingStartedAt.set(Date.now());
             return request;
           },
-          (body) => this.api.createFit(this.requireSweepId(), body),
+          (body) => this.api.createFit(loaded(this.sweepId()), body),
           this.cancels$,
         ),
         takeUntilDestroyed(),
@@ -277,20 +279,15 @@ export class AnalysisStore {
   }
 
   saveFitsCsv(): Promise<void> {
-    return this.api.saveFitsCsv(this.requireSweepId());
+    return this.api.saveFitsCsv(loaded(this.sweepId()));
   }
 
   saveReport(): Promise<void> {
-    return this.api.saveReport(this.requireSweepId());
+    return this.api.saveReport(loaded(this.sweepId()));
   }
 
   private preview(slot: FitSlot, request: FitRequest): void {
-    const flagged: FitRequest = this.includeFlagged()
-      ? { ...request, includeFlagged: true }
-      : request;
-    // fits read the leg studied (the API's default leg when none was picked)
-    const leg = this.leg();
-    const body: FitRequest = leg === null ? flagged : { ...flagged, leg };
+    const body = studyRequest(request, this.includeFlagged(), this.leg());
     const asked = { request: body, problem: null, busy: true, startedAt: Date.now() };
     this.slots[slot].update((s) => ({ ...s, ...asked }));
     this.previews$.next({ slot, body });
@@ -299,11 +296,5 @@ export class AnalysisStore {
   private endSaving(): void {
     this.savingSlot.set(null);
     this.savingStartedAt.set(null);
-  }
-
-  private requireSweepId(): number {
-    const id = this.sweepId();
-    if (id === null) throw new Error('AnalysisStore: load a sweep first');
-    return id;
   }
 }

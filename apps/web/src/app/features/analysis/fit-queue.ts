@@ -145,3 +145,22 @@ export function exclusiveSaves<S extends string>(
       }),
     );
 }
+
+/**
+ * A fit request with the study's options: flagged readings put back when asked, and the ramp leg
+ * studied (the API's default leg when none was picked).
+ */
+export function studyRequest(
+  request: FitRequest,
+  includeFlagged: boolean,
+  leg: number | 'all' | null,
+): FitRequest {
+  const flagged: FitRequest = includeFlagged ? { ...request, includeFlagged: true } : request;
+  return leg === null ? flagged : { ...flagged, leg };
+}
+
+/** The sweep studied; a call before one is loaded is a programming error. */
+export function loaded(sweepId: number | null): number {
+  if (sweepId === null) throw new Error('AnalysisStore: load a sweep first');
+  return sweepId;
+}
