@@ -16,6 +16,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { HallAnalysis } from '@rhotrace/api-types';
 import { DOPANTS } from '@rhotrace/physics';
+import { formatExponent, parseExponent } from '../../../../shared/engineering';
 import { FitCard } from '../../fit-card/fit-card';
 import { type HallDoping, isSemiconductor } from '../hall-study/hall-models';
 import { HallFitsStore } from '../hall-study/hall-fits-store';
@@ -63,10 +64,9 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
           <mat-label>Donors N_D</mat-label>
           <input
             matInput
-            type="number"
-            step="any"
-            [ngModel]="doping()?.donorDensity"
-            (ngModelChange)="set('donorDensity', $event)"
+            inputmode="decimal"
+            [value]="asExponent(doping()?.donorDensity)"
+            (change)="set('donorDensity', readExponent($any($event.target).value))"
           />
           <span matTextSuffix>cm⁻³</span>
         </mat-form-field>
@@ -74,10 +74,9 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
           <mat-label>Acceptors N_A</mat-label>
           <input
             matInput
-            type="number"
-            step="any"
-            [ngModel]="doping()?.acceptorDensity"
-            (ngModelChange)="set('acceptorDensity', $event)"
+            inputmode="decimal"
+            [value]="asExponent(doping()?.acceptorDensity)"
+            (change)="set('acceptorDensity', readExponent($any($event.target).value))"
           />
           <span matTextSuffix>cm⁻³</span>
         </mat-form-field>
@@ -179,6 +178,10 @@ export class HallDensityFit {
       });
     });
   }
+
+  /** Densities read and written as a lab notebook writes them (`9.94e14`). */
+  protected readonly asExponent = formatExponent;
+  protected readonly readExponent = parseExponent;
 
   protected set(key: Free, value: number | null): void {
     const d = this.doping();
