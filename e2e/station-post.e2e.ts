@@ -63,7 +63,8 @@ describe('a probe station posts its own sweep', () => {
     expect(await seriousViolations(page)).toEqual([]);
     await screenshot(page, 'station-tokens');
     await page.getByRole('button', { name: 'I have stored it' }).click();
-    await expect(page.getByText(token).count()).resolves.toBe(0);
+    // Shown once: gone from the page as soon as it is put away.
+    await page.getByText(token).waitFor({ state: 'detached' });
 
     // the manager assigns a wafer with this station, then the station computer posts
     const wafers = await apiGet<{ items: Array<{ id: number }> }>(

@@ -84,7 +84,7 @@ describe('the wafer map view', () => {
     await page.getByRole('heading', { name: 'Wafer map' }).scrollIntoViewIfNeeded();
     await sites.first().focus();
     const readout = page.locator('figcaption.readout');
-    await expect(readout.textContent()).resolves.toMatch(/^Site 1 /);
+    await readout.filter({ hasText: /^Site 1 / }).waitFor();
     await page.keyboard.press('ArrowRight');
     await readout.filter({ hasText: /^Site 2 / }).waitFor();
     await page.keyboard.press('ArrowRight');
@@ -97,7 +97,7 @@ describe('the wafer map view', () => {
       page.evaluate(() => document.activeElement?.getAttribute('aria-label')),
     ).resolves.toBe(text);
     await page.keyboard.press('End');
-    await expect(readout.textContent()).resolves.toMatch(/^Site 25 /);
+    await readout.filter({ hasText: /^Site 25 / }).waitFor();
 
     // The slider moves to the next temperature step.
     const slider = page.getByRole('slider', { name: 'Temperature step of the map' });
