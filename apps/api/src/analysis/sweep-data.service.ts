@@ -103,7 +103,7 @@ async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {
       skippedNoTemperature += 1;
     }
   }
-  // Stable sort by temperature, then recording order: readings at one temperature stay in order.
+  // Stable sort by temperature, then by the order the readings were taken.
   usable.sort((a, b) => a.point.temperatureK - b.point.temperatureK || a.sequence - b.sequence);
   skippedK.sort((a, b) => a - b);
   return readingsCache.remember(sweep, {
