@@ -80,7 +80,7 @@ describe('a physicist studies a Hall sweep', () => {
     await density
       .getByRole('article', { name: /Hall carrier density .*\(preview\)/ })
       .waitFor({ timeout: 60_000 });
-    await density.getByRole('button', { name: 'Keep fit' }).click();
+    await density.getByRole('button', { name: 'Keep this fit' }).click();
     await density
       .getByRole('article', { name: /Hall carrier density .*\(fit \d+\)/ })
       .waitFor({ timeout: 30_000 });
@@ -90,7 +90,7 @@ describe('a physicist studies a Hall sweep', () => {
     await mobility
       .getByRole('article', { name: /Hall mobility .*\(preview\)/ })
       .waitFor({ timeout: 30_000 });
-    await mobility.getByRole('button', { name: 'Keep fit' }).click();
+    await mobility.getByRole('button', { name: 'Keep this fit' }).click();
     await mobility
       .getByRole('article', { name: /Hall mobility .*\(fit \d+\)/ })
       .waitFor({ timeout: 30_000 });
