@@ -67,4 +67,40 @@ describe('Compare (overlay)', () => {
     expect(el.querySelector('rt-plot')).toBe(plotBefore);
     expect(TestBed.inject(Router).url).toContain('sweeps=4,9,12');
   });
+
+  it('lists the Hall sweeps drawn with their values at 300 K, units and uncertainties', async () => {
+    const answer = answerFor([4, 9]);
+    answer.curves[1]!.hall = {
+      sweepId: 9,
+      carrierType: 'p',
+      carrierDensityAt300KCm3: 2.5e16,
+      hallMobilityAt300KCm2PerVs: 310,
+      hallFactor: 1,
+      carrierDensityAt300KUncertaintyCm3: 4e14,
+      hallMobilityAt300KUncertaintyCm2PerVs: 6.2,
+    };
+    TestBed.configureTestingModule({
+      imports: [Compare],
+      providers: [
+        provideRouter([]),
+        { provide: PlotlyLoader, useValue: { load: () => new Promise(() => undefined) } },
+        {
+          provide: CompareApi,
+          useValue: { lots: () => of([]), sweepsOfLots: () => of([]), compare: () => of(answer) },
+        },
+      ],
+    });
+    const fixture = TestBed.createComponent(Compare);
+    fixture.componentRef.setInput('sweeps', '4,9');
+    await settle(fixture);
+    const list = (fixture.nativeElement as HTMLElement).querySelector(
+      '[aria-label="Hall sweeps at 300 K"]',
+    );
+    const items = [...(list?.querySelectorAll('li') ?? [])].map((li) =>
+      li.textContent!.replace(/\s+/g, ' ').trim(),
+    );
+    expect(items).toEqual([
+      'L-1 · Wafer 01: p-type · n = 2.500 × 10¹⁶ ± 4.0 × 10¹⁴ cm⁻³ · µ_H = 310 ± 6.2 cm²/(V s) (r_H = 1)',
+    ]);
+  });
 });
