@@ -52,6 +52,12 @@ export class IsoDateAdapter extends NativeDateAdapter {
     return dayFromIso(value) ?? this.invalid();
   }
 
+  /** A stored day (YYYY-MM-DD) is that local day, not UTC midnight (a day early west of UTC). */
+  override deserialize(value: unknown): Date | null {
+    if (typeof value === 'string' && ISO_DAY.test(value)) return dayFromIso(value);
+    return super.deserialize(value);
+  }
+
   override format(date: Date, displayFormat: object | string): string {
     if (displayFormat === ISO_DAY_FORMAT) return isoFromDay(date);
     return super.format(date, displayFormat);

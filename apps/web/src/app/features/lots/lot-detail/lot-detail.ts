@@ -29,7 +29,8 @@ import { Downloader, safeName } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { above, fieldError } from '../../../shared/field-error';
 import { formatDay } from '../../../shared/format';
-import { FormatValuePipe } from '../../../shared/format-value';
+import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
+import { LengthInput } from '../../../shared/length-input';
 import { Plot } from '../../../shared/plot/plot';
 import { SpecVerdictBadge } from '../../../shared/spec-verdict';
 import { methodWords, ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
@@ -59,6 +60,8 @@ import { LotMaps } from '../../maps/lot-maps/lot-maps';
     ReactiveFormsModule,
     RouterLink,
     FormatValuePipe,
+    FormatLengthPipe,
+    LengthInput,
     Plot,
     EstimateNote,
     SpecVerdictBadge,
