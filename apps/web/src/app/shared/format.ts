@@ -78,6 +78,24 @@ export function alsoShownText(key: string, value: number | null | undefined, dig
   return also ? ` (${formatValue(also.value, digits)} ${also.unit})` : '';
 }
 
+/**
+ * A fitted value with its standard error, then the same in the parameter's second unit where it
+ * has one: "0.00393 ± 2.1 × 10⁻⁵ (3930 ± 21 ppm/K)" for a TCR, "0.045 ± 0.002" for an energy.
+ */
+export function parameterValueText(
+  key: string,
+  value: number,
+  standardError: number | null | undefined,
+): string {
+  const hasError = standardError !== null && standardError !== undefined;
+  const main = `${formatValue(value, 4)}${hasError ? ` ± ${formatValue(standardError, 2)}` : ''}`;
+  const also = alsoShownIn(key, value);
+  if (!also) return main;
+  const alsoError = hasError ? alsoShownIn(key, standardError)?.value : undefined;
+  const error = alsoError === undefined ? '' : ` ± ${formatValue(alsoError, 2)}`;
+  return `${main} (${formatValue(also.value, 4)}${error} ${also.unit})`;
+}
+
 /** Today's date as YYYY-MM-DD in local time. */
 export function todayLocal(): string {
   const d = new Date();
