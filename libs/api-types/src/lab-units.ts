@@ -22,6 +22,7 @@ export const LENGTH_UNIT_OF: Readonly<Record<string, LengthUnit>> = {
   tipRadiusCm: 'µm',
   diameterCm: 'mm',
   probeSpacingCm: 'mm',
+  probeSpacingToleranceCm: 'mm',
   spacingCm: 'mm',
   barLengthCm: 'mm',
   barWidthCm: 'mm',
