@@ -1,9 +1,12 @@
 import { randomUUID } from 'node:crypto';
+import type { Express } from 'express';
 import { pino } from 'pino';
 import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createApp } from '../app';
 import { Assignment } from '../assignments/assignment.model';
+import { createLogger } from '../logger';
 import { openApiDocument } from '../openapi/document';
 import { houseKeep } from '../ops/housekeeping';
 import { documentProblems } from '../openapi/testing/document-validator';
@@ -44,8 +47,14 @@ async function assignedWafer(station: number) {
   return { wafer, assignment };
 }
 
-function post(token: string, waferId: number, file: Buffer, key: string | null) {
-  let req = request(ctx.app).post('/api/station/sweeps').set('Authorization', `Bearer ${token}`);
+function post(
+  token: string,
+  waferId: number,
+  file: Buffer,
+  key: string | null,
+  app: Express = ctx.app,
+) {
+  let req = request(app).post('/api/station/sweeps').set('Authorization', `Bearer ${token}`);
   if (key !== null) req = req.set('Idempotency-Key', key);
   return req
     .field('waferId', String(waferId))
@@ -312,5 +321,24 @@ describe('POST /api/station/sweeps', () => {
     expect(statuses.slice(0, PER_MINUTE).every((s) => s === 400)).toBe(true);
     expect(statuses[PER_MINUTE]).toBe(429);
     expect(Number(retryAfter)).toBeGreaterThan(0);
+  });
+
+  it('counts one token against one limit across API instances', async () => {
+    // A second instance over the same database, as behind a load balancer: the limit is the
+    // token's, not each process's.
+    const second = createApp({
+      config: ctx.config,
+      sequelize: ctx.sequelize,
+      mailer: ctx.mailer,
+      logger: createLogger('silent'),
+    });
+    const { token: shared } = await makeToken(stationId, 'two instances');
+    const statuses: number[] = [];
+    for (let i = 0; i <= PER_MINUTE; i += 1) {
+      const res = await post(shared, 1, Buffer.from('x'), null, i % 2 ? second : ctx.app);
+      statuses.push(res.status);
+    }
+    expect(statuses.slice(0, PER_MINUTE).every((s) => s === 400)).toBe(true);
+    expect(statuses[PER_MINUTE]).toBe(429);
   });
 });

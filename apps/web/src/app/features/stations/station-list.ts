@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDatepickerModule } from '@angular/material/datepicker';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -12,7 +13,9 @@ import { Session } from '../../core/auth/session';
 import { Confirmer } from '../../shared/confirm-dialog';
 import { above, fieldError } from '../../shared/field-error';
 import { formatDay } from '../../shared/format';
-import { FormatValuePipe } from '../../shared/format-value';
+import { FormatLengthPipe } from '../../shared/format-value';
+import { dayFromIso, isoDayOrNull } from '../../shared/iso-date';
+import { LengthInput } from '../../shared/length-input';
 import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
 import { StationTokens } from './station-tokens/station-tokens';
@@ -30,7 +33,9 @@ import { RecordHistory } from '../../shared/record-history/record-history';
     MatInputModule,
     MatSelectModule,
     ReactiveFormsModule,
-    FormatValuePipe,
+    FormatLengthPipe,
+    LengthInput,
+    MatDatepickerModule,
     ListEditor,
     StationTokens,
   ],
@@ -76,7 +81,7 @@ export class StationList {
     rtdR0Ohm: this.fb.control<number | null>(null, above(0)),
     minTemperatureK: this.fb.control<number | null>(77, [Validators.required, above(0)]),
     maxTemperatureK: this.fb.control<number | null>(500, [Validators.required, above(0)]),
-    calibratedOn: this.fb.control<string | null>(null),
+    calibratedOn: this.fb.control<Date | null>(null),
     notes: this.fb.control<string | null>(null),
   });
   protected readonly session = new EditSession<number>(this.form);
@@ -105,7 +110,10 @@ export class StationList {
 
   protected edit(s: StationDto): void {
     const { id: _i, createdAt: _c, updatedAt: _u, ...values } = s;
-    this.form.setValue({ ...values, calibratedOn: values.calibratedOn?.slice(0, 10) ?? null });
+    this.form.setValue({
+      ...values,
+      calibratedOn: values.calibratedOn ? dayFromIso(values.calibratedOn.slice(0, 10)) : null,
+    });
     this.session.start(s.id);
   }
 
@@ -117,7 +125,7 @@ export class StationList {
       minTemperatureK: v.minTemperatureK!,
       maxTemperatureK: v.maxTemperatureK!,
       rtdR0Ohm: v.thermometer === 'platinum-rtd' ? v.rtdR0Ohm : null,
-      calibratedOn: v.calibratedOn || null,
+      calibratedOn: isoDayOrNull(v.calibratedOn),
       notes: v.notes || null,
     };
     const target = this.session.editing();

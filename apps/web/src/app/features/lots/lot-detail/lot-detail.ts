@@ -29,8 +29,9 @@ import { Downloader, safeName } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { above, fieldError } from '../../../shared/field-error';
 import { formatDay } from '../../../shared/format';
-import { FormatValuePipe } from '../../../shared/format-value';
+import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
 import { HALL_AT_300K_NOTE, HallAt300KLine } from '../../../shared/hall-at-300k';
+import { LengthInput } from '../../../shared/length-input';
 import { Plot } from '../../../shared/plot/plot';
 import { SpecVerdictBadge } from '../../../shared/spec-verdict';
 import { methodWords, ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
@@ -60,6 +61,8 @@ import { LotMaps } from '../../maps/lot-maps/lot-maps';
     ReactiveFormsModule,
     RouterLink,
     FormatValuePipe,
+    FormatLengthPipe,
+    LengthInput,
     Plot,
     EstimateNote,
     SpecVerdictBadge,

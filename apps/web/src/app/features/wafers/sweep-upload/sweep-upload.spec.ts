@@ -233,7 +233,8 @@ describe('SweepUpload', () => {
       const thickness = (fixture.nativeElement as HTMLElement).querySelector(
         '.geo input',
       ) as HTMLInputElement;
-      thickness.value = '0.0525';
+      // Typed in µm: 525 µm is 0.0525 cm as the API reads it (1 cm = 10⁴ µm, SI).
+      thickness.value = '525';
       thickness.dispatchEvent(new Event('change'));
       const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
       expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.0525');
