@@ -8,11 +8,15 @@ import { vanDerPauw } from './van-der-pauw';
  * of a sheet of R_s sets the potential -(R_s I / pi) ln r (van der Pauw 1958, the half-plane
  * from which his theorem is conformally mapped).
  */
-function halfPlaneOhm(rsOhmSq: number, x: Record<string, number>, [a, b, c, d]: string[]) {
+function halfPlaneOhm(
+  rsOhmSq: number,
+  x: Record<string, number>,
+  [a, b, c, d]: [string, string, string, string],
+) {
   const v = (at: string) =>
     (-rsOhmSq / Math.PI) *
     (Math.log(Math.abs(x[at]! - x[a]!)) - Math.log(Math.abs(x[at]! - x[b]!)));
-  return v(c!) - v(d!);
+  return v(c) - v(d);
 }
 
 describe('reciprocityDifference', () => {
