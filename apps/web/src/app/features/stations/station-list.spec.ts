@@ -23,6 +23,12 @@ const BENCH: StationDto = {
   minTemperatureK: 77,
   maxTemperatureK: 500,
   calibratedOn: null,
+  // every field the API answers with, so editing copes with the real shape
+  calibrationDueOn: null,
+  calibrationOverdue: false,
+  sensor: { kind: 'thermocouple', type: null },
+  probeSpacingToleranceCm: null,
+  temperatureToleranceK: null,
   notes: null,
   createdAt: '2026-01-01T00:00:00.000Z',
   updatedAt: '2026-01-01T00:00:00.000Z',
