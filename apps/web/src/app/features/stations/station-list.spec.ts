@@ -10,6 +10,7 @@ import type { StationDto, StationInput } from '@rhotrace/api-types';
 import { of, throwError } from 'rxjs';
 import { Session } from '../../core/auth/session';
 import { ApiError } from '../../core/http/api-error';
+import { provideIsoDateAdapter } from '../../shared/iso-date';
 import { StationList } from './station-list';
 import { StationsApi } from './stations-api';
 
@@ -64,6 +65,7 @@ async function setup(stations?: StationDto[]) {
       { provide: StationsApi, useValue: api },
       { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       { provide: Session, useValue: { can: () => true } },
+      provideIsoDateAdapter(),
     ],
   });
   const fixture = TestBed.createComponent(StationList);
@@ -212,6 +214,28 @@ describe('StationList', () => {
     expect(api.updates[0]!.body).toMatchObject({
       rtdR0Ohm: 100,
       sensor: { kind: 'platinum-rtd', r0Ohm: 100 },
+    });
+  });
+
+  it('takes probe spacing in mm, tip radius in µm and the calibration day as YYYY-MM-DD', async () => {
+    const { api, loader } = await setup();
+    await (
+      await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit Cold bench"]' }))
+    ).click();
+    const input = (name: string) =>
+      loader.getHarness(MatInputHarness.with({ selector: `[formControlName=${name}]` }));
+    // The stored 0.1 cm is 1 mm (1 cm = 10 mm, SI).
+    expect(await (await input('probeSpacingCm')).getValue()).toBe('1');
+    await (await input('probeSpacingCm')).setValue('1.59');
+    await (await input('tipRadiusCm')).setValue('40');
+    await (await input('calibratedOn')).setValue('2026-12-05');
+    await (await input('calibratedOn')).blur();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    // 1.59 mm is 0.159 cm and 40 µm is 0.004 cm (1 cm = 10 mm = 10⁴ µm, SI).
+    expect(api.updates[0]?.body).toMatchObject({
+      probeSpacingCm: 0.159,
+      tipRadiusCm: 0.004,
+      calibratedOn: '2026-12-05',
     });
   });
 });

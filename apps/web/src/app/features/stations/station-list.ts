@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDatepickerModule } from '@angular/material/datepicker';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -18,7 +19,9 @@ import { Session } from '../../core/auth/session';
 import { Confirmer } from '../../shared/confirm-dialog';
 import { above, fieldError } from '../../shared/field-error';
 import { formatDay } from '../../shared/format';
-import { FormatValuePipe } from '../../shared/format-value';
+import { FormatLengthPipe } from '../../shared/format-value';
+import { dayFromIso, isoDayOrNull } from '../../shared/iso-date';
+import { LengthInput } from '../../shared/length-input';
 import { EditSession } from '../../shared/list-editor/edit-session';
 import { ListEditor } from '../../shared/list-editor/list-editor';
 import { StationTokens } from './station-tokens/station-tokens';
@@ -44,7 +47,9 @@ import { RecordHistory } from '../../shared/record-history/record-history';
     MatInputModule,
     MatSelectModule,
     ReactiveFormsModule,
-    FormatValuePipe,
+    FormatLengthPipe,
+    LengthInput,
+    MatDatepickerModule,
     ListEditor,
     StationTokens,
   ],
@@ -98,7 +103,7 @@ export class StationList {
     sensor: sensorGroup(this.fb),
     minTemperatureK: this.fb.control<number | null>(77, [Validators.required, above(0)]),
     maxTemperatureK: this.fb.control<number | null>(500, [Validators.required, above(0)]),
-    calibratedOn: this.fb.control<string | null>(null),
+    calibratedOn: this.fb.control<Date | null>(null),
     notes: this.fb.control<string | null>(null),
   });
   protected readonly session = new EditSession<number>(this.form);
@@ -141,7 +146,7 @@ export class StationList {
       sensor: sensorFormValues(s),
       minTemperatureK: s.minTemperatureK,
       maxTemperatureK: s.maxTemperatureK,
-      calibratedOn: s.calibratedOn?.slice(0, 10) ?? null,
+      calibratedOn: s.calibratedOn ? dayFromIso(s.calibratedOn.slice(0, 10)) : null,
       notes: s.notes,
     });
     this.session.start(s.id);
@@ -156,7 +161,7 @@ export class StationList {
       maxTemperatureK: v.maxTemperatureK!,
       rtdR0Ohm: v.thermometer === 'platinum-rtd' ? sensor.r0Ohm : null,
       sensor: sensorOf(v.thermometer, sensor),
-      calibratedOn: v.calibratedOn || null,
+      calibratedOn: isoDayOrNull(v.calibratedOn),
       notes: v.notes || null,
     };
     const target = this.session.editing();
