@@ -290,6 +290,11 @@ describe('Hall fits', () => {
     expect(h.carrierType).toBe('n');
     expect(h.carrierDensityAt300KCm3! / truthElectronsCm3(300)).toBeCloseTo(1, 1);
     expect(h.hallMobilityAt300KCm2PerVs! / truthMobility(300)).toBeCloseTo(1, 1);
+    // Two readings a step: the scatter gives each value a standard uncertainty (type A).
+    expect(h.carrierDensityAt300KUncertaintyCm3! / h.carrierDensityAt300KCm3!).toBeGreaterThan(0);
+    expect(h.hallMobilityAt300KUncertaintyCm2PerVs! / h.hallMobilityAt300KCm2PerVs!).toBeLessThan(
+      0.1,
+    );
     const wafer = await Wafer.findByPk((await Sweep.findByPk(sweepId))!.waferId);
     const summary = (await get(`/api/lots/${wafer!.lotId}/summary`)).body as LotSummaryResponse;
     expect(summary.wafers[0]!.hall!.sweepId).toBe(sweepId);

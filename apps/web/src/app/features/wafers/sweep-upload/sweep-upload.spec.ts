@@ -296,6 +296,54 @@ describe('SweepUpload', () => {
     },
   );
 
+  it(
+    'asks a Hall file for its Hall factor, states the assumption and sends the choice',
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['x'], 'hall.csv')]);
+      await fixture.whenStable();
+      const hallFile: SweepPreviewResponse = { ...READY, suggestedMethod: 'hall', method: 'hall' };
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(hallFile);
+      await fixture.whenStable();
+      const host = fixture.nativeElement as HTMLElement;
+      const group = '[aria-label="Hall factor of hall.csv"]';
+      const factor = await loader.getHarness(
+        MatSelectHarness.with({ selector: `${group} mat-select` }),
+      );
+      // None chosen: the API's default, 1 (degenerate).
+      expect(await factor.getValueText()).toBe('Degenerate or strong field (1.000)');
+      expect(host.textContent).toContain('n = r_H / (q |R_H|)');
+      // 3 pi / 8 = 1.178 (Blakemore 1962), from the physics library's constant.
+      await factor.open();
+      await factor.clickOptions({ text: 'Acoustic phonons, 3π/8 (1.178)' });
+      const named = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((named.request.body as FormData).get('hallFactor')).toBe('acoustic-phonon');
+      named.flush(hallFile);
+      await fixture.whenStable();
+
+      await factor.open();
+      await factor.clickOptions({ text: 'Another value' });
+      const typed = host.querySelector(`${group} input`) as HTMLInputElement;
+      typed.value = '4';
+      typed.dispatchEvent(new Event('change'));
+      await fixture.whenStable();
+      expect(host.textContent).toContain('r_H must be a number from 0.5 to 3');
+      const unset = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((unset.request.body as FormData).get('hallFactor')).toBeNull();
+      unset.flush(hallFile);
+      typed.value = '1.25';
+      typed.dispatchEvent(new Event('change'));
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(hallFile);
+      await fixture.whenStable();
+
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      const stored = backend.expectOne('/api/wafers/7/sweeps').request.body as FormData;
+      expect(stored.get('method')).toBe('hall');
+      expect(stored.get('hallFactor')).toBe('1.25');
+    },
+  );
+
   it("shows the header's disagreements and lets the user choose before storing", async () => {
     const { fixture, loader, backend, input } = await setup();
     choose(input, [new File(['x'], 'w03.csv')]);

@@ -28,6 +28,7 @@ import {
 } from './column-units';
 import type { SweepLayoutChoice } from '../wafers-api';
 import type { UploadItem } from './upload-item';
+import { UploadHallFields } from './upload-hall-fields';
 import { UploadMapFields } from './upload-map-fields';
 import { UploadStore } from './upload-store';
 
@@ -63,6 +64,7 @@ const SOURCE_WORDS: Record<string, string> = {
     MatProgressBarModule,
     MatRadioModule,
     UploadMapFields,
+    UploadHallFields,
   ],
   templateUrl: './upload-file.html',
   styleUrl: './sweep-upload.scss',
