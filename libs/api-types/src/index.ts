@@ -26,6 +26,7 @@ export type {
   SuggestedWindow,
   SpecCheckDto,
   SweepAnalysisResponse,
+  FlaggedReadingDto,
   LegDto,
   DopantDensityResponse,
 } from './analysis';

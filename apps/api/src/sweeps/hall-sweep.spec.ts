@@ -136,6 +136,26 @@ describe('Hall import', () => {
   });
 });
 
+describe('Hall analysis of one leg', () => {
+  it('keeps the Hall quantities of the picked leg (a multi-leg sweep had none)', async () => {
+    // Bug: picking one leg rebuilt its points from T and rho only, so `hall` disappeared.
+    const up = Array.from({ length: 8 }, (_, k) => 250 + 10 * k);
+    const res = await upload(
+      hallSweepCsv({ temperaturesK: [...up, ...up.slice(0, -1).reverse()] }),
+    );
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const get = (query: string) =>
+      request(ctx.app)
+        .get(`/api/sweeps/${res.body.id}/analysis${query}`)
+        .set(ctx.auth('physicist'));
+    const first = (await get('')).body as SweepAnalysisResponse;
+    expect(first.legs!.map((l) => l.direction)).toEqual(['up', 'down']);
+    expect(first.leg).toBe(1);
+    expect(first.hall!.steps).toHaveLength(8);
+    expect(((await get('?leg=2')).body as SweepAnalysisResponse).hall!.steps).toHaveLength(7);
+  });
+});
+
 describe('Hall import refuses bad input and stores nothing', () => {
   const head = 'T (K),R_A (ohm),R_B (ohm),I (mA),B (T),V_H (mV)';
   const cases: Array<[string, string, Record<string, string>, number, RegExp]> = [

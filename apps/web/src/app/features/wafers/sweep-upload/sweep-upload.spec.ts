@@ -126,6 +126,22 @@ describe('SweepUpload', () => {
     expect(await store.isDisabled()).toBe(true);
   });
 
+  it('states which temperature conversion the store will use, or why there is none yet', async () => {
+    const { fixture, backend, input } = await setup();
+    const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
+    choose(input, [new File(['a'], 'tc.csv'), new File(['b'], 'rtd.csv')]);
+    await fixture.whenStable();
+    const [tc, rtd] = backend.match('/api/wafers/7/sweeps/preview');
+    const description =
+      'type K thermocouple (file), ITS-90 reference function (NIST Monograph 175), cold junction at 23.40 °C (file metadata)';
+    tc!.flush({ ...READY, temperature: { kind: 'thermocouple', description } });
+    const note = '"T (ohm)" holds ohms: choose a station with a platinum RTD or a table';
+    rtd!.flush({ ...PREVIEW, temperature: null, temperatureNote: note });
+    await fixture.whenStable();
+    expect(text()).toContain(`Temperatures: ${description}.`);
+    expect(text()).toContain(`Temperatures cannot be converted yet: ${note}`);
+  });
+
   // many harness steps: a loaded two-core machine needs more than the default 5 s
   it(
     'gives each file its own method, station and mapping, checked again after each change',

@@ -115,6 +115,13 @@ export class UploadFile {
       .join(' · ');
   }
 
+  /** How the temperature column will be converted, or why it cannot be yet, in words. */
+  protected temperatureWords(): string {
+    const p = this.item().preview;
+    if (p?.temperature) return `Temperatures: ${p.temperature.description}.`;
+    return p?.temperatureNote ? `Temperatures cannot be converted yet: ${p.temperatureNote}` : '';
+  }
+
   /** What the server would use for a geometry value left empty, in words. */
   protected geometryHint(key: keyof SweepGeometryInput): string {
     const g = this.item().preview?.geometry;
