@@ -10,6 +10,11 @@ export interface LeastSquaresProblem {
   /** Residual vector at p; may return non-finite values where p is infeasible (step rejected). */
   residuals: (p: readonly number[]) => ArrayLike<number>;
   initial: readonly number[];
+  /**
+   * The Jacobian of the residuals at p, m x k as k columns (null where it cannot be evaluated);
+   * default forward differences of `residuals`.
+   */
+  jacobian?: ((p: readonly number[]) => Float64Array[] | null) | undefined;
   maxIterations?: number;
   /** Converged when the relative fall of the sum of squares in an accepted step is below this. */
   costTolerance?: number;
@@ -36,12 +41,16 @@ function sumSquares(r: ArrayLike<number>): number {
   return Number.isFinite(s) ? s : Number.POSITIVE_INFINITY;
 }
 
-/** Forward-difference Jacobian, m x k, column-major as k arrays. */
+/** The problem's Jacobian, else forward differences; m x k, column-major as k arrays. */
 function jacobian(
   problem: LeastSquaresProblem,
   p: number[],
   r0: ArrayLike<number>,
 ): Float64Array[] | null {
+  if (problem.jacobian) {
+    const given = problem.jacobian(p);
+    return given?.every((col) => col.every(Number.isFinite)) ? given : null;
+  }
   const cols: Float64Array[] = [];
   for (let j = 0; j < p.length; j++) {
     const h = 1e-7 * Math.max(Math.abs(p[j]!), 1e-2);

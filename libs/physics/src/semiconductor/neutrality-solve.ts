@@ -61,9 +61,11 @@ export class NeutralityFunction {
   private readonly lnFreeA: number;
   private readonly lnBD: number;
   private readonly lnBA: number;
+  private readonly kT: number;
 
   constructor(terms: TemperatureTerms, doping: ResolvedDoping) {
     const { kT, epsG, lnNc, lnNv } = terms;
+    this.kT = kT;
     this.lnNv = lnNv;
     this.lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
     this.lnNa =
@@ -129,6 +131,55 @@ export class NeutralityFunction {
     out.slope = du - dv;
     return u - v;
   }
+
+  /**
+   * The partial derivatives of g at eta (for the implicit-function derivative of the root,
+   * d eta / dx = -(dg/dx) / (dg/d eta)). With F_D = (1 - b_D) + b_D / (1 + e^s) and
+   * U = ln(p + N_D F_D): dU/dN_D = F_D / (p + N_D^+), dU/db_D = -(N_D^+ / (p + N_D^+))
+   * logistic(s) / F_D, dU/dE_d = (N_D^+ / (p + N_D^+)) (d ln F_D / ds) / kT; the acceptor
+   * terms likewise with the opposite sign (g = U - V) and s = ln g_A + (E_a - E_F) / kT.
+   */
+  partials(eta: number, out: NeutralityPartials): void {
+    const lnP = this.lnNv - eta;
+    const lnN = this.lnNcMinusG + eta;
+    // The donor side: ln F_D, d ln F_D / ds and logistic(s) at s = donorShift + eta.
+    const sD = this.donorShift + eta;
+    const logisticD = logisticComplement(-sD);
+    const boundD = this.lnBD - softplus(sD);
+    const lnFD = this.donorsFull ? 0 : logAddExp(this.lnFreeD, boundD);
+    const dLnFD = this.donorsFull ? 0 : -Math.exp(boundD - lnFD) * logisticD;
+    const lnDp = this.lnNd + lnFD;
+    const sA = this.acceptorShift - eta;
+    const logisticA = logisticComplement(-sA);
+    const boundA = this.lnBA - softplus(sA);
+    const lnFA = this.acceptorsFull ? 0 : logAddExp(this.lnFreeA, boundA);
+    const dLnFA = this.acceptorsFull ? 0 : -Math.exp(boundA - lnFA) * logisticA;
+    const lnAm = this.lnNa + lnFA;
+    const u = logAddExp(lnP, lnDp);
+    const v = logAddExp(lnN, lnAm);
+    const shareD = Math.exp(lnDp - u);
+    const shareA = Math.exp(lnAm - v);
+    out.eta = -Math.exp(lnP - u) + shareD * dLnFD - Math.exp(lnN - v) + shareA * dLnFA;
+    out.donorDensity = Math.exp(lnFD - u);
+    out.acceptorDensity = -Math.exp(lnFA - v);
+    out.donorLevelEv = (shareD * dLnFD) / this.kT;
+    out.acceptorLevelEv = (-shareA * dLnFA) / this.kT;
+    out.donorBoundFraction = -shareD * logisticD * Math.exp(-lnFD);
+    out.acceptorBoundFraction = shareA * logisticA * Math.exp(-lnFA);
+  }
+}
+
+/** @internal Partial derivatives of the neutrality function g (see `NeutralityFunction`). */
+export interface NeutralityPartials {
+  eta: number;
+  /** Per cm^-3. */
+  donorDensity: number;
+  acceptorDensity: number;
+  /** Per eV. */
+  donorLevelEv: number;
+  acceptorLevelEv: number;
+  donorBoundFraction: number;
+  acceptorBoundFraction: number;
 }
 
 /** @internal Builds g(eta) and g'(eta) for one doping at one temperature. */
