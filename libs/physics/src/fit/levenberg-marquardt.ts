@@ -90,14 +90,28 @@ function normalEquations(
   return { a, g };
 }
 
+/** The fall of the sum of squares the linearised model predicts for a step: -2 g.d - d.A.d. */
+function predictedFall(a: number[][], g: number[], delta: number[]): number {
+  let fall = 0;
+  for (let i = 0; i < delta.length; i++) {
+    let ad = 0;
+    for (let j = 0; j < delta.length; j++) ad += a[i]![j]! * delta[j]!;
+    fall -= delta[i]! * (2 * g[i]! + ad);
+  }
+  return fall;
+}
+
 /**
  * Minimizes the sum of squared residuals by Levenberg–Marquardt with Marquardt's diagonal
  * scaling: solve (J^T J + lambda diag(J^T J)) delta = -J^T r, accept the step when the sum of
  * squares falls (lambda / 3), otherwise retry with lambda * 4.
  * Convergence is reported only when an accepted step changes the sum of squares by less than
- * `costTolerance` (relative) or the parameters by less than `stepTolerance`, or the gradient
- * vanishes; hitting the iteration cap, a damping overflow or a model that cannot be evaluated is
- * reported as not converged with the reason. Defaults in `PHYSICS_DEFAULTS` (fitMaxIterations,
+ * `costTolerance` (relative) or the parameters by less than `stepTolerance`, when a rejected
+ * step raises it by less than `costTolerance` while the linearised model predicts no larger
+ * fall (J. J. Moré, The Levenberg–Marquardt algorithm: implementation and theory, Lecture
+ * Notes in Mathematics 630 (1978), the ftol test), or when the gradient vanishes; hitting the
+ * iteration cap, a damping overflow or a model that cannot be evaluated is reported as not
+ * converged with the reason. Defaults in `PHYSICS_DEFAULTS` (fitMaxIterations,
  * fitCostTolerance, fitStepTolerance).
  * Source: K. Levenberg, Q. Appl. Math. 2, 164 (1944); D. W. Marquardt, J. SIAM 11, 431 (1963).
  */
@@ -158,6 +172,12 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
           if (smallStep) return finish(iter, true, 'parameter step below tolerance');
           continue;
         }
+        // At the minimum a step can only trade rounding: when the rise is below the tolerance and
+        // so is the fall the linearised model predicts for the step, no step can lower the sum of
+        // squares by more (MINPACK's ftol test; Moré 1978). Without it the damping climbs over
+        // many rejected steps until one falls by rounding luck.
+        if (iter > 1 && cq - cost <= costTol * cost && predictedFall(a, g, delta) <= costTol * cost)
+          return finish(iter, true, 'relative change of the sum of squares below tolerance');
       }
       lambda *= 4;
       if (lambda > 1e16) {

@@ -14,6 +14,7 @@ import { requireSemiconductor } from '../semiconductor/material';
 import type { ResistivityOptions } from '../semiconductor/resistivity';
 import { curveTerms, resolveModel } from '../semiconductor/resistivity';
 import { lnResistivityAt } from '../semiconductor/resistivity-gradient';
+import { dopingLogs } from '../semiconductor/neutrality-solve';
 import type { FitResult, ParameterScale } from './fit-result';
 import { FIT_PARAMETER_WORDS, parameterWords } from './fit-result';
 import { readPoints } from './points';
@@ -153,16 +154,18 @@ export function fitModel(
   };
   const resolveUnchecked = (q: readonly number[]): ResolvedParameters => {
     const v = unpack(q);
+    const doping = ionizeDoping(
+      m,
+      ionization,
+      v.donorDensity,
+      v.acceptorDensity,
+      v.donorLevel,
+      v.acceptorLevel,
+    );
     return {
-      doping: ionizeDoping(
-        m,
-        ionization,
-        v.donorDensity,
-        v.acceptorDensity,
-        v.donorLevel,
-        v.acceptorLevel,
-      ),
+      doping,
       model: { ...model, mobilityScale: v.mobilityScale },
+      logs: dopingLogs(doping),
     };
   };
   const resolve = (q: readonly number[]): ResolvedParameters | null => {
@@ -185,7 +188,7 @@ export function fitModel(
     const out = { lnResistivity: 0, eta: 0 };
     return (t) => {
       const at = curveAt(t);
-      lnResistivityAt(r.model, r.doping, at.terms, at.eta, out);
+      lnResistivityAt(r.model, r.doping, at.terms, at.eta, out, r.logs);
       at.eta = out.eta;
       return out.lnResistivity;
     };

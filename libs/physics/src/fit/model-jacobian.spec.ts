@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ionizeDoping } from '../semiconductor/dopants';
+import { dopingLogs } from '../semiconductor/neutrality-solve';
 import { curveTerms, resolveModel } from '../semiconductor/resistivity';
 import { lnResistivityAt } from '../semiconductor/resistivity-gradient';
 import type { CurveAt, ResolvedParameters } from './model-jacobian';
@@ -9,17 +10,15 @@ import { lnModelGradient } from './model-jacobian';
 // the density-dependent level (Pearson–Bardeen), so the chain rule runs through ionizeDoping.
 const model = resolveModel('test', 'Si', undefined);
 function resolve(q: readonly number[]): ResolvedParameters {
-  return {
-    doping: ionizeDoping(
-      'Si',
-      'pearson-bardeen-1949',
-      Math.exp(q[0]!),
-      Math.exp(q[1]!),
-      q[2]!,
-      0.045,
-    ),
-    model: { ...model, mobilityScale: Math.exp(q[3]!) },
-  };
+  const doping = ionizeDoping(
+    'Si',
+    'pearson-bardeen-1949',
+    Math.exp(q[0]!),
+    Math.exp(q[1]!),
+    q[2]!,
+    0.045,
+  );
+  return { doping, model: { ...model, mobilityScale: Math.exp(q[3]!) }, logs: dopingLogs(doping) };
 }
 function lnRhoAt(q: readonly number[], t: number): number {
   const r = resolve(q);

@@ -3,6 +3,7 @@
  * solve per temperature instead of one per coordinate.
  */
 import type { ResolvedDoping } from '../semiconductor/dopants';
+import type { DopingLogs } from '../semiconductor/neutrality-solve';
 import type { CurveTerms, ResolvedModel } from '../semiconductor/resistivity';
 import type { LnResistivityGradient } from '../semiconductor/resistivity-gradient';
 import { lnResistivityGradientAt } from '../semiconductor/resistivity-gradient';
@@ -11,6 +12,8 @@ import { lnResistivityGradientAt } from '../semiconductor/resistivity-gradient';
 export interface ResolvedParameters {
   doping: ResolvedDoping;
   model: ResolvedModel;
+  /** The doping's logarithms, taken once for every temperature. */
+  logs: DopingLogs;
 }
 
 /** @internal A temperature's shared terms and the last root found there (a warm start). */
@@ -74,7 +77,7 @@ export function lnModelGradient(
   };
   return (temperatureK, gradient) => {
     const curve = curveAt(temperatureK);
-    lnResistivityGradientAt(base.model, base.doping, curve.terms, curve.eta, at);
+    lnResistivityGradientAt(base.model, base.doping, curve.terms, curve.eta, at, base.logs);
     curve.eta = at.eta;
     for (let j = 0; j < perCoordinate.length; j++) {
       const dx = perCoordinate[j]!;

@@ -42,6 +42,43 @@ const BRACKET_MARGIN = 80;
 const NEWTON_MAX_STEPS = 60;
 const NEWTON_STEP_TOLERANCE = 1e-8;
 
+/** @internal The logarithms of a doping that every temperature's solve shares. */
+export interface DopingLogs {
+  lnNd: number;
+  lnNa: number;
+  /** ln of the merged (always ionized) shares 1 - b and of the bound shares b. */
+  lnFreeD: number;
+  lnFreeA: number;
+  lnBD: number;
+  lnBA: number;
+  /** No bound share (b = 0): the species is fully ionized. */
+  donorsFull: boolean;
+  acceptorsFull: boolean;
+  /** ln(N_D + N_A) and ln|N_D - N_A| (-Infinity when 0). */
+  lnTotal: number;
+  lnNet: number;
+}
+
+/** @internal Takes a doping's logarithms once, for a curve or a fit's parameter set. */
+export function dopingLogs(doping: ResolvedDoping): DopingLogs {
+  const { donorDensity, acceptorDensity } = doping;
+  // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
+  const bD = donorDensity === 0 ? 0 : doping.donorBoundFraction;
+  const bA = acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
+  return {
+    lnNd: donorDensity > 0 ? Math.log(donorDensity) : Number.NEGATIVE_INFINITY,
+    lnNa: acceptorDensity > 0 ? Math.log(acceptorDensity) : Number.NEGATIVE_INFINITY,
+    lnFreeD: bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD),
+    lnFreeA: bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA),
+    lnBD: bD === 0 ? 0 : Math.log(bD),
+    lnBA: bA === 0 ? 0 : Math.log(bA),
+    donorsFull: bD === 0,
+    acceptorsFull: bA === 0,
+    lnTotal: Math.log(donorDensity + acceptorDensity),
+    lnNet: Math.log(Math.abs(donorDensity - acceptorDensity)),
+  };
+}
+
 /**
  * @internal The neutrality function g(eta) = ln(p + N_D^+) - ln(n + N_A^-), eta = E_F / kT
  * from the valence band edge, with its derivative; g falls monotonically in eta. A class, not
@@ -63,25 +100,21 @@ export class NeutralityFunction {
   private readonly lnBA: number;
   private readonly kT: number;
 
-  constructor(terms: TemperatureTerms, doping: ResolvedDoping) {
+  constructor(terms: TemperatureTerms, doping: ResolvedDoping, logs = dopingLogs(doping)) {
     const { kT, epsG, lnNc, lnNv } = terms;
     this.kT = kT;
     this.lnNv = lnNv;
-    this.lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
-    this.lnNa =
-      doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
+    this.lnNd = logs.lnNd;
+    this.lnNa = logs.lnNa;
     // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
     this.donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
     this.acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
-    // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
-    const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
-    const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
-    this.donorsFull = bD === 0;
-    this.acceptorsFull = bA === 0;
-    this.lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
-    this.lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
-    this.lnBD = this.donorsFull ? 0 : Math.log(bD);
-    this.lnBA = this.acceptorsFull ? 0 : Math.log(bA);
+    this.donorsFull = logs.donorsFull;
+    this.acceptorsFull = logs.acceptorsFull;
+    this.lnFreeD = logs.lnFreeD;
+    this.lnFreeA = logs.lnFreeA;
+    this.lnBD = logs.lnBD;
+    this.lnBA = logs.lnBA;
     this.lnNcMinusG = lnNc - epsG;
   }
 
@@ -186,8 +219,9 @@ export interface NeutralityPartials {
 export function neutralityFunction(
   terms: TemperatureTerms,
   doping: ResolvedDoping,
+  logs = dopingLogs(doping),
 ): NeutralityFunction {
-  return new NeutralityFunction(terms, doping);
+  return new NeutralityFunction(terms, doping, logs);
 }
 
 /** @internal The root eta and how it was found. */

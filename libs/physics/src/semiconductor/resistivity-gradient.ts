@@ -8,7 +8,7 @@ import { logAddExp } from '../numeric/log-math';
 import type { ResolvedDoping } from './dopants';
 import { mobilityAt, mobilitySlopeAt } from './mobility';
 import type { NeutralityPartials } from './neutrality-solve';
-import { neutralityFunction, neutralityRoot } from './neutrality-solve';
+import { dopingLogs, neutralityFunction, neutralityRoot } from './neutrality-solve';
 import type { CurveTerms, ResolvedModel } from './resistivity';
 
 /** @internal ln rho, the root eta and d ln rho / d x for each resolved quantity x. */
@@ -56,12 +56,12 @@ export function lnResistivityAt(
   terms: CurveTerms,
   guessEta: number,
   out: LnResistivity,
+  logs = dopingLogs(doping),
 ): void {
-  const g = neutralityFunction(terms.neutral, doping);
+  const g = neutralityFunction(terms.neutral, doping, logs);
   const eta = neutralityRoot(g, terms.neutral, doping, guessEta).eta;
-  const lnTotal = Math.log(doping.donorDensity + doping.acceptorDensity);
-  const muN = model.mobilityScale * mobilityAt(terms.electron, lnTotal);
-  const muP = model.mobilityScale * mobilityAt(terms.hole, lnTotal);
+  const muN = model.mobilityScale * mobilityAt(terms.electron, logs.lnTotal);
+  const muP = model.mobilityScale * mobilityAt(terms.hole, logs.lnTotal);
   const lnN = g.lnNcMinusG + eta;
   const lnP = terms.neutral.lnNv - eta;
   out.lnResistivity = -(LN_Q + logAddExp(lnN + Math.log(muN), lnP + Math.log(muP)));
@@ -82,14 +82,15 @@ export function lnResistivityGradientAt(
   terms: CurveTerms,
   guessEta: number,
   out: LnResistivityGradient,
+  logs = dopingLogs(doping),
 ): void {
-  const g = neutralityFunction(terms.neutral, doping);
+  const g = neutralityFunction(terms.neutral, doping, logs);
   const eta = neutralityRoot(g, terms.neutral, doping, guessEta).eta;
   g.partials(eta, gx);
   const lnN = g.lnNcMinusG + eta;
   const lnP = terms.neutral.lnNv - eta;
   const total = doping.donorDensity + doping.acceptorDensity;
-  const lnTotal = Math.log(total);
+  const lnTotal = logs.lnTotal;
   const muN0 = mobilityAt(terms.electron, lnTotal);
   const muP0 = mobilityAt(terms.hole, lnTotal);
   const muN = model.mobilityScale * muN0;
