@@ -5,7 +5,7 @@
 import { BOLTZMANN_EV_PER_K } from '../constants';
 import { PHYSICS_DEFAULTS } from '../defaults';
 import { brentRoot } from '../numeric/brent';
-import { logAddExp, logisticComplement, softplus } from '../numeric/log-math';
+import { logAddExp, logisticComplement, softplus, softplusWithLogistic } from '../numeric/log-math';
 import { bandGapUnchecked } from './band-gap';
 import type { DensityOfStatesSet } from './density-of-states';
 import { logDensityOfStates } from './density-of-states';
@@ -41,6 +41,8 @@ const LN_GA = Math.log(PHYSICS_DEFAULTS.acceptorDegeneracy);
 const BRACKET_MARGIN = 80;
 const NEWTON_MAX_STEPS = 60;
 const NEWTON_STEP_TOLERANCE = 1e-8;
+/** The logistic `softplusWithLogistic` returns beside softplus (the solve is synchronous). */
+const scratch = { logistic: 0 };
 
 /** @internal The logarithms of a doping that every temperature's solve shares. */
 export interface DopingLogs {
@@ -141,21 +143,21 @@ export class NeutralityFunction {
     const lnN = this.lnNcMinusG + eta;
     let lnDp = this.lnNd;
     let dLnDp = 0;
+    // With no merged share (ln(1 - b) = -Infinity) ln F is the bound term itself and
+    // e^(bound - ln F) is exactly 1: the exponential is skipped, the result is the same.
     if (!this.donorsFull) {
-      const s = this.donorShift + eta;
-      const bound = this.lnBD - softplus(s);
+      const bound = this.lnBD - softplusWithLogistic(this.donorShift + eta, scratch);
       const lnF = logAddExp(this.lnFreeD, bound);
       lnDp = this.lnNd + lnF;
-      dLnDp = -Math.exp(bound - lnF) * logisticComplement(-s);
+      dLnDp = -(lnF === bound ? 1 : Math.exp(bound - lnF)) * scratch.logistic;
     }
     let lnAm = this.lnNa;
     let dLnAm = 0;
     if (!this.acceptorsFull) {
-      const s = this.acceptorShift - eta;
-      const bound = this.lnBA - softplus(s);
+      const bound = this.lnBA - softplusWithLogistic(this.acceptorShift - eta, scratch);
       const lnF = logAddExp(this.lnFreeA, bound);
       lnAm = this.lnNa + lnF;
-      dLnAm = Math.exp(bound - lnF) * logisticComplement(-s);
+      dLnAm = (lnF === bound ? 1 : Math.exp(bound - lnF)) * scratch.logistic;
     }
     const u = logAddExp(lnP, lnDp);
     const v = logAddExp(lnN, lnAm);
