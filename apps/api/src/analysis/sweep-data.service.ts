@@ -177,17 +177,34 @@ export async function sweepFitReadings(
   return { points, excluded };
 }
 
-/** Each usable reading with its sequence, leg and whether a fit leaves it out by default. */
-export async function legReadings(
-  sweep: SweepIdentity,
-): Promise<Array<AnalysisPoint & { sequence: number; leg: number; excludable: boolean }>> {
+/** A usable reading with its sequence, leg and whether a fit leaves it out by default. */
+export type LegReading = AnalysisPoint & { sequence: number; leg: number; excludable: boolean };
+
+/** Each cached sweep's readings with their legs, built once: a cache entry never changes. */
+const legReadingsOf = new WeakMap<CachedReadings, readonly LegReading[]>();
+
+/**
+ * Each usable reading with its sequence, leg and whether a fit leaves it out by default. The
+ * list is shared by every request while the sweep is cached: read it, never change it.
+ */
+export async function legReadings(sweep: SweepIdentity): Promise<readonly LegReading[]> {
   const c = await loadReadings(sweep);
-  return c.points.map((p, i) => ({
-    ...p,
-    sequence: c.sequences[i]!,
-    leg: c.legs[i]!,
-    excludable: c.excludable[i] === 1,
-  }));
+  let list = legReadingsOf.get(c);
+  if (!list) {
+    list = c.points.map((p, i) => {
+      const r: LegReading = {
+        temperatureK: p.temperatureK,
+        resistivityOhmCm: p.resistivityOhmCm,
+        sequence: c.sequences[i]!,
+        leg: c.legs[i]!,
+        excludable: c.excludable[i] === 1,
+      };
+      if (p.quantities) r.quantities = p.quantities;
+      return r;
+    });
+    legReadingsOf.set(c, list);
+  }
+  return list;
 }
 
 /** The first index in 0..n at which `pred` holds (it must hold from some index on), or n. */

@@ -90,6 +90,9 @@ function normalEquations(
   return { a, g };
 }
 
+/** Damping below which a step is a Gauss–Newton step to within 1 % of the diagonal. */
+const NEAR_GAUSS_NEWTON = 1e-2;
+
 /** The fall of the sum of squares the linearised model predicts for a step: -2 g.d - d.A.d. */
 function predictedFall(a: number[][], g: number[], delta: number[]): number {
   let fall = 0;
@@ -159,6 +162,13 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
         const cq = sumSquares(rq);
         if (cq <= cost) {
           const relFall = (cost - cq) / Math.max(cost, 1e-300);
+          // Both the actual and the predicted fall of a nearly undamped step must be small
+          // (MINPACK's ftol test): a heavily damped step lowers the sum of squares little
+          // anywhere, and one along a direction the data hardly fix (a level far from the Fermi
+          // level) lowers it little without reaching the minimum.
+          const atMinimum =
+            lambda < NEAR_GAUSS_NEWTON &&
+            predictedFall(a, g, delta) <= costTol * Math.max(cost, 1e-300);
           const smallStep = delta.every(
             (d, i) => Math.abs(d) <= stepTol * (Math.abs(p[i]!) + stepTol),
           );
@@ -167,16 +177,22 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
           cost = cq;
           lambda = Math.max(lambda / 3, 1e-12);
           accepted = true;
-          if (relFall < costTol && iter > 1)
+          if (relFall < costTol && atMinimum && iter > 1)
             return finish(iter, true, 'relative change of the sum of squares below tolerance');
           if (smallStep) return finish(iter, true, 'parameter step below tolerance');
           continue;
         }
-        // At the minimum a step can only trade rounding: when the rise is below the tolerance and
-        // so is the fall the linearised model predicts for the step, no step can lower the sum of
-        // squares by more (MINPACK's ftol test; Moré 1978). Without it the damping climbs over
-        // many rejected steps until one falls by rounding luck.
-        if (iter > 1 && cq - cost <= costTol * cost && predictedFall(a, g, delta) <= costTol * cost)
+        // At the minimum a step can only trade rounding: when a nearly undamped (Gauss–Newton)
+        // step raises the sum of squares by less than the tolerance and the linearised model
+        // predicts no larger fall, no step can lower it by more (MINPACK's ftol test; Moré
+        // 1978). Without it the damping climbs over many rejected steps until one falls by
+        // rounding luck. A heavily damped step predicts a small fall anywhere, so it never counts.
+        if (
+          iter > 1 &&
+          lambda < NEAR_GAUSS_NEWTON &&
+          cq - cost <= costTol * cost &&
+          predictedFall(a, g, delta) <= costTol * cost
+        )
           return finish(iter, true, 'relative change of the sum of squares below tolerance');
       }
       lambda *= 4;

@@ -5,6 +5,7 @@ import { curveTerms, resolveModel } from '../semiconductor/resistivity';
 import { lnResistivityAt } from '../semiconductor/resistivity-gradient';
 import type { CurveAt, ResolvedParameters } from './model-jacobian';
 import { lnModelGradient } from './model-jacobian';
+import { fitModel } from './model-fit';
 
 // Coordinates q = [ln N_D, ln N_A, E0_d (eV), ln mobilityScale], resolved as fitModel does with
 // the density-dependent level (Pearson–Bardeen), so the chain rule runs through ionizeDoping.
@@ -61,5 +62,24 @@ describe('the Jacobian of fitModel', () => {
   it('gives no gradient where the coordinates are infeasible', () => {
     const curveAt = (t: number): CurveAt => ({ terms: curveTerms(model, t), eta: Number.NaN });
     expect(lnModelGradient([0, 0, 0, 0], () => null, resolve, curveAt)).toBeNull();
+  });
+
+  it('does not let steps along a direction the data hardly fix pass for convergence', () => {
+    // An n-type start with the acceptor level free: d ln rho / d E_a is about 1e-11, so the
+    // undamped step along it is enormous and a damped one moves the sum of squares by nothing.
+    // Such a step is no minimum: 5 Ω·cm with a 30 % ripple has none a doping explains.
+    const points = Array.from({ length: 60 }, (_, i) => 25 + (i * 295) / 59).map((t) => ({
+      temperatureK: t,
+      resistivityOhmCm: 5 * (1 + 0.3 * Math.sin(t)),
+    }));
+    const fit = fitModel(points, 'Si', { donorDensity: 1e15, acceptorDensity: 1e14 }, [
+      'donorDensity',
+      'acceptorDensity',
+      'donorLevel',
+      'acceptorLevel',
+      'mobilityScale',
+    ]);
+    expect(fit.converged).toBe(false);
+    expect(fit.reason).not.toMatch(/below tolerance/);
   });
 });
