@@ -16,7 +16,13 @@ import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
 import { chooseLeg, describeLegs, legThermalLag } from './legs';
-import { averageSteps, legReadings, sweepReadings, sweepSummary } from './sweep-data.service';
+import {
+  averageSteps,
+  legReadings,
+  sweepReadings,
+  sweepSteps,
+  sweepSummary,
+} from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {
@@ -46,7 +52,9 @@ export async function sweepAnalysis(
       : readings
           .filter((r) => r.leg === leg)
           .map((r) => ({ temperatureK: r.temperatureK, resistivityOhmCm: r.resistivityOhmCm }));
-  const steps = averageSteps(points);
+  // All of a sweep's readings: the steps averaged once while the sweep is cached.
+  const steps =
+    leg === null && site === null ? [...(await sweepSteps(v.sweep))] : averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   const factor = hallFactorOf(v.sweep.parseReport);
   const hall = factor === null ? null : hallAnalysis(points, factor);

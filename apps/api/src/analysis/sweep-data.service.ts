@@ -273,6 +273,24 @@ export function averageSteps(points: readonly AnalysisPoint[]): AnalysisStep[] {
   return steps;
 }
 
+/** Each cached sweep's steps over all its usable readings, averaged once. */
+const stepsOf = new WeakMap<CachedReadings, readonly AnalysisStep[]>();
+
+/**
+ * `averageSteps` of all a sweep's usable readings (no window, leg or site), averaged once while
+ * the sweep is cached: the study page and the wafer's 23 °C value ask for them on every visit.
+ * The list is shared: read it, never change it.
+ */
+export async function sweepSteps(sweep: SweepIdentity): Promise<readonly AnalysisStep[]> {
+  const c = await loadReadings(sweep);
+  let steps = stepsOf.get(c);
+  if (!steps) {
+    steps = averageSteps(c.points);
+    stepsOf.set(c, steps);
+  }
+  return steps;
+}
+
 /** Points with minK <= T <= maxK (inclusive, as the physics library's windows are). */
 export function pointsInWindow(
   points: readonly AnalysisPoint[],
