@@ -14,6 +14,7 @@ import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { routes } from './app.routes';
 import { apiInterceptor } from './core/http/api-interceptor';
 import { IdlePreloading } from './core/routing/idle-preloading';
+import { provideIsoDateAdapter } from './shared/iso-date';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -27,5 +28,6 @@ export const appConfig: ApplicationConfig = {
     ),
     provideHttpClient(withInterceptors([apiInterceptor])),
     { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } },
+    provideIsoDateAdapter(),
   ],
 };
