@@ -16,13 +16,8 @@ import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
 import { chooseLeg, describeLegs, flaggedReadings, legThermalLag } from './legs';
-import {
-  averageSteps,
-  legReadings,
-  sweepReadings,
-  sweepSteps,
-  sweepSummary,
-} from './sweep-data.service';
+import { averageSteps, legReadings, sweepReadings, sweepSteps } from './sweep-data.service';
+import { sweepSummary } from './sweep-summary';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {

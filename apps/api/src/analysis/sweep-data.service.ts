@@ -1,12 +1,6 @@
-import type {
-  AnalysisStep,
-  AnalysisSweepDto,
-  MapAtTemperatureDto,
-  PointQuantities,
-} from '@rhotrace/api-types';
+import type { AnalysisStep, MapAtTemperatureDto, PointQuantities } from '@rhotrace/api-types';
 import { FIT_EXCLUDED_FLAGS } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
-import type { VisibleSweep } from '../access/visibility.service';
 import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
 import { SweepPoint } from '../sweeps/sweep.model';
 import { mapReadings, mapsOf, siteReadings } from '../maps/map-data';
@@ -183,10 +177,7 @@ export type LegReading = AnalysisPoint & { sequence: number; leg: number; exclud
 /** Each cached sweep's readings with their legs, built once: a cache entry never changes. */
 const legReadingsOf = new WeakMap<CachedReadings, readonly LegReading[]>();
 
-/**
- * Each usable reading with its sequence, leg and whether a fit leaves it out by default. The
- * list is shared by every request while the sweep is cached: read it, never change it.
- */
+/** Each usable reading with its leg; shared while the sweep is cached: never change it. */
 export async function legReadings(sweep: SweepIdentity): Promise<readonly LegReading[]> {
   const c = await loadReadings(sweep);
   let list = legReadingsOf.get(c);
@@ -277,9 +268,8 @@ export function averageSteps(points: readonly AnalysisPoint[]): AnalysisStep[] {
 const stepsOf = new WeakMap<CachedReadings, readonly AnalysisStep[]>();
 
 /**
- * `averageSteps` of all a sweep's usable readings (no window, leg or site), averaged once while
- * the sweep is cached: the study page and the wafer's 23 °C value ask for them on every visit.
- * The list is shared: read it, never change it.
+ * `averageSteps` of all a sweep's usable readings, averaged once while the sweep is cached (the
+ * study page and the wafer's 23 °C value ask on every visit); shared: never change it.
  */
 export async function sweepSteps(sweep: SweepIdentity): Promise<readonly AnalysisStep[]> {
   const c = await loadReadings(sweep);
@@ -298,24 +288,4 @@ export function pointsInWindow(
   maxK: number,
 ): AnalysisPoint[] {
   return points.filter((p) => p.temperatureK >= minK && p.temperatureK <= maxK);
-}
-
-/** The summary block the analysis answers carry. */
-export function sweepSummary(v: VisibleSweep, skipped: number): AnalysisSweepDto {
-  return {
-    id: v.sweep.id,
-    waferId: v.wafer.id,
-    waferNumber: v.wafer.number,
-    lotId: v.lot.id,
-    lotCode: v.lot.code,
-    material: v.lot.material,
-    method: v.sweep.method,
-    stationId: v.sweep.stationId,
-    pointCount: v.sweep.pointCount,
-    skippedPointCount: skipped,
-    minTemperatureK: v.sweep.minTemperatureK,
-    maxTemperatureK: v.sweep.maxTemperatureK,
-    originalName: v.sweep.originalName,
-    createdAt: v.sweep.createdAt.toISOString(),
-  };
 }
