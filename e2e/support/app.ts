@@ -1,9 +1,9 @@
 import AxeBuilder from '@axe-core/playwright';
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { type BrowserContext, type Page, chromium } from 'playwright-core';
+import { type BrowserContext, type Locator, type Page, chromium } from 'playwright-core';
 
 const base = process.env['E2E_BASE_URL'];
 if (!base) {
@@ -104,4 +104,34 @@ export async function apiGet<T>(token: string, path: string): Promise<T> {
   const res = await fetch(`${BASE_URL}${path}`, { headers: { authorization: `Bearer ${token}` } });
   if (!res.ok) throw new Error(`GET ${path} answered ${res.status}`);
   return (await res.json()) as T;
+}
+
+/** Fills and sends the sign-in form with any account (one a test made, too). */
+export async function submitSignIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Signs in with any account and waits for the bench. */
+export async function signInAs(page: Page, email: string, password: string): Promise<void> {
+  await submitSignIn(page, email, password);
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+  await page.getByRole('button', { name: 'Sign out' }).waitFor();
+}
+
+/** Signs out through the bar and waits for the sign-in form. */
+export async function signOut(page: Page): Promise<void> {
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('button', { name: 'Sign in' }).waitFor();
+}
+
+/** Clicks what saves a file and answers the file's suggested name and bytes. */
+export async function downloadFrom(
+  page: Page,
+  trigger: Locator,
+): Promise<{ name: string; bytes: Buffer }> {
+  const [file] = await Promise.all([page.waitForEvent('download'), trigger.click()]);
+  return { name: file.suggestedFilename(), bytes: readFileSync(await file.path()) };
 }
