@@ -117,7 +117,10 @@ describe('the first week of a lab', () => {
     await chuck.getByText('Ready to store').waitFor();
     await square.getByText('Ready to store').waitFor();
     await repeat.getByText('Needs attention').waitFor();
-    await repeat.getByRole('alert').filter({ hasText: /no probe spacing/ }).waitFor();
+    await repeat
+      .getByRole('alert')
+      .filter({ hasText: /no probe spacing/ })
+      .waitFor();
     await expect(chuck.getByRole('combobox', { name: 'Method' }).textContent()).resolves.toMatch(
       /Four-point probe/,
     );
@@ -166,17 +169,19 @@ describe('the first week of a lab', () => {
       .filter({ hasText: `Lot ${lotCode} · Wafer W02` });
     await card.getByRole('link', { name: 'Open and upload' }).click();
     await page.getByRole('heading', { name: 'Bring in sweeps' }).waitFor();
-    await page.locator('input[type=file]').setInputFiles(
-      csv('w02-room.csv', [
-        `Run: ${run}-d`,
-        'Station: Hot chuck South',
-        'Thickness: 525 um',
-        'temperature_K,current_A,voltage_V',
-        '291,1.0e-3,4.60e-2',
-        '296,1.0e-3,4.70e-2',
-        '301,1.0e-3,4.80e-2',
-      ]),
-    );
+    await page
+      .locator('input[type=file]')
+      .setInputFiles(
+        csv('w02-room.csv', [
+          `Run: ${run}-d`,
+          'Station: Hot chuck South',
+          'Thickness: 525 um',
+          'temperature_K,current_A,voltage_V',
+          '291,1.0e-3,4.60e-2',
+          '296,1.0e-3,4.70e-2',
+          '301,1.0e-3,4.80e-2',
+        ]),
+      );
     const mine = page.getByRole('article', { name: 'File w02-room.csv' });
     await mine.getByText('Ready to store').waitFor();
     await page.getByRole('button', { name: 'Store 1 file' }).click();
@@ -214,7 +219,10 @@ describe('the first week of a lab', () => {
     const lot = (await apiGet<ApiPage<LotDto>>(token, `/api/lots?q=${lotCode}`)).items[0]!;
     const summary = await apiGet<LotSummaryResponse>(token, `/api/lots/${lot.id}/summary`);
     await page.goto(`${BASE_URL}/lots/${lot.id}`);
-    await wafers.getByRole('row').filter({ hasText: /W02\s*measured/ }).waitFor();
+    await wafers
+      .getByRole('row')
+      .filter({ hasText: /W02\s*measured/ })
+      .waitFor();
     const report = await downloadFrom(page, page.getByRole('button', { name: 'Lot report (PDF)' }));
     expect(report.name).toBe(`lot-${lotCode}-report.pdf`);
     expect(report.bytes.subarray(0, 5).toString('latin1')).toBe('%PDF-');

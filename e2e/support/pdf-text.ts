@@ -42,7 +42,9 @@ export function pdfTextLines(bytes: Buffer): string[] {
     for (const block of stream.matchAll(/BT([\s\S]*?)ET/g)) {
       let font = new Map<number, string>();
       let text = '';
-      for (const op of block[1]!.matchAll(/\/(\S+)\s+[\d.]+\s+Tf|\[([^\]]*)\]\s*TJ|<([^>]*)>\s*Tj/g)) {
+      for (const op of block[1]!.matchAll(
+        /\/(\S+)\s+[\d.]+\s+Tf|\[([^\]]*)\]\s*TJ|<([^>]*)>\s*Tj/g,
+      )) {
         if (op[1]) font = fonts.get(op[1]) ?? new Map();
         const shown = op[2] ?? op[3] ?? '';
         for (const hex of shown.matchAll(/<([0-9a-fA-F\s]*)>/g)) text += decode(hex[1]!, font);
@@ -82,7 +84,9 @@ function readCmap(cmap: string): Map<number, string> {
       const first = parseInt(e[1]!, 16);
       const last = parseInt(e[2]!, 16);
       if (e[3] !== undefined) {
-        [...e[3].matchAll(/<([0-9a-fA-F\s]+)>/g)].forEach((u, i) => map.set(first + i, utf16(u[1]!)));
+        [...e[3].matchAll(/<([0-9a-fA-F\s]+)>/g)].forEach((u, i) =>
+          map.set(first + i, utf16(u[1]!)),
+        );
       } else {
         const start = parseInt(e[4]!, 16);
         for (let code = first; code <= last; code++)

@@ -103,7 +103,11 @@ const line = (
   note,
 });
 
-const fmt = (x: number) => x.toPrecision(3);
+/** A length stored in cm as a lab writes it: µm below a millimetre, mm above. */
+const length = (cm: number) =>
+  cm < 0.1
+    ? `${String(Number((cm * 1e4).toPrecision(3)))} µm`
+    : `${String(Number((cm * 10).toPrecision(3)))} mm`;
 
 /** The probe spacing line: four-point only, zero elsewhere because the method does not use it. */
 function spacingLine(value: number, ctx: BudgetContext): UncertaintyContribution | null {
@@ -125,7 +129,7 @@ function spacingLine(value: number, ctx: BudgetContext): UncertaintyContribution
     Math.abs(c) * u,
     value,
     'rectangular',
-    `±${fmt(tol)} cm on ${fmt(ctx.geometry.spacingCm)} cm; sensitivity ${c.toFixed(3)} ` +
+    `±${length(tol)} on ${length(ctx.geometry.spacingCm)}; sensitivity ${c.toFixed(3)} ` +
       '(d ln ρ / d ln s of the four-point conversion with this geometry)',
   );
 }
@@ -161,7 +165,7 @@ function thicknessLine(value: number, ctx: BudgetContext): UncertaintyContributi
     Math.abs(c) * (rectangularStandardUncertainty(tol) / t),
     value,
     'rectangular',
-    `±${fmt(tol)} cm on ${fmt(t)} cm; sensitivity ${c.toFixed(3)} (${why})`,
+    `±${length(tol)} on ${length(t)}; sensitivity ${c.toFixed(3)} (${why})`,
   );
 }
 

@@ -53,3 +53,28 @@ export function decadeTicks(minValue: number, maxValue: number, max = 8): number
   if (ticks[ticks.length - 1] !== hi) ticks.push(hi);
   return ticks;
 }
+
+/** A tick's label with as many decimals as its step needs (0.5 steps: "10.5", not "10.500"). */
+export function tickLabel(value: number, step: number): string {
+  const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9));
+  return value.toFixed(Math.min(decimals, 12)).replace(/^-(0\.?0*)$/, '$1');
+}
+
+const PREFIXES: Record<number, string> = {
+  [-9]: 'n',
+  [-6]: 'µ',
+  [-3]: 'm',
+  3: 'k',
+  6: 'M',
+  9: 'G',
+};
+
+/**
+ * The SI prefix that keeps an axis's labels between 0.01 and 1000 (engineering steps of 10³):
+ * µΩ·cm for metal films, MΩ·cm for semi-insulating wafers. Factor 1 and no prefix otherwise.
+ */
+export function axisPrefix(maxAbs: number): { factor: number; prefix: string } {
+  if (!(maxAbs > 0) || (maxAbs >= 0.01 && maxAbs < 1000)) return { factor: 1, prefix: '' };
+  const exponent = Math.max(-9, Math.min(9, 3 * Math.floor(Math.log10(maxAbs) / 3)));
+  return { factor: 10 ** exponent, prefix: PREFIXES[exponent] ?? '' };
+}

@@ -26,6 +26,16 @@ export function sig(value: number | null | undefined, digits = 4): string {
     : value.toPrecision(digits);
 }
 
+/**
+ * A recorded value (spec limit, thickness) to at most `digits` significant figures without
+ * trailing zeros, so 0.0525 cm prints as 525 µm and a limit of 8 as 8, as they were entered.
+ */
+export function plain(value: number | null | undefined, digits = 4): string {
+  return sig(value, digits)
+    .replace(/(\.\d*?)0+(?=$| )/, '$1')
+    .replace(/\.(?=$| )/, '');
+}
+
 /** A geometry value in words with the unit a lab reads it in (stored in cm). */
 const GEOMETRY_WORDS: Record<string, { label: string; unit: string; scale: number }> = {
   thicknessCm: { label: 'thickness', unit: 'µm', scale: 1e4 },
@@ -42,7 +52,7 @@ export function geometryText(geometry: Record<string, unknown>): string {
     .flatMap(([key, value]) => {
       const words = GEOMETRY_WORDS[key];
       if (!words || typeof value !== 'number' || !Number.isFinite(value)) return [];
-      return [`${words.label} ${sig(value * words.scale)} ${words.unit}`];
+      return [`${words.label} ${plain(value * words.scale)} ${words.unit}`];
     })
     .join(', ');
 }

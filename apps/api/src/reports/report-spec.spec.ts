@@ -29,10 +29,36 @@ describe('the printed 23 °C lines', () => {
     const [value, ...budget] = specLines(spec);
     expect(value).toBe(
       'Spec 8 to 15 Ω·cm; at 23 °C 14.95 ± 0.12 (k = 2) Ω·cm, corrected from a step ' +
-        '4.90 K away; too close to call (A spec limit lies within value ± U: the measurement ' +
-        'cannot decide.)',
+        '4.90 K away; too close to call (a spec limit lies within value ± U: the measurement ' +
+        'cannot decide)',
     );
-    expect(budget).toEqual(['   temperature sensor: 0.060 Ω·cm (0.401 %, rectangular) – ±0.42 K']);
+    expect(budget).toEqual(['   temperature sensor: 0.060 Ω·cm (0.40 %, rectangular) – ±0.42 K']);
+  });
+
+  it("write a thin film's small values as powers of ten and say what was not assessed", () => {
+    const [value, ...budget] = specLines({
+      ...spec,
+      resistivityAt23COhmCm: 1.079e-5,
+      specMinOhmCm: 0.000005,
+      specMaxOhmCm: 0.000012,
+      verdict: 'pass',
+      method: 'interpolated',
+      uncertaintyOhmCm: 1.5e-7,
+      uncertaintyBudget: [
+        {
+          source: 'thickness',
+          standardUncertaintyOhmCm: 0,
+          relative: 0,
+          distribution: 'rectangular',
+          note: 'Not assessed: the lot states no thickness tolerance',
+        },
+      ],
+    });
+    expect(value).toMatch(
+      /^Spec 5 × 10\^-6 to 1\.2 × 10\^-5 Ω·cm; at 23 °C 1\.079 × 10\^-5 ± 1\.5 × 10\^-7 \(k = 2\)/,
+    );
+    expect(value).not.toMatch(/\de-\d|0\.0000/);
+    expect(budget).toEqual(['   thickness: not assessed: the lot states no thickness tolerance']);
   });
 
   it('print why there is no value', () => {

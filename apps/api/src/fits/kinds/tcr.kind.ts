@@ -31,7 +31,7 @@ export const tcrKind: FitKindEntry<'tcr'> = {
       computation: computationOf(r, context.points, {
         goodness: { referenceK },
         reading:
-          `Resistivity ${p.referenceResistivityOhmCm.toPrecision(4)} ohm cm at ${referenceK} K, ` +
+          `Resistivity ${p.referenceResistivityOhmCm.toPrecision(4)} Ω·cm at ${referenceK} K, ` +
           `rising ${(p.alphaPerK * 100).toPrecision(3)} % per kelvin.`,
       }),
       inputs: { kind: 'tcr', referenceK },
