@@ -136,6 +136,20 @@ describe('the first week of a lab', () => {
     await chuck.getByText('Stored: 3 points').waitFor({ timeout: 20_000 });
     await square.getByText('Stored: 2 points').waitFor({ timeout: 20_000 });
     await repeat.getByText('Stored: 2 points').waitFor({ timeout: 20_000 });
+    // The newest counts for the 23 °C value until the manager chooses another (the batch's
+    // files are stored side by side, so which one is newest is whichever committed last).
+    const sweeps = page.getByRole('table', { name: 'Sweeps of this wafer' });
+    const newest = sweeps.getByRole('row').filter({ hasText: 'Counts (newest)' });
+    await newest.waitFor();
+    const chosenName = (await newest.textContent())!.includes('chuck-ramp.csv')
+      ? 'bench-repeat.csv'
+      : 'chuck-ramp.csv';
+    await page.getByRole('button', { name: `Let ${chosenName} give the 23 °C value` }).click();
+    await sweeps
+      .getByRole('row')
+      .filter({ hasText: chosenName })
+      .filter({ hasText: 'Counts (chosen)' })
+      .waitFor();
 
     // Two measurements for the newcomer: W02 this week, W03 next week.
     await page.getByRole('link', { name: /Worklist/ }).click();
@@ -150,13 +164,13 @@ describe('the first week of a lab', () => {
       await page.getByRole('option', { name: new RegExp(`${lotCode} · wafer ${number}`) }).click();
       await page.getByRole('combobox', { name: 'Assignee' }).click();
       await page.getByRole('option', { name: new RegExp(newcomer.name) }).click();
-      await page.getByLabel('Task').fill(`Room-temperature sweep of ${number} (first week)`);
+      await page.getByLabel('Task').fill(`Room-temperature sweep of ${number} (first week ${run})`);
       const due = new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
       await page.getByLabel('Due date').fill(due);
       await page.getByRole('button', { name: 'Assign and e-mail' }).click();
       await page
         .getByRole('table', { name: 'Assignments' })
-        .getByText(`Room-temperature sweep of ${number} (first week)`)
+        .getByText(`Room-temperature sweep of ${number} (first week ${run})`)
         .waitFor({ timeout: 20_000 });
     }
     await signOut(page);
@@ -188,7 +202,9 @@ describe('the first week of a lab', () => {
     await mine.getByText('Stored: 3 points').waitFor({ timeout: 20_000 });
     const facts = page.locator('.rt-facts');
     await facts.filter({ hasText: /State\s*measured/ }).waitFor();
-    const task = page.getByRole('listitem').filter({ hasText: 'Room-temperature sweep of W02' });
+    const task = page
+      .getByRole('listitem')
+      .filter({ hasText: `Room-temperature sweep of W02 (first week ${run})` });
     await task.filter({ hasText: 'in progress' }).waitFor();
     await task.getByRole('button', { name: 'Mark done' }).click();
     await task.filter({ hasText: /\bdone\b/ }).waitFor();
@@ -201,7 +217,7 @@ describe('the first week of a lab', () => {
     const question = page.getByRole('dialog');
     await question.getByText('They have 1 open task:').waitFor();
     await expect(question.textContent()).resolves.toContain(
-      `Wafer W03 of lot ${lotCode}: Room-temperature sweep of W03 (first week)`,
+      `Wafer W03 of lot ${lotCode}: Room-temperature sweep of W03 (first week ${run})`,
     );
     await question.getByRole('combobox', { name: 'Hand the open tasks to' }).click();
     await page.getByRole('option', { name: /Tavi Moonbrook/ }).click();
@@ -229,6 +245,13 @@ describe('the first week of a lab', () => {
     const printed = pdfTextLines(report.bytes).join('\n');
     expect(printed).toContain(`Lot ${lotCode}`);
     const measured = summary.wafers.filter((w) => w.resistivityAt23COhmCm !== null);
+    const w01Sweeps = await apiGet<Array<{ id: number; originalName: string }>>(
+      token,
+      `/api/wafers/${measured[0]!.waferId}/sweeps`,
+    );
+    const chosen = w01Sweeps.find((sw) => sw.originalName === chosenName)!;
+    expect(measured[0]!.sweepId).toBe(chosen.id);
+    expect(printed).toContain(`sweep ${chosen.id})`);
     expect(measured.map((w) => w.number)).toEqual(['W01', 'W02']);
     for (const w of measured)
       expect(printed).toContain(`${w.number}: ${w.resistivityAt23COhmCm!.toPrecision(4)} `);
