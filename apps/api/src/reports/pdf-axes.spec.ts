@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { axisPrefix, decadeLabel, decadeTicks, niceStep, niceTicks, tickLabel } from './pdf-axes';
+import {
+  axisPrefix,
+  decadeLabel,
+  decadeTicks,
+  logRoundTicks,
+  niceStep,
+  niceTicks,
+  tickLabel,
+} from './pdf-axes';
 import { geometryText, openPdf, plain, sig } from './pdf-document';
 import { drawAxes } from './pdf-plot';
 
@@ -19,6 +27,10 @@ describe('printed axis ticks', () => {
     expect(decadeTicks(0.37, 52)).toEqual([-1, 0, 1, 2]);
     expect(decadeTicks(5, 5)).toEqual([0, 1]);
     expect(decadeTicks(10, 10)).toEqual([0, 1, 2]);
+    // nine decades labelled every second one: the axis ends on 10^16, not a crowded 10^15
+    expect(decadeTicks(1e6, 1e15)).toEqual([6, 8, 10, 12, 14, 16]);
+    expect(logRoundTicks(20, 400)).toEqual([20, 50, 100, 200, 500]);
+    expect(logRoundTicks(2, 700)).toEqual([2, 10, 100, 1000]);
     expect(decadeLabel(-1)).toEqual({ base: '0.1', exponent: null });
     expect(decadeLabel(3)).toEqual({ base: '1000', exponent: null });
     expect(decadeLabel(-6)).toEqual({ base: '10', exponent: '−6' });
@@ -37,6 +49,8 @@ describe('printed geometry and numbers', () => {
   it('write very small and large values as powers of ten', () => {
     expect(sig(2.5e15, 3)).toBe('2.50 × 10^15');
     expect(sig(12.345)).toBe('12.35');
+    expect(sig(1440, 3)).toBe('1440');
+    expect(sig(-23456, 2)).toBe('-23000');
     expect(sig(null)).toBe('–');
     expect(plain(0.000005, 6)).toBe('5 × 10^-6');
     expect(plain(12, 6)).toBe('12');

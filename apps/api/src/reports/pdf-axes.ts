@@ -48,10 +48,29 @@ export function decadeTicks(minValue: number, maxValue: number, max = 8): number
     hi += 1;
   }
   const every = Math.max(1, Math.ceil((hi - lo) / max));
+  // the axis ends on a labelled decade the same step on, never on a decade crowding the last
+  hi = lo + every * Math.ceil((hi - lo) / every);
   const ticks: number[] = [];
   for (let k = lo; k <= hi; k += every) ticks.push(k);
-  if (ticks[ticks.length - 1] !== hi) ticks.push(hi);
   return ticks;
+}
+
+/**
+ * Round ticks for a log x axis (1, 2 and 5 times powers of ten) from the last at or below `min`
+ * to the first at or above `max`; only the powers of ten when those would be more than `max`.
+ */
+export function logRoundTicks(min: number, max: number, most = 7): number[] {
+  if (!(min > 0) || !(max >= min)) throw new RangeError('logRoundTicks: need 0 < min <= max');
+  const candidates: number[] = [];
+  for (let k = Math.floor(Math.log10(min)) - 1; k <= Math.ceil(Math.log10(max)); k++) {
+    for (const m of [1, 2, 5]) candidates.push(Number((m * 10 ** k).toPrecision(6)));
+  }
+  const lo = candidates.filter((c) => c <= min).pop()!;
+  const hi = candidates.find((c) => c >= max)!;
+  const ticks = candidates.filter((c) => c >= lo && c <= hi);
+  if (ticks.length <= most) return ticks;
+  const decades = ticks.filter((c) => /^1(e|$|0*$)|^0\.0*1$/.test(String(c)));
+  return [...new Set([lo, ...decades, hi])];
 }
 
 /** A tick's label with as many decimals as its step needs (0.5 steps: "10.5", not "10.500"). */

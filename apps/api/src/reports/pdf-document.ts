@@ -21,9 +21,11 @@ export const OHM_CM = 'Ω·cm';
 export function sig(value: number | null | undefined, digits = 4): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
   const a = Math.abs(value);
-  return a !== 0 && (a < 1e-3 || a >= 1e5)
-    ? value.toExponential(digits - 1).replace(/e\+?/, ' × 10^')
-    : value.toPrecision(digits);
+  if (a !== 0 && (a < 1e-3 || a >= 1e5))
+    return value.toExponential(digits - 1).replace(/e\+?/, ' × 10^');
+  const fixed = value.toPrecision(digits);
+  // toPrecision answers 1.44e+3 for 1440 at three digits: write the digits out instead
+  return fixed.includes('e') ? String(Number(fixed)) : fixed;
 }
 
 /**
