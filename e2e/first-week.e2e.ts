@@ -2,8 +2,9 @@
  * A lab's first week, end to end as the roles would walk it: the admin opens an account for a
  * new technician; the manager registers a lot and its wafers, brings in a batch of mixed files
  * (each its own method and settings, one blocked until its station is given) and hands out two
- * measurements; the technician measures one (the task and the wafer follow the upload); the
- * admin deactivates the technician and hands the open task over in the same dialog; the manager
+ * measurements and chooses the sweep that counts; the technician measures one (the task and the
+ * wafer follow the upload) and finds another wafer's address not available to them; the admin
+ * deactivates the technician and hands the open task over in the same dialog; the manager
  * prints the lot report, which names every wafer with the value the lot page shows.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -82,6 +83,7 @@ describe('the first week of a lab', () => {
     // A batch of mixed files to W01: each its own method, one blocked until given its station.
     await wafers.getByRole('link', { name: 'W01', exact: true }).click();
     await page.getByRole('heading', { name: 'Bring in sweeps' }).waitFor();
+    const w01Path = new URL(page.url()).pathname;
     const chooser = page.waitForEvent('filechooser');
     await page.getByText('Drop probe-station exports here, or click to choose').click();
     await (
@@ -208,6 +210,9 @@ describe('the first week of a lab', () => {
     await task.filter({ hasText: 'in progress' }).waitFor();
     await task.getByRole('button', { name: 'Mark done' }).click();
     await task.filter({ hasText: /\bdone\b/ }).waitFor();
+    // a wafer not assigned to them, opened by its address: one plain page with a way back
+    await page.goto(`${BASE_URL}${w01Path}`);
+    await page.getByRole('heading', { name: 'Not available to you' }).waitFor();
     await signOut(page);
 
     // The newcomer leaves: the admin is asked, sees the open task and hands it over at once.
