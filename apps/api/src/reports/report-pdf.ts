@@ -1,4 +1,10 @@
-import { KIND_WORDS, PARAMETER_WORDS, type AnalysisStep, type FitDto } from '@rhotrace/api-types';
+import {
+  KIND_WORDS,
+  METHOD_WORDS,
+  PARAMETER_WORDS,
+  type AnalysisStep,
+  type FitDto,
+} from '@rhotrace/api-types';
 import {
   ACCENT,
   geometryText,
@@ -149,9 +155,7 @@ export function renderReportPdf(
     .fillColor(INK)
     .text(`Wafer ${d.waferNumber} · lot ${d.lotCode}`);
   doc.font('plex').fontSize(9).fillColor(MUTED);
-  doc.text(
-    `Sweep ${d.sweepId} (${d.sweepName}), stored ${d.measuredAt.slice(0, 10)}, method ${d.method}`,
-  );
+  doc.text(sweepHeading(d));
   doc.moveDown(0.6).fillColor(INK).fontSize(10);
   for (const line of sweepFacts(d)) doc.text(line);
   const [value, ...budget] = specLines(d.spec);
@@ -171,11 +175,28 @@ export function renderReportPdf(
   return done;
 }
 
+/** The line under the title: which sweep, when it was stored and by which method, in words. */
+export function sweepHeading(
+  d: Pick<ReportData, 'sweepId' | 'sweepName' | 'measuredAt' | 'method'>,
+): string {
+  const method = (METHOD_WORDS as Record<string, string>)[d.method] ?? d.method;
+  return `Sweep ${d.sweepId} (${d.sweepName}), stored ${d.measuredAt.slice(0, 10)}, ${method}`;
+}
+
+/** A station's thermometer in words. */
+const THERMOMETER_WORDS: Record<string, string> = {
+  'platinum-rtd': 'platinum resistance thermometer',
+  thermocouple: 'thermocouple',
+  table: 'sensor read through its calibration table',
+};
+
 /** Material, station and geometry in words and units. */
-export function sweepFacts(d: ReportData): string[] {
+export function sweepFacts(
+  d: Pick<ReportData, 'material' | 'dopant' | 'station' | 'geometry'>,
+): string[] {
   const station = d.station
     ? `${d.station.name} (probe spacing ${plain(d.station.probeSpacingCm * 10)} mm, ` +
-      `${d.station.thermometer === 'platinum-rtd' ? 'platinum resistance' : d.station.thermometer} thermometer)`
+      `${THERMOMETER_WORDS[d.station.thermometer] ?? `${d.station.thermometer} thermometer`})`
     : 'not recorded';
   return [
     `Material ${d.material}${d.dopant ? `, dopant ${d.dopant}` : ''}`,

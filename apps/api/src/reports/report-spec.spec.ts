@@ -1,5 +1,6 @@
 import type { SpecCheckDto } from '@rhotrace/api-types';
 import { describe, expect, it } from 'vitest';
+import { sweepFacts, sweepHeading } from './report-pdf';
 import { specLines } from './report-spec';
 
 const spec: SpecCheckDto = {
@@ -65,5 +66,26 @@ describe('the printed 23 °C lines', () => {
     expect(
       specLines({ ...spec, resistivityAt23COhmCm: null, reason: 'The sweep does not reach 23 °C' }),
     ).toEqual(['Spec 8 to 15 Ω·cm; no value at 23 °C: The sweep does not reach 23 °C']);
+  });
+});
+
+describe('the printed sweep heading and facts', () => {
+  it('name the method, the thermometer and the geometry in words, never their stored keys', () => {
+    const heading = sweepHeading({
+      sweepId: 7,
+      sweepName: 'ramp.csv',
+      measuredAt: '2026-12-01T10:00:00.000Z',
+      method: 'van-der-pauw',
+    });
+    expect(heading).toBe('Sweep 7 (ramp.csv), stored 2026-12-01, Van der Pauw square');
+    const facts = sweepFacts({
+      material: 'Si',
+      dopant: 'B',
+      station: { name: 'Bench A', probeSpacingCm: 0.1588, thermometer: 'table' },
+      geometry: { thicknessCm: 0.0525, spacingCm: 0.1588 },
+    }).join('\n');
+    expect(facts).toContain('Station Bench A (probe spacing 1.588 mm, sensor read through its');
+    expect(facts).toContain('Geometry: thickness 525 µm, probe spacing 1.588 mm');
+    expect(facts).not.toMatch(/van-der-pauw|Cm\b|\btable\b thermometer/);
   });
 });
