@@ -2,6 +2,8 @@ import {
   KIND_WORDS,
   METHOD_WORDS,
   PARAMETER_WORDS,
+  alsoShownIn,
+  isoStampUtc,
   type AnalysisStep,
   type FitDto,
 } from '@rhotrace/api-types';
@@ -77,9 +79,14 @@ export function fitLines(f: FitDto): string[] {
   for (const [name, value] of Object.entries(f.parameters)) {
     const se = f.standardErrors[name];
     const ci = f.confidenceIntervals[name];
+    const hasSe = se !== undefined && se !== null;
+    const also = alsoShownIn(name, value);
     lines.push(
       `   ${PARAMETER_WORDS[name] ?? name} = ${sig(value)}` +
-        `${se !== undefined && se !== null ? ` ± ${sig(se, 2)}` : ''}` +
+        `${hasSe ? ` ± ${sig(se, 2)}` : ''}` +
+        (also
+          ? ` (${sig(also.value)}${hasSe ? ` ± ${sig(alsoShownIn(name, se)?.value, 2)}` : ''} ${also.unit})`
+          : '') +
         `${ci ? `   (95 %: ${sig(ci[0])} to ${sig(ci[1])})` : ''}`,
     );
   }
@@ -92,7 +99,7 @@ export function fitLines(f: FitDto): string[] {
   if (!f.converged && f.reason) lines.push(`   ${f.reason}`);
   for (const w of f.warnings ?? []) lines.push(`   Warning: ${w}`);
   lines.push(
-    `   by ${f.createdBy.name ?? `user ${f.createdBy.id}`} on ${f.createdAt.slice(0, 10)}`,
+    `   by ${f.createdBy.name ?? `user ${f.createdBy.id}`} on ${isoStampUtc(f.createdAt)}`,
   );
   return lines;
 }
@@ -155,7 +162,7 @@ export function renderReportPdf(
     .fillColor(INK)
     .text(`Wafer ${d.waferNumber} · lot ${d.lotCode}`);
   doc.font('plex').fontSize(9).fillColor(MUTED);
-  doc.text(sweepHeading(d));
+  doc.text(storedLine(d));
   doc.moveDown(0.6).fillColor(INK).fontSize(10);
   for (const line of sweepFacts(d)) doc.text(line);
   const [value, ...budget] = specLines(d.spec);
@@ -175,12 +182,12 @@ export function renderReportPdf(
   return done;
 }
 
-/** The line under the title: which sweep, when it was stored and by which method, in words. */
-export function sweepHeading(
+/** The sweep's identity line: when it was stored (to the minute, UTC) and its method in words. */
+export function storedLine(
   d: Pick<ReportData, 'sweepId' | 'sweepName' | 'measuredAt' | 'method'>,
 ): string {
   const method = (METHOD_WORDS as Record<string, string>)[d.method] ?? d.method;
-  return `Sweep ${d.sweepId} (${d.sweepName}), stored ${d.measuredAt.slice(0, 10)}, ${method}`;
+  return `Sweep ${d.sweepId} (${d.sweepName}), stored ${isoStampUtc(d.measuredAt)}, ${method}`;
 }
 
 /** A station's thermometer in words. */

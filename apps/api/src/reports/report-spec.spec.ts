@@ -1,6 +1,6 @@
 import type { SpecCheckDto } from '@rhotrace/api-types';
 import { describe, expect, it } from 'vitest';
-import { sweepFacts, sweepHeading } from './report-pdf';
+import { storedLine, sweepFacts } from './report-pdf';
 import { specLines } from './report-spec';
 
 const spec: SpecCheckDto = {
@@ -71,13 +71,13 @@ describe('the printed 23 °C lines', () => {
 
 describe('the printed sweep heading and facts', () => {
   it('name the method, the thermometer and the geometry in words, never their stored keys', () => {
-    const heading = sweepHeading({
+    const heading = storedLine({
       sweepId: 7,
       sweepName: 'ramp.csv',
       measuredAt: '2026-12-01T10:00:00.000Z',
       method: 'van-der-pauw',
     });
-    expect(heading).toBe('Sweep 7 (ramp.csv), stored 2026-12-01, Van der Pauw square');
+    expect(heading).toBe('Sweep 7 (ramp.csv), stored 2026-12-01 10:00 UTC, Van der Pauw square');
     const facts = sweepFacts({
       material: 'Si',
       dopant: 'B',
