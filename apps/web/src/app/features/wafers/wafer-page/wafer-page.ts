@@ -211,10 +211,12 @@ export class WaferPage {
     this.api.moveAssignment(assignment.id, next.state).subscribe(() => this.assignments.reload());
   }
 
+  /** An upload moves the wafer to measured and the uploader's task on: read all three again. */
   protected onStored(sweepId: number): void {
     this.chosenSweepId.set(sweepId);
     this.sweeps.reload();
     this.wafer.reload();
+    this.assignments.reload();
   }
 
   protected downloadRaw(id: number, name: string): void {
