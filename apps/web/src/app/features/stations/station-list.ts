@@ -18,11 +18,13 @@ import { ListEditor } from '../../shared/list-editor/list-editor';
 import { StationTokens } from './station-tokens/station-tokens';
 import { StationsApi } from './stations-api';
 import { RecordHistory } from '../../shared/record-history/record-history';
+import { RowCards } from '../../shared/row-cards';
 
 /** Probe stations: list, register, edit. */
 @Component({
   selector: 'rt-station-list',
   imports: [
+    RowCards,
     RecordHistory,
     MatTableModule,
     MatButtonModule,

@@ -17,11 +17,13 @@ import {
 import { formatDay } from '../../../shared/format';
 import { AssignmentsApi } from '../assignments-api';
 import { AssignForm } from './assign-form';
+import { RowCards } from '../../../shared/row-cards';
 
 /** The manager's worklist: assign wafers, follow states, see what is overdue. */
 @Component({
   selector: 'rt-worklist',
   imports: [
+    RowCards,
     MatTableModule,
     MatPaginatorModule,
     MatSelectModule,

@@ -43,6 +43,7 @@ interface WaferRow {
 }
 
 import { LotMaps } from '../../maps/lot-maps/lot-maps';
+import { RowCards } from '../../../shared/row-cards';
 /**
  * One lot: facts, spec, wafers with their 23 °C values (± U, verdict, budget), Ppk and the spec
  * chart.
@@ -50,6 +51,7 @@ import { LotMaps } from '../../maps/lot-maps/lot-maps';
 @Component({
   selector: 'rt-lot-detail',
   imports: [
+    RowCards,
     RecordHistory,
     MatTableModule,
     MatButtonModule,

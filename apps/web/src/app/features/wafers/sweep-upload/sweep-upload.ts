@@ -1,4 +1,13 @@
-import { ChangeDetectionStrategy, Component, effect, inject, input, output } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  effect,
+  inject,
+  input,
+  output,
+  viewChild,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { DropzoneComponent, FileInputDirective, type FileInputValue } from '@ngx-dropzone/cdk';
@@ -7,6 +16,7 @@ import { Caution } from '../../../shared/caution';
 import { Icon } from '../../../shared/icon';
 import { UploadFile } from './upload-file';
 import { UploadStore } from './upload-store';
+import { SkipTarget, focusPlace } from '../../../shared/skip-target';
 
 /**
  * Bringing sweeps in: drop or pick files; each is checked by the server with its own method,
@@ -15,7 +25,15 @@ import { UploadStore } from './upload-store';
  */
 @Component({
   selector: 'rt-sweep-upload',
-  imports: [MatButtonModule, DropzoneComponent, FileInputDirective, Caution, Icon, UploadFile],
+  imports: [
+    SkipTarget,
+    MatButtonModule,
+    DropzoneComponent,
+    FileInputDirective,
+    Caution,
+    Icon,
+    UploadFile,
+  ],
   providers: [UploadStore],
   templateUrl: './sweep-upload.html',
   styleUrl: './sweep-upload.scss',
@@ -29,6 +47,7 @@ export class SweepUpload {
   readonly stations = input<StationDto[]>([]);
   /** Emits the id of each sweep stored. */
   readonly stored = output<number>();
+  private readonly storeButton = viewChild('storeButton', { read: ElementRef<HTMLElement> });
 
   constructor() {
     effect(() => this.store.waferId.set(this.waferId()));
@@ -48,5 +67,12 @@ export class SweepUpload {
     if (event.target instanceof HTMLInputElement) return;
     event.preventDefault();
     zone.openFilePicker();
+  }
+
+  /** The skip link past the files' checks: straight to Store. */
+  protected skipToStore(event: Event): void {
+    event.preventDefault();
+    const button = this.storeButton()?.nativeElement;
+    if (button) focusPlace(button);
   }
 }

@@ -31,6 +31,8 @@ import { MapView } from '../../maps/map-view/map-view';
 import { RecordHistory } from '../../../shared/record-history/record-history';
 import { PlanForm } from '../../planner/plan-form/plan-form';
 import { PlanView } from '../../planner/plan-view/plan-view';
+import { RowCards } from '../../../shared/row-cards';
+import { SkipTarget } from '../../../shared/skip-target';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
@@ -44,6 +46,8 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
 @Component({
   selector: 'rt-wafer-page',
   imports: [
+    SkipTarget,
+    RowCards,
     RecordHistory,
     MatTableModule,
     MatButtonModule,
