@@ -2,6 +2,7 @@ import {
   ChangeDetectionStrategy,
   Component,
   ElementRef,
+  computed,
   effect,
   inject,
   input,
@@ -47,6 +48,14 @@ export class SweepUpload {
   readonly stations = input<StationDto[]>([]);
   /** Emits the id of each sweep stored. */
   readonly stored = output<number>();
+  /**
+   * Store is disabled while nothing is ready or a file is still being read, checked or sent,
+   * but keeps the keyboard focus (Material's `disabledInteractive`): a button disabled under
+   * the focus drops it to the page, and the next Enter does nothing.
+   */
+  protected readonly storeDisabled = computed(
+    () => this.store.ready().length === 0 || this.store.busy(),
+  );
   private readonly storeButton = viewChild('storeButton', { read: ElementRef<HTMLElement> });
 
   constructor() {
@@ -67,6 +76,10 @@ export class SweepUpload {
     if (event.target instanceof HTMLInputElement) return;
     event.preventDefault();
     zone.openFilePicker();
+  }
+
+  protected storeIfAllowed(): void {
+    if (!this.storeDisabled()) this.store.storeReady();
   }
 
   /** The skip link past the files' checks: straight to Store. */
