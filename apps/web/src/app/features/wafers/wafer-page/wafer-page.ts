@@ -12,8 +12,9 @@ import {
   WAFER_STATES,
   type WaferState,
 } from '@rhotrace/api-types';
-import { catchError, of } from 'rxjs';
+import { catchError, filter, of, switchMap } from 'rxjs';
 import { Session } from '../../../core/auth/session';
+import { Confirmer } from '../../../shared/confirm-dialog';
 import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
@@ -75,6 +76,7 @@ export class WaferPage {
   private readonly downloader = inject(Downloader);
   private readonly session = inject(Session);
   private readonly router = inject(Router);
+  private readonly confirmer = inject(Confirmer);
 
   readonly id = input.required<string>();
   protected readonly waferId = computed(() => Number(this.id()));
@@ -225,20 +227,33 @@ export class WaferPage {
 
   /** Deletes a wafer not yet measured (the API refuses a measured one with a message). */
   protected removeWafer(number: string, lotId: number): void {
-    const question =
-      `Delete wafer ${number}? Its open assignments are cancelled; ` +
-      'it stays in the change trail.';
-    if (!globalThis.confirm(question)) return;
-    this.api
-      .deleteWafer(this.waferId())
+    this.confirmer
+      .ask({
+        title: `Delete wafer ${number}?`,
+        message: 'Its open assignments are cancelled; the change trail keeps the record.',
+        confirmWords: 'Delete the wafer',
+      })
+      .pipe(
+        filter(Boolean),
+        switchMap(() => this.api.deleteWafer(this.waferId())),
+      )
       .subscribe(() => void this.router.navigate(['/lots', lotId]));
   }
 
-  protected removeSweep(id: number): void {
-    if (!globalThis.confirm('Delete this sweep? It stays in the change trail.')) return;
-    this.api.deleteSweep(id).subscribe(() => {
-      this.chosenSweepId.set(null);
-      this.sweeps.reload();
-    });
+  protected removeSweep(id: number, name: string): void {
+    this.confirmer
+      .ask({
+        title: `Delete the sweep ${name}?`,
+        message: 'It leaves the lists and the analyses; the change trail keeps the record.',
+        confirmWords: 'Delete the sweep',
+      })
+      .pipe(
+        filter(Boolean),
+        switchMap(() => this.api.deleteSweep(id)),
+      )
+      .subscribe(() => {
+        this.chosenSweepId.set(null);
+        this.sweeps.reload();
+      });
   }
 }
