@@ -102,7 +102,10 @@ describe('the upload with the keyboard alone', () => {
     await page.goto(`${BASE_URL}/wafers/${wafer.id}`);
     await page.getByRole('heading', { name: 'Bring in sweeps' }).waitFor();
     const toolbar = page.getByRole('toolbar').first();
-    await toolbar.getByRole('button', { name: 'Save image' }).and(page.locator(':enabled')).waitFor();
+    await toolbar
+      .getByRole('button', { name: 'Save image' })
+      .and(page.locator(':enabled'))
+      .waitFor();
 
     // the plain walk, for the record
     const plainTabs = await tabsUntil(page, /^NGX-DROPZONE/);
