@@ -100,13 +100,15 @@ describe('list pages on a 400 px screen', () => {
     await page.keyboard.press('Escape');
     expect(await seriousViolations(page)).toEqual([]);
 
-    // probe stations: Edit opens the station's form
+    // probe stations: Edit is on screen; Delete asks first, and the station is kept
     await page.goto(`${BASE_URL}/stations`);
     const edit = page.getByRole('button', { name: `Edit ${station.name}`, exact: true });
     await expectOnScreen(page, edit, 'station edit');
-    await edit.click();
-    await page.getByRole('button', { name: 'Save' }).waitFor();
-    await page.getByRole('button', { name: 'Cancel' }).click();
+    const remove = page.getByRole('button', { name: `Delete ${station.name}`, exact: true });
+    await expectOnScreen(page, remove, 'station delete');
+    await remove.click();
+    await page.getByRole('alertdialog').getByRole('button', { name: 'Keep it' }).click();
+    await page.getByRole('alertdialog').waitFor({ state: 'detached' });
 
     // station tokens: Revoke asks first; keep the token
     await page.getByRole('combobox', { name: 'Station' }).click();
