@@ -150,6 +150,10 @@ describe('the upload with the keyboard alone', () => {
     expect(await focused(page)).toMatch(/^BUTTON Store 0 files$/);
 
     // a plot's toolbar: one Tab stop, arrows inside, Tab leaves
+    await toolbar
+      .getByRole('button', { name: 'Save image' })
+      .and(page.locator(':enabled'))
+      .waitFor();
     const stops = await page.$$eval('[role=toolbar]', (bars) =>
       bars.map((bar) => bar.querySelectorAll('button:not([tabindex="-1"])').length),
     );

@@ -135,7 +135,7 @@ describe('list pages on a 400 px screen', () => {
     );
     await active.click();
     await page.getByRole('button', { name: 'Keep the account' }).click();
-    await expect(active.isChecked()).resolves.toBe(true);
+    await expect.poll(() => active.isChecked()).toBe(true);
     expect(await seriousViolations(page)).toEqual([]);
   });
 });
