@@ -9,6 +9,7 @@ import { Router, RouterLink } from '@angular/router';
 import {
   type AssignmentDto,
   type AssignmentState,
+  type SweepSummaryDto,
   WAFER_STATES,
   type WaferState,
 } from '@rhotrace/api-types';
@@ -240,10 +241,10 @@ export class WaferPage {
       .subscribe(() => void this.router.navigate(['/lots', lotId]));
   }
 
-  protected removeSweep(id: number, name: string): void {
+  protected removeSweep({ id, originalName }: SweepSummaryDto): void {
     this.confirmer
       .ask({
-        title: `Delete the sweep ${name}?`,
+        title: `Delete the sweep ${originalName}?`,
         message: 'It leaves the lists and the analyses; the change trail keeps the record.',
         confirmWords: 'Delete the sweep',
       })
