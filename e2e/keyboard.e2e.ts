@@ -49,7 +49,9 @@ const ringOfFocus = (page: Page) =>
     const e = document.activeElement as HTMLElement;
     const style = getComputedStyle(e);
     let behind = 'rgb(255, 255, 255)';
-    for (let p = e.parentElement; p; p = p.parentElement) {
+    // a ring drawn inside the element lies on the element's own background
+    const inside = parseFloat(style.outlineOffset) < 0;
+    for (let p = inside ? e : e.parentElement; p; p = p.parentElement) {
       const bg = rgb(getComputedStyle(p).backgroundColor);
       if (bg.length === 3 || (bg.length === 4 && bg[3]! >= 0.99)) {
         behind = getComputedStyle(p).backgroundColor;
