@@ -1,22 +1,19 @@
-import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import {
-  BASE_URL,
   REPO_DIR,
   apiGet,
+  apiItems,
   apiToken,
-  openBrowser,
+  browserForTests,
+  openStudy,
   screenshot,
   seriousViolations,
-  signIn,
+  uploadSweep,
 } from './support/app';
 
 const HALL_FILE = join(REPO_DIR, 'seed-data/sweeps/hall-reversals-si.csv');
 
-interface Page<T> {
-  items: T[];
-}
 interface Fit {
   id: number;
   kind: string;
@@ -27,40 +24,26 @@ interface Fit {
 /** Uploads the demo Hall file to a silicon wafer (or finds it there from an earlier run). */
 async function hallSweepId(): Promise<number> {
   const token = await apiToken('engineer');
-  const wafers = await apiGet<Page<{ id: number }>>(token, '/api/wafers?pageSize=200&material=Si');
+  const wafers = await apiGet<{ items: Array<{ id: number }> }>(
+    token,
+    '/api/wafers?pageSize=200&material=Si',
+  );
   const target = wafers.items[0];
   if (!target) throw new Error('the demo data holds no silicon wafer');
-  const form = new FormData();
-  form.append('method', 'hall');
-  form.append('thicknessCm', '0.05');
-  form.append('file', new Blob([readFileSync(HALL_FILE)], { type: 'text/csv' }), 'hall.csv');
-  const res = await fetch(`${BASE_URL}/api/wafers/${target.id}/sweeps`, {
-    method: 'POST',
-    headers: { authorization: `Bearer ${token}` },
-    body: form,
-  });
-  const body = (await res.json()) as { id?: number; error?: { details?: { sweepId?: number } } };
-  if (res.status === 201) return body.id!;
-  if (res.status === 409 && body.error?.details?.sweepId) return body.error.details.sweepId;
-  throw new Error(`the Hall upload answered ${res.status}: ${JSON.stringify(body)}`);
+  const fields = { method: 'hall', thicknessCm: '0.05' };
+  return (await uploadSweep(token, target.id, fields, HALL_FILE)).id;
 }
 
 describe('a physicist studies a Hall sweep', () => {
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const browserPage = browserForTests(1280, 1100);
   let sweepId: number;
   beforeAll(async () => {
     sweepId = await hallSweepId();
-    browser = await openBrowser(1280, 1100);
-  });
-  afterAll(async () => {
-    await browser.close();
   });
 
   it('sees the three plots and the carrier type, fits and keeps both Hall fits', async () => {
-    const { page } = browser;
-    await signIn(page, 'physicist');
-    const started = Date.now();
-    await page.goto(`${BASE_URL}/sweeps/${sweepId}`);
+    const page = browserPage();
+    const started = await openStudy(page, 'physicist', sweepId);
     for (const name of [
       /Resistivity against temperature \(Hall sweep\)/,
       /Carrier density against 1000\/T/,
@@ -80,7 +63,7 @@ describe('a physicist studies a Hall sweep', () => {
     await density
       .getByRole('article', { name: /Hall carrier density .*\(preview\)/ })
       .waitFor({ timeout: 60_000 });
-    await density.getByRole('button', { name: 'Keep fit' }).click();
+    await density.getByRole('button', { name: 'Keep this fit' }).click();
     await density
       .getByRole('article', { name: /Hall carrier density .*\(fit \d+\)/ })
       .waitFor({ timeout: 30_000 });
@@ -90,7 +73,7 @@ describe('a physicist studies a Hall sweep', () => {
     await mobility
       .getByRole('article', { name: /Hall mobility .*\(preview\)/ })
       .waitFor({ timeout: 30_000 });
-    await mobility.getByRole('button', { name: 'Keep fit' }).click();
+    await mobility.getByRole('button', { name: 'Keep this fit' }).click();
     await mobility
       .getByRole('article', { name: /Hall mobility .*\(fit \d+\)/ })
       .waitFor({ timeout: 30_000 });
@@ -99,8 +82,7 @@ describe('a physicist studies a Hall sweep', () => {
     );
 
     const token = await apiToken('physicist');
-    const body = await apiGet<Page<Fit> | Fit[]>(token, `/api/sweeps/${sweepId}/fits`);
-    const fits = Array.isArray(body) ? body : body.items;
+    const fits = await apiItems<Fit>(token, `/api/sweeps/${sweepId}/fits`);
     const n = fits.filter((f) => f.kind === 'carrier-density').pop()!;
     const mu = fits.filter((f) => f.kind === 'hall-mobility').pop()!;
     // The demo file was computed from N_D = 1e15, N_A = 1e14, E_d = 45 meV and mu ~ T^-2.6

@@ -1,78 +1,53 @@
-import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import {
   BASE_URL,
   REPO_DIR,
   apiGet,
+  apiItems,
   apiToken,
-  openBrowser,
+  browserForTests,
+  openStudy,
   screenshot,
   seriousViolations,
-  signIn,
+  uploadSweep,
 } from './support/app';
 
-interface Page<T> {
-  items: T[];
-}
-interface Wafer {
-  id: number;
-  number: string;
-}
 interface Sweep {
   id: number;
-  pointCount: number;
+  pointCount?: number;
 }
 
 /** A sweep to study: the largest stored silicon one, or the demo file uploaded to the first silicon wafer. */
 async function findOrMakeSweep(): Promise<Sweep> {
   const token = await apiToken('physicist');
   // Silicon only: a metal-film sweep has no Arrhenius plot to drag on.
-  const wafers = await apiGet<Page<Wafer>>(token, '/api/wafers?pageSize=200&material=Si');
+  const wafers = await apiGet<{ items: Array<{ id: number }> }>(
+    token,
+    '/api/wafers?pageSize=200&material=Si',
+  );
   let best: Sweep | null = null;
   for (const wafer of wafers.items) {
-    const body = await apiGet<Page<Sweep> | Sweep[]>(token, `/api/wafers/${wafer.id}/sweeps`);
-    for (const s of Array.isArray(body) ? body : body.items)
-      if (!best || s.pointCount > best.pointCount) best = s;
+    for (const s of await apiItems<Sweep>(token, `/api/wafers/${wafer.id}/sweeps`))
+      if (!best || (s.pointCount ?? 0) > (best.pointCount ?? 0)) best = s;
   }
   if (best) return best;
   const target = wafers.items[0];
   if (!target) throw new Error('the demo data holds no wafer');
-  const form = new FormData();
-  form.append('method', 'four-point');
   const file = join(REPO_DIR, 'seed-data/sweeps/comma-kelvin-four-point.csv');
-  form.append(
-    'file',
-    new Blob([readFileSync(file)], { type: 'text/csv' }),
-    'comma-kelvin-four-point.csv',
-  );
-  const res = await fetch(`${BASE_URL}/api/wafers/${target.id}/sweeps`, {
-    method: 'POST',
-    headers: { authorization: `Bearer ${token}` },
-    body: form,
-  });
-  if (res.status !== 201)
-    throw new Error(`set-up upload answered ${res.status}: ${await res.text()}`);
-  const created = (await res.json()) as { id: number; pointCount: number };
-  return { id: created.id, pointCount: created.pointCount };
+  return uploadSweep(token, target.id, { method: 'four-point' }, file);
 }
 
 describe('a physicist studies a sweep', () => {
-  let browser: Awaited<ReturnType<typeof openBrowser>>;
+  const browserPage = browserForTests(1280, 1000);
   let sweep: Sweep;
   beforeAll(async () => {
     sweep = await findOrMakeSweep();
-    browser = await openBrowser(1280, 1000);
-  });
-  afterAll(async () => {
-    await browser.close();
   });
 
   it('drags an Arrhenius window, previews the fit and keeps it', async () => {
-    const { page } = browser;
-    await signIn(page, 'physicist');
-    const started = Date.now();
-    await page.goto(`${BASE_URL}/sweeps/${sweep.id}`);
+    const page = browserPage();
+    const started = await openStudy(page, 'physicist', sweep.id);
     const arrhenius = page.getByRole('figure', { name: /Arrhenius plot/ });
     await arrhenius.locator('.nsewdrag').first().waitFor({ timeout: 60_000 });
     await page
@@ -101,12 +76,8 @@ describe('a physicist studies a sweep', () => {
     await expect(preview.getByText('Activation energy (eV)').isVisible()).resolves.toBe(true);
     await screenshot(page, 'sweep-study-preview');
     const token = await apiToken('physicist');
-    const listFits = async () => {
-      const body = await apiGet<
-        Page<{ id: number; kind: string }> | Array<{ id: number; kind: string }>
-      >(token, `/api/sweeps/${sweep.id}/fits`);
-      return Array.isArray(body) ? body : body.items;
-    };
+    const listFits = () =>
+      apiItems<{ id: number; kind: string }>(token, `/api/sweeps/${sweep.id}/fits`);
     const before = (await listFits()).length;
 
     await page.getByRole('button', { name: 'Keep this fit' }).click();
@@ -126,7 +97,7 @@ describe('a physicist studies a sweep', () => {
   });
 
   it('lot detail and overlay draw their plots', async () => {
-    const { page } = browser;
+    const page = browserPage();
     await page.goto(`${BASE_URL}/lots`);
     await page.getByRole('table', { name: 'Lots' }).locator('a').first().click();
     await page.getByRole('heading', { name: /^Lot / }).waitFor();

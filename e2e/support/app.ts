@@ -1,9 +1,10 @@
 import AxeBuilder from '@axe-core/playwright';
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
+import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { type BrowserContext, type Page, chromium } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 const base = process.env['E2E_BASE_URL'];
 if (!base) {
@@ -56,6 +57,24 @@ export async function openBrowser(
   };
 }
 
+/**
+ * A browser for the tests of one `describe`: opened before them, closed after them. Call it in
+ * the `describe` body; the function it returns gives the page inside a test.
+ */
+export function browserForTests(width = 1280, height = 900): () => Page {
+  let browser: Awaited<ReturnType<typeof openBrowser>> | undefined;
+  beforeAll(async () => {
+    browser = await openBrowser(width, height);
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error('the browser is opened in beforeAll: use the page in a test');
+    return browser.page;
+  };
+}
+
 /** Signs in through the form as a demo account and waits for the bench. */
 export async function signIn(page: Page, role: DemoRole): Promise<void> {
   await page.goto(`${BASE_URL}/sign-in`);
@@ -104,4 +123,49 @@ export async function apiGet<T>(token: string, path: string): Promise<T> {
   const res = await fetch(`${BASE_URL}${path}`, { headers: { authorization: `Bearer ${token}` } });
   if (!res.ok) throw new Error(`GET ${path} answered ${res.status}`);
   return (await res.json()) as T;
+}
+
+/** The items of a list answer, whether it is a page (`{ items }`) or a bare array. */
+export async function apiItems<T>(token: string, path: string): Promise<T[]> {
+  const body = await apiGet<{ items: T[] } | T[]>(token, path);
+  return Array.isArray(body) ? body : body.items;
+}
+
+/**
+ * Uploads a sweep file to a wafer with the given form fields (method, thickness, ...) and answers
+ * the new sweep; the same file stored before (a 409 naming its sweep) answers that sweep's id.
+ */
+export async function uploadSweep(
+  token: string,
+  waferId: number,
+  fields: Record<string, string>,
+  file: string,
+): Promise<{ id: number; pointCount?: number }> {
+  const form = new FormData();
+  for (const [name, value] of Object.entries(fields)) form.append(name, value);
+  form.append('file', new Blob([readFileSync(file)], { type: 'text/csv' }), basename(file));
+  const res = await fetch(`${BASE_URL}/api/wafers/${waferId}/sweeps`, {
+    method: 'POST',
+    headers: { authorization: `Bearer ${token}` },
+    body: form,
+  });
+  const body = (await res.json()) as {
+    id?: number;
+    pointCount?: number;
+    error?: { details?: { sweepId?: number } };
+  };
+  if (res.status === 201 && body.id) return { id: body.id, pointCount: body.pointCount };
+  const stored = body.error?.details?.sweepId;
+  if (res.status === 409 && stored) return { id: stored };
+  throw new Error(
+    `the upload of ${basename(file)} answered ${res.status}: ${JSON.stringify(body)}`,
+  );
+}
+
+/** Signs in as `role` and opens the study page of a sweep; answers when it was asked for. */
+export async function openStudy(page: Page, role: DemoRole, sweepId: number): Promise<number> {
+  await signIn(page, role);
+  const started = Date.now();
+  await page.goto(`${BASE_URL}/sweeps/${sweepId}`);
+  return started;
 }

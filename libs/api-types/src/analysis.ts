@@ -215,6 +215,17 @@ export interface SweepAnalysisResponse {
   flaggedPoints?: number;
   /** Hall sweeps only: n(T) and mu_H(T) by step, the carrier type and the freeze-out window. */
   hall?: HallAnalysis;
+  /** What the import warned about (the parse report's warnings, e.g. R_A/R_B above 3). */
+  importWarnings?: string[];
+  /** Where each flagged reading of the studied leg lies, for the plots (reasons: `findings`). */
+  flaggedReadings?: FlaggedReadingDto[];
+}
+
+/** A flagged reading's place on the plots; its flags and reasons are the `findings` of its sequence. */
+export interface FlaggedReadingDto {
+  sequence: number;
+  temperatureK: number;
+  resistivityOhmCm: number;
 }
 
 /** One ramp leg of a sweep. */

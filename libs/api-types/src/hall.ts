@@ -15,6 +15,8 @@ export interface HallAnalysisStep {
   /** The sign of the step's mean Hall coefficient. */
   carrierType: 'n' | 'p';
   count: number;
+  /** Sample standard deviation of the step's Hall mobilities (0 for one reading). */
+  hallMobilitySpreadCm2PerVs?: number;
 }
 
 /** The Hall part of a sweep analysis. */
@@ -42,4 +44,10 @@ export interface HallAt300K {
   hallMobilityAt300KCm2PerVs: number | null;
   /** r_H the density was computed with. */
   hallFactor: number;
+  /**
+   * Standard uncertainties of the two values at 300 K from the scatter of the readings (type A,
+   * k = 1); null where a step used has one reading. The Hall factor is an assumption, not in them.
+   */
+  carrierDensityAt300KUncertaintyCm3?: number | null;
+  hallMobilityAt300KUncertaintyCm2PerVs?: number | null;
 }

@@ -26,6 +26,7 @@ export type {
   SuggestedWindow,
   SpecCheckDto,
   SweepAnalysisResponse,
+  FlaggedReadingDto,
   LegDto,
   DopantDensityResponse,
 } from './analysis';
@@ -65,6 +66,16 @@ export type {
   FitPreviewDto,
 } from './fits';
 export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
+export {
+  LENGTH_UNIT_OF,
+  cmToLength,
+  lengthToCm,
+  ALSO_SHOWN_IN,
+  alsoShownIn,
+  isoDay,
+  isoStampUtc,
+} from './lab-units';
+export type { LengthUnit } from './lab-units';
 export type { LotSummaryWafer, LotSummaryResponse, CompareResponse } from './lot-summary';
 export { MAP_CORRECTIONS, DEFAULT_EDGE_EXCLUSION_MM } from './maps';
 export type {

@@ -21,6 +21,10 @@ export type SweepMethod = (typeof SWEEP_METHODS)[number];
  * `resistance-b` the second van der Pauw configuration (R_B); `other` is kept raw only.
  * Hall sweeps add `magnetic-field` and either `hall-voltage` (already corrected for offsets) or
  * the four reversals `hall-voltage-xy` (x the field sign, y the current sign; p = +, n = -).
+ * Van der Pauw files may add the reciprocal readings, current and voltage contacts swapped:
+ * `resistance-reciprocal` (R_CD,AB against R_A = R_AB,CD) and `resistance-b-reciprocal`
+ * (R_DA,BC against R_B = R_BC,DA); the point takes each pair's mean and a pair more than 2 %
+ * apart flags `contact-fault`.
  */
 export const COLUMN_MEANINGS = [
   'temperature',
@@ -46,6 +50,8 @@ export const COLUMN_MEANINGS = [
   'hall-voltage-np',
   'hall-voltage-nn',
   'reference-junction',
+  'resistance-reciprocal',
+  'resistance-b-reciprocal',
 ] as const;
 export type ColumnMeaning = (typeof COLUMN_MEANINGS)[number];
 

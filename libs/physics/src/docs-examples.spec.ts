@@ -21,6 +21,7 @@ describe('documented examples and defaults', () => {
   it('probe, thermometry and conversion examples hold', () => {
     expect(physics.finiteThicknessFactor(1)).toBeCloseTo(0.9215, 4);
     expect(physics.circularSliceFactor(10)).toBeCloseTo(4.1712, 4);
+    expect(physics.reciprocityDifference(100, 103)).toBeCloseTo(0.029557, 6);
     const fpp = physics.fourPointProbe({
       voltageV: 0.01,
       currentA: 0.001,

@@ -62,6 +62,7 @@ export {
 export type { FourPointProbeResult } from './probe/four-point';
 export { vanDerPauw } from './probe/van-der-pauw';
 export type { VanDerPauwResult } from './probe/van-der-pauw';
+export { reciprocityDifference } from './probe/reciprocity';
 export { barResistivity } from './probe/bar';
 export { edgeCorrectionFactor, PROBE_ORIENTATIONS } from './probe/edge-correction';
 export type { ProbeOrientation } from './probe/edge-correction';

@@ -118,6 +118,18 @@ export const sweepAnalysisResponse = z
     findings: z.array(findingSchema).optional(),
     flaggedPoints: z.number().int().optional(),
     hall: hallAnalysisSchema.optional(),
+    importWarnings: z.array(z.string()).optional(),
+    flaggedReadings: z
+      .array(
+        z
+          .object({
+            sequence: z.number().int(),
+            temperatureK: z.number(),
+            resistivityOhmCm: z.number(),
+          })
+          .strict(),
+      )
+      .optional(),
   })
   .strict() satisfies z.ZodType<SweepAnalysisResponse>;
 

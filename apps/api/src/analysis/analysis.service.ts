@@ -15,7 +15,7 @@ import { temperatureGrid, isMetal } from './model.service';
 import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
-import { chooseLeg, describeLegs, legThermalLag } from './legs';
+import { chooseLeg, describeLegs, flaggedReadings, legThermalLag } from './legs';
 import { averageSteps, legReadings, sweepReadings, sweepSummary } from './sweep-data.service';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
@@ -40,15 +40,17 @@ export async function sweepAnalysis(
   const readings = await legReadings(v.sweep);
   const legs = describeLegs(readings);
   const leg = chooseLeg(legs, requestedLeg);
+  // one leg's points keep their quantities (a Hall sweep's n and mu_H)
   const points =
     leg === null
       ? all
       : readings
           .filter((r) => r.leg === leg)
-          .map((r) => ({ temperatureK: r.temperatureK, resistivityOhmCm: r.resistivityOhmCm }));
+          .map(({ sequence: _s, leg: _l, excludable: _e, ...point }) => point);
   const steps = averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   const factor = hallFactorOf(v.sweep.parseReport);
+  const report = v.sweep.parseReport as SweepParseReport;
   const hall = factor === null ? null : hallAnalysis(points, factor);
   return {
     sweep: sweepSummary(v, skipped),
@@ -65,9 +67,11 @@ export async function sweepAnalysis(
     legs,
     leg,
     thermalLag: legThermalLag(readings, legs),
-    findings: (v.sweep.parseReport as SweepParseReport).findings ?? [],
-    flaggedPoints: (v.sweep.parseReport as SweepParseReport).flaggedPoints ?? 0,
+    findings: report.findings ?? [],
+    flaggedPoints: report.flaggedPoints ?? 0,
     ...(hall ? { hall } : {}),
+    importWarnings: report.warnings ?? [],
+    flaggedReadings: flaggedReadings(readings, report.findings ?? [], leg),
   };
 }
 

@@ -36,36 +36,82 @@ export function hallSteps(points: readonly AnalysisPoint[]): HallAnalysisStep[] 
     while (end < hall.length && hall[end]!.temperatureK - first < STEP_TOLERANCE_K) end += 1;
     const group = hall.slice(start, end).map((p) => p.quantities!);
     const densities = group.map((q) => q.carrierDensityCm3!);
+    const mobilities = group.map((q) => q.hallMobilityCm2PerVs!);
     const rh = mean(group.map((q) => q.hallCoefficientCm3PerC!));
     steps.push({
       temperatureK: mean(hall.slice(start, end).map((p) => p.temperatureK)),
       carrierDensityCm3: mean(densities),
       carrierDensitySpreadCm3: densities.length > 1 ? sampleStandardDeviation(densities) : 0,
-      hallMobilityCm2PerVs: mean(group.map((q) => q.hallMobilityCm2PerVs!)),
+      hallMobilityCm2PerVs: mean(mobilities),
       hallCoefficientCm3PerC: rh,
       carrierType: rh < 0 ? 'n' : 'p',
       count: group.length,
+      hallMobilitySpreadCm2PerVs: mobilities.length > 1 ? sampleStandardDeviation(mobilities) : 0,
     });
     start = end;
   }
   return steps;
 }
 
-/** Log-linear interpolation of a step value at `temperatureK` within `HALL_300K_REACH_K`. */
-export function hallValueAt(
-  steps: readonly HallAnalysisStep[],
-  key: 'carrierDensityCm3' | 'hallMobilityCm2PerVs',
-  temperatureK: number,
-): number | null {
+type HallKey = 'carrierDensityCm3' | 'hallMobilityCm2PerVs';
+
+/** The sample standard deviation of each step value, by the value's key. */
+const SPREAD_OF = {
+  carrierDensityCm3: 'carrierDensitySpreadCm3',
+  hallMobilityCm2PerVs: 'hallMobilitySpreadCm2PerVs',
+} as const;
+
+/** The steps either side of `temperatureK` within reach, and the weight f of the upper one. */
+function bracket(steps: readonly HallAnalysisStep[], temperatureK: number) {
   const i = steps.findIndex((s) => s.temperatureK >= temperatureK);
   if (i < 0) return null;
   const hi = steps[i]!;
   const lo = i > 0 ? steps[i - 1]! : hi;
   if (hi.temperatureK - temperatureK > HALL_300K_REACH_K) return null;
   if (temperatureK - lo.temperatureK > HALL_300K_REACH_K) return null;
-  if (hi === lo || hi.temperatureK === lo.temperatureK) return hi[key];
-  const f = (temperatureK - lo.temperatureK) / (hi.temperatureK - lo.temperatureK);
+  const same = hi === lo || hi.temperatureK === lo.temperatureK;
+  const f = same ? 1 : (temperatureK - lo.temperatureK) / (hi.temperatureK - lo.temperatureK);
+  return { lo, hi, f };
+}
+
+/** Log-linear interpolation of a step value at `temperatureK` within `HALL_300K_REACH_K`. */
+export function hallValueAt(
+  steps: readonly HallAnalysisStep[],
+  key: HallKey,
+  temperatureK: number,
+): number | null {
+  const b = bracket(steps, temperatureK);
+  if (!b) return null;
+  const { lo, hi, f } = b;
+  if (f === 1) return hi[key];
   return Math.exp(Math.log(lo[key]) + f * (Math.log(hi[key]) - Math.log(lo[key])));
+}
+
+/**
+ * Standard uncertainty of `hallValueAt`'s value from the scatter of the readings (type A): each
+ * step mean has u = s / sqrt(count), and the law of propagation of uncertainty (JCGM 100:2008,
+ * GUM, eq. 10) applied to ln y = (1 - f) ln y_lo + f ln y_hi, the two step means independent,
+ * gives u(y) = y sqrt(((1 - f) u_lo / y_lo)^2 + (f u_hi / y_hi)^2). Null when there is no value,
+ * or when a step it uses has one reading (no scatter to judge by). It leaves out the Hall factor
+ * (an assumption the answer states) and the uncertainty of the thickness and the field.
+ */
+export function hallUncertaintyAt(
+  steps: readonly HallAnalysisStep[],
+  key: HallKey,
+  temperatureK: number,
+): number | null {
+  const b = bracket(steps, temperatureK);
+  const value = hallValueAt(steps, key, temperatureK);
+  if (!b || value === null) return null;
+  const relative = (step: HallAnalysisStep): number | null => {
+    const spread = step[SPREAD_OF[key]];
+    if (step.count < 2 || spread === undefined) return null;
+    return spread / Math.sqrt(step.count) / step[key];
+  };
+  const lo = b.f === 1 ? 0 : relative(b.lo);
+  const hi = relative(b.hi);
+  if (lo === null || hi === null) return null;
+  return value * Math.hypot((1 - b.f) * lo, b.f * hi);
 }
 
 /**
@@ -145,5 +191,7 @@ export async function hallAt300K(
     carrierDensityAt300KCm3: h.carrierDensityAt300KCm3,
     hallMobilityAt300KCm2PerVs: h.hallMobilityAt300KCm2PerVs,
     hallFactor: factor,
+    carrierDensityAt300KUncertaintyCm3: hallUncertaintyAt(h.steps, 'carrierDensityCm3', 300),
+    hallMobilityAt300KUncertaintyCm2PerVs: hallUncertaintyAt(h.steps, 'hallMobilityCm2PerVs', 300),
   };
 }

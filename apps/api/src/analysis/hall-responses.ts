@@ -18,6 +18,7 @@ export const hallAnalysisSchema = z
           hallCoefficientCm3PerC: z.number(),
           carrierType,
           count: z.number().int(),
+          hallMobilitySpreadCm2PerVs: z.number().optional(),
         })
         .strict(),
     ),
@@ -46,6 +47,8 @@ export const hallAt300KSchema = z
     carrierDensityAt300KCm3: z.number().nullable(),
     hallMobilityAt300KCm2PerVs: z.number().nullable(),
     hallFactor: z.number(),
+    carrierDensityAt300KUncertaintyCm3: z.number().nullable().optional(),
+    hallMobilityAt300KUncertaintyCm2PerVs: z.number().nullable().optional(),
   })
   .strict() satisfies z.ZodType<HallAt300K>;
 

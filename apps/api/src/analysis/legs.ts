@@ -2,7 +2,7 @@
  * A sweep's ramp legs as the analysis reads them: their direction, range and steps, which leg a
  * fit uses by default, and the thermal lag an up and a down leg show.
  */
-import type { LegDto } from '@rhotrace/api-types';
+import type { FlaggedReadingDto, LegDto, PointFinding } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS, thermalLag } from '@rhotrace/physics';
 import { validationFailed } from '../errors';
 import { LEG_CHANGE_FACTOR, stepRanges } from '../sweeps/import/faults/legs';
@@ -92,4 +92,24 @@ export function legThermalLag(
   if (a.temperaturesK.length < 3 || b.temperaturesK.length < 3) return null;
   const lag = thermalLag(a, b);
   return lag ? { lagK: lag.lagK, standardErrorK: lag.standardErrorK } : null;
+}
+
+/**
+ * Where the flagged readings lie, for the plots: those with a finding, in the leg studied (every
+ * leg when `leg` is null), in recorded order.
+ */
+export function flaggedReadings(
+  readings: LegReading[],
+  findings: PointFinding[],
+  leg: number | null,
+): FlaggedReadingDto[] {
+  const flagged = new Set(findings.map((f) => f.sequence));
+  return readings
+    .filter((r) => flagged.has(r.sequence) && (leg === null || (r.leg || 1) === leg))
+    .sort((a, b) => a.sequence - b.sequence)
+    .map((r) => ({
+      sequence: r.sequence,
+      temperatureK: r.temperatureK,
+      resistivityOhmCm: r.resistivityOhmCm,
+    }));
 }

@@ -207,6 +207,7 @@ describe('POST /api/model/curve for a metal film', () => {
       .send({ material: 'Ni', fromK: 100, toK: 500, steps: 5 });
     expect(res.status).toBe(200);
     expect(res.body.warnings).toHaveLength(1);
-    expect(res.body.warnings[0]).toMatch(/Nickel \(0\.006 \/K/);
+    // 1 ppm/K = 10⁻⁶ 1/K: the tabulated 0.006 1/K is 6000 ppm/K.
+    expect(res.body.warnings[0]).toMatch(/Nickel \(0\.006 1\/K, 6000 ppm\/K, at 20 °C/);
   });
 });

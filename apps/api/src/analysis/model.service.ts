@@ -1,5 +1,5 @@
 import type { DopingInput, MaterialsResponse, ModelCurveResponse } from '@rhotrace/api-types';
-import { METAL_FILMS } from '@rhotrace/api-types';
+import { METAL_FILMS, alsoShownIn } from '@rhotrace/api-types';
 import {
   METAL_BLOCH_GRUNEISEN,
   METAL_LINEAR_RANGE_K,
@@ -131,9 +131,11 @@ function metalCurve(material: MetalId, temperaturesK: readonly number[]) {
   if (!constants.matchesAlpha) {
     warnings.push(
       `Bloch–Grüneisen cannot follow the tabulated temperature coefficient of ` +
-        `${reference.name} (${reference.alphaPerK} /K at 20 °C, raised by s–d or magnetic ` +
+        `${reference.name} (${reference.alphaPerK} 1/K, ` +
+        `${alsoShownIn('alphaPerK', reference.alphaPerK)!.value} ppm/K, at 20 °C, raised by s–d or magnetic ` +
         `scattering): the curve matches rho at 20 °C and rises at ` +
-        `${constants.alphaAt20CPerK.toFixed(5)} /K there.`,
+        `${constants.alphaAt20CPerK.toFixed(5)} 1/K ` +
+        `(${Number(alsoShownIn('alphaPerK', constants.alphaAt20CPerK)!.value.toPrecision(4))} ppm/K) there.`,
     );
   }
   return {

@@ -116,6 +116,8 @@ describe('the 23 °C value with its budget through the API', () => {
     // Thickness +/-25 µm on 500 µm: 5 % / sqrt(3) = 2.89 %, times a sensitivity just below 1.
     expect(by('thickness').relative).toBeGreaterThan(0.028);
     expect(by('thickness').relative).toBeLessThan(0.0289);
+    // Said in the units the lab wrote them in (1 cm = 10⁴ µm, SI), not as 0.00250 cm on 0.0500 cm.
+    expect(by('thickness').note).toMatch(/^±25\.0 µm on 500 µm; sensitivity 0\.9\d\d /);
     const rss = Math.hypot(...lines.map((l) => l.standardUncertaintyOhmCm));
     expect(spec.uncertaintyOhmCm).toBeCloseTo(2 * rss, 12);
   });

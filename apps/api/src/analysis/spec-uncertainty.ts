@@ -4,11 +4,13 @@
  * Each tolerance given as +/- a is the half-width of a rectangular distribution, u = a / sqrt(3)
  * (GUM 4.3.7); contributions are combined as uncorrelated (GUM 5.1.2) and expanded with k = 2.
  */
-import type {
-  SweepGeometry,
-  Thermometer,
-  UncertaintyContribution,
-  ValueUncertainty,
+import {
+  LENGTH_UNIT_OF,
+  cmToLength,
+  type SweepGeometry,
+  type Thermometer,
+  type UncertaintyContribution,
+  type ValueUncertainty,
 } from '@rhotrace/api-types';
 import {
   combinedStandardUncertainty,
@@ -105,6 +107,12 @@ const line = (
 
 const fmt = (x: number) => x.toPrecision(3);
 
+/** A stored length (cm) in the unit its field is read in: 0.0025 cm of thickness is "25.0 µm". */
+const lengthText = (lengthCm: number, field: string) => {
+  const unit = LENGTH_UNIT_OF[field] ?? 'cm';
+  return `${fmt(cmToLength(lengthCm, unit))} ${unit}`;
+};
+
 /** The probe spacing line: four-point only, zero elsewhere because the method does not use it. */
 function spacingLine(value: number, ctx: BudgetContext): UncertaintyContribution | null {
   if (ctx.method !== 'four-point' || !ctx.geometry?.spacingCm) return null;
@@ -125,7 +133,8 @@ function spacingLine(value: number, ctx: BudgetContext): UncertaintyContribution
     Math.abs(c) * u,
     value,
     'rectangular',
-    `±${fmt(tol)} cm on ${fmt(ctx.geometry.spacingCm)} cm; sensitivity ${c.toFixed(3)} ` +
+    `±${lengthText(tol, 'spacingCm')} on ${lengthText(ctx.geometry.spacingCm, 'spacingCm')}; ` +
+      `sensitivity ${c.toFixed(3)} ` +
       '(d ln ρ / d ln s of the four-point conversion with this geometry)',
   );
 }
@@ -161,7 +170,8 @@ function thicknessLine(value: number, ctx: BudgetContext): UncertaintyContributi
     Math.abs(c) * (rectangularStandardUncertainty(tol) / t),
     value,
     'rectangular',
-    `±${fmt(tol)} cm on ${fmt(t)} cm; sensitivity ${c.toFixed(3)} (${why})`,
+    `±${lengthText(tol, 'thicknessCm')} on ${lengthText(t, 'thicknessCm')}; ` +
+      `sensitivity ${c.toFixed(3)} (${why})`,
   );
 }
 

@@ -1,7 +1,7 @@
 import type { AssignmentDto } from '@rhotrace/api-types';
 import { ASSIGNMENT_STATES } from '@rhotrace/api-types';
 import { z } from 'zod';
-import { idParams, registry, routesOf } from '../openapi/registry';
+import { registerCrud, registry, routesOf } from '../openapi/registry';
 import { dateTime, pageOf, timestamps } from '../openapi/shapes';
 import { assignmentPlanSchema } from '../planner/planner.openapi';
 import { createBody, listQuery, overdueQuery, updateBody } from './assignments.schemas';
@@ -61,37 +61,26 @@ export function registerAssignmentsApi(): void {
     ok: { status: 200, description: 'A page of assignments', schema: page },
     errors: [403],
   });
-  route({
-    method: 'get',
+  registerCrud({
+    tag: 'Assignments',
     path: '/assignments',
-    summary: 'Assignments (technicians: their own)',
-    query: listQuery,
-    ok: { status: 200, description: 'A page of assignments', schema: page },
-    errors: [403],
-  });
-  route({
-    method: 'post',
-    path: '/assignments',
-    summary: 'Assigns a wafer to someone, with an e-mail to them',
-    body: createBody,
-    ok: { status: 201, description: 'The new assignment', schema: assignmentDtoSchema },
-    errors: [403, 404, 409],
-  });
-  route({
-    method: 'get',
-    path: '/assignments/:id',
-    summary: 'One assignment',
-    params: idParams,
-    ok: { status: 200, description: 'The assignment', schema: assignmentDtoSchema },
-    errors: [404],
-  });
-  route({
-    method: 'patch',
-    path: '/assignments/:id',
-    summary: 'Changes an assignment (its assignee may move the state)',
-    params: idParams,
-    body: updateBody,
-    ok: { status: 200, description: 'The changed assignment', schema: assignmentDtoSchema },
-    errors: [403, 404, 409],
+    item: assignmentDtoSchema,
+    names: ['assignment', 'assignments'],
+    list: {
+      summary: 'Assignments (technicians: their own)',
+      query: listQuery,
+      schema: page,
+      errors: [403],
+    },
+    create: {
+      summary: 'Assigns a wafer to someone, with an e-mail to them',
+      body: createBody,
+      errors: [403, 404, 409],
+    },
+    read: { summary: 'One assignment' },
+    update: {
+      summary: 'Changes an assignment (its assignee may move the state)',
+      body: updateBody,
+    },
   });
 }

@@ -1,10 +1,13 @@
+import express, { type Request, type Response } from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BOLTZMANN_EV_PER_K } from '@rhotrace/physics';
 import { AuditEvent } from '../audit/audit-event.model';
+import { createLogger } from '../logger';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { makeLot, makeSweep, range, synthesize } from '../analysis/testing/fixtures';
 import { Fit } from './fit.model';
+import { fitsController } from './fit.controller';
 import { createFit } from './fit.service';
 
 let ctx: TestContext;
@@ -73,5 +76,28 @@ describe('fit windows and cancelled saves', () => {
       .send({ kind: 'arrhenius', minK: 350, maxK: 600 });
     expect(saved.status).toBe(201);
     expect((await stored()).fits).toBe(before.fits + 1);
+  });
+
+  it('the controller cancels the save when the connection closes before the answer', async () => {
+    // Express's own request and response prototypes, without a socket: the response emits
+    // 'close' at once, as Node does when the client goes away, while the fit is computed.
+    const before = await stored();
+    const u = ctx.users.physicist;
+    const req: Request = Object.assign(Object.create(express.request) as Request, {
+      params: { id: String(sweepId) },
+      body: { kind: 'arrhenius', minK: 350, maxK: 600 },
+      user: { id: u.id, email: u.email, name: u.name, role: u.role },
+    });
+    const res = Object.create(express.response) as Response;
+    const controller = fitsController({
+      config: ctx.config,
+      sequelize: ctx.sequelize,
+      mailer: ctx.mailer,
+      logger: createLogger('silent'),
+    });
+    const pending = controller.create(req, res);
+    res.emit('close');
+    await expect(pending).rejects.toMatchObject({ status: 409 });
+    expect(await stored()).toEqual(before);
   });
 });

@@ -1,5 +1,5 @@
 import type { Request, Response } from 'express';
-import type { FitRequest } from '@rhotrace/api-types';
+import { alsoShownIn, type FitRequest } from '@rhotrace/api-types';
 import type { AppDeps } from '../deps';
 import { toCsv } from '../analysis/csv';
 import { actorOf } from '../middleware/actor';
@@ -8,6 +8,12 @@ import { parseId, parseOrThrow } from '../middleware/validate';
 import { FIT_KIND_TABLE } from './fit-kinds';
 import { fitKindSchema } from './fit-schemas';
 import { createFit, deleteFit, getFit, previewFit, sweepFits } from './fit.service';
+
+/** A parameter's value in ppm/K when that is its second unit (a TCR), else an empty cell. */
+function ppm(name: string, value: number): number | null {
+  const also = alsoShownIn(name, value);
+  return also?.unit === 'ppm/K' ? also.value : null;
+}
 
 /** The body checked first for its kind, then by that kind's schema in `FIT_KIND_TABLE`. */
 function parseFitRequest(body: unknown): FitRequest {
@@ -62,6 +68,7 @@ export function fitsController(deps: AppDeps) {
       const rows = fits.flatMap((f) =>
         Object.entries(f.parameters).map(([name, value]) => {
           const ci = f.confidenceIntervals[name] ?? null;
+          const se = f.standardErrors[name];
           return [
             f.id,
             f.sweepId,
@@ -82,6 +89,9 @@ export function fitsController(deps: AppDeps) {
             f.modelVersion,
             f.createdBy.name,
             f.createdAt,
+            // A TCR is also given in ppm/K (added columns; the 1/K value above stays as it was).
+            ppm(name, value),
+            se === null || se === undefined ? null : ppm(name, se),
           ];
         }),
       );
@@ -105,6 +115,8 @@ export function fitsController(deps: AppDeps) {
         'model_version',
         'created_by',
         'created_at',
+        'value_ppm_per_k',
+        'standard_error_ppm_per_k',
       ];
       res
         .type('text/csv; charset=utf-8')

@@ -172,3 +172,89 @@ export function routesOf(tag: string, auth: RouteAuth = 'user') {
   return (spec: Omit<RouteSpec, 'tag' | 'auth'> & { auth?: RouteAuth }): void =>
     registerRoute({ tag, auth, ...spec });
 }
+
+/** One of the usual routes of a resource kept by id: its words and any errors beyond the usual. */
+interface CrudRoute {
+  summary: string;
+  /** Replaces the usual error statuses of this route. */
+  errors?: ErrorStatus[];
+}
+
+/**
+ * The usual routes of a resource kept by id, under one collection path: list and create at
+ * `path`, read, update and delete at `path/:id`. Each is registered only when named.
+ */
+export interface CrudSpec {
+  tag: string;
+  auth?: RouteAuth;
+  /** The collection path, e.g. `/lots`. */
+  path: string;
+  /** One item as the API answers it. */
+  item: ZodTypeAny;
+  /** What one item and many are called in the answers' descriptions, e.g. `['lot', 'lots']`. */
+  names: readonly [string, string];
+  list?: CrudRoute & { query: AnyZodObject; schema: ZodTypeAny };
+  create?: CrudRoute & { body: ZodTypeAny };
+  read?: CrudRoute;
+  update?: CrudRoute & { body: ZodTypeAny };
+  remove?: CrudRoute;
+}
+
+/**
+ * Registers the routes of `spec` it names (see `CrudSpec`) with the usual answers: a page for the
+ * list, the item for create (201), read and update, 204 for delete; and the usual errors (403 and
+ * 409 for a create, 404 for a read, 403, 404 and 409 for an update or delete) unless replaced.
+ */
+export function registerCrud(spec: CrudSpec): void {
+  const route = routesOf(spec.tag, spec.auth);
+  const { path, item, list, create, read, update, remove } = spec;
+  const [one, many] = spec.names;
+  const byId = `${path}/:id`;
+  const changes: ErrorStatus[] = [403, 404, 409];
+  if (list)
+    route({
+      method: 'get',
+      path,
+      summary: list.summary,
+      query: list.query,
+      ok: { status: 200, description: `A page of ${many}`, schema: list.schema },
+      ...(list.errors ? { errors: list.errors } : {}),
+    });
+  if (create)
+    route({
+      method: 'post',
+      path,
+      summary: create.summary,
+      body: create.body,
+      ok: { status: 201, description: `The new ${one}`, schema: item },
+      errors: create.errors ?? [403, 409],
+    });
+  if (read)
+    route({
+      method: 'get',
+      path: byId,
+      summary: read.summary,
+      params: idParams,
+      ok: { status: 200, description: `The ${one}`, schema: item },
+      errors: read.errors ?? [404],
+    });
+  if (update)
+    route({
+      method: 'patch',
+      path: byId,
+      summary: update.summary,
+      params: idParams,
+      body: update.body,
+      ok: { status: 200, description: `The changed ${one}`, schema: item },
+      errors: update.errors ?? changes,
+    });
+  if (remove)
+    route({
+      method: 'delete',
+      path: byId,
+      summary: remove.summary,
+      params: idParams,
+      ok: { status: 204, description: 'Deleted' },
+      errors: remove.errors ?? changes,
+    });
+}

@@ -1,6 +1,7 @@
 /**
  * The server's hourly chores: forgotten sign-in throttle rows and orphaned raw-file objects go,
- * and assignees of overdue tasks get their daily reminder. Every instance may run them at once:
+ * station Idempotency-Keys past their retention are forgotten, and assignees of overdue tasks get
+ * their daily reminder. Every instance may run them at once:
  * the deletions only take what nothing refers to, and each reminder is claimed in the database.
  */
 import type { Logger } from 'pino';
@@ -11,6 +12,7 @@ import type { AppConfig } from '../config';
 import type { Mailer } from '../mail/mailer.service';
 import { removeOrphanedObjects } from '../storage/object-reconciler';
 import type { S3RawStorage } from '../storage/s3-raw-storage';
+import { forgetOldKeys } from '../station-posts/key-retention';
 import { rawStorageFor } from '../storage/storage';
 
 /** How often the chores run, ms. */
@@ -39,6 +41,12 @@ export async function houseKeep(
     if (pruned) deps.logger.info({ pruned }, 'forgot old sign-in throttle rows');
   } catch (error) {
     deps.logger.warn({ err: error }, 'pruning old sign-in throttle rows failed');
+  }
+  try {
+    const forgotten = await forgetOldKeys(now);
+    if (forgotten) deps.logger.info({ forgotten }, 'forgot old station Idempotency-Keys');
+  } catch (error) {
+    deps.logger.warn({ err: error }, 'forgetting old station Idempotency-Keys failed');
   }
   if (deps.config.storage !== 's3') return;
   try {

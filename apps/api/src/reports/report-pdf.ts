@@ -1,4 +1,11 @@
-import { KIND_WORDS, PARAMETER_WORDS, type AnalysisStep, type FitDto } from '@rhotrace/api-types';
+import {
+  KIND_WORDS,
+  PARAMETER_WORDS,
+  alsoShownIn,
+  isoStampUtc,
+  type AnalysisStep,
+  type FitDto,
+} from '@rhotrace/api-types';
 import { ACCENT, geometryText, INK, keepSpace, MUTED, OHM_CM, openPdf, sig } from './pdf-document';
 import { drawAxes, roundXTicks } from './pdf-plot';
 import type { ReportData } from './report.service';
@@ -60,9 +67,14 @@ export function fitLines(f: FitDto): string[] {
   for (const [name, value] of Object.entries(f.parameters)) {
     const se = f.standardErrors[name];
     const ci = f.confidenceIntervals[name];
+    const hasSe = se !== undefined && se !== null;
+    const also = alsoShownIn(name, value);
     lines.push(
       `   ${PARAMETER_WORDS[name] ?? name} = ${sig(value)}` +
-        `${se !== undefined && se !== null ? ` ± ${sig(se, 2)}` : ''}` +
+        `${hasSe ? ` ± ${sig(se, 2)}` : ''}` +
+        (also
+          ? ` (${sig(also.value)}${hasSe ? ` ± ${sig(alsoShownIn(name, se)?.value, 2)}` : ''} ${also.unit})`
+          : '') +
         `${ci ? `   (95 %: ${sig(ci[0])} to ${sig(ci[1])})` : ''}`,
     );
   }
@@ -74,7 +86,7 @@ export function fitLines(f: FitDto): string[] {
   if (!f.converged && f.reason) lines.push(`   ${f.reason}`);
   for (const w of f.warnings ?? []) lines.push(`   Warning: ${w}`);
   lines.push(
-    `   by ${f.createdBy.name ?? `user ${f.createdBy.id}`} on ${f.createdAt.slice(0, 10)}`,
+    `   by ${f.createdBy.name ?? `user ${f.createdBy.id}`} on ${isoStampUtc(f.createdAt)}`,
   );
   return lines;
 }
@@ -123,9 +135,7 @@ export function renderReportPdf(
     .fillColor(INK)
     .text(`Wafer ${d.waferNumber} · lot ${d.lotCode}`);
   doc.font('plex').fontSize(9).fillColor(MUTED);
-  doc.text(
-    `Sweep ${d.sweepId} (${d.sweepName}), stored ${d.measuredAt.slice(0, 10)}, method ${d.method}`,
-  );
+  doc.text(storedLine(d));
   doc.moveDown(0.6).fillColor(INK).fontSize(10);
   for (const line of sweepFacts(d)) doc.text(line);
   const [value, ...budget] = specLines(d.spec);
@@ -144,6 +154,13 @@ export function renderReportPdf(
   closingSection(doc, d.cautions, d.disclaimer);
   doc.end();
   return done;
+}
+
+/** The sweep's identity line: when it was stored (to the minute, UTC) and how it was measured. */
+export function storedLine(
+  d: Pick<ReportData, 'sweepId' | 'sweepName' | 'measuredAt' | 'method'>,
+): string {
+  return `Sweep ${d.sweepId} (${d.sweepName}), stored ${isoStampUtc(d.measuredAt)}, method ${d.method}`;
 }
 
 /** Material, station and geometry in words and units. */

@@ -4,6 +4,7 @@ import type { AppDeps } from '../deps';
 import { HttpError } from '../errors';
 import { readUpload } from '../sweeps/read-upload';
 import { authenticateStation, currentStation } from './authenticate-station';
+import { SharedRateStore } from './post-rate.service';
 import { stationPostController } from './station-post.controller';
 
 const MINUTE_MS = 60_000;
@@ -15,9 +16,13 @@ const MINUTE_MS = 60_000;
 export function stationPostRouter(deps: AppDeps): Router {
   const router = Router();
   const c = stationPostController(deps);
-  // per token, in this process: a first line against a station stuck in a loop
+  // per token, counted in the database so the limit holds across API instances and nodes: a
+  // first line against a station stuck in a loop. Should the count fail, posts go through (the
+  // failure is logged): the limit guards the server and must not refuse a station's data.
   const perToken = rateLimit({
     windowMs: MINUTE_MS,
+    store: new SharedRateStore(deps.sequelize, 'station-posts'),
+    passOnStoreError: true,
     limit: deps.config.stationPostsPerMinute,
     standardHeaders: 'draft-7',
     legacyHeaders: false,

@@ -1,7 +1,7 @@
 import type { StationDto } from '@rhotrace/api-types';
 import { THERMOMETERS } from '@rhotrace/api-types';
 import { z } from 'zod';
-import { idParams, registry, routesOf } from '../openapi/registry';
+import { registerCrud, registry } from '../openapi/registry';
 import { pageOf, timestamps } from '../openapi/shapes';
 import { createBody, listQuery, sensor, updateBody } from './stations.schemas';
 
@@ -32,45 +32,19 @@ export const stationDtoSchema = registry.register(
 
 /** /api/stations */
 export function registerStationsApi(): void {
-  const route = routesOf('Probe stations');
-  route({
-    method: 'get',
+  registerCrud({
+    tag: 'Probe stations',
     path: '/stations',
-    summary: 'Probe stations, a page at a time',
-    query: listQuery,
-    ok: { status: 200, description: 'A page of stations', schema: pageOf(stationDtoSchema) },
-  });
-  route({
-    method: 'post',
-    path: '/stations',
-    summary: 'Adds a probe station',
-    body: createBody,
-    ok: { status: 201, description: 'The new station', schema: stationDtoSchema },
-    errors: [403, 409],
-  });
-  route({
-    method: 'get',
-    path: '/stations/:id',
-    summary: 'One probe station',
-    params: idParams,
-    ok: { status: 200, description: 'The station', schema: stationDtoSchema },
-    errors: [404],
-  });
-  route({
-    method: 'patch',
-    path: '/stations/:id',
-    summary: 'Changes some fields of a probe station',
-    params: idParams,
-    body: updateBody,
-    ok: { status: 200, description: 'The changed station', schema: stationDtoSchema },
-    errors: [403, 404, 409],
-  });
-  route({
-    method: 'delete',
-    path: '/stations/:id',
-    summary: 'Deletes a probe station no sweep names',
-    params: idParams,
-    ok: { status: 204, description: 'Deleted' },
-    errors: [403, 404, 409],
+    item: stationDtoSchema,
+    names: ['station', 'stations'],
+    list: {
+      summary: 'Probe stations, a page at a time',
+      query: listQuery,
+      schema: pageOf(stationDtoSchema),
+    },
+    create: { summary: 'Adds a probe station', body: createBody },
+    read: { summary: 'One probe station' },
+    update: { summary: 'Changes some fields of a probe station', body: updateBody },
+    remove: { summary: 'Deletes a probe station no sweep names' },
   });
 }

@@ -5,6 +5,11 @@ import type {
   StationSensor,
   Thermometer,
 } from '@rhotrace/api-types';
+import {
+  calibrationTableTemperatureK,
+  PhysicsInputError,
+  type CalibrationPoint,
+} from '@rhotrace/physics';
 import { Op, UniqueConstraintError, type WhereOptions } from 'sequelize';
 import { auditChange, type Actor } from '../audit/audit.service';
 import { conflict, notFound, validationFailed } from '../errors';
@@ -98,6 +103,9 @@ function assertConsistent(
       problem: 'a calibration-table thermometer needs its points: { kind: "table", points }',
     });
   }
+  const table = s.sensor?.kind === 'table' ? s.sensor.points : null;
+  const tableProblem = table ? calibrationTableProblem(table) : null;
+  if (tableProblem) problems.push({ field: 'body.sensor.points', problem: tableProblem });
   if (s.thermometer === 'thermocouple' && s.rtdR0Ohm != null) {
     problems.push({
       field: 'body.rtdR0Ohm',
@@ -105,6 +113,20 @@ function assertConsistent(
     });
   }
   if (problems.length) throw validationFailed('The station fields do not agree', problems);
+}
+
+/**
+ * Why a calibration table cannot convert readings (the physics library's own check: distinct
+ * readings, the temperature running one way with them), or null when it can.
+ */
+function calibrationTableProblem(points: CalibrationPoint[]): string | null {
+  try {
+    calibrationTableTemperatureK(points, points[0]!.reading);
+    return null;
+  } catch (error) {
+    if (error instanceof PhysicsInputError && error.argument === 'table') return error.requirement;
+    throw error;
+  }
 }
 
 function duplicateName(error: unknown, name: string | undefined): never {

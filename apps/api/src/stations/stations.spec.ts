@@ -50,9 +50,36 @@ describe('/api/stations', () => {
     ['oversized name', station('n'.repeat(101)), 'body.name'],
     ['oversized notes', { ...station('x10'), notes: 'n'.repeat(5001) }, 'body.notes'],
     ['unknown field', { ...station('x11'), colour: 'grey' }, 'body.colour'],
+    [
+      'unknown thermocouple type',
+      {
+        ...station('x12'),
+        thermometer: 'thermocouple',
+        rtdR0Ohm: null,
+        sensor: { kind: 'thermocouple', type: 'Q' },
+      },
+      'body.sensor.type',
+    ],
+    [
+      'a table that turns back',
+      {
+        ...station('x13'),
+        thermometer: 'table',
+        rtdR0Ohm: null,
+        sensor: {
+          kind: 'table',
+          points: [
+            { reading: 1.1, temperatureK: 20 },
+            { reading: 1.0, temperatureK: 100 },
+            { reading: 0.9, temperatureK: 60 },
+          ],
+        },
+      },
+      'body.sensor.points',
+    ],
   ])('refuses a station with %s', async (_label, body, field) => {
     const res = await post(body);
-    expect(res.status).toBe(400);
+    expect(res.status, JSON.stringify(res.body)).toBe(400);
     expect(res.body.error.details.map((d: { field: string }) => d.field)).toContain(field);
   });
 

@@ -136,6 +136,26 @@ describe('Hall import', () => {
   });
 });
 
+describe('Hall analysis of one leg', () => {
+  it('keeps the Hall quantities of the picked leg (a multi-leg sweep had none)', async () => {
+    // Bug: picking one leg rebuilt its points from T and rho only, so `hall` disappeared.
+    const up = Array.from({ length: 8 }, (_, k) => 250 + 10 * k);
+    const res = await upload(
+      hallSweepCsv({ temperaturesK: [...up, ...up.slice(0, -1).reverse()] }),
+    );
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const get = (query: string) =>
+      request(ctx.app)
+        .get(`/api/sweeps/${res.body.id}/analysis${query}`)
+        .set(ctx.auth('physicist'));
+    const first = (await get('')).body as SweepAnalysisResponse;
+    expect(first.legs!.map((l) => l.direction)).toEqual(['up', 'down']);
+    expect(first.leg).toBe(1);
+    expect(first.hall!.steps).toHaveLength(8);
+    expect(((await get('?leg=2')).body as SweepAnalysisResponse).hall!.steps).toHaveLength(7);
+  });
+});
+
 describe('Hall import refuses bad input and stores nothing', () => {
   const head = 'T (K),R_A (ohm),R_B (ohm),I (mA),B (T),V_H (mV)';
   const cases: Array<[string, string, Record<string, string>, number, RegExp]> = [
@@ -290,6 +310,11 @@ describe('Hall fits', () => {
     expect(h.carrierType).toBe('n');
     expect(h.carrierDensityAt300KCm3! / truthElectronsCm3(300)).toBeCloseTo(1, 1);
     expect(h.hallMobilityAt300KCm2PerVs! / truthMobility(300)).toBeCloseTo(1, 1);
+    // Two readings a step: the scatter gives each value a standard uncertainty (type A).
+    expect(h.carrierDensityAt300KUncertaintyCm3! / h.carrierDensityAt300KCm3!).toBeGreaterThan(0);
+    expect(h.hallMobilityAt300KUncertaintyCm2PerVs! / h.hallMobilityAt300KCm2PerVs!).toBeLessThan(
+      0.1,
+    );
     const wafer = await Wafer.findByPk((await Sweep.findByPk(sweepId))!.waferId);
     const summary = (await get(`/api/lots/${wafer!.lotId}/summary`)).body as LotSummaryResponse;
     expect(summary.wafers[0]!.hall!.sweepId).toBe(sweepId);

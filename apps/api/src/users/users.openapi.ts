@@ -1,7 +1,7 @@
 import type { AssigneeDto, UserDto } from '@rhotrace/api-types';
 import { ROLES } from '@rhotrace/api-types';
 import { z } from 'zod';
-import { idParams, registry, routesOf } from '../openapi/registry';
+import { registerCrud, registry, routesOf } from '../openapi/registry';
 import { itemsOf, pageOf, timestamps } from '../openapi/shapes';
 import { assigneesQuery, createBody, listQuery, updateBody } from './users.schemas';
 
@@ -34,37 +34,22 @@ export function registerUsersApi(): void {
     ok: { status: 200, description: 'The accounts', schema: itemsOf(assigneeSchema) },
     errors: [403],
   });
-  route({
-    method: 'get',
+  registerCrud({
+    tag: 'Users',
     path: '/users',
-    summary: 'Accounts, a page at a time (admins)',
-    query: listQuery,
-    ok: { status: 200, description: 'A page of accounts', schema: pageOf(userSchema) },
-    errors: [403],
-  });
-  route({
-    method: 'post',
-    path: '/users',
-    summary: 'Creates an account (admins)',
-    body: createBody,
-    ok: { status: 201, description: 'The new account', schema: userSchema },
-    errors: [403, 409],
-  });
-  route({
-    method: 'get',
-    path: '/users/:id',
-    summary: 'One account (admins)',
-    params: idParams,
-    ok: { status: 200, description: 'The account', schema: userSchema },
-    errors: [403, 404],
-  });
-  route({
-    method: 'patch',
-    path: '/users/:id',
-    summary: 'Changes an account: name, role, active, password (admins)',
-    params: idParams,
-    body: updateBody,
-    ok: { status: 200, description: 'The changed account', schema: userSchema },
-    errors: [403, 404, 409],
+    item: userSchema,
+    names: ['account', 'accounts'],
+    list: {
+      summary: 'Accounts, a page at a time (admins)',
+      query: listQuery,
+      schema: pageOf(userSchema),
+      errors: [403],
+    },
+    create: { summary: 'Creates an account (admins)', body: createBody },
+    read: { summary: 'One account (admins)', errors: [403, 404] },
+    update: {
+      summary: 'Changes an account: name, role, active, password (admins)',
+      body: updateBody,
+    },
   });
 }

@@ -1,7 +1,7 @@
 import type { WaferDto } from '@rhotrace/api-types';
 import { WAFER_STATES } from '@rhotrace/api-types';
 import { z } from 'zod';
-import { idParams, registry, routesOf } from '../openapi/registry';
+import { idParams, registerCrud, registry, routesOf } from '../openapi/registry';
 import { pageOf, timestamps } from '../openapi/shapes';
 import { createBody, listQuery, lotListQuery, updateBody } from './wafers.schemas';
 
@@ -45,36 +45,14 @@ export function registerWafersApi(): void {
     ok: { status: 201, description: 'The new wafer', schema: waferDtoSchema },
     errors: [403, 404, 409],
   });
-  route({
-    method: 'get',
+  registerCrud({
+    tag: 'Wafers',
     path: '/wafers',
-    summary: 'Wafers the caller may see, across lots',
-    query: listQuery,
-    ok: { status: 200, description: 'A page of wafers', schema: page },
-  });
-  route({
-    method: 'get',
-    path: '/wafers/:id',
-    summary: 'One wafer',
-    params: idParams,
-    ok: { status: 200, description: 'The wafer', schema: waferDtoSchema },
-    errors: [404],
-  });
-  route({
-    method: 'patch',
-    path: '/wafers/:id',
-    summary: 'Changes some fields of a wafer',
-    params: idParams,
-    body: updateBody,
-    ok: { status: 200, description: 'The changed wafer', schema: waferDtoSchema },
-    errors: [403, 404, 409],
-  });
-  route({
-    method: 'delete',
-    path: '/wafers/:id',
-    summary: 'Deletes a wafer without sweeps',
-    params: idParams,
-    ok: { status: 204, description: 'Deleted' },
-    errors: [403, 404, 409],
+    item: waferDtoSchema,
+    names: ['wafer', 'wafers'],
+    list: { summary: 'Wafers the caller may see, across lots', query: listQuery, schema: page },
+    read: { summary: 'One wafer' },
+    update: { summary: 'Changes some fields of a wafer', body: updateBody },
+    remove: { summary: 'Deletes a wafer without sweeps' },
   });
 }

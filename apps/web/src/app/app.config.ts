@@ -8,6 +8,7 @@ import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from 
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { routes } from './app.routes';
 import { apiInterceptor } from './core/http/api-interceptor';
+import { provideIsoDateAdapter } from './shared/iso-date';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -20,5 +21,6 @@ export const appConfig: ApplicationConfig = {
     ),
     provideHttpClient(withInterceptors([apiInterceptor])),
     { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } },
+    provideIsoDateAdapter(),
   ],
 };

@@ -1,3 +1,4 @@
+import { alsoShownIn } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS, fitLinearTcr } from '@rhotrace/physics';
 import { z } from 'zod';
 import { withPhysicsOnData } from '../../analysis/physics-errors';
@@ -32,7 +33,8 @@ export const tcrKind: FitKindEntry<'tcr'> = {
         goodness: { referenceK },
         reading:
           `Resistivity ${p.referenceResistivityOhmCm.toPrecision(4)} ohm cm at ${referenceK} K, ` +
-          `rising ${(p.alphaPerK * 100).toPrecision(3)} % per kelvin.`,
+          `rising ${(p.alphaPerK * 100).toPrecision(3)} % per kelvin ` +
+          `(${Number(alsoShownIn('alphaPerK', p.alphaPerK)!.value.toPrecision(4))} ppm/K).`,
       }),
       inputs: { kind: 'tcr', referenceK },
       parameterSet: 'linear-tcr',

@@ -22,10 +22,6 @@ describe('the demo sweeps are clean', () => {
       finder.addAll([...points, ...rows.finish()]);
       const summary = finder.finish();
       expect(rows.problems).toEqual([]);
-      console.log(
-        demo.fileName,
-        JSON.stringify(summary.findings.map((f) => [f.sequence, f.flag, f.reason])),
-      );
       expect(summary.findings).toEqual([]);
       expect(summary.warnings).toEqual([]);
       expect(summary.legs).toHaveLength(1);

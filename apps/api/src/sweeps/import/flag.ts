@@ -44,6 +44,8 @@ const WARNING_TEXT: Partial<Record<PointFlag, string>> = {
   'polarity-asymmetry': 'have forward and reverse readings more than 2 % apart',
   'self-heating': 'read high at the higher current level (self-heating)',
   unsettled: 'belong to a step still drifting one way (dwell too short)',
+  'contact-fault':
+    'have reciprocal van der Pauw readings more than 2 % apart (a non-ohmic or misplaced contact)',
 };
 
 /** Finds doubtful points as they come and over the whole sweep at the end. */

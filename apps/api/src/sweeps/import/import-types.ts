@@ -24,6 +24,9 @@ export interface Reading {
   resistanceBOhm: number | null;
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number | null;
+  /** Van der Pauw reciprocal readings R_CD,AB and R_DA,BC (contacts swapped), when the file has them. */
+  resistanceReciprocalOhm?: number | null;
+  resistanceBReciprocalOhm?: number | null;
   /** The row's site (map files), else null or absent. */
   site?: RowSite | null;
   /** Hall sweeps: the field's magnitude, T. */

@@ -13,13 +13,13 @@ import {
   type ResolvedColumn,
 } from '../parse';
 import type { Reading, RowSite } from './import-types';
-
-/** Longest site label kept (the column's width). */
-const SITE_LABEL_LENGTH = 64;
 import { hallColumns, type HallMeaning, type HallReadingKey } from './hall-cells';
 import { POINT_METHODS } from './methods';
 import { polarityOf, signCurrent } from './polarity-cells';
 import { temperatureReader, type TemperatureReader } from './temperature';
+
+/** Longest site label kept (the column's width). */
+const SITE_LABEL_LENGTH = 64;
 
 /** Columns a reading may use, by meaning (null when not mapped). */
 type ColumnsByMeaning = Record<
@@ -29,6 +29,8 @@ type ColumnsByMeaning = Record<
   | 'resistance-b'
   | 'sheet-resistance'
   | 'resistivity'
+  | 'resistance-reciprocal'
+  | 'resistance-b-reciprocal'
   | HallMeaning,
   ResolvedColumn | null
 >;
@@ -43,12 +45,7 @@ export class RowReader {
   /** Whether each column's cell must be filled. */
   private readonly required: Record<keyof ColumnsByMeaning, boolean>;
   private readonly mark: DecimalMark;
-  private readonly site: {
-    x: ResolvedColumn | null;
-    y: ResolvedColumn | null;
-    number: ResolvedColumn | null;
-    label: ResolvedColumn | null;
-  };
+  private readonly site: Record<'x' | 'y' | 'number' | 'label', ResolvedColumn | null>;
   /** True while the row being read has a problem. */
   private bad = false;
   private readonly currentFromHeader: boolean;
@@ -83,6 +80,8 @@ export class RowReader {
       'resistance-b': col('resistance-b'),
       'sheet-resistance': col('sheet-resistance'),
       resistivity: col('resistivity'),
+      'resistance-reciprocal': col('resistance-reciprocal'),
+      'resistance-b-reciprocal': col('resistance-b-reciprocal'),
       ...hallColumns(col),
     };
     const entry = POINT_METHODS[method];
@@ -97,6 +96,8 @@ export class RowReader {
       'resistance-b': cells.has('resistance-b'),
       'sheet-resistance': cells.has('sheet-resistance'),
       resistivity: cells.has('resistivity'),
+      'resistance-reciprocal': false,
+      'resistance-b-reciprocal': false,
       ...hallColumns((m) => cells.has(m)),
     };
     // A method that needs a current takes the file header's when no column gives one.
@@ -129,16 +130,14 @@ export class RowReader {
     const resistanceBOhm = this.value(cells, row, 'resistance-b');
     const sheetResistanceOhmSq = this.value(cells, row, 'sheet-resistance');
     const resistivityOhmCm = this.value(cells, row, 'resistivity');
+    const resistanceReciprocalOhm = this.value(cells, row, 'resistance-reciprocal');
+    const resistanceBReciprocalOhm = this.value(cells, row, 'resistance-b-reciprocal');
     const site = this.readSite(cells, row);
     const hall = this.readHall(cells, row);
     if (this.bad || temperatureRaw === null) return null;
 
-    const junctionK =
-      junctionRaw === null
-        ? null
-        : junction!.unitInfo!.label === 'degC'
-          ? junctionRaw + 273.15
-          : junctionRaw;
+    const celsius = junction?.unitInfo?.label === 'degC';
+    const junctionK = junctionRaw === null ? null : junctionRaw + (celsius ? 273.15 : 0);
     const temperatureK = this.kelvin(temperatureRaw, junctionK, row);
     if (temperatureK === null) return null;
     if (currentA !== null && this.columns.current) {
@@ -148,6 +147,8 @@ export class RowReader {
     if (
       this.notPositive(row, 'resistance', resistanceOhm) ||
       this.notPositive(row, 'resistance-b', resistanceBOhm) ||
+      this.notPositive(row, 'resistance-reciprocal', resistanceReciprocalOhm) ||
+      this.notPositive(row, 'resistance-b-reciprocal', resistanceBReciprocalOhm) ||
       this.notPositive(row, 'sheet-resistance', sheetResistanceOhmSq) ||
       this.notPositive(row, 'resistivity', resistivityOhmCm) ||
       this.notPositive(row, 'magnetic-field', hall.magneticFieldT)
@@ -165,6 +166,8 @@ export class RowReader {
       resistanceBOhm,
       sheetResistanceOhmSq,
       resistivityOhmCm,
+      resistanceReciprocalOhm,
+      resistanceBReciprocalOhm,
       site,
       ...hall,
     };

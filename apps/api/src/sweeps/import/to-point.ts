@@ -19,6 +19,7 @@ import { rowProblem, type ResolvedColumn } from '../parse';
 import type { ConvertedPoint, Reading } from './import-types';
 import { POINT_METHODS, type MethodSettings, type PointInput, type PointValues } from './methods';
 import type { ReadingGroup } from './pair-polarities';
+import { withReciprocals } from './reciprocity';
 import { dualConfigurationConverter, type SitePlacer } from './sites';
 
 /** Arguments of the physics functions that come from the sweep's geometry, not from a row. */
@@ -83,6 +84,14 @@ function pointInput(f: Reading, r: Reading | undefined): PointInput {
     resistanceBOhm: pairMean(f.resistanceBOhm, r.resistanceBOhm),
     sheetResistanceOhmSq: pairMean(f.sheetResistanceOhmSq, r.sheetResistanceOhmSq),
     resistivityOhmCm: pairMean(f.resistivityOhmCm, r.resistivityOhmCm),
+    resistanceReciprocalOhm: pairMean(
+      f.resistanceReciprocalOhm ?? null,
+      r.resistanceReciprocalOhm ?? null,
+    ),
+    resistanceBReciprocalOhm: pairMean(
+      f.resistanceBReciprocalOhm ?? null,
+      r.resistanceBReciprocalOhm ?? null,
+    ),
     // Hall readings reverse their current within a row; a pair keeps the forward one's.
     magneticFieldT: f.magneticFieldT ?? null,
     hallVoltageV: f.hallVoltageV ?? null,
@@ -116,7 +125,7 @@ export function pointMaker(
     return columns.find((c) => meanings.includes(c.meaning))?.header ?? valueColumn;
   };
   return ({ forward: f, reverse: r, flag }) => {
-    const input = pointInput(f, r);
+    const { input, fault } = withReciprocals(pointInput(f, r));
     const placement = placer ? placer.place(f) : null;
     if (placer && !placement) return null;
     if (placement && r && !sameSite(f, r)) {
@@ -183,8 +192,13 @@ export function pointMaker(
     if (asymmetry !== null && asymmetry > POLARITY_ASYMMETRY_LIMIT) {
       flags.push('polarity-asymmetry');
       point.reasons = {
+        ...point.reasons,
         'polarity-asymmetry': `forward and reverse readings differ by ${(asymmetry * 100).toFixed(1)} % (a rectifying or drifting contact, or a thermoelectric offset)`,
       };
+    }
+    if (fault !== null) {
+      flags.push('contact-fault');
+      point.reasons = { ...point.reasons, 'contact-fault': fault };
     }
     if (input.resistanceOhm && input.resistanceBOhm && method === 'van-der-pauw') {
       point.resistanceRatio = input.resistanceOhm / input.resistanceBOhm;

@@ -22,8 +22,20 @@ const NAME_RULES: Array<[ColumnMeaning, RegExp]> = [
   ['current-level', /(level|setpoint|set ?point|range|i ?set|source ?level|nominal)/i],
   ['sheet-resistance', /(sheet|^r_?s$|^rs\b|^rsh|^r_?sq|r_?square|^r ?□)/i],
   ['resistivity', /(resistivity|^rho\b|^ρ|^p_?cm)/i],
-  ['resistance-b', /^(r|res|resistance)[ _-]?(b|2|vert|v|23[ _,]?41|b ?configuration)$/i],
-  ['resistance', /^(r|res|resistance|r[ _-]?(a|1|horiz|h|12[ _,]?34)|v ?\/ ?i|ratio)$/i],
+  // Reciprocal van der Pauw readings (contacts swapped): R_CD,AB of R_A = R_AB,CD, R_DA,BC of R_B.
+  [
+    'resistance-reciprocal',
+    /^(r|res|resistance)[ _-]?(cd[ _,]?ab|34[ _,]?12|(a|1)[ _-]?(rec|recip|reciprocal|'))$/i,
+  ],
+  [
+    'resistance-b-reciprocal',
+    /^(r|res|resistance)[ _-]?(da[ _,]?bc|41[ _,]?23|(b|2)[ _-]?(rec|recip|reciprocal|'))$/i,
+  ],
+  [
+    'resistance-b',
+    /^(r|res|resistance)[ _-]?(b|2|vert|v|23[ _,]?41|bc[ _,]?da|b ?configuration)$/i,
+  ],
+  ['resistance', /^(r|res|resistance|r[ _-]?(a|1|horiz|h|12[ _,]?34|ab[ _,]?cd)|v ?\/ ?i|ratio)$/i],
   [
     'reference-junction',
     /^(cold ?junction|cj|cjc|ref(erence)? ?junction|t_?ref|t_?cj|t_?rj|rj)\b/i,
@@ -74,6 +86,8 @@ export const NUMERIC_MEANINGS: ReadonlySet<ColumnMeaning> = new Set([
   'magnetic-field',
   ...HALL_VOLTAGES,
   'reference-junction',
+  'resistance-reciprocal',
+  'resistance-b-reciprocal',
 ]);
 
 /** Units a meaning may carry (a temperature in ohms is an RTD reading). */
@@ -90,6 +104,8 @@ export function unitFitsMeaning(meaning: ColumnMeaning, unit: Unit): boolean {
       return unit.kind === 'temperature';
     case 'resistance':
     case 'resistance-b':
+    case 'resistance-reciprocal':
+    case 'resistance-b-reciprocal':
       return unit.kind === 'resistance';
     case 'current-level':
       return unit.kind === 'current';
@@ -117,6 +133,8 @@ function defaultUnit(meaning: ColumnMeaning): Unit | null {
     current: 'A',
     resistance: 'ohm',
     'resistance-b': 'ohm',
+    'resistance-reciprocal': 'ohm',
+    'resistance-b-reciprocal': 'ohm',
     'sheet-resistance': 'ohm/sq',
     resistivity: 'ohm_cm',
     'current-level': 'A',

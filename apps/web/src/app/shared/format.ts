@@ -1,3 +1,12 @@
+import {
+  LENGTH_UNIT_OF,
+  type LengthUnit,
+  alsoShownIn,
+  cmToLength,
+  isoDay,
+  isoStampUtc,
+} from '@rhotrace/api-types';
+
 /** Number formatting for lab values: a few significant figures, exponents for extremes. */
 export function formatValue(value: number | null | undefined, digits = 4): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
@@ -34,9 +43,57 @@ function superscript(n: number): string {
 /** Kelvin to degrees Celsius. */
 export const kelvinToCelsius = (k: number): number => k - 273.15;
 
-/** A date-only ISO value shown as the lab writes it (YYYY-MM-DD stays as is). */
-export function formatDay(iso: string | null | undefined): string {
-  return iso ? iso.slice(0, 10) : '–';
+/** A day shown as the lab writes it, ISO 8601 YYYY-MM-DD (a timestamp gives its UTC day). */
+export const formatDay = isoDay;
+
+/** An instant shown to the minute with its zone stated: "2026-12-05 09:18 UTC". */
+export const formatStamp = isoStampUtc;
+
+/**
+ * A stored length (cm) in the unit a lab reads its field in, with the unit: a thickness of
+ * 0.0525 cm is "525 µm", a diameter of 15 cm is "150 mm". A missing value is a dash.
+ */
+export function formatLength(
+  lengthCm: number | null | undefined,
+  field: string,
+  digits = 4,
+): string {
+  if (lengthCm === null || lengthCm === undefined || !Number.isFinite(lengthCm)) return '–';
+  const unit = lengthUnitOf(field);
+  return `${formatValue(cmToLength(lengthCm, unit), digits)} ${unit}`;
+}
+
+/** The unit a stored length field (`thicknessCm`) is typed and shown in; cm when not listed. */
+export function lengthUnitOf(field: string): LengthUnit {
+  return LENGTH_UNIT_OF[field] ?? 'cm';
+}
+
+/**
+ * A parameter's second unit written beside its value, or '' when it has none: a TCR of
+ * 0.003930 1/K gives " (3930 ppm/K)", its standard error 2.1e-5 gives " (21 ppm/K)".
+ */
+export function alsoShownText(key: string, value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '';
+  const also = alsoShownIn(key, value);
+  return also ? ` (${formatValue(also.value, digits)} ${also.unit})` : '';
+}
+
+/**
+ * A fitted value with its standard error, then the same in the parameter's second unit where it
+ * has one: "0.00393 ± 2.1 × 10⁻⁵ (3930 ± 21 ppm/K)" for a TCR, "0.045 ± 0.002" for an energy.
+ */
+export function parameterValueText(
+  key: string,
+  value: number,
+  standardError: number | null | undefined,
+): string {
+  const hasError = standardError !== null && standardError !== undefined;
+  const main = `${formatValue(value, 4)}${hasError ? ` ± ${formatValue(standardError, 2)}` : ''}`;
+  const also = alsoShownIn(key, value);
+  if (!also) return main;
+  const alsoError = hasError ? alsoShownIn(key, standardError)?.value : undefined;
+  const error = alsoError === undefined ? '' : ` ± ${formatValue(alsoError, 2)}`;
+  return `${main} (${formatValue(also.value, 4)}${error} ${also.unit})`;
 }
 
 /** Today's date as YYYY-MM-DD in local time. */

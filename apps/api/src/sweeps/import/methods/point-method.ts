@@ -17,6 +17,9 @@ export interface PointInput {
   resistanceBOhm: number | null;
   sheetResistanceOhmSq: number | null;
   resistivityOhmCm: number | null;
+  /** Van der Pauw reciprocal readings (see `Reading`). */
+  resistanceReciprocalOhm?: number | null;
+  resistanceBReciprocalOhm?: number | null;
   /** Hall sweeps (see `Reading`). */
   magneticFieldT?: number | null;
   hallVoltageV?: number | null;

@@ -1,22 +1,12 @@
-import { Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
+import { DestroyRef, Injectable, computed, effect, inject, signal, untracked } from '@angular/core';
 import { rxResource, takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { type DopingInput, type FitRequest, METAL_FILMS } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
-import { ReplaySubject, Subject, filter, switchMap } from 'rxjs';
+import { ReplaySubject, filter, switchMap } from 'rxjs';
 import { AnalysisApi } from './analysis-api';
 import type { ArrheniusOptions, FreeParameter } from './analysis-labels';
-import {
-  EMPTY_SLOT,
-  type FitJob,
-  type FitSlot,
-  type ShownFit,
-  type SlotState,
-  exclusiveSaves,
-  isSaved,
-  queuedFits,
-  loaded,
-  studyRequest,
-} from './fit-queue';
+import { type FitSlot, type ShownFit, loaded, studyRequest } from './fit-queue';
+import { FitSlots } from './fit-slots';
 import { type FittedOverlay, fittedOverlayOf } from './model-overlay/fitted-overlay';
 import { startingPointResource } from './sweep-study/starting-point';
 import { fitsToDraw } from './fitted-curve';
@@ -80,13 +70,27 @@ export class AnalysisStore {
   });
   readonly includeFlagged = signal(false);
   readonly window = signal<{ minK: number; maxK: number } | null>(null);
-  readonly slots = { window: signal<SlotState>(EMPTY_SLOT), model: signal<SlotState>(EMPTY_SLOT) };
+  /** The Arrhenius-window and model panels' previews and saves. */
+  readonly panels = new FitSlots<FitSlot>(['window', 'model'], {
+    preview: (body) => this.api.previewFit(loaded(this.sweepId()), body),
+    save: (body) => this.api.createFit(loaded(this.sweepId()), body),
+    // The API clips a window reaching past the data; shade and type what was fitted.
+    previewed: (slot, fit) => {
+      if (slot === 'window' && fit?.windowMinK != null && fit.windowMaxK != null)
+        this.window.set({ minK: fit.windowMinK, maxK: fit.windowMaxK });
+    },
+    saved: () => this.fits.reload(),
+    cleared: (slot) => {
+      if (slot === 'window') this.window.set(null);
+    },
+    destroyRef: inject(DestroyRef),
+  });
+  readonly slots = this.panels.slots;
   /** The slot whose fit is being saved, null when none is. */
-  readonly savingSlot = signal<FitSlot | null>(null);
-  readonly saving = computed(() => this.savingSlot() !== null);
+  readonly savingSlot = this.panels.savingSlot;
+  readonly saving = this.panels.saving;
   /** When the save on its way was asked for (`Date.now()`), null when none is. */
-  readonly savingStartedAt = signal<number | null>(null);
-  private readonly cancels$ = new Subject<FitSlot>();
+  readonly savingStartedAt = this.panels.savingStartedAt;
   /** Saved fits chosen for side-by-side comparison. */
   readonly compared = signal<number[]>([]);
   readonly comparedFits = computed(() =>
@@ -96,8 +100,6 @@ export class AnalysisStore {
   readonly drawnFits = computed(() =>
     fitsToDraw([this.slots.window().fit, this.slots.model().fit], this.comparedFits()),
   );
-  private readonly previews$ = new Subject<FitJob<FitSlot>>();
-  private readonly keeps$ = new Subject<FitSlot>();
 
   constructor() {
     toObservable(this.analysis.value)
@@ -115,47 +117,6 @@ export class AnalysisStore {
     effect(() => {
       if (this.isMetal()) untracked(() => this.setDoping({ donorDensity: 0, acceptorDensity: 0 }));
     });
-    this.previews$
-      .pipe(
-        queuedFits<FitSlot>(
-          (body) => this.api.previewFit(loaded(this.sweepId()), body),
-          this.cancels$,
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe(({ slot, body, fit, problem, current }) => {
-        // An answer to a request since discarded or replaced is not shown.
-        if (!current || this.slots[slot]().request !== body) return;
-        this.slots[slot].update((s) => ({ ...s, fit, problem, busy: false, startedAt: null }));
-        // The API clips a window reaching past the data; shade and type what was fitted.
-        if (slot === 'window' && fit?.windowMinK != null && fit.windowMaxK != null)
-          this.window.set({ minK: fit.windowMinK, maxK: fit.windowMaxK });
-      });
-    this.keeps$
-      .pipe(
-        exclusiveSaves<FitSlot>(
-          (slot) => {
-            const { request, busy } = this.slots[slot]();
-            if (!request || busy) return null;
-            this.savingSlot.set(slot);
-            this.savingStartedAt.set(Date.now());
-            return request;
-          },
-          (body) => this.api.createFit(loaded(this.sweepId()), body),
-          this.cancels$,
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((answer) => {
-        this.endSaving();
-        if (!answer) return;
-        if (answer.fit) this.fits.reload();
-        // The slot shows the saved fit unless another preview has replaced the one kept.
-        if (this.slots[answer.slot]().request !== answer.request) return;
-        this.slots[answer.slot].update((s) =>
-          answer.fit ? { ...s, fit: answer.fit, problem: null } : { ...s, problem: answer.problem },
-        );
-      });
   }
 
   /** Studies another sweep: everything shown before is forgotten. */
@@ -165,8 +126,7 @@ export class AnalysisStore {
     this.sweepId.set(sweepId);
     this.window.set(null);
     this.compared.set([]);
-    this.slots.window.set(EMPTY_SLOT);
-    this.slots.model.set(EMPTY_SLOT);
+    this.panels.clear();
   }
 
   /** Shows and takes every temperature in `unit` (remembered for the user). */
@@ -235,41 +195,23 @@ export class AnalysisStore {
 
   /** Saves the previewed fit of a slot; a second click while saving is ignored. */
   keep(slot: FitSlot): void {
-    this.keeps$.next(slot);
+    this.panels.keep(slot);
   }
 
-  /**
-   * Stops the slot's fit or save on its way: the request is aborted (the API stores nothing for
-   * an aborted save) and no answer to it is shown. A preview shown before stays only when the
-   * cancelled work was saving it.
-   */
+  /** Stops the slot's fit or save on its way (see `FitSlots.cancel`). */
   cancel(slot: FitSlot): void {
-    const saving = this.savingSlot() === slot;
-    if (!this.slots[slot]().busy && !saving) return;
-    this.cancels$.next(slot);
-    if (saving) {
-      this.endSaving();
-      const problem = 'Saving was cancelled: nothing was stored.';
-      this.slots[slot].update((s) => ({ ...s, problem }));
-    } else {
-      this.slots[slot].set({ ...EMPTY_SLOT, problem: 'The fit was cancelled.' });
-      if (slot === 'window') this.window.set(null);
-    }
+    this.panels.cancel(slot);
   }
 
   /** Forgets a slot's preview (a saved fit is deleted from the saved list instead). */
   discard(slot: FitSlot): void {
-    this.slots[slot].set(EMPTY_SLOT);
-    if (slot === 'window') this.window.set(null);
+    this.panels.discard(slot);
   }
 
   deleteFit(id: number): void {
     this.api.deleteFit(id).subscribe(() => {
       this.compared.update((list) => list.filter((x) => x !== id));
-      for (const slot of Object.values(this.slots)) {
-        const fit = slot().fit;
-        if (fit && isSaved(fit) && fit.id === id) slot.set(EMPTY_SLOT);
-      }
+      this.panels.forget(id);
       this.fits.reload();
     });
   }
@@ -287,14 +229,6 @@ export class AnalysisStore {
   }
 
   private preview(slot: FitSlot, request: FitRequest): void {
-    const body = studyRequest(request, this.includeFlagged(), this.leg());
-    const asked = { request: body, problem: null, busy: true, startedAt: Date.now() };
-    this.slots[slot].update((s) => ({ ...s, ...asked }));
-    this.previews$.next({ slot, body });
-  }
-
-  private endSaving(): void {
-    this.savingSlot.set(null);
-    this.savingStartedAt.set(null);
+    this.panels.preview(slot, studyRequest(request, this.includeFlagged(), this.leg()));
   }
 }

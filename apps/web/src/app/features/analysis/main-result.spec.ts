@@ -21,7 +21,10 @@ describe('the main result of a fit', () => {
         standardErrors: { referenceResistivityOhmCm: 1e-9, alphaPerK: 2.1e-5 },
       },
     );
-    expect(mainResult(f)).toBe('Temperature coefficient (1/K): 0.0039 ± 2.1 × 10⁻⁵');
+    // 1 ppm/K = 10⁻⁶ 1/K: 0.0039 1/K is 3900 ppm/K, 2.1e-5 1/K is 21 ppm/K.
+    expect(mainResult(f)).toBe(
+      'Temperature coefficient (1/K): 0.0039 ± 2.1 × 10⁻⁵ (3900 ± 21 ppm/K)',
+    );
   });
 
   it('is a parameter the full model freed, never one held fixed', () => {

@@ -1,5 +1,5 @@
 import type { FitDto } from '@rhotrace/api-types';
-import { formatValue } from '../../shared/format';
+import { parameterValueText } from '../../shared/format';
 import { PARAMETER_WORDS, wordsFor } from './analysis-labels';
 import type { ShownFit } from './fit-queue';
 
@@ -30,13 +30,15 @@ export function mainParameter(fit: ShownFit | FitDto): string | null {
   return fitted.find((p) => p in fit.parameters) ?? null;
 }
 
-/** The main result in words: "Temperature coefficient (1/K): 0.0039 ± 2.1 × 10⁻⁵". */
+/**
+ * The main result in words, with a second unit where the parameter has one:
+ * "Temperature coefficient (1/K): 0.0039 ± 2.1 × 10⁻⁵ (3900 ± 21 ppm/K)".
+ */
 export function mainResult(fit: ShownFit | FitDto): string {
   const key = mainParameter(fit);
   const value = key === null ? undefined : fit.parameters[key];
   if (key === null || value === undefined) return '–';
   const se = fit.standardErrors[key];
-  const error =
-    se === null || se === undefined ? ' (no standard error)' : ` ± ${formatValue(se, 2)}`;
-  return `${wordsFor(PARAMETER_WORDS, key)}: ${formatValue(value, 4)}${error}`;
+  const missing = se === null || se === undefined ? ' (no standard error)' : '';
+  return `${wordsFor(PARAMETER_WORDS, key)}: ${parameterValueText(key, value, se)}${missing}`;
 }

@@ -6,6 +6,7 @@ import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator'
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { DEFAULT_PAGE_SIZE } from '@rhotrace/api-types';
+import { formatStamp } from '../../shared/format';
 import { ChangeList } from '../../shared/record-history/change-list';
 import { AuditApi } from './audit-api';
 
@@ -48,7 +49,7 @@ const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit
           <ng-container matColumnDef="when"
             ><th mat-header-cell *matHeaderCellDef>When</th>
             <td mat-cell *matCellDef="let e">
-              {{ e.createdAt.slice(0, 16).replace('T', ' ') }} UTC
+              {{ stamp(e.createdAt) }}
             </td></ng-container
           >
           <ng-container matColumnDef="change"
@@ -79,6 +80,7 @@ const ENTITIES = ['lot', 'wafer', 'station', 'assignment', 'user', 'sweep', 'fit
 export class ChangeTrail {
   private readonly api = inject(AuditApi);
   protected readonly entities = ENTITIES;
+  protected readonly stamp = formatStamp;
   protected readonly columns = ['when', 'change'];
   protected readonly entity = signal('');
   protected readonly recordId = signal('');

@@ -21,6 +21,7 @@ import type { CompareResponse } from '@rhotrace/api-types';
 import { of } from 'rxjs';
 import { TemperatureUnitSetting } from '../../shared/temperature-unit';
 import { EstimateNote } from '../../shared/estimate-note';
+import { HALL_AT_300K_NOTE, HallAt300KLine } from '../../shared/hall-at-300k';
 import { Plot } from '../../shared/plot/plot';
 import { CompareApi } from './compare-api';
 import { type OverlayOptions, overlayFigure } from './overlay-figure';
@@ -36,6 +37,7 @@ import { type OverlayOptions, overlayFigure } from './overlay-figure';
     MatButtonToggleModule,
     Plot,
     EstimateNote,
+    HallAt300KLine,
   ],
   template: `
     <div class="rt-page">
@@ -125,6 +127,16 @@ import { type OverlayOptions, overlayFigure } from './overlay-figure';
             two overlay temperatures around 23 °C.
           </p>
         }
+        @if (hallCurves().length) {
+          <ul class="hall" aria-label="Hall sweeps at 300 K">
+            @for (c of hallCurves(); track c.sweepId) {
+              <li>
+                {{ c.lotCode }} · Wafer {{ c.waferNumber }}: <rt-hall-at-300k [hall]="c.hall" />
+              </li>
+            }
+          </ul>
+          <p class="rt-muted">{{ hallNote }}</p>
+        }
         <rt-estimate-note />
       } @else {
         <p class="rt-muted">Choose lots, then the sweeps to draw.</p>
@@ -140,6 +152,10 @@ import { type OverlayOptions, overlayFigure } from './overlay-figure';
       flex-wrap: wrap;
       gap: 8px 16px;
       margin-bottom: 8px;
+    }
+    .hall {
+      margin: 8px 0 0;
+      padding-left: 20px;
     }
     .choices {
       border: 1px solid var(--mat-sys-outline-variant);
@@ -187,6 +203,11 @@ export class Compare {
       this.curves.isLoading() ? undefined : this.curves.hasValue() ? this.curves.value() : null,
     computation: (next, previous) => (next === undefined ? (previous?.value ?? null) : next),
   });
+  /** The Hall sweeps among the curves shown, with their values at 300 K. */
+  protected readonly hallCurves = computed(() =>
+    (this.shownCurves()?.curves ?? []).flatMap((c) => (c.hall ? [{ ...c, hall: c.hall }] : [])),
+  );
+  protected readonly hallNote = HALL_AT_300K_NOTE;
   protected readonly view = signal<OverlayOptions['view']>('temperature');
   protected readonly logY = signal(true);
   protected readonly normalise = signal(false);

@@ -4,7 +4,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { RouterLink } from '@angular/router';
 import type { RecentFitDto } from '@rhotrace/api-types';
-import { formatDay, formatValue } from '../../shared/format';
+import { formatDay, parameterValueText } from '../../shared/format';
 import { KIND_WORDS, PARAMETER_WORDS } from '../analysis/analysis-labels';
 import { HomeApi } from './home-api';
 
@@ -85,7 +85,6 @@ export class PhysicistDesk {
   protected headline(fit: RecentFitDto): string {
     const h = fit.headline;
     if (!h) return '';
-    const se = h.standardError;
-    return `${PARAMETER_WORDS[h.parameter] ?? h.parameter}: ${formatValue(h.value)}${se ? ' ± ' + formatValue(se, 2) : ''}`;
+    return `${PARAMETER_WORDS[h.parameter] ?? h.parameter}: ${parameterValueText(h.parameter, h.value, h.standardError || null)}`;
   }
 }

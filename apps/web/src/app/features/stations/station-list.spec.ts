@@ -5,10 +5,12 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatDialogHarness } from '@angular/material/dialog/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import type { StationDto, StationInput } from '@rhotrace/api-types';
 import { of, throwError } from 'rxjs';
 import { Session } from '../../core/auth/session';
 import { ApiError } from '../../core/http/api-error';
+import { provideIsoDateAdapter } from '../../shared/iso-date';
 import { StationList } from './station-list';
 import { StationsApi } from './stations-api';
 
@@ -22,6 +24,12 @@ const BENCH: StationDto = {
   minTemperatureK: 77,
   maxTemperatureK: 500,
   calibratedOn: null,
+  // every field the API answers with, so editing copes with the real shape
+  calibrationDueOn: null,
+  calibrationOverdue: false,
+  sensor: { kind: 'thermocouple', type: null },
+  probeSpacingToleranceCm: null,
+  temperatureToleranceK: null,
   notes: null,
   createdAt: '2026-01-01T00:00:00.000Z',
   updatedAt: '2026-01-01T00:00:00.000Z',
@@ -57,6 +65,7 @@ async function setup(stations?: StationDto[]) {
       { provide: StationsApi, useValue: api },
       { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       { provide: Session, useValue: { can: () => true } },
+      provideIsoDateAdapter(),
     ],
   });
   const fixture = TestBed.createComponent(StationList);
@@ -135,5 +144,98 @@ describe('StationList', () => {
     expect(
       await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Register a station' })),
     ).toHaveLength(1);
+  });
+
+  async function editBench() {
+    const ctx = await setup();
+    await (
+      await ctx.loader.getHarness(
+        MatButtonHarness.with({ selector: '[aria-label="Edit Cold bench"]' }),
+      )
+    ).click();
+    const thermometer = await ctx.loader.getHarness(
+      MatSelectHarness.with({ selector: '[formControlName=thermometer]' }),
+    );
+    return { ...ctx, thermometer };
+  }
+
+  it('records a type K thermocouple with its reference junction in °C', async () => {
+    const { api, loader } = await editBench();
+    const type = await loader.getHarness(
+      MatSelectHarness.with({ selector: '[formControlName=type]' }),
+    );
+    await type.open();
+    await type.clickOptions({ text: 'Type K' });
+    const junction = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName=referenceJunctionC]' }),
+    );
+    await junction.setValue('23.4');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    const sensor = api.updates[0]!.body.sensor;
+    expect(api.updates[0]!.body.thermometer).toBe('thermocouple');
+    expect(sensor?.kind === 'thermocouple' && sensor.type).toBe('K');
+    expect(sensor?.kind === 'thermocouple' && sensor.referenceJunctionK).toBeCloseTo(296.55, 9);
+  });
+
+  it('takes a pasted calibration table and names the row that breaks it', async () => {
+    const { api, loader, thermometer } = await editBench();
+    await thermometer.open();
+    await thermometer.clickOptions({ text: 'Calibration table' });
+    const table = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName=points]' }),
+    );
+    await table.setValue('1.10\t20\n1.00\t100\n1.05\t300');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    expect(api.updates).toHaveLength(0);
+    const field = await loader.getHarness(
+      MatFormFieldHarness.with({ floatingLabelText: 'Calibration table' }),
+    );
+    expect((await field.getTextErrors()).join(' ')).toMatch(/^Row 3: the reading 1\.05 breaks/);
+    await table.setValue('1.10\t20\n1.00\t100\n0.50\t300');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    expect(api.updates[0]!.body).toMatchObject({
+      thermometer: 'table',
+      rtdR0Ohm: null,
+      sensor: { kind: 'table', points: [{ reading: 1.1, temperatureK: 20 }, {}, {}] },
+    });
+  });
+
+  it('needs R0 for a platinum RTD', async () => {
+    const { api, loader, thermometer } = await editBench();
+    await thermometer.open();
+    await thermometer.clickOptions({ text: 'Platinum RTD' });
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    expect(api.updates).toHaveLength(0);
+    const r0 = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName=r0Ohm]' }),
+    );
+    await r0.setValue('100');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    expect(api.updates[0]!.body).toMatchObject({
+      rtdR0Ohm: 100,
+      sensor: { kind: 'platinum-rtd', r0Ohm: 100 },
+    });
+  });
+
+  it('takes probe spacing in mm, tip radius in µm and the calibration day as YYYY-MM-DD', async () => {
+    const { api, loader } = await setup();
+    await (
+      await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Edit Cold bench"]' }))
+    ).click();
+    const input = (name: string) =>
+      loader.getHarness(MatInputHarness.with({ selector: `[formControlName=${name}]` }));
+    // The stored 0.1 cm is 1 mm (1 cm = 10 mm, SI).
+    expect(await (await input('probeSpacingCm')).getValue()).toBe('1');
+    await (await input('probeSpacingCm')).setValue('1.59');
+    await (await input('tipRadiusCm')).setValue('40');
+    await (await input('calibratedOn')).setValue('2026-12-05');
+    await (await input('calibratedOn')).blur();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save' }))).click();
+    // 1.59 mm is 0.159 cm and 40 µm is 0.004 cm (1 cm = 10 mm = 10⁴ µm, SI).
+    expect(api.updates[0]?.body).toMatchObject({
+      probeSpacingCm: 0.159,
+      tipRadiusCm: 0.004,
+      calibratedOn: '2026-12-05',
+    });
   });
 });

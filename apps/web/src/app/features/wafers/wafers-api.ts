@@ -4,6 +4,7 @@ import type {
   AssignmentDto,
   AssignmentState,
   DopantDensityResponse,
+  HallFactorName,
   ImportSettingsDto,
   ImportSettingsInput,
   Page,
@@ -33,6 +34,8 @@ export interface SweepStoreOptions {
   layout?: SweepLayoutChoice;
   /** Map fields, sent when set (files with site columns). */
   map?: SweepMapInput;
+  /** The Hall factor r_H, a number or a named one; sent for the hall method only. */
+  hallFactor?: number | HallFactorName;
 }
 
 /** A separator or decimal mark the user gave instead of the detected one. */
@@ -59,6 +62,8 @@ function choiceFields(choices: SweepChoices): FormData {
   if (site?.sitePattern) body.append('sitePattern', site.sitePattern);
   if (site?.edgeExclusionMm !== undefined && Number.isFinite(site.edgeExclusionMm))
     body.append('edgeExclusionMm', String(site.edgeExclusionMm));
+  if (choices.method === 'hall' && choices.hallFactor !== undefined)
+    body.append('hallFactor', String(choices.hallFactor));
   return body;
 }
 

@@ -7,6 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { AuditEventDto, Page } from '@rhotrace/api-types';
 import { of } from 'rxjs';
 import { ChangeList } from './change-list';
+import { formatStamp } from '../format';
 
 /** The records with a history of their own. */
 export type HistoryRecord = 'lots' | 'wafers' | 'stations';
@@ -114,7 +115,5 @@ export class RecordHistory {
     this.page.update((p) => Math.max(1, p + by));
   }
 
-  protected when(iso: string): string {
-    return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
-  }
+  protected readonly when = formatStamp;
 }

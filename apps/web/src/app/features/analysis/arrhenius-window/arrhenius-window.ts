@@ -32,6 +32,7 @@ import { AnalysisStore } from '../analysis-store';
 import { FitCard } from '../fit-card/fit-card';
 import { FitProgress } from '../fit-card/fit-progress';
 import { KeepActions } from '../fit-card/keep-actions';
+import { flaggedArrheniusTrace, flaggedMarks } from '../parts/sweep-faults/flagged-traces';
 import { arrheniusFigure } from './arrhenius-figure';
 
 /**
@@ -82,15 +83,20 @@ export class ArrheniusWindow {
   protected readonly maxK = linkedSignal<number | null>(() => this.store.window()?.maxK ?? null);
   protected readonly typedProblem = signal<string | null>(null);
 
-  protected readonly figure = computed(() =>
-    arrheniusFigure(
-      this.store.analysis.value()?.arrhenius ?? [],
-      this.options().quantity,
+  protected readonly figure = computed(() => {
+    const analysis = this.store.analysis.value();
+    const quantity = this.options().quantity;
+    const figure = arrheniusFigure(
+      analysis?.arrhenius ?? [],
+      quantity,
       this.store.window(),
       this.slot().fit,
       this.store.unit(),
-    ),
-  );
+    );
+    const marks = flaggedMarks(analysis);
+    const flagged = flaggedArrheniusTrace(marks, quantity, this.store.includeFlagged());
+    return flagged ? { ...figure, data: [...figure.data, flagged] } : figure;
+  });
 
   /** A drag selects a range of 1000/T; its ends become the window in kelvin. */
   protected onDragged(selection: PlotSelection): void {

@@ -46,10 +46,28 @@ describe('FitCard', () => {
     expect(text).toContain('not saved');
   });
 
+  it('gives a TCR in ppm/K beside 1/K, its standard error too', async () => {
+    const { text } = await render(
+      previewOf(
+        { kind: 'tcr' },
+        {
+          parameters: { referenceResistivityOhmCm: 1.68e-6, alphaPerK: 0.00393 },
+          standardErrors: { referenceResistivityOhmCm: 1e-9, alphaPerK: 2.1e-5 },
+        },
+      ),
+    );
+    // 1 ppm/K = 10⁻⁶ 1/K: 0.00393 1/K is 3930 ppm/K, 2.1e-5 1/K is 21 ppm/K.
+    expect(text).toContain('0.00393 (3930 ppm/K)');
+    expect(text).toContain('2.1 × 10⁻⁵ (21 ppm/K)');
+    expect(text.match(/ppm\/K/g)).toHaveLength(2);
+  });
+
   it('leaves out what a fit does not state, and names a saved fit with its author', async () => {
     const { el, text } = await render(savedOf(previewOf(BODY), 17));
     expect(text).toContain('(fit 17)');
     expect(text).toContain('by Ada Physicist');
+    // Saved 2026-01-02T03:04:05Z: shown to the minute with the zone stated.
+    expect(text).toContain('2026-01-02 03:04 UTC');
     expect(text).not.toContain('temperature steps');
     expect(text).not.toContain('preview, not saved');
     expect(el.querySelector('[aria-label=Interpretation]')).toBeNull();

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MAX_RELATIVE_STANDARD_ERROR } from '@rhotrace/physics';
-import { formatValue } from '../../../shared/format';
+import { alsoShownText, formatStamp, formatValue } from '../../../shared/format';
 import { type TemperatureUnit, formatTemperatureRange } from '../../../shared/temperature-unit';
 import {
   COMPENSATION_SOURCE_WORDS,
@@ -85,7 +85,7 @@ export class FitCard {
   protected readonly footer = computed(() => {
     const f = this.fit();
     const who = isSaved(f)
-      ? ` · by ${f.createdBy.name ?? 'someone'} · ${f.createdAt.slice(0, 16).replace('T', ' ')}`
+      ? ` · by ${f.createdBy.name ?? 'someone'} · ${formatStamp(f.createdAt)}`
       : ' · not saved: keep it to store it with the sweep';
     return `${modelVersionWords(f.modelVersion)}${who} · engineering estimate`;
   });
@@ -98,8 +98,12 @@ export class FitCard {
       return {
         key,
         words: wordsFor(PARAMETER_WORDS, key),
-        value: formatValue(value, 4),
-        error: !fitted ? 'held fixed' : se === undefined || se === null ? '–' : formatValue(se, 2),
+        value: formatValue(value, 4) + alsoShownText(key, value),
+        error: !fitted
+          ? 'held fixed'
+          : se === undefined || se === null
+            ? '–'
+            : formatValue(se, 2) + alsoShownText(key, se, 2),
         interval: ci ? `${formatValue(ci[0], 4)} … ${formatValue(ci[1], 4)}` : '–',
         caution: !fitted ? null : cautionOf(value, se ?? null, f.converged),
       };

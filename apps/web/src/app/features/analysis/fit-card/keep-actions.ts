@@ -2,18 +2,22 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { MatButtonModule } from '@angular/material/button';
 import { AnalysisStore } from '../analysis-store';
 import { FitProgress } from './fit-progress';
-import { type FitSlot, type ShownFit, isSaved } from '../fit-queue';
+import { type ShownFit, isSaved } from '../fit-queue';
+import type { SlotPanels } from '../fit-slots';
 
-/** Under a previewed fit: keep it (save it with the sweep) or discard it; once kept, says so. */
+/**
+ * Under a previewed fit: keep it (save it with the sweep) or discard it; once kept, says so. The
+ * slot belongs to the study's own panels unless `panels` names others (the Hall part's).
+ */
 @Component({
   selector: 'rt-keep-actions',
   imports: [MatButtonModule, FitProgress],
   template: `
-    @if (savingHere() && store.savingStartedAt(); as started) {
+    @if (savingHere() && owner().savingStartedAt(); as started) {
       <rt-fit-progress
         what="Fitting again and saving"
         [startedAt]="started"
-        (cancelled)="store.cancel(slot())"
+        (cancelled)="owner().cancel(slot())"
       />
     }
     <div class="rt-row actions">
@@ -23,12 +27,12 @@ import { type FitSlot, type ShownFit, isSaved } from '../fit-queue';
         <button
           mat-flat-button
           type="button"
-          (click)="store.keep(slot())"
-          [disabled]="store.saving() || store.slots[slot()]().busy"
+          (click)="owner().keep(slot())"
+          [disabled]="owner().saving() || slotBusy()"
         >
           Keep this fit
         </button>
-        <button mat-button type="button" (click)="store.discard(slot())">Discard</button>
+        <button mat-button type="button" (click)="owner().discard(slot())">Discard</button>
       }
     </div>
   `,
@@ -40,11 +44,14 @@ import { type FitSlot, type ShownFit, isSaved } from '../fit-queue';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class KeepActions {
-  protected readonly store = inject(AnalysisStore);
-  readonly slot = input.required<FitSlot>();
+  private readonly study = inject(AnalysisStore);
+  readonly slot = input.required<string>();
   readonly fit = input.required<ShownFit>();
+  readonly panels = input<SlotPanels>();
+  protected readonly owner = computed<SlotPanels>(() => this.panels() ?? this.study.panels);
+  protected readonly slotBusy = computed(() => this.owner().slots[this.slot()]?.().busy ?? false);
   /** A save of this slot's fit is on its way. */
-  protected readonly savingHere = computed(() => this.store.savingSlot() === this.slot());
+  protected readonly savingHere = computed(() => this.owner().savingSlot() === this.slot());
   protected readonly savedId = computed(() => {
     const f = this.fit();
     return isSaved(f) ? f.id : null;

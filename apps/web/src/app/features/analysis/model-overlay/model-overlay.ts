@@ -15,6 +15,7 @@ import { formatExponent } from '../../../shared/engineering';
 import { Plot } from '../../../shared/plot/plot';
 import { AnalysisStore } from '../analysis-store';
 import { ModelControls } from '../sweep-study/model-controls';
+import { flaggedCurveTrace, flaggedMarks } from '../parts/sweep-faults/flagged-traces';
 import { type CurveOptions, curveFigure, residualFigure } from '../sweep-study/study-plots';
 
 /**
@@ -55,9 +56,12 @@ export class ModelOverlay {
     };
   });
   private readonly steps = computed(() => this.store.analysis.value()?.steps ?? []);
-  protected readonly curveFig = computed(() =>
-    curveFigure(this.steps(), this.store.curveState().curve, this.options()),
-  );
+  protected readonly curveFig = computed(() => {
+    const figure = curveFigure(this.steps(), this.store.curveState().curve, this.options());
+    const marks = flaggedMarks(this.store.analysis.value());
+    const flagged = flaggedCurveTrace(marks, this.store.unit(), this.store.includeFlagged());
+    return flagged ? { ...figure, data: [...figure.data, flagged] } : figure;
+  });
   protected readonly residualFig = computed(() =>
     residualFigure(this.steps(), this.store.curveState().curve, this.options()),
   );

@@ -17,6 +17,7 @@ import {
 import { MatAutocompleteModule } from '@angular/material/autocomplete';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDatepickerModule } from '@angular/material/datepicker';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -26,6 +27,7 @@ import { ApiError, applyServerErrors } from '../../../core/http/api-error';
 import { Caution } from '../../../shared/caution';
 import { fieldError } from '../../../shared/field-error';
 import { todayLocal } from '../../../shared/format';
+import { dayFromIso, isoFromDay } from '../../../shared/iso-date';
 import { AssignmentsApi } from '../assignments-api';
 import { PlanForm, type PlannedSweep } from '../../planner/plan-form/plan-form';
 
@@ -52,6 +54,7 @@ const MAGNET_TASK = /\bhall\b|magnet|\bb[- ]?field|tesla/i;
     MatAutocompleteModule,
     MatButtonModule,
     MatCheckboxModule,
+    MatDatepickerModule,
     Caution,
     PlanForm,
   ],
@@ -88,7 +91,7 @@ export class AssignForm {
 
   protected readonly tasks = COMMON_TASKS;
   protected readonly error = fieldError;
-  protected readonly today = todayLocal();
+  protected readonly today = dayFromIso(todayLocal());
   protected readonly saving = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly unmatched = signal<FieldProblem[]>([]);
@@ -102,7 +105,7 @@ export class AssignForm {
     waferId: this.fb.control<number | null>(null, Validators.required),
     assigneeId: this.fb.control<number | null>(null, Validators.required),
     task: ['', [Validators.required, Validators.maxLength(200)]],
-    dueDate: ['', Validators.required],
+    dueDate: this.fb.control<Date | null>(null, Validators.required),
     notes: this.fb.control<string | null>(null),
     stationId: this.fb.control<number | null>(null),
   });
@@ -152,7 +155,7 @@ export class AssignForm {
         waferId: v.waferId!,
         assigneeId: v.assigneeId!,
         task: v.task,
-        dueDate: v.dueDate,
+        dueDate: isoFromDay(v.dueDate!),
         notes: v.notes || null,
         stationId: v.stationId,
         ...(plan ? { plan: plan.request } : {}),

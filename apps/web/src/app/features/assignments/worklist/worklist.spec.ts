@@ -6,6 +6,7 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 import type { AssignmentDto, UpdateAssignmentRequest } from '@rhotrace/api-types';
 import { of } from 'rxjs';
+import { provideIsoDateAdapter } from '../../../shared/iso-date';
 import { AssignmentsApi } from '../assignments-api';
 import { AssignForm } from './assign-form';
 import { Worklist } from './worklist';
@@ -62,6 +63,7 @@ async function setup() {
       provideRouter([]),
       { provide: AssignmentsApi, useValue: api },
       { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      provideIsoDateAdapter(),
     ],
   });
   TestBed.overrideComponent(Worklist, {
@@ -92,16 +94,24 @@ describe('Worklist', () => {
     expect(api.updates).toEqual([{ id: 5, body: { assigneeId: 3 } }]);
   });
 
-  it('moves the due date from its row, ignoring an emptied field', async () => {
+  it('moves the due date from its row as YYYY-MM-DD, ignoring an emptied field', async () => {
     const { api, fixture } = await setup();
     const due = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>(
       'input[aria-label="When L-7 W03 is due"]',
     )!;
+    const type = (text: string) => {
+      due.value = text;
+      due.dispatchEvent(new Event('input'));
+      due.dispatchEvent(new Event('change'));
+    };
     expect(due.value).toBe('2026-12-01');
-    due.value = '';
-    due.dispatchEvent(new Event('change'));
-    due.value = '2026-12-12';
-    due.dispatchEvent(new Event('change'));
+    type('');
+    type('12/05/2026');
+    await fixture.whenStable();
+    expect(document.body.textContent).toContain(
+      'Write the date as YYYY-MM-DD, e.g. 2026-12-05 ("12/05/2026" is not).',
+    );
+    type('2026-12-12');
     expect(api.updates).toEqual([{ id: 5, body: { dueDate: '2026-12-12' } }]);
   });
 });

@@ -2,7 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, inject, input, signal } f
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatDatepickerModule } from '@angular/material/datepicker';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, type PageEvent } from '@angular/material/paginator';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
@@ -15,6 +17,7 @@ import {
   DEFAULT_PAGE_SIZE,
 } from '@rhotrace/api-types';
 import { formatDay } from '../../../shared/format';
+import { isoFromDay } from '../../../shared/iso-date';
 import { AssignmentsApi } from '../assignments-api';
 import { AssignForm } from './assign-form';
 import { RowCards } from '../../../shared/row-cards';
@@ -29,6 +32,8 @@ import { RowCards } from '../../../shared/row-cards';
     MatSelectModule,
     MatFormFieldModule,
     MatCheckboxModule,
+    MatDatepickerModule,
+    MatInputModule,
     MatButtonModule,
     RouterLink,
     AssignForm,
@@ -53,13 +58,8 @@ import { RowCards } from '../../../shared/row-cards';
       font: var(--mat-sys-body-small);
       color: var(--mat-sys-on-surface-variant);
     }
-    .due-input {
-      font: inherit;
-      color: inherit;
-      background: transparent;
-      border: 1px solid var(--mat-sys-outline-variant);
-      border-radius: 4px;
-      padding: 4px;
+    .due-field {
+      width: 11rem;
     }
     .panel {
       border: 1px solid var(--mat-sys-outline-variant);
@@ -135,9 +135,25 @@ export class Worklist {
     });
   }
 
-  /** Moves the due date (an empty field keeps the old one). */
-  protected redate(a: AssignmentDto, dueDate: string): void {
-    if (!/^\d{4}-\d{2}-\d{2}$/.test(dueDate) || dueDate === a.dueDate) return;
+  /**
+   * Moves the due date (an emptied field keeps the old one; a day not written YYYY-MM-DD is
+   * refused in words).
+   */
+  protected redate(a: AssignmentDto, day: Date | null, field: HTMLElement): void {
+    const text = field instanceof HTMLInputElement ? field.value.trim() : '';
+    if (day === null) {
+      if (text !== '')
+        this.snackBar.open(
+          `Write the date as YYYY-MM-DD, e.g. 2026-12-05 ("${text}" is not).`,
+          'OK',
+          {
+            duration: 6000,
+          },
+        );
+      return;
+    }
+    const dueDate = isoFromDay(day);
+    if (dueDate === a.dueDate) return;
     this.api.update(a.id, { dueDate }).subscribe(() => {
       this.snackBar.open(`Now due on ${dueDate}.`, 'OK', { duration: 4000 });
       this.list.reload();

@@ -129,6 +129,38 @@ describe('LotDetail', () => {
     expect(text()).toContain('Cpk is not given');
   });
 
+  it('shows the Hall values at 300 K with units and uncertainties where a wafer has them', async () => {
+    const { loader: plain } = await setup(summary);
+    const before = await plain.getHarness(
+      MatTableHarness.with({ selector: '[aria-label="Wafers of this lot"]' }),
+    );
+    expect(Object.keys(await before.getCellTextByColumnName())).not.toContain('hall');
+    TestBed.resetTestingModule();
+    const hall = {
+      sweepId: 110,
+      carrierType: 'n' as const,
+      carrierDensityAt300KCm3: 1.0954e15,
+      hallMobilityAt300KCm2PerVs: 1412,
+      hallFactor: 1.1781,
+      carrierDensityAt300KUncertaintyCm3: 1.2247e13,
+      hallMobilityAt300KUncertaintyCm2PerVs: null,
+    };
+    const withHall = {
+      ...summary,
+      wafers: [{ ...summary.wafers[0]!, hall }, ...summary.wafers.slice(1)],
+    };
+    const { loader, text } = await setup(withHall);
+    const table = await loader.getHarness(
+      MatTableHarness.with({ selector: '[aria-label="Wafers of this lot"]' }),
+    );
+    const cells = await table.getCellTextByColumnName();
+    expect(cells['hall']?.text[0]).toBe(
+      'n-type · n = 1.095 × 10¹⁵ ± 1.2 × 10¹³ cm⁻³ · µ_H = 1412 cm²/(V s) (u not known) (r_H = 1.178)',
+    );
+    expect(cells['hall']?.text[1]).toBe('');
+    expect(text()).toContain('one standard uncertainty (k = 1)');
+  });
+
   it('unfolds one wafer budget under the table', async () => {
     const { loader } = await setup(summary);
     const buttons = await loader.getAllHarnesses(MatButtonHarness.with({ text: 'Budget' }));

@@ -29,7 +29,9 @@ import { Downloader, safeName } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { above, fieldError } from '../../../shared/field-error';
 import { formatDay } from '../../../shared/format';
-import { FormatValuePipe } from '../../../shared/format-value';
+import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
+import { HALL_AT_300K_NOTE, HallAt300KLine } from '../../../shared/hall-at-300k';
+import { LengthInput } from '../../../shared/length-input';
 import { Plot } from '../../../shared/plot/plot';
 import { SpecVerdictBadge } from '../../../shared/spec-verdict';
 import { methodWords, ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
@@ -61,11 +63,14 @@ import { RowCards } from '../../../shared/row-cards';
     ReactiveFormsModule,
     RouterLink,
     FormatValuePipe,
+    FormatLengthPipe,
+    LengthInput,
     Plot,
     EstimateNote,
     SpecVerdictBadge,
     ValueAt23C,
     LotMaps,
+    HallAt300KLine,
   ],
   templateUrl: './lot-detail.html',
   styleUrl: './lot-detail.scss',
@@ -96,7 +101,16 @@ export class LotDetail {
     stream: ({ params }) => (Number.isFinite(params) ? this.api.summary(params) : of(undefined)),
   });
 
-  protected readonly columns = ['number', 'state', 'thicknessCm', 'rho', 'verdict', 'budget', 'ea'];
+  /** The table's columns: the Hall values at 300 K only where a wafer has a Hall sweep. */
+  protected readonly columns = computed(() => [
+    ...['number', 'state', 'thicknessCm', 'rho', 'verdict', 'budget'],
+    ...(this.hasHall() ? ['hall'] : []),
+    'ea',
+  ]);
+  protected readonly hasHall = computed(() =>
+    (this.summary.value()?.wafers ?? []).some((w) => !!w.hall),
+  );
+  protected readonly hallNote = HALL_AT_300K_NOTE;
   protected readonly methodWords = methodWords;
   /** The wafer whose uncertainty budget is unfolded below the table. */
   protected readonly budgetWaferId = signal<number | null>(null);

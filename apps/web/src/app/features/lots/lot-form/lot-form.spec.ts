@@ -8,6 +8,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { Router, provideRouter } from '@angular/router';
 import { apiInterceptor } from '../../../core/http/api-interceptor';
+import { provideIsoDateAdapter } from '../../../shared/iso-date';
 import { LotForm } from './lot-form';
 
 async function setup() {
@@ -17,6 +18,7 @@ async function setup() {
       provideRouter([]),
       provideHttpClient(withInterceptors([apiInterceptor])),
       provideHttpClientTesting(),
+      provideIsoDateAdapter(),
     ],
   });
   const fixture = TestBed.createComponent(LotForm);
@@ -68,9 +70,10 @@ describe('LotForm', () => {
     await material.clickOptions({ text: 'GaAs' });
     await (
       await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=thicknessCm]' }))
-    ).setValue('0.05');
+    ).setValue('500');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
 
+    // 500 µm typed is 0.05 cm stored (1 cm = 10⁴ µm, SI).
     const req = backend.expectOne({ method: 'POST', url: '/api/lots' });
     expect(req.request.body).toMatchObject({
       code: 'LV-T-2',
@@ -107,10 +110,72 @@ describe('LotForm', () => {
     expect(await (await field(loader, 'Thickness tolerance ±')).getTextErrors()).toEqual([
       'Use 0 or more.',
     ]);
-    await tolerance.setValue('0.0025');
+    await tolerance.setValue('2000');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
+    backend.expectNone('/api/lots');
+    expect(await (await field(loader, 'Thickness tolerance ±')).getTextErrors()).toEqual([
+      'Use 1000 µm or less.',
+    ]);
+    await tolerance.setValue('25');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
+    // 25 µm is 0.0025 cm (1 cm = 10⁴ µm, SI).
     const req = backend.expectOne({ method: 'POST', url: '/api/lots' });
     expect(req.request.body).toMatchObject({ code: 'LV-T-3', thicknessToleranceCm: 0.0025 });
+  });
+
+  it('takes lengths in the units a lab writes and shows a stored lot back in them', async () => {
+    TestBed.configureTestingModule({
+      imports: [LotForm],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(withInterceptors([apiInterceptor])),
+        provideHttpClientTesting(),
+        provideIsoDateAdapter(),
+      ],
+    });
+    const fixture = TestBed.createComponent(LotForm);
+    fixture.componentRef.setInput('id', '7');
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await fixture.whenStable();
+    TestBed.inject(HttpTestingController)
+      .expectOne('/api/lots/7')
+      .flush({ id: 7, code: 'LV-7', material: 'Si', diameterCm: 15, thicknessCm: 0.0525 });
+    await fixture.whenStable();
+    const value = async (name: string) =>
+      (
+        await loader.getHarness(MatInputHarness.with({ selector: `[formControlName=${name}]` }))
+      ).getValue();
+    // 15 cm is 150 mm, 0.0525 cm is 525 µm (SI prefixes), with the unit beside each field.
+    expect(await value('diameterCm')).toBe('150');
+    expect(await value('thicknessCm')).toBe('525');
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+    expect(text).toContain('µm');
+    expect(text).toContain('mm');
+  });
+
+  it('takes the received day as YYYY-MM-DD and refuses a day written another way', async () => {
+    const { loader, backend, fixture } = await setup();
+    await (
+      await loader.getHarness(MatInputHarness.with({ selector: '[formControlName=code]' }))
+    ).setValue('LV-T-4');
+    const received = await loader.getHarness(
+      MatInputHarness.with({ selector: '[formControlName=receivedOn]' }),
+    );
+    await received.setValue('12/05/2026');
+    await received.blur();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
+    backend.expectNone('/api/lots');
+    expect(await (await field(loader, 'Received on')).getTextErrors()).toEqual([
+      'Write the date as YYYY-MM-DD, e.g. 2026-12-05 ("12/05/2026" is not).',
+    ]);
+    await received.setValue('2026-12-05');
+    await received.blur();
+    await fixture.whenStable();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Register' }))).click();
+    const req = backend.expectOne({ method: 'POST', url: '/api/lots' });
+    expect(req.request.body).toMatchObject({ code: 'LV-T-4', receivedOn: '2026-12-05' });
+    // The field shows the day back in the same form once read.
+    expect(await received.getValue()).toBe('2026-12-05');
   });
 
   it('goes to the new lot when the server accepts it', async () => {

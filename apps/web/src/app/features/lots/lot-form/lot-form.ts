@@ -7,6 +7,7 @@ import {
   Validators,
 } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDatepickerModule } from '@angular/material/datepicker';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
@@ -19,7 +20,10 @@ import {
   type Material,
 } from '@rhotrace/api-types';
 import { ApiError, applyServerErrors } from '../../../core/http/api-error';
-import { above, fieldError } from '../../../shared/field-error';
+import { above, fieldError, lengthAtMost } from '../../../shared/field-error';
+import { lengthUnitOf } from '../../../shared/format';
+import { dayFromIso, isoDayOrNull } from '../../../shared/iso-date';
+import { LengthInput } from '../../../shared/length-input';
 import { LotsApi } from '../lots-api';
 
 function specOrder(group: AbstractControl): ValidationErrors | null {
@@ -40,6 +44,8 @@ function specOrder(group: AbstractControl): ValidationErrors | null {
     MatInputModule,
     MatSelectModule,
     MatButtonModule,
+    MatDatepickerModule,
+    LengthInput,
     RouterLink,
   ],
   templateUrl: './lot-form.html',
@@ -56,6 +62,7 @@ export class LotForm {
 
   protected readonly materials = MATERIALS;
   protected readonly error = fieldError;
+  protected readonly unit = lengthUnitOf;
   protected readonly saving = signal(false);
   protected readonly problems = signal<FieldProblem[]>([]);
   protected readonly message = signal<string | null>(null);
@@ -71,10 +78,10 @@ export class LotForm {
       thicknessCm: this.fb.control<number | null>(null, above(0)),
       thicknessToleranceCm: this.fb.control<number | null>(null, [
         Validators.min(0),
-        Validators.max(0.1),
+        lengthAtMost(0.1, 'thicknessToleranceCm'),
       ]),
       supplier: this.fb.control<string | null>(null, Validators.maxLength(200)),
-      receivedOn: this.fb.control<string | null>(null),
+      receivedOn: this.fb.control<Date | null>(null),
       specMinOhmCm: this.fb.control<number | null>(null, above(0)),
       specMaxOhmCm: this.fb.control<number | null>(null, above(0)),
       notes: this.fb.control<string | null>(null, Validators.maxLength(5000)),
@@ -100,7 +107,7 @@ export class LotForm {
       dopant: raw.dopant || null,
       orientation: raw.orientation || null,
       supplier: raw.supplier || null,
-      receivedOn: raw.receivedOn || null,
+      receivedOn: isoDayOrNull(raw.receivedOn),
       notes: raw.notes || null,
     };
     const id = this.id();
@@ -127,6 +134,9 @@ export class LotForm {
 
   private fill(lot: LotDto): void {
     const { id: _id, createdAt: _c, updatedAt: _u, waferCount: _w, ...values } = lot;
-    this.form.patchValue({ ...values, receivedOn: values.receivedOn?.slice(0, 10) ?? null });
+    this.form.patchValue({
+      ...values,
+      receivedOn: values.receivedOn ? dayFromIso(values.receivedOn.slice(0, 10)) : null,
+    });
   }
 }

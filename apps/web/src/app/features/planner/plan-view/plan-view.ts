@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatTableModule } from '@angular/material/table';
 import type { PlannerResponse } from '@rhotrace/api-types';
 import { Downloader } from '../../../shared/download';
-import { FormatValuePipe } from '../../../shared/format-value';
+import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
 import { Plot } from '../../../shared/plot/plot';
 import { planCsv } from '../plan-csv';
 import { planFigure } from './plan-figure';
@@ -16,7 +16,7 @@ import { siValue } from '../../../shared/si-value';
  */
 @Component({
   selector: 'rt-plan-view',
-  imports: [MatButtonModule, MatTableModule, FormatValuePipe, Plot],
+  imports: [MatButtonModule, MatTableModule, FormatValuePipe, FormatLengthPipe, Plot],
   templateUrl: './plan-view.html',
   styles: `
     .summary {

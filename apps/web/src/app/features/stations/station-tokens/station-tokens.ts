@@ -1,5 +1,4 @@
 import { Clipboard } from '@angular/cdk/clipboard';
-import { DatePipe } from '@angular/common';
 import {
   ChangeDetectionStrategy,
   Component,
@@ -25,6 +24,7 @@ import { filter, of, switchMap } from 'rxjs';
 import { ApiError } from '../../../core/http/api-error';
 import { Confirmer } from '../../../shared/confirm-dialog';
 import { fieldError } from '../../../shared/field-error';
+import { formatDay, formatStamp } from '../../../shared/format';
 import { StationsApi } from '../stations-api';
 import { RowCards } from '../../../shared/row-cards';
 
@@ -42,7 +42,6 @@ import { RowCards } from '../../../shared/row-cards';
     MatInputModule,
     MatSelectModule,
     MatTableModule,
-    DatePipe,
   ],
   templateUrl: './station-tokens.html',
   styles: `
@@ -81,6 +80,8 @@ export class StationTokens {
   readonly stations = input.required<StationDto[]>();
 
   protected readonly error = fieldError;
+  protected readonly day = formatDay;
+  protected readonly stamp = formatStamp;
   protected readonly columns = ['label', 'prefix', 'created', 'lastUsed', 'state', 'revoke'];
   protected readonly stationId = signal<number | null>(null);
   protected readonly made = signal<StationTokenCreatedResponse | null>(null);

@@ -25,6 +25,8 @@ export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
   'hall-voltage-np': ['V', 'mV', 'uV', 'nV'],
   'hall-voltage-nn': ['V', 'mV', 'uV', 'nV'],
   'reference-junction': ['K', 'degC'],
+  'resistance-reciprocal': ['ohm', 'mohm', 'kohm', 'Mohm'],
+  'resistance-b-reciprocal': ['ohm', 'mohm', 'kohm', 'Mohm'],
 };
 
 /**
@@ -55,6 +57,8 @@ export const MEANING_WORDS: Record<ColumnMeaning, string> = {
   'hall-voltage-np': 'Hall voltage at −B, +I',
   'hall-voltage-nn': 'Hall voltage at −B, −I',
   'reference-junction': 'Reference (cold) junction temperature',
+  'resistance-reciprocal': 'reciprocal of R_A (R_CD,AB, contacts swapped)',
+  'resistance-b-reciprocal': 'reciprocal of R_B (R_DA,BC, contacts swapped)',
 };
 
 /** How sure the column detection is, in words (a choice made by hand is certain). */

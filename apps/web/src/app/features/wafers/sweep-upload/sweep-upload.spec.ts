@@ -126,6 +126,22 @@ describe('SweepUpload', () => {
     expect(await store.isDisabled()).toBe(true);
   });
 
+  it('states which temperature conversion the store will use, or why there is none yet', async () => {
+    const { fixture, backend, input } = await setup();
+    const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
+    choose(input, [new File(['a'], 'tc.csv'), new File(['b'], 'rtd.csv')]);
+    await fixture.whenStable();
+    const [tc, rtd] = backend.match('/api/wafers/7/sweeps/preview');
+    const description =
+      'type K thermocouple (file), ITS-90 reference function (NIST Monograph 175), cold junction at 23.40 °C (file metadata)';
+    tc!.flush({ ...READY, temperature: { kind: 'thermocouple', description } });
+    const note = '"T (ohm)" holds ohms: choose a station with a platinum RTD or a table';
+    rtd!.flush({ ...PREVIEW, temperature: null, temperatureNote: note });
+    await fixture.whenStable();
+    expect(text()).toContain(`Temperatures: ${description}.`);
+    expect(text()).toContain(`Temperatures cannot be converted yet: ${note}`);
+  });
+
   // many harness steps: a loaded two-core machine needs more than the default 5 s
   it(
     'gives each file its own method, station and mapping, checked again after each change',
@@ -233,7 +249,8 @@ describe('SweepUpload', () => {
       const thickness = (fixture.nativeElement as HTMLElement).querySelector(
         '.geo input',
       ) as HTMLInputElement;
-      thickness.value = '0.0525';
+      // Typed in µm: 525 µm is 0.0525 cm as the API reads it (1 cm = 10⁴ µm, SI).
+      thickness.value = '525';
       thickness.dispatchEvent(new Event('change'));
       const recheck = backend.expectOne('/api/wafers/7/sweeps/preview');
       expect((recheck.request.body as FormData).get('thicknessCm')).toBe('0.0525');
@@ -292,6 +309,54 @@ describe('SweepUpload', () => {
       const stored = backend.expectOne('/api/wafers/7/sweeps').request.body as FormData;
       expect(stored.get('sitePattern')).toBe('centre-5');
       expect(stored.get('edgeExclusionMm')).toBe('5');
+    },
+  );
+
+  it(
+    'asks a Hall file for its Hall factor, states the assumption and sends the choice',
+    { timeout: 30_000 },
+    async () => {
+      const { fixture, loader, backend, input } = await setup();
+      choose(input, [new File(['x'], 'hall.csv')]);
+      await fixture.whenStable();
+      const hallFile: SweepPreviewResponse = { ...READY, suggestedMethod: 'hall', method: 'hall' };
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(hallFile);
+      await fixture.whenStable();
+      const host = fixture.nativeElement as HTMLElement;
+      const group = '[aria-label="Hall factor of hall.csv"]';
+      const factor = await loader.getHarness(
+        MatSelectHarness.with({ selector: `${group} mat-select` }),
+      );
+      // None chosen: the API's default, 1 (degenerate).
+      expect(await factor.getValueText()).toBe('Degenerate or strong field (1.000)');
+      expect(host.textContent).toContain('n = r_H / (q |R_H|)');
+      // 3 pi / 8 = 1.178 (Blakemore 1962), from the physics library's constant.
+      await factor.open();
+      await factor.clickOptions({ text: 'Acoustic phonons, 3π/8 (1.178)' });
+      const named = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((named.request.body as FormData).get('hallFactor')).toBe('acoustic-phonon');
+      named.flush(hallFile);
+      await fixture.whenStable();
+
+      await factor.open();
+      await factor.clickOptions({ text: 'Another value' });
+      const typed = host.querySelector(`${group} input`) as HTMLInputElement;
+      typed.value = '4';
+      typed.dispatchEvent(new Event('change'));
+      await fixture.whenStable();
+      expect(host.textContent).toContain('r_H must be a number from 0.5 to 3');
+      const unset = backend.expectOne('/api/wafers/7/sweeps/preview');
+      expect((unset.request.body as FormData).get('hallFactor')).toBeNull();
+      unset.flush(hallFile);
+      typed.value = '1.25';
+      typed.dispatchEvent(new Event('change'));
+      backend.expectOne('/api/wafers/7/sweeps/preview').flush(hallFile);
+      await fixture.whenStable();
+
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Store 1 file/ }))).click();
+      const stored = backend.expectOne('/api/wafers/7/sweeps').request.body as FormData;
+      expect(stored.get('method')).toBe('hall');
+      expect(stored.get('hallFactor')).toBe('1.25');
     },
   );
 

@@ -13,7 +13,10 @@ import {
   type MetadataFinding,
   type StationDto,
   type SweepGeometryInput,
+  cmToLength,
+  lengthToCm,
 } from '@rhotrace/api-types';
+import { formatDay, formatLength, lengthUnitOf } from '../../../shared/format';
 import {
   DECIMAL_WORDS,
   DELIMITER_WORDS,
@@ -25,6 +28,7 @@ import {
 } from './column-units';
 import type { SweepLayoutChoice } from '../wafers-api';
 import type { UploadItem } from './upload-item';
+import { UploadHallFields } from './upload-hall-fields';
 import { UploadMapFields } from './upload-map-fields';
 import { UploadStore } from './upload-store';
 
@@ -60,6 +64,7 @@ const SOURCE_WORDS: Record<string, string> = {
     MatProgressBarModule,
     MatRadioModule,
     UploadMapFields,
+    UploadHallFields,
   ],
   templateUrl: './upload-file.html',
   styleUrl: './sweep-upload.scss',
@@ -79,6 +84,8 @@ export class UploadFile {
   protected readonly unitsFor = (m: ColumnMeaning) => UNITS_BY_MEANING[m];
   protected readonly unitLabel = unitLabel;
   protected readonly geometryFields = GEOMETRY_FIELDS;
+  protected readonly unit = lengthUnitOf;
+  protected readonly day = formatDay;
   protected readonly delimiterWords = DELIMITER_WORDS;
   protected readonly decimalWords = DECIMAL_WORDS;
   protected readonly delimiters = Object.keys(DELIMITER_WORDS) as Array<
@@ -108,16 +115,30 @@ export class UploadFile {
       .join(' · ');
   }
 
+  /** How the temperature column will be converted, or why it cannot be yet, in words. */
+  protected temperatureWords(): string {
+    const p = this.item().preview;
+    if (p?.temperature) return `Temperatures: ${p.temperature.description}.`;
+    return p?.temperatureNote ? `Temperatures cannot be converted yet: ${p.temperatureNote}` : '';
+  }
+
   /** What the server would use for a geometry value left empty, in words. */
   protected geometryHint(key: keyof SweepGeometryInput): string {
     const g = this.item().preview?.geometry;
     const value = g?.[key];
     if (value === undefined || !g) return '';
-    return `${Number(value.toPrecision(4))} cm ${SOURCE_WORDS[g.sources[key] ?? ''] ?? ''}`;
+    return `${formatLength(value, key)} ${SOURCE_WORDS[g.sources[key] ?? ''] ?? ''}`;
   }
 
+  /** A chosen length (cm) as typed in its field's unit (µm, mm); empty when not chosen. */
+  protected shownLength(key: keyof SweepGeometryInput): string {
+    const valueCm = this.item().choices.geometry[key];
+    return valueCm === undefined ? '' : String(cmToLength(valueCm, lengthUnitOf(key)));
+  }
+
+  /** Takes a length typed in its field's unit and keeps it in cm, as the API reads it. */
   protected setGeometry(key: keyof SweepGeometryInput, raw: string): void {
-    const value = raw.trim() === '' ? undefined : Number(raw);
+    const value = raw.trim() === '' ? undefined : lengthToCm(Number(raw), lengthUnitOf(key));
     const geometry = { ...this.item().choices.geometry, [key]: value };
     this.store.choose(this.item().key, { geometry });
   }

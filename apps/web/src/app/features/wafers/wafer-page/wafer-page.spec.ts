@@ -67,7 +67,9 @@ function answer(req: TestRequest): void {
     });
   } else if (url === '/api/wafers/7/sweeps') {
     req.flush({
-      items: [{ id: 3, originalName: 'w01.csv', method: 'four-point', pointCount: 1 }],
+      items: [
+        { id: 3, originalName: 'w01.csv', method: 'four-point', pointCount: 1, flaggedPoints: 2 },
+      ],
       total: 1,
     });
   } else if (url === '/api/sweeps/3') {
@@ -106,6 +108,8 @@ describe('WaferPage', () => {
     expect(text).toContain('± 0.54');
     expect(text).toContain('meets spec');
     expect(text).toContain('interpolated between the steps either side');
+    // the sweep list counts each sweep's flagged points
+    expect(text).toMatch(/w01\.csv[\s\S]*\(2 flagged\)/);
     const panel = await loader.getHarness(MatExpansionPanelHarness);
     await panel.expand();
     const budget = await loader.getHarness(

@@ -19,7 +19,7 @@ import { Confirmer } from '../../../shared/confirm-dialog';
 import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
-import { FormatValuePipe } from '../../../shared/format-value';
+import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
 import { thinForDisplay } from '../../../shared/plot/thin';
 import { ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
@@ -58,6 +58,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     MatProgressBarModule,
     RouterLink,
     FormatValuePipe,
+    FormatLengthPipe,
     Plot,
     SweepUpload,
     EstimateNote,

@@ -13,12 +13,11 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { HallAnalysis } from '@rhotrace/api-types';
 import { DOPANTS } from '@rhotrace/physics';
 import { formatExponent, parseExponent } from '../../../../shared/engineering';
-import { FitCard } from '../../fit-card/fit-card';
 import { type HallDoping, isSemiconductor } from '../hall-study/hall-models';
+import { HallFitResult } from '../hall-study/hall-fit-result';
 import { HallFitsStore } from '../hall-study/hall-fits-store';
 
 type Free = 'donorDensity' | 'acceptorDensity' | 'donorLevel' | 'acceptorLevel';
@@ -51,8 +50,7 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
     MatCheckboxModule,
     MatFormFieldModule,
     MatInputModule,
-    MatProgressBarModule,
-    FitCard,
+    HallFitResult,
   ],
   template: `
     <section class="panel" aria-labelledby="hall-density-title">
@@ -117,14 +115,6 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
         >
           Fit n(T)
         </button>
-        <button
-          mat-stroked-button
-          type="button"
-          (click)="store.keep('carrier-density')"
-          [disabled]="!slot().fit || slot().busy"
-        >
-          Keep fit
-        </button>
       </div>
       <p class="rt-muted">
         Empty bounds fit the whole sweep; the level is fixed mostly by the frozen-out steps
@@ -133,15 +123,7 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
         }
         .
       </p>
-      @if (slot().busy) {
-        <mat-progress-bar mode="indeterminate" aria-label="Fitting n(T)" />
-      }
-      @if (slot().problem; as p) {
-        <p class="problem" role="alert">{{ p }}</p>
-      }
-      @if (slot().fit; as f) {
-        <rt-fit-card [fit]="f" />
-      }
+      <rt-hall-fit-result kind="carrier-density" what="Fitting n(T)" />
     </section>
   `,
   styleUrl: '../../study-panel.scss',

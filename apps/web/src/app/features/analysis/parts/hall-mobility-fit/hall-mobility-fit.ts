@@ -11,9 +11,8 @@ import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import type { HallAnalysis } from '@rhotrace/api-types';
-import { FitCard } from '../../fit-card/fit-card';
+import { HallFitResult } from '../hall-study/hall-fit-result';
 import { HallFitsStore } from '../hall-study/hall-fits-store';
 
 /**
@@ -25,14 +24,7 @@ export const HALL_MOBILITY_FROM_K = 150;
 /** The power-law fit of the Hall mobility, mu_H = mu_300 (T / 300)^exponent. */
 @Component({
   selector: 'rt-hall-mobility-fit',
-  imports: [
-    FormsModule,
-    MatButtonModule,
-    MatFormFieldModule,
-    MatInputModule,
-    MatProgressBarModule,
-    FitCard,
-  ],
+  imports: [FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, HallFitResult],
   template: `
     <section class="panel" aria-labelledby="hall-mobility-title">
       <h2 id="hall-mobility-title" class="rt-section-title">Hall mobility fit (power law)</h2>
@@ -51,28 +43,12 @@ export const HALL_MOBILITY_FROM_K = 150;
         <button mat-flat-button type="button" (click)="run()" [disabled]="slot().busy">
           Fit µ_H(T)
         </button>
-        <button
-          mat-stroked-button
-          type="button"
-          (click)="store.keep('hall-mobility')"
-          [disabled]="!slot().fit || slot().busy"
-        >
-          Keep fit
-        </button>
       </div>
       <p class="rt-muted">
         About −1.5 for acoustic phonons, −2.2 to −2.6 in silicon where optical phonons join in, +1.5
         for ionized impurities.
       </p>
-      @if (slot().busy) {
-        <mat-progress-bar mode="indeterminate" aria-label="Fitting µ_H(T)" />
-      }
-      @if (slot().problem; as p) {
-        <p class="problem" role="alert">{{ p }}</p>
-      }
-      @if (slot().fit; as f) {
-        <rt-fit-card [fit]="f" />
-      }
+      <rt-hall-fit-result kind="hall-mobility" what="Fitting µ_H(T)" />
     </section>
   `,
   styleUrl: '../../study-panel.scss',

@@ -35,6 +35,14 @@ describe('SweepFaults', () => {
     expect(text).toContain('(+27.8 %) in leg 1');
   });
 
+  it("shows the import's warnings, such as a van der Pauw R_A/R_B above 3", async () => {
+    const api = withLegs();
+    const ratio = 'R_A/R_B reaches 4.05 (above 3) at 5 point(s): check the contacts';
+    api.analysisAnswer = { ...api.analysisAnswer, importWarnings: [ratio] };
+    const { fixture } = await mountPart(SweepFaults, api);
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain(ratio);
+  });
+
   it('asks the analysis for the leg picked', async () => {
     const api = withLegs();
     const { loader } = await mountPart(SweepFaults, api);

@@ -3,17 +3,7 @@ import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import type { LegDto, PointFlag } from '@rhotrace/api-types';
 import { formatValue } from '../../../../shared/format';
 import { AnalysisStore } from '../../analysis-store';
-
-/** Words for each doubtful flag. */
-const FLAG_WORDS: Partial<Record<PointFlag, string>> = {
-  jump: 'Jump',
-  'temperature-reversal': 'Against the ramp',
-  outlier: 'Outlier',
-  'polarity-asymmetry': 'Polarity asymmetry',
-  'self-heating': 'Self-heating',
-  unsettled: 'Not settled',
-  'contact-fault': 'Contact fault',
-};
+import { FLAG_WORDS } from './flagged-traces';
 
 /**
  * The sweep's ramp legs (pick one to study, or all), the thermal lag an up and a down leg show,
@@ -31,6 +21,7 @@ export class SweepFaults {
   protected readonly analysis = computed(() => this.store.analysis.value());
   protected readonly legs = computed(() => this.analysis()?.legs ?? []);
   protected readonly findings = computed(() => this.analysis()?.findings ?? []);
+  protected readonly importWarnings = computed(() => this.analysis()?.importWarnings ?? []);
   /** The leg shown: the API's choice (null: all legs). */
   protected readonly chosen = computed(() => {
     const leg = this.analysis()?.leg;
