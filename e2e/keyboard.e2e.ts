@@ -111,6 +111,7 @@ describe('the upload with the keyboard alone', () => {
 
     // the plain walk, for the record
     const plainTabs = await tabsUntil(page, /^NGX-DROPZONE/);
+    expect(plainTabs, 'the drop zone is in the Tab order').not.toBeNull();
     console.log(`[e2e] Tab presses from the top to the drop zone without skip links: ${plainTabs}`);
 
     // from the top: the skip link to the upload, Enter, and the drop zone is next
