@@ -44,7 +44,7 @@ export function demoMap(): DemoMap {
     '# station: Hot chuck South',
     'T (K),Site,V (mV),I (mA)',
   ];
-  for (const setK of [280, 296.15, 330]) {
+  for (const setK of [296.15, 313.15, 333.15]) {
     const bulk = resistivity('Si', { donorDensity: 0, acceptorDensity: 1.1e15, acceptor: 'B' }, setK);
     for (const site of SITE_PATTERNS['ring-25']) {
       const { xMm, yMm } = patternSiteMm('ring-25', site.number, usableMm);
@@ -64,7 +64,7 @@ export function demoMap(): DemoMap {
     lotCode: 'LV-26-B014',
     waferNumber: 'W03',
     station: 'Hot chuck South',
-    fileName: 'B014-03_map_ring25_280-330K.csv',
+    fileName: 'B014-03_map_ring25_296-333K.csv',
     spacingCm,
     thicknessCm,
     diameterCm,

@@ -43,7 +43,7 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
 
 export async function down({ context: qi }: { context: QueryInterface }): Promise<void> {
   const [rows] = (await qi.sequelize.query(
-    "SELECT id, storage_key FROM sweeps WHERE original_name = 'B014-03_map_ring25_280-330K.csv'",
+    "SELECT id, storage_key FROM sweeps WHERE original_name = 'B014-03_map_ring25_296-333K.csv'",
   )) as [Array<{ id: number; storage_key: string }>, unknown];
   for (const r of rows) {
     await qi.bulkDelete('sweep_points', { sweep_id: r.id });

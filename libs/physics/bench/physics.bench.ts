@@ -119,11 +119,18 @@ function brentCurve(): number {
 const results: BenchResult[] = [];
 
 // Alternate the two in rounds so both meet the same load on a shared machine; the ratio is the
-// median of the rounds' ratios.
+// median of the rounds' ratios. Both sides time the same points the same number of times after
+// the same warm-up (long enough for V8 to optimise; CPython has no such stage) and report the
+// median.
+const ARRHENIUS_RUNS = 200;
 const rounds = Array.from({ length: 5 }, () => {
-  const ms = time(60, 20, () => fitArrhenius(arrheniusPoints));
-  const scipy = scipyLinregressMs(60, 20);
-  return { ms, scipy, reference: scipy ?? time(60, 20, plainLeastSquares) };
+  const ms = time(ARRHENIUS_RUNS, ARRHENIUS_RUNS, () => fitArrhenius(arrheniusPoints));
+  const scipy = scipyLinregressMs(ARRHENIUS_RUNS, ARRHENIUS_RUNS);
+  return {
+    ms,
+    scipy,
+    reference: scipy ?? time(ARRHENIUS_RUNS, ARRHENIUS_RUNS, plainLeastSquares),
+  };
 });
 const scipyMs = rounds[0]!.scipy;
 const arrheniusMs = median(rounds.map((r) => r.ms));
@@ -149,15 +156,18 @@ results.push({
   pass: curveMs < 1,
 });
 
-const fitMs = time(15, 3, () =>
-  fitModel(sweep, 'Si', start, ['donorDensity', 'acceptorDensity', 'donorLevel']),
-);
+const fitOnce = () =>
+  fitModel(sweep, 'Si', start, ['donorDensity', 'acceptorDensity', 'donorLevel']);
+// The first call runs before V8 has optimised the solver; it is reported beside the steady-state
+// median (after 50 warm-up fits: on a loaded machine V8 compiles the hot code late).
+const firstFitMs = time(1, 0, fitOnce);
+const fitMs = time(30, 50, fitOnce);
 results.push({
   name: 'fitModel, 200-point sweep, 3 free parameters (median)',
   value: fitMs,
   unit: 'ms',
   target: '< 10 ms',
-  reference: 'none (absolute goal)',
+  reference: `none (absolute goal); the first, unoptimised call ${firstFitMs.toFixed(1)} ms`,
   pass: fitMs < 10,
 });
 

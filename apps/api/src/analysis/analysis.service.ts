@@ -16,7 +16,8 @@ import { interpolateWithin, specCheck, specVerdict } from './spec-check';
 import { assessSweep, waferAssessment } from './spec.service';
 import { suggestWindows } from './suggested-windows';
 import { chooseLeg, describeLegs, flaggedReadings, legThermalLag } from './legs';
-import { averageSteps, legReadings, sweepReadings, sweepSummary } from './sweep-data.service';
+import { averageSteps, legReadings, sweepReadings, sweepSteps } from './sweep-data.service';
+import { sweepSummary } from './sweep-summary';
 
 /** Arrhenius coordinates of averaged steps (display transforms only). */
 export function arrheniusCoordinates(steps: readonly AnalysisStep[]): ArrheniusPoint[] {
@@ -47,7 +48,9 @@ export async function sweepAnalysis(
       : readings
           .filter((r) => r.leg === leg)
           .map(({ sequence: _s, leg: _l, excludable: _e, ...point }) => point);
-  const steps = averageSteps(points);
+  // All of a sweep's readings: the steps averaged once while the sweep is cached.
+  const steps =
+    leg === null && site === null ? [...(await sweepSteps(v.sweep))] : averageSteps(points);
   const assessed = await assessSweep(v.sweep, v.wafer, v.lot, steps);
   const factor = hallFactorOf(v.sweep.parseReport);
   const report = v.sweep.parseReport as SweepParseReport;

@@ -6,9 +6,7 @@ import type { FlaggedReadingDto, LegDto, PointFinding } from '@rhotrace/api-type
 import { PHYSICS_DEFAULTS, thermalLag } from '@rhotrace/physics';
 import { validationFailed } from '../errors';
 import { LEG_CHANGE_FACTOR, stepRanges } from '../sweeps/import/faults/legs';
-import type { legReadings } from './sweep-data.service';
-
-type LegReading = Awaited<ReturnType<typeof legReadings>>[number];
+import type { LegReading } from './sweep-data.service';
 
 /** A default leg needs at least this many dwell steps. */
 export const MIN_LEG_STEPS = 5;
@@ -16,7 +14,7 @@ export const MIN_LEG_STEPS = 5;
 export const MIN_LAG_OVERLAP_K = 20;
 
 /** The readings of each leg in recorded order (leg 0, before legs existed, reads as leg 1). */
-function byLeg(readings: LegReading[]): Map<number, LegReading[]> {
+function byLeg(readings: readonly LegReading[]): Map<number, LegReading[]> {
   const legs = new Map<number, LegReading[]>();
   for (const r of readings) {
     const k = r.leg || 1;
@@ -28,13 +26,33 @@ function byLeg(readings: LegReading[]): Map<number, LegReading[]> {
   return new Map([...legs.entries()].sort((a, b) => a[0] - b[0]));
 }
 
-/** Each leg's direction, range and dwell steps. */
-export function describeLegs(readings: LegReading[]): LegDto[] {
+/** Legs described before, by the shared readings list of a cached sweep (see legReadings). */
+const described = new WeakMap<readonly LegReading[], LegDto[]>();
+
+/**
+ * Each leg's direction, range and dwell steps; described once per cached sweep, as the
+ * readings list it is given is shared while the sweep is cached (do not change the answer).
+ */
+export function describeLegs(readings: readonly LegReading[]): LegDto[] {
+  let legs = described.get(readings);
+  if (!legs) {
+    legs = describeLegsOnce(readings);
+    described.set(readings, legs);
+  }
+  return legs;
+}
+
+function describeLegsOnce(readings: readonly LegReading[]): LegDto[] {
   const tol = PHYSICS_DEFAULTS.fitStepToleranceK;
   return [...byLeg(readings).entries()].map(([index, list]) => {
     const t = list.map((r) => r.temperatureK);
-    const minK = Math.min(...t);
-    const maxK = Math.max(...t);
+    // A loop, not Math.min(...t): a 100,000-reading leg would pass 100,000 arguments.
+    let minK = Infinity;
+    let maxK = -Infinity;
+    for (const v of t) {
+      if (v < minK) minK = v;
+      if (v > maxK) maxK = v;
+    }
     const move = t[t.length - 1]! - t[0]!;
     const direction = maxK - minK <= LEG_CHANGE_FACTOR * tol ? 'hold' : move > 0 ? 'up' : 'down';
     return { index, direction, minK, maxK, stepCount: stepRanges(t, 0, t.length, tol).length };
@@ -71,7 +89,7 @@ function noLeg(requested: number, legs: LegDto[]): Error {
  * (readings a fit leaves out are left out here too); null without such a pair or a result.
  */
 export function legThermalLag(
-  readings: LegReading[],
+  readings: readonly LegReading[],
   legs: LegDto[],
 ): { lagK: number; standardErrorK: number } | null {
   const up = legs.find((l) => l.direction === 'up');
@@ -99,7 +117,7 @@ export function legThermalLag(
  * leg when `leg` is null), in recorded order.
  */
 export function flaggedReadings(
-  readings: LegReading[],
+  readings: readonly LegReading[],
   findings: PointFinding[],
   leg: number | null,
 ): FlaggedReadingDto[] {

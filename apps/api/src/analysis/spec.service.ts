@@ -8,7 +8,7 @@ import { Sweep } from '../sweeps/sweep.model';
 import type { Wafer } from '../wafers/wafer.model';
 import { lotModel } from './lot-model';
 import { uncertaintyBudget } from './spec-uncertainty';
-import { averageSteps, sweepReadings } from './sweep-data.service';
+import { sweepSteps } from './sweep-data.service';
 import {
   SPEC_TEMPERATURE_K,
   valueAt23C,
@@ -86,7 +86,7 @@ export async function waferAssessment(
   // A sweep an engineer chose counts, whether or not it reaches 23 °C (its reason then says so).
   const chosen = sweeps.find((s) => s.id === wafer.countedSweepId);
   if (chosen) {
-    const steps = averageSteps((await sweepReadings(chosen)).points);
+    const steps = await sweepSteps(chosen);
     return {
       sweepId: chosen.id,
       sweepCount: sweeps.length,
@@ -95,7 +95,7 @@ export async function waferAssessment(
   }
   let firstMiss: ValueAt23C | null = null;
   for (const sweep of sweeps) {
-    const steps = averageSteps((await sweepReadings(sweep)).points);
+    const steps = await sweepSteps(sweep);
     const assessed = await assessSweep(sweep, wafer, lot, steps);
     if (assessed.value.resistivityOhmCm !== null) {
       return { sweepId: sweep.id, sweepCount: sweeps.length, ...assessed };

@@ -1,12 +1,6 @@
-import type {
-  AnalysisStep,
-  AnalysisSweepDto,
-  MapAtTemperatureDto,
-  PointQuantities,
-} from '@rhotrace/api-types';
+import type { AnalysisStep, MapAtTemperatureDto, PointQuantities } from '@rhotrace/api-types';
 import { FIT_EXCLUDED_FLAGS } from '@rhotrace/api-types';
 import { mean, sampleStandardDeviation } from 'simple-statistics';
-import type { VisibleSweep } from '../access/visibility.service';
 import { type SweepIdentity, SweepCache } from '../sweeps/sweep-cache';
 import { SweepPoint } from '../sweeps/sweep.model';
 import { mapReadings, mapsOf, siteReadings } from '../maps/map-data';
@@ -177,17 +171,31 @@ export async function sweepFitReadings(
   return { points, excluded };
 }
 
-/** Each usable reading with its sequence, leg and whether a fit leaves it out by default. */
-export async function legReadings(
-  sweep: SweepIdentity,
-): Promise<Array<AnalysisPoint & { sequence: number; leg: number; excludable: boolean }>> {
+/** A usable reading with its sequence, leg and whether a fit leaves it out by default. */
+export type LegReading = AnalysisPoint & { sequence: number; leg: number; excludable: boolean };
+
+/** Each cached sweep's readings with their legs, built once: a cache entry never changes. */
+const legReadingsOf = new WeakMap<CachedReadings, readonly LegReading[]>();
+
+/** Each usable reading with its leg; shared while the sweep is cached: never change it. */
+export async function legReadings(sweep: SweepIdentity): Promise<readonly LegReading[]> {
   const c = await loadReadings(sweep);
-  return c.points.map((p, i) => ({
-    ...p,
-    sequence: c.sequences[i]!,
-    leg: c.legs[i]!,
-    excludable: c.excludable[i] === 1,
-  }));
+  let list = legReadingsOf.get(c);
+  if (!list) {
+    list = c.points.map((p, i) => {
+      const r: LegReading = {
+        temperatureK: p.temperatureK,
+        resistivityOhmCm: p.resistivityOhmCm,
+        sequence: c.sequences[i]!,
+        leg: c.legs[i]!,
+        excludable: c.excludable[i] === 1,
+      };
+      if (p.quantities) r.quantities = p.quantities;
+      return r;
+    });
+    legReadingsOf.set(c, list);
+  }
+  return list;
 }
 
 /** The first index in 0..n at which `pred` holds (it must hold from some index on), or n. */
@@ -256,6 +264,23 @@ export function averageSteps(points: readonly AnalysisPoint[]): AnalysisStep[] {
   return steps;
 }
 
+/** Each cached sweep's steps over all its usable readings, averaged once. */
+const stepsOf = new WeakMap<CachedReadings, readonly AnalysisStep[]>();
+
+/**
+ * `averageSteps` of all a sweep's usable readings, averaged once while the sweep is cached (the
+ * study page and the wafer's 23 °C value ask on every visit); shared: never change it.
+ */
+export async function sweepSteps(sweep: SweepIdentity): Promise<readonly AnalysisStep[]> {
+  const c = await loadReadings(sweep);
+  let steps = stepsOf.get(c);
+  if (!steps) {
+    steps = averageSteps(c.points);
+    stepsOf.set(c, steps);
+  }
+  return steps;
+}
+
 /** Points with minK <= T <= maxK (inclusive, as the physics library's windows are). */
 export function pointsInWindow(
   points: readonly AnalysisPoint[],
@@ -263,24 +288,4 @@ export function pointsInWindow(
   maxK: number,
 ): AnalysisPoint[] {
   return points.filter((p) => p.temperatureK >= minK && p.temperatureK <= maxK);
-}
-
-/** The summary block the analysis answers carry. */
-export function sweepSummary(v: VisibleSweep, skipped: number): AnalysisSweepDto {
-  return {
-    id: v.sweep.id,
-    waferId: v.wafer.id,
-    waferNumber: v.wafer.number,
-    lotId: v.lot.id,
-    lotCode: v.lot.code,
-    material: v.lot.material,
-    method: v.sweep.method,
-    stationId: v.sweep.stationId,
-    pointCount: v.sweep.pointCount,
-    skippedPointCount: skipped,
-    minTemperatureK: v.sweep.minTemperatureK,
-    maxTemperatureK: v.sweep.maxTemperatureK,
-    originalName: v.sweep.originalName,
-    createdAt: v.sweep.createdAt.toISOString(),
-  };
 }

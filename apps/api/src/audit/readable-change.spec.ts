@@ -13,6 +13,20 @@ const names: RecordNames = {
 };
 
 describe('an audit change in words', () => {
+  it('gives every stored length in the unit its form takes, and days as YYYY-MM-DD', () => {
+    // 1 cm = 10 mm = 10⁴ µm (SI prefixes).
+    const changes = readableChanges(
+      { thicknessToleranceCm: 0.002, tipRadiusCm: 0.004, receivedOn: null },
+      { thicknessToleranceCm: 0.0025, tipRadiusCm: 0.005, receivedOn: '2026-12-05T00:00:00.000Z' },
+      names,
+    );
+    expect(changes.map((c) => [c.label, c.before, c.after])).toEqual([
+      ['Thickness tolerance', '20 µm', '25 µm'],
+      ['Probe tip radius', '40 µm', '50 µm'],
+      ['Received on', '—', '2026-12-05'],
+    ]);
+  });
+
   it('names fields in words, shows units a lab uses and ids as the records’ names', () => {
     const changes = readableChanges(
       {

@@ -2,7 +2,7 @@
  * The difference between an audit event's before and after states in words: each changed field
  * named as a person reads it, with its unit, and ids given as the records' names.
  */
-import type { AuditChangeDto } from '@rhotrace/api-types';
+import { LENGTH_UNIT_OF, cmToLength, type AuditChangeDto } from '@rhotrace/api-types';
 
 /** Which kind of record an id field points to. */
 export type NamedRecord = 'wafer' | 'lot' | 'station' | 'user' | 'sweep';
@@ -12,8 +12,6 @@ export type RecordNames = Record<NamedRecord, Map<number, string>>;
 
 interface FieldWords {
   label: string;
-  /** Stored value → shown value (a unit change), e.g. cm → µm. */
-  scale?: number;
   unit?: string;
   /** An id of this kind of record, shown as its name. */
   record?: NamedRecord;
@@ -36,15 +34,16 @@ const FIELDS: Record<string, FieldWords> = {
   dueDate: { label: 'Due date' },
   specMinOhmCm: { label: 'Spec minimum', unit: 'Ω·cm' },
   specMaxOhmCm: { label: 'Spec maximum', unit: 'Ω·cm' },
-  thicknessCm: { label: 'Thickness', scale: 1e4, unit: 'µm' },
-  thicknessToleranceCm: { label: 'Thickness tolerance', scale: 1e4, unit: 'µm' },
-  tipRadiusCm: { label: 'Probe tip radius', scale: 1e4, unit: 'µm' },
-  barLengthCm: { label: 'Bar length', scale: 10, unit: 'mm' },
-  barWidthCm: { label: 'Bar width', scale: 10, unit: 'mm' },
-  diameterCm: { label: 'Diameter', scale: 10, unit: 'mm' },
-  spacingCm: { label: 'Probe spacing', scale: 10, unit: 'mm' },
-  probeSpacingCm: { label: 'Probe spacing', scale: 10, unit: 'mm' },
-  probeSpacingToleranceCm: { label: 'Probe spacing tolerance', scale: 10, unit: 'mm' },
+  // Lengths are stored in cm and shown in their field's unit (LENGTH_UNIT_OF: µm or mm).
+  thicknessCm: { label: 'Thickness' },
+  thicknessToleranceCm: { label: 'Thickness tolerance' },
+  tipRadiusCm: { label: 'Probe tip radius' },
+  barLengthCm: { label: 'Bar length' },
+  barWidthCm: { label: 'Bar width' },
+  diameterCm: { label: 'Diameter' },
+  spacingCm: { label: 'Probe spacing' },
+  probeSpacingCm: { label: 'Probe spacing' },
+  probeSpacingToleranceCm: { label: 'Probe spacing tolerance' },
   temperatureToleranceK: { label: 'Temperature tolerance', unit: 'K' },
   minTemperatureK: { label: 'Lowest temperature', unit: 'K' },
   maxTemperatureK: { label: 'Highest temperature', unit: 'K' },
@@ -112,7 +111,8 @@ export function showValue(field: string, value: unknown, names: RecordNames): st
   if (field === 'passwordChanged') return value === true ? 'changed' : 'unchanged';
   if (typeof value === 'boolean') return value ? 'yes' : 'no';
   if (typeof value === 'number') {
-    const shown = value * (words?.scale ?? 1);
+    const lengthUnit = LENGTH_UNIT_OF[field];
+    const shown = lengthUnit ? cmToLength(value, lengthUnit) : value;
     const a = Math.abs(shown);
     const text =
       a !== 0 && (a >= 1e6 || a < 1e-3)
@@ -120,7 +120,8 @@ export function showValue(field: string, value: unknown, names: RecordNames): st
         : Number.isInteger(shown)
           ? String(shown)
           : String(Number(shown.toPrecision(6)));
-    return words?.unit ? `${text} ${words.unit}` : text;
+    const unit = lengthUnit ?? words?.unit;
+    return unit ? `${text} ${unit}` : text;
   }
   if (typeof value === 'string') {
     return /^\d{4}-\d{2}-\d{2}T/.test(value) ? value.slice(0, 10) : value;

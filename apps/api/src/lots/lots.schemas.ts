@@ -1,6 +1,7 @@
 import { LOT_SORT_FIELDS, MATERIALS, METAL_FILMS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import {
+  boundedLength,
   boundedNumber,
   isoDate,
   LIMITS,
@@ -26,10 +27,10 @@ const lotFields = {
     .nullable(),
   dopantType: dopantType.nullable(),
   orientation: optionalText(16),
-  diameterCm: boundedNumber(0.5, 50, 'cm').nullable(),
-  thicknessCm: boundedNumber(1e-7, 1, 'cm').nullable(),
+  diameterCm: boundedLength(0.5, 50, 'diameterCm').nullable(),
+  thicknessCm: boundedLength(1e-7, 1, 'thicknessCm').nullable(),
   /** +/- half-width; read by the uncertainty of the 23 °C values. */
-  thicknessToleranceCm: boundedNumber(0, 0.1, 'cm').nullable(),
+  thicknessToleranceCm: boundedLength(0, 0.1, 'thicknessToleranceCm').nullable(),
   supplier: optionalText(LIMITS.name),
   receivedOn: isoDate.nullable(),
   specMinOhmCm: ohmCm.nullable(),

@@ -1,4 +1,4 @@
-import { DEFAULT_PAGE_SIZE, MAX_PAGE_SIZE } from '@rhotrace/api-types';
+import { DEFAULT_PAGE_SIZE, LENGTH_UNIT_OF, MAX_PAGE_SIZE, cmToLength } from '@rhotrace/api-types';
 import { z, type ZodRawShape } from 'zod';
 import { paginationSchema } from './validate';
 
@@ -35,6 +35,20 @@ export const boundedNumber = (min: number, max: number, unit = '') =>
     .finite('must be a finite number')
     .min(min, `must be at least ${min}${unit ? ` ${unit}` : ''}`)
     .max(max, `must be at most ${max}${unit ? ` ${unit}` : ''}`);
+
+/**
+ * A length stored in cm, between `min` and `max` cm, refused in words that also give the limit
+ * in the unit the field is typed in (`LENGTH_UNIT_OF`): "must be at most 50 cm (500 mm)".
+ */
+export const boundedLength = (min: number, max: number, field: string) => {
+  const unit = LENGTH_UNIT_OF[field];
+  const limit = (cm: number) => (unit ? `${cm} cm (${cmToLength(cm, unit)} ${unit})` : `${cm} cm`);
+  return z
+    .number({ required_error: 'is required', invalid_type_error: 'must be a number' })
+    .finite('must be a finite number')
+    .min(min, `must be at least ${limit(min)}`)
+    .max(max, `must be at most ${limit(max)}`);
+};
 
 /** True for a real calendar day written YYYY-MM-DD (2024-02-30 is refused). */
 export function isIsoDate(value: string): boolean {

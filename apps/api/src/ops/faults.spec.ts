@@ -6,7 +6,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../config';
 import { makeWafer } from '../sweeps/sweep-test-helpers';
-import { freePortForTest } from '../testing/free-port';
+import { freePortsForTest } from '../testing/free-port';
 import { PrivateDatabase } from '../testing/private-database';
 import { fourPointCsv } from '../testing/sweep-files';
 import { createTestContext, type TestContext } from '../testing/test-context';
@@ -197,7 +197,7 @@ describe('faults and scale-out: API processes', () => {
   const processes: ChildProcess[] = [];
 
   async function startApi(): Promise<{ url: string; child: ChildProcess }> {
-    const port = await freePortForTest();
+    const [port, smtpPort] = await freePortsForTest(2);
     const child = spawn(join(REPO_ROOT, 'node_modules/.bin/tsx'), ['apps/api/src/main.ts'], {
       cwd: REPO_ROOT,
       env: {
@@ -207,7 +207,7 @@ describe('faults and scale-out: API processes', () => {
         PORT: String(port),
         DATA_DIR: db.dataDir,
         JWT_SECRET: ctx.config.jwtSecret,
-        SMTP_PORT: String(await freePortForTest()),
+        SMTP_PORT: String(smtpPort),
         LOG_LEVEL: 'silent',
       },
       stdio: 'ignore',

@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, afterEach, describe, expect, it } from 'vitest';
 import { REPO_ROOT } from '../config';
-import { freePortForTest } from '../testing/free-port';
+import { freePortsForTest } from '../testing/free-port';
 
 const tsx = join(REPO_ROOT, 'node_modules/.bin/tsx');
 
@@ -54,11 +54,7 @@ const stacks: Stack[] = [];
 const dataDir = mkdtempSync(join(tmpdir(), 'rhotrace-lifetime-'));
 
 async function startStack(): Promise<Stack> {
-  const [port, dbPort, smtpPort] = [
-    await freePortForTest(),
-    await freePortForTest(),
-    await freePortForTest(),
-  ];
+  const [port, dbPort, smtpPort] = await freePortsForTest(3);
   const env: NodeJS.ProcessEnv = {
     ...process.env,
     DATA_DIR: dataDir,

@@ -91,6 +91,23 @@ describe('a temperature coefficient in ppm/K beside 1/K', () => {
   });
 });
 
+describe('lengths refused in the unit the form takes them in', () => {
+  it('gives the limit in cm as stored and in mm or µm as typed', async () => {
+    // 1 cm = 10 mm = 10⁴ µm (SI): 50 cm is 500 mm, 0.1 cm is 1000 µm.
+    const res = await request(ctx.app)
+      .post('/api/lots')
+      .set(ctx.auth('engineer'))
+      .send({ code: 'UNIT-BIG', material: 'Si', diameterCm: 60, thicknessToleranceCm: 0.2 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details).toEqual(
+      expect.arrayContaining([
+        { field: 'body.diameterCm', problem: 'must be at most 50 cm (500 mm)' },
+        { field: 'body.thicknessToleranceCm', problem: 'must be at most 0.1 cm (1000 µm)' },
+      ]),
+    );
+  });
+});
+
 describe('dates in the report and the e-mails', () => {
   it('gives instants in the report to the minute in UTC, the zone stated', () => {
     // ISO 8601 day and time; 09:18:42Z is 09:18 UTC (seconds dropped, not rounded).

@@ -1,6 +1,7 @@
 import { STATION_SORT_FIELDS, THERMOCOUPLE_LETTERS, THERMOMETERS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import {
+  boundedLength,
   boundedNumber,
   isoDate,
   LIMITS,
@@ -42,8 +43,8 @@ export const sensor = z.discriminatedUnion('kind', [
 export const fields = {
   name: requiredText(100),
   /** Four-point probe spacing: 10 µm to 1 cm. */
-  probeSpacingCm: boundedNumber(0.001, 1, 'cm'),
-  tipRadiusCm: boundedNumber(1e-6, 0.1, 'cm').nullable(),
+  probeSpacingCm: boundedLength(0.001, 1, 'probeSpacingCm'),
+  tipRadiusCm: boundedLength(1e-6, 0.1, 'tipRadiusCm').nullable(),
   thermometer,
   /** A platinum RTD's resistance at 0 °C (Pt100: 100 Ω, Pt1000: 1000 Ω). */
   rtdR0Ohm: boundedNumber(1, 100_000, 'Ω').nullable(),
@@ -52,7 +53,7 @@ export const fields = {
   maxTemperatureK: boundedNumber(0.01, 2000, 'K'),
   calibratedOn: isoDate.nullable(),
   /** +/- half-widths read by the uncertainty budget of 23 °C values. */
-  probeSpacingToleranceCm: boundedNumber(0, 0.1, 'cm').nullable(),
+  probeSpacingToleranceCm: boundedLength(0, 0.1, 'probeSpacingToleranceCm').nullable(),
   temperatureToleranceK: boundedNumber(0, 50, 'K').nullable(),
   notes: optionalText(LIMITS.notes),
 };

@@ -1,7 +1,7 @@
 import { MATERIALS, WAFER_SORT_FIELDS, WAFER_STATES } from '@rhotrace/api-types';
 import { z } from 'zod';
 import {
-  boundedNumber,
+  boundedLength,
   LIMITS,
   listQuerySchema,
   optionalText,
@@ -33,7 +33,7 @@ export const waferNumber = z
 
 export const fields = {
   number: waferNumber,
-  thicknessCm: boundedNumber(1e-7, 1, 'cm').nullable(),
+  thicknessCm: boundedLength(1e-7, 1, 'thicknessCm').nullable(),
   state,
   notes: optionalText(LIMITS.notes),
 };

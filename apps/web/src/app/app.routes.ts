@@ -51,6 +51,7 @@ export const routes: Routes = [
       {
         path: 'sweeps',
         canMatch: [capabilityGuard('fits:run')],
+        data: { preloadFor: 'fits:run' },
         loadChildren: () =>
           import('./features/analysis/analysis.routes').then((m) => m.ANALYSIS_ROUTES),
       },

@@ -101,8 +101,10 @@ export function fitArrhenius(
   const steps = readStepOptions(fn, o);
   // One pass over the points: check each, keep the window's, take the logarithms.
   const list = requireArray(fn, 'points', points, 0);
-  const t = new Float64Array(list.length);
-  const y = new Float64Array(list.length);
+  // One buffer for both columns: allocating a large typed array costs more than filling it.
+  const columns = new Float64Array(2 * list.length);
+  const t = columns.subarray(0, list.length);
+  const y = columns.subarray(list.length);
   const sign = quantity === 'resistivity' ? 1 : -1;
   let n = 0;
   for (let i = 0; i < list.length; i++) {

@@ -10,6 +10,11 @@ export interface LeastSquaresProblem {
   /** Residual vector at p; may return non-finite values where p is infeasible (step rejected). */
   residuals: (p: readonly number[]) => ArrayLike<number>;
   initial: readonly number[];
+  /**
+   * The Jacobian of the residuals at p, m x k as k columns (null where it cannot be evaluated);
+   * default forward differences of `residuals`.
+   */
+  jacobian?: ((p: readonly number[]) => Float64Array[] | null) | undefined;
   maxIterations?: number;
   /** Converged when the relative fall of the sum of squares in an accepted step is below this. */
   costTolerance?: number;
@@ -36,12 +41,16 @@ function sumSquares(r: ArrayLike<number>): number {
   return Number.isFinite(s) ? s : Number.POSITIVE_INFINITY;
 }
 
-/** Forward-difference Jacobian, m x k, column-major as k arrays. */
+/** The problem's Jacobian, else forward differences; m x k, column-major as k arrays. */
 function jacobian(
   problem: LeastSquaresProblem,
   p: number[],
   r0: ArrayLike<number>,
 ): Float64Array[] | null {
+  if (problem.jacobian) {
+    const given = problem.jacobian(p);
+    return given?.every((col) => col.every(Number.isFinite)) ? given : null;
+  }
   const cols: Float64Array[] = [];
   for (let j = 0; j < p.length; j++) {
     const h = 1e-7 * Math.max(Math.abs(p[j]!), 1e-2);
@@ -81,14 +90,31 @@ function normalEquations(
   return { a, g };
 }
 
+/** Damping below which a step is a Gauss–Newton step to within 1 % of the diagonal. */
+const NEAR_GAUSS_NEWTON = 1e-2;
+
+/** The fall of the sum of squares the linearised model predicts for a step: -2 g.d - d.A.d. */
+function predictedFall(a: number[][], g: number[], delta: number[]): number {
+  let fall = 0;
+  for (let i = 0; i < delta.length; i++) {
+    let ad = 0;
+    for (let j = 0; j < delta.length; j++) ad += a[i]![j]! * delta[j]!;
+    fall -= delta[i]! * (2 * g[i]! + ad);
+  }
+  return fall;
+}
+
 /**
  * Minimizes the sum of squared residuals by Levenberg–Marquardt with Marquardt's diagonal
  * scaling: solve (J^T J + lambda diag(J^T J)) delta = -J^T r, accept the step when the sum of
  * squares falls (lambda / 3), otherwise retry with lambda * 4.
  * Convergence is reported only when an accepted step changes the sum of squares by less than
- * `costTolerance` (relative) or the parameters by less than `stepTolerance`, or the gradient
- * vanishes; hitting the iteration cap, a damping overflow or a model that cannot be evaluated is
- * reported as not converged with the reason. Defaults in `PHYSICS_DEFAULTS` (fitMaxIterations,
+ * `costTolerance` (relative) or the parameters by less than `stepTolerance`, when a rejected
+ * step raises it by less than `costTolerance` while the linearised model predicts no larger
+ * fall (J. J. Moré, The Levenberg–Marquardt algorithm: implementation and theory, Lecture
+ * Notes in Mathematics 630 (1978), the ftol test), or when the gradient vanishes; hitting the
+ * iteration cap, a damping overflow or a model that cannot be evaluated is reported as not
+ * converged with the reason. Defaults in `PHYSICS_DEFAULTS` (fitMaxIterations,
  * fitCostTolerance, fitStepTolerance).
  * Source: K. Levenberg, Q. Appl. Math. 2, 164 (1944); D. W. Marquardt, J. SIAM 11, 431 (1963).
  */
@@ -136,6 +162,13 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
         const cq = sumSquares(rq);
         if (cq <= cost) {
           const relFall = (cost - cq) / Math.max(cost, 1e-300);
+          // Both the actual and the predicted fall of a nearly undamped step must be small
+          // (MINPACK's ftol test): a heavily damped step lowers the sum of squares little
+          // anywhere, and one along a direction the data hardly fix (a level far from the Fermi
+          // level) lowers it little without reaching the minimum.
+          const atMinimum =
+            lambda < NEAR_GAUSS_NEWTON &&
+            predictedFall(a, g, delta) <= costTol * Math.max(cost, 1e-300);
           const smallStep = delta.every(
             (d, i) => Math.abs(d) <= stepTol * (Math.abs(p[i]!) + stepTol),
           );
@@ -144,11 +177,23 @@ export function levenbergMarquardt(problem: LeastSquaresProblem): LeastSquaresRe
           cost = cq;
           lambda = Math.max(lambda / 3, 1e-12);
           accepted = true;
-          if (relFall < costTol && iter > 1)
+          if (relFall < costTol && atMinimum && iter > 1)
             return finish(iter, true, 'relative change of the sum of squares below tolerance');
           if (smallStep) return finish(iter, true, 'parameter step below tolerance');
           continue;
         }
+        // At the minimum a step can only trade rounding: when a nearly undamped (Gauss–Newton)
+        // step raises the sum of squares by less than the tolerance and the linearised model
+        // predicts no larger fall, no step can lower it by more (MINPACK's ftol test; Moré
+        // 1978). Without it the damping climbs over many rejected steps until one falls by
+        // rounding luck. A heavily damped step predicts a small fall anywhere, so it never counts.
+        if (
+          iter > 1 &&
+          lambda < NEAR_GAUSS_NEWTON &&
+          cq - cost <= costTol * cost &&
+          predictedFall(a, g, delta) <= costTol * cost
+        )
+          return finish(iter, true, 'relative change of the sum of squares below tolerance');
       }
       lambda *= 4;
       if (lambda > 1e16) {

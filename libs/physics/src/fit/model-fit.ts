@@ -11,8 +11,10 @@ import {
 } from '../semiconductor/dopants';
 import type { SemiconductorId } from '../semiconductor/material';
 import { requireSemiconductor } from '../semiconductor/material';
-import type { CurveTerms, ResistivityOptions } from '../semiconductor/resistivity';
-import { curveTerms, modelPointAt, resolveModel } from '../semiconductor/resistivity';
+import type { ResistivityOptions } from '../semiconductor/resistivity';
+import { curveTerms, resolveModel } from '../semiconductor/resistivity';
+import { lnResistivityAt } from '../semiconductor/resistivity-gradient';
+import { dopingLogs } from '../semiconductor/neutrality-solve';
 import type { FitResult, ParameterScale } from './fit-result';
 import { FIT_PARAMETER_WORDS, parameterWords } from './fit-result';
 import { readPoints } from './points';
@@ -20,6 +22,8 @@ import { fitLnRhoSteps } from './step-levenberg';
 import type { StepOptions } from './steps';
 import { readStepOptions } from './steps';
 import { densityCoordinates } from './model-densities';
+import type { CurveAt, ResolvedParameters } from './model-jacobian';
+import { lnModelGradient } from './model-jacobian';
 
 /** Parameters `fitModel` can free. */
 export type ModelParameter =
@@ -136,11 +140,11 @@ export function fitModel(
     });
     return v;
   };
-  // The fit evaluates the model at the same step temperatures for every parameter set (the
-  // Jacobian's columns differ from their base by 1e-7): the temperature-only terms are computed
-  // once per temperature and each neutrality solve starts from that temperature's last root.
-  const curve = new Map<number, { terms: CurveTerms; eta: number }>();
-  const curveAt = (t: number): { terms: CurveTerms; eta: number } => {
+  // The fit evaluates the model at the same step temperatures for every parameter set: the
+  // temperature-only terms are computed once per temperature and each neutrality solve starts
+  // from that temperature's last root.
+  const curve = new Map<number, CurveAt>();
+  const curveAt = (t: number): CurveAt => {
     let at = curve.get(t);
     if (!at) {
       at = { terms: curveTerms(model, t), eta: Number.NaN };
@@ -148,7 +152,23 @@ export function fitModel(
     }
     return at;
   };
-  const lnModel = (q: readonly number[]): ((t: number) => number) | null => {
+  const resolveUnchecked = (q: readonly number[]): ResolvedParameters => {
+    const v = unpack(q);
+    const doping = ionizeDoping(
+      m,
+      ionization,
+      v.donorDensity,
+      v.acceptorDensity,
+      v.donorLevel,
+      v.acceptorLevel,
+    );
+    return {
+      doping,
+      model: { ...model, mobilityScale: v.mobilityScale },
+      logs: dopingLogs(doping),
+    };
+  };
+  const resolve = (q: readonly number[]): ResolvedParameters | null => {
     const v = unpack(q);
     const feasible =
       v.donorDensity <= MAX_DOPING_CM3 &&
@@ -160,21 +180,17 @@ export function fitModel(
       v.acceptorLevel <= LEVEL_RANGE_EV[1] &&
       v.mobilityScale > MOBILITY_SCALE_RANGE[0] &&
       v.mobilityScale < MOBILITY_SCALE_RANGE[1];
-    if (!feasible) return null;
-    const d = ionizeDoping(
-      m,
-      ionization,
-      v.donorDensity,
-      v.acceptorDensity,
-      v.donorLevel,
-      v.acceptorLevel,
-    );
-    const cfg = { ...model, mobilityScale: v.mobilityScale };
+    return feasible ? resolveUnchecked(q) : null;
+  };
+  const lnModel = (q: readonly number[]): ((t: number) => number) | null => {
+    const r = resolve(q);
+    if (!r) return null;
+    const out = { lnResistivity: 0, eta: 0 };
     return (t) => {
       const at = curveAt(t);
-      const p = modelPointAt(cfg, d, at.terms, at.eta);
-      at.eta = p.eta;
-      return p.lnResistivity;
+      lnResistivityAt(r.model, r.doping, at.terms, at.eta, out, r.logs);
+      at.eta = out.eta;
+      return out.lnResistivity;
     };
   };
   const initialCoordinates = [
@@ -191,6 +207,7 @@ export function fitModel(
     scales,
     initial: initialCoordinates,
     lnModel,
+    lnModelGradient: (q) => lnModelGradient(q, resolve, resolveUnchecked, curveAt),
     reported: (q, cov) => densities.reported(q, cov),
     parametersOf: unpack,
   });

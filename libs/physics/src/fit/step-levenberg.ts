@@ -26,6 +26,13 @@ export interface LnRhoStepProblem<P extends string> {
    */
   lnModel: (q: readonly number[]) => ((temperatureK: number) => number) | null;
   /**
+   * The model's ln rho(T) that also writes d ln rho / dq into `gradient`, or null where q is
+   * infeasible; without it the solver takes forward differences of `lnModel`.
+   */
+  lnModelGradient?: (
+    q: readonly number[],
+  ) => ((temperatureK: number, gradient: Float64Array) => number) | null;
+  /**
    * Maps the solver's coordinates and their covariance to the reported ones (`names`, `scales`);
    * default: the same.
    */
@@ -70,8 +77,20 @@ export function fitLnRhoSteps<P extends string>(problem: LnRhoStepProblem<P>): F
         }
         return out;
       },
+      jacobian: problem.lnModelGradient && ((q) => whitenedJacobian(q, sigma)),
       initial: start,
     });
+  };
+  const whitenedJacobian = (q: readonly number[], sigma: number[]): Float64Array[] | null => {
+    const model = problem.lnModelGradient!(q);
+    if (!model) return null;
+    const cols = names.map(() => new Float64Array(steps.length));
+    const gradient = new Float64Array(k);
+    for (let i = 0; i < steps.length; i++) {
+      model(steps[i]!.temperatureK, gradient);
+      for (let j = 0; j < k; j++) cols[j]![i] = gradient[j]! / sigma[i]!;
+    }
+    return cols;
   };
   let lm = solve(problem.initial);
   let iterations = lm.iterations;

@@ -93,7 +93,8 @@ export interface DwellStepColumns {
 
 /**
  * @internal `dwellSteps` over the first `n` readings, into typed arrays with no object per step
- * (the same arithmetic: `dwellSteps` is built on it).
+ * (the same arithmetic: `dwellSteps` is built on it). A first pass counts the steps so that
+ * the arrays hold steps, not readings: a large typed array costs more to allocate than a pass.
  */
 export function dwellStepColumns(
   temperaturesK: ArrayLike<number>,
@@ -101,16 +102,16 @@ export function dwellStepColumns(
   n: number,
   toleranceK: number,
 ): DwellStepColumns {
-  const temperatureK = new Float64Array(n);
-  const mean = new Float64Array(n);
-  const ssOf = new Float64Array(n);
-  const count = new Float64Array(n);
   let length = 0;
-  let i = 0;
-  while (i < n) {
-    const first = temperaturesK[i]!;
-    let end = i + 1;
-    while (end < n && Math.abs(temperaturesK[end]! - first) <= toleranceK) end++;
+  for (let i = 0; i < n; length++) i = stepEnd(temperaturesK, i, n, toleranceK);
+  const temperatureK = new Float64Array(length);
+  const mean = new Float64Array(length);
+  const ssOf = new Float64Array(length);
+  const count = new Float64Array(length);
+  let pooledSs = 0;
+  let pooledDof = 0;
+  for (let s = 0, i = 0; s < length; s++) {
+    const end = stepEnd(temperaturesK, i, n, toleranceK);
     let st = 0;
     let sy = 0;
     for (let j = i; j < end; j++) {
@@ -121,18 +122,13 @@ export function dwellStepColumns(
     const m = sy / k;
     let ss = 0;
     for (let j = i; j < end; j++) ss += (y[j]! - m) ** 2;
-    temperatureK[length] = st / k;
-    mean[length] = m;
-    ssOf[length] = ss;
-    count[length] = k;
-    length++;
+    temperatureK[s] = st / k;
+    mean[s] = m;
+    ssOf[s] = ss;
+    count[s] = k;
+    pooledSs += ss;
+    pooledDof += k - 1;
     i = end;
-  }
-  let pooledSs = 0;
-  let pooledDof = 0;
-  for (let s = 0; s < length; s++) {
-    pooledSs += ssOf[s]!;
-    pooledDof += count[s]! - 1;
   }
   const pooled = pooledDof > 0 ? pooledSs / pooledDof : 0;
   const varianceOfMean = new Float64Array(length);
@@ -142,11 +138,13 @@ export function dwellStepColumns(
     const variance = own > 0 ? own : pooled;
     varianceOfMean[s] = pooled > 0 ? variance / k : 1;
   }
-  return {
-    length,
-    temperatureK: temperatureK.subarray(0, length),
-    mean: mean.subarray(0, length),
-    varianceOfMean,
-    count: count.subarray(0, length),
-  };
+  return { length, temperatureK, mean, varianceOfMean, count };
+}
+
+/** The index after the step that starts at reading i. */
+function stepEnd(temperaturesK: ArrayLike<number>, i: number, n: number, toleranceK: number) {
+  const first = temperaturesK[i]!;
+  let end = i + 1;
+  while (end < n && Math.abs(temperaturesK[end]! - first) <= toleranceK) end++;
+  return end;
 }

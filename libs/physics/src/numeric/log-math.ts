@@ -19,3 +19,13 @@ export function logAddExp(a: number, b: number): number {
 export function logisticComplement(x: number): number {
   return x > 0 ? Math.exp(-x) / (1 + Math.exp(-x)) : 1 / (1 + Math.exp(x));
 }
+
+/**
+ * softplus(x) = ln(1 + e^x), with 1 / (1 + e^-x) written to `out.logistic`: both from the one
+ * exponential e^-|x|, and equal to the bit to `softplus(x)` and `logisticComplement(-x)`.
+ */
+export function softplusWithLogistic(x: number, out: { logistic: number }): number {
+  const e = Math.exp(-Math.abs(x));
+  out.logistic = x < 0 ? e / (1 + e) : 1 / (1 + e);
+  return x > 0 ? x + Math.log1p(e) : Math.log1p(e);
+}

@@ -3,6 +3,7 @@
  */
 import type { MobilityModelId } from '../defaults';
 import { PHYSICS_DEFAULTS } from '../defaults';
+import { logisticComplement } from '../numeric/log-math';
 import { requireNonNegative, requireOneOf, requireTemperatureK } from '../validate';
 import type { Carrier, Citation, SemiconductorId } from './material';
 import { requireCarrier, requireSemiconductor } from './material';
@@ -174,6 +175,15 @@ export function mobilityAt(terms: MobilityTerms, lnImpurityDensity: number): num
     terms.base +
     terms.scale / (1 + Math.exp(terms.exponent * (lnImpurityDensity - terms.lnDensityRef)))
   );
+}
+
+/**
+ * @internal d mu / d ln N of `mobilityAt`: with x = exponent (ln N - ln N_ref),
+ * -scale exponent e^x / (1 + e^x)^2, written as two logistic factors so it cannot overflow.
+ */
+export function mobilitySlopeAt(terms: MobilityTerms, lnImpurityDensity: number): number {
+  const x = terms.exponent * (lnImpurityDensity - terms.lnDensityRef);
+  return -terms.scale * terms.exponent * logisticComplement(x) * logisticComplement(-x);
 }
 
 /** @internal Mobility without input checks. */

@@ -5,7 +5,7 @@
 import { BOLTZMANN_EV_PER_K } from '../constants';
 import { PHYSICS_DEFAULTS } from '../defaults';
 import { brentRoot } from '../numeric/brent';
-import { logAddExp, logisticComplement, softplus } from '../numeric/log-math';
+import { logAddExp, logisticComplement, softplus, softplusWithLogistic } from '../numeric/log-math';
 import { bandGapUnchecked } from './band-gap';
 import type { DensityOfStatesSet } from './density-of-states';
 import { logDensityOfStates } from './density-of-states';
@@ -41,6 +41,45 @@ const LN_GA = Math.log(PHYSICS_DEFAULTS.acceptorDegeneracy);
 const BRACKET_MARGIN = 80;
 const NEWTON_MAX_STEPS = 60;
 const NEWTON_STEP_TOLERANCE = 1e-8;
+/** The logistic `softplusWithLogistic` returns beside softplus (the solve is synchronous). */
+const scratch = { logistic: 0 };
+
+/** @internal The logarithms of a doping that every temperature's solve shares. */
+export interface DopingLogs {
+  lnNd: number;
+  lnNa: number;
+  /** ln of the merged (always ionized) shares 1 - b and of the bound shares b. */
+  lnFreeD: number;
+  lnFreeA: number;
+  lnBD: number;
+  lnBA: number;
+  /** No bound share (b = 0): the species is fully ionized. */
+  donorsFull: boolean;
+  acceptorsFull: boolean;
+  /** ln(N_D + N_A) and ln|N_D - N_A| (-Infinity when 0). */
+  lnTotal: number;
+  lnNet: number;
+}
+
+/** @internal Takes a doping's logarithms once, for a curve or a fit's parameter set. */
+export function dopingLogs(doping: ResolvedDoping): DopingLogs {
+  const { donorDensity, acceptorDensity } = doping;
+  // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
+  const bD = donorDensity === 0 ? 0 : doping.donorBoundFraction;
+  const bA = acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
+  return {
+    lnNd: donorDensity > 0 ? Math.log(donorDensity) : Number.NEGATIVE_INFINITY,
+    lnNa: acceptorDensity > 0 ? Math.log(acceptorDensity) : Number.NEGATIVE_INFINITY,
+    lnFreeD: bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD),
+    lnFreeA: bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA),
+    lnBD: bD === 0 ? 0 : Math.log(bD),
+    lnBA: bA === 0 ? 0 : Math.log(bA),
+    donorsFull: bD === 0,
+    acceptorsFull: bA === 0,
+    lnTotal: Math.log(donorDensity + acceptorDensity),
+    lnNet: Math.log(Math.abs(donorDensity - acceptorDensity)),
+  };
+}
 
 /**
  * @internal The neutrality function g(eta) = ln(p + N_D^+) - ln(n + N_A^-), eta = E_F / kT
@@ -61,25 +100,23 @@ export class NeutralityFunction {
   private readonly lnFreeA: number;
   private readonly lnBD: number;
   private readonly lnBA: number;
+  private readonly kT: number;
 
-  constructor(terms: TemperatureTerms, doping: ResolvedDoping) {
+  constructor(terms: TemperatureTerms, doping: ResolvedDoping, logs = dopingLogs(doping)) {
     const { kT, epsG, lnNc, lnNv } = terms;
+    this.kT = kT;
     this.lnNv = lnNv;
-    this.lnNd = doping.donorDensity > 0 ? Math.log(doping.donorDensity) : Number.NEGATIVE_INFINITY;
-    this.lnNa =
-      doping.acceptorDensity > 0 ? Math.log(doping.acceptorDensity) : Number.NEGATIVE_INFINITY;
+    this.lnNd = logs.lnNd;
+    this.lnNa = logs.lnNa;
     // Donor term exponent: ln gD + (E_F - (E_c - E_d)) / kT = ln gD + eta - epsG + epsD.
     this.donorShift = LN_GD - epsG + doping.donorLevelEv / kT;
     this.acceptorShift = LN_GA + doping.acceptorLevelEv / kT;
-    // N_D^+ = N_D [(1 - b) + b / (1 + e^s)]: a share 1 - b has merged with the band (ionized).
-    const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
-    const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
-    this.donorsFull = bD === 0;
-    this.acceptorsFull = bA === 0;
-    this.lnFreeD = bD >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bD);
-    this.lnFreeA = bA >= 1 ? Number.NEGATIVE_INFINITY : Math.log1p(-bA);
-    this.lnBD = this.donorsFull ? 0 : Math.log(bD);
-    this.lnBA = this.acceptorsFull ? 0 : Math.log(bA);
+    this.donorsFull = logs.donorsFull;
+    this.acceptorsFull = logs.acceptorsFull;
+    this.lnFreeD = logs.lnFreeD;
+    this.lnFreeA = logs.lnFreeA;
+    this.lnBD = logs.lnBD;
+    this.lnBA = logs.lnBA;
     this.lnNcMinusG = lnNc - epsG;
   }
 
@@ -106,21 +143,21 @@ export class NeutralityFunction {
     const lnN = this.lnNcMinusG + eta;
     let lnDp = this.lnNd;
     let dLnDp = 0;
+    // With no merged share (ln(1 - b) = -Infinity) ln F is the bound term itself and
+    // e^(bound - ln F) is exactly 1: the exponential is skipped, the result is the same.
     if (!this.donorsFull) {
-      const s = this.donorShift + eta;
-      const bound = this.lnBD - softplus(s);
+      const bound = this.lnBD - softplusWithLogistic(this.donorShift + eta, scratch);
       const lnF = logAddExp(this.lnFreeD, bound);
       lnDp = this.lnNd + lnF;
-      dLnDp = -Math.exp(bound - lnF) * logisticComplement(-s);
+      dLnDp = -(lnF === bound ? 1 : Math.exp(bound - lnF)) * scratch.logistic;
     }
     let lnAm = this.lnNa;
     let dLnAm = 0;
     if (!this.acceptorsFull) {
-      const s = this.acceptorShift - eta;
-      const bound = this.lnBA - softplus(s);
+      const bound = this.lnBA - softplusWithLogistic(this.acceptorShift - eta, scratch);
       const lnF = logAddExp(this.lnFreeA, bound);
       lnAm = this.lnNa + lnF;
-      dLnAm = Math.exp(bound - lnF) * logisticComplement(-s);
+      dLnAm = (lnF === bound ? 1 : Math.exp(bound - lnF)) * scratch.logistic;
     }
     const u = logAddExp(lnP, lnDp);
     const v = logAddExp(lnN, lnAm);
@@ -129,14 +166,64 @@ export class NeutralityFunction {
     out.slope = du - dv;
     return u - v;
   }
+
+  /**
+   * The partial derivatives of g at eta (for the implicit-function derivative of the root,
+   * d eta / dx = -(dg/dx) / (dg/d eta)). With F_D = (1 - b_D) + b_D / (1 + e^s) and
+   * U = ln(p + N_D F_D): dU/dN_D = F_D / (p + N_D^+), dU/db_D = -(N_D^+ / (p + N_D^+))
+   * logistic(s) / F_D, dU/dE_d = (N_D^+ / (p + N_D^+)) (d ln F_D / ds) / kT; the acceptor
+   * terms likewise with the opposite sign (g = U - V) and s = ln g_A + (E_a - E_F) / kT.
+   */
+  partials(eta: number, out: NeutralityPartials): void {
+    const lnP = this.lnNv - eta;
+    const lnN = this.lnNcMinusG + eta;
+    // The donor side: ln F_D, d ln F_D / ds and logistic(s) at s = donorShift + eta.
+    const sD = this.donorShift + eta;
+    const logisticD = logisticComplement(-sD);
+    const boundD = this.lnBD - softplus(sD);
+    const lnFD = this.donorsFull ? 0 : logAddExp(this.lnFreeD, boundD);
+    const dLnFD = this.donorsFull ? 0 : -Math.exp(boundD - lnFD) * logisticD;
+    const lnDp = this.lnNd + lnFD;
+    const sA = this.acceptorShift - eta;
+    const logisticA = logisticComplement(-sA);
+    const boundA = this.lnBA - softplus(sA);
+    const lnFA = this.acceptorsFull ? 0 : logAddExp(this.lnFreeA, boundA);
+    const dLnFA = this.acceptorsFull ? 0 : -Math.exp(boundA - lnFA) * logisticA;
+    const lnAm = this.lnNa + lnFA;
+    const u = logAddExp(lnP, lnDp);
+    const v = logAddExp(lnN, lnAm);
+    const shareD = Math.exp(lnDp - u);
+    const shareA = Math.exp(lnAm - v);
+    out.eta = -Math.exp(lnP - u) + shareD * dLnFD - Math.exp(lnN - v) + shareA * dLnFA;
+    out.donorDensity = Math.exp(lnFD - u);
+    out.acceptorDensity = -Math.exp(lnFA - v);
+    out.donorLevelEv = (shareD * dLnFD) / this.kT;
+    out.acceptorLevelEv = (-shareA * dLnFA) / this.kT;
+    out.donorBoundFraction = -shareD * logisticD * Math.exp(-lnFD);
+    out.acceptorBoundFraction = shareA * logisticA * Math.exp(-lnFA);
+  }
+}
+
+/** @internal Partial derivatives of the neutrality function g (see `NeutralityFunction`). */
+export interface NeutralityPartials {
+  eta: number;
+  /** Per cm^-3. */
+  donorDensity: number;
+  acceptorDensity: number;
+  /** Per eV. */
+  donorLevelEv: number;
+  acceptorLevelEv: number;
+  donorBoundFraction: number;
+  acceptorBoundFraction: number;
 }
 
 /** @internal Builds g(eta) and g'(eta) for one doping at one temperature. */
 export function neutralityFunction(
   terms: TemperatureTerms,
   doping: ResolvedDoping,
+  logs = dopingLogs(doping),
 ): NeutralityFunction {
-  return new NeutralityFunction(terms, doping);
+  return new NeutralityFunction(terms, doping, logs);
 }
 
 /** @internal The root eta and how it was found. */

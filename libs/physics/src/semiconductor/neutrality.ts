@@ -8,7 +8,12 @@ import { requireTemperatureK } from '../validate';
 import type { BandModelOptions, DensityOfStatesSet } from './density-of-states';
 import { resolveDensityOfStatesSet } from './density-of-states';
 import type { TemperatureTerms } from './neutrality-solve';
-import { neutralityFunction, neutralityRoot, temperatureTerms } from './neutrality-solve';
+import {
+  dopingLogs,
+  neutralityFunction,
+  neutralityRoot,
+  temperatureTerms,
+} from './neutrality-solve';
 import type { Doping, ResolvedDoping } from './dopants';
 import { resolveDoping } from './dopants';
 import type { SemiconductorId } from './material';
@@ -58,9 +63,10 @@ export function solveNeutralityAt(
   terms: TemperatureTerms,
   doping: ResolvedDoping,
   guessEta = Number.NaN,
+  logs = dopingLogs(doping),
 ): NeutralitySolution {
   const { kT, epsG, lnNc, lnNv } = terms;
-  const g = neutralityFunction(terms, doping);
+  const g = neutralityFunction(terms, doping, logs);
   const eta = neutralityRoot(g, terms, doping, guessEta).eta;
   const bD = doping.donorDensity === 0 ? 0 : doping.donorBoundFraction;
   const bA = doping.acceptorDensity === 0 ? 0 : doping.acceptorBoundFraction;
@@ -71,8 +77,8 @@ export function solveNeutralityAt(
   const lnIntrinsic = 0.5 * (lnNc + lnNv) - 0.5 * epsG;
   const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
   const lnMajority = doping.donorDensity >= doping.acceptorDensity ? lnN : lnP;
-  const lnMajorityFraction = net === 0 ? Number.POSITIVE_INFINITY : lnMajority - Math.log(net);
-  const regime = regimeOf(lnIntrinsic, net, lnMajorityFraction);
+  const lnMajorityFraction = net === 0 ? Number.POSITIVE_INFINITY : lnMajority - logs.lnNet;
+  const regime = regimeOf(lnIntrinsic, net, lnMajorityFraction, logs.lnNet);
   const margin3 = PHYSICS_DEFAULTS.degeneracyMarginKt;
   return {
     eta,
@@ -94,8 +100,13 @@ export function solveNeutralityAt(
  * compensated); else `freeze-out` when the majority carrier density is below
  * `PHYSICS_DEFAULTS.ionizedFractionThreshold` (90 %) of |N_D - N_A|; else `extrinsic`.
  */
-export function regimeOf(lnIntrinsic: number, net: number, lnMajorityFraction: number): Regime {
-  if (net === 0 || lnIntrinsic > Math.log(net)) return 'intrinsic';
+export function regimeOf(
+  lnIntrinsic: number,
+  net: number,
+  lnMajorityFraction: number,
+  lnNet = Math.log(net),
+): Regime {
+  if (net === 0 || lnIntrinsic > lnNet) return 'intrinsic';
   if (lnMajorityFraction < LN_FREEZE_OUT_THRESHOLD) return 'freeze-out';
   return 'extrinsic';
 }

@@ -16,7 +16,7 @@ import { mobilityAt, mobilityTerms, resolveMobilityModel } from './mobility';
 import type { Regime } from './neutrality';
 import { solveNeutralityAt } from './neutrality';
 import type { TemperatureTerms } from './neutrality-solve';
-import { temperatureTerms } from './neutrality-solve';
+import { dopingLogs, temperatureTerms } from './neutrality-solve';
 import type { MobilityModelId } from '../defaults';
 
 /** Options of the resistivity model. */
@@ -87,17 +87,20 @@ export function curveTerms(model: ResolvedModel, temperatureK: number): CurveTer
 /** @internal A model point with ln(rho) and the neutrality root eta (a start for the next). */
 export type SolvedModelPoint = ModelPoint & { lnResistivity: number; eta: number };
 
-/** @internal Model point from precomputed temperature terms, the solve started at `guessEta`. */
+/**
+ * @internal Model point from precomputed temperature terms, the solve started at `guessEta`;
+ * `logs` may be taken once for many temperatures.
+ */
 export function modelPointAt(
   model: ResolvedModel,
   doping: ResolvedDoping,
   terms: CurveTerms,
   guessEta = Number.NaN,
+  logs = dopingLogs(doping),
 ): SolvedModelPoint {
-  const s = solveNeutralityAt(terms.neutral, doping, guessEta);
-  const lnTotal = Math.log(doping.donorDensity + doping.acceptorDensity);
-  const muN = model.mobilityScale * mobilityAt(terms.electron, lnTotal);
-  const muP = model.mobilityScale * mobilityAt(terms.hole, lnTotal);
+  const s = solveNeutralityAt(terms.neutral, doping, guessEta, logs);
+  const muN = model.mobilityScale * mobilityAt(terms.electron, logs.lnTotal);
+  const muP = model.mobilityScale * mobilityAt(terms.hole, logs.lnTotal);
   const lnSigma = LN_Q + logAddExp(s.lnElectrons + Math.log(muN), s.lnHoles + Math.log(muP));
   const lnRho = -lnSigma;
   return {
@@ -176,6 +179,7 @@ export function modelCurve(
   const temps = requireArray('modelCurve', 'temperaturesK', temperaturesK);
   const checked = temps.map((t, i) => requireTemperatureK('modelCurve', t, `temperaturesK[${i}]`));
   const model = resolveModel('modelCurve', m, options);
+  const logs = dopingLogs(d);
   // Each temperature's solve starts from the Fermi level (eV) extrapolated from its two
   // neighbours, rescaled to kT: a start within about 1e-4 needs two Newton steps.
   const previous = { t0: Number.NaN, e0: Number.NaN, t1: Number.NaN, e1: Number.NaN };
@@ -183,7 +187,7 @@ export function modelCurve(
     const terms = curveTerms(model, t);
     const slope = (previous.e1 - previous.e0) / (previous.t1 - previous.t0);
     const guessEv = previous.e1 + (Number.isFinite(slope) ? slope * (t - previous.t1) : 0);
-    const q = modelPointAt(model, d, terms, guessEv / terms.neutral.kT);
+    const q = modelPointAt(model, d, terms, guessEv / terms.neutral.kT, logs);
     previous.t0 = previous.t1;
     previous.e0 = previous.e1;
     previous.t1 = t;

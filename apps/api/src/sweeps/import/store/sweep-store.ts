@@ -170,9 +170,13 @@ export class SweepStore {
     return Number(id);
   }
 
-  /** Numbers the points of each leg: one statement per leg, over its run of sequences. */
+  /**
+   * Numbers the points of each leg after the first (`PointWriter` wrote every point in leg 1):
+   * one statement per leg, over its run of sequences.
+   */
   private async markLegs(sweepId: number, flags: FlagSummary): Promise<void> {
     for (const [k, leg] of flags.legs.entries()) {
+      if (k === 0 && leg.start === 0) continue;
       const [, updated] = await Sweep.sequelize!.query(
         'UPDATE sweep_points SET leg = ? WHERE sweep_id = ? AND sequence BETWEEN ? AND ?',
         {

@@ -99,6 +99,26 @@ export function thinTrace(
   return { trace: out, thinning: { name, from: n, to: indices.length, columns } };
 }
 
+/**
+ * Thins a page's series before it makes a trace of it, by the same min/max decimation the plot
+ * applies to its traces (`minMaxIndices` over x, half as many columns as `max`): the page can
+ * then style a thinned series (smaller markers, no error bars) and put `thinningNote` under it.
+ * Returns every item when there are at most `max`, and what was done for the note.
+ */
+export function thinForDisplay<T>(
+  items: readonly T[],
+  x: (item: T) => number,
+  y: (item: T) => number,
+  name: string,
+  max = MAX_POINTS_PER_TRACE,
+): { shown: T[]; thinning: Thinning | null } {
+  if (items.length <= max) return { shown: [...items], thinning: null };
+  const columns = Math.floor(max / 2);
+  const kept = minMaxIndices(Float64Array.from(items, x), Float64Array.from(items, y), columns);
+  const shown = kept.map((i) => items[i]!);
+  return { shown, thinning: { name, from: items.length, to: shown.length, columns } };
+}
+
 /** The sentence under a thinned plot: how it was thinned, and that fits use every point. */
 export function thinningNote(thinned: readonly Thinning[]): string {
   if (thinned.length === 0) return '';

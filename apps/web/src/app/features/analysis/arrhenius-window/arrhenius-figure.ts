@@ -1,6 +1,6 @@
 import type { ArrheniusPoint } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
-import { thinForDisplay, thinningNote } from '../../../shared/plot/thin';
+import { thinForDisplay, thinningNote } from '../../../shared/plot/decimate';
 import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
 import { QUANTITY_WORDS } from '../analysis-labels';
 import type { ShownFit } from '../fit-queue';
@@ -17,7 +17,12 @@ export function arrheniusFigure(
 ): Figure {
   const y = (p: ArrheniusPoint) =>
     quantity === 'resistivity' ? p.lnResistivity : p.lnConductivity;
-  const shown = thinForDisplay(points, y);
+  const { shown, thinning } = thinForDisplay(
+    points,
+    (p) => p.inverseTemperaturePerKK,
+    y,
+    QUANTITY_WORDS[quantity].legend,
+  );
   const data: unknown[] = [
     {
       type: 'scatter',
@@ -26,7 +31,7 @@ export function arrheniusFigure(
       x: shown.map((p) => p.inverseTemperaturePerKK),
       y: shown.map(y),
       customdata: shown.map((p) => toUnit(1000 / p.inverseTemperaturePerKK, unit)),
-      marker: { color: PLOT_ROLES.measured, size: shown.length < points.length ? 4 : 6 },
+      marker: { color: PLOT_ROLES.measured, size: thinning ? 4 : 6 },
       hovertemplate: `1000/T %{x:.3f} 1/K (%{customdata:.1f} ${UNIT_SYMBOL[unit]}): %{y:.3f}<extra></extra>`,
     },
   ];
@@ -64,7 +69,7 @@ export function arrheniusFigure(
       xaxis: { title: { text: '1000 / T (1/K)' } },
       yaxis: { title: { text: QUANTITY_WORDS[quantity].axis } },
     },
-    caption: thinningNote(shown.length, points.length),
+    caption: thinningNote(thinning ? [thinning] : []),
   };
 }
 

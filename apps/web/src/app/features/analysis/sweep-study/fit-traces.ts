@@ -1,5 +1,5 @@
 import { seriesColour } from '../../../shared/plot/palette';
-import { thinForDisplay } from '../../../shared/plot/thin';
+import { thinForDisplay } from '../../../shared/plot/decimate';
 import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
 import type { ShownFit } from '../fit-queue';
 import { fitTraceName, fittedCurve, residualsAsResistivity } from '../fitted-curve';
@@ -37,7 +37,12 @@ export function fitCurveTraces(fits: readonly ShownFit[], unit: TemperatureUnit)
 export function fitResidualTraces(fits: readonly ShownFit[], unit: TemperatureUnit): unknown[] {
   const out: unknown[] = [];
   fits.forEach((fit, i) => {
-    const residuals = thinForDisplay(residualsAsResistivity(fit), (r) => r.residual);
+    const residuals = thinForDisplay(
+      residualsAsResistivity(fit),
+      (r) => r.temperatureK,
+      (r) => r.residual,
+      'residuals',
+    ).shown;
     if (residuals.length === 0) return;
     const name = `residuals of ${fitTraceName(fit, unit)}`;
     out.push({

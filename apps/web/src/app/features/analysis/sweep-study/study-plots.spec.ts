@@ -1,5 +1,5 @@
 import type { AnalysisStep, ModelCurveResponse } from '@rhotrace/api-types';
-import { MAX_DISPLAY_POINTS, thinForDisplay } from '../../../shared/plot/thin';
+import { MAX_POINTS_PER_TRACE, thinForDisplay } from '../../../shared/plot/decimate';
 import { arrheniusFigure } from '../arrhenius-window/arrhenius-figure';
 import { curveFigure, plotRangeK, residualFigure } from './study-plots';
 
@@ -74,7 +74,7 @@ describe('study plots', () => {
     expect((fig.layout['xaxis'] as { title: { text: string } }).title.text).toBe('1000 / T (1/K)');
     const trace = fig.data[0] as { type: string; x: number[] };
     expect(trace.type).toBe('scatter');
-    expect(trace.x.length).toBeLessThanOrEqual(MAX_DISPLAY_POINTS);
+    expect(trace.x.length).toBeLessThanOrEqual(MAX_POINTS_PER_TRACE);
     const big = curveFigure(steps(250, 450, 10_000), null, {
       unit: 'K',
       rangeK: plotRangeK(250, 450),
@@ -82,9 +82,10 @@ describe('study plots', () => {
     });
     expect((big.data[0] as { type: string }).type).toBe('scatter');
     expect((big.data[0] as { name: string }).name).toMatch(/5000 of 10000 steps shown/);
-    // Under the plot: how it was thinned, and that the numbers use every step.
-    expect(big.caption).toMatch(/draws 5000 of 10000 steps: .*lowest and highest of each run/);
-    expect(big.caption).toContain('Fits, values and exports use every one of the 10000.');
+    // Under the plot: how it was thinned (the plot's own words), and that the numbers use
+    // every step.
+    expect(big.caption).toMatch(/measured steps: 10,000 points drawn as 5,000\): the lowest/);
+    expect(big.caption).toContain('Fits, tables and exports use every point.');
     const small = curveFigure(steps(250, 450, 50), null, {
       unit: 'K',
       rangeK: plotRangeK(250, 450),
@@ -93,12 +94,32 @@ describe('study plots', () => {
     expect(small.caption).toBe('');
   });
 
-  it('thinning keeps each run’s extremes in order', () => {
+  it('thinning keeps each column’s extremes in order', () => {
     const values = Array.from({ length: 3000 }, (_, i) => (i === 1234 ? 99 : Math.sin(i / 50)));
-    const thin = thinForDisplay(values, (v) => v, 300);
-    expect(thin.length).toBeLessThanOrEqual(300);
-    expect(thin).toContain(99); // an outlier survives
-    expect(Math.min(...thin)).toBe(Math.min(...values));
-    expect(thinForDisplay([1, 2, 3], (v) => v, 300)).toEqual([1, 2, 3]);
+    const items = values.map((v, i) => ({ i, v }));
+    const { shown, thinning } = thinForDisplay(
+      items,
+      (p) => p.i,
+      (p) => p.v,
+      'series',
+      300,
+    );
+    expect(shown.length).toBeLessThanOrEqual(300);
+    expect(shown.map((p) => p.v)).toContain(99); // an outlier survives
+    expect(Math.min(...shown.map((p) => p.v))).toBe(Math.min(...values));
+    expect(shown.map((p) => p.i)).toEqual([...shown.map((p) => p.i)].sort((a, b) => a - b));
+    expect(thinning).toEqual({ name: 'series', from: 3000, to: shown.length, columns: 150 });
+    expect(
+      thinForDisplay(
+        [1, 2, 3],
+        (v) => v,
+        (v) => v,
+        'series',
+        300,
+      ),
+    ).toEqual({
+      shown: [1, 2, 3],
+      thinning: null,
+    });
   });
 });

@@ -1,6 +1,6 @@
 import type { AnalysisStep, ModelCurveResponse } from '@rhotrace/api-types';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
-import { thinForDisplay, thinningNote } from '../../../shared/plot/thin';
+import { thinForDisplay, thinningNote } from '../../../shared/plot/decimate';
 import { type TemperatureUnit, UNIT_SYMBOL, toUnit } from '../../../shared/temperature-unit';
 import type { ShownFit } from '../fit-queue';
 import { fitCurveTraces, fitResidualTraces } from './fit-traces';
@@ -46,8 +46,13 @@ export function curveFigure(
 ): Figure {
   const { unit, rangeK } = options;
   const x = toAxis(unit);
-  const shown = thinForDisplay(steps, (s) => s.resistivityOhmCm);
-  const thinned = shown.length < steps.length;
+  const { shown, thinning } = thinForDisplay(
+    steps,
+    (s) => s.temperatureK,
+    (s) => s.resistivityOhmCm,
+    'measured steps',
+  );
+  const thinned = thinning !== null;
   const data: unknown[] = [
     {
       type: 'scatter',
@@ -127,7 +132,7 @@ export function curveFigure(
         ...logRangeOf(steps),
       },
     },
-    caption: thinningNote(shown.length, steps.length),
+    caption: thinningNote(thinning ? [thinning] : []),
   };
 }
 
@@ -179,7 +184,13 @@ export function residualFigure(
   const xs: number[] = [];
   const ys: number[] = [];
   if (model) {
-    for (const s of thinForDisplay(steps, (s) => s.resistivityOhmCm)) {
+    const { shown } = thinForDisplay(
+      steps,
+      (s) => s.temperatureK,
+      (s) => s.resistivityOhmCm,
+      'residuals',
+    );
+    for (const s of shown) {
       const m = modelAt(model, s.temperatureK);
       if (m === null || m <= 0) continue;
       xs.push(x(s.temperatureK));

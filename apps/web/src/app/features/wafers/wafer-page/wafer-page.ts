@@ -20,7 +20,7 @@ import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
 import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
-import { thinForDisplay } from '../../../shared/plot/thin';
+import { thinForDisplay } from '../../../shared/plot/decimate';
 import { ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
 import { PLOT_ROLES } from '../../../shared/plot/palette';
 import { Plot } from '../../../shared/plot/plot';
@@ -171,7 +171,12 @@ export class WaferPage {
     const sweep = this.shownSweep.value();
     if (!sweep) return null;
     // SVG markers only (no WebGL); long sweeps are thinned for display, never for analysis.
-    const shown = thinForDisplay(sweep.points, (p) => p.resistivityOhmCm);
+    const { shown } = thinForDisplay(
+      sweep.points,
+      (p) => p.temperatureK,
+      (p) => p.resistivityOhmCm,
+      'measured',
+    );
     return {
       data: [
         {
