@@ -39,9 +39,17 @@ describe('a thermocouple sweep with a spike', () => {
   const name = `tc-spike-${Date.now()}.csv`;
   beforeAll(async () => {
     const token = await apiToken('engineer');
-    const wafers = await apiGet<Page<Listed>>(token, '/api/wafers?pageSize=200&material=Si');
-    const wafer = wafers.items.at(-1);
-    if (!wafer) throw new Error('the demo data holds no silicon wafer');
+    // A demo wafer no other browser test writes to: the last wafer listed moves as other tests
+    // add lots of their own (a wafer without a thickness then blocks the preview).
+    const lots = await apiGet<Page<Listed & { code: string }>>(token, '/api/lots?q=LV-26-P021');
+    const lot = lots.items.find((l) => l.code === 'LV-26-P021');
+    if (!lot) throw new Error('the demo lot LV-26-P021 is missing');
+    const wafers = await apiGet<Page<Listed & { number: string }>>(
+      token,
+      `/api/lots/${lot.id}/wafers`,
+    );
+    const wafer = wafers.items.find((w) => w.number === 'W03');
+    if (!wafer) throw new Error('the demo wafer LV-26-P021 W03 is missing');
     waferId = wafer.id;
     browser = await openBrowser(1280, 1000);
   });

@@ -4,6 +4,7 @@
  * found not to hold what it wrote. A request that is safe to repeat is repeated once; after
  * that the client gets a 503 with Retry-After.
  */
+import { ConnectionError } from 'sequelize';
 import { HttpError } from '../errors';
 
 /** ER_LOCK_DEADLOCK: InnoDB deadlocks and Galera certification failures and aborts alike. */
@@ -95,4 +96,28 @@ export async function retryTransientOnce<T>(
     if (isTransientTransactionError(error)) throw transientUnavailable(what);
     throw error;
   }
+}
+
+/** MariaDB error numbers meaning "not done, try again": deadlock, lock wait, Galera not ready. */
+const TRANSIENT_ERRNOS = new Set([1213, 1205, 1047]);
+
+/** Errors a database connection loss raises, however deep in the driver they start. */
+export function isDatabaseUnavailable(error: unknown): boolean {
+  if (error instanceof ConnectionError) return true;
+  const e = error as {
+    code?: string;
+    errno?: number;
+    original?: { code?: string; errno?: number };
+    parent?: { code?: string; errno?: number };
+  };
+  if ([e?.errno, e?.original?.errno, e?.parent?.errno].some((n) => TRANSIENT_ERRNOS.has(n ?? 0)))
+    return true;
+  const codes = [e?.code, e?.original?.code, e?.parent?.code];
+  return codes.some(
+    (c) =>
+      c !== undefined &&
+      /^(ECONNREFUSED|ECONNRESET|EPIPE|ETIMEDOUT|ER_SOCKET_UNEXPECTED_CLOSE|ER_CONNECTION_TIMEOUT|ER_GET_CONNECTION_TIMEOUT|ER_CLOSING_POOL|ER_POOL_ALREADY_CLOSED|PROTOCOL_CONNECTION_LOST|ER_CONNECTION_ALREADY_CLOSED|ER_CMD_CONNECTION_CLOSED|ER_SERVER_SHUTDOWN|ER_WSREP_NOT_READY)$/.test(
+        c,
+      ),
+  );
 }

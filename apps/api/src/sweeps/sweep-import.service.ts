@@ -9,9 +9,13 @@
  */
 import { createHash } from 'node:crypto';
 import { MAX_FINDINGS, type SessionUser, type SweepCreatedResponse } from '@rhotrace/api-types';
-import { Transaction } from 'sequelize';
-import { retryTransientOnce, TransactionLostError } from '../db/transient-errors';
-import { conflict, unprocessable } from '../errors';
+import { Op, Transaction } from 'sequelize';
+import {
+  isDatabaseUnavailable,
+  retryTransientOnce,
+  TransactionLostError,
+} from '../db/transient-errors';
+import { conflict, HttpError, unprocessable } from '../errors';
 import type { RawStorage } from '../storage/raw-storage';
 import { mayUploadTo } from '../access/visibility.service';
 import { uploadRawStorage } from '../storage/storage';
@@ -63,11 +67,56 @@ export async function importSweep(
   options: { storage?: RawStorage; onRetry?: (error: unknown) => void; hooks?: ImportHooks } = {},
 ): Promise<SweepCreatedResponse> {
   const storage = options.storage ?? uploadRawStorage();
-  return retryTransientOnce(
-    'upload',
-    () => importOnce(input, actor, storage, options.hooks ?? {}).catch(lostSweepRow),
-    options.onRetry,
-  );
+  const startedAt = new Date();
+  let retried = false;
+  try {
+    return await retryTransientOnce(
+      'upload',
+      () => importOnce(input, actor, storage, options.hooks ?? {}).catch(lostSweepRow),
+      (error) => {
+        retried = true;
+        options.onRetry?.(error);
+      },
+    );
+  } catch (error) {
+    // A caller's hooks (a station post's Idempotency-Key) answer their own repeats.
+    const ambiguous = retried || isDatabaseUnavailable(error) || isUnavailableAnswer(error);
+    if (options.hooks || !ambiguous) throw error;
+    const stored = await committedAnyway(input, actor, startedAt, sha256Of(input.file));
+    if (stored) return stored;
+    throw error;
+  }
+}
+
+const sha256Of = (file: Buffer) => createHash('sha256').update(file).digest('hex');
+
+const isUnavailableAnswer = (error: unknown) => error instanceof HttpError && error.status === 503;
+
+/**
+ * The sweep this request stored after all, or null. A connection lost during COMMIT (a node
+ * killed under it) leaves the outcome unknown: the commit may have been replicated before the
+ * answer was lost. A try that failed once may likewise have committed and made the repeat meet
+ * its own file (409). Either way a 503 or a 409 would tell the client wrongly that nothing was
+ * stored, so the sweep is looked for on a fresh connection: this user's file on this wafer,
+ * created since the request began (`created_at` is set by this process's clock).
+ */
+async function committedAnyway(
+  input: ImportSweepInput,
+  actor: SweepActor,
+  startedAt: Date,
+  sha256: string,
+): Promise<SweepCreatedResponse | null> {
+  const found = await Sweep.findOne({
+    where: {
+      waferId: input.waferId,
+      sha256,
+      uploadedById: actor.id,
+      createdAt: { [Op.gte]: startedAt },
+    },
+  }).catch(() => null);
+  if (!found) return null;
+  const report = found.parseReport as { warnings?: string[] } | null;
+  return { id: found.id, pointCount: found.pointCount, warnings: report?.warnings ?? [] };
 }
 
 /**
@@ -91,8 +140,11 @@ async function importOnce(
 ): Promise<SweepCreatedResponse> {
   const file = openTable(input.file, IMPORT_SLICE_ROWS, input.layout);
   if (file.parsed.problems.length) throw unreadableRows(file.parsed.problems);
-  const sha256 = createHash('sha256').update(input.file).digest('hex');
+  const sha256 = sha256Of(input.file);
   const raw = new RawCopy(storage);
+  // the sweep the transaction was committing, once its work is done: a failure from here on
+  // is in COMMIT, whose outcome a lost connection leaves unknown
+  let committing: number | null = null;
   try {
     return await Sweep.sequelize!.transaction(async (transaction) => {
       await hooks.begin?.(transaction);
@@ -114,6 +166,7 @@ async function importOnce(
         );
         await followUpload(actor, wafer.id, result.id, transaction);
         await hooks.commit?.(result, transaction);
+        committing = result.id;
         return result;
       } catch (error) {
         await raw.settle();
@@ -121,10 +174,18 @@ async function importOnce(
       }
     });
   } catch (error) {
-    await raw.discard();
+    // the raw copy of a sweep that committed after all must stay
+    if (committing === null || !(await mayExist(committing))) await raw.discard();
     throw error;
   }
 }
+
+/** False only when the database says the sweep is not there; unknown counts as there. */
+const mayExist = (sweepId: number) =>
+  Sweep.count({ where: { id: sweepId } }).then(
+    (n) => n > 0,
+    () => true,
+  );
 
 /** What the transaction's work needs once the duplicate check passed and the raw write began. */
 interface StoreContext {
