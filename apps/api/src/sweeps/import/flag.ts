@@ -223,3 +223,18 @@ export class SuspiciousPointFinder {
     return { minTemperatureK, maxTemperatureK };
   }
 }
+
+/**
+ * Writes what `finish` found onto the points themselves, before they are stored: each point's
+ * leg (1, 2, ...) and the late flags after the flags it already carries, flag by flag in the
+ * order of `summary.late`. The points are held until the whole sweep is seen so they are
+ * inserted once, complete (updating them after the insert cost more than inserting them).
+ */
+export function markPoints(points: ConvertedPoint[], summary: FlagSummary): void {
+  for (const [k, leg] of summary.legs.entries()) {
+    for (let i = leg.start; i < leg.end; i++) points[i]!.leg = k + 1;
+  }
+  for (const [flag, positions] of Object.entries(summary.late)) {
+    for (const i of positions) points[i]!.flags.push(flag as PointFlag);
+  }
+}
