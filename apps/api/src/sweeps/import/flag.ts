@@ -174,9 +174,15 @@ export class SuspiciousPointFinder {
   /** The leg's positions split by current level (two significant figures of |I|). */
   private levelSeries(leg: LegRange): number[][] {
     const byLevel = new Map<string, number[]>();
+    // most files hold one current throughout: its key is worked out once, not per point
+    let lastCurrent = Number.NaN;
+    let key = 'none';
     for (let i = leg.start; i < leg.end; i++) {
       const c = this.currents[i]!;
-      const key = Number.isFinite(c) ? Math.abs(c).toPrecision(2) : 'none';
+      if (!Object.is(c, lastCurrent)) {
+        key = Number.isFinite(c) ? Math.abs(c).toPrecision(2) : 'none';
+        lastCurrent = c;
+      }
       const list = byLevel.get(key) ?? [];
       list.push(i);
       byLevel.set(key, list);
