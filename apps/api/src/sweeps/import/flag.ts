@@ -127,13 +127,15 @@ export class SuspiciousPointFinder {
     if (sigma !== null) {
       const data = { temperaturesK: t, lnRho: this.lnRho, currentsA: this.currents };
       for (const steps of stepsByLeg) {
-        late.push(...selfHeating(data, steps, sigma), ...unsettledSteps(data, steps, sigma));
+        // one by one: spreading a whole sweep's findings as arguments overflows the stack
+        for (const f of selfHeating(data, steps, sigma)) late.push(f);
+        for (const f of unsettledSteps(data, steps, sigma)) late.push(f);
       }
     }
     const lateFlags: LateFlags = {};
     for (const f of late) (lateFlags[f.flag] ??= []).push(f.index);
     for (const [flag, list] of Object.entries(lateFlags)) {
-      lateFlags[flag as PointFlag] = [...new Set(list)].sort((a, b) => a - b);
+      lateFlags[flag as PointFlag] = Array.from(Int32Array.from(new Set(list)).sort());
     }
     const all = [...this.early, ...late].sort((a, b) => a.index - b.index);
     return {
