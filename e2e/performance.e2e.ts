@@ -4,9 +4,7 @@ import type { Locator, Page as BrowserPage } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BASE_URL, REPO_DIR, apiGet, apiToken, openBrowser, signIn } from './support/app';
 
-interface Page<T> {
-  items: T[];
-}
+type Page<T> = { items: T[] };
 
 /** Points in the large sweep the study page is timed with. */
 const POINT_COUNT = 10_000;

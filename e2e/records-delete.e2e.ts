@@ -46,8 +46,8 @@ describe('an engineer removes records registered by mistake', () => {
     const wafers = page.getByRole('table', { name: 'Wafers of this lot' });
     await wafers.getByRole('link', { name: number }).click();
     await page.getByRole('heading', { name: new RegExp(`Wafer ${number}`) }).waitFor();
-    page.once('dialog', (d) => void d.accept());
     await page.getByRole('button', { name: 'Delete wafer' }).click();
+    await page.getByRole('alertdialog').getByRole('button', { name: 'Delete the wafer' }).click();
     await page.waitForURL(/\/lots\/\d+$/);
     await wafers.waitFor();
     await expect(wafers.getByRole('link', { name: number }).count()).resolves.toBe(0);

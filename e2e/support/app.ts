@@ -3,7 +3,7 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { basename, dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { type BrowserContext, type Page, chromium } from 'playwright-core';
+import { type BrowserContext, type Locator, type Page, chromium } from 'playwright-core';
 import { afterAll, beforeAll } from 'vitest';
 
 const base = process.env['E2E_BASE_URL'];
@@ -77,12 +77,7 @@ export function browserForTests(width = 1280, height = 900): () => Page {
 
 /** Signs in through the form as a demo account and waits for the bench. */
 export async function signIn(page: Page, role: DemoRole): Promise<void> {
-  await page.goto(`${BASE_URL}/sign-in`);
-  await page.getByLabel('E-mail').fill(`${role}@rhotrace.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-  await page.getByRole('button', { name: 'Sign out' }).waitFor();
+  await signInAs(page, `${role}@rhotrace.example`, DEMO_PASSWORD);
 }
 
 /** Saves a full-page screenshot under e2e/screenshots/ (git-ignored). */
@@ -168,4 +163,34 @@ export async function openStudy(page: Page, role: DemoRole, sweepId: number): Pr
   const started = Date.now();
   await page.goto(`${BASE_URL}/sweeps/${sweepId}`);
   return started;
+}
+
+/** Fills and sends the sign-in form with any account (one a test made, too). */
+export async function submitSignIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/** Signs in with any account and waits for the bench. */
+export async function signInAs(page: Page, email: string, password: string): Promise<void> {
+  await submitSignIn(page, email, password);
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+  await page.getByRole('button', { name: 'Sign out' }).waitFor();
+}
+
+/** Signs out through the bar and waits for the sign-in form. */
+export async function signOut(page: Page): Promise<void> {
+  await page.getByRole('button', { name: 'Sign out' }).click();
+  await page.getByRole('button', { name: 'Sign in' }).waitFor();
+}
+
+/** Clicks what saves a file and answers the file's suggested name and bytes. */
+export async function downloadFrom(
+  page: Page,
+  trigger: Locator,
+): Promise<{ name: string; bytes: Buffer }> {
+  const [file] = await Promise.all([page.waitForEvent('download'), trigger.click()]);
+  return { name: file.suggestedFilename(), bytes: readFileSync(await file.path()) };
 }

@@ -34,6 +34,9 @@ export interface HallAnalysis {
    * level in a carrier-density fit; null when the sweep shows no plateau or no freeze-out.
    */
   freezeOutWindow: SuggestedWindow | null;
+  /** Standard uncertainties of the values at 300 K, as in `HallAt300K`. */
+  carrierDensityAt300KUncertaintyCm3?: number | null;
+  hallMobilityAt300KUncertaintyCm2PerVs?: number | null;
 }
 
 /** Carrier density and Hall mobility of a Hall sweep at 300 K (interpolated within 15 K). */

@@ -171,6 +171,7 @@ export type {
 } from './sweep-preview';
 export {
   SWEEP_METHODS,
+  METHOD_WORDS,
   COLUMN_MEANINGS,
   POINT_FLAGS,
   JUMP_FACTOR,

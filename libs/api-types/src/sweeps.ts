@@ -12,6 +12,16 @@ export const SWEEP_METHODS = [
 ] as const;
 export type SweepMethod = (typeof SWEEP_METHODS)[number];
 
+/** Each measurement method in words, as the screens and the printed reports name it. */
+export const METHOD_WORDS: Readonly<Record<SweepMethod, string>> = {
+  'four-point': 'Four-point probe (collinear)',
+  'van-der-pauw': 'Van der Pauw square',
+  bar: 'Bar with contacts',
+  resistivity: 'Resistivity already computed',
+  'sheet-resistance': 'Sheet resistance already computed',
+  hall: 'Hall effect (van der Pauw with a field)',
+};
+
 /**
  * What a column of an imported file holds. `resistance` is V/I (for van der Pauw: R_A) and
  * `resistance-b` the second van der Pauw configuration (R_B; on a four-point map, the second

@@ -168,6 +168,8 @@ export function hallAnalysis(
     carrierDensityAt300KCm3: hallValueAt(steps, 'carrierDensityCm3', 300),
     hallMobilityAt300KCm2PerVs: hallValueAt(steps, 'hallMobilityCm2PerVs', 300),
     freezeOutWindow: freezeOutWindow(steps, points),
+    carrierDensityAt300KUncertaintyCm3: hallUncertaintyAt(steps, 'carrierDensityCm3', 300),
+    hallMobilityAt300KUncertaintyCm2PerVs: hallUncertaintyAt(steps, 'hallMobilityCm2PerVs', 300),
   };
 }
 
@@ -191,7 +193,7 @@ export async function hallAt300K(
     carrierDensityAt300KCm3: h.carrierDensityAt300KCm3,
     hallMobilityAt300KCm2PerVs: h.hallMobilityAt300KCm2PerVs,
     hallFactor: factor,
-    carrierDensityAt300KUncertaintyCm3: hallUncertaintyAt(h.steps, 'carrierDensityCm3', 300),
-    hallMobilityAt300KUncertaintyCm2PerVs: hallUncertaintyAt(h.steps, 'hallMobilityCm2PerVs', 300),
+    carrierDensityAt300KUncertaintyCm3: h.carrierDensityAt300KUncertaintyCm3 ?? null,
+    hallMobilityAt300KUncertaintyCm2PerVs: h.hallMobilityAt300KUncertaintyCm2PerVs ?? null,
   };
 }

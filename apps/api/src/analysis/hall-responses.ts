@@ -36,6 +36,8 @@ export const hallAnalysisSchema = z
       })
       .strict()
       .nullable(),
+    carrierDensityAt300KUncertaintyCm3: z.number().nullable().optional(),
+    hallMobilityAt300KUncertaintyCm2PerVs: z.number().nullable().optional(),
   })
   .strict() satisfies z.ZodType<HallAnalysis>;
 

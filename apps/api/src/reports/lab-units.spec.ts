@@ -118,7 +118,7 @@ describe('dates in the report and the e-mails', () => {
         measuredAt: '2026-12-05T09:18:42.000Z',
         method: 'four-point',
       }),
-    ).toBe('Sweep 4 (W03.csv), stored 2026-12-05 09:18 UTC, method four-point');
+    ).toBe('Sweep 4 (W03.csv), stored 2026-12-05 09:18 UTC, Four-point probe (collinear)');
     const by = fitLines(fit).at(-1)!;
     const at = fit.createdAt;
     expect(by).toBe(

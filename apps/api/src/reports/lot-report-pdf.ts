@@ -1,5 +1,5 @@
 import { SPEC_VERDICT_WORDS, type LotSummaryResponse } from '@rhotrace/api-types';
-import { ACCENT, INK, keepSpace, MUTED, OHM_CM, openPdf, sig } from './pdf-document';
+import { ACCENT, INK, keepSpace, MUTED, OHM_CM, openPdf, plain, sig } from './pdf-document';
 import { drawAxes } from './pdf-plot';
 import type { LotReportData } from './lot-report.service';
 import { closingSection, fitsSection } from './report-pdf';
@@ -12,11 +12,14 @@ export function lotReportTitle(lotCode: string): string {
   return `Rhotrace lot report: lot ${lotCode}`;
 }
 
+/** A reason written as a sentence, set inside brackets after other words. */
+const lowerFirst = (text: string) => text.charAt(0).toLowerCase() + text.slice(1);
+
 /** One table line per wafer: its 23 °C value ± U (k = 2), how it was found, and its verdict. */
 export function waferLines(s: LotSummaryResponse): string[] {
   return s.wafers.map((w) => {
     if (w.resistivityAt23COhmCm === null)
-      return `${w.number}: no value at 23 °C (${w.reason ?? 'no sweep'})`;
+      return `${w.number}: no value at 23 °C (${lowerFirst(w.reason ?? 'no sweep')})`;
     const u = w.uncertaintyOhmCm === null ? '' : ` ± ${sig(w.uncertaintyOhmCm, 2)}`;
     const how =
       w.method === 'interpolated' ? 'interpolated' : `corrected from ${sig(w.distanceK, 2)} K away`;
@@ -31,7 +34,7 @@ export function statisticsLines(s: LotSummaryResponse): string[] {
   const spec =
     s.lot.specMinOhmCm === null && s.lot.specMaxOhmCm === null
       ? 'no spec limits recorded'
-      : `spec ${s.lot.specMinOhmCm ?? '–'} to ${s.lot.specMaxOhmCm ?? '–'} ${OHM_CM}`;
+      : `spec ${plain(s.lot.specMinOhmCm, 6)} to ${plain(s.lot.specMaxOhmCm, 6)} ${OHM_CM}`;
   const lines = [
     `${s.lot.material}${s.lot.dopant ? `, dopant ${s.lot.dopant}` : ''}; ${spec}`,
     `${st.count} of ${s.wafers.length} wafers with a value at 23 °C: mean ${sig(st.meanOhmCm)} ${OHM_CM}, ` +
@@ -47,7 +50,30 @@ export function statisticsLines(s: LotSummaryResponse): string[] {
   return lines;
 }
 
-function drawLotChart(doc: PDFKit.PDFDocument, s: LotSummaryResponse, top: number): void {
+/** A wafer's marker, by verdict as on the lot page: dot meets, cross misses, diamond undecided. */
+function drawMarker(doc: PDFKit.PDFDocument, x: number, y: number, verdict: string | null): void {
+  const r = 2.6;
+  if (verdict === 'fail') {
+    doc.save().lineWidth(1.2).strokeColor(FAIL);
+    doc
+      .moveTo(x - r, y - r)
+      .lineTo(x + r, y + r)
+      .moveTo(x - r, y + r)
+      .lineTo(x + r, y - r);
+    doc.stroke().restore();
+  } else if (verdict === 'indeterminate') {
+    doc.save().fillColor(UNDECIDED);
+    doc
+      .polygon([x, y - r - 0.6], [x + r, y], [x, y + r + 0.6], [x - r, y])
+      .fill()
+      .restore();
+  } else {
+    doc.save().fillColor(ACCENT).circle(x, y, 2.2).fill().restore();
+  }
+}
+
+/** Draws the lot chart from `top` and answers the page y below its axis titles. */
+function drawLotChart(doc: PDFKit.PDFDocument, s: LotSummaryResponse, top: number): number {
   const rows = s.wafers.filter((w) => w.resistivityAt23COhmCm !== null);
   const lows = rows.map((w) => w.resistivityAt23COhmCm! - (w.uncertaintyOhmCm ?? 0));
   const highs = rows.map((w) => w.resistivityAt23COhmCm! + (w.uncertaintyOhmCm ?? 0));
@@ -66,7 +92,8 @@ function drawLotChart(doc: PDFKit.PDFDocument, s: LotSummaryResponse, top: numbe
       yMin: yMin - pad,
       yMax: yMax + pad,
       yLog: false,
-      yTitle: `ρ at 23 °C (${OHM_CM})`,
+      yTitle: 'ρ at 23 °C',
+      yUnit: OHM_CM,
     },
   );
   for (const limit of limits) {
@@ -88,8 +115,9 @@ function drawLotChart(doc: PDFKit.PDFDocument, s: LotSummaryResponse, top: numbe
       .lineTo(x, frame.py(w.resistivityAt23COhmCm + u))
       .stroke();
     doc.restore();
-    doc.save().fillColor(colour).circle(x, frame.py(w.resistivityAt23COhmCm), 2.2).fill().restore();
+    drawMarker(doc, x, frame.py(w.resistivityAt23COhmCm), w.verdict);
   });
+  return frame.bottom;
 }
 
 /** Renders a lot's report: every wafer's 23 °C value, the statistics, the chart and the fits. */
@@ -113,17 +141,23 @@ export function renderLotReportPdf(
     .fillColor(MUTED)
     .text(`Printed ${d.printedAt.slice(0, 10)}`);
   doc.moveDown(0.6).fontSize(10).fillColor(INK);
-  for (const line of statisticsLines(s)) doc.text(line, { width: 495 });
+  for (const line of statisticsLines(s)) doc.text(line, 50, undefined, { width: 495 });
 
   doc.moveDown(0.8);
   if (s.statistics.count > 0) {
-    keepSpace(doc, 215);
-    const top = doc.y;
-    drawLotChart(doc, s, top);
+    // room for the plot, upright wafer names of up to about 20 characters and the caption
+    keepSpace(doc, 300);
+    const below = drawLotChart(doc, s, doc.y);
     doc.x = 50;
-    doc.y = top + 205;
+    doc.y = below;
     doc.fontSize(7.5).fillColor(MUTED);
-    doc.text('Bars: value ± U (k = 2). Dashed lines: spec limits.', 100);
+    doc.text(
+      'Bars: value ± U (k = 2). Dashed lines: spec limits. Dots meet the spec, crosses miss ' +
+        'it, diamonds are too close to call.',
+      100,
+      undefined,
+      { width: 420 },
+    );
   }
   doc.moveDown(0.6);
   doc.font('plex-bold').fontSize(11).fillColor(INK).text('Wafers', 50);

@@ -48,8 +48,52 @@ export function decadeTicks(minValue: number, maxValue: number, max = 8): number
     hi += 1;
   }
   const every = Math.max(1, Math.ceil((hi - lo) / max));
+  // the axis ends on a labelled decade the same step on, never on a decade crowding the last
+  hi = lo + every * Math.ceil((hi - lo) / every);
   const ticks: number[] = [];
   for (let k = lo; k <= hi; k += every) ticks.push(k);
-  if (ticks[ticks.length - 1] !== hi) ticks.push(hi);
   return ticks;
+}
+
+/**
+ * Round ticks for a log x axis (1, 2 and 5 times powers of ten) from the last at or below `min`
+ * to the first at or above `max`; only the powers of ten when those would be more than `max`.
+ */
+export function logRoundTicks(min: number, max: number, most = 7): number[] {
+  if (!(min > 0) || !(max >= min)) throw new RangeError('logRoundTicks: need 0 < min <= max');
+  const candidates: number[] = [];
+  for (let k = Math.floor(Math.log10(min)) - 1; k <= Math.ceil(Math.log10(max)); k++) {
+    for (const m of [1, 2, 5]) candidates.push(Number((m * 10 ** k).toPrecision(6)));
+  }
+  const lo = candidates.filter((c) => c <= min).pop()!;
+  const hi = candidates.find((c) => c >= max)!;
+  const ticks = candidates.filter((c) => c >= lo && c <= hi);
+  if (ticks.length <= most) return ticks;
+  const decades = ticks.filter((c) => /^1(e|$|0*$)|^0\.0*1$/.test(String(c)));
+  return [...new Set([lo, ...decades, hi])];
+}
+
+/** A tick's label with as many decimals as its step needs (0.5 steps: "10.5", not "10.500"). */
+export function tickLabel(value: number, step: number): string {
+  const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9));
+  return value.toFixed(Math.min(decimals, 12)).replace(/^-(0\.?0*)$/, '$1');
+}
+
+const PREFIXES: Record<number, string> = {
+  [-9]: 'n',
+  [-6]: 'µ',
+  [-3]: 'm',
+  3: 'k',
+  6: 'M',
+  9: 'G',
+};
+
+/**
+ * The SI prefix that keeps an axis's labels between 0.01 and 1000 (engineering steps of 10³):
+ * µΩ·cm for metal films, MΩ·cm for semi-insulating wafers. Factor 1 and no prefix otherwise.
+ */
+export function axisPrefix(maxAbs: number): { factor: number; prefix: string } {
+  if (!(maxAbs > 0) || (maxAbs >= 0.01 && maxAbs < 1000)) return { factor: 1, prefix: '' };
+  const exponent = Math.max(-9, Math.min(9, 3 * Math.floor(Math.log10(maxAbs) / 3)));
+  return { factor: 10 ** exponent, prefix: PREFIXES[exponent] ?? '' };
 }

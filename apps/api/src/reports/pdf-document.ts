@@ -21,9 +21,21 @@ export const OHM_CM = 'Ω·cm';
 export function sig(value: number | null | undefined, digits = 4): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '–';
   const a = Math.abs(value);
-  return a !== 0 && (a < 1e-3 || a >= 1e5)
-    ? value.toExponential(digits - 1).replace(/e\+?/, ' × 10^')
-    : value.toPrecision(digits);
+  if (a !== 0 && (a < 1e-3 || a >= 1e5))
+    return value.toExponential(digits - 1).replace(/e\+?/, ' × 10^');
+  const fixed = value.toPrecision(digits);
+  // toPrecision answers 1.44e+3 for 1440 at three digits: write the digits out instead
+  return fixed.includes('e') ? String(Number(fixed)) : fixed;
+}
+
+/**
+ * A recorded value (spec limit, thickness) to at most `digits` significant figures without
+ * trailing zeros, so 0.0525 cm prints as 525 µm and a limit of 8 as 8, as they were entered.
+ */
+export function plain(value: number | null | undefined, digits = 4): string {
+  return sig(value, digits)
+    .replace(/(\.\d*?)0+(?=$| )/, '$1')
+    .replace(/\.(?=$| )/, '');
 }
 
 /** A geometry value in words with the unit a lab reads it in (stored in cm). */
@@ -42,7 +54,7 @@ export function geometryText(geometry: Record<string, unknown>): string {
     .flatMap(([key, value]) => {
       const words = GEOMETRY_WORDS[key];
       if (!words || typeof value !== 'number' || !Number.isFinite(value)) return [];
-      return [`${words.label} ${sig(value * words.scale)} ${words.unit}`];
+      return [`${words.label} ${plain(value * words.scale)} ${words.unit}`];
     })
     .join(', ');
 }

@@ -1,63 +1,70 @@
 /**
- * The Hall part of a sweep report: n against 1000/T and mu_H against T (log scales) with the
+ * The Hall part of a sweep report: n against 1000/T and μH against T (log scales) with the
  * saved fits' curves, the carrier type, the values at 300 K and the Hall fits' readings.
  */
-import type { FitDto, HallAnalysis } from '@rhotrace/api-types';
+import { KIND_WORDS, type FitDto, type HallAnalysis } from '@rhotrace/api-types';
 import { carrierDensities } from '@rhotrace/physics';
 import { isSemiconductor } from '../analysis/model.service';
+import { logRoundTicks } from './pdf-axes';
+import { INK, MUTED, sig } from './pdf-document';
+import { drawAxes, roundXTicks } from './pdf-plot';
 
-const INK = '#1d2733';
-const MUTED = '#5b6773';
 const DATA = '#1f6f8b';
 const MODEL = '#b5532a';
 
 type Pair = [number, number];
 
-/** A plot with a linear or log x axis and a log y axis: measured dots, optional model line. */
+/**
+ * A plot with a linear or log x axis and a log y axis on the report's shared axes (round ticks,
+ * whole decades): measured dots and an optional model line, kept inside the frame.
+ */
 function drawLogPlot(
   doc: PDFKit.PDFDocument,
   box: { x: number; y: number; w: number; h: number },
-  data: Pair[],
+  measured: Pair[],
   model: Pair[],
   labels: { x: string; y: string; xLog: boolean },
 ): void {
-  const { x: x0, y: y0, w, h } = box;
-  doc.save().lineWidth(0.6).strokeColor(MUTED).rect(x0, y0, w, h).stroke().restore();
+  const usable = (p: Pair) =>
+    Number.isFinite(p[0]) && p[1] > 0 && Number.isFinite(p[1]) && (!labels.xLog || p[0] > 0);
+  const data = measured.filter(usable);
+  const frameBox = { x0: box.x, y0: box.y, width: box.w, height: box.h };
+  if (data.length === 0) {
+    doc.save().lineWidth(0.6).strokeColor(MUTED).rect(box.x, box.y, box.w, box.h).stroke();
+    doc.restore().fontSize(8).fillColor(MUTED);
+    doc.text('No usable points', box.x, box.y + box.h / 2, { width: box.w, align: 'center' });
+    return;
+  }
+  const xs = data.map((p) => p[0]);
+  const ys = data.map((p) => p[1]);
+  const [xMin, xMax] = [Math.min(...xs), Math.max(...xs)];
   const tx = (v: number) => (labels.xLog ? Math.log10(v) : v);
-  const xs = data.map((p) => tx(p[0]));
-  const ys = data.map((p) => Math.log10(p[1]));
-  const xMin = Math.min(...xs);
-  const xMax = Math.max(...xs) > xMin ? Math.max(...xs) : xMin + 1;
-  const yMin = Math.floor(Math.min(...ys));
-  const yMax = Math.max(Math.ceil(Math.max(...ys)), yMin + 1);
-  const px = (v: number) => x0 + ((tx(v) - xMin) / (xMax - xMin)) * w;
-  const py = (v: number) => y0 + h - ((Math.log10(v) - yMin) / (yMax - yMin)) * h;
-  doc.fontSize(7).fillColor(MUTED);
-  const every = Math.max(1, Math.ceil((yMax - yMin) / 6));
-  for (let l = yMin; l <= yMax; l += every) {
-    doc.text(`1e${l}`, x0 - 34, py(10 ** l) - 4, { width: 30, align: 'right' });
-  }
-  for (let i = 0; i <= 4; i += 1) {
-    const v = xMin + ((xMax - xMin) * i) / 4;
-    const shown = labels.xLog ? 10 ** v : v;
-    doc.text(shown.toPrecision(3), x0 + (i / 4) * w - 20, y0 + h + 3, {
-      width: 40,
-      align: 'center',
-    });
-  }
-  doc.text(labels.x, x0, y0 + h + 13, { width: w, align: 'center' });
-  doc.text(labels.y, x0, y0 - 11, { width: w, align: 'left' });
-  const inside = (p: Pair) => Math.log10(p[1]) >= yMin && Math.log10(p[1]) <= yMax;
-  const line = model.filter(inside);
+  const xTicks = labels.xLog
+    ? logRoundTicks(xMin, xMax).map((v) => ({ value: Math.log10(v), label: String(v) }))
+    : roundXTicks(xMin, xMax);
+  const frame = drawAxes(doc, frameBox, {
+    xTicks,
+    xTitle: labels.x,
+    yMin: Math.min(...ys),
+    yMax: Math.max(...ys),
+    yLog: true,
+    yTitle: labels.y,
+  });
+  const at = (p: Pair): Pair => [frame.px(tx(p[0])), frame.py(p[1])];
+  const inside = (p: Pair) => {
+    const [x, y] = at(p);
+    return (
+      x >= box.x - 0.5 && x <= box.x + box.w + 0.5 && y >= box.y - 0.5 && y <= box.y + box.h + 0.5
+    );
+  };
+  const line = model.filter((p) => usable(p) && inside(p));
   if (line.length > 1) {
     doc.save().lineWidth(0.9).strokeColor(MODEL);
-    line.forEach((p, i) =>
-      i === 0 ? doc.moveTo(px(p[0]), py(p[1])) : doc.lineTo(px(p[0]), py(p[1])),
-    );
+    line.map(at).forEach(([x, y], i) => (i === 0 ? doc.moveTo(x, y) : doc.lineTo(x, y)));
     doc.stroke().restore();
   }
   doc.save().fillColor(DATA);
-  for (const p of data) doc.circle(px(p[0]), py(p[1]), 1.5).fill();
+  for (const p of data) doc.circle(...at(p), 1.5).fill();
   doc.restore();
 }
 
@@ -101,8 +108,6 @@ function mobilityModel(steps: HallAnalysis['steps'], fit: FitDto | undefined): P
     .map((s) => [s.temperatureK, mu * (s.temperatureK / 300) ** a]);
 }
 
-const sig = (v: number | null) => (v === null ? '–' : v.toPrecision(3));
-
 /** Draws the Hall section on a new page. */
 export function drawHallSection(
   doc: PDFKit.PDFDocument,
@@ -116,34 +121,39 @@ export function drawHallSection(
   const type =
     hall.carrierType === 'mixed' ? 'mixed (the sign changes)' : `${hall.carrierType}-type`;
   doc.text(
-    `Carrier type ${type}; Hall factor r_H = ${hall.hallFactor.toPrecision(4)}. At 300 K: ` +
-      `n = ${sig(hall.carrierDensityAt300KCm3)} cm^-3, mu_H = ${sig(hall.hallMobilityAt300KCm2PerVs)} ` +
-      'cm²/(V s). Dots: step means; lines: the latest saved fits.',
+    `Carrier type ${type}; Hall scattering factor ${hall.hallFactor.toPrecision(4)}. At 300 K: ` +
+      `carrier density ${sig(hall.carrierDensityAt300KCm3, 3)} per cm³, Hall mobility ` +
+      `${sig(hall.hallMobilityAt300KCm2PerVs, 3)} cm²/(V·s). Dots: step means; lines: the latest ` +
+      'saved fits.',
+    50,
+    undefined,
     { width: 495 },
   );
   const density = latest(fits, 'carrier-density');
   const mobility = latest(fits, 'hall-mobility');
-  const top = doc.y + 20;
+  const top = doc.y + 16;
   drawLogPlot(
     doc,
-    { x: 90, y: top, w: 190, h: 170 },
+    { x: 100, y: top, w: 170, h: 170 },
     hall.steps.map((s) => [1000 / s.temperatureK, s.carrierDensityCm3]),
     densityModel(material, hall.steps, density),
-    { x: '1000 / T (1/K)', y: 'carrier density (cm^-3)', xLog: false },
+    { x: '1000 / T (1/K)', y: 'Carrier density (per cm³)', xLog: false },
   );
   drawLogPlot(
     doc,
-    { x: 340, y: top, w: 190, h: 170 },
+    { x: 355, y: top, w: 170, h: 170 },
     hall.steps.map((s) => [s.temperatureK, s.hallMobilityCm2PerVs]),
     mobilityModel(hall.steps, mobility),
-    { x: 'temperature (K, log)', y: 'Hall mobility (cm²/(V s))', xLog: true },
+    { x: 'Temperature (K, log scale)', y: 'Hall mobility (cm²/(V·s))', xLog: true },
   );
   doc.x = 50;
-  doc.y = top + 200;
+  doc.y = top + 215;
   doc.font('plex').fontSize(8.5).fillColor(INK);
   for (const f of [density, mobility]) {
     if (f?.interpretation)
-      doc.text(`Fit ${f.id} (${f.kind}): ${f.interpretation.note}`, { width: 495 });
+      doc.text(`Fit ${f.id}, ${KIND_WORDS[f.kind]}: ${f.interpretation.note}`, 50, undefined, {
+        width: 495,
+      });
   }
   if (hall.freezeOutWindow) {
     doc.text(

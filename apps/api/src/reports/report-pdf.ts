@@ -1,12 +1,23 @@
 import {
   KIND_WORDS,
+  METHOD_WORDS,
   PARAMETER_WORDS,
   alsoShownIn,
   isoStampUtc,
   type AnalysisStep,
   type FitDto,
 } from '@rhotrace/api-types';
-import { ACCENT, geometryText, INK, keepSpace, MUTED, OHM_CM, openPdf, sig } from './pdf-document';
+import {
+  ACCENT,
+  geometryText,
+  INK,
+  keepSpace,
+  MUTED,
+  OHM_CM,
+  openPdf,
+  plain,
+  sig,
+} from './pdf-document';
 import { drawAxes, roundXTicks } from './pdf-plot';
 import type { ReportData } from './report.service';
 import { drawHallSection } from './report-hall';
@@ -21,7 +32,7 @@ function drawPlot(
   doc: PDFKit.PDFDocument,
   steps: readonly AnalysisStep[],
   box: { x0: number; y0: number; width: number; height: number },
-): void {
+): number {
   if (steps.length === 0) {
     doc.save().lineWidth(0.6).strokeColor(MUTED).rect(box.x0, box.y0, box.width, box.height);
     doc.stroke().restore();
@@ -30,7 +41,7 @@ function drawPlot(
       width: box.width,
       align: 'center',
     });
-    return;
+    return box.y0 + box.height + 30;
   }
   const ts = steps.map((s) => s.temperatureK);
   const rhos = steps.map((s) => s.resistivityOhmCm);
@@ -55,6 +66,7 @@ function drawPlot(
     for (const s of steps) doc.circle(frame.px(s.temperatureK), frame.py(s.resistivityOhmCm), 1.4);
     doc.fill().restore();
   }
+  return frame.bottom + 6;
 }
 
 /** The printed lines of one saved fit: parameters in words with their intervals, goodness. */
@@ -82,7 +94,8 @@ export function fitLines(f: FitDto): string[] {
   lines.push(
     `   R² ${sig(g.rSquared)}, ${g.count} readings, residual RMS ${sig(g.residualRms, 3)} ${g.residualUnit}`,
   );
-  if (f.reading) lines.push(`   ${f.reading}`);
+  // readings saved before resistivity was written Ω·cm in them
+  if (f.reading) lines.push(`   ${f.reading.replace(/\bohm cm\b/g, OHM_CM)}`);
   if (!f.converged && f.reason) lines.push(`   ${f.reason}`);
   for (const w of f.warnings ?? []) lines.push(`   Warning: ${w}`);
   lines.push(
@@ -97,21 +110,35 @@ export function closingSection(doc: PDFKit.PDFDocument, cautions: string[], disc
   doc.moveDown(0.8);
   doc.font('plex-bold').fontSize(11).fillColor(INK).text('Cautions', 50);
   doc.font('plex').fontSize(8.5);
-  for (const c of cautions) doc.text(`• ${c}`, { width: 495 });
+  for (const c of cautions) {
+    const y = doc.y;
+    doc.text('•', 50, y);
+    doc.text(c, 60, y, { width: 485 });
+  }
   doc.moveDown(0.6);
-  doc.font('plex-bold').fontSize(9).fillColor(INK).text(disclaimer);
+  doc.font('plex-bold').fontSize(9).fillColor(INK).text(disclaimer, 50);
 }
 
-/** Fits, one block each, starting a page where a block would not fit. */
+/**
+ * Prints one line in the page's text column; a line the builders indent (leading spaces) is set
+ * as a hanging block, so its wrapped continuation stays under its first word, not the margin.
+ */
+export function printLine(doc: PDFKit.PDFDocument, text: string): void {
+  const indented = /^\s+/.test(text);
+  doc.text(text.trimStart(), indented ? 62 : 50, undefined, { width: indented ? 483 : 495 });
+}
+
+/** Fits, one block each, starting a page where a block (with the title, the first) would not fit. */
 export function fitsSection(doc: PDFKit.PDFDocument, fits: readonly FitDto[], title = 'Fits') {
+  const blocks = fits.map(fitLines);
+  keepSpace(doc, 24 + (blocks[0]?.length ?? 1) * 11);
   doc.font('plex-bold').fontSize(11).fillColor(INK).text(title, 50);
   doc.font('plex').fontSize(8.5);
   if (fits.length === 0) doc.fillColor(MUTED).text('No saved fits.');
-  for (const f of fits) {
-    const lines = fitLines(f);
+  for (const lines of blocks) {
     keepSpace(doc, lines.length * 11);
     doc.fillColor(INK);
-    for (const line of lines) doc.text(line, 50, undefined, { width: 495 });
+    for (const line of lines) printLine(doc, line);
     doc.moveDown(0.3);
   }
 }
@@ -141,14 +168,13 @@ export function renderReportPdf(
   const [value, ...budget] = specLines(d.spec);
   doc.text(value ?? '');
   doc.fontSize(8).fillColor(MUTED);
-  for (const b of budget) doc.text(b, { width: 495 });
+  for (const b of budget) printLine(doc, b);
 
-  doc.moveDown(0.8);
+  doc.moveDown(1.2);
   keepSpace(doc, 260);
   const top = doc.y;
-  drawPlot(doc, d.steps, { x0: 100, y0: top, width: 420, height: 220 });
+  doc.y = drawPlot(doc, d.steps, { x0: 100, y0: top, width: 420, height: 220 });
   doc.x = 50;
-  doc.y = top + 250;
   fitsSection(doc, d.fits);
   if (d.hall) drawHallSection(doc, d.hall, d.fits, d.material);
   closingSection(doc, d.cautions, d.disclaimer);
@@ -156,18 +182,28 @@ export function renderReportPdf(
   return done;
 }
 
-/** The sweep's identity line: when it was stored (to the minute, UTC) and how it was measured. */
+/** The sweep's identity line: when it was stored (to the minute, UTC) and its method in words. */
 export function storedLine(
   d: Pick<ReportData, 'sweepId' | 'sweepName' | 'measuredAt' | 'method'>,
 ): string {
-  return `Sweep ${d.sweepId} (${d.sweepName}), stored ${isoStampUtc(d.measuredAt)}, method ${d.method}`;
+  const method = (METHOD_WORDS as Record<string, string>)[d.method] ?? d.method;
+  return `Sweep ${d.sweepId} (${d.sweepName}), stored ${isoStampUtc(d.measuredAt)}, ${method}`;
 }
 
+/** A station's thermometer in words. */
+const THERMOMETER_WORDS: Record<string, string> = {
+  'platinum-rtd': 'platinum resistance thermometer',
+  thermocouple: 'thermocouple',
+  table: 'sensor read through its calibration table',
+};
+
 /** Material, station and geometry in words and units. */
-export function sweepFacts(d: ReportData): string[] {
+export function sweepFacts(
+  d: Pick<ReportData, 'material' | 'dopant' | 'station' | 'geometry'>,
+): string[] {
   const station = d.station
-    ? `${d.station.name} (probe spacing ${sig(d.station.probeSpacingCm * 10)} mm, ` +
-      `${d.station.thermometer === 'platinum-rtd' ? 'platinum resistance' : d.station.thermometer} thermometer)`
+    ? `${d.station.name} (probe spacing ${plain(d.station.probeSpacingCm * 10)} mm, ` +
+      `${THERMOMETER_WORDS[d.station.thermometer] ?? `${d.station.thermometer} thermometer`})`
     : 'not recorded';
   return [
     `Material ${d.material}${d.dopant ? `, dopant ${d.dopant}` : ''}`,

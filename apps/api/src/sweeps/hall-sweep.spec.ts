@@ -294,6 +294,7 @@ describe('Hall fits', () => {
     expect(hall.carrierType).toBe('n');
     expect(hall.hallFactor).toBe(1);
     expect(hall.carrierDensityAt300KCm3! / truthElectronsCm3(300)).toBeCloseTo(1, 1);
+    expect(hall.carrierDensityAt300KUncertaintyCm3).toBeGreaterThan(0);
     // Freeze-out ends where the neutrality n (computed in the file) falls below half of
     // N_D - N_A; one 10 K step either way for the noise.
     const grid = Array.from({ length: 39 }, (_, k) => 20 + 10 * k);

@@ -27,8 +27,8 @@ export const blochGruneisenKind: FitKindEntry<'bloch-gruneisen'> = {
     );
     const p = r.parameters;
     let reading = r.converged
-      ? `Residual resistivity ${p.residualOhmCm.toPrecision(3)} ohm cm, coupling ` +
-        `${p.couplingOhmCm.toPrecision(3)} ohm cm, Debye temperature ${p.debyeK.toPrecision(3)} K.`
+      ? `Residual resistivity ${p.residualOhmCm.toPrecision(3)} Ω·cm, coupling ` +
+        `${p.couplingOhmCm.toPrecision(3)} Ω·cm, Debye temperature ${p.debyeK.toPrecision(3)} K.`
       : `The fit did not converge: ${r.reason}`;
     if (!isMetal(context.material)) {
       reading = `Bloch–Grüneisen describes metals; this lot is ${context.material}. ${reading}`;

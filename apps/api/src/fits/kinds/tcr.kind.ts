@@ -32,7 +32,7 @@ export const tcrKind: FitKindEntry<'tcr'> = {
       computation: computationOf(r, context.points, {
         goodness: { referenceK },
         reading:
-          `Resistivity ${p.referenceResistivityOhmCm.toPrecision(4)} ohm cm at ${referenceK} K, ` +
+          `Resistivity ${p.referenceResistivityOhmCm.toPrecision(4)} Ω·cm at ${referenceK} K, ` +
           `rising ${(p.alphaPerK * 100).toPrecision(3)} % per kelvin ` +
           `(${Number(alsoShownIn('alphaPerK', p.alphaPerK)!.value.toPrecision(4))} ppm/K).`,
       }),

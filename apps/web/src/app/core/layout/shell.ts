@@ -10,6 +10,7 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { filter, interval, map, switchMap } from 'rxjs';
 import { Icon } from '../../shared/icon';
 import { PlotlyLoader } from '../../shared/plot/plotly-loader';
+import { SkipPlaces, focusPlace } from '../../shared/skip-target';
 import { AuthApi } from '../auth/auth-api';
 import { Session } from '../auth/session';
 import { navFor } from './nav-items';
@@ -52,6 +53,8 @@ export class Shell {
     { initialValue: false },
   );
   protected readonly user = this.session.user;
+  /** The sections of the page on screen, for the skip links after "Skip to main content". */
+  protected readonly skipPlaces = inject(SkipPlaces).places;
   protected readonly nav = computed(() => navFor(this.session.role()));
   protected readonly roleWord = computed(() => {
     const role = this.session.role();
@@ -78,6 +81,12 @@ export class Shell {
   /** Opens the search page for what was typed in the bar. */
   protected find(q: string): void {
     void this.router.navigate(['/search'], { queryParams: { q: q.trim() } });
+  }
+
+  /** A skip link moves the keyboard, not the address (the router owns the URL). */
+  protected skipTo(event: Event, element: HTMLElement): void {
+    event.preventDefault();
+    focusPlace(element);
   }
 
   protected signOut(): void {

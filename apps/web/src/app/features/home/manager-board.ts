@@ -43,6 +43,11 @@ import { HomeApi } from './home-api';
           </li>
         }
       </ul>
+      @if (group.items.length > 6) {
+        <a class="more" routerLink="/worklist"
+          >All {{ group.items.length }} {{ group.title.toLowerCase() }} in the worklist</a
+        >
+      }
     }
   `,
   styleUrl: './home.scss',

@@ -84,4 +84,22 @@ describe('PhysicistDesk', () => {
       (fixture.nativeElement as HTMLElement).querySelectorAll('[aria-label="Recent fits"] li'),
     ).toHaveLength(1);
   });
+
+  it('links its six recent sweeps to every sweep the reader may see', async () => {
+    TestBed.configureTestingModule({
+      imports: [PhysicistDesk],
+      providers: [provideHttpClient(), provideHttpClientTesting(), provideRouter([])],
+    });
+    const http = TestBed.inject(HttpTestingController);
+    const fixture = TestBed.createComponent(PhysicistDesk);
+    fixture.detectChanges();
+    http.expectOne((r) => r.url === '/api/fits/recent').flush({ items: [] });
+    http
+      .expectOne((r) => r.url === '/api/sweeps/recent')
+      .flush({ items: Array.from({ length: 6 }, (_, i) => ({ ...sweep, id: i + 1 })) });
+    await fixture.whenStable();
+    const links = [...(fixture.nativeElement as HTMLElement).querySelectorAll('a')];
+    const every = links.find((a) => a.textContent?.trim() === 'Every sweep');
+    expect(every?.getAttribute('href')).toBe('/search?kind=sweeps');
+  });
 });

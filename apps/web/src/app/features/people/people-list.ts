@@ -27,11 +27,13 @@ import {
   type DeactivateQuestion,
 } from './deactivate-dialog';
 import { PeopleApi } from './people-api';
+import { RowCards } from '../../shared/row-cards';
 
 /** Accounts and roles (admin). */
 @Component({
   selector: 'rt-people-list',
   imports: [
+    RowCards,
     MatTableModule,
     MatButtonModule,
     MatFormFieldModule,
@@ -92,7 +94,7 @@ import { PeopleApi } from './people-api';
           <button mat-button type="button" (click)="session.close()">Cancel</button>
         </div>
       </form>
-      <table mat-table [dataSource]="people.value()?.items ?? []" aria-label="Accounts">
+      <table mat-table rtRowCards [dataSource]="people.value()?.items ?? []" aria-label="Accounts">
         <ng-container matColumnDef="name"
           ><th mat-header-cell *matHeaderCellDef>Name</th>
           <td mat-cell *matCellDef="let u">{{ u.name }}</td></ng-container

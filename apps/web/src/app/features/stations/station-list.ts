@@ -35,11 +35,13 @@ import {
   sensorWords,
 } from './sensor-form';
 import { RecordHistory } from '../../shared/record-history/record-history';
+import { RowCards } from '../../shared/row-cards';
 
 /** Probe stations: list, register, edit. */
 @Component({
   selector: 'rt-station-list',
   imports: [
+    RowCards,
     RecordHistory,
     MatTableModule,
     MatButtonModule,

@@ -18,6 +18,7 @@ import type { AxisName } from './plot-figure';
 import { prepareFigure, zoomedLogTicks } from './plot-figure';
 import { PNG_SIZE, pngFilename, saveBlob, stampedPng } from './plot-png';
 import { PlotlyLoader } from './plotly-loader';
+import { RovingToolbar } from '../roving-toolbar';
 
 /** A selection made by dragging a box on the plot: the x range chosen. */
 export interface PlotSelection {
@@ -75,6 +76,7 @@ function afterPaint(): Promise<void> {
  */
 @Component({
   selector: 'rt-plot',
+  imports: [RovingToolbar],
   templateUrl: './plot.html',
   styleUrl: './plot.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

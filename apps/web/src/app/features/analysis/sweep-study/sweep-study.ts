@@ -16,6 +16,7 @@ import { SavedFits } from '../saved-fits/saved-fits';
 import { SweepFaults } from '../parts/sweep-faults/sweep-faults';
 
 import { MapView } from '../../maps/map-view/map-view';
+import { SkipTarget } from '../../../shared/skip-target';
 /**
  * Studying one sweep: the page around its parts (model overlay, Arrhenius window, full-model or
  * metal fits, saved fits). The parts share one `AnalysisStore`, provided here.
@@ -23,6 +24,7 @@ import { MapView } from '../../maps/map-view/map-view';
 @Component({
   selector: 'rt-sweep-study',
   imports: [
+    SkipTarget,
     MatButtonModule,
     MatCheckboxModule,
     MatProgressBarModule,

@@ -20,11 +20,13 @@ import { formatDay } from '../../../shared/format';
 import { isoFromDay } from '../../../shared/iso-date';
 import { AssignmentsApi } from '../assignments-api';
 import { AssignForm } from './assign-form';
+import { RowCards } from '../../../shared/row-cards';
 
 /** The manager's worklist: assign wafers, follow states, see what is overdue. */
 @Component({
   selector: 'rt-worklist',
   imports: [
+    RowCards,
     MatTableModule,
     MatPaginatorModule,
     MatSelectModule,

@@ -45,6 +45,7 @@ interface WaferRow {
 }
 
 import { LotMaps } from '../../maps/lot-maps/lot-maps';
+import { RowCards } from '../../../shared/row-cards';
 /**
  * One lot: facts, spec, wafers with their 23 °C values (± U, verdict, budget), Ppk and the spec
  * chart.
@@ -52,6 +53,7 @@ import { LotMaps } from '../../maps/lot-maps/lot-maps';
 @Component({
   selector: 'rt-lot-detail',
   imports: [
+    RowCards,
     RecordHistory,
     MatTableModule,
     MatButtonModule,

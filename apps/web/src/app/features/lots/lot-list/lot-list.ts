@@ -16,6 +16,7 @@ import { FormatValuePipe } from '../../../shared/format-value';
 import { formatDay } from '../../../shared/format';
 import { sortParam } from '../../../shared/list-query';
 import { LotsApi } from '../lots-api';
+import { RowCards } from '../../../shared/row-cards';
 
 interface LotQueryState {
   q: string;
@@ -32,6 +33,7 @@ const EMPTY_PAGE: Page<LotDto> = { items: [], total: 0, page: 1, pageSize: DEFAU
 @Component({
   selector: 'rt-lot-list',
   imports: [
+    RowCards,
     MatTableModule,
     MatSortModule,
     MatPaginatorModule,

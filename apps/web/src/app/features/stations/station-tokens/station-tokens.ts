@@ -26,6 +26,7 @@ import { Confirmer } from '../../../shared/confirm-dialog';
 import { fieldError } from '../../../shared/field-error';
 import { formatDay, formatStamp } from '../../../shared/format';
 import { StationsApi } from '../stations-api';
+import { RowCards } from '../../../shared/row-cards';
 
 /**
  * The tokens a station's computer posts its sweeps with: make one (its secret shown once, to
@@ -34,6 +35,7 @@ import { StationsApi } from '../stations-api';
 @Component({
   selector: 'rt-station-tokens',
   imports: [
+    RowCards,
     ReactiveFormsModule,
     MatButtonModule,
     MatFormFieldModule,

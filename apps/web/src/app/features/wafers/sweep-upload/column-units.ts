@@ -1,4 +1,4 @@
-import type { ColumnMeaning, SweepMethod, SweepPreviewResponse } from '@rhotrace/api-types';
+import type { ColumnMeaning, SweepPreviewResponse } from '@rhotrace/api-types';
 
 /** Unit labels the import understands for each column meaning (the API's canonical spellings). */
 export const UNITS_BY_MEANING: Record<ColumnMeaning, readonly string[]> = {
@@ -73,15 +73,8 @@ export function meaningChoice(meaning: ColumnMeaning): string {
   return meaning === 'other' ? 'is not used' : `holds ${MEANING_WORDS[meaning]}`;
 }
 
-/** Words shown for each measurement method. */
-export const METHOD_WORDS: Record<SweepMethod, string> = {
-  'four-point': 'Four-point probe (collinear)',
-  'van-der-pauw': 'Van der Pauw square',
-  bar: 'Bar with contacts',
-  resistivity: 'Resistivity already computed',
-  'sheet-resistance': 'Sheet resistance already computed',
-  hall: 'Hall effect (van der Pauw with a field)',
-};
+/** Words shown for each measurement method (shared with the printed reports). */
+export { METHOD_WORDS } from '@rhotrace/api-types';
 
 /** A unit label as a person writes it: degC → °C, ohm → Ω, u → µ. */
 export function unitLabel(unit: string | null): string {

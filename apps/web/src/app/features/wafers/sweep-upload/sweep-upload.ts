@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, effect, inject, input, output } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  computed,
+  effect,
+  inject,
+  input,
+  output,
+  viewChild,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { DropzoneComponent, FileInputDirective, type FileInputValue } from '@ngx-dropzone/cdk';
@@ -7,6 +17,7 @@ import { Caution } from '../../../shared/caution';
 import { Icon } from '../../../shared/icon';
 import { UploadFile } from './upload-file';
 import { UploadStore } from './upload-store';
+import { SkipTarget, focusPlace } from '../../../shared/skip-target';
 
 /**
  * Bringing sweeps in: drop or pick files; each is checked by the server with its own method,
@@ -15,7 +26,15 @@ import { UploadStore } from './upload-store';
  */
 @Component({
   selector: 'rt-sweep-upload',
-  imports: [MatButtonModule, DropzoneComponent, FileInputDirective, Caution, Icon, UploadFile],
+  imports: [
+    SkipTarget,
+    MatButtonModule,
+    DropzoneComponent,
+    FileInputDirective,
+    Caution,
+    Icon,
+    UploadFile,
+  ],
   providers: [UploadStore],
   templateUrl: './sweep-upload.html',
   styleUrl: './sweep-upload.scss',
@@ -29,6 +48,15 @@ export class SweepUpload {
   readonly stations = input<StationDto[]>([]);
   /** Emits the id of each sweep stored. */
   readonly stored = output<number>();
+  /**
+   * Store is disabled while nothing is ready or a file is still being read, checked or sent,
+   * but keeps the keyboard focus (Material's `disabledInteractive`): a button disabled under
+   * the focus drops it to the page, and the next Enter does nothing.
+   */
+  protected readonly storeDisabled = computed(
+    () => this.store.ready().length === 0 || this.store.busy(),
+  );
+  private readonly storeButton = viewChild('storeButton', { read: ElementRef<HTMLElement> });
 
   constructor() {
     effect(() => this.store.waferId.set(this.waferId()));
@@ -48,5 +76,16 @@ export class SweepUpload {
     if (event.target instanceof HTMLInputElement) return;
     event.preventDefault();
     zone.openFilePicker();
+  }
+
+  protected storeIfAllowed(): void {
+    if (!this.storeDisabled()) this.store.storeReady();
+  }
+
+  /** The skip link past the files' checks: straight to Store. */
+  protected skipToStore(event: Event): void {
+    event.preventDefault();
+    const button = this.storeButton()?.nativeElement;
+    if (button) focusPlace(button);
   }
 }

@@ -9,11 +9,13 @@ import { Router, RouterLink } from '@angular/router';
 import {
   type AssignmentDto,
   type AssignmentState,
+  type SweepSummaryDto,
   WAFER_STATES,
   type WaferState,
 } from '@rhotrace/api-types';
-import { catchError, of } from 'rxjs';
+import { catchError, filter, of, switchMap } from 'rxjs';
 import { Session } from '../../../core/auth/session';
+import { Confirmer } from '../../../shared/confirm-dialog';
 import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
@@ -31,6 +33,8 @@ import { MapView } from '../../maps/map-view/map-view';
 import { RecordHistory } from '../../../shared/record-history/record-history';
 import { PlanForm } from '../../planner/plan-form/plan-form';
 import { PlanView } from '../../planner/plan-view/plan-view';
+import { RowCards } from '../../../shared/row-cards';
+import { SkipTarget } from '../../../shared/skip-target';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
@@ -44,6 +48,8 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
 @Component({
   selector: 'rt-wafer-page',
   imports: [
+    SkipTarget,
+    RowCards,
     RecordHistory,
     MatTableModule,
     MatButtonModule,
@@ -72,6 +78,7 @@ export class WaferPage {
   private readonly downloader = inject(Downloader);
   private readonly session = inject(Session);
   private readonly router = inject(Router);
+  private readonly confirmer = inject(Confirmer);
 
   readonly id = input.required<string>();
   protected readonly waferId = computed(() => Number(this.id()));
@@ -211,10 +218,12 @@ export class WaferPage {
     this.api.moveAssignment(assignment.id, next.state).subscribe(() => this.assignments.reload());
   }
 
+  /** An upload moves the wafer to measured and the uploader's task on: read all three again. */
   protected onStored(sweepId: number): void {
     this.chosenSweepId.set(sweepId);
     this.sweeps.reload();
     this.wafer.reload();
+    this.assignments.reload();
   }
 
   protected downloadRaw(id: number, name: string): void {
@@ -227,20 +236,33 @@ export class WaferPage {
 
   /** Deletes a wafer not yet measured (the API refuses a measured one with a message). */
   protected removeWafer(number: string, lotId: number): void {
-    const question =
-      `Delete wafer ${number}? Its open assignments are cancelled; ` +
-      'it stays in the change trail.';
-    if (!globalThis.confirm(question)) return;
-    this.api
-      .deleteWafer(this.waferId())
+    this.confirmer
+      .ask({
+        title: `Delete wafer ${number}?`,
+        message: 'Its open assignments are cancelled; the change trail keeps the record.',
+        confirmWords: 'Delete the wafer',
+      })
+      .pipe(
+        filter(Boolean),
+        switchMap(() => this.api.deleteWafer(this.waferId())),
+      )
       .subscribe(() => void this.router.navigate(['/lots', lotId]));
   }
 
-  protected removeSweep(id: number): void {
-    if (!globalThis.confirm('Delete this sweep? It stays in the change trail.')) return;
-    this.api.deleteSweep(id).subscribe(() => {
-      this.chosenSweepId.set(null);
-      this.sweeps.reload();
-    });
+  protected removeSweep({ id, originalName }: SweepSummaryDto): void {
+    this.confirmer
+      .ask({
+        title: `Delete the sweep ${originalName}?`,
+        message: 'It leaves the lists and the analyses; the change trail keeps the record.',
+        confirmWords: 'Delete the sweep',
+      })
+      .pipe(
+        filter(Boolean),
+        switchMap(() => this.api.deleteSweep(id)),
+      )
+      .subscribe(() => {
+        this.chosenSweepId.set(null);
+        this.sweeps.reload();
+      });
   }
 }

@@ -17,6 +17,7 @@ import type { HallAnalysis } from '@rhotrace/api-types';
 import { DOPANTS } from '@rhotrace/physics';
 import { formatExponent, parseExponent } from '../../../../shared/engineering';
 import { type HallDoping, isSemiconductor } from '../hall-study/hall-models';
+import { HallFitRange } from '../hall-study/hall-fit-range';
 import { HallFitResult } from '../hall-study/hall-fit-result';
 import { HallFitsStore } from '../hall-study/hall-fits-store';
 
@@ -50,6 +51,7 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
     MatCheckboxModule,
     MatFormFieldModule,
     MatInputModule,
+    HallFitRange,
     HallFitResult,
   ],
   template: `
@@ -89,16 +91,7 @@ export function startingHallDoping(material: string, hall: HallAnalysis): HallDo
           />
           <span matTextSuffix>eV</span>
         </mat-form-field>
-        <mat-form-field>
-          <mat-label>From</mat-label>
-          <input matInput type="number" step="any" [(ngModel)]="minK" />
-          <span matTextSuffix>K</span>
-        </mat-form-field>
-        <mat-form-field>
-          <mat-label>To</mat-label>
-          <input matInput type="number" step="any" [(ngModel)]="maxK" />
-          <span matTextSuffix>K</span>
-        </mat-form-field>
+        <rt-hall-fit-range [(minK)]="minK" [(maxK)]="maxK" />
       </div>
       <div class="rt-row">
         @for (f of freeChoices(); track f.key) {

@@ -7,11 +7,9 @@ import {
   signal,
   untracked,
 } from '@angular/core';
-import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
-import { MatFormFieldModule } from '@angular/material/form-field';
-import { MatInputModule } from '@angular/material/input';
 import type { HallAnalysis } from '@rhotrace/api-types';
+import { HallFitRange } from '../hall-study/hall-fit-range';
 import { HallFitResult } from '../hall-study/hall-fit-result';
 import { HallFitsStore } from '../hall-study/hall-fits-store';
 
@@ -24,21 +22,12 @@ export const HALL_MOBILITY_FROM_K = 150;
 /** The power-law fit of the Hall mobility, mu_H = mu_300 (T / 300)^exponent. */
 @Component({
   selector: 'rt-hall-mobility-fit',
-  imports: [FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, HallFitResult],
+  imports: [MatButtonModule, HallFitRange, HallFitResult],
   template: `
     <section class="panel" aria-labelledby="hall-mobility-title">
       <h2 id="hall-mobility-title" class="rt-section-title">Hall mobility fit (power law)</h2>
       <div class="rt-row">
-        <mat-form-field>
-          <mat-label>From</mat-label>
-          <input matInput type="number" step="any" [(ngModel)]="minK" />
-          <span matTextSuffix>K</span>
-        </mat-form-field>
-        <mat-form-field>
-          <mat-label>To</mat-label>
-          <input matInput type="number" step="any" [(ngModel)]="maxK" />
-          <span matTextSuffix>K</span>
-        </mat-form-field>
+        <rt-hall-fit-range [(minK)]="minK" [(maxK)]="maxK" />
         <span class="rt-spacer"></span>
         <button mat-flat-button type="button" (click)="run()" [disabled]="slot().busy">
           Fit µ_H(T)

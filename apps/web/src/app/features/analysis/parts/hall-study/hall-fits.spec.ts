@@ -1,6 +1,7 @@
 import { Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
 import type { HallAnalysis } from '@rhotrace/api-types';
 import { SavedFits } from '../../saved-fits/saved-fits';
 import { answer, mountPart, previewOf, savedOf } from '../../testing/study-fakes';
@@ -63,9 +64,12 @@ describe('Hall fits', () => {
   it('shows the time a Hall fit has taken, cancels it, then keeps a new one', async () => {
     const { api, loader, fixture } = await mountPart(MobilityHost);
     const el = fixture.nativeElement as HTMLElement;
+    const from = await loader.getHarness(MatInputHarness.with({ selector: 'input' }));
+    expect(await from.getValue()).toBe('150');
+    await from.setValue('200');
     const fit = await loader.getHarness(MatButtonHarness.with({ text: 'Fit µ_H(T)' }));
     await fit.click();
-    expect(api.previews[0]!.body).toMatchObject({ kind: 'hall-mobility', minK: 150, maxK: 400 });
+    expect(api.previews[0]!.body).toMatchObject({ kind: 'hall-mobility', minK: 200, maxK: 400 });
     expect(el.querySelector('[data-testid=elapsed]')?.textContent).toMatch(
       /Fitting µ_H\(T\): \d+\.\d s/,
     );

@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import type { FitDto, FitPreviewDto } from '@rhotrace/api-types';
 import { formatValue } from '../../../../shared/format';
+import { HALL_AT_300K_NOTE, valueWithUncertainty } from '../../../../shared/hall-at-300k';
 import { AnalysisStore } from '../../analysis-store';
 import { HallDensityFit } from '../hall-density-fit/hall-density-fit';
 import { HallMobilityFit } from '../hall-mobility-fit/hall-mobility-fit';
@@ -39,10 +40,10 @@ function fittedDoping(fit: FitDto | FitPreviewDto): HallDoping {
         <h2 id="hall-title" class="rt-section-title">Hall effect</h2>
         <p data-testid="carrier-type">
           Carrier type: <strong>{{ carrierWords[v.hall.carrierType] }}</strong> · Hall factor r_H =
-          {{ format(v.hall.hallFactor, 4) }} · at 300 K: n =
-          {{ format(v.hall.carrierDensityAt300KCm3) }} cm⁻³, µ_H =
-          {{ format(v.hall.hallMobilityAt300KCm2PerVs) }} cm²/(V s)
+          {{ format(v.hall.hallFactor, 4) }} · at 300 K: n = {{ at300K().density }}, µ_H =
+          {{ at300K().mobility }}
         </p>
+        <p class="rt-muted">{{ hallNote }}</p>
         <rt-hall-plots
           [steps]="v.steps"
           [hall]="v.hall"
@@ -71,10 +72,28 @@ export class HallStudy {
   protected readonly fits = inject(HallFitsStore);
   protected readonly format = formatValue;
   protected readonly carrierWords = CARRIER_WORDS;
+  protected readonly hallNote = HALL_AT_300K_NOTE;
 
   protected readonly view = computed(() => {
     const a = this.study.analysis.value();
     return a?.hall ? { hall: a.hall, steps: a.steps, material: a.sweep.material } : null;
+  });
+
+  /** The values at 300 K with their standard uncertainties and units. */
+  protected readonly at300K = computed(() => {
+    const h = this.view()!.hall;
+    return {
+      density: valueWithUncertainty(
+        h.carrierDensityAt300KCm3,
+        h.carrierDensityAt300KUncertaintyCm3,
+        'cm⁻³',
+      ),
+      mobility: valueWithUncertainty(
+        h.hallMobilityAt300KCm2PerVs,
+        h.hallMobilityAt300KUncertaintyCm2PerVs,
+        'cm²/(V s)',
+      ),
+    };
   });
 
   private readonly latestSaved = (kind: FitDto['kind']) =>
