@@ -142,7 +142,7 @@ export class SuspiciousPointFinder {
       legs,
       late: lateFlags,
       reversals: lateFlags['temperature-reversal'] ?? [],
-      flagged: new Set(all.map((f) => f.index)).size,
+      flagged: distinctIndexes(all),
       findings: all.map((f) => ({
         sequence: f.index + 1,
         row: this.rows[f.index]!,
@@ -193,8 +193,14 @@ export class SuspiciousPointFinder {
   }
 
   private warnings(all: Finding[]): string[] {
-    const rowsOf = (flag: PointFlag) =>
-      all.filter((f) => f.flag === flag).map((f) => this.rows[f.index]!);
+    // one pass groups the rows by flag (a long sweep can hold a finding for every point)
+    const byFlag = new Map<PointFlag, number[]>();
+    for (const f of all) {
+      const list = byFlag.get(f.flag);
+      if (list) list.push(this.rows[f.index]!);
+      else byFlag.set(f.flag, [this.rows[f.index]!]);
+    }
+    const rowsOf = (flag: PointFlag) => byFlag.get(flag) ?? [];
     const warnings: string[] = [];
     const jumps = rowsOf('jump');
     if (jumps.length) {
@@ -230,6 +236,15 @@ export class SuspiciousPointFinder {
     }
     return { minTemperatureK, maxTemperatureK };
   }
+}
+
+/** The number of different positions among findings sorted by position. */
+function distinctIndexes(sorted: Finding[]): number {
+  let count = 0;
+  for (let k = 0; k < sorted.length; k++) {
+    if (k === 0 || sorted[k]!.index !== sorted[k - 1]!.index) count++;
+  }
+  return count;
 }
 
 /**
