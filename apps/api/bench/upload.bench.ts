@@ -2,9 +2,10 @@
  * Upload benchmark: a 100,000-row four-column four-point-probe file uploaded over HTTP, parsed,
  * converted and stored, against two references measured in the same run: the bare baseline
  * (csv-parse of the same file plus the driver's batch insert of the same rows in one
- * transaction) and MariaDB's own LOAD DATA LOCAL INFILE of the same point rows (raw cells as the
- * import stores them) from a tab-separated file prepared beforehand, in one transaction (timed:
- * the statement and its commit, the server's own floor). Prints medians, peak memory
+ * transaction) and MariaDB's own LOAD DATA LOCAL INFILE of the same point rows (the rows the
+ * upload just stored, read back: raw cells, flags and leg as the import writes them) from a
+ * tab-separated file prepared beforehand, in one transaction (timed: the statement and its
+ * commit, the server's own floor). Prints medians, peak memory
  * growth and the ratios; writes bench/out/upload.json. Needs the MariaDB that `npm run bench`
  * starts (DB_*).
  */
@@ -16,6 +17,7 @@ import type { AddressInfo } from 'node:net';
 import { fileURLToPath } from 'node:url';
 import { parse } from 'csv-parse/sync';
 import { makeWafer } from '../src/sweeps/sweep-test-helpers';
+import { QueryTypes } from 'sequelize';
 import { Sweep } from '../src/sweeps/sweep.model';
 import { createTestContext } from '../src/testing/test-context';
 
@@ -26,6 +28,24 @@ const RATIO_TARGET = 1.5;
 /** Issue 20: the upload within twice the time of MariaDB's own LOAD DATA of the same rows. */
 const LOAD_DATA_RATIO_TARGET = 2;
 const MEMORY_TARGET_MB = 300;
+/** Every column the import writes besides the sweep id and sequence. */
+const STORED_COLUMNS = [
+  'source_row',
+  'temperature_k',
+  'current_a',
+  'voltage_v',
+  'resistance_ohm',
+  'sheet_resistance_ohm_sq',
+  'resistivity_ohm_cm',
+  'raw',
+  'flags',
+  'quantities',
+  'site_x_mm',
+  'site_y_mm',
+  'site_label',
+  'edge_factor',
+  'leg',
+];
 const OUT = fileURLToPath(new URL('../../../bench/out/', import.meta.url));
 
 function makeFile(seed: number): Buffer {
@@ -70,7 +90,7 @@ async function main(): Promise<void> {
     deletedById: null,
   });
 
-  async function full(file: Buffer): Promise<{ ms: number; peakMb: number }> {
+  async function full(file: Buffer): Promise<{ ms: number; peakMb: number; sweepId: number }> {
     const wafer = await makeWafer({ thicknessCm: 0.05 });
     const form = new FormData();
     form.set('method', 'four-point');
@@ -88,13 +108,13 @@ async function main(): Promise<void> {
       headers: auth,
       body: form,
     });
-    const body = (await res.json()) as { pointCount?: number };
+    const body = (await res.json()) as { id?: number; pointCount?: number };
     const ms = performance.now() - start;
     clearInterval(timer);
     peak = Math.max(peak, process.memoryUsage().rss);
     if (res.status !== 201 || body.pointCount !== ROWS)
       throw new Error(`upload failed: ${res.status} ${JSON.stringify(body)}`);
-    return { ms, peakMb: (peak - rss0) / 2 ** 20 };
+    return { ms, peakMb: (peak - rss0) / 2 ** 20, sweepId: body.id! };
   }
 
   async function baseline(file: Buffer): Promise<number> {
@@ -137,22 +157,29 @@ async function main(): Promise<void> {
   });
   const scratch = mkdtempSync(join(tmpdir(), 'rhotrace-load-data-'));
 
-  /** The same point rows as the import writes (raw cells as JSON), by LOAD DATA. */
-  async function loadData(file: Buffer): Promise<number> {
-    const records = parse(file, { from_line: 2 }) as string[][];
+  /**
+   * The very rows the upload of the same file stored (raw cells, flags and leg included), read
+   * back from sweep `sweepId` and loaded by LOAD DATA under the reference sweep.
+   */
+  async function loadData(sweepId: number): Promise<number> {
+    const stored = (await ctx.sequelize.query(
+      `SELECT ${STORED_COLUMNS.join(', ')} FROM sweep_points WHERE sweep_id = ${sweepId} ORDER BY sequence`,
+      { type: QueryTypes.SELECT, raw: true },
+    )) as Array<Record<string, unknown>>;
     const tsv = join(scratch, 'points.tsv');
-    const lines = records.map((r, i) => {
-      const [t, current, voltage] = [Number(r[1]), Number(r[2]), Number(r[3])];
-      const raw = JSON.stringify(r).replace(/\\/g, '\\\\');
-      return `${holder.id}\t${i + 1}\t${i + 2}\t${t}\t${current}\t${voltage}\t${voltage / current}\t${raw}\t`;
-    });
+    // LOAD DATA's defaults: tab between fields, \N for NULL, a backslash escapes
+    const field = (v: unknown) =>
+      v === null ? '\\N' : (typeof v === 'string' ? v : JSON.stringify(v)).replace(/\\/g, '\\\\');
+    const lines = stored.map((r, i) =>
+      [holder.id, i + 1, ...STORED_COLUMNS.map((c) => field(r[c]))].join('\t'),
+    );
     writeFileSync(tsv, `${lines.join('\n')}\n`);
     // Timed: the server's own work only (the rows are ready in a file, as LOAD DATA wants them).
     const start = performance.now();
     await loader.beginTransaction();
     const result = (await loader.query(
       `LOAD DATA LOCAL INFILE '${tsv}' INTO TABLE sweep_points ` +
-        '(sweep_id, sequence, source_row, temperature_k, current_a, voltage_v, resistivity_ohm_cm, raw, flags)',
+        `(sweep_id, sequence, ${STORED_COLUMNS.join(', ')})`,
     )) as { affectedRows: number };
     await loader.commit();
     const ms = performance.now() - start;
@@ -166,16 +193,15 @@ async function main(): Promise<void> {
   const loadMs: number[] = [];
   const peaks: number[] = [];
   const baseMs: number[] = [];
-  await full(makeFile(-1));
+  await loadData((await full(makeFile(-1))).sweepId);
   await baseline(makeFile(-1));
-  await loadData(makeFile(-1));
   for (let k = 0; k < RUNS; k++) {
     const file = makeFile(k);
     baseMs.push(await baseline(file));
-    loadMs.push(await loadData(file));
     const f = await full(file);
     fullMs.push(f.ms);
     peaks.push(f.peakMb);
+    loadMs.push(await loadData(f.sweepId));
   }
   server.close();
   await loader.end();

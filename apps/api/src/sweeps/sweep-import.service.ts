@@ -1,10 +1,10 @@
 /**
  * Preview and import of probe-station exports. The import runs as named stages, each in
  * `import/`: read the table → detect columns → read a row → pair polarities → turn a row into a
- * point (one entry per measurement method) → flag → store. It converts and stores slice by
- * slice inside one transaction, so the database inserts one slice while the next is converted,
- * and stores the sweep, its raw file, its points and the audit event all together or not at
- * all. A transaction failure of the moment (a deadlock, a Galera certification failure or
+ * point (one entry per measurement method) → flag → store. It reads and converts slice by
+ * slice, flags the whole sweep, then stores the sweep, its raw file, its points (each with its
+ * leg and every flag, in one pass) and the audit event in one transaction, all together or not
+ * at all. A transaction failure of the moment (a deadlock, a Galera certification failure or
  * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
@@ -22,6 +22,8 @@ import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { SweepRows } from './import/check-rows';
 import { publicColumns } from './import/detect-columns';
+import { markPoints } from './import/flag';
+import type { ConvertedPoint } from './import/import-types';
 import { planImport, type ImportChoices, type ImportPlan } from './import/plan-import';
 import { openTable, unreadableRows } from './import/read-table';
 import { POINT_CHUNK } from './import/store/point-writer';
@@ -31,7 +33,7 @@ import { MAX_PROBLEMS, type OpenedSweepFile } from './parse';
 import { Sweep } from './sweep.model';
 import { followUpload } from '../assignments/follow-upload';
 
-/** Records converted per slice: one slice is stored while the next is converted. */
+/** Records read and converted per slice. */
 export const IMPORT_SLICE_ROWS = POINT_CHUNK;
 
 /** What `importSweep` needs; the demo seeder calls it directly. */
@@ -231,19 +233,23 @@ async function storeSweep(
     rawJson(parsed),
     transaction,
   );
+  // Every point is held until the flags of the whole sweep are known, then stored once.
+  const points: ConvertedPoint[] = [];
+  for (const slice of rows.points()) for (const p of slice) points.push(p);
+  if (rows.problems.length) {
+    throw unprocessable(
+      'Some rows hold values that cannot be stored; nothing was stored',
+      rows.problems.slice(0, MAX_PROBLEMS),
+    );
+  }
+  const flags = rows.finish();
+  markPoints(points, flags);
   try {
-    for (const points of rows.points()) await store.write(points);
-    if (rows.problems.length) {
-      throw unprocessable(
-        'Some rows hold values that cannot be stored; nothing was stored',
-        rows.problems.slice(0, MAX_PROBLEMS),
-      );
-    }
+    await store.write(points);
   } catch (error) {
     await store.abandon();
     throw error;
   }
-  const flags = rows.finish();
   const disagreements = plan.metadata.filter((f) => f.agreement === 'disagrees');
   const warnings = [...plan.warnings, ...disagreements.map((f) => f.sentence), ...flags.warnings];
   const report = {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { JUMP_FACTOR } from '@rhotrace/api-types';
-import { SuspiciousPointFinder } from './flag';
+import { markPoints, SuspiciousPointFinder } from './flag';
 import type { ConvertedPoint } from './import-types';
 
 const point = (row: number, temperatureK: number, resistivityOhmCm: number): ConvertedPoint => ({
@@ -96,5 +96,23 @@ describe('flag', () => {
     expect(summary.findings[0]).toMatchObject({ sequence: 7, row: 8, flag: 'outlier' });
     expect(summary.findings[0]!.reason).toMatch(/\(\+\d+\.\d %\) in leg 1/);
     expect(summary.warnings.join(' ')).toMatch(/R_A\/R_B reaches 4\.20 \(above 3\) at 1 point/);
+  });
+
+  it('flags a long sweep whose every step drifts (130,000 findings once overflowed the stack)', () => {
+    // a slow continuous ramp: each 0.5 K step's readings rise one way, so all are unsettled
+    const n = 150_000;
+    const points = Array.from({ length: n }, (_, i) => {
+      const t = 80 + (i * 400) / n;
+      return point(i + 2, t, 0.01 * (t / 300) ** 1.5 * (1 + 1e-4 * Math.sin(i)));
+    });
+    const finder = new SuspiciousPointFinder();
+    finder.addAll(points);
+    const summary = finder.finish();
+    const unsettled = summary.late.unsettled ?? [];
+    expect(unsettled.length).toBeGreaterThan(130_000);
+    expect(unsettled.every((p, k) => k === 0 || p > unsettled[k - 1]!)).toBe(true);
+    markPoints(points, summary);
+    expect(points.filter((p) => p.flags.includes('unsettled'))).toHaveLength(unsettled.length);
+    expect(new Set(points.map((p) => p.leg))).toEqual(new Set([1]));
   });
 });

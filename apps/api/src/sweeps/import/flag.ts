@@ -127,20 +127,22 @@ export class SuspiciousPointFinder {
     if (sigma !== null) {
       const data = { temperaturesK: t, lnRho: this.lnRho, currentsA: this.currents };
       for (const steps of stepsByLeg) {
-        late.push(...selfHeating(data, steps, sigma), ...unsettledSteps(data, steps, sigma));
+        // one by one: spreading a whole sweep's findings as arguments overflows the stack
+        for (const f of selfHeating(data, steps, sigma)) late.push(f);
+        for (const f of unsettledSteps(data, steps, sigma)) late.push(f);
       }
     }
     const lateFlags: LateFlags = {};
     for (const f of late) (lateFlags[f.flag] ??= []).push(f.index);
     for (const [flag, list] of Object.entries(lateFlags)) {
-      lateFlags[flag as PointFlag] = [...new Set(list)].sort((a, b) => a - b);
+      lateFlags[flag as PointFlag] = Array.from(Int32Array.from(new Set(list)).sort());
     }
     const all = [...this.early, ...late].sort((a, b) => a.index - b.index);
     return {
       legs,
       late: lateFlags,
       reversals: lateFlags['temperature-reversal'] ?? [],
-      flagged: new Set(all.map((f) => f.index)).size,
+      flagged: distinctIndexes(all),
       findings: all.map((f) => ({
         sequence: f.index + 1,
         row: this.rows[f.index]!,
@@ -174,9 +176,15 @@ export class SuspiciousPointFinder {
   /** The leg's positions split by current level (two significant figures of |I|). */
   private levelSeries(leg: LegRange): number[][] {
     const byLevel = new Map<string, number[]>();
+    // most files hold one current throughout: its key is worked out once, not per point
+    let lastCurrent = Number.NaN;
+    let key = 'none';
     for (let i = leg.start; i < leg.end; i++) {
       const c = this.currents[i]!;
-      const key = Number.isFinite(c) ? Math.abs(c).toPrecision(2) : 'none';
+      if (!Object.is(c, lastCurrent)) {
+        key = Number.isFinite(c) ? Math.abs(c).toPrecision(2) : 'none';
+        lastCurrent = c;
+      }
       const list = byLevel.get(key) ?? [];
       list.push(i);
       byLevel.set(key, list);
@@ -185,8 +193,14 @@ export class SuspiciousPointFinder {
   }
 
   private warnings(all: Finding[]): string[] {
-    const rowsOf = (flag: PointFlag) =>
-      all.filter((f) => f.flag === flag).map((f) => this.rows[f.index]!);
+    // one pass groups the rows by flag (a long sweep can hold a finding for every point)
+    const byFlag = new Map<PointFlag, number[]>();
+    for (const f of all) {
+      const list = byFlag.get(f.flag);
+      if (list) list.push(this.rows[f.index]!);
+      else byFlag.set(f.flag, [this.rows[f.index]!]);
+    }
+    const rowsOf = (flag: PointFlag) => byFlag.get(flag) ?? [];
     const warnings: string[] = [];
     const jumps = rowsOf('jump');
     if (jumps.length) {
@@ -221,5 +235,29 @@ export class SuspiciousPointFinder {
       if (k > maxTemperatureK!) maxTemperatureK = k;
     }
     return { minTemperatureK, maxTemperatureK };
+  }
+}
+
+/** The number of different positions among findings sorted by position. */
+function distinctIndexes(sorted: Finding[]): number {
+  let count = 0;
+  for (let k = 0; k < sorted.length; k++) {
+    if (k === 0 || sorted[k]!.index !== sorted[k - 1]!.index) count++;
+  }
+  return count;
+}
+
+/**
+ * Writes what `finish` found onto the points themselves, before they are stored: each point's
+ * leg (1, 2, ...) and the late flags after the flags it already carries, flag by flag in the
+ * order of `summary.late`. The points are held until the whole sweep is seen so they are
+ * inserted once, complete (updating them after the insert cost more than inserting them).
+ */
+export function markPoints(points: ConvertedPoint[], summary: FlagSummary): void {
+  for (const [k, leg] of summary.legs.entries()) {
+    for (let i = leg.start; i < leg.end; i++) points[i]!.leg = k + 1;
+  }
+  for (const [flag, positions] of Object.entries(summary.late)) {
+    for (const i of positions) points[i]!.flags.push(flag as PointFlag);
   }
 }

@@ -35,6 +35,13 @@ type ColumnsByMeaning = Record<
   ResolvedColumn | null
 >;
 
+/** The Hall part of a reading from a file without Hall columns. */
+const NO_HALL: Required<Pick<Reading, HallReadingKey>> = Object.freeze({
+  magneticFieldT: null,
+  hallVoltageV: null,
+  hallReversalsV: null,
+});
+
 /** Reads records of a parsed file as readings; problems go to the list it is given. */
 export class RowReader {
   private readonly temperature: ResolvedColumn;
@@ -49,6 +56,8 @@ export class RowReader {
   /** True while the row being read has a problem. */
   private bad = false;
   private readonly currentFromHeader: boolean;
+  /** Whether any Hall column is mapped (most files have none: their rows skip the Hall cells). */
+  private readonly hasHall: boolean;
 
   constructor(
     private readonly parsed: ParsedSweepFile,
@@ -100,6 +109,7 @@ export class RowReader {
       'resistance-b-reciprocal': false,
       ...hallColumns((m) => cells.has(m)),
     };
+    this.hasHall = Object.values(hallColumns(col)).some((c) => c !== null);
     // A method that needs a current takes the file header's when no column gives one.
     this.currentFromHeader = cells.has('current');
     this.mark = parsed.layout.decimalMark;
@@ -175,6 +185,7 @@ export class RowReader {
 
   /** A Hall sweep's field and voltages (all null when the file has no such columns). */
   private readHall(cells: string[], row: number): Required<Pick<Reading, HallReadingKey>> {
+    if (!this.hasHall) return NO_HALL;
     const v = (m: HallMeaning) => this.value(cells, row, m);
     const [pp, pn, np, nn] = [
       v('hall-voltage-pp'),

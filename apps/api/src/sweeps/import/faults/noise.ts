@@ -4,8 +4,9 @@
  */
 import { MAD_SCALE } from './hampel';
 
-function median(values: number[]): number {
-  const s = [...values].sort((a, b) => a - b);
+/** Median of `values`, sorted in place (a typed array sorts numerically without a comparator). */
+function median(values: Float64Array): number {
+  const s = values.sort();
   const m = s.length >> 1;
   return s.length % 2 ? s[m]! : (s[m - 1]! + s[m]!) / 2;
 }
@@ -20,15 +21,19 @@ function median(values: number[]): number {
  * (1990)). Null with fewer than 3 second differences.
  */
 export function readingScatter(values: ArrayLike<number>, series: number[][]): number | null {
-  const d2: number[] = [];
+  let count = 0;
+  for (const s of series) count += Math.max(0, s.length - 2);
+  if (count < 3) return null;
+  const d2 = new Float64Array(count);
+  let n = 0;
   for (const s of series) {
     for (let k = 1; k + 1 < s.length; k++) {
-      d2.push(values[s[k + 1]!]! - 2 * values[s[k]!]! + values[s[k - 1]!]!);
+      d2[n++] = values[s[k + 1]!]! - 2 * values[s[k]!]! + values[s[k - 1]!]!;
     }
   }
-  if (d2.length < 3) return null;
   const m = median(d2);
-  return (MAD_SCALE * median(d2.map((d) => Math.abs(d - m)))) / Math.sqrt(6);
+  for (let k = 0; k < count; k++) d2[k] = Math.abs(d2[k]! - m);
+  return (MAD_SCALE * median(d2)) / Math.sqrt(6);
 }
 
 /** Two currents more than this ratio apart are different current levels. */

@@ -136,13 +136,8 @@ export function unsettledSteps(
         continue;
       }
       const t = meanAt(data.temperaturesK, group).toFixed(1);
-      for (const index of group) {
-        found.push({
-          index,
-          flag: 'unsettled',
-          reason: `the ${n} readings at ${t} K drift by ${pct(Math.exp(drift) - 1)} one way (a dwell too short to settle)`,
-        });
-      }
+      const reason = `the ${n} readings at ${t} K drift by ${pct(Math.exp(drift) - 1)} one way (a dwell too short to settle)`;
+      for (const index of group) found.push({ index, flag: 'unsettled', reason });
     }
   }
   return found;

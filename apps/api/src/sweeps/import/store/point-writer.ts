@@ -6,16 +6,11 @@ import type { Transaction } from 'sequelize';
 import type { ConvertedPoint } from '../import-types';
 import { requireAffected } from '../../../db/transient-errors';
 
-/**
- * Every point is written in leg 1: the legs are known only once the whole sweep is read, and
- * most sweeps have one, so only the points of later legs are renumbered after (a second pass
- * over every row was a third of a 100,000-row upload).
- */
 const INSERT_POINTS =
   'INSERT INTO sweep_points (sweep_id, sequence, source_row, temperature_k, current_a, voltage_v, ' +
   'resistance_ohm, sheet_resistance_ohm_sq, resistivity_ohm_cm, raw, flags, quantities, ' +
   'site_x_mm, site_y_mm, site_label, edge_factor, leg) ' +
-  'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 1)';
+  'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)';
 
 /** The driver connection Sequelize holds for a transaction. */
 interface BatchConnection {
@@ -42,10 +37,10 @@ export const POINT_CHUNK_BYTES = 3 * 1024 * 1024;
 
 /**
  * Bytes a row takes besides its raw text, flags, quantities and site label in the bulk
- * protocol, at most: sixteen null marks, three 4-byte integers, nine 8-byte doubles and four
+ * protocol, at most: seventeen null marks, four 4-byte integers, nine 8-byte doubles and four
  * length prefixes (up to 9 bytes each).
  */
-const ROW_OVERHEAD_BYTES = 16 + 3 * 4 + 9 * 8 + 4 * 9;
+const ROW_OVERHEAD_BYTES = 17 + 4 * 4 + 9 * 8 + 4 * 9;
 
 /** Batches one writer keeps on the connection before it waits for the oldest to finish. */
 export const POINT_BATCHES_IN_FLIGHT = 2;
@@ -111,6 +106,7 @@ export class PointWriter {
           site?.yMm ?? null,
           site?.label ?? null,
           p.edgeFactor ?? null,
+          p.leg ?? 1,
         ]);
       }
       this.send(rows);

@@ -1,6 +1,6 @@
 /**
- * Stage 7, store: the sweep row, its points, their legs and late flags, the completed row and the
- * audit event, in the upload's transaction, with every statement's result checked before the
+ * Stage 7, store: the sweep row, its points (legs and flags already on them), the completed row
+ * and the audit event, in the upload's transaction, with every statement's result checked before the
  * commit. The sweep row is written only while a transaction is open, the points need it (a
  * foreign key), and the audit event is written only where the sweep and all its points are
  * visible; the last statement checks the transaction is still open. A transaction that lost
@@ -55,9 +55,6 @@ const COUNT_POINTS =
   '(SELECT id FROM sweep_points WHERE sweep_id = ? AND sequence = 1) AND ' +
   '(SELECT id FROM sweep_points WHERE sweep_id = ? AND sequence = ?)';
 
-/** Positions (0-based, in stored order) of the points to mark per update statement. */
-const REVERSAL_UPDATE_ROWS = 5_000;
-
 /** Stores one sweep; `write` as slices are converted, then `complete` or `abandon`. */
 export class SweepStore {
   private sweepId: number | null = null;
@@ -85,7 +82,7 @@ export class SweepStore {
   }
 
   /**
-   * Completes the sweep (count, temperature range, report, reversal flags) and writes the audit
+   * Completes the sweep (count, temperature range, report) and writes the audit
    * event `audit` describes (its entity id is the sweep's). Resolves with the id and count.
    */
   async complete(
@@ -95,10 +92,6 @@ export class SweepStore {
   ): Promise<{ id: number; pointCount: number }> {
     const id = this.sweepId!;
     const pointCount = await this.writer!.finish();
-    await this.markLegs(id, flags);
-    for (const [flag, positions] of Object.entries(flags.late)) {
-      await this.markFlag(id, flag, positions);
-    }
     const [updated] = await Sweep.update(
       {
         pointCount,
@@ -168,42 +161,6 @@ export class SweepStore {
     );
     requireAffected(inserted, 1, 'the sweep row, written only inside the transaction');
     return Number(id);
-  }
-
-  /**
-   * Numbers the points of each leg after the first (`PointWriter` wrote every point in leg 1):
-   * one statement per leg, over its run of sequences.
-   */
-  private async markLegs(sweepId: number, flags: FlagSummary): Promise<void> {
-    for (const [k, leg] of flags.legs.entries()) {
-      if (k === 0 && leg.start === 0) continue;
-      const [, updated] = await Sweep.sequelize!.query(
-        'UPDATE sweep_points SET leg = ? WHERE sweep_id = ? AND sequence BETWEEN ? AND ?',
-        {
-          replacements: [k + 1, sweepId, leg.start + 1, leg.end],
-          type: QueryTypes.UPDATE,
-          transaction: this.transaction,
-        },
-      );
-      requireAffected(updated, leg.end - leg.start, 'numbering the legs');
-    }
-  }
-
-  /** Adds `flag` to the points at `positions` (0-based, after any flags they carry). */
-  private async markFlag(sweepId: number, flag: string, positions: number[]): Promise<void> {
-    for (let start = 0; start < positions.length; start += REVERSAL_UPDATE_ROWS) {
-      const sequences = positions.slice(start, start + REVERSAL_UPDATE_ROWS).map((i) => i + 1);
-      const [, updated] = await Sweep.sequelize!.query(
-        "UPDATE sweep_points SET flags = IF(flags = '', ?, CONCAT(flags, ',', ?)) " +
-          'WHERE sweep_id = ? AND sequence IN (?)',
-        {
-          replacements: [flag, flag, sweepId, sequences],
-          type: QueryTypes.UPDATE,
-          transaction: this.transaction,
-        },
-      );
-      requireAffected(updated, sequences.length, `marking ${flag} points`);
-    }
   }
 
   /** The last statement before the commit: the transaction must still be open. */
