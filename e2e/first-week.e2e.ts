@@ -141,6 +141,9 @@ describe('the first week of a lab', () => {
     // The newest counts for the 23 °C value until the manager chooses another (the batch's
     // files are stored side by side, so which one is newest is whichever committed last).
     const sweeps = page.getByRole('table', { name: 'Sweeps of this wafer' });
+    // both stored files listed first: with one listed, "newest" would still move
+    for (const stored of ['chuck-ramp.csv', 'bench-repeat.csv'])
+      await sweeps.getByRole('row').filter({ hasText: stored }).waitFor();
     const newest = sweeps.getByRole('row').filter({ hasText: 'Counts (newest)' });
     await newest.waitFor();
     const chosenName = (await newest.textContent())!.includes('chuck-ramp.csv')
@@ -170,10 +173,12 @@ describe('the first week of a lab', () => {
       const due = new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
       await page.getByLabel('Due date').fill(due);
       await page.getByRole('button', { name: 'Assign and e-mail' }).click();
+      // the answer first (a failure here means the request was refused), then the list
+      await page.getByText(`Assigned to ${newcomer.name}`).first().waitFor({ timeout: 30_000 });
       await page
         .getByRole('table', { name: 'Assignments' })
         .getByText(`Room-temperature sweep of ${number} (first week ${run})`)
-        .waitFor({ timeout: 20_000 });
+        .waitFor({ timeout: 30_000 });
     }
     await signOut(page);
 
