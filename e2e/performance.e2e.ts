@@ -6,10 +6,8 @@ import { BASE_URL, REPO_DIR, apiGet, apiToken, openBrowser, signIn } from './sup
 
 type Page<T> = { items: T[] };
 
-/** Points in the large sweep the study page is timed with. */
-const POINT_COUNT = 10_000;
-/** Points in the biggest sweep timed (the size a long logging run writes). */
-const BIG_POINT_COUNT = 100_000;
+/** Points in the large sweep the study page is timed with, and in the biggest (a long log). */
+const [POINT_COUNT, BIG_POINT_COUNT] = [10_000, 100_000];
 const fileName = (points: number) => `e2e-${points / 1000}k-points.csv`;
 
 /**
@@ -77,6 +75,7 @@ async function uploadLargeSweep(points: number): Promise<number> {
   const form = new FormData();
   form.append('method', 'four-point');
   form.append('spacingCm', '0.1');
+  form.append('thicknessCm', '0.05'); // the wafer picked may have no thickness on record
   form.append('file', new Blob([largeFourPointCsv(points)], { type: 'text/csv' }), FILE_NAME);
   const res = await fetch(`${BASE_URL}/api/wafers/${wafer.id}/sweeps`, {
     method: 'POST',
