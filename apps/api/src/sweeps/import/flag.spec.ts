@@ -99,13 +99,14 @@ describe('flag', () => {
   });
 
   it('flags a long sweep whose every step drifts (130,000 findings once overflowed the stack)', () => {
-    // a slow continuous ramp: each 0.5 K step's readings rise one way, so all are unsettled
+    // 15,000 dwells of ten readings, each held at its temperature (steps 0.002 K apart, a
+    // tolerance of 0.001 K) while rho still creeps 0.3 % one way: every reading is unsettled
     const n = 150_000;
     const points = Array.from({ length: n }, (_, i) => {
-      const t = 80 + (i * 400) / n;
-      return point(i + 2, t, 0.01 * (t / 300) ** 1.5 * (1 + 1e-4 * Math.sin(i)));
+      const t = 80 + 0.002 * Math.floor(i / 10);
+      return point(i + 2, t, 0.01 * (t / 300) ** 1.5 * (1 + 3e-4 * (i % 10)));
     });
-    const finder = new SuspiciousPointFinder();
+    const finder = new SuspiciousPointFinder(0.001);
     finder.addAll(points);
     const summary = finder.finish();
     const unsettled = summary.late.unsettled ?? [];

@@ -89,4 +89,18 @@ describe('selfHeating and unsettledSteps', () => {
     expect(found.map((f) => f.index)).toEqual([0, 1, 2, 3, 4, 5]);
     expect(found[0]!.reason).toMatch(/6 readings at 300\.0 K drift by \+0\.5\d %/);
   });
+
+  it('does not call a sweep logged while the temperature ramps unsettled', () => {
+    // One reading every 0.05 K, grouped ten to a step: within a step rho rises with T as
+    // rho ~ T^1.5 says (0.22 % over 0.45 K at 300 K), which is the ramp, not a dwell too short.
+    const temperaturesK = Array.from({ length: 60 }, (_, i) => 300 + 0.05 * i);
+    const lnRho = temperaturesK.map((t, i) => 1.5 * Math.log(t) + 0.0001 * Math.sin(7 * i));
+    const currentsA = Array(60).fill(Number.NaN) as number[];
+    const steps = Array.from({ length: 6 }, (_, k) => [10 * k, 10 * k + 10] as [number, number]);
+    expect(unsettledSteps({ temperaturesK, lnRho, currentsA }, steps, 0.0002)).toEqual([]);
+    // the same readings drifting 0.3 % one way beyond what their temperatures explain still are
+    const lagging = lnRho.map((y, i) => (i < 10 ? y + 0.0003 * i : y));
+    const found = unsettledSteps({ temperaturesK, lnRho: lagging, currentsA }, steps, 0.0002);
+    expect(found.map((f) => f.index)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
+  });
 });

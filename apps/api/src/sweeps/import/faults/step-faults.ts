@@ -104,8 +104,9 @@ function fmtA(a: number): string {
 /**
  * Unsettled: at one current level, a step of `UNSETTLED_MIN_READINGS` or more readings whose
  * ln rho runs one way (Kendall's tau >= `UNSETTLED_MIN_TAU`) by more than `STEP_FAULT_SIGMAS`
- * times the scatter of one reading over the step (least-squares drift). Every reading of that
- * level in the step is flagged. Kendall's tau: M. G. Kendall, Biometrika 30, 81 (1938).
+ * times the scatter of one reading over the step (least-squares drift), once the change the
+ * readings' own temperatures explain is taken out (the local d ln rho / dT times each reading's
+ * offset from the step's mean temperature). Every reading of that level in the step is flagged. Kendall's tau: M. G. Kendall, Biometrika 30, 81 (1938).
  */
 export function unsettledSteps(
   data: StepSeries,
@@ -113,12 +114,16 @@ export function unsettledSteps(
   sigma: number,
 ): Finding[] {
   const found: Finding[] = [];
-  for (const [s, e] of steps) {
+  steps.forEach(([s, e], k) => {
     const { low, high } = currentLevels(data.currentsA, s, e);
+    // what the readings' own temperatures explain is no drift: on a sweep logged while the
+    // temperature ramps, a step's readings rise with T by alpha dT and are all sound
+    const alpha = medianSlope(data, steps, k);
     for (const group of [low, high]) {
       const n = group.length;
       if (n < UNSETTLED_MIN_READINGS) continue;
-      const y = group.map((i) => data.lnRho[i]!);
+      const tMean = meanAt(data.temperaturesK, group);
+      const y = group.map((i) => data.lnRho[i]! - alpha * (data.temperaturesK[i]! - tMean));
       let concordant = 0;
       for (let a = 0; a < n; a++)
         for (let b = a + 1; b < n; b++) concordant += Math.sign(y[b]! - y[a]!);
@@ -135,10 +140,36 @@ export function unsettledSteps(
       if (Math.abs(tau) < UNSETTLED_MIN_TAU || !(Math.abs(drift) > STEP_FAULT_SIGMAS * sigma)) {
         continue;
       }
-      const t = meanAt(data.temperaturesK, group).toFixed(1);
+      const t = tMean.toFixed(1);
       const reason = `the ${n} readings at ${t} K drift by ${pct(Math.exp(drift) - 1)} one way (a dwell too short to settle)`;
       for (const index of group) found.push({ index, flag: 'unsettled', reason });
     }
-  }
+  });
   return found;
+}
+
+/** Steps each side of step k whose neighbour-to-neighbour slopes give its alpha. */
+const SLOPE_STEPS_EACH_SIDE = 4;
+
+/**
+ * d ln rho / dT at step k as the median of the slopes between neighbouring steps' low-current
+ * means, k-4 ... k+4 within the leg: a median, so one outlying step cannot lend the others a
+ * drift; 0 where no two steps differ in temperature.
+ */
+function medianSlope(data: StepSeries, steps: Array<[number, number]>, k: number): number {
+  const slopes: number[] = [];
+  let previous: [number, number] | null = null;
+  const last = Math.min(steps.length - 1, k + SLOPE_STEPS_EACH_SIDE);
+  for (let j = Math.max(0, k - SLOPE_STEPS_EACH_SIDE); j <= last; j++) {
+    const [s, e] = steps[j]!;
+    const { low } = currentLevels(data.currentsA, s, e);
+    const here: [number, number] = [meanAt(data.temperaturesK, low), meanAt(data.lnRho, low)];
+    if (previous && here[0] !== previous[0])
+      slopes.push((here[1] - previous[1]) / (here[0] - previous[0]));
+    previous = here;
+  }
+  if (!slopes.length) return 0;
+  slopes.sort((a, b) => a - b);
+  const mid = slopes.length >> 1;
+  return slopes.length % 2 ? slopes[mid]! : (slopes[mid - 1]! + slopes[mid]!) / 2;
 }
