@@ -60,7 +60,7 @@ export class SuspiciousPointFinder {
   private worstRatio = 0;
   private sensitiveRatios = 0;
 
-  constructor(private readonly stepToleranceK = PHYSICS_DEFAULTS.fitStepToleranceK) {}
+  constructor(private readonly stepToleranceK: number = PHYSICS_DEFAULTS.fitStepToleranceK) {}
 
   /** Takes the next points, adding their `jump` flags in place; returns them. */
   addAll(points: ConvertedPoint[]): ConvertedPoint[] {
