@@ -111,8 +111,8 @@ function predictedFall(a: number[][], g: number[], delta: number[]): number {
  * Convergence is reported only when an accepted step changes the sum of squares by less than
  * `costTolerance` (relative) or the parameters by less than `stepTolerance`, when a rejected
  * step raises it by less than `costTolerance` while the linearised model predicts no larger
- * fall (J. J. Moré, The Levenberg–Marquardt algorithm: implementation and theory, Lecture
- * Notes in Mathematics 630 (1978), the ftol test), or when the gradient vanishes; hitting the
+ * fall (J. J. Moré, The Levenberg–Marquardt algorithm: implementation and theory, in
+ * Numerical Analysis, Springer LNM 630, 105 (1978), the ftol test), or when the gradient vanishes; hitting the
  * iteration cap, a damping overflow or a model that cannot be evaluated is reported as not
  * converged with the reason. Defaults in `PHYSICS_DEFAULTS` (fitMaxIterations,
  * fitCostTolerance, fitStepTolerance).

@@ -16,10 +16,8 @@ import type { Reading, RowSite } from './import-types';
 import { hallColumns, type HallMeaning, type HallReadingKey } from './hall-cells';
 import { POINT_METHODS } from './methods';
 import { polarityOf, signCurrent } from './polarity-cells';
+import { readSiteCells, type SiteColumns } from './site-cells';
 import { temperatureReader, type TemperatureReader } from './temperature';
-
-/** Longest site label kept (the column's width). */
-const SITE_LABEL_LENGTH = 64;
 
 /** Columns a reading may use, by meaning (null when not mapped). */
 type ColumnsByMeaning = Record<
@@ -52,7 +50,7 @@ export class RowReader {
   /** Whether each column's cell must be filled. */
   private readonly required: Record<keyof ColumnsByMeaning, boolean>;
   private readonly mark: DecimalMark;
-  private readonly site: Record<'x' | 'y' | 'number' | 'label', ResolvedColumn | null>;
+  private readonly site: SiteColumns;
   /** True while the row being read has a problem. */
   private bad = false;
   private readonly currentFromHeader: boolean;
@@ -201,31 +199,13 @@ export class RowReader {
     };
   }
 
-  /**
-   * The row's site: coordinates when the file has site-x and site-y (they win over a site
-   * number), else a whole site number; null for a file without sites. Missing cells are
-   * problems, since a map reading without its place cannot be shown.
-   */
+  /** The row's site (see `readSiteCells`); null for a file without sites or after a problem. */
   private readSite(cells: string[], row: number): RowSite | null {
-    const { x, y, number, label: labelColumn } = this.site;
-    if (!(x && y) && !number) return null;
-    const labelText = labelColumn ? (cells[labelColumn.index] ?? '').trim() : '';
-    const label = labelText ? labelText.slice(0, SITE_LABEL_LENGTH) : null;
-    if (x && y) {
-      const xMm = this.cell(cells, row, x, true);
-      const yMm = this.cell(cells, row, y, true);
-      return xMm === null || yMm === null ? null : { kind: 'xy', xMm, yMm, label };
-    }
-    const n = this.cell(cells, row, number!, true);
-    if (n === null) return null;
-    if (!Number.isInteger(n) || n < 1) {
-      this.problems.push(
-        rowProblem(row, number!.header, `the site number must be a whole number from 1 (${n})`),
-      );
-      this.bad = true;
-      return null;
-    }
-    return { kind: 'number', number: n, label };
+    const site = readSiteCells(cells, this.site, (c) => this.cell(cells, row, c, true));
+    if (site === null || !('problem' in site)) return site;
+    this.problems.push(rowProblem(row, this.site.number!.header, site.problem));
+    this.bad = true;
+    return null;
   }
 
   /** Notes a zero or negative resistance-like value; true when it did. */
