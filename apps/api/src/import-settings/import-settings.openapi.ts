@@ -6,8 +6,6 @@ import { dateTime } from '../openapi/shapes';
 import { columnsSchema } from '../sweeps/sweep.schemas';
 import { listQuery, saveBody } from './import-settings.schemas';
 
-const length = z.number();
-
 /** Saved import settings as the API answers them. */
 export const importSettingsSchema = registry.register(
   'ImportSettings',
@@ -20,21 +18,9 @@ export const importSettingsSchema = registry.register(
       shapeLabel: z.string(),
       method: z.enum(SWEEP_METHODS),
       columns: columnsSchema,
-      geometry: z
-        .object({
-          thicknessCm: length.optional(),
-          diameterCm: length.optional(),
-          spacingCm: length.optional(),
-          barLengthCm: length.optional(),
-          barWidthCm: length.optional(),
-        })
-        .strict(),
-      layout: z
-        .object({
-          delimiter: z.enum([',', ';', '\t']).optional(),
-          decimalMark: z.enum(['.', ',']).optional(),
-        })
-        .strict(),
+      // what was saved passed the save body's checks, so the answer reads back in its shapes
+      geometry: saveBody.shape.geometry,
+      layout: saveBody.shape.layout,
       savedById: z.number().int().nullable(),
       savedByName: z.string().nullable(),
       updatedAt: dateTime,

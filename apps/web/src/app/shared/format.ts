@@ -33,7 +33,8 @@ const SUPERSCRIPT: Record<string, string> = {
   '9': '⁹',
 };
 
-function superscript(n: number): string {
+/** An integer in superscript digits ("-3" as "⁻³"). */
+export function superscript(n: number): string {
   return String(n)
     .split('')
     .map((c) => SUPERSCRIPT[c] ?? c)

@@ -1,3 +1,5 @@
+import { superscript } from '../format';
+
 /** Ticks of a log axis: positions and their labels. */
 export interface LogTicks {
   tickvals: number[];
@@ -6,26 +8,10 @@ export interface LogTicks {
 
 /** Decades above which only powers of ten are labelled (1-2-5 labels would crowd). */
 const MAX_DECADES_FOR_STEPS = 3;
-const SUPERSCRIPT: Record<string, string> = {
-  '-': '⁻',
-  '0': '⁰',
-  '1': '¹',
-  '2': '²',
-  '3': '³',
-  '4': '⁴',
-  '5': '⁵',
-  '6': '⁶',
-  '7': '⁷',
-  '8': '⁸',
-  '9': '⁹',
-};
 
 /** 10^k as "10⁻³" (k an integer). */
 export function powerOfTen(k: number): string {
-  return `10${String(k)
-    .split('')
-    .map((c) => SUPERSCRIPT[c] ?? c)
-    .join('')}`;
+  return `10${superscript(k)}`;
 }
 
 /** m x 10^k as a whole value ("0.5", "20", "2000") or, far from 1, "2×10⁻⁶". */
