@@ -51,3 +51,11 @@ export const fitKindSchema = z
     }),
   })
   .passthrough();
+
+/** The parameters a fit frees, from `names`: at least one, none twice. */
+export function freeParameters<T extends readonly [string, ...string[]]>(names: T) {
+  return z
+    .array(z.enum(names))
+    .min(1, 'must free at least one parameter')
+    .refine((a) => new Set(a).size === a.length, 'must not repeat a parameter');
+}

@@ -7,7 +7,7 @@ import { withPhysicsOnData } from '../../analysis/physics-errors';
 import { badRequest } from '../../errors';
 import { computationOf } from '../fit-computation';
 import type { FitKindEntry } from '../fit-kinds';
-import { boundsInOrder, fitOptionsShape, kelvin } from '../fit-schemas';
+import { boundsInOrder, fitOptionsShape, freeParameters, kelvin } from '../fit-schemas';
 import { hallSeries, otherTypeWarning } from './hall-points';
 import { dopingOf } from './model.kind';
 
@@ -86,10 +86,7 @@ export const carrierDensityKind: FitKindEntry<'carrier-density'> = {
         kind: z.literal('carrier-density'),
         material: z.string().max(16).optional(),
         initial: dopingSchema,
-        free: z
-          .array(z.enum(CARRIER_DENSITY_FREE_PARAMETERS))
-          .min(1, 'must free at least one parameter')
-          .refine((a) => new Set(a).size === a.length, 'must not repeat a parameter'),
+        free: freeParameters(CARRIER_DENSITY_FREE_PARAMETERS),
         minK: kelvin.optional(),
         maxK: kelvin.optional(),
         ...fitOptionsShape,

@@ -14,7 +14,7 @@ import { withPhysicsOnData } from '../../analysis/physics-errors';
 import { badRequest } from '../../errors';
 import { computationOf } from '../fit-computation';
 import type { FitKindEntry } from '../fit-kinds';
-import { boundsInOrder, fitOptionsShape, kelvin } from '../fit-schemas';
+import { boundsInOrder, fitOptionsShape, freeParameters, kelvin } from '../fit-schemas';
 
 /** Parameters a full-model fit may free. */
 export const MODEL_FREE_PARAMETERS = [
@@ -59,10 +59,7 @@ export const modelKind: FitKindEntry<'model'> = {
         initial: dopingSchema.extend({
           mobilityScale: z.number().positive('must be positive').max(100).optional(),
         }),
-        free: z
-          .array(z.enum(MODEL_FREE_PARAMETERS))
-          .min(1, 'must free at least one parameter')
-          .refine((a) => new Set(a).size === a.length, 'must not repeat a parameter'),
+        free: freeParameters(MODEL_FREE_PARAMETERS),
         minK: kelvin.optional(),
         maxK: kelvin.optional(),
         ...fitOptionsShape,
