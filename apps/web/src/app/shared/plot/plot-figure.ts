@@ -12,6 +12,11 @@ export const WEBGL_MIN_POINTS = 2000;
 
 export type AxisName = 'xaxis' | 'yaxis';
 
+/** Whether any trace has more than `WEBGL_MIN_POINTS` points (and may be drawn with WebGL). */
+export function hasLongTrace(data: readonly unknown[]): boolean {
+  return data.some((t) => isRecord(t) && Array.isArray(t['x']) && t['x'].length > WEBGL_MIN_POINTS);
+}
+
 /** Options of `prepareFigure`. */
 export interface FigureOptions {
   dark: boolean;

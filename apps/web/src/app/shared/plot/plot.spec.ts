@@ -147,3 +147,67 @@ describe('Plot', () => {
     expect(fixture.nativeElement.textContent).toContain('Drawing the plot…');
   });
 });
+
+@Component({
+  imports: [Plot],
+  template: `<rt-plot [data]="below()" label="Below the fold" />
+    <rt-plot [data]="shown()" label="On screen" />`,
+})
+class TwoPlots {
+  readonly below = signal<unknown[]>([sweep(30)]);
+  readonly shown = signal<unknown[]>([sweep(20)]);
+}
+
+describe('Plot: what is drawn when', () => {
+  it('draws a figure equal to the one drawn once only', async () => {
+    const { fixture, drawn } = setup();
+    fixture.componentInstance.data.set([sweep(50)]);
+    await settle(fixture);
+    expect(drawn).toHaveLength(1);
+    // Recomputed by the page (new arrays, same values): nothing to redraw.
+    fixture.componentInstance.data.set([sweep(50)]);
+    fixture.componentInstance.layout.set({ yaxis: { type: 'log' } });
+    await settle(fixture);
+    expect(drawn).toHaveLength(1);
+    fixture.componentInstance.data.set([sweep(51)]);
+    await settle(fixture);
+    expect(drawn).toHaveLength(2);
+  });
+
+  it('draws the plot on screen before one below the fold, which waits for idle time', async () => {
+    const order: string[] = [];
+    const plotly = {
+      react: async (element: HTMLElement, data: unknown[], layout: object) => {
+        order.push(element.closest('figure')!.getAttribute('aria-label')!);
+        return { on: () => undefined, layout, data };
+      },
+      purge: () => undefined,
+    };
+    TestBed.configureTestingModule({
+      imports: [TwoPlots],
+      providers: [
+        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
+        { provide: ThemeMode, useValue: { dark: signal(false) } },
+      ],
+    });
+    // The window is 768 px tall: the first plot is laid out far below it.
+    const box = vi
+      .spyOn(HTMLElement.prototype, 'getBoundingClientRect')
+      .mockImplementation(function (this: HTMLElement) {
+        const below = this.closest('figure')?.getAttribute('aria-label') === 'Below the fold';
+        const top = below ? 5000 : 100;
+        return DOMRect.fromRect({ x: 0, y: top, width: 600, height: 400 });
+      });
+    const idle = vi.fn((run: () => void) => setTimeout(run, 20));
+    vi.stubGlobal('requestIdleCallback', idle);
+    try {
+      const fixture = TestBed.createComponent(TwoPlots);
+      await settle(fixture);
+      expect(order).toEqual(['On screen', 'Below the fold']);
+      expect(idle).toHaveBeenCalledTimes(1);
+    } finally {
+      box.mockRestore();
+      vi.unstubAllGlobals();
+    }
+  });
+});

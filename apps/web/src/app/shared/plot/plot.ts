@@ -13,9 +13,10 @@ import {
 import type { PlotlyHTMLElement } from 'plotly.js-dist-min';
 import { ThemeMode } from '../../core/layout/theme-mode';
 import { thinningNote } from './decimate';
+import { afterPaint, onScreen, sameValue, whenIdle } from './draw-timing';
 import { PLOT_BACKGROUND } from './palette';
 import type { AxisName } from './plot-figure';
-import { prepareFigure, zoomedLogTicks } from './plot-figure';
+import { hasLongTrace, prepareFigure, zoomedLogTicks } from './plot-figure';
 import { PNG_SIZE, pngFilename, saveBlob, stampedPng } from './plot-png';
 import { PlotlyLoader } from './plotly-loader';
 import { RovingToolbar } from '../roving-toolbar';
@@ -58,21 +59,13 @@ function hasWebgl(doc: Document): boolean {
   return webglAvailable;
 }
 
-/** Resolves after the browser has painted what is on the page (the numbers before the plot). */
-function afterPaint(): Promise<void> {
-  return new Promise((resolve) => {
-    const frame = globalThis.requestAnimationFrame;
-    if (typeof frame === 'function') frame(() => setTimeout(resolve));
-    else setTimeout(resolve);
-  });
-}
-
 /**
  * A Plotly chart with Rhotrace's own toolbar (save image, reset axes, log or linear y) instead of
  * plotly's mode bar. Plotly loads lazily; traces longer than 5,000 points are thinned for display
  * (a note under the plot says how; fits use every point), big ones drawn with WebGL, palette
  * colours follow the scheme and log axes get whole-value ticks. The page's own content is painted
- * before the plot is drawn.
+ * before the plot is drawn, a plot off screen is drawn in idle time (see draw-timing.ts), and a
+ * figure equal to the one last asked for is not drawn again.
  */
 @Component({
   selector: 'rt-plot',
@@ -106,6 +99,8 @@ export class Plot {
   private listening = false;
   private logRanges: Partial<Record<AxisName, [number, number]>> = {};
   private drawn = 0;
+  /** What the last draw was asked to show: the same again is not redrawn. */
+  private lastAsked: unknown[] | null = null;
 
   constructor() {
     afterRenderEffect(() => {
@@ -116,6 +111,9 @@ export class Plot {
       // Read so a change of scheme redraws with that scheme's colours.
       const dark = this.theme.dark();
       const element = this.host().nativeElement;
+      const asked = [data, layout, selectable, yType, dark];
+      if (this.lastAsked && sameValue(asked, this.lastAsked)) return;
+      this.lastAsked = asked;
       void this.draw(element, data, layout, selectable, yType, dark);
     });
     inject(DestroyRef).onDestroy(() => {
@@ -175,7 +173,8 @@ export class Plot {
     const turn = ++this.drawn;
     const figure = prepareFigure(data, layout, {
       dark,
-      webgl: hasWebgl(element.ownerDocument),
+      // Asked only when a trace is long enough for WebGL: a first WebGL context costs a frame.
+      webgl: hasLongTrace(data) && hasWebgl(element.ownerDocument),
       yType,
     });
     this.note.set(thinningNote(figure.thinned));
@@ -184,6 +183,8 @@ export class Plot {
     this.yIsLog.set(yAxis?.['type'] === 'log');
     const plotly = await this.loader.load();
     await afterPaint();
+    // A plot off screen waits for idle time: the one being read is drawn first.
+    if (turn === this.drawn && !onScreen(element)) await whenIdle();
     // A newer draw (inputs changed meanwhile) supersedes this one.
     if (turn !== this.drawn) return;
     const text = resolvedColour(element, '--mat-sys-on-surface', '#1b1b1b');

@@ -28,12 +28,20 @@ describe('modelCurveStream', () => {
   });
   afterEach(() => vi.useRealTimers());
 
-  it('waits for a pause, and a newer edit cancels the request in flight', () => {
+  it('asks for the starting point at once, then waits for a pause in typing', () => {
     const edits = new Subject<DopingInput | null>();
     const states: CurveState[] = [];
     modelCurveStream(edits, { material: 'Si', fromK: 50, toK: 500, steps: 100 }, (body) =>
       http.post<ModelCurveResponse>('/api/model/curve', body),
     ).subscribe((s) => states.push(s));
+
+    // The starting point (nothing typed yet): asked for with no pause.
+    edits.next(doping(1.4e15));
+    const start = backend.expectOne('/api/model/curve');
+    expect((start.request.body as ModelCurveRequest).doping?.donorDensity).toBe(1.4e15);
+    expect(states.at(-1)).toEqual({ curve: null, problem: null, loading: true });
+    start.flush(curve);
+    expect(states.at(-1)).toEqual({ curve, problem: null, loading: false });
 
     // Typing 1, 1e, 1e1, 1e15 quickly: nothing is asked until the pause.
     for (const n of [1, 10, 1e1, 1e15]) {

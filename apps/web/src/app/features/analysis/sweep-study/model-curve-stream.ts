@@ -4,7 +4,7 @@ import type {
   ModelCurveResponse,
   SweepAnalysisResponse,
 } from '@rhotrace/api-types';
-import { type Observable, catchError, debounceTime, map, of, startWith, switchMap } from 'rxjs';
+import { type Observable, catchError, debounce, map, of, startWith, switchMap, timer } from 'rxjs';
 import { ApiError } from '../../../core/http/api-error';
 
 /** What the curve panel shows: the latest curve, or why there is none, and whether one is coming. */
@@ -18,8 +18,10 @@ export interface CurveState {
 export const CURVE_DEBOUNCE_MS = 150;
 
 /**
- * Turns parameter edits into model-curve requests: waits for a pause in typing, then asks; a
- * newer edit cancels the request in flight (switchMap), so at most one request is ever open.
+ * Turns parameter edits into model-curve requests: the first parameters (the starting point,
+ * nothing typed yet) are asked for at once, so the curve comes with the page's first plot; after
+ * that it waits for a pause in typing, then asks. A newer edit cancels the request in flight
+ * (switchMap), so at most one request is ever open.
  */
 export function modelCurveStream(
   doping$: Observable<(DopingInput & { mobilityScale?: number }) | null>,
@@ -28,8 +30,9 @@ export function modelCurveStream(
   debounceMs = CURVE_DEBOUNCE_MS,
 ): Observable<CurveState> {
   return doping$.pipe(
-    debounceTime(debounceMs),
-    switchMap((doping) => {
+    map((doping, index) => ({ doping, index })),
+    debounce(({ index }) => (index === 0 ? of(0) : timer(debounceMs))),
+    switchMap(({ doping }) => {
       if (doping === null) {
         return of<CurveState>({
           curve: null,
