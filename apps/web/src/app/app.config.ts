@@ -1,5 +1,7 @@
 import {
   type ApplicationConfig,
+  inject,
+  provideAppInitializer,
   provideBrowserGlobalErrorListeners,
   provideZonelessChangeDetection,
 } from '@angular/core';
@@ -13,6 +15,9 @@ import {
 import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
 import { routes } from './app.routes';
 import { apiInterceptor } from './core/http/api-interceptor';
+import { OpeningRequest } from './core/http/opening-request';
+import { Session } from './core/auth/session';
+import { openingAnalysisUrl } from './features/analysis/analysis-urls';
 import { IdlePreloading } from './core/routing/idle-preloading';
 import { provideIsoDateAdapter } from './shared/iso-date';
 
@@ -29,5 +34,11 @@ export const appConfig: ApplicationConfig = {
     provideHttpClient(withInterceptors([apiInterceptor])),
     { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } },
     provideIsoDateAdapter(),
+    // A sweep study opened directly (a link in a new tab, a reload) asks for its sweep while
+    // the app's code loads, not after: the answer is the longest wait on that page.
+    provideAppInitializer(() => {
+      const url = openingAnalysisUrl(globalThis.location?.pathname ?? '');
+      if (url && inject(Session).can('fits:run')) inject(OpeningRequest).start(url);
+    }),
   ],
 };

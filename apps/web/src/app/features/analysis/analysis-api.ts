@@ -12,18 +12,22 @@ import type {
 } from '@rhotrace/api-types';
 import { type Observable, map, shareReplay } from 'rxjs';
 import { quietRequest } from '../../core/http/api-error';
+import { OpeningRequest } from '../../core/http/opening-request';
 import { Downloader } from '../../shared/download';
+import { analysisUrl } from './analysis-urls';
 
 /** Model curves, a sweep's analysis view, its fits and its downloads. */
 @Injectable({ providedIn: 'root' })
 export class AnalysisApi {
   private readonly http = inject(HttpClient);
   private readonly downloader = inject(Downloader);
+  private readonly opening = inject(OpeningRequest);
   private materialsCache: Observable<MaterialsResponse> | null = null;
 
+  /** A sweep's analysis; the one asked for while the app started (see app.config), if it was. */
   analysis(sweepId: number, leg: number | 'all' | null = null): Observable<SweepAnalysisResponse> {
-    const query = leg === null ? '' : `?leg=${leg}`;
-    return this.http.get<SweepAnalysisResponse>(`/api/sweeps/${sweepId}/analysis${query}`);
+    const url = analysisUrl(sweepId, leg);
+    return this.opening.take(url, () => this.http.get<SweepAnalysisResponse>(url));
   }
 
   materials(): Observable<MaterialsResponse> {
