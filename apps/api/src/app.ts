@@ -31,6 +31,12 @@ export const CONTENT_SECURITY_POLICY = {
   upgradeInsecureRequests: null,
 };
 
+/**
+ * The web build's own files are named after a hash of their content (`chunk-5OBG24MO.js`,
+ * `styles-QUAF3PSO.css`, `media/…-COQVXTP6.woff2`), also when sent as their .br/.gz copies.
+ */
+const HASHED_FILE = /-[A-Z0-9]{8}\.(?:js|css|woff2?)(?:\.br|\.gz)?$/;
+
 /** Builds the Express application: API under /api, the built web app everywhere else. */
 export function createApp(deps: AppDeps): Express {
   configureRawStorage(deps.config);
@@ -89,7 +95,16 @@ export function createApp(deps: AppDeps): Express {
         enableBrotli: true,
         orderPreference: ['br', 'gz'],
         index: false,
-        serveStatic: { index: false, maxAge: '1h' },
+        serveStatic: {
+          index: false,
+          maxAge: '1h',
+          // A file named after its content never changes: kept a year and not asked for again
+          // (not even on a reload), so a study page opened days later starts from the cache.
+          setHeaders: (res, path) => {
+            if (HASHED_FILE.test(path))
+              res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+          },
+        },
       }),
     );
     // With `root`, send checks only the file's own path for dotted names: given the absolute

@@ -19,6 +19,9 @@ describe('serving the built web app from the API process', () => {
     writeFileSync(join(dist, 'main-TEST.js'), bundle);
     writeFileSync(join(dist, 'plot-TEST.js'), bundle);
     writeFileSync(join(dist, 'plot-TEST.js.br'), brotli);
+    writeFileSync(join(dist, 'chunk-5OBG24MO.js'), bundle);
+    writeFileSync(join(dist, 'chunk-5OBG24MO.js.br'), brotli);
+    writeFileSync(join(dist, 'favicon.svg'), '<svg xmlns="http://www.w3.org/2000/svg"/>');
     ctx = await createTestContext({ webDist: dist });
   });
   afterAll(async () => {
@@ -54,6 +57,20 @@ describe('serving the built web app from the API process', () => {
     expect(res.headers['content-encoding']).toBe('br');
     expect(res.headers['content-type']).toMatch(/javascript/);
     expect(Number(res.headers['content-length'])).toBe(brotli.length);
+  });
+
+  it('keeps files named after their content a year, and others (and index.html) briefly', async () => {
+    for (const encoding of ['br', 'identity']) {
+      const hashed = await request(ctx.app)
+        .get('/chunk-5OBG24MO.js')
+        .set('Accept-Encoding', encoding);
+      expect(hashed.status).toBe(200);
+      expect(hashed.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+    }
+    const plain = await request(ctx.app).get('/favicon.svg');
+    expect(plain.headers['cache-control']).toBe('public, max-age=3600');
+    const page = await request(ctx.app).get('/sweeps/12');
+    expect(page.headers['cache-control']).not.toMatch(/immutable|max-age=[1-9]/);
   });
 
   it('never compresses sign-in answers, which carry a token', async () => {
