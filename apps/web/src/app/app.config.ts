@@ -20,6 +20,7 @@ import { Session } from './core/auth/session';
 import { openingAnalysisUrl } from './features/analysis/analysis-urls';
 import { IdlePreloading } from './core/routing/idle-preloading';
 import { provideIsoDateAdapter } from './shared/iso-date';
+import { PlotlyLoader } from './shared/plot/plotly-loader';
 
 export const appConfig: ApplicationConfig = {
   providers: [
@@ -34,11 +35,13 @@ export const appConfig: ApplicationConfig = {
     provideHttpClient(withInterceptors([apiInterceptor])),
     { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } },
     provideIsoDateAdapter(),
-    // A sweep study opened directly (a link in a new tab, a reload) asks for its sweep while
-    // the app's code loads, not after: the answer is the longest wait on that page.
+    // A sweep study opened directly (a link in a new tab, a reload) asks for its sweep, and
+    // loads the plot library, while the app's code loads, not after it.
     provideAppInitializer(() => {
       const url = openingAnalysisUrl(globalThis.location?.pathname ?? '');
-      if (url && inject(Session).can('fits:run')) inject(OpeningRequest).start(url);
+      if (!url || !inject(Session).can('fits:run')) return;
+      inject(OpeningRequest).start(url);
+      inject(PlotlyLoader).preload();
     }),
   ],
 };

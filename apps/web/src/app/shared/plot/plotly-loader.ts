@@ -29,13 +29,16 @@ export class PlotlyLoader {
   preloadWhenIdle(): void {
     if (this.preloadScheduled || this.pending) return;
     this.preloadScheduled = true;
-    const run = () => {
-      this.load().catch(() => {
-        this.pending = null;
-      });
-    };
+    const run = () => this.preload();
     const idle = globalThis.requestIdleCallback;
     if (typeof idle === 'function') idle(run, { timeout: IDLE_TIMEOUT_MS });
     else globalThis.setTimeout(run, 1000);
+  }
+
+  /** Loads plotly now, for a page about to plot; a failure is forgotten (the page retries). */
+  preload(): void {
+    this.load().catch(() => {
+      this.pending = null;
+    });
   }
 }

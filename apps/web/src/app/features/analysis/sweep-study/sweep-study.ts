@@ -54,7 +54,7 @@ export class SweepStudy {
 
   constructor() {
     // Fetch and evaluate plotly while the sweep's data are on their way, not after.
-    void inject(PlotlyLoader).load();
+    inject(PlotlyLoader).preload();
     effect(() => this.store.load(Number(this.id())));
   }
 }
