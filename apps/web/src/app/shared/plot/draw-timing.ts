@@ -1,11 +1,12 @@
 /**
  * When a plot draws. A plotly draw is one long task (tens of milliseconds for a few hundred SVG
- * markers), so a page of several plots draws the one on screen first and leaves the others to
- * the browser's idle time, where they do not stand between the reader and the page.
+ * markers), so only the first draw of a plot on screen goes at once; plots off screen, and
+ * redraws (a model curve come in, a unit changed), wait for the browser's idle time, where they
+ * do not stand between the reader's input and the page.
  */
 
-/** How long a plot off screen waits for an idle moment before drawing anyway, ms. */
-export const OFFSCREEN_IDLE_TIMEOUT_MS = 1000;
+/** How long a draw waits for an idle moment before going anyway, ms. */
+export const IDLE_DRAW_TIMEOUT_MS = 1000;
 
 /** Resolves after the browser has painted what is on the page (the numbers before the plot). */
 export function afterPaint(): Promise<void> {
@@ -17,7 +18,7 @@ export function afterPaint(): Promise<void> {
 }
 
 /** Resolves in the browser's next idle moment (or after `timeoutMs` if none comes). */
-export function whenIdle(timeoutMs = OFFSCREEN_IDLE_TIMEOUT_MS): Promise<void> {
+export function whenIdle(timeoutMs = IDLE_DRAW_TIMEOUT_MS): Promise<void> {
   return new Promise((resolve) => {
     const idle = globalThis.requestIdleCallback;
     if (typeof idle === 'function') idle(() => resolve(), { timeout: timeoutMs });

@@ -159,6 +159,25 @@ class TwoPlots {
 }
 
 describe('Plot: what is drawn when', () => {
+  it('redraws in idle time, so input on the page comes first', async () => {
+    const { fixture, drawn } = setup();
+    const idle = vi.fn((run: () => void) => setTimeout(run, 20));
+    vi.stubGlobal('requestIdleCallback', idle);
+    try {
+      fixture.componentInstance.data.set([sweep(40)]);
+      await settle(fixture);
+      // The first draw of a plot on screen does not wait.
+      expect(drawn).toHaveLength(1);
+      expect(idle).not.toHaveBeenCalled();
+      fixture.componentInstance.data.set([sweep(41)]);
+      await settle(fixture);
+      expect(idle).toHaveBeenCalledTimes(1);
+      expect(drawn).toHaveLength(2);
+    } finally {
+      vi.unstubAllGlobals();
+    }
+  });
+
   it('draws a figure equal to the one drawn once only', async () => {
     const { fixture, drawn } = setup();
     fixture.componentInstance.data.set([sweep(50)]);

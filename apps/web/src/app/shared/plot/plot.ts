@@ -64,8 +64,8 @@ function hasWebgl(doc: Document): boolean {
  * plotly's mode bar. Plotly loads lazily; traces longer than 5,000 points are thinned for display
  * (a note under the plot says how; fits use every point), big ones drawn with WebGL, palette
  * colours follow the scheme and log axes get whole-value ticks. The page's own content is painted
- * before the plot is drawn, a plot off screen is drawn in idle time (see draw-timing.ts), and a
- * figure equal to the one last asked for is not drawn again.
+ * before the plot is drawn; a plot off screen, and a redraw, wait for idle time (see
+ * draw-timing.ts); a figure equal to the one last asked for is not drawn again.
  */
 @Component({
   selector: 'rt-plot',
@@ -183,8 +183,9 @@ export class Plot {
     this.yIsLog.set(yAxis?.['type'] === 'log');
     const plotly = await this.loader.load();
     await afterPaint();
-    // A plot off screen waits for idle time: the one being read is drawn first.
-    if (turn === this.drawn && !onScreen(element)) await whenIdle();
+    // The first draw of a plot on screen goes at once; one off screen, and a redraw, wait for
+    // idle time, so the plot being read, and the reader's input, come first.
+    if (turn === this.drawn && (this.ready() || !onScreen(element))) await whenIdle();
     // A newer draw (inputs changed meanwhile) supersedes this one.
     if (turn !== this.drawn) return;
     const text = resolvedColour(element, '--mat-sys-on-surface', '#1b1b1b');
