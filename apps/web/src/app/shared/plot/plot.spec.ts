@@ -178,6 +178,25 @@ describe('Plot: what is drawn when', () => {
     }
   });
 
+  it('drops a redraw still waiting for idle time when the page is left', async () => {
+    const { fixture, drawn } = setup();
+    fixture.componentInstance.data.set([sweep(40)]);
+    await settle(fixture);
+    const waiting: Array<() => void> = [];
+    vi.stubGlobal('requestIdleCallback', (run: () => void) => waiting.push(run));
+    try {
+      fixture.componentInstance.data.set([sweep(41)]);
+      await settle(fixture);
+      expect(waiting).toHaveLength(1);
+      fixture.destroy();
+      waiting[0]!();
+      await new Promise((r) => setTimeout(r, 20));
+      expect(drawn).toHaveLength(1);
+    } finally {
+      vi.unstubAllGlobals();
+    }
+  });
+
   it('draws a figure equal to the one drawn once only', async () => {
     const { fixture, drawn } = setup();
     fixture.componentInstance.data.set([sweep(50)]);

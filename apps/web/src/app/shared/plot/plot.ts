@@ -99,6 +99,8 @@ export class Plot {
   private listening = false;
   private logRanges: Partial<Record<AxisName, [number, number]>> = {};
   private drawn = 0;
+  /** Set when the page is left: a draw still waiting (for plotly, a paint, idle time) is dropped. */
+  private destroyed = false;
   /** What the last draw was asked to show: the same again is not redrawn. */
   private lastAsked: unknown[] | null = null;
 
@@ -117,6 +119,7 @@ export class Plot {
       void this.draw(element, data, layout, selectable, yType, dark);
     });
     inject(DestroyRef).onDestroy(() => {
+      this.destroyed = true;
       // Only a plot that asked for plotly has anything to free.
       if (this.drawn > 0) void this.loader.load().then((p) => p.purge(this.host().nativeElement));
     });
@@ -186,8 +189,8 @@ export class Plot {
     // The first draw of a plot on screen goes at once; one off screen, and a redraw, wait for
     // idle time, so the plot being read, and the reader's input, come first.
     if (turn === this.drawn && (this.ready() || !onScreen(element))) await whenIdle();
-    // A newer draw (inputs changed meanwhile) supersedes this one.
-    if (turn !== this.drawn) return;
+    // A newer draw (inputs changed meanwhile) supersedes this one; a plot gone draws nothing.
+    if (turn !== this.drawn || this.destroyed) return;
     const text = resolvedColour(element, '--mat-sys-on-surface', '#1b1b1b');
     const grid = resolvedColour(element, '--mat-sys-outline-variant', '#cccccc');
     const axis = { gridcolor: grid, zerolinecolor: grid, linecolor: grid, automargin: true };
