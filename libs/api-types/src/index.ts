@@ -68,6 +68,8 @@ export type {
 export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
 export {
   LENGTH_UNIT_OF,
+  GEOMETRY_LABELS,
+  GEOMETRY_SOURCE_WORDS,
   cmToLength,
   lengthToCm,
   ALSO_SHOWN_IN,
