@@ -74,7 +74,7 @@ export interface WaferEditQuestion {
         </mat-form-field>
         <p class="rt-muted">
           A new thickness applies to sweeps stored from now on; sweeps already stored keep the
-          geometry they were converted with.
+          geometry they were converted with, as each sweep's study states.
         </p>
         <mat-form-field class="wide">
           <mat-label>Notes</mat-label>
