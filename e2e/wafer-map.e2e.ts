@@ -28,7 +28,7 @@ interface MapSite {
 }
 interface SweepMap {
   temperaturesK: number[];
-  maps: Array<{ temperatureK: number; sites: MapSite[] }>;
+  maps: Array<{ temperatureK: number; sites: MapSite[]; statistics: object | null }>;
 }
 
 /** The demo's map sweep and its wafer. */
