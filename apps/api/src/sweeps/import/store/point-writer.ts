@@ -12,6 +12,8 @@ const INSERT_POINTS =
   'site_x_mm, site_y_mm, site_label, edge_factor, leg) ' +
   'VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)';
 
+const UPDATE_FLAGS = 'UPDATE sweep_points SET flags = ? WHERE sweep_id = ? AND sequence = ?';
+
 /** The driver connection Sequelize holds for a transaction. */
 interface BatchConnection {
   batch(sql: string, values: unknown[][]): Promise<unknown>;
@@ -109,10 +111,25 @@ export class PointWriter {
           p.leg ?? 1,
         ]);
       }
-      this.send(rows);
-      await new Promise((resolve) => setImmediate(resolve));
-      while (this.inFlight.length > POINT_BATCHES_IN_FLIGHT) await this.inFlight.shift();
-      await this.throwIfFailed();
+      this.send(INSERT_POINTS, rows, `points ${this.written - rows.length + 1} to ${this.written}`);
+      await this.yieldAndWait();
+    }
+  }
+
+  /**
+   * Rewrites the flags of points already written, each given by its position (0-based, in
+   * written order), to the point's flags now (late flags added after it was sent). Each row
+   * must report itself changed: a late flag always lengthens the list.
+   */
+  async rewriteFlags(points: ConvertedPoint[], positions: number[]): Promise<void> {
+    await this.throwIfFailed();
+    for (let start = 0; start < positions.length; start += POINT_CHUNK) {
+      const rows = positions.slice(start, start + POINT_CHUNK).map((i) => {
+        if (i >= this.written) throw new Error(`point ${i + 1} was not written`);
+        return [points[i]!.flags.join(','), this.sweepId, i + 1];
+      });
+      this.send(UPDATE_FLAGS, rows, `the late flags of ${rows.length} point(s)`);
+      await this.yieldAndWait();
     }
   }
 
@@ -128,13 +145,19 @@ export class PointWriter {
     while (this.inFlight.length) await this.inFlight.shift();
   }
 
-  private send(rows: unknown[][]): void {
-    const first = rows[0]![1] as number;
+  /** Lets the socket send the batch just queued; waits while too many are outstanding. */
+  private async yieldAndWait(): Promise<void> {
+    await new Promise((resolve) => setImmediate(resolve));
+    while (this.inFlight.length > POINT_BATCHES_IN_FLIGHT) await this.inFlight.shift();
+    await this.throwIfFailed();
+  }
+
+  private send(sql: string, rows: unknown[][], what: string): void {
     this.inFlight.push(
-      this.connection.batch(INSERT_POINTS, rows).then(
+      this.connection.batch(sql, rows).then(
         (result) => {
           try {
-            requireAffected(result, rows.length, `points ${first} to ${first + rows.length - 1}`);
+            requireAffected(result, rows.length, what);
           } catch (error) {
             this.failure ??= { error };
           }
