@@ -108,4 +108,45 @@ describe('the point writer', () => {
     await expect(writer.finish()).rejects.toBe(fatal);
     expect(destroyed).toEqual([1]);
   });
+
+  it('closes the connection only once the batches sent after a fatal one have their answers', async () => {
+    // mariadb 3.0.2's destroy() with a command still awaiting its answer throws inside the
+    // driver and leaves the socket open
+    const fatal = Object.assign(new Error('WSREP has not yet prepared node'), { fatal: true });
+    const answers: Array<() => void> = [];
+    const { batches, destroyed, transaction } = fakeConnection(
+      (rows, call) =>
+        new Promise((resolve, reject) =>
+          answers.push(() => (call === 1 ? reject(fatal) : resolve({ affectedRows: rows.length }))),
+        ),
+    );
+    const writer = new PointWriter(1, () => '[]', transaction);
+    const written = writer.write(Array.from({ length: 2 * POINT_CHUNK }, (_, i) => point(i)));
+    const failed = written.catch((error: unknown) => ({ error, destroyed: [...destroyed] }));
+    const turn = () => new Promise((resolve) => setImmediate(resolve));
+    while (batches.length < 2) await turn();
+    answers[0]!();
+    for (let i = 0; i < 5; i++) await turn();
+    expect(destroyed).toEqual([]); // batch 2 still awaits its answer
+    answers[1]!();
+    expect(await failed).toEqual({ error: fatal, destroyed: [2] });
+    await writer.settle();
+    expect(destroyed).toEqual([2]);
+  });
+
+  it('rewrites the flags of points already written, by sequence', async () => {
+    const { batches, transaction } = fakeConnection(inserted);
+    const writer = new PointWriter(7, () => '[]', transaction);
+    const points = Array.from({ length: 4 }, (_, i) => point(i));
+    await writer.write(points);
+    points[1]!.flags.push('outlier');
+    points[3]!.flags.push('jump', 'unsettled');
+    await writer.rewriteFlags(points, [1, 3]);
+    await writer.finish();
+    expect(batches[1]).toEqual([
+      ['outlier', 7, 2],
+      ['jump,unsettled', 7, 4],
+    ]);
+    await expect(writer.rewriteFlags(points, [4])).rejects.toThrow(/point 5 was not written/);
+  });
 });

@@ -60,6 +60,8 @@ export class PointWriter {
   private readonly connection: BatchConnection;
   private readonly inFlight: Array<Promise<void>> = [];
   private failure: { error: unknown } | null = null;
+  /** Set by a batch that failed fatally: the connection must be closed once all have settled. */
+  private fatal: 'pending' | 'closed' | null = null;
   private written = 0;
 
   constructor(
@@ -140,9 +142,16 @@ export class PointWriter {
     return this.written;
   }
 
-  /** Waits for every batch sent, ignoring failures (before a rollback). */
+  /**
+   * Waits for every batch sent, ignoring failures (before a rollback), then closes the
+   * connection if one failed fatally.
+   */
   async settle(): Promise<void> {
     while (this.inFlight.length) await this.inFlight.shift();
+    if (this.fatal === 'pending') {
+      this.fatal = 'closed';
+      this.connection.destroy();
+    }
   }
 
   /** Lets the socket send the batch just queued; waits while too many are outstanding. */
@@ -167,8 +176,11 @@ export class PointWriter {
           // A fatal error (SQLSTATE 08..., e.g. Galera's 1047) ends mariadb 3.0.2's bulk command
           // while answers to its other packets are still due; they would be taken by the next
           // statements (a ROLLBACK "succeeding" on a stray OK) and the connection would go back
-          // to the pool out of step. Closing it makes the server roll the transaction back.
-          if ((error as { fatal?: unknown } | null)?.fatal === true) this.connection.destroy();
+          // to the pool out of step. Closing it makes the server roll the transaction back. It is
+          // closed once the batches sent after it have settled (`settle`, before any other
+          // statement): 3.0.2's destroy() with a command still awaiting its answer throws inside
+          // the driver (a TypeError, unhandled) and leaves the socket open.
+          if ((error as { fatal?: unknown } | null)?.fatal === true) this.fatal ??= 'pending';
         },
       ),
     );
