@@ -19,33 +19,50 @@ const point = (row: number): ConvertedPoint => ({
 /** A connection that records each batch and answers as `answer` says. */
 function fakeConnection(answer: (rows: unknown[][], call: number) => Promise<unknown>) {
   const batches: unknown[][][] = [];
-  /** The batch count at each `destroy`. */
-  const destroyed: number[] = [];
+  const statements: string[] = [];
+  /** The batch count at each `end`. */
+  const ended: number[] = [];
   const transaction = {
     connection: {
-      batch: (_sql: string, rows: unknown[][]) => {
+      batch: (sql: string, rows: unknown[][]) => {
         batches.push(rows);
+        statements.push(sql);
         return answer(rows, batches.length);
       },
-      destroy: () => {
-        destroyed.push(batches.length);
+      end: () => {
+        ended.push(batches.length);
+        return Promise.resolve();
       },
     },
   } as unknown as Transaction;
-  return { batches, destroyed, transaction };
+  return { batches, statements, ended, transaction };
 }
 
 const inserted = (rows: unknown[][]) => Promise.resolve({ affectedRows: rows.length });
 
 describe('the point writer', () => {
   it('numbers the points on across writes and cuts batches at POINT_CHUNK rows', async () => {
-    const { batches, transaction } = fakeConnection(inserted);
+    const { batches, statements, transaction } = fakeConnection(inserted);
     const writer = new PointWriter(7, () => '[]', transaction);
     await writer.write(Array.from({ length: POINT_CHUNK + 5 }, (_, i) => point(i)));
     await writer.write([point(99_999)]);
     expect(await writer.finish()).toBe(POINT_CHUNK + 6);
     expect(batches.map((b) => b.length)).toEqual([POINT_CHUNK, 5, 1]);
-    expect(batches[2]![0]!.slice(0, 3)).toEqual([7, POINT_CHUNK + 6, 99_999]);
+    expect(statements[2]).toMatch(/\(sweep_id, sequence, source_row, .*\) VALUES \(7, \?, \?,/);
+    expect(batches[2]![0]!.slice(0, 2)).toEqual([POINT_CHUNK + 6, 99_999]);
+  });
+
+  it('names the site and quantity columns only for a batch that fills them', async () => {
+    const { batches, statements, transaction } = fakeConnection(inserted);
+    const writer = new PointWriter(7, () => '[]', transaction);
+    await writer.write([point(1)]);
+    const placed = { ...point(2), site: { xMm: 1, yMm: -2, label: 'A1' }, edgeFactor: 0.9 };
+    await writer.write([placed]);
+    await writer.finish();
+    expect(statements[0]).not.toMatch(/site_x_mm|quantities/);
+    expect(statements[1]).toMatch(/leg, site_x_mm, site_y_mm, site_label, edge_factor\) VALUES/);
+    expect(statements[1]).not.toMatch(/quantities/);
+    expect(batches[1]![0]!.slice(-5)).toEqual([1, 1, -2, 'A1', 0.9]);
   });
 
   it('keeps each batch under the driver packet limit, however wide the raw rows', async () => {
@@ -95,43 +112,43 @@ describe('the point writer', () => {
     await expect(writer.finish()).rejects.toBe(refused);
   });
 
-  it('closes the connection after a fatal error, which a later statement must not inherit', async () => {
+  it('ends the connection at a fatal error, which a later statement must not inherit', async () => {
     const fatal = Object.assign(new Error('WSREP has not yet prepared node'), {
       errno: 1047,
       fatal: true,
     });
-    const { destroyed, transaction } = fakeConnection((rows, call) =>
+    const { ended, transaction } = fakeConnection((rows, call) =>
       call === 1 ? Promise.reject(fatal) : inserted(rows),
     );
     const writer = new PointWriter(1, () => '[]', transaction);
     await writer.write([point(1)]).catch(() => undefined);
     await expect(writer.finish()).rejects.toBe(fatal);
-    expect(destroyed).toEqual([1]);
+    expect(ended).toEqual([1]);
   });
 
-  it('closes the connection only once the batches sent after a fatal one have their answers', async () => {
-    // mariadb 3.0.2's destroy() with a command still awaiting its answer throws inside the
-    // driver and leaves the socket open
+  it('ends the connection at a fatal error while a later batch awaits its answer', async () => {
+    // ended, not destroyed: mariadb 3.0.2's destroy() with a command still awaiting its answer
+    // throws inside the driver; the QUIT of end() goes out after the batches already queued
     const fatal = Object.assign(new Error('WSREP has not yet prepared node'), { fatal: true });
     const answers: Array<() => void> = [];
-    const { batches, destroyed, transaction } = fakeConnection(
+    const { batches, ended, transaction } = fakeConnection(
       (rows, call) =>
         new Promise((resolve, reject) =>
           answers.push(() => (call === 1 ? reject(fatal) : resolve({ affectedRows: rows.length }))),
         ),
     );
     const writer = new PointWriter(1, () => '[]', transaction);
-    const written = writer.write(Array.from({ length: 2 * POINT_CHUNK }, (_, i) => point(i)));
-    const failed = written.catch((error: unknown) => ({ error, destroyed: [...destroyed] }));
+    const failed = writer
+      .write(Array.from({ length: 2 * POINT_CHUNK }, (_, i) => point(i)))
+      .catch((error: unknown) => error);
     const turn = () => new Promise((resolve) => setImmediate(resolve));
     while (batches.length < 2) await turn();
     answers[0]!();
     for (let i = 0; i < 5; i++) await turn();
-    expect(destroyed).toEqual([]); // batch 2 still awaits its answer
+    expect(ended).toEqual([2]);
     answers[1]!();
-    expect(await failed).toEqual({ error: fatal, destroyed: [2] });
-    await writer.settle();
-    expect(destroyed).toEqual([2]);
+    expect(await failed).toBe(fatal);
+    expect(ended).toEqual([2]);
   });
 
   it('rewrites the flags of points already written, by sequence', async () => {
