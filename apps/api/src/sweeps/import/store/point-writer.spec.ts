@@ -77,31 +77,41 @@ describe('the point writer', () => {
     expect(batches.flat()).toHaveLength(9);
   });
 
-  it('fails when a batch reports fewer rows inserted than it sent, after every batch settled', async () => {
-    // each batch answers when the test says so: no timers, the order is the test's
+  it('hands each batch to the driver once the one before has its answer', async () => {
+    // mariadb 3.0.2 may run a batch handed over later before an earlier one (its prepare cache)
     const answers: Array<(affectedRows: number) => void> = [];
     const { batches, transaction } = fakeConnection(
       () => new Promise((resolve) => answers.push((affectedRows) => resolve({ affectedRows }))),
     );
     const writer = new PointWriter(1, () => '[]', transaction);
-    let outcome: unknown = 'pending';
-    const written = writer.write(Array.from({ length: 3 * POINT_CHUNK }, (_, i) => point(i))).then(
-      () => 'resolved',
-      (error: unknown) => error,
-    );
-    void written.then((o) => (outcome = o));
+    const written = writer.write(Array.from({ length: 2 * POINT_CHUNK }, (_, i) => point(i)));
     const turn = () => new Promise((resolve) => setImmediate(resolve));
-    while (batches.length < 3) await turn();
-    answers[0]!(POINT_CHUNK - 1);
     for (let i = 0; i < 5; i++) await turn();
-    expect(outcome).toBe('pending'); // batches 2 and 3 are still on the connection
+    expect(batches).toHaveLength(1);
+    answers[0]!(POINT_CHUNK);
+    for (let i = 0; i < 5; i++) await turn();
+    expect(batches).toHaveLength(2);
     answers[1]!(POINT_CHUNK);
-    for (let i = 0; i < 5; i++) await turn();
-    expect(outcome).toBe('pending');
-    answers[2]!(POINT_CHUNK);
+    await written;
+    expect(await writer.finish()).toBe(2 * POINT_CHUNK);
+  });
+
+  it('fails when a batch reports fewer rows inserted than it sent, and sends nothing after it', async () => {
+    const answers: Array<(affectedRows: number) => void> = [];
+    const { batches, transaction } = fakeConnection(
+      () => new Promise((resolve) => answers.push((affectedRows) => resolve({ affectedRows }))),
+    );
+    const writer = new PointWriter(1, () => '[]', transaction);
+    const written = writer
+      .write(Array.from({ length: 3 * POINT_CHUNK }, (_, i) => point(i)))
+      .catch((error: unknown) => error);
+    const turn = () => new Promise((resolve) => setImmediate(resolve));
+    while (batches.length < 1) await turn();
+    answers[0]!(POINT_CHUNK - 1);
     const error = await written;
     expect(error).toBeInstanceOf(TransactionLostError);
     expect((error as Error).message).toMatch(/points 1 to 10000: 9999 of 10000 row\(s\)/);
+    expect(batches).toHaveLength(1);
   });
 
   it('passes a driver error on at the next write or finish', async () => {
@@ -124,31 +134,6 @@ describe('the point writer', () => {
     await writer.write([point(1)]).catch(() => undefined);
     await expect(writer.finish()).rejects.toBe(fatal);
     expect(ended).toEqual([1]);
-  });
-
-  it('ends the connection at a fatal error while a later batch awaits its answer', async () => {
-    // ended, not destroyed: mariadb 3.0.2's destroy() with a command still awaiting its answer
-    // throws inside the driver; the QUIT of end() goes out after the batches already queued
-    const fatal = Object.assign(new Error('WSREP has not yet prepared node'), { fatal: true });
-    const answers: Array<() => void> = [];
-    const { batches, ended, transaction } = fakeConnection(
-      (rows, call) =>
-        new Promise((resolve, reject) =>
-          answers.push(() => (call === 1 ? reject(fatal) : resolve({ affectedRows: rows.length }))),
-        ),
-    );
-    const writer = new PointWriter(1, () => '[]', transaction);
-    const failed = writer
-      .write(Array.from({ length: 2 * POINT_CHUNK }, (_, i) => point(i)))
-      .catch((error: unknown) => error);
-    const turn = () => new Promise((resolve) => setImmediate(resolve));
-    while (batches.length < 2) await turn();
-    answers[0]!();
-    for (let i = 0; i < 5; i++) await turn();
-    expect(ended).toEqual([2]);
-    answers[1]!();
-    expect(await failed).toBe(fatal);
-    expect(ended).toEqual([2]);
   });
 
   it('rewrites the flags of points already written, by sequence', async () => {

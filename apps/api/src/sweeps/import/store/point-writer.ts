@@ -88,6 +88,8 @@ export class PointWriter {
   private readonly connection: BatchConnection;
   private readonly inFlight: Array<Promise<void>> = [];
   private failure: { error: unknown } | null = null;
+  /** The last batch queued (see `send`). */
+  private last: Promise<void> = Promise.resolve();
   private written = 0;
 
   constructor(
@@ -182,30 +184,41 @@ export class PointWriter {
     await this.throwIfFailed();
   }
 
+  /**
+   * Queues a batch behind the one before: it is handed to the driver once that one has its
+   * answer, and not at all after a failure. mariadb 3.0.2's batch() prepares the statement and
+   * queues the bulk execution only when the prepare answers, unless it takes the statement from
+   * its cache, which it does at once whenever nothing waits to be sent: a batch handed over
+   * later could then run before one handed over earlier (seen under load: point ids out of
+   * sequence order, a late-flag update finding no row yet).
+   */
   private send(sql: string, rows: unknown[][], what: string): void {
-    this.inFlight.push(
-      this.connection.batch(sql, rows).then(
-        (result) => {
-          try {
-            requireAffected(result, rows.length, what);
-          } catch (error) {
-            this.failure ??= { error };
-          }
-        },
-        (error: unknown) => {
+    this.last = this.last.then(() => (this.failure ? undefined : this.execute(sql, rows, what)));
+    this.inFlight.push(this.last);
+  }
+
+  private execute(sql: string, rows: unknown[][], what: string): Promise<void> {
+    return this.connection.batch(sql, rows).then(
+      (result) => {
+        try {
+          requireAffected(result, rows.length, what);
+        } catch (error) {
           this.failure ??= { error };
-          // A fatal error (SQLSTATE 08..., e.g. Galera's 1047) ends mariadb 3.0.2's bulk command
-          // while answers to its other packets are still due; they would be taken by the next
-          // statements (a ROLLBACK "succeeding" on a stray OK) and the connection would go back
-          // to the pool out of step. Ending it refuses every later statement at once, and its
-          // QUIT, sent after the batches already queued, makes the server roll the transaction
-          // back. Not destroy(): in 3.0.2, with a batch still awaiting its answer, it throws
-          // inside the driver (an unhandled TypeError) and leaves the socket open.
-          if ((error as { fatal?: unknown } | null)?.fatal === true) {
-            this.connection.end().catch(() => undefined);
-          }
-        },
-      ),
+        }
+      },
+      (error: unknown) => {
+        this.failure ??= { error };
+        // A fatal error (SQLSTATE 08..., e.g. Galera's 1047) ends mariadb 3.0.2's bulk command
+        // while answers to its other packets are still due; they would be taken by the next
+        // statements (a ROLLBACK "succeeding" on a stray OK) and the connection would go back
+        // to the pool out of step. Ending it refuses every later statement at once, and its
+        // QUIT, sent after the batches already queued, makes the server roll the transaction
+        // back. Not destroy(): in 3.0.2, with a batch still awaiting its answer, it throws
+        // inside the driver (an unhandled TypeError) and leaves the socket open.
+        if ((error as { fatal?: unknown } | null)?.fatal === true) {
+          this.connection.end().catch(() => undefined);
+        }
+      },
     );
   }
 
