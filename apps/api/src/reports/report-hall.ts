@@ -108,6 +108,28 @@ function mobilityModel(steps: HallAnalysis['steps'], fit: FitDto | undefined): P
     .map((s) => [s.temperatureK, mu * (s.temperatureK / 300) ** a]);
 }
 
+/**
+ * The Hall section's opening sentence: carrier type, the assumed Hall factor and the values at
+ * 300 K, each with its standard uncertainty where the readings give one.
+ */
+export function hallSummaryLine(hall: HallAnalysis): string {
+  const type =
+    hall.carrierType === 'mixed' ? 'mixed (the sign changes)' : `${hall.carrierType}-type`;
+  const withU = (value: number | null, u: number | null | undefined) =>
+    `${sig(value, 3)}${u == null ? '' : ` ± ${sig(u, 2)}`}`;
+  const stated =
+    hall.carrierDensityAt300KUncertaintyCm3 == null
+      ? ' (one reading a step: no scatter to give an uncertainty)'
+      : ' (± standard uncertainty, k = 1, from the readings’ scatter; the Hall factor is assumed, not in it)';
+  return (
+    `Carrier type ${type}; Hall scattering factor ${hall.hallFactor.toPrecision(4)}. At 300 K: ` +
+    `carrier density ${withU(hall.carrierDensityAt300KCm3, hall.carrierDensityAt300KUncertaintyCm3)} ` +
+    `per cm³, Hall mobility ` +
+    `${withU(hall.hallMobilityAt300KCm2PerVs, hall.hallMobilityAt300KUncertaintyCm2PerVs)} ` +
+    `cm²/(V·s)${stated}. Dots: step means; lines: the latest saved fits.`
+  );
+}
+
 /** Draws the Hall section on a new page. */
 export function drawHallSection(
   doc: PDFKit.PDFDocument,
@@ -118,17 +140,7 @@ export function drawHallSection(
   doc.addPage();
   doc.font('plex-bold').fontSize(11).fillColor(INK).text('Hall effect', 50);
   doc.font('plex').fontSize(9).fillColor(INK);
-  const type =
-    hall.carrierType === 'mixed' ? 'mixed (the sign changes)' : `${hall.carrierType}-type`;
-  doc.text(
-    `Carrier type ${type}; Hall scattering factor ${hall.hallFactor.toPrecision(4)}. At 300 K: ` +
-      `carrier density ${sig(hall.carrierDensityAt300KCm3, 3)} per cm³, Hall mobility ` +
-      `${sig(hall.hallMobilityAt300KCm2PerVs, 3)} cm²/(V·s). Dots: step means; lines: the latest ` +
-      'saved fits.',
-    50,
-    undefined,
-    { width: 495 },
-  );
+  doc.text(hallSummaryLine(hall), 50, undefined, { width: 495 });
   const density = latest(fits, 'carrier-density');
   const mobility = latest(fits, 'hall-mobility');
   const top = doc.y + 16;

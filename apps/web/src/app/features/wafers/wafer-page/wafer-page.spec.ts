@@ -81,28 +81,37 @@ function answer(req: TestRequest): void {
   }
 }
 
+/** Renders wafer 7's page, answering each request by its URL (the dopant answer may be swapped). */
+async function renderWafer7(dopantAnswer: unknown = dopant) {
+  TestBed.configureTestingModule({
+    imports: [WaferPage],
+    providers: [
+      provideRouter([]),
+      provideHttpClient(),
+      provideHttpClientTesting(),
+      { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
+    ],
+  });
+  const fixture = TestBed.createComponent(WaferPage);
+  fixture.componentRef.setInput('id', '7');
+  const backend = TestBed.inject(HttpTestingController);
+  // Requests come in waves (the lot after the wafer, the dopant after the sweeps).
+  for (let wave = 0; wave < 6; wave += 1) {
+    fixture.detectChanges();
+    await new Promise((resolve) => setTimeout(resolve));
+    for (const req of backend.match(() => true)) {
+      if (req.request.url === '/api/wafers/7/dopant') req.flush(dopantAnswer as object);
+      else answer(req);
+    }
+  }
+  await fixture.whenStable();
+  return fixture;
+}
+
 describe('WaferPage', () => {
   it('shows the 23 °C value ± U, its verdict and the folded budget', async () => {
-    TestBed.configureTestingModule({
-      imports: [WaferPage],
-      providers: [
-        provideRouter([]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
-      ],
-    });
-    const fixture = TestBed.createComponent(WaferPage);
-    fixture.componentRef.setInput('id', '7');
+    const fixture = await renderWafer7();
     const loader = TestbedHarnessEnvironment.loader(fixture);
-    const backend = TestBed.inject(HttpTestingController);
-    // Requests come in waves (the lot after the wafer, the dopant after the sweeps).
-    for (let wave = 0; wave < 6; wave += 1) {
-      fixture.detectChanges();
-      await new Promise((resolve) => setTimeout(resolve));
-      for (const req of backend.match(() => true)) answer(req);
-    }
-    await fixture.whenStable();
     const text = fixture.nativeElement.textContent as string;
     expect(text).toContain('9.87');
     expect(text).toContain('± 0.54');
@@ -116,6 +125,14 @@ describe('WaferPage', () => {
       MatTableHarness.with({ selector: '[aria-label="Uncertainty budget"]' }),
     );
     expect((await budget.getCellTextByColumnName())['source']?.text).toEqual(['Thickness']);
+    expect(text).toMatch(/Dopant density\s*1\.36/);
+  });
+
+  it('states no dopant density where there is none (a metal film)', async () => {
+    const fixture = await renderWafer7({ ...dopant, dopant: null, dopantDensityCm3: null });
+    const text = fixture.nativeElement.textContent as string;
+    expect(text).toContain('9.87');
+    expect(text).not.toContain('Dopant density');
   });
 
   it('shows one "not available" page for a wafer hidden from the user, and asks for nothing else', async () => {
