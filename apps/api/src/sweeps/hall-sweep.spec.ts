@@ -17,6 +17,7 @@ import {
 import { documentProblems } from '../openapi/testing/document-validator';
 import { renderReportPdf } from '../reports/report-pdf';
 import { hallSummaryLine } from '../reports/report-hall';
+import { waferLines } from '../reports/lot-report-pdf';
 import { reportData } from '../reports/report.service';
 import { Wafer } from '../wafers/wafer.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
@@ -335,6 +336,10 @@ describe('Hall fits', () => {
       String(h.hallMobilityAt300KUncertaintyCm2PerVs),
     );
     expect(cell('hall_factor')).toBe('1');
+    // The lot PDF's wafer line carries the same values, uncertainties and assumed factor.
+    const [line] = waferLines(summary).filter((l) => l.includes(`sweep ${sweepId},`));
+    expect(line).toMatch(/Hall at 300 K \(sweep \d+, n-type, r_H 1\.00\): carrier density \S+/);
+    expect(line).toMatch(/Hall mobility \S+ ± \S+ cm²\/\(V·s\), ± is the standard uncertainty/);
     const pointsCsv = (await get(`/api/sweeps/${sweepId}/points.csv`)).text.split('\r\n');
     expect(pointsCsv[0]).toContain(
       'flags,hall_coefficient_cm3_per_c,carrier_density_cm3,sheet_carrier_density_cm2,' +
