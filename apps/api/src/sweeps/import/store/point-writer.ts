@@ -49,11 +49,11 @@ interface BatchConnection {
 }
 
 /**
- * Rows per batch call. The calls are pipelined on the connection, and the writer yields to the
- * event loop after each one, so the socket sends a chunk while the next is built and the
- * server inserts one while the next arrives (without the yield every chunk was built first
- * and sent after: 25 % slower for 100,000 rows). Only the rows of chunks not yet written are
- * held twice in memory.
+ * Rows per batch call. Each call goes to the driver once the one before has answered (see
+ * `send`), and the writer yields to the event loop after queueing one, so the server inserts a
+ * chunk while the next slice of the file is converted and built (without the yield every chunk
+ * was built first and sent after: 25 % slower for 100,000 rows). Only the rows of chunks not
+ * yet written are held twice in memory.
  */
 export const POINT_CHUNK = 10_000;
 
@@ -77,9 +77,10 @@ export const POINT_BATCHES_IN_FLIGHT = 2;
 
 /**
  * Writes a sweep's points as they are converted, slice by slice, numbering them on from the
- * points before. Each slice goes out as batch inserts pipelined on the transaction's
- * connection; the writer yields to the event loop after each so the socket sends it while the
- * next slice is converted, and it waits once `POINT_BATCHES_IN_FLIGHT` are outstanding, so
+ * points before. Each slice goes out as batch inserts queued one behind the other on the
+ * transaction's connection; the writer yields to the event loop after each so the server
+ * inserts while the next slice is converted, and it waits once `POINT_BATCHES_IN_FLIGHT` are
+ * outstanding, so
  * the conversion never runs far ahead of the database. Each batch must report every row it
  * sent as inserted. A failed batch fails the next `write` or `finish`, but only after every
  * batch sent has settled, so a rollback never races a write.
