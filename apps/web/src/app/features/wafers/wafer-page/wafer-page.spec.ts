@@ -81,8 +81,11 @@ function answer(req: TestRequest): void {
   }
 }
 
-/** Renders wafer 7's page, answering each request by its URL (the dopant answer may be swapped). */
-async function renderWafer7(dopantAnswer: unknown = dopant) {
+/**
+ * Renders a wafer's page, handing each request (in waves: the lot after the wafer, the dopant
+ * after the sweeps) to `respond`.
+ */
+async function renderWafer(id: string, respond: (req: TestRequest) => void) {
   TestBed.configureTestingModule({
     imports: [WaferPage],
     providers: [
@@ -93,20 +96,22 @@ async function renderWafer7(dopantAnswer: unknown = dopant) {
     ],
   });
   const fixture = TestBed.createComponent(WaferPage);
-  fixture.componentRef.setInput('id', '7');
+  fixture.componentRef.setInput('id', id);
   const backend = TestBed.inject(HttpTestingController);
-  // Requests come in waves (the lot after the wafer, the dopant after the sweeps).
   for (let wave = 0; wave < 6; wave += 1) {
     fixture.detectChanges();
     await new Promise((resolve) => setTimeout(resolve));
-    for (const req of backend.match(() => true)) {
-      if (req.request.url === '/api/wafers/7/dopant') req.flush(dopantAnswer as object);
-      else answer(req);
-    }
+    for (const req of backend.match(() => true)) respond(req);
   }
   await fixture.whenStable();
   return fixture;
 }
+
+/** Wafer 7's page, its dopant request answered with `dopantAnswer`. */
+const renderWafer7 = (dopantAnswer: object = dopant) =>
+  renderWafer('7', (req) =>
+    req.request.url === '/api/wafers/7/dopant' ? req.flush(dopantAnswer) : answer(req),
+  );
 
 describe('WaferPage', () => {
   it('shows the 23 °C value ± U, its verdict and the folded budget', async () => {
@@ -136,33 +141,16 @@ describe('WaferPage', () => {
   });
 
   it('shows one "not available" page for a wafer hidden from the user, and asks for nothing else', async () => {
-    TestBed.configureTestingModule({
-      imports: [WaferPage],
-      providers: [
-        provideRouter([]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
-      ],
-    });
-    const fixture = TestBed.createComponent(WaferPage);
-    fixture.componentRef.setInput('id', '13');
-    const backend = TestBed.inject(HttpTestingController);
     const asked: string[] = [];
-    for (let wave = 0; wave < 4; wave += 1) {
-      fixture.detectChanges();
-      await new Promise((resolve) => setTimeout(resolve));
-      for (const req of backend.match(() => true)) {
-        asked.push(req.request.url);
-        if (req.request.url === '/api/wafers/13') {
-          req.flush(
-            { error: { code: 'not_found', message: 'Wafer 13 was not found' } },
-            { status: 404, statusText: 'Not Found' },
-          );
-        } else answer(req);
-      }
-    }
-    await fixture.whenStable();
+    const fixture = await renderWafer('13', (req) => {
+      asked.push(req.request.url);
+      if (req.request.url === '/api/wafers/13') {
+        req.flush(
+          { error: { code: 'not_found', message: 'Wafer 13 was not found' } },
+          { status: 404, statusText: 'Not Found' },
+        );
+      } else answer(req);
+    });
     const text = (fixture.nativeElement.textContent as string).replace(/\s+/g, ' ');
     expect(text).toContain('Not available to you');
     expect(text).toContain('Back to your bench');
