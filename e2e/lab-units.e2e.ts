@@ -48,6 +48,18 @@ describe('lengths in the units a lab writes', () => {
     const wafers = await apiGet<ApiPage<WaferDto>>(token, `/api/lots/${lot.id}/wafers`);
     expect(wafers.items.map((w) => w.thicknessCm)).toEqual([0.0512]);
 
+    // Remeasured: the wafer's own page edits the thickness in µm, shown back the same way.
+    await row.getByRole('link', { name: 'U1' }).click();
+    await page.getByRole('button', { name: 'Edit wafer' }).click();
+    const dialog = page.getByRole('dialog', { name: /Edit wafer U1/ });
+    await expect(dialog.getByLabel('Measured thickness').inputValue()).resolves.toBe('512');
+    await dialog.getByLabel('Measured thickness').fill('498.5');
+    await dialog.getByRole('button', { name: 'Save' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    await expectText(page, '498.5 µm');
+    const edited = await apiGet<WaferDto>(token, `/api/wafers/${wafers.items[0]!.id}`);
+    expect(edited.thicknessCm).toBeCloseTo(0.04985, 12);
+
     // Put away what the test made, so other tests see the demo lab as seeded.
     for (const path of [`/api/wafers/${wafers.items[0]!.id}`, `/api/lots/${lot.id}`]) {
       const res = await fetch(`${BASE_URL}${path}`, {

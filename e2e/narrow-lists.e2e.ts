@@ -85,8 +85,23 @@ describe('list pages on a 400 px screen', () => {
     const download = page.waitForEvent('download');
     await csv.click();
     expect((await download).suggestedFilename()).toMatch(/\.csv$/);
-    await expectOnScreen(page, sweeps.getByRole('link', { name: 'Study' }).first(), 'study');
+    const study = sweeps.getByRole('link', { name: 'Study' }).first();
+    await expectOnScreen(page, study, 'study');
     await screenshot(page, 'narrow-sweeps');
+
+    // saved fits of the sweep (the demo keeps an Arrhenius fit): a fit is picked for comparing
+    await study.click();
+    const fits = page.getByRole('table', { name: 'Saved fits' });
+    const compare = fits.getByRole('checkbox', { name: /^Compare fit / }).first();
+    await expectOnScreen(page, compare, 'compare a saved fit');
+    await expectOnScreen(
+      page,
+      fits.getByRole('button', { name: /^Delete fit / }).first(),
+      'delete',
+    );
+    await compare.check();
+    await expect.poll(() => compare.isChecked()).toBe(true);
+    await screenshot(page, 'narrow-saved-fits');
 
     // worklist: a task's state is changed from its card
     await page.goto(`${BASE_URL}/worklist`);

@@ -1,3 +1,4 @@
+import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import {
   BASE_URL,
@@ -27,7 +28,7 @@ interface MapSite {
 }
 interface SweepMap {
   temperaturesK: number[];
-  maps: Array<{ temperatureK: number; sites: MapSite[] }>;
+  maps: Array<{ temperatureK: number; sites: MapSite[]; statistics: object | null }>;
 }
 
 /** The demo's map sweep and its wafer. */
@@ -119,6 +120,20 @@ describe('the wafer map view', () => {
     const download = page.waitForEvent('download');
     await page.getByRole('button', { name: 'Save PNG' }).click();
     expect((await download).suggestedFilename()).toMatch(/^sweep-\d+-map-\d+K\.png$/);
+
+    // The sites and each step's uniformity download as CSV: one row per site and step.
+    const csvDownload = page.waitForEvent('download');
+    await page.getByRole('button', { name: 'Sites and uniformity (CSV)' }).click();
+    const csv = await csvDownload;
+    expect(csv.suggestedFilename()).toMatch(/^sweep-\d+-map\.csv$/);
+    const lines = readFileSync((await csv.path())!, 'utf8')
+      .trim()
+      .split('\r\n');
+    const siteCount = target.map.maps.reduce((n, m) => n + m.sites.length, 0);
+    expect(lines.filter((l) => l.split(',')[9] === '')).toHaveLength(siteCount);
+    expect(lines.filter((l) => l.includes(',mean,'))).toHaveLength(
+      target.map.maps.filter((m) => m.statistics).length,
+    );
 
     expect(await seriousViolations(page)).toEqual([]);
     await screenshot(page, 'wafer-map');

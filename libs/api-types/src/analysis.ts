@@ -3,7 +3,7 @@
  * summaries and sweep comparison. Units are in the field names (K, ohm cm, cm^-3, eV).
  */
 import type { HallAnalysis } from './hall';
-import type { PointFinding } from './sweeps';
+import type { PointFinding, SweepGeometry } from './sweeps';
 import type { SpecVerdict, ValueAt23CMethod, ValueUncertainty } from './spec';
 
 /** Conduction regimes of a doped semiconductor. */
@@ -145,6 +145,8 @@ export interface AnalysisSweepDto {
   maxTemperatureK: number | null;
   originalName: string;
   createdAt: string;
+  /** The geometry the sweep's readings were converted with, and where each value came from. */
+  geometry: SweepGeometry;
 }
 
 /** Points averaged per temperature step. */

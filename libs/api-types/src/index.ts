@@ -68,6 +68,8 @@ export type {
 export type { HallAnalysisStep, HallAnalysis, HallAt300K } from './hall';
 export {
   LENGTH_UNIT_OF,
+  GEOMETRY_LABELS,
+  GEOMETRY_SOURCE_WORDS,
   cmToLength,
   lengthToCm,
   ALSO_SHOWN_IN,
@@ -112,6 +114,7 @@ export {
   ASSIGNMENT_STATES,
   THERMOMETERS,
   THERMOCOUPLE_LETTERS,
+  CALIBRATION_TABLE_MIN_POINTS,
   LOT_SORT_FIELDS,
   WAFER_SORT_FIELDS,
   STATION_SORT_FIELDS,

@@ -28,6 +28,25 @@ export const LENGTH_UNIT_OF: Readonly<Record<string, LengthUnit>> = {
   barWidthCm: 'mm',
 };
 
+/** A sweep geometry field in words, as screens and reports name it (its unit from above). */
+export const GEOMETRY_LABELS: Readonly<Record<string, string>> = {
+  thicknessCm: 'thickness',
+  diameterCm: 'diameter',
+  spacingCm: 'probe spacing',
+  barLengthCm: 'bar length',
+  barWidthCm: 'bar width',
+  rtdR0Ohm: 'thermometer R0',
+};
+
+/** Where a sweep's geometry value came from, in words (`SweepGeometry.sources`). */
+export const GEOMETRY_SOURCE_WORDS: Readonly<Record<string, string>> = {
+  request: 'as given',
+  wafer: 'from the wafer',
+  lot: 'from the lot',
+  station: 'from the station',
+  file: "from the file's header",
+};
+
 /**
  * `value` × 10^`power`, rounded as the decimal it is written as, so 525 µm is 0.0525 cm and not
  * 0.052500000000000005 (the shift happens in the decimal exponent, which JavaScript rounds once).

@@ -25,6 +25,11 @@ export type Thermometer = (typeof THERMOMETERS)[number];
 
 /** The letter-designated thermocouple types (IEC 60584-1; the physics library's list). */
 export const THERMOCOUPLE_LETTERS = ['B', 'E', 'J', 'K', 'N', 'R', 'S', 'T'] as const;
+/**
+ * Fewest points a station's calibration table may have: through two points the monotone cubic
+ * Hermite is a straight line, which is no calibration of a diode or resistance sensor's curve.
+ */
+export const CALIBRATION_TABLE_MIN_POINTS = 3;
 export type ThermocoupleLetter = (typeof THERMOCOUPLE_LETTERS)[number];
 
 /**

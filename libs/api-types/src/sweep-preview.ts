@@ -1,5 +1,7 @@
 /** What the import preview answers, and the saved import settings it offers. */
+import type { SweepMapInput } from './maps';
 import type {
+  HallFactorName,
   RowProblem,
   SweepColumn,
   SweepColumnOverride,
@@ -109,6 +111,10 @@ export interface ImportSettingsDto {
   savedById: number | null;
   savedByName: string | null;
   updatedAt: string;
+  /** The Hall factor saved for Hall files of this shape (null: none saved). */
+  hallFactor: number | HallFactorName | null;
+  /** The map fields saved for map files of this shape (null: none saved). */
+  map: SweepMapInput | null;
 }
 
 /** `PUT /api/import-settings`: saves (or replaces) the settings of a station and shape. */
@@ -121,4 +127,8 @@ export interface ImportSettingsInput {
   columns: SweepColumnOverride[];
   geometry: SweepGeometryInput;
   layout: SweepLayoutInput;
+  /** For Hall files: the Hall factor to preset. */
+  hallFactor?: number | HallFactorName;
+  /** For map files: the site pattern and edge exclusion to preset. */
+  map?: SweepMapInput;
 }

@@ -7,7 +7,7 @@ import type {
 } from '@rhotrace/api-types';
 import { UNCERTAINTY_SOURCES } from '@rhotrace/api-types';
 import { z } from 'zod';
-import { dateTime } from '../openapi/shapes';
+import { dateTime, sweepGeometry } from '../openapi/shapes';
 import { findingSchema } from '../sweeps/sweep.openapi';
 import { hallAnalysisSchema, hallAt300KSchema } from './hall-responses';
 
@@ -51,6 +51,7 @@ export const sweepAnalysisResponse = z
         maxTemperatureK: nullableNumber,
         originalName: z.string(),
         createdAt: dateTime,
+        geometry: sweepGeometry,
       })
       .strict(),
     steps: z.array(

@@ -54,6 +54,9 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
     w.hall?.carrierDensityAt300KCm3 ?? null,
     w.hall?.hallMobilityAt300KCm2PerVs ?? null,
     w.hall?.carrierType ?? null,
+    w.hall?.carrierDensityAt300KUncertaintyCm3 ?? null,
+    w.hall?.hallMobilityAt300KUncertaintyCm2PerVs ?? null,
+    w.hall?.hallFactor ?? null,
   ]);
   const st = s.statistics;
   rows.push(
@@ -80,6 +83,11 @@ export async function getLotSummaryCsv(req: Request, res: Response): Promise<voi
       'hall_carrier_density_300k_cm3',
       'hall_mobility_300k_cm2_per_vs',
       'carrier_type',
+      // Standard uncertainties (k = 1, type A, from the readings' scatter); the Hall factor is
+      // an assumption stated beside them, not part of them.
+      'hall_carrier_density_300k_u_k1_cm3',
+      'hall_mobility_300k_u_k1_cm2_per_vs',
+      'hall_factor',
     ],
     rows,
   );

@@ -51,6 +51,8 @@ describe('GET /api/sweeps/:id/analysis', () => {
       waferNumber: 'W01',
       lotCode: lot.code,
       pointCount: 471,
+      // the geometry the readings were converted with travels with the study
+      geometry: { spacingCm: 0.1, thicknessCm: 0.05, diameterCm: 10, sources: {} },
     });
     expect(res.body.steps).toHaveLength(157);
     expect(res.body.steps[0].count).toBe(3);

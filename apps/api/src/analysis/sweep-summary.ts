@@ -1,4 +1,4 @@
-import type { AnalysisSweepDto } from '@rhotrace/api-types';
+import type { AnalysisSweepDto, SweepGeometry } from '@rhotrace/api-types';
 import type { VisibleSweep } from '../access/visibility.service';
 
 /** The summary block the analysis answers carry. */
@@ -18,5 +18,6 @@ export function sweepSummary(v: VisibleSweep, skipped: number): AnalysisSweepDto
     maxTemperatureK: v.sweep.maxTemperatureK,
     originalName: v.sweep.originalName,
     createdAt: v.sweep.createdAt.toISOString(),
+    geometry: v.sweep.geometry as SweepGeometry,
   };
 }

@@ -7,12 +7,20 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type {
+  HallFactorName,
   SweepColumnOverride,
   SweepGeometryInput,
   SweepLayoutInput,
+  SweepMapInput,
   SweepMethod,
 } from '@rhotrace/api-types';
 import { jsonColumn } from '../db/json-column';
+
+/** The fields of one method saved beside the rest (a Hall factor, a map's site fields). */
+export interface ImportMethodDetails {
+  hallFactor?: number | HallFactorName;
+  map?: SweepMapInput;
+}
 
 /** How files of one shape from one station are read. */
 export class ImportSettings extends Model<
@@ -27,6 +35,7 @@ export class ImportSettings extends Model<
   declare columns: SweepColumnOverride[];
   declare geometry: SweepGeometryInput;
   declare layout: SweepLayoutInput;
+  declare methodDetails: ImportMethodDetails | null;
   declare savedById: number | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -43,6 +52,7 @@ export function initImportSettingsModel(sequelize: Sequelize): void {
       columns: jsonColumn('columns', false),
       geometry: jsonColumn('geometry', false),
       layout: jsonColumn('layout', false),
+      methodDetails: jsonColumn('methodDetails'),
       savedById: DataTypes.INTEGER,
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),

@@ -24,6 +24,8 @@ export const importSettingsSchema = registry.register(
       savedById: z.number().int().nullable(),
       savedByName: z.string().nullable(),
       updatedAt: dateTime,
+      hallFactor: saveBody.shape.hallFactor.unwrap().nullable(),
+      map: saveBody.shape.map.unwrap().nullable(),
     })
     .strict(),
 ) satisfies z.ZodType<ImportSettingsDto>;

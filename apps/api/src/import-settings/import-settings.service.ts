@@ -10,7 +10,7 @@ import { inTransaction } from '../db/connection';
 import { notFound, validationFailed } from '../errors';
 import { Station } from '../stations/station.model';
 import { User } from '../users/user.model';
-import { ImportSettings } from './import-settings.model';
+import { ImportSettings, type ImportMethodDetails } from './import-settings.model';
 
 async function toDto(s: ImportSettings, transaction?: Transaction): Promise<ImportSettingsDto> {
   const [station, savedBy] = await Promise.all([
@@ -30,7 +30,21 @@ async function toDto(s: ImportSettings, transaction?: Transaction): Promise<Impo
     savedById: s.savedById,
     savedByName: savedBy?.name ?? null,
     updatedAt: s.updatedAt.toISOString(),
+    hallFactor: s.methodDetails?.hallFactor ?? null,
+    map: s.methodDetails?.map ?? null,
   };
+}
+
+/**
+ * The method's own fields worth saving: a Hall factor only for the hall method, map fields only
+ * where they were given (a map is a four-point file with site columns); null when none.
+ */
+function methodDetailsOf(input: ImportSettingsInput): ImportMethodDetails | null {
+  const details: ImportMethodDetails = {};
+  if (input.method === 'hall' && input.hallFactor !== undefined)
+    details.hallFactor = input.hallFactor;
+  if (input.map && Object.values(input.map).some((v) => v !== undefined)) details.map = input.map;
+  return Object.keys(details).length ? details : null;
 }
 
 /** The settings saved for a station and shape, or null. */
@@ -76,6 +90,7 @@ export async function saveImportSettings(
       columns: input.columns,
       geometry: input.geometry,
       layout: input.layout,
+      methodDetails: methodDetailsOf(input),
       savedById: actor.id,
     };
     const earlier = await ImportSettings.findOne({

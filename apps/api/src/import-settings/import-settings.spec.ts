@@ -117,6 +117,38 @@ describe('saved import settings', () => {
     ).toBeNull();
   });
 
+  it("keep a Hall file's factor and a map's site fields, each for its own kind of file", async () => {
+    const wafer = await makeWafer({ thicknessCm: 0.05 });
+    const station = await makeStation({ probeSpacingCm: 0.1 });
+    const { shape } = await preview(wafer.id, fileOf(300), { stationId: station.id });
+    const base = { stationId: station.id, shape, columns: [], geometry: {}, layout: {} };
+    const hall = await save({ ...base, method: 'hall', hallFactor: 'ionized-impurity' });
+    expect(hall.status, JSON.stringify(hall.body)).toBe(200);
+    expect(hall.body).toMatchObject({ hallFactor: 'ionized-impurity', map: null });
+    const next = await preview(wafer.id, fileOf(300), { stationId: station.id });
+    expect(next.savedSettings).toMatchObject({ method: 'hall', hallFactor: 'ionized-impurity' });
+
+    const map = { sitePattern: 'ring-25', edgeExclusionMm: 5 };
+    const mapped = await save({ ...base, method: 'four-point', hallFactor: 1.2, map });
+    // a Hall factor belongs to Hall files only: a four-point setting does not keep it
+    expect(mapped.body).toMatchObject({ hallFactor: null, map });
+    const numbered = await save({ ...base, method: 'hall', hallFactor: 1.18 });
+    expect(numbered.body).toMatchObject({ hallFactor: 1.18, map: null });
+
+    const refused = await save({
+      ...base,
+      method: 'hall',
+      hallFactor: 7,
+      map: { sitePattern: 'spiral', edgeExclusionMm: -1 },
+    });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.details.map((d: { field: string }) => d.field).sort()).toEqual([
+      'body.hallFactor',
+      'body.map.edgeExclusionMm',
+      'body.map.sitePattern',
+    ]);
+  });
+
   it('refuse a shape that is not a preview key and a station that does not exist', async () => {
     const bad = await save({
       stationId: 999999,

@@ -3,6 +3,7 @@ import type { LotMapsResponse, SweepMapInfo, SweepMapResponse } from '@rhotrace/
 import { MAP_CORRECTIONS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
+import { fileBody } from '../openapi/shapes';
 
 /**
  * What a map sweep records about its wafer and conversion. Not a named component: a nullable
@@ -111,6 +112,20 @@ export function registerMapsApi(): void {
     summary: "A map sweep's maps at each temperature step, with uniformity statistics",
     params: idParams,
     ok: { status: 200, description: 'The maps', schema: sweepMapSchema },
+    errors: [404],
+  });
+  route({
+    method: 'get',
+    path: '/sweeps/:id/map.csv',
+    summary:
+      "A map sweep's sites at every temperature step, then each step's uniformity statistics, as CSV",
+    params: idParams,
+    ok: {
+      status: 200,
+      description: 'The sites and statistics',
+      schema: fileBody,
+      contentType: 'text/csv',
+    },
     errors: [404],
   });
   route({

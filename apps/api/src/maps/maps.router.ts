@@ -11,6 +11,7 @@ export function mapsRouter(deps: AppDeps): Router {
   const router = Router();
   const auth = authenticate(deps.config.jwtSecret);
   router.get('/sweeps/:id/map', auth, mapsController.sweep);
+  router.get('/sweeps/:id/map.csv', auth, mapsController.sweepCsv);
   router.get('/lots/:id/maps', auth, mapsController.lot);
   return router;
 }

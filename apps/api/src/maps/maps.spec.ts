@@ -196,6 +196,50 @@ describe('sites near and beyond the edge', () => {
     const [header, , , last] = exported.text.split('\r\n');
     expect(header).toContain('flags,site_x_mm,site_y_mm,site_label');
     expect(last).toContain('edge-exclusion,73,0,');
+
+    // The map's own export: each site, then the step's uniformity over the counted sites.
+    const mapCsv = await request(ctx.app)
+      .get(`/api/sweeps/${res.body.id}/map.csv`)
+      .set(ctx.auth('technician'));
+    expect(mapCsv.status).toBe(404); // the technician has no assignment on this wafer
+    const sites = await request(ctx.app)
+      .get(`/api/sweeps/${res.body.id}/map.csv`)
+      .set(ctx.auth('physicist'));
+    expect(sites.status).toBe(200);
+    expect(sites.headers['content-type']).toMatch(/text\/csv/);
+    const rows = sites.text
+      .trim()
+      .split('\r\n')
+      .map((r) => r.split(','));
+    const names = rows[0]!;
+    const at = (row: string[], name: string) => row[names.indexOf(name)];
+    expect(names.slice(0, 9)).toEqual([
+      'temperature_k',
+      'site',
+      'x_mm',
+      'y_mm',
+      'sheet_resistance_ohm_sq',
+      'resistivity_ohm_cm',
+      'edge_factor',
+      'excluded',
+      'readings',
+    ]);
+    const siteRows = rows.slice(1, 4);
+    expect(siteRows.map((r) => [at(r, 'x_mm'), at(r, 'excluded')])).toEqual([
+      ['0', 'false'],
+      ['30', 'false'],
+      ['73', 'true'],
+    ]);
+    const stat = (name: string) => rows.find((r) => at(r, 'statistic') === name);
+    // by hand: sites 10 and 12 ohm cm counted, 40 excluded -> mean 11, sd sqrt(2), range 9.09 %
+    expect(Number(at(stat('sites counted')!, 'value'))).toBe(2);
+    expect(Number(at(stat('mean')!, 'value'))).toBeCloseTo(11, 12);
+    expect(Number(at(stat('standard deviation (n - 1)')!, 'value'))).toBeCloseTo(Math.SQRT2, 12);
+    expect(Number(at(stat('range (max - min) / (max + min)')!, 'value'))).toBeCloseTo(
+      (100 * 2) / 22,
+      9,
+    );
+    expect(at(stat('standard deviation / mean')!, 'unit')).toBe('%');
   });
 
   it('refuses a site outside the wafer, naming row and column, and stores nothing', async () => {

@@ -39,3 +39,21 @@ export const jsonValue = z.union([
   z.boolean(),
   z.null(),
 ]);
+
+const GEOMETRY_KEYS = ['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'];
+const geometrySource = z.enum(['request', 'wafer', 'lot', 'station', 'file']);
+/** The geometry a sweep was converted with (`SweepGeometry`). */
+export const sweepGeometry = z
+  .object({
+    thicknessCm: z.number().optional(),
+    diameterCm: z.number().optional(),
+    spacingCm: z.number().optional(),
+    barLengthCm: z.number().optional(),
+    barWidthCm: z.number().optional(),
+    rtdR0Ohm: z.number().optional(),
+    sources: z
+      .object(Object.fromEntries([...GEOMETRY_KEYS, 'rtdR0Ohm'].map((k) => [k, geometrySource])))
+      .partial()
+      .strict(),
+  })
+  .strict();

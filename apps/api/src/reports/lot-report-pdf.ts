@@ -3,6 +3,7 @@ import { ACCENT, INK, keepSpace, MUTED, OHM_CM, openPdf, plain, sig } from './pd
 import { drawAxes } from './pdf-plot';
 import type { LotReportData } from './lot-report.service';
 import { closingSection, fitsSection } from './report-pdf';
+import { hallAt300KWords, hallUncertaintyWords } from './report-hall';
 
 const FAIL = '#a23b2a';
 const UNDECIDED = '#8a6d1f';
@@ -19,13 +20,23 @@ const lowerFirst = (text: string) => text.charAt(0).toLowerCase() + text.slice(1
 export function waferLines(s: LotSummaryResponse): string[] {
   return s.wafers.map((w) => {
     if (w.resistivityAt23COhmCm === null)
-      return `${w.number}: no value at 23 °C (${lowerFirst(w.reason ?? 'no sweep')})`;
+      return `${w.number}: no value at 23 °C (${lowerFirst(w.reason ?? 'no sweep')})${hallWords(w.hall)}`;
     const u = w.uncertaintyOhmCm === null ? '' : ` ± ${sig(w.uncertaintyOhmCm, 2)}`;
     const how =
       w.method === 'interpolated' ? 'interpolated' : `corrected from ${sig(w.distanceK, 2)} K away`;
     const verdict = w.verdict ? `, ${SPEC_VERDICT_WORDS[w.verdict]}` : '';
-    return `${w.number}: ${sig(w.resistivityAt23COhmCm)}${u} ${OHM_CM} (k = 2, ${how}, sweep ${w.sweepId})${verdict}`;
+    return `${w.number}: ${sig(w.resistivityAt23COhmCm)}${u} ${OHM_CM} (k = 2, ${how}, sweep ${w.sweepId})${verdict}${hallWords(w.hall)}`;
   });
+}
+
+/** A wafer's Hall values at 300 K after its resistivity, with their uncertainty and r_H. */
+function hallWords(h: LotSummaryResponse['wafers'][number]['hall']): string {
+  if (!h) return '';
+  return (
+    `; Hall at 300 K (sweep ${h.sweepId}, ${h.carrierType === 'mixed' ? 'sign changes' : `${h.carrierType}-type`}, ` +
+    `r_H ${h.hallFactor.toPrecision(3)}): ` +
+    `${hallAt300KWords(h)}, ${hallUncertaintyWords(h).replace(/^± /, '± is the ')}`
+  );
 }
 
 /** The lot's statistics in words: spread, verdict counts and Ppk with its lower bound. */

@@ -1,5 +1,6 @@
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
+import { cmToLength, GEOMETRY_LABELS, LENGTH_UNIT_OF } from '@rhotrace/api-types';
 
 const require = createRequire(import.meta.url);
 /** IBM Plex Sans static TTFs from the installed font package (no machine paths). */
@@ -38,23 +39,15 @@ export function plain(value: number | null | undefined, digits = 4): string {
     .replace(/\.(?=$| )/, '');
 }
 
-/** A geometry value in words with the unit a lab reads it in (stored in cm). */
-const GEOMETRY_WORDS: Record<string, { label: string; unit: string; scale: number }> = {
-  thicknessCm: { label: 'thickness', unit: 'µm', scale: 1e4 },
-  diameterCm: { label: 'diameter', unit: 'mm', scale: 10 },
-  spacingCm: { label: 'probe spacing', unit: 'mm', scale: 10 },
-  barLengthCm: { label: 'bar length', unit: 'mm', scale: 10 },
-  barWidthCm: { label: 'bar width', unit: 'mm', scale: 10 },
-  rtdR0Ohm: { label: 'thermometer R0', unit: 'Ω', scale: 1 },
-};
-
 /** A sweep's geometry as words and units ("thickness 525 µm, diameter 150 mm"). */
 export function geometryText(geometry: Record<string, unknown>): string {
   return Object.entries(geometry)
     .flatMap(([key, value]) => {
-      const words = GEOMETRY_WORDS[key];
-      if (!words || typeof value !== 'number' || !Number.isFinite(value)) return [];
-      return [`${words.label} ${plain(value * words.scale)} ${words.unit}`];
+      const label = GEOMETRY_LABELS[key];
+      if (!label || typeof value !== 'number' || !Number.isFinite(value)) return [];
+      if (key === 'rtdR0Ohm') return [`${label} ${plain(value)} Ω`];
+      const unit = LENGTH_UNIT_OF[key] ?? 'cm';
+      return [`${label} ${plain(cmToLength(value, unit))} ${unit}`];
     })
     .join(', ');
 }

@@ -2,7 +2,7 @@
  * The Hall part of a sweep report: n against 1000/T and μH against T (log scales) with the
  * saved fits' curves, the carrier type, the values at 300 K and the Hall fits' readings.
  */
-import { KIND_WORDS, type FitDto, type HallAnalysis } from '@rhotrace/api-types';
+import { KIND_WORDS, type FitDto, type HallAnalysis, type HallAt300K } from '@rhotrace/api-types';
 import { carrierDensities } from '@rhotrace/physics';
 import { isSemiconductor } from '../analysis/model.service';
 import { logRoundTicks } from './pdf-axes';
@@ -108,6 +108,46 @@ function mobilityModel(steps: HallAnalysis['steps'], fit: FitDto | undefined): P
     .map((s) => [s.temperatureK, mu * (s.temperatureK / 300) ** a]);
 }
 
+/** The values at 300 K in words, each ± its standard uncertainty where the readings give one. */
+export function hallAt300KWords(
+  h: Pick<
+    HallAt300K,
+    | 'carrierDensityAt300KCm3'
+    | 'hallMobilityAt300KCm2PerVs'
+    | 'carrierDensityAt300KUncertaintyCm3'
+    | 'hallMobilityAt300KUncertaintyCm2PerVs'
+  >,
+): string {
+  const withU = (value: number | null, u: number | null | undefined) =>
+    `${sig(value, 3)}${u == null ? '' : ` ± ${sig(u, 2)}`}`;
+  return (
+    `carrier density ${withU(h.carrierDensityAt300KCm3, h.carrierDensityAt300KUncertaintyCm3)} ` +
+    `per cm³, Hall mobility ` +
+    `${withU(h.hallMobilityAt300KCm2PerVs, h.hallMobilityAt300KUncertaintyCm2PerVs)} cm²/(V·s)`
+  );
+}
+
+/** What the ± of `hallAt300KWords` is, or why there is none. */
+export function hallUncertaintyWords(h: Pick<HallAt300K, 'carrierDensityAt300KUncertaintyCm3'>) {
+  return h.carrierDensityAt300KUncertaintyCm3 == null
+    ? 'one reading a step: no scatter to give an uncertainty'
+    : '± standard uncertainty, k = 1, from the readings’ scatter; the Hall factor is assumed, not in it';
+}
+
+/**
+ * The Hall section's opening sentence: carrier type, the assumed Hall factor and the values at
+ * 300 K, each with its standard uncertainty where the readings give one.
+ */
+export function hallSummaryLine(hall: HallAnalysis): string {
+  const type =
+    hall.carrierType === 'mixed' ? 'mixed (the sign changes)' : `${hall.carrierType}-type`;
+  return (
+    `Carrier type ${type}; Hall scattering factor ${hall.hallFactor.toPrecision(4)}. At 300 K: ` +
+    `${hallAt300KWords(hall)} (${hallUncertaintyWords(hall)}). Dots: step means; lines: the ` +
+    'latest saved fits.'
+  );
+}
+
 /** Draws the Hall section on a new page. */
 export function drawHallSection(
   doc: PDFKit.PDFDocument,
@@ -118,17 +158,7 @@ export function drawHallSection(
   doc.addPage();
   doc.font('plex-bold').fontSize(11).fillColor(INK).text('Hall effect', 50);
   doc.font('plex').fontSize(9).fillColor(INK);
-  const type =
-    hall.carrierType === 'mixed' ? 'mixed (the sign changes)' : `${hall.carrierType}-type`;
-  doc.text(
-    `Carrier type ${type}; Hall scattering factor ${hall.hallFactor.toPrecision(4)}. At 300 K: ` +
-      `carrier density ${sig(hall.carrierDensityAt300KCm3, 3)} per cm³, Hall mobility ` +
-      `${sig(hall.hallMobilityAt300KCm2PerVs, 3)} cm²/(V·s). Dots: step means; lines: the latest ` +
-      'saved fits.',
-    50,
-    undefined,
-    { width: 495 },
-  );
+  doc.text(hallSummaryLine(hall), 50, undefined, { width: 495 });
   const density = latest(fits, 'carrier-density');
   const mobility = latest(fits, 'hall-mobility');
   const top = doc.y + 16;

@@ -1,4 +1,9 @@
-import { STATION_SORT_FIELDS, THERMOCOUPLE_LETTERS, THERMOMETERS } from '@rhotrace/api-types';
+import {
+  CALIBRATION_TABLE_MIN_POINTS,
+  STATION_SORT_FIELDS,
+  THERMOCOUPLE_LETTERS,
+  THERMOMETERS,
+} from '@rhotrace/api-types';
 import { z } from 'zod';
 import {
   boundedLength,
@@ -15,7 +20,7 @@ export const thermometer = z.enum(THERMOMETERS, {
   errorMap: () => ({ message: `must be one of ${THERMOMETERS.join(', ')}` }),
 });
 
-/** A station's thermometer; see `StationSensor`. A table needs 2 to 500 points. */
+/** A station's thermometer; see `StationSensor`. A table needs 3 to 500 points. */
 export const sensor = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('platinum-rtd'), r0Ohm: boundedNumber(1, 100_000, 'Ω') }).strict(),
   z
@@ -34,7 +39,9 @@ export const sensor = z.discriminatedUnion('kind', [
             .object({ reading: z.number().finite(), temperatureK: boundedNumber(0.01, 2000, 'K') })
             .strict(),
         )
-        .min(2)
+        .min(CALIBRATION_TABLE_MIN_POINTS, {
+          message: `needs at least ${CALIBRATION_TABLE_MIN_POINTS} points (a straight line through two is no sensor calibration)`,
+        })
         .max(500),
     })
     .strict(),

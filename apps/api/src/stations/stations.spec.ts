@@ -61,6 +61,22 @@ describe('/api/stations', () => {
       'body.sensor.type',
     ],
     [
+      'a two-point table (a straight line, no calibration of a sensor curve)',
+      {
+        ...station('x14'),
+        thermometer: 'table',
+        rtdR0Ohm: null,
+        sensor: {
+          kind: 'table',
+          points: [
+            { reading: 1.1, temperatureK: 20 },
+            { reading: 0.5, temperatureK: 300 },
+          ],
+        },
+      },
+      'body.sensor.points',
+    ],
+    [
       'a table that turns back',
       {
         ...station('x13'),

@@ -16,6 +16,8 @@ import {
 } from '../testing/hall-sweep-file';
 import { documentProblems } from '../openapi/testing/document-validator';
 import { renderReportPdf } from '../reports/report-pdf';
+import { hallSummaryLine } from '../reports/report-hall';
+import { waferLines } from '../reports/lot-report-pdf';
 import { reportData } from '../reports/report.service';
 import { Wafer } from '../wafers/wafer.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
@@ -323,6 +325,21 @@ describe('Hall fits', () => {
     const lotCsv = (await get(`/api/lots/${wafer!.lotId}/summary.csv`)).text;
     expect(lotCsv.split('\r\n')[0]).toMatch(/hall_carrier_density_300k_cm3,hall_mobility_300k/);
     expect(lotCsv.split('\r\n')[1]).toContain(String(h.carrierDensityAt300KCm3));
+    // The uncertainties and the assumed Hall factor travel with the values.
+    const header = lotCsv.split('\r\n')[0]!.split(',');
+    const row = lotCsv.split('\r\n')[1]!.split(',');
+    const cell = (name: string) => row[header.indexOf(name)];
+    expect(cell('hall_carrier_density_300k_u_k1_cm3')).toBe(
+      String(h.carrierDensityAt300KUncertaintyCm3),
+    );
+    expect(cell('hall_mobility_300k_u_k1_cm2_per_vs')).toBe(
+      String(h.hallMobilityAt300KUncertaintyCm2PerVs),
+    );
+    expect(cell('hall_factor')).toBe('1');
+    // The lot PDF's wafer line carries the same values, uncertainties and assumed factor.
+    const [line] = waferLines(summary).filter((l) => l.includes(`sweep ${sweepId},`));
+    expect(line).toMatch(/Hall at 300 K \(sweep \d+, n-type, r_H 1\.00\): carrier density \S+/);
+    expect(line).toMatch(/Hall mobility \S+ ± \S+ cm²\/\(V·s\), ± is the standard uncertainty/);
     const pointsCsv = (await get(`/api/sweeps/${sweepId}/points.csv`)).text.split('\r\n');
     expect(pointsCsv[0]).toContain(
       'flags,hall_coefficient_cm3_per_c,carrier_density_cm3,sheet_carrier_density_cm2,' +
@@ -343,6 +360,13 @@ describe('Hall fits', () => {
     const withHall = await renderReportPdf(data);
     const without = await renderReportPdf({ ...data, hall: null });
     expect(pages(withHall)).toBe(pages(without) + 1);
+    // The values at 300 K are printed with their standard uncertainties and what they leave out.
+    const line = hallSummaryLine(data.hall!);
+    expect(line).toMatch(/carrier density \S+( × 10\S+)? ± \S+/);
+    expect(line).toMatch(/Hall mobility \S+ ± \S+ cm²\/\(V·s\)/);
+    expect(line).toContain('k = 1');
+    const single = { ...data.hall!, carrierDensityAt300KUncertaintyCm3: null };
+    expect(hallSummaryLine(single)).toContain('no scatter to give an uncertainty');
   });
 
   it('answers as the OpenAPI document says (Hall fields included)', async () => {

@@ -2,9 +2,10 @@
  * Preview and import of probe-station exports. The import runs as named stages, each in
  * `import/`: read the table → detect columns → read a row → pair polarities → turn a row into a
  * point (one entry per measurement method) → flag → store. It reads and converts slice by
- * slice, flags the whole sweep, then stores the sweep, its raw file, its points (each with its
- * leg and every flag, in one pass) and the audit event in one transaction, all together or not
- * at all. A transaction failure of the moment (a deadlock, a Galera certification failure or
+ * slice, storing each point once its leg is settled while the rest are converted, then flags the
+ * whole sweep (rewriting the flags of the points already stored that the whole-sweep checks
+ * flag), and stores the sweep, its raw file, its points and the audit event in one
+ * transaction, all together or not at all. A transaction failure of the moment (a deadlock, a Galera certification failure or
  * abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
@@ -22,7 +23,7 @@ import { uploadRawStorage } from '../storage/storage';
 import { Wafer } from '../wafers/wafer.model';
 import { SweepRows } from './import/check-rows';
 import { publicColumns } from './import/detect-columns';
-import { markPoints } from './import/flag';
+import { latePositions, markPoints, type FlagSummary } from './import/flag';
 import type { ConvertedPoint } from './import/import-types';
 import { planImport, type ImportChoices, type ImportPlan } from './import/plan-import';
 import { openTable, unreadableRows } from './import/read-table';
@@ -233,19 +234,28 @@ async function storeSweep(
     rawJson(parsed),
     transaction,
   );
-  // Every point is held until the flags of the whole sweep are known, then stored once.
   const points: ConvertedPoint[] = [];
-  for (const slice of rows.points()) for (const p of slice) points.push(p);
-  if (rows.problems.length) {
-    throw unprocessable(
-      'Some rows hold values that cannot be stored; nothing was stored',
-      rows.problems.slice(0, MAX_PROBLEMS),
-    );
-  }
-  const flags = rows.finish();
-  markPoints(points, flags);
+  let flags: FlagSummary;
   try {
-    await store.write(points);
+    // Points are written as their legs settle, while the rest are converted; flags found over
+    // the whole sweep are then rewritten on the few already written that carry one.
+    let sent = 0;
+    for (const slice of rows.points()) {
+      for (const p of slice) points.push(p);
+      const settled = rows.settleLegs(points, sent);
+      if (settled > sent && !rows.problems.length) await store.write(points.slice(sent, settled));
+      sent = settled;
+    }
+    if (rows.problems.length) {
+      throw unprocessable(
+        'Some rows hold values that cannot be stored; nothing was stored',
+        rows.problems.slice(0, MAX_PROBLEMS),
+      );
+    }
+    flags = rows.finish();
+    markPoints(points, flags);
+    await store.write(points.slice(sent));
+    await store.rewriteFlags(points, latePositions(flags, sent));
   } catch (error) {
     await store.abandon();
     throw error;

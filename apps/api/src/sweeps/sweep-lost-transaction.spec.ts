@@ -32,7 +32,7 @@ afterEach(async () => {
   await ctx.sequelize.query('DROP TABLE IF EXISTS transient_fault_fired');
 });
 
-/** Rows of the points file; 2,500 points make three point batches of the writer's chunks. */
+/** Rows of the points file: a point 1234 to delete, and rows enough for a fault mid-insert. */
 const ROWS = 2_500;
 
 const upload = (waferId: number, file: Buffer) =>

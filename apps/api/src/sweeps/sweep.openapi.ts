@@ -8,28 +8,11 @@ import type {
 import { COLUMN_MEANINGS, POINT_FLAGS, SWEEP_METHODS } from '@rhotrace/api-types';
 import { z } from 'zod';
 import { idParams, registry, routesOf } from '../openapi/registry';
-import { dateTime, fileBody } from '../openapi/shapes';
+import { dateTime, fileBody, sweepGeometry as geometry } from '../openapi/shapes';
 import { importSettingsSchema } from '../import-settings/import-settings.openapi';
 import { sweepMapInfoSchema } from '../maps/maps.openapi';
 import { previewSchema as previewForm, storeSchema } from './sweep.schemas';
 import { hallImportReportSchema, pointQuantitiesSchema } from '../analysis/hall-responses';
-
-const GEOMETRY_KEYS = ['thicknessCm', 'diameterCm', 'spacingCm', 'barLengthCm', 'barWidthCm'];
-const geometrySource = z.enum(['request', 'wafer', 'lot', 'station', 'file']);
-const geometry = z
-  .object({
-    thicknessCm: z.number().optional(),
-    diameterCm: z.number().optional(),
-    spacingCm: z.number().optional(),
-    barLengthCm: z.number().optional(),
-    barWidthCm: z.number().optional(),
-    rtdR0Ohm: z.number().optional(),
-    sources: z
-      .object(Object.fromEntries([...GEOMETRY_KEYS, 'rtdR0Ohm'].map((k) => [k, geometrySource])))
-      .partial()
-      .strict(),
-  })
-  .strict();
 
 const column = z
   .object({

@@ -15,6 +15,38 @@ export function logAddExp(a: number, b: number): number {
   return a > b ? a + Math.log1p(Math.exp(b - a)) : b + Math.log1p(Math.exp(a - b));
 }
 
+/**
+ * ln(e^a + e^b) as `logAddExp` computes it (the same bits), with the shares e^a / (e^a + e^b) and
+ * e^b / (e^a + e^b) written to `out`: all three from the one exponential e^-|a - b|. Either
+ * argument may be -Infinity (its share is then 0); not both.
+ */
+export function logAddExpWithShares(
+  a: number,
+  b: number,
+  out: { first: number; second: number },
+): number {
+  if (b === Number.NEGATIVE_INFINITY) {
+    out.first = 1;
+    out.second = 0;
+    return a;
+  }
+  if (a === Number.NEGATIVE_INFINITY) {
+    out.first = 0;
+    out.second = 1;
+    return b;
+  }
+  if (a > b) {
+    const r = Math.exp(b - a);
+    out.first = 1 / (1 + r);
+    out.second = r * out.first;
+    return a + Math.log1p(r);
+  }
+  const r = Math.exp(a - b);
+  out.second = 1 / (1 + r);
+  out.first = r * out.second;
+  return b + Math.log1p(r);
+}
+
 /** 1 / (1 + e^x) without overflow. */
 export function logisticComplement(x: number): number {
   return x > 0 ? Math.exp(-x) / (1 + Math.exp(-x)) : 1 / (1 + Math.exp(x));

@@ -139,6 +139,12 @@ export interface MobilityTerms {
   exponent: number;
 }
 
+/** ln N_ref of each Arora carrier, taken once (a curve needs them at every temperature). */
+const ARORA_LN_REF: Readonly<Record<Carrier, number>> = {
+  electron: Math.log(ARORA_1982_SILICON.electron.nRef),
+  hole: Math.log(ARORA_1982_SILICON.hole.nRef),
+};
+
 /** @internal The temperature-only factors of `mobilityUnchecked`. */
 export function mobilityTerms(
   material: SemiconductorId,
@@ -146,13 +152,25 @@ export function mobilityTerms(
   temperatureK: number,
   model: MobilityModelId,
 ): MobilityTerms {
-  const lnTn = Math.log(temperatureK / 300);
+  return mobilityTermsAtLn(material, carrier, Math.log(temperatureK / 300), model);
+}
+
+/**
+ * @internal `mobilityTerms` from ln(T / 300), so the two carriers of one temperature share the
+ * logarithm.
+ */
+export function mobilityTermsAtLn(
+  material: SemiconductorId,
+  carrier: Carrier,
+  lnTn: number,
+  model: MobilityModelId,
+): MobilityTerms {
   if (model === 'arora-1982') {
     const p = ARORA_1982_SILICON[carrier];
     return {
       base: p.muMin * Math.exp(p.b1 * lnTn),
       scale: p.mu0 * Math.exp(p.b2 * lnTn),
-      lnDensityRef: Math.log(p.nRef) + p.b3 * lnTn,
+      lnDensityRef: ARORA_LN_REF[carrier] + p.b3 * lnTn,
       exponent: p.alpha * Math.exp(p.b4 * lnTn),
     };
   }

@@ -5,7 +5,13 @@
 import { BOLTZMANN_EV_PER_K } from '../constants';
 import { PHYSICS_DEFAULTS } from '../defaults';
 import { brentRoot } from '../numeric/brent';
-import { logAddExp, logisticComplement, softplus, softplusWithLogistic } from '../numeric/log-math';
+import {
+  logAddExp,
+  logAddExpWithShares,
+  logisticComplement,
+  softplus,
+  softplusWithLogistic,
+} from '../numeric/log-math';
 import { bandGapUnchecked } from './band-gap';
 import type { DensityOfStatesSet } from './density-of-states';
 import { logDensityOfStates } from './density-of-states';
@@ -43,6 +49,8 @@ const NEWTON_MAX_STEPS = 60;
 const NEWTON_STEP_TOLERANCE = 1e-8;
 /** The logistic `softplusWithLogistic` returns beside softplus (the solve is synchronous). */
 const scratch = { logistic: 0 };
+/** The shares `logAddExpWithShares` returns beside a log-sum. */
+const shares = { first: 0, second: 0 };
 
 /** @internal The logarithms of a doping that every temperature's solve shares. */
 export interface DopingLogs {
@@ -159,10 +167,11 @@ export class NeutralityFunction {
       lnAm = this.lnNa + lnF;
       dLnAm = (lnF === bound ? 1 : Math.exp(bound - lnF)) * scratch.logistic;
     }
-    const u = logAddExp(lnP, lnDp);
-    const v = logAddExp(lnN, lnAm);
-    const du = -Math.exp(lnP - u) + (dLnDp === 0 ? 0 : Math.exp(lnDp - u) * dLnDp);
-    const dv = Math.exp(lnN - v) + (dLnAm === 0 ? 0 : Math.exp(lnAm - v) * dLnAm);
+    // The shares of each sum come from the exponential its logarithm takes (no further exp).
+    const u = logAddExpWithShares(lnP, lnDp, shares);
+    const du = -shares.first + (dLnDp === 0 ? 0 : shares.second * dLnDp);
+    const v = logAddExpWithShares(lnN, lnAm, shares);
+    const dv = shares.first + (dLnAm === 0 ? 0 : shares.second * dLnAm);
     out.slope = du - dv;
     return u - v;
   }

@@ -7,7 +7,7 @@ import { logisticComplement } from '../numeric/log-math';
 import { requireTemperatureK } from '../validate';
 import type { BandModelOptions, DensityOfStatesSet } from './density-of-states';
 import { resolveDensityOfStatesSet } from './density-of-states';
-import type { TemperatureTerms } from './neutrality-solve';
+import type { DopingLogs, TemperatureTerms } from './neutrality-solve';
 import {
   dopingLogs,
   neutralityFunction,
@@ -75,10 +75,13 @@ export function solveNeutralityAt(
   const donorFraction = bD === 0 ? 1 : 1 - bD + bD * logisticComplement(g.donorShift + eta);
   const acceptorFraction = bA === 0 ? 1 : 1 - bA + bA * logisticComplement(g.acceptorShift - eta);
   const lnIntrinsic = 0.5 * (lnNc + lnNv) - 0.5 * epsG;
-  const net = Math.abs(doping.donorDensity - doping.acceptorDensity);
-  const lnMajority = doping.donorDensity >= doping.acceptorDensity ? lnN : lnP;
-  const lnMajorityFraction = net === 0 ? Number.POSITIVE_INFINITY : lnMajority - logs.lnNet;
-  const regime = regimeOf(lnIntrinsic, net, lnMajorityFraction, logs.lnNet);
+  const lnMajorityFraction = majorityFraction(doping, logs, lnN, lnP);
+  const regime = regimeOf(
+    lnIntrinsic,
+    Math.abs(doping.donorDensity - doping.acceptorDensity),
+    lnMajorityFraction,
+    logs.lnNet,
+  );
   const margin3 = PHYSICS_DEFAULTS.degeneracyMarginKt;
   return {
     eta,
@@ -93,6 +96,36 @@ export function solveNeutralityAt(
     regime,
     nearDegenerate: eta < margin3 || epsG - eta < margin3,
   };
+}
+
+/** ln of the majority carrier density over |N_D - N_A| (Infinity when exactly compensated). */
+function majorityFraction(
+  doping: ResolvedDoping,
+  logs: DopingLogs,
+  lnElectrons: number,
+  lnHoles: number,
+): number {
+  if (doping.donorDensity === doping.acceptorDensity) return Number.POSITIVE_INFINITY;
+  return (doping.donorDensity > doping.acceptorDensity ? lnElectrons : lnHoles) - logs.lnNet;
+}
+
+/**
+ * @internal The regime at a solved root, as `solveNeutralityAt` gives it, from the carrier
+ * densities' logarithms alone (for callers that need nothing else of the solution).
+ */
+export function regimeAt(
+  terms: TemperatureTerms,
+  doping: ResolvedDoping,
+  logs: DopingLogs,
+  lnElectrons: number,
+  lnHoles: number,
+): Regime {
+  return regimeOf(
+    0.5 * (terms.lnNc + terms.lnNv) - 0.5 * terms.epsG,
+    Math.abs(doping.donorDensity - doping.acceptorDensity),
+    majorityFraction(doping, logs, lnElectrons, lnHoles),
+    logs.lnNet,
+  );
 }
 
 /**

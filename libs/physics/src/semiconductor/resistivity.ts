@@ -12,11 +12,16 @@ import { resolveDoping } from './dopants';
 import type { SemiconductorId } from './material';
 import { requireSemiconductor } from './material';
 import type { MobilityOptions, MobilityTerms } from './mobility';
-import { mobilityAt, mobilityTerms, resolveMobilityModel } from './mobility';
+import { mobilityAt, mobilityTermsAtLn, resolveMobilityModel } from './mobility';
 import type { Regime } from './neutrality';
-import { solveNeutralityAt } from './neutrality';
-import type { TemperatureTerms } from './neutrality-solve';
-import { dopingLogs, temperatureTerms } from './neutrality-solve';
+import { regimeAt } from './neutrality';
+import type { DopingLogs, TemperatureTerms } from './neutrality-solve';
+import {
+  dopingLogs,
+  neutralityFunction,
+  neutralityRoot,
+  temperatureTerms,
+} from './neutrality-solve';
 import type { MobilityModelId } from '../defaults';
 
 /** Options of the resistivity model. */
@@ -77,20 +82,57 @@ export interface CurveTerms {
 /** @internal The temperature-only terms of the model at one temperature. */
 export function curveTerms(model: ResolvedModel, temperatureK: number): CurveTerms {
   const { material, set, mobilityModel } = model;
+  const lnTn = Math.log(temperatureK / 300);
   return {
     neutral: temperatureTerms(material, set, temperatureK),
-    electron: mobilityTerms(material, 'electron', temperatureK, mobilityModel),
-    hole: mobilityTerms(material, 'hole', temperatureK, mobilityModel),
+    electron: mobilityTermsAtLn(material, 'electron', lnTn, mobilityModel),
+    hole: mobilityTermsAtLn(material, 'hole', lnTn, mobilityModel),
   };
 }
 
 /** @internal A model point with ln(rho) and the neutrality root eta (a start for the next). */
 export type SolvedModelPoint = ModelPoint & { lnResistivity: number; eta: number };
 
+/** @internal What `modelPointInto` writes beside the point it returns. */
+export interface ModelPointRoot {
+  lnResistivity: number;
+  eta: number;
+}
+
 /**
  * @internal Model point from precomputed temperature terms, the solve started at `guessEta`;
- * `logs` may be taken once for many temperatures.
+ * ln(rho) and the root are written to `root`. `logs` may be taken once for many temperatures.
  */
+export function modelPointInto(
+  model: ResolvedModel,
+  doping: ResolvedDoping,
+  terms: CurveTerms,
+  guessEta: number,
+  logs: DopingLogs,
+  root: ModelPointRoot,
+): ModelPoint {
+  const g = neutralityFunction(terms.neutral, doping, logs);
+  const eta = neutralityRoot(g, terms.neutral, doping, guessEta).eta;
+  const lnN = g.lnNcMinusG + eta;
+  const lnP = terms.neutral.lnNv - eta;
+  const muN = model.mobilityScale * mobilityAt(terms.electron, logs.lnTotal);
+  const muP = model.mobilityScale * mobilityAt(terms.hole, logs.lnTotal);
+  const lnRho = -(LN_Q + logAddExp(lnN + Math.log(muN), lnP + Math.log(muP)));
+  root.lnResistivity = lnRho;
+  root.eta = eta;
+  return {
+    temperatureK: terms.neutral.temperatureK,
+    resistivityOhmCm:
+      lnRho >= LN_CEILING ? PHYSICS_DEFAULTS.resistivityCeilingOhmCm : Math.exp(lnRho),
+    electrons: Math.exp(lnN),
+    holes: Math.exp(lnP),
+    electronMobility: muN,
+    holeMobility: muP,
+    regime: regimeAt(terms.neutral, doping, logs, lnN, lnP),
+  };
+}
+
+/** @internal `modelPointInto` with ln(rho) and the root on the point. */
 export function modelPointAt(
   model: ResolvedModel,
   doping: ResolvedDoping,
@@ -98,23 +140,9 @@ export function modelPointAt(
   guessEta = Number.NaN,
   logs = dopingLogs(doping),
 ): SolvedModelPoint {
-  const s = solveNeutralityAt(terms.neutral, doping, guessEta, logs);
-  const muN = model.mobilityScale * mobilityAt(terms.electron, logs.lnTotal);
-  const muP = model.mobilityScale * mobilityAt(terms.hole, logs.lnTotal);
-  const lnSigma = LN_Q + logAddExp(s.lnElectrons + Math.log(muN), s.lnHoles + Math.log(muP));
-  const lnRho = -lnSigma;
-  return {
-    temperatureK: terms.neutral.temperatureK,
-    resistivityOhmCm:
-      lnRho >= LN_CEILING ? PHYSICS_DEFAULTS.resistivityCeilingOhmCm : Math.exp(lnRho),
-    electrons: Math.exp(s.lnElectrons),
-    holes: Math.exp(s.lnHoles),
-    electronMobility: muN,
-    holeMobility: muP,
-    regime: s.regime,
-    lnResistivity: lnRho,
-    eta: s.eta,
-  };
+  const root = { lnResistivity: 0, eta: 0 };
+  const point = modelPointInto(model, doping, terms, guessEta, logs, root);
+  return { ...point, ...root };
 }
 
 /** @internal Model point and ln(rho), without input checks. */
@@ -183,23 +211,16 @@ export function modelCurve(
   // Each temperature's solve starts from the Fermi level (eV) extrapolated from its two
   // neighbours, rescaled to kT: a start within about 1e-4 needs two Newton steps.
   const previous = { t0: Number.NaN, e0: Number.NaN, t1: Number.NaN, e1: Number.NaN };
+  const root = { lnResistivity: 0, eta: 0 };
   return checked.map((t) => {
     const terms = curveTerms(model, t);
     const slope = (previous.e1 - previous.e0) / (previous.t1 - previous.t0);
     const guessEv = previous.e1 + (Number.isFinite(slope) ? slope * (t - previous.t1) : 0);
-    const q = modelPointAt(model, d, terms, guessEv / terms.neutral.kT, logs);
+    const point = modelPointInto(model, d, terms, guessEv / terms.neutral.kT, logs, root);
     previous.t0 = previous.t1;
     previous.e0 = previous.e1;
     previous.t1 = t;
-    previous.e1 = q.eta * terms.neutral.kT;
-    return {
-      temperatureK: q.temperatureK,
-      resistivityOhmCm: q.resistivityOhmCm,
-      electrons: q.electrons,
-      holes: q.holes,
-      electronMobility: q.electronMobility,
-      holeMobility: q.holeMobility,
-      regime: q.regime,
-    };
+    previous.e1 = root.eta * terms.neutral.kT;
+    return point;
   });
 }

@@ -55,6 +55,14 @@ export class SweepRows {
     yield this.checked(c.finish());
   }
 
+  /**
+   * Writes the leg on the points (all given out so far, in order) from position `from` on whose
+   * leg is settled; returns how many leading points have theirs. Late flags come with `finish`.
+   */
+  settleLegs(points: ConvertedPoint[], from: number): number {
+    return this.finder.markSettledLegs(points, from);
+  }
+
   /** Row problems found (after `points` ran): any one of them refuses the whole file. */
   get problems(): RowProblem[] {
     return this.converter.problems;

@@ -8,9 +8,9 @@
 import { JUMP_FACTOR, type PointFinding, type PointFlag } from '@rhotrace/api-types';
 import { PHYSICS_DEFAULTS } from '@rhotrace/physics';
 import { hampelOutliers } from './faults/hampel';
-import { splitLegs, stepRanges, type LegRange } from './faults/legs';
+import { LegSplitter, stepRanges, type LegRange } from './faults/legs';
 import { readingScatter } from './faults/noise';
-import { selfHeating, unsettledSteps, type Finding } from './faults/step-faults';
+import { selfHeating, stepLevels, unsettledSteps, type Finding } from './faults/step-faults';
 import { listRows, type ConvertedPoint } from './import-types';
 
 /** A step against the ramp direction larger than this is a reversal (thermometer noise is less). */
@@ -59,8 +59,11 @@ export class SuspiciousPointFinder {
   private readonly jumps: number[] = [];
   private worstRatio = 0;
   private sensitiveRatios = 0;
+  private readonly legs: LegSplitter;
 
-  constructor(private readonly stepToleranceK: number = PHYSICS_DEFAULTS.fitStepToleranceK) {}
+  constructor(private readonly stepToleranceK: number = PHYSICS_DEFAULTS.fitStepToleranceK) {
+    this.legs = new LegSplitter(stepToleranceK);
+  }
 
   /** Takes the next points, adding their `jump` flags in place; returns them. */
   addAll(points: ConvertedPoint[]): ConvertedPoint[] {
@@ -96,15 +99,26 @@ export class SuspiciousPointFinder {
     }
     this.previous = point;
     this.temperatures.push(point.temperatureK);
+    this.legs.add(point.temperatureK);
     this.lnRho.push(Math.log(point.resistivityOhmCm));
     this.currents.push(point.currentA ?? Number.NaN);
     this.rows.push(point.sourceRows[0]!);
   }
 
+  /**
+   * Writes the leg on the points from position `from` on whose leg can no longer change (their
+   * late flags may still come); returns how many leading points have their leg.
+   */
+  markSettledLegs(points: ConvertedPoint[], from: number): number {
+    const settled = this.legs.settled;
+    for (let i = from; i < settled; i++) points[i]!.leg = this.legs.legOf(i);
+    return Math.max(from, settled);
+  }
+
   /** After the last point: legs, the flags to add, the findings and warnings, the range. */
   finish(): FlagSummary {
     const t = this.temperatures;
-    const legs = splitLegs(t, this.stepToleranceK);
+    const legs = this.legs.finish();
     const late: Finding[] = [];
     const stepsByLeg = legs.map((leg) => stepRanges(t, leg.start, leg.end, this.stepToleranceK));
     const levelsByLeg = legs.map((leg) => this.levelSeries(leg));
@@ -127,9 +141,10 @@ export class SuspiciousPointFinder {
     if (sigma !== null) {
       const data = { temperaturesK: t, lnRho: this.lnRho, currentsA: this.currents };
       for (const steps of stepsByLeg) {
+        const levels = stepLevels(data, steps);
         // one by one: spreading a whole sweep's findings as arguments overflows the stack
-        for (const f of selfHeating(data, steps, sigma)) late.push(f);
-        for (const f of unsettledSteps(data, steps, sigma)) late.push(f);
+        for (const f of selfHeating(data, steps, sigma, levels)) late.push(f);
+        for (const f of unsettledSteps(data, steps, sigma, levels)) late.push(f);
       }
     }
     const lateFlags: LateFlags = {};
@@ -248,10 +263,10 @@ function distinctIndexes(sorted: Finding[]): number {
 }
 
 /**
- * Writes what `finish` found onto the points themselves, before they are stored: each point's
- * leg (1, 2, ...) and the late flags after the flags it already carries, flag by flag in the
- * order of `summary.late`. The points are held until the whole sweep is seen so they are
- * inserted once, complete (updating them after the insert cost more than inserting them).
+ * Writes what `finish` found onto the points themselves: each point's leg (1, 2, ...) and the
+ * late flags after the flags it already carries, flag by flag in the order of `summary.late`.
+ * Points stored before (their legs settled early) get their new flags rewritten; those are the
+ * few `latePositions` names, where rewriting every point cost more than inserting it.
  */
 export function markPoints(points: ConvertedPoint[], summary: FlagSummary): void {
   for (const [k, leg] of summary.legs.entries()) {
@@ -260,4 +275,13 @@ export function markPoints(points: ConvertedPoint[], summary: FlagSummary): void
   for (const [flag, positions] of Object.entries(summary.late)) {
     for (const i of positions) points[i]!.flags.push(flag as PointFlag);
   }
+}
+
+/** Positions before `before` that `summary` adds a late flag to, ascending, each once. */
+export function latePositions(summary: FlagSummary, before: number): number[] {
+  const positions = new Set<number>();
+  for (const list of Object.values(summary.late)) {
+    for (const i of list) if (i < before) positions.add(i);
+  }
+  return Array.from(Int32Array.from(positions).sort());
 }

@@ -1,6 +1,8 @@
+import { seededRandom } from '@rhotrace/physics';
+import { parse } from 'csv-parse/sync';
 import { describe, expect, it } from 'vitest';
 import { detectLayout } from './layout';
-import { DataTableReader } from './read-table';
+import { DataTableReader, splitPlain } from './read-table';
 
 /** Reads `text` in stretches of `lines` lines and returns what the reader collected. */
 function inStretches(text: string, lines: number) {
@@ -58,5 +60,53 @@ describe('reading the data section a stretch at a time', () => {
       ['82', 'x'],
     ]);
     expect(table.lines).toEqual([2, 4, 5]);
+  });
+});
+
+describe('the split of quote-free text', () => {
+  it('gives what csv-parse gives wherever it takes the text', () => {
+    // the reference is csv-parse itself, with the options the reader gives it, over invented
+    // snippets of cells, separators, blank lines and every kind of line break
+    const random = seededRandom(3);
+    const pieces = [
+      '1',
+      '2.5e-3',
+      'a',
+      ' ',
+      '',
+      '#',
+      '\t',
+      ';',
+      ',',
+      '\n',
+      '\n',
+      '\r\n',
+      '\r',
+      'x y',
+    ];
+    let split = 0;
+    for (let k = 0; k < 4000; k++) {
+      let text = '';
+      const n = Math.floor(random() * 12);
+      for (let i = 0; i < n; i++) text += pieces[Math.floor(random() * pieces.length)];
+      for (const delimiter of [',', ';', '\t']) {
+        const records = splitPlain(text, delimiter);
+        if (!records) continue;
+        split += 1;
+        const options = { delimiter, relax_column_count: true, relax_quotes: true };
+        expect(records, JSON.stringify(text)).toEqual(parse(text, options));
+      }
+    }
+    expect(split).toBeGreaterThan(5000);
+  });
+
+  it('leaves quoted and mixed-break text to csv-parse', () => {
+    expect(splitPlain('80,"1"\n', ',')).toBeNull();
+    expect(splitPlain('80,1\r\n81,2\n', ',')).toBeNull();
+    expect(splitPlain('80,1\r81,2\r', ',')).toBeNull();
+    expect(splitPlain('80,1\r\n81,2\r\n', ',')).toEqual([
+      ['80', '1'],
+      ['81', '2'],
+    ]);
   });
 });

@@ -127,6 +127,25 @@ export class DataTableReader {
   }
 }
 
+/**
+ * The records of a stretch holding no double quote, split on its line breaks (all `\n`, or all
+ * `\r\n`) and `delimiter`: what csv-parse gives for such text (it has nothing to unquote and
+ * nothing to refuse), several times faster. Null for any other text, which csv-parse reads.
+ */
+export function splitPlain(data: string, delimiter: string): string[][] | null {
+  if (data.includes('"')) return null;
+  const lines = data.includes('\r') ? data.split('\r\n') : data.split('\n');
+  if (lines[lines.length - 1] === '') lines.pop();
+  const records: string[][] = new Array<string[]>(lines.length);
+  for (let i = 0; i < lines.length; i++) {
+    const line = lines[i]!;
+    // a lone \r or \n left in a line: the breaks are mixed
+    if (line.includes('\r') || line.includes('\n')) return null;
+    records[i] = line.split(delimiter);
+  }
+  return records;
+}
+
 /** One stretch of data lines, starting at file line `firstLine`, as records with their lines. */
 function parseStretch(data: string, delimiter: string, firstLine: number): DataTable {
   const options = {
@@ -135,7 +154,8 @@ function parseStretch(data: string, delimiter: string, firstLine: number): DataT
     relax_quotes: true,
     skip_empty_lines: false,
   } as const;
-  const records = parseOrRefuse<string[][]>(data, options, firstLine);
+  const records =
+    splitPlain(data, delimiter) ?? parseOrRefuse<string[][]>(data, options, firstLine);
   const lines: number[] = [];
   const kept: string[][] = [];
   if (records.length === countLines(data)) {

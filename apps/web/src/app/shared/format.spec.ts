@@ -1,4 +1,11 @@
-import { alsoShownText, formatDay, formatLength, formatStamp, formatValue } from './format';
+import {
+  alsoShownText,
+  formatDay,
+  formatLength,
+  formatStamp,
+  formatValue,
+  geometryWords,
+} from './format';
 
 describe('formatValue', () => {
   it('uses a power of ten for extremes', () => {
@@ -36,5 +43,26 @@ describe('TCR in ppm/K beside 1/K', () => {
     expect(alsoShownText('alphaPerK', 2.1e-5, 2)).toBe(' (21 ppm/K)');
     expect(alsoShownText('activationEnergyEv', 0.045)).toBe('');
     expect(alsoShownText('alphaPerK', null)).toBe('');
+  });
+});
+
+describe('geometryWords', () => {
+  it('names each value with its lab unit and where it came from', () => {
+    expect(
+      geometryWords({
+        thicknessCm: 0.0524,
+        spacingCm: 0.1588,
+        rtdR0Ohm: 100,
+        sources: { thicknessCm: 'wafer', spacingCm: 'station', rtdR0Ohm: 'station' },
+      }),
+    ).toBe(
+      'thickness 524 µm from the wafer · probe spacing 1.588 mm from the station · ' +
+        'thermometer R0 100 Ω from the station',
+    );
+  });
+
+  it('is empty when nothing was recorded, and leaves a value without source unlabelled', () => {
+    expect(geometryWords({ sources: {} })).toBe('');
+    expect(geometryWords({ barWidthCm: 0.2, sources: {} })).toBe('bar width 2 mm');
   });
 });

@@ -1,10 +1,13 @@
 import {
+  GEOMETRY_LABELS,
+  GEOMETRY_SOURCE_WORDS,
   LENGTH_UNIT_OF,
   type LengthUnit,
   alsoShownIn,
   cmToLength,
   isoDay,
   isoStampUtc,
+  type SweepGeometry,
 } from '@rhotrace/api-types';
 
 /** Number formatting for lab values: a few significant figures, exponents for extremes. */
@@ -102,4 +105,21 @@ export function todayLocal(): string {
   const d = new Date();
   const pad = (n: number) => String(n).padStart(2, '0');
   return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}`;
+}
+
+/**
+ * The geometry a sweep was converted with, in words, units and where each value came from:
+ * "thickness 524 µm from the wafer · probe spacing 1.588 mm from the station".
+ */
+export function geometryWords(geometry: SweepGeometry): string {
+  return Object.entries(geometry)
+    .flatMap(([key, value]) => {
+      const label = GEOMETRY_LABELS[key];
+      if (!label || typeof value !== 'number' || !Number.isFinite(value)) return [];
+      const shown = key === 'rtdR0Ohm' ? `${formatValue(value)} Ω` : formatLength(value, key);
+      const source =
+        GEOMETRY_SOURCE_WORDS[geometry.sources[key as keyof SweepGeometry['sources']] ?? ''];
+      return [`${label} ${shown}${source ? ` ${source}` : ''}`];
+    })
+    .join(' · ');
 }

@@ -36,6 +36,32 @@ class TableHost {
   readonly columns = ['name', 'act'];
 }
 
+@Component({
+  imports: [RowCards],
+  template: `<table rtRowCards>
+    <thead>
+      <tr>
+        <th>Fit</th>
+        <th>R²</th>
+        <th><span class="cdk-visually-hidden">Actions</span></th>
+      </tr>
+    </thead>
+    <tbody>
+      @for (r of rows; track r) {
+        <tr>
+          <td>{{ r }}</td>
+          <td>0.99</td>
+          <td><button type="button">Delete</button></td>
+        </tr>
+      }
+    </tbody>
+  </table>`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+class PlainTableHost {
+  rows = ['Arrhenius #1', 'Full model #2'];
+}
+
 const key = (target: Element, k: string) =>
   target.dispatchEvent(new KeyboardEvent('keydown', { key: k, bubbles: true }));
 
@@ -74,5 +100,22 @@ describe('RowCards', () => {
       'Station',
       '',
     ]);
+  });
+
+  it('labels the cells of a plain table by their position under the headings', async () => {
+    const fixture = TestBed.createComponent(PlainTableHost);
+    await fixture.whenStable();
+    const cells = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('tbody td'));
+    expect(cells.map((c) => (c as HTMLElement).dataset['label'])).toEqual([
+      'Fit',
+      'R²',
+      '',
+      'Fit',
+      'R²',
+      '',
+    ]);
+    expect((fixture.nativeElement as HTMLElement).querySelector('table')!.className).toContain(
+      'rt-row-cards',
+    );
   });
 });

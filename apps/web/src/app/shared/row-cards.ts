@@ -10,7 +10,8 @@ const COLUMN_CLASS = /^mat-column-/;
  * card shows before the value; a column whose heading is only for screen readers (row actions)
  * gets an empty label and its controls take the card's whole width.
  *
- * Used on every list table with something to do per row: `<table mat-table rtRowCards …>`.
+ * Used on every list table with something to do per row: `<table mat-table rtRowCards …>`, or
+ * a plain `<table rtRowCards>` with thead and tbody (its cells labelled by position).
  */
 @Directive({
   selector: 'table[rtRowCards]',
@@ -31,15 +32,21 @@ export class RowCards {
   }
 
   private labelCells(): void {
-    const labels = new Map<string, string>();
-    for (const th of Array.from(this.table.querySelectorAll<HTMLElement>('thead th'))) {
+    // A mat-table names each cell's column by class; a plain table by the cell's position.
+    const headings = Array.from(this.table.querySelectorAll<HTMLElement>('thead th'));
+    const byColumn = new Map<string, string>();
+    for (const th of headings) {
       const column = columnOf(th);
-      if (column) labels.set(column, headingWords(th));
+      if (column) byColumn.set(column, headingWords(th));
     }
-    for (const td of Array.from(this.table.querySelectorAll<HTMLElement>('tbody td'))) {
-      const column = columnOf(td);
-      const label = column === null ? undefined : labels.get(column);
-      if (label !== undefined && td.dataset['label'] !== label) td.dataset['label'] = label;
+    const byPosition = headings.map(headingWords);
+    for (const row of Array.from(this.table.querySelectorAll<HTMLElement>('tbody tr'))) {
+      Array.from(row.children).forEach((cell, position) => {
+        if (!(cell instanceof HTMLTableCellElement) || cell.tagName !== 'TD') return;
+        const column = columnOf(cell);
+        const label = column === null ? byPosition[position] : byColumn.get(column);
+        if (label !== undefined && cell.dataset['label'] !== label) cell.dataset['label'] = label;
+      });
     }
   }
 }

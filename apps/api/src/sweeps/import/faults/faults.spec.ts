@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { seededNormal, seededRandom } from '@rhotrace/physics';
 import { hampelOutliers } from './hampel';
 import { splitLegs } from './legs';
-import { readingScatter } from './noise';
+import { currentLevels, readingScatter } from './noise';
 import { selfHeating, unsettledSteps } from './step-faults';
 
 describe('splitLegs', () => {
@@ -102,5 +102,18 @@ describe('selfHeating and unsettledSteps', () => {
     const lagging = lnRho.map((y, i) => (i < 10 ? y + 0.0003 * i : y));
     const found = unsettledSteps({ temperaturesK, lnRho: lagging, currentsA }, steps, 0.0002);
     expect(found.map((f) => f.index)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8, 9]);
+  });
+});
+
+describe('currentLevels', () => {
+  it('splits a dwell of 300,000 readings at two currents without running out of stack', () => {
+    // A long stability log at one temperature: 1 mA and 10 mA alternating (hand case).
+    const n = 300_000;
+    const currentsA = Float64Array.from({ length: n }, (_, i) => (i % 2 ? 1e-2 : 1e-3));
+    const { low, high } = currentLevels(currentsA, 0, n);
+    expect(low).toHaveLength(n / 2);
+    expect(high).toHaveLength(n / 2);
+    expect(low[0]).toBe(0);
+    expect(high[0]).toBe(1);
   });
 });

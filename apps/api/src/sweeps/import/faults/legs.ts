@@ -33,36 +33,92 @@ export function splitLegs(
   temperaturesK: ArrayLike<number>,
   toleranceK: number = PHYSICS_DEFAULTS.fitStepToleranceK,
 ): LegRange[] {
-  const n = temperaturesK.length;
-  if (n === 0) return [];
-  const threshold = LEG_CHANGE_FACTOR * toleranceK;
-  const t = (i: number) => temperaturesK[i]!;
-  const legs: LegRange[] = [];
-  let start = 0;
-  let direction: 1 | -1 | 0 = 0;
-  for (let i = 1; i < n && direction === 0; i++) {
-    if (Math.abs(t(i) - t(0)) > threshold) direction = t(i) > t(0) ? 1 : -1;
+  const splitter = new LegSplitter(toleranceK);
+  for (let i = 0; i < temperaturesK.length; i++) splitter.add(temperaturesK[i]!);
+  return splitter.finish();
+}
+
+/**
+ * `splitLegs` one temperature at a time, telling as it goes how many leading positions already
+ * have their leg settled (`settled`), so they can be stored before the sweep ends.
+ */
+export class LegSplitter {
+  private readonly t: number[] = [];
+  private readonly threshold: number;
+  /** Legs ended so far. */
+  readonly legs: LegRange[] = [];
+  private start = 0;
+  /** 0 until the first move beyond the threshold gives the first leg its direction. */
+  private direction: 1 | -1 | 0 = 0;
+  private extreme = 0;
+  private against = 0;
+
+  constructor(private readonly toleranceK: number = PHYSICS_DEFAULTS.fitStepToleranceK) {
+    this.threshold = LEG_CHANGE_FACTOR * toleranceK;
   }
-  if (direction === 0) return [{ start: 0, end: n, direction: 'hold' }];
-  let extreme = start;
-  let against = 0;
-  for (let i = start + 1; i < n; i++) {
-    if ((t(i) - t(extreme)) * direction > 0) extreme = i;
-    if ((t(extreme) - t(i)) * direction > threshold) against++;
-    else against = 0;
-    if (against < LEG_SUSTAINED_POINTS) continue;
+
+  /** Takes the next temperature. */
+  add(temperatureK: number): void {
+    const t = this.t;
+    t.push(temperatureK);
+    const i = t.length - 1;
+    if (this.direction !== 0) {
+      this.step(i);
+    } else if (i > 0 && Math.abs(temperatureK - t[0]!) > this.threshold) {
+      // the direction is known: the positions read so far are walked again with it
+      this.direction = temperatureK > t[0]! ? 1 : -1;
+      for (let j = 1; j <= i; j++) this.step(j);
+    }
+  }
+
+  /**
+   * Leading positions whose leg can no longer change: those before the current leg's extreme
+   * (the leg ends at or after it), none while the first leg has no direction.
+   */
+  get settled(): number {
+    return this.direction === 0 ? 0 : this.extreme;
+  }
+
+  /** The leg number (1, 2, ...) of a settled position. */
+  legOf(position: number): number {
+    // from the last leg back: positions are mostly asked for in the current leg
+    let k = this.legs.length;
+    while (k > 0 && this.legs[k - 1]!.end > position) k--;
+    return k + 1;
+  }
+
+  /** After the last temperature: every leg. */
+  finish(): LegRange[] {
+    const n = this.t.length;
+    if (n === 0) return [];
+    if (this.direction === 0) return [{ start: 0, end: n, direction: 'hold' }];
+    return [
+      ...this.legs,
+      { start: this.start, end: n, direction: this.direction > 0 ? 'up' : 'down' },
+    ];
+  }
+
+  private step(i: number): void {
+    const t = this.t;
+    const tol = this.toleranceK;
+    const direction = this.direction;
+    if ((t[i]! - t[this.extreme]!) * direction > 0) this.extreme = i;
+    if ((t[this.extreme]! - t[i]!) * direction > this.threshold) this.against++;
+    else this.against = 0;
+    if (this.against < LEG_SUSTAINED_POINTS) return;
     // the turn: the last reading still within the step tolerance of the extreme
+    const extreme = this.extreme;
     let turn = extreme;
-    while (turn + 1 < i && Math.abs(t(turn + 1) - t(extreme)) <= toleranceK) turn++;
-    legs.push({ start, end: turn + 1, direction: direction > 0 ? 'up' : 'down' });
-    start = turn + 1;
-    direction = direction > 0 ? -1 : 1;
-    extreme = start;
-    for (let j = start + 1; j <= i; j++) if ((t(j) - t(extreme)) * direction > 0) extreme = j;
-    against = 0;
+    while (turn + 1 < i && Math.abs(t[turn + 1]! - t[extreme]!) <= tol) turn++;
+    this.legs.push({ start: this.start, end: turn + 1, direction: direction > 0 ? 'up' : 'down' });
+    this.start = turn + 1;
+    this.direction = direction > 0 ? -1 : 1;
+    this.extreme = this.start;
+    for (let j = this.start + 1; j <= i; j++) {
+      if ((t[j]! - t[this.extreme]!) * this.direction > 0) this.extreme = j;
+    }
+    this.against = 0;
   }
-  legs.push({ start, end: n, direction: direction > 0 ? 'up' : 'down' });
-  return legs;
 }
 
 /**

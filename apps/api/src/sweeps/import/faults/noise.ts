@@ -54,8 +54,15 @@ export function currentLevels(
   const known = all.filter((i) => Number.isFinite(currentsA[i]!));
   if (known.length < all.length || known.length < 2) return { low: all, high: [] };
   const abs = (i: number) => Math.abs(currentsA[i]!);
-  const min = Math.min(...known.map(abs));
-  const max = Math.max(...known.map(abs));
+  // A loop, not Math.min(...): a long dwell at one temperature can hold 200,000 readings, past
+  // the number of arguments a call may take.
+  let min = Number.POSITIVE_INFINITY;
+  let max = 0;
+  for (const i of known) {
+    const a = abs(i);
+    if (a < min) min = a;
+    if (a > max) max = a;
+  }
   if (max < CURRENT_LEVEL_RATIO * min) return { low: all, high: [] };
   return {
     low: known.filter((i) => abs(i) <= 1.2 * min),

@@ -27,20 +27,43 @@ export interface StepSeries {
   currentsA: ArrayLike<number>;
 }
 
+/** A step's readings split by current level, with the means of its low level. */
+export interface StepLevels {
+  low: number[];
+  high: number[];
+  /** Mean temperature and ln rho of the low level. */
+  lowMeanK: number;
+  lowMeanLnRho: number;
+}
+
+/**
+ * Each step's current levels and low-level means, worked out once for both checks (each step's
+ * slope reads its neighbours' means too).
+ */
+export function stepLevels(data: StepSeries, steps: Array<[number, number]>): StepLevels[] {
+  return steps.map(([s, e]) => {
+    const { low, high } = currentLevels(data.currentsA, s, e);
+    return {
+      low,
+      high,
+      lowMeanK: meanAt(data.temperaturesK, low),
+      lowMeanLnRho: meanAt(data.lnRho, low),
+    };
+  });
+}
+
 const pct = (x: number) => `${x >= 0 ? '+' : ''}${(x * 100).toFixed(2)} %`;
 
 /**
  * alpha = d ln rho / dT at step `k`, the least-squares slope over the low-current means of the
  * steps k-2 ... k+2 (within the leg); null with fewer than two steps.
  */
-function localAlpha(data: StepSeries, steps: Array<[number, number]>, k: number): number | null {
+function localAlpha(levels: StepLevels[], k: number): number | null {
   const xs: number[] = [];
   const ys: number[] = [];
-  for (let j = Math.max(0, k - 2); j <= Math.min(steps.length - 1, k + 2); j++) {
-    const [s, e] = steps[j]!;
-    const { low } = currentLevels(data.currentsA, s, e);
-    xs.push(meanAt(data.temperaturesK, low));
-    ys.push(meanAt(data.lnRho, low));
+  for (let j = Math.max(0, k - 2); j <= Math.min(levels.length - 1, k + 2); j++) {
+    xs.push(levels[j]!.lowMeanK);
+    ys.push(levels[j]!.lowMeanLnRho);
   }
   if (xs.length < 2) return null;
   const mx = xs.reduce((a, b) => a + b, 0) / xs.length;
@@ -66,22 +89,22 @@ export function selfHeating(
   data: StepSeries,
   steps: Array<[number, number]>,
   sigma: number,
+  levels: StepLevels[] = stepLevels(data, steps),
 ): Finding[] {
   const found: Finding[] = [];
-  steps.forEach(([s, e], k) => {
-    const { low, high } = currentLevels(data.currentsA, s, e);
+  levels.forEach(({ low, high }, k) => {
     if (!high.length || !low.length) return;
     const diff = meanAt(data.lnRho, high) - meanAt(data.lnRho, low);
     const scatter = sigma * Math.sqrt(1 / high.length + 1 / low.length);
     if (!(Math.abs(diff) > STEP_FAULT_SIGMAS * scatter)) return;
-    const alpha = localAlpha(data, steps, k);
+    const alpha = localAlpha(levels, k);
     const ratio = Math.exp(diff) - 1;
     const dT = alpha ? ratio / alpha : null;
     // warming moves rho the way alpha says; the other way is not heating
     if (dT !== null && dT <= 0) return;
     const iLow = Math.abs(meanAt(data.currentsA, low));
     const iHigh = Math.abs(meanAt(data.currentsA, high));
-    const t = meanAt(data.temperaturesK, low).toFixed(1);
+    const t = levels[k]!.lowMeanK.toFixed(1);
     const rise =
       dT === null
         ? 'the temperature coefficient here is unknown, so the rise is not estimated'
@@ -112,13 +135,13 @@ export function unsettledSteps(
   data: StepSeries,
   steps: Array<[number, number]>,
   sigma: number,
+  levels: StepLevels[] = stepLevels(data, steps),
 ): Finding[] {
   const found: Finding[] = [];
-  steps.forEach(([s, e], k) => {
-    const { low, high } = currentLevels(data.currentsA, s, e);
+  levels.forEach(({ low, high }, k) => {
     // what the readings' own temperatures explain is no drift: on a sweep logged while the
     // temperature ramps, a step's readings rise with T by alpha dT and are all sound
-    const alpha = medianSlope(data, steps, k);
+    const alpha = medianSlope(levels, k);
     for (const group of [low, high]) {
       const n = group.length;
       if (n < UNSETTLED_MIN_READINGS) continue;
@@ -156,14 +179,12 @@ const SLOPE_STEPS_EACH_SIDE = 4;
  * means, k-4 ... k+4 within the leg: a median, so one outlying step cannot lend the others a
  * drift; 0 where no two steps differ in temperature.
  */
-function medianSlope(data: StepSeries, steps: Array<[number, number]>, k: number): number {
+function medianSlope(levels: StepLevels[], k: number): number {
   const slopes: number[] = [];
   let previous: [number, number] | null = null;
-  const last = Math.min(steps.length - 1, k + SLOPE_STEPS_EACH_SIDE);
+  const last = Math.min(levels.length - 1, k + SLOPE_STEPS_EACH_SIDE);
   for (let j = Math.max(0, k - SLOPE_STEPS_EACH_SIDE); j <= last; j++) {
-    const [s, e] = steps[j]!;
-    const { low } = currentLevels(data.currentsA, s, e);
-    const here: [number, number] = [meanAt(data.temperaturesK, low), meanAt(data.lnRho, low)];
+    const here: [number, number] = [levels[j]!.lowMeanK, levels[j]!.lowMeanLnRho];
     if (previous && here[0] !== previous[0])
       slopes.push((here[1] - previous[1]) / (here[0] - previous[0]));
     previous = here;

@@ -1,5 +1,6 @@
 /**
- * Stage 7, store: the sweep row, its points (legs and flags already on them), the completed row
+ * Stage 7, store: the sweep row, its points (each with its leg, written as soon as the leg is
+ * settled; flags found over the whole sweep rewritten on those already written), the completed row
  * and the audit event, in the upload's transaction, with every statement's result checked before the
  * commit. The sweep row is written only while a transaction is open, the points need it (a
  * foreign key), and the audit event is written only where the sweep and all its points are
@@ -74,6 +75,14 @@ export class SweepStore {
       this.writer = new PointWriter(this.sweepId, this.rawOf, this.transaction);
     }
     await this.writer.write(points);
+  }
+
+  /**
+   * Rewrites the flags of points written before their late flags were known (positions 0-based,
+   * in written order) to the flags they carry now.
+   */
+  async rewriteFlags(points: ConvertedPoint[], positions: number[]): Promise<void> {
+    if (positions.length) await this.writer!.rewriteFlags(points, positions);
   }
 
   /** Waits for every write sent, so the caller's rollback never races one. */

@@ -3,7 +3,12 @@ import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { RouterLink } from '@angular/router';
 import { formatDay } from '../../shared/format';
+import type { AssignmentDto, Page } from '@rhotrace/api-types';
+import type { ListQuery } from '../../shared/list-query';
 import { HomeApi } from './home-api';
+
+/** Tasks listed per group; the rest are one link away, in the worklist. */
+const SHOWN_PER_GROUP = 6;
 
 /** A manager's view of the lab's assignments: open, overdue and finished. */
 @Component({
@@ -17,13 +22,13 @@ import { HomeApi } from './home-api';
     </div>
     <div class="counts">
       <div class="count">
-        <strong>{{ open().length }}</strong> open
+        <strong>{{ counts().open }}</strong> open
       </div>
-      <div class="count" [class.alarm]="overdue().length > 0">
-        <strong>{{ overdue().length }}</strong> overdue
+      <div class="count" [class.alarm]="counts().overdue > 0">
+        <strong>{{ counts().overdue }}</strong> overdue
       </div>
       <div class="count">
-        <strong>{{ finished().length }}</strong> finished
+        <strong>{{ counts().finished }}</strong> finished
       </div>
     </div>
     @for (group of groups(); track group.title) {
@@ -32,7 +37,7 @@ import { HomeApi } from './home-api';
         <p class="rt-muted">None.</p>
       }
       <ul class="cards" [attr.aria-label]="group.title">
-        @for (a of group.items.slice(0, 6); track a.id) {
+        @for (a of group.items; track a.id) {
           <li class="card" [class.overdue]="a.overdue">
             <a class="title" [routerLink]="['/wafers', a.waferId]"
               >Lot {{ a.lotCode }} · Wafer {{ a.waferNumber }}</a
@@ -43,9 +48,9 @@ import { HomeApi } from './home-api';
           </li>
         }
       </ul>
-      @if (group.items.length > 6) {
+      @if (group.total > group.items.length) {
         <a class="more" routerLink="/worklist"
-          >All {{ group.items.length }} {{ group.title.toLowerCase() }} in the worklist</a
+          >All {{ group.total }} {{ group.title.toLowerCase() }} in the worklist</a
         >
       }
     }
@@ -56,21 +61,34 @@ import { HomeApi } from './home-api';
 export class ManagerBoard {
   private readonly api = inject(HomeApi);
   protected readonly day = formatDay;
-  private readonly all = rxResource({
-    stream: () => this.api.assignments({ sort: 'dueDate', pageSize: 200 }),
+  /**
+   * Each group is asked of the server with its own filter, so its count is the lab's whole count
+   * (the page's `total`) however many tasks there are; only the first few of each are listed.
+   */
+  private readonly overdueTasks = this.group({ overdue: true, sort: 'dueDate' });
+  private readonly openTasks = this.group({ open: true, overdue: false, sort: 'dueDate' });
+  private readonly doneTasks = this.group({ state: 'done', sort: '-updatedAt' });
+  protected readonly counts = computed(() => {
+    const overdue = this.overdueTasks.value()?.total ?? 0;
+    return {
+      overdue,
+      open: overdue + (this.openTasks.value()?.total ?? 0),
+      finished: this.doneTasks.value()?.total ?? 0,
+    };
   });
-  private readonly items = computed(() => this.all.value()?.items ?? []);
-  protected readonly overdue = computed(() => this.items().filter((a) => a.overdue));
-  protected readonly open = computed(() =>
-    this.items().filter((a) => a.state === 'assigned' || a.state === 'in progress'),
-  );
-  protected readonly finished = computed(() => this.items().filter((a) => a.state === 'done'));
   protected readonly groups = computed(() => [
-    { title: 'Overdue', items: this.overdue() },
-    { title: 'Open', items: this.open().filter((a) => !a.overdue) },
-    {
-      title: 'Recently finished',
-      items: [...this.finished()].sort((a, b) => b.updatedAt.localeCompare(a.updatedAt)),
-    },
+    this.shown('Overdue', this.overdueTasks.value()),
+    this.shown('Open', this.openTasks.value()),
+    this.shown('Recently finished', this.doneTasks.value()),
   ]);
+
+  private group(query: ListQuery) {
+    return rxResource({
+      stream: () => this.api.assignments({ ...query, pageSize: SHOWN_PER_GROUP }),
+    });
+  }
+
+  private shown(title: string, page: Page<AssignmentDto> | undefined) {
+    return { title, items: page?.items ?? [], total: page?.total ?? 0 };
+  }
 }

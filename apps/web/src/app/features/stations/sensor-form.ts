@@ -11,10 +11,11 @@ import type {
   ThermocoupleLetter,
   Thermometer,
 } from '@rhotrace/api-types';
+import { CALIBRATION_TABLE_MIN_POINTS } from '@rhotrace/api-types';
 import { above } from '../../shared/field-error';
 
 /** A calibration table needs this many rows at least (a cubic Hermite through 2 is a line). */
-export const TABLE_MIN_ROWS = 3;
+export const TABLE_MIN_ROWS = CALIBRATION_TABLE_MIN_POINTS;
 /** Cold-junction temperatures the form takes, °C: an ice bath to a warm instrument terminal. */
 export const REFERENCE_JUNCTION_RANGE_C = { min: -60, max: 150 } as const;
 

@@ -9,11 +9,12 @@ import { KIND_WORDS } from '../analysis-labels';
 import { AnalysisStore } from '../analysis-store';
 import { mainResult } from '../main-result';
 import { FitCard } from '../fit-card/fit-card';
+import { RowCards } from '../../../shared/row-cards';
 
 /** The sweep's saved fits: compare side by side, export as CSV, delete (after a confirmation). */
 @Component({
   selector: 'rt-saved-fits',
-  imports: [MatButtonModule, MatCheckboxModule, FitCard, EstimateNote],
+  imports: [MatButtonModule, MatCheckboxModule, FitCard, EstimateNote, RowCards],
   templateUrl: './saved-fits.html',
   styleUrl: '../study-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

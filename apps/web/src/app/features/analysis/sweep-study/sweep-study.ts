@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { formatValue } from '../../../shared/format';
+import { formatValue, geometryWords } from '../../../shared/format';
 import { formatTemperatureRange } from '../../../shared/temperature-unit';
 import { PlotlyLoader } from '../../../shared/plot/plotly-loader';
 import { AnalysisStore } from '../analysis-store';
@@ -48,6 +48,7 @@ export class SweepStudy {
   /** The sweep id from the route. */
   readonly id = input.required<string>();
   protected readonly format = formatValue;
+  protected readonly geometry = geometryWords;
   protected range(minK: number | null, maxK: number | null): string {
     return formatTemperatureRange(minK, maxK, this.store.unit());
   }

@@ -41,6 +41,11 @@ export function analysisOf(material = 'Si'): SweepAnalysisResponse {
       maxTemperatureK: 450,
       originalName: 'demo.csv',
       createdAt: '2026-01-02T03:04:05.000Z',
+      geometry: {
+        thicknessCm: 0.0524,
+        spacingCm: 0.1588,
+        sources: { thicknessCm: 'wafer', spacingCm: 'station' },
+      },
     },
     steps,
     arrhenius: steps.map((s) => ({

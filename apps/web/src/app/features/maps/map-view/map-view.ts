@@ -15,6 +15,7 @@ import { FormatValuePipe } from '../../../shared/format-value';
 import { MapsApi } from '../maps-api';
 import { saveSvgAsPng } from '../map-png';
 import { WaferMap } from '../wafer-map/wafer-map';
+import { Downloader } from '../../../shared/download';
 
 /** Words for each edge correction. */
 const CORRECTION_WORDS: Record<string, string> = {
@@ -41,6 +42,7 @@ const CORRECTION_WORDS: Record<string, string> = {
 })
 export class MapView {
   private readonly api = inject(MapsApi);
+  private readonly downloader = inject(Downloader);
   readonly sweepId = input.required<number>();
 
   protected readonly data = rxResource({
@@ -77,6 +79,12 @@ export class MapView {
     const t = this.data.value()?.maps[index]?.temperatureK;
     return t === undefined ? '' : `${Math.round(t)} K`;
   };
+
+  /** Every site at every step, then each step's uniformity statistics (the API's CSV). */
+  protected saveCsv(): void {
+    const id = this.sweepId();
+    void this.downloader.save(`/api/sweeps/${id}/map.csv`, `sweep-${id}-map.csv`);
+  }
 
   protected async savePng(): Promise<void> {
     const svg = this.picture()?.element();

@@ -8,6 +8,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import {
   COLUMN_MEANINGS,
+  GEOMETRY_SOURCE_WORDS,
   type ColumnMeaning,
   SWEEP_METHODS,
   type MetadataFinding,
@@ -39,15 +40,6 @@ const GEOMETRY_FIELDS: ReadonlyArray<{ key: keyof SweepGeometryInput; label: str
   { key: 'barLengthCm', label: 'Bar length' },
   { key: 'barWidthCm', label: 'Bar width' },
 ];
-
-/** Where a geometry value the server would use came from, in words. */
-const SOURCE_WORDS: Record<string, string> = {
-  request: 'as given',
-  wafer: 'from the wafer',
-  lot: 'from the lot',
-  station: 'from the station',
-  file: "from the file's header",
-};
 
 /**
  * One file of an upload: its own method, station and geometry, what each column holds, its
@@ -127,7 +119,7 @@ export class UploadFile {
     const g = this.item().preview?.geometry;
     const value = g?.[key];
     if (value === undefined || !g) return '';
-    return `${formatLength(value, key)} ${SOURCE_WORDS[g.sources[key] ?? ''] ?? ''}`;
+    return `${formatLength(value, key)} ${GEOMETRY_SOURCE_WORDS[g.sources[key] ?? ''] ?? ''}`;
   }
 
   /** A chosen length (cm) as typed in its field's unit (µm, mm); empty when not chosen. */

@@ -105,6 +105,11 @@ export function settingsOf(item: UploadItem): ImportSettingsInput | null {
       Object.entries(choices.geometry).filter(([, v]) => typeof v === 'number'),
     ),
     layout: choices.layout ?? {},
+    // The method's own fields: a Hall file's factor, a map's pattern and edge exclusion.
+    ...(choices.method === 'hall' && choices.hallFactor !== undefined
+      ? { hallFactor: choices.hallFactor }
+      : {}),
+    ...(choices.map ? { map: { ...choices.map } } : {}),
   };
 }
 
@@ -123,6 +128,8 @@ export function presetFrom(
       stationId: settings.stationId,
       geometry: { ...settings.geometry },
       layout: { ...settings.layout },
+      hallFactor: settings.hallFactor ?? item.choices.hallFactor,
+      map: settings.map ? { ...settings.map } : item.choices.map,
     },
     mappingEdited: byIndex.size > 0,
     columns: columns.map((c) => {

@@ -81,28 +81,42 @@ function answer(req: TestRequest): void {
   }
 }
 
+/**
+ * Renders a wafer's page, handing each request (in waves: the lot after the wafer, the dopant
+ * after the sweeps) to `respond`.
+ */
+async function renderWafer(id: string, respond: (req: TestRequest) => void) {
+  TestBed.configureTestingModule({
+    imports: [WaferPage],
+    providers: [
+      provideRouter([]),
+      provideHttpClient(),
+      provideHttpClientTesting(),
+      { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
+    ],
+  });
+  const fixture = TestBed.createComponent(WaferPage);
+  fixture.componentRef.setInput('id', id);
+  const backend = TestBed.inject(HttpTestingController);
+  for (let wave = 0; wave < 6; wave += 1) {
+    fixture.detectChanges();
+    await new Promise((resolve) => setTimeout(resolve));
+    for (const req of backend.match(() => true)) respond(req);
+  }
+  await fixture.whenStable();
+  return fixture;
+}
+
+/** Wafer 7's page, its dopant request answered with `dopantAnswer`. */
+const renderWafer7 = (dopantAnswer: object = dopant) =>
+  renderWafer('7', (req) =>
+    req.request.url === '/api/wafers/7/dopant' ? req.flush(dopantAnswer) : answer(req),
+  );
+
 describe('WaferPage', () => {
   it('shows the 23 °C value ± U, its verdict and the folded budget', async () => {
-    TestBed.configureTestingModule({
-      imports: [WaferPage],
-      providers: [
-        provideRouter([]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
-      ],
-    });
-    const fixture = TestBed.createComponent(WaferPage);
-    fixture.componentRef.setInput('id', '7');
+    const fixture = await renderWafer7();
     const loader = TestbedHarnessEnvironment.loader(fixture);
-    const backend = TestBed.inject(HttpTestingController);
-    // Requests come in waves (the lot after the wafer, the dopant after the sweeps).
-    for (let wave = 0; wave < 6; wave += 1) {
-      fixture.detectChanges();
-      await new Promise((resolve) => setTimeout(resolve));
-      for (const req of backend.match(() => true)) answer(req);
-    }
-    await fixture.whenStable();
     const text = fixture.nativeElement.textContent as string;
     expect(text).toContain('9.87');
     expect(text).toContain('± 0.54');
@@ -116,36 +130,27 @@ describe('WaferPage', () => {
       MatTableHarness.with({ selector: '[aria-label="Uncertainty budget"]' }),
     );
     expect((await budget.getCellTextByColumnName())['source']?.text).toEqual(['Thickness']);
+    expect(text).toMatch(/Dopant density\s*1\.36/);
+  });
+
+  it('states no dopant density where there is none (a metal film)', async () => {
+    const fixture = await renderWafer7({ ...dopant, dopant: null, dopantDensityCm3: null });
+    const text = fixture.nativeElement.textContent as string;
+    expect(text).toContain('9.87');
+    expect(text).not.toContain('Dopant density');
   });
 
   it('shows one "not available" page for a wafer hidden from the user, and asks for nothing else', async () => {
-    TestBed.configureTestingModule({
-      imports: [WaferPage],
-      providers: [
-        provideRouter([]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: PlotlyLoader, useValue: { load: () => Promise.resolve(plotly) } },
-      ],
-    });
-    const fixture = TestBed.createComponent(WaferPage);
-    fixture.componentRef.setInput('id', '13');
-    const backend = TestBed.inject(HttpTestingController);
     const asked: string[] = [];
-    for (let wave = 0; wave < 4; wave += 1) {
-      fixture.detectChanges();
-      await new Promise((resolve) => setTimeout(resolve));
-      for (const req of backend.match(() => true)) {
-        asked.push(req.request.url);
-        if (req.request.url === '/api/wafers/13') {
-          req.flush(
-            { error: { code: 'not_found', message: 'Wafer 13 was not found' } },
-            { status: 404, statusText: 'Not Found' },
-          );
-        } else answer(req);
-      }
-    }
-    await fixture.whenStable();
+    const fixture = await renderWafer('13', (req) => {
+      asked.push(req.request.url);
+      if (req.request.url === '/api/wafers/13') {
+        req.flush(
+          { error: { code: 'not_found', message: 'Wafer 13 was not found' } },
+          { status: 404, statusText: 'Not Found' },
+        );
+      } else answer(req);
+    });
     const text = (fixture.nativeElement.textContent as string).replace(/\s+/g, ' ');
     expect(text).toContain('Not available to you');
     expect(text).toContain('Back to your bench');

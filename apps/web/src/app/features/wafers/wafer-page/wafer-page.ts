@@ -1,6 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
@@ -11,6 +12,7 @@ import {
   type AssignmentState,
   type SweepSummaryDto,
   WAFER_STATES,
+  type WaferDto,
   type WaferState,
 } from '@rhotrace/api-types';
 import { catchError, filter, of, switchMap } from 'rxjs';
@@ -35,6 +37,7 @@ import { PlanForm } from '../../planner/plan-form/plan-form';
 import { PlanView } from '../../planner/plan-view/plan-view';
 import { RowCards } from '../../../shared/row-cards';
 import { SkipTarget } from '../../../shared/skip-target';
+import { WaferEditDialog, type WaferEditQuestion } from './wafer-edit-dialog';
 
 const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; words: string }>> = {
   assigned: { state: 'in progress', words: 'Start' },
@@ -79,6 +82,7 @@ export class WaferPage {
   private readonly session = inject(Session);
   private readonly router = inject(Router);
   private readonly confirmer = inject(Confirmer);
+  private readonly dialog = inject(MatDialog);
 
   readonly id = input.required<string>();
   protected readonly waferId = computed(() => Number(this.id()));
@@ -235,6 +239,23 @@ export class WaferPage {
   }
 
   /** Deletes a wafer not yet measured (the API refuses a measured one with a message). */
+  protected editWafer(wafer: WaferDto): void {
+    const lot = this.lot.value();
+    this.dialog
+      .open<WaferEditDialog, WaferEditQuestion, WaferDto>(WaferEditDialog, {
+        data: {
+          wafer,
+          lotCode: lot?.code ?? wafer.lotCode ?? '',
+          lotThicknessCm: lot?.thicknessCm ?? null,
+        },
+        width: '480px',
+      })
+      .afterClosed()
+      .subscribe((saved) => {
+        if (saved) this.wafer.reload();
+      });
+  }
+
   protected removeWafer(number: string, lotId: number): void {
     this.confirmer
       .ask({

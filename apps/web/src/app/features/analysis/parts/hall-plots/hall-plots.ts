@@ -46,8 +46,12 @@ export class HallPlots {
   readonly hall = input.required<HallAnalysis>();
   readonly models = input.required<HallModels>();
   readonly window = input<{ minK: number; maxK: number } | null>(null);
+  /** The flagged readings' trace for the ρ(T) plot (null: none flagged). */
+  readonly flagged = input<Record<string, unknown> | null>(null);
 
-  protected readonly rho = computed(() => resistivityPlot(this.steps(), this.window()));
+  protected readonly rho = computed(() =>
+    resistivityPlot(this.steps(), this.window(), this.flagged()),
+  );
   protected readonly density = computed(() =>
     densityPlot(this.hall().steps, this.models().density, this.window()),
   );

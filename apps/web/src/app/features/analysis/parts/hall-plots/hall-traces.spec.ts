@@ -1,5 +1,6 @@
 import type { HallAnalysisStep } from '@rhotrace/api-types';
-import { densityPlot, mobilityPlot } from './hall-traces';
+import { flaggedCurveTrace } from '../sweep-faults/flagged-traces';
+import { densityPlot, mobilityPlot, resistivityPlot } from './hall-traces';
 
 const step = (temperatureK: number, n: number, mu: number): HallAnalysisStep => ({
   temperatureK,
@@ -13,6 +14,21 @@ const step = (temperatureK: number, n: number, mu: number): HallAnalysisStep => 
 const steps = [step(50, 1e13, 2e4), step(100, 5e14, 9e3), step(200, 1e15, 2e3)];
 
 describe('Hall plot traces', () => {
+  it('draws the flagged readings on ρ(T) as their own trace, in kelvin, and none when none', () => {
+    const rhoSteps = [300, 320].map((t) => ({
+      temperatureK: t,
+      resistivityOhmCm: t / 100,
+      spreadOhmCm: 0,
+      count: 1,
+    }));
+    const mark = { temperatureK: 310, resistivityOhmCm: 9, why: 'Point 4<br>Outlier: far off' };
+    const flagged = flaggedCurveTrace([mark], 'K', false);
+    const plot = resistivityPlot(rhoSteps, null, flagged);
+    expect(plot.data).toHaveLength(2);
+    expect(plot.data[1]).toMatchObject({ name: 'flagged (left out of fits)', x: [310], y: [9] });
+    expect(resistivityPlot(rhoSteps, null, flaggedCurveTrace([], 'K', false)).data).toHaveLength(1);
+  });
+
   it('draws n against 1000/T on a log axis and shades the window in 1000/T', () => {
     const plot = densityPlot(
       steps,

@@ -62,18 +62,18 @@ function windowShape(window: { minK: number; maxK: number } | null, toX: (t: num
   ];
 }
 
-/** rho(T), log y. */
+/** rho(T), log y, with the flagged readings' own trace when there are any. */
 export function resistivityPlot(
   steps: readonly AnalysisStep[],
   window: { minK: number; maxK: number } | null,
+  flagged: Record<string, unknown> | null = null,
 ) {
+  const measured = markers('Measured ρ', {
+    x: steps.map((s) => s.temperatureK),
+    y: steps.map((s) => s.resistivityOhmCm),
+  });
   return {
-    data: [
-      markers('Measured ρ', {
-        x: steps.map((s) => s.temperatureK),
-        y: steps.map((s) => s.resistivityOhmCm),
-      }),
-    ],
+    data: flagged ? [measured, flagged] : [measured],
     layout: {
       xaxis: { title: { text: 'Temperature (K)' } },
       yaxis: { title: { text: 'ρ (Ω·cm)' }, type: 'log', exponentformat: 'power' },

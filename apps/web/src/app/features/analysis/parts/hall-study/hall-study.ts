@@ -8,6 +8,7 @@ import { HallMobilityFit } from '../hall-mobility-fit/hall-mobility-fit';
 import { HallPlots } from '../hall-plots/hall-plots';
 import { HallFitsStore } from './hall-fits-store';
 import { type HallDoping, hallModels } from './hall-models';
+import { flaggedCurveTrace, flaggedMarks } from '../sweep-faults/flagged-traces';
 
 const CARRIER_WORDS = {
   n: 'n-type (electrons; negative Hall coefficient)',
@@ -49,6 +50,7 @@ function fittedDoping(fit: FitDto | FitPreviewDto): HallDoping {
           [hall]="v.hall"
           [models]="models()"
           [window]="fits.window()"
+          [flagged]="flagged()"
         />
       </section>
       <div class="hall-fits">
@@ -78,6 +80,11 @@ export class HallStudy {
     const a = this.study.analysis.value();
     return a?.hall ? { hall: a.hall, steps: a.steps, material: a.sweep.material } : null;
   });
+
+  /** The studied leg's flagged readings on the ρ(T) plot (kelvin, as its axis). */
+  protected readonly flagged = computed(() =>
+    flaggedCurveTrace(flaggedMarks(this.study.analysis.value()), 'K', this.study.includeFlagged()),
+  );
 
   /** The values at 300 K with their standard uncertainties and units. */
   protected readonly at300K = computed(() => {

@@ -14,6 +14,7 @@ describe('SweepFaults', () => {
       leg: 1,
       thermalLag: { lagK: 1.02, standardErrorK: 0.05 },
       flaggedPoints: 1,
+      flaggedReadings: [{ sequence: 15, temperatureK: 330, resistivityOhmCm: 2.1 }],
       findings: [
         {
           sequence: 15,
@@ -41,6 +42,18 @@ describe('SweepFaults', () => {
     api.analysisAnswer = { ...api.analysisAnswer, importWarnings: [ratio] };
     const { fixture } = await mountPart(SweepFaults, api);
     expect((fixture.nativeElement as HTMLElement).textContent).toContain(ratio);
+  });
+
+  it('lists only the studied leg’s doubtful points and counts those of the other legs', async () => {
+    const api = withLegs();
+    // leg 2 studied: its flagged readings are none; point 15 of leg 1 is counted, not listed
+    api.analysisAnswer = { ...api.analysisAnswer, leg: 2, flaggedReadings: [] };
+    const { fixture } = await mountPart(SweepFaults, api);
+    const text = ((fixture.nativeElement as HTMLElement).textContent ?? '').replace(/\s+/g, ' ');
+    expect(text).toContain('Doubtful points of leg 2');
+    expect(text).toContain('None in this leg.');
+    expect(text).toContain('1 more point lies in the other legs');
+    expect(text).not.toContain('Point 15 (row 16)');
   });
 
   it('asks the analysis for the leg picked', async () => {

@@ -21,6 +21,25 @@ export class SweepFaults {
   protected readonly analysis = computed(() => this.store.analysis.value());
   protected readonly legs = computed(() => this.analysis()?.legs ?? []);
   protected readonly findings = computed(() => this.analysis()?.findings ?? []);
+  /**
+   * The findings of what the plots show: every leg's, or with one leg studied, those of its
+   * readings (the API's `flaggedReadings` are the studied leg's).
+   */
+  protected readonly shownFindings = computed(() => {
+    const a = this.analysis();
+    if (a?.leg === null || a?.leg === undefined) return this.findings();
+    const inLeg = new Set((a.flaggedReadings ?? []).map((r) => r.sequence));
+    return this.findings().filter((f) => inLeg.has(f.sequence));
+  });
+  /** Points with findings in the legs not shown. */
+  protected readonly elsewhere = computed(() => {
+    const shown = new Set(this.shownFindings().map((f) => f.sequence));
+    return new Set(
+      this.findings()
+        .map((f) => f.sequence)
+        .filter((q) => !shown.has(q)),
+    ).size;
+  });
   protected readonly importWarnings = computed(() => this.analysis()?.importWarnings ?? []);
   /** The leg shown: the API's choice (null: all legs). */
   protected readonly chosen = computed(() => {
