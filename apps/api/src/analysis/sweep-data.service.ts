@@ -46,10 +46,16 @@ interface CachedReadings {
 
 /** Readings kept across all cached sweeps (about 60 bytes each). */
 export const READINGS_CACHE_LIMIT = 1_000_000;
-/** Readings of recently analysed sweeps: each sweep's points are read from the database once. */
+/**
+ * Readings of recently analysed sweeps: each sweep's points are read from the database once.
+ * One sweep may fill the whole cache: reading a sweep from the largest files the upload takes
+ * (20 MB, about 600,000 readings) costs seconds, and a study asks for it again at every leg,
+ * window or fit, so it is kept even if it pushes the others out.
+ */
 const readingsCache = new SweepCache<CachedReadings>(
   READINGS_CACHE_LIMIT,
   (r) => r.points.length + r.skippedK.length,
+  1,
 );
 
 async function loadReadings(sweep: SweepIdentity): Promise<CachedReadings> {

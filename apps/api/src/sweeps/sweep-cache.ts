@@ -18,13 +18,15 @@ export class SweepCache<T> {
   private total = 0;
 
   /**
-   * @param limit total size (as `sizeOf` counts it) kept across all sweeps; one sweep larger
-   *   than a quarter of it is never kept
+   * @param limit total size (as `sizeOf` counts it) kept across all sweeps
    * @param sizeOf the size of one value, e.g. its number of points
+   * @param largestShare the largest part of `limit` one sweep may take (a larger one is never
+   *   kept); a quarter by default, so one big sweep cannot push out every other
    */
   constructor(
     private readonly limit: number,
     private readonly sizeOf: (value: T) => number,
+    private readonly largestShare = 0.25,
   ) {}
 
   /** Cache key: the database as well as the id, since a test process may talk to several. */
@@ -50,7 +52,7 @@ export class SweepCache<T> {
   remember(sweep: SweepIdentity, value: T): T {
     this.forget(sweep.id);
     const size = this.sizeOf(value);
-    if (size > this.limit / 4) return value;
+    if (size > this.limit * this.largestShare) return value;
     this.entries.set(this.key(sweep.id), { stamp: stampOf(sweep), value, size });
     this.total += size;
     for (const [oldest, entry] of this.entries) {
