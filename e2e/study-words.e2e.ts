@@ -86,8 +86,8 @@ describe('words on screen and the study page', () => {
       .toMatch(/Arrhenius fit, \d+\.\d–\d+\.\d K \(preview\)/);
 
     await page.getByLabel('Temperature unit').getByText('°C').click();
-    const header = await page.locator('h1 + p').innerText();
-    expect(header).toMatch(/-?\d+\.\d–-?\d+\.\d °C/);
+    // The page redraws after the click's change detection: read the header once it has.
+    await expect.poll(() => page.locator('h1 + p').innerText()).toMatch(/-?\d+\.\d–-?\d+\.\d °C/);
     await expect
       .poll(async () => (await legend.allTextContents()).join(' | '))
       .toMatch(/Arrhenius fit, -?\d+\.\d–-?\d+\.\d °C \(preview\)/);

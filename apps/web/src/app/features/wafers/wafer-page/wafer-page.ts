@@ -22,10 +22,8 @@ import { Downloader } from '../../../shared/download';
 import { EstimateNote } from '../../../shared/estimate-note';
 import { formatDay } from '../../../shared/format';
 import { FormatLengthPipe, FormatValuePipe } from '../../../shared/format-value';
-import { thinForDisplay } from '../../../shared/plot/decimate';
 import { ValueAt23C } from '../../../shared/value-at-23c/value-at-23c';
-import { PLOT_ROLES } from '../../../shared/plot/palette';
-import { Plot } from '../../../shared/plot/plot';
+import { SweepPoints } from '../sweep-points/sweep-points';
 import { LotsApi } from '../../lots/lots-api';
 import { METHOD_WORDS } from '../sweep-upload/column-units';
 import { SweepUpload } from '../sweep-upload/sweep-upload';
@@ -62,7 +60,7 @@ const NEXT_STATE: Partial<Record<AssignmentState, { state: AssignmentState; word
     RouterLink,
     FormatValuePipe,
     FormatLengthPipe,
-    Plot,
+    SweepPoints,
     SweepUpload,
     EstimateNote,
     ValueAt23C,
@@ -148,18 +146,11 @@ export class WaferPage {
     const id = this.shownSweepId();
     return this.sweeps.value()?.find((s) => s.id === id)?.map ? id : null;
   });
-  protected readonly shownSweep = rxResource({
-    params: () => this.shownSweepId() ?? undefined,
-    stream: ({ params }) => this.api.sweep(params),
+  /** The shown sweep as listed (its points are the `rt-sweep-points` part's). */
+  protected readonly shownSummary = computed(() => {
+    const id = this.shownSweepId();
+    return this.sweeps.value()?.find((s) => s.id === id) ?? null;
   });
-  protected readonly pointColumns = [
-    'sequence',
-    'temperatureK',
-    'currentA',
-    'voltageV',
-    'resistivityOhmCm',
-    'flags',
-  ];
   protected readonly sweepColumns = [
     'file',
     'counts',
@@ -170,36 +161,6 @@ export class WaferPage {
     'when',
     'actions',
   ];
-
-  protected readonly pointsPlot = computed(() => {
-    const sweep = this.shownSweep.value();
-    if (!sweep) return null;
-    // SVG markers only (no WebGL); long sweeps are thinned for display, never for analysis.
-    const { shown } = thinForDisplay(
-      sweep.points,
-      (p) => p.temperatureK,
-      (p) => p.resistivityOhmCm,
-      'measured',
-    );
-    return {
-      data: [
-        {
-          type: 'scatter',
-          mode: 'markers',
-          name: 'measured ρ',
-          x: shown.map((p) => p.temperatureK),
-          y: shown.map((p) => p.resistivityOhmCm),
-          marker: { color: PLOT_ROLES.measured, size: shown.length < sweep.points.length ? 4 : 6 },
-          hovertemplate: '%{x:.2f} K: %{y:.4g} Ω·cm<extra></extra>',
-        },
-      ],
-      layout: {
-        xaxis: { title: { text: 'Temperature (K)' } },
-        yaxis: { title: { text: 'Resistivity (Ω·cm)' }, type: 'log' },
-        showlegend: false,
-      },
-    };
-  });
 
   protected methodWord(method: string): string {
     return (METHOD_WORDS as Record<string, string>)[method] ?? method;
