@@ -5,8 +5,8 @@
  * slice, storing each point once its leg is settled while the rest are converted, then flags the
  * whole sweep (rewriting the flags of the points already stored that the whole-sweep checks
  * flag), and stores the sweep, its raw file, its points and the audit event in one
- * transaction, all together or not at all. A transaction failure of the moment (a deadlock, a Galera certification failure or
- * abort) runs the whole upload once more; a second one is a 503.
+ * transaction, all together or not at all. A transaction failure of the moment (a deadlock, a
+ * Galera certification failure or abort) runs the whole upload once more; a second one is a 503.
  */
 import { createHash } from 'node:crypto';
 import { MAX_FINDINGS, type SessionUser, type SweepCreatedResponse } from '@rhotrace/api-types';
