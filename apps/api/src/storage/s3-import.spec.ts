@@ -9,7 +9,7 @@ import S3rver from 's3rver';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { importSweep } from '../sweeps/sweep-import.service';
-import { makeWafer } from '../sweeps/sweep-test-helpers';
+import { makeWafer, uploadFourPoint } from '../sweeps/sweep-test-helpers';
 import { RawFile, Sweep, SweepPoint } from '../sweeps/sweep.model';
 import { freePortForTest } from '../testing/free-port';
 import { createTestContext, type TestContext } from '../testing/test-context';
@@ -44,13 +44,7 @@ async function bucketKeys(): Promise<string[]> {
   return (res.Contents ?? []).map((o) => o.Key!).sort();
 }
 
-const upload = (waferId: number, file: Buffer) =>
-  request(ctx.app)
-    .post(`/api/wafers/${waferId}/sweeps`)
-    .set(ctx.auth('engineer'))
-    .field('method', 'four-point')
-    .field('spacingCm', '0.1')
-    .attach('file', file, 'sweep.csv');
+const upload = (waferId: number, file: Buffer) => uploadFourPoint(ctx, waferId, file);
 
 beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'rhotrace-s3-e2e-'));

@@ -6,13 +6,12 @@
  * gets 201 with the sweep, which is stored once with its points, raw file and audit event.
  * The error is raised from an after-commit hook of the upload's own transaction.
  */
-import request from 'supertest';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Options, Transaction } from 'sequelize';
 import { AuditEvent } from '../audit/audit-event.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { fourPointCsv } from '../testing/sweep-files';
-import { makeWafer } from './sweep-test-helpers';
+import { makeWafer, uploadFourPoint } from './sweep-test-helpers';
 import { RawFile, Sweep, SweepPoint } from './sweep.model';
 
 let ctx: TestContext;
@@ -26,13 +25,7 @@ afterEach(() => {
   ctx.sequelize.removeHook('beforeQuery', 'fail-after-commit');
 });
 
-const upload = (waferId: number, file: Buffer) =>
-  request(ctx.app)
-    .post(`/api/wafers/${waferId}/sweeps`)
-    .set(ctx.auth('engineer'))
-    .field('method', 'four-point')
-    .field('spacingCm', '0.1')
-    .attach('file', file, 'sweep.csv');
+const upload = (waferId: number, file: Buffer) => uploadFourPoint(ctx, waferId, file);
 
 /** Makes the next upload transaction's COMMIT take effect and then fail with `error`. */
 function failAfterCommit(error: Error): void {

@@ -15,7 +15,7 @@ import type { Options, Transaction } from 'sequelize';
 import { AuditEvent } from '../audit/audit-event.model';
 import { createTestContext, type TestContext } from '../testing/test-context';
 import { fourPointCsv } from '../testing/sweep-files';
-import { makeWafer } from './sweep-test-helpers';
+import { makeWafer, uploadFourPoint } from './sweep-test-helpers';
 import { RawFile, Sweep, SweepPoint } from './sweep.model';
 
 let ctx: TestContext;
@@ -35,13 +35,7 @@ afterEach(async () => {
 /** Rows of the points file: a point 1234 to delete, and rows enough for a fault mid-insert. */
 const ROWS = 2_500;
 
-const upload = (waferId: number, file: Buffer) =>
-  request(ctx.app)
-    .post(`/api/wafers/${waferId}/sweeps`)
-    .set(ctx.auth('engineer'))
-    .field('method', 'four-point')
-    .field('spacingCm', '0.1')
-    .attach('file', file, 'sweep.csv');
+const upload = (waferId: number, file: Buffer) => uploadFourPoint(ctx, waferId, file);
 
 async function counts() {
   return {

@@ -1,6 +1,8 @@
 /**
- * Records the sweep specs need: a lot, a wafer, a station, an assignment.
+ * Records the sweep specs need: a lot, a wafer, a station, an assignment; and the plain
+ * four-point upload the fault specs send.
  */
+import request from 'supertest';
 import { Assignment } from '../assignments/assignment.model';
 import { Lot } from '../lots/lot.model';
 import { Station } from '../stations/station.model';
@@ -71,4 +73,14 @@ export async function assignToTechnician(ctx: TestContext, waferId: number): Pro
     dueDate: '2031-01-31',
     notes: null,
   });
+}
+
+/** Uploads `file` to a wafer as the engineer: a four-point sweep, probe spacing 1 mm. */
+export function uploadFourPoint(ctx: TestContext, waferId: number, file: Buffer) {
+  return request(ctx.app)
+    .post(`/api/wafers/${waferId}/sweeps`)
+    .set(ctx.auth('engineer'))
+    .field('method', 'four-point')
+    .field('spacingCm', '0.1')
+    .attach('file', file, 'sweep.csv');
 }
