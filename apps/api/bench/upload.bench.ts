@@ -20,6 +20,7 @@ import { makeWafer } from '../src/sweeps/sweep-test-helpers';
 import { QueryTypes } from 'sequelize';
 import { Sweep } from '../src/sweeps/sweep.model';
 import { createTestContext } from '../src/testing/test-context';
+import { WRITTEN_POINT_COLUMNS } from '../src/sweeps/import/store/point-writer';
 
 const ROWS = 100_000;
 /** Measured runs of each (BENCH_RUNS overrides; a noisy machine needs more). */
@@ -28,24 +29,8 @@ const RATIO_TARGET = 1.5;
 /** Issue 20: the upload within twice the time of MariaDB's own LOAD DATA of the same rows. */
 const LOAD_DATA_RATIO_TARGET = 2;
 const MEMORY_TARGET_MB = 300;
-/** Every column the import writes besides the sweep id and sequence. */
-const STORED_COLUMNS = [
-  'source_row',
-  'temperature_k',
-  'current_a',
-  'voltage_v',
-  'resistance_ohm',
-  'sheet_resistance_ohm_sq',
-  'resistivity_ohm_cm',
-  'raw',
-  'flags',
-  'quantities',
-  'site_x_mm',
-  'site_y_mm',
-  'site_label',
-  'edge_factor',
-  'leg',
-];
+/** Every column the import writes besides the sweep id and sequence: the writer's own list. */
+const STORED_COLUMNS = WRITTEN_POINT_COLUMNS.filter((c) => c !== 'sequence');
 const OUT = fileURLToPath(new URL('../../../bench/out/', import.meta.url));
 
 function makeFile(seed: number): Buffer {

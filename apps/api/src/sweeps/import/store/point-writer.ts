@@ -22,6 +22,12 @@ const POINT_COLUMNS = [
 ];
 const SITE_COLUMNS = ['site_x_mm', 'site_y_mm', 'site_label', 'edge_factor'];
 const QUANTITY_COLUMNS = ['quantities'];
+/** Every column the writer may fill besides the sweep id (the upload bench loads the same). */
+export const WRITTEN_POINT_COLUMNS: readonly string[] = [
+  ...POINT_COLUMNS,
+  ...SITE_COLUMNS,
+  ...QUANTITY_COLUMNS,
+];
 
 /**
  * The insert of a batch: the sweep id written once in the statement, and the site and quantity
