@@ -35,7 +35,7 @@ function hallWords(h: LotSummaryResponse['wafers'][number]['hall']): string {
   return (
     `; Hall at 300 K (sweep ${h.sweepId}, ${h.carrierType === 'mixed' ? 'sign changes' : `${h.carrierType}-type`}, ` +
     `r_H ${h.hallFactor.toPrecision(3)}): ` +
-    `${hallAt300KWords(h)}, ${hallUncertaintyWords(h).replace(/^± /, '± is the ')}`
+    `${hallAt300KWords(h)}, ${hallUncertaintyWords(h, '± is the ')}`
   );
 }
 

@@ -127,11 +127,14 @@ export function hallAt300KWords(
   );
 }
 
-/** What the ± of `hallAt300KWords` is, or why there is none. */
-export function hallUncertaintyWords(h: Pick<HallAt300K, 'carrierDensityAt300KUncertaintyCm3'>) {
+/** What the ± of `hallAt300KWords` is (after `lead`), or why there is none. */
+export function hallUncertaintyWords(
+  h: Pick<HallAt300K, 'carrierDensityAt300KUncertaintyCm3'>,
+  lead = '± ',
+) {
   return h.carrierDensityAt300KUncertaintyCm3 == null
     ? 'one reading a step: no scatter to give an uncertainty'
-    : '± standard uncertainty, k = 1, from the readings’ scatter; the Hall factor is assumed, not in it';
+    : `${lead}standard uncertainty, k = 1, from the readings’ scatter; the Hall factor is assumed, not in it`;
 }
 
 /**
