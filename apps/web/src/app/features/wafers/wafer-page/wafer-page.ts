@@ -141,15 +141,15 @@ export class WaferPage {
   protected readonly shownSweepId = computed(
     () => this.chosenSweepId() ?? this.sweeps.value()?.[0]?.id ?? null,
   );
-  /** The shown sweep's id when it is a wafer map. */
-  protected readonly shownMapId = computed(() => {
-    const id = this.shownSweepId();
-    return this.sweeps.value()?.find((s) => s.id === id)?.map ? id : null;
-  });
   /** The shown sweep as listed (its points are the `rt-sweep-points` part's). */
   protected readonly shownSummary = computed(() => {
     const id = this.shownSweepId();
     return this.sweeps.value()?.find((s) => s.id === id) ?? null;
+  });
+  /** The shown sweep's id when it is a wafer map. */
+  protected readonly shownMapId = computed(() => {
+    const shown = this.shownSummary();
+    return shown?.map ? shown.id : null;
   });
   protected readonly sweepColumns = [
     'file',
