@@ -44,7 +44,8 @@ async function bucketKeys(): Promise<string[]> {
   return (res.Contents ?? []).map((o) => o.Key!).sort();
 }
 
-const upload = (waferId: number, file: Buffer) => uploadFourPoint(ctx, waferId, file);
+const upload = (waferId: number, file: Buffer) =>
+  uploadFourPoint(ctx, ctx.auth('engineer'), waferId, file);
 
 beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), 'rhotrace-s3-e2e-'));

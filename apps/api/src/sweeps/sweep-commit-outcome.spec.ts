@@ -25,7 +25,8 @@ afterEach(() => {
   ctx.sequelize.removeHook('beforeQuery', 'fail-after-commit');
 });
 
-const upload = (waferId: number, file: Buffer) => uploadFourPoint(ctx, waferId, file);
+const upload = (waferId: number, file: Buffer) =>
+  uploadFourPoint(ctx, ctx.auth('engineer'), waferId, file);
 
 /** Makes the next upload transaction's COMMIT take effect and then fail with `error`. */
 function failAfterCommit(error: Error): void {

@@ -35,7 +35,8 @@ afterEach(async () => {
 /** Rows of the points file: a point 1234 to delete, and rows enough for a fault mid-insert. */
 const ROWS = 2_500;
 
-const upload = (waferId: number, file: Buffer) => uploadFourPoint(ctx, waferId, file);
+const upload = (waferId: number, file: Buffer) =>
+  uploadFourPoint(ctx, ctx.auth('engineer'), waferId, file);
 
 async function counts() {
   return {

@@ -75,11 +75,19 @@ export async function assignToTechnician(ctx: TestContext, waferId: number): Pro
   });
 }
 
-/** Uploads `file` to a wafer as the engineer: a four-point sweep, probe spacing 1 mm. */
-export function uploadFourPoint(ctx: TestContext, waferId: number, file: Buffer) {
+/**
+ * Uploads `file` to a wafer as the signed-in user `auth` gives (`ctx.auth(role)`): a four-point
+ * sweep, probe spacing 1 mm.
+ */
+export function uploadFourPoint(
+  ctx: TestContext,
+  auth: Record<string, string>,
+  waferId: number,
+  file: Buffer,
+) {
   return request(ctx.app)
     .post(`/api/wafers/${waferId}/sweeps`)
-    .set(ctx.auth('engineer'))
+    .set(auth)
     .field('method', 'four-point')
     .field('spacingCm', '0.1')
     .attach('file', file, 'sweep.csv');
